@@ -1,0 +1,30 @@
+/**
+ * strainledger's own colours and chart style (one place for notebooks and the HTML report).
+ * Chosen for contrast on white and for colour-blind readers (no red/green pair carries meaning
+ * alone: states are also written in words).
+ */
+export const PALETTE = {
+  ink: '#1f2a36',
+  grid: '#d9dee4',
+  /** Reload yield and other strengths. */
+  strength: '#2b5d8a',
+  /** Ductility (remaining uniform elongation). */
+  ductility: '#b5651d',
+  /** Cold work. */
+  coldWork: '#6a5d8f',
+  /** Elastic quantities (recovery, springback). */
+  elastic: '#2f7f6f',
+  /** Target band fill (with opacity) and target met / not met marks. */
+  band: '#8fb3d1',
+  met: '#2f7f6f',
+  missed: '#a8322d',
+  /** Series colours for comparing laws side by side. */
+  laws: ['#2b5d8a', '#b5651d', '#2f7f6f', '#6a5d8f', '#8a6d1f', '#a8322d'],
+} as const;
+
+export const CHART_STYLE = {
+  fontFamily: 'system-ui, -apple-system, "Segoe UI", sans-serif',
+  fontSize: '12px',
+  color: PALETTE.ink,
+  background: 'white',
+} as const;

@@ -1,0 +1,137 @@
+import { ComputationError } from '../errors.js';
+import { PROOF_OFFSET, stateProperties } from './state.js';
+import { STEP_KINDS, stockOf, type ReductionBasis } from './steps.js';
+import { checkTargets, validateTargets } from './targets.js';
+import type { Ledger, LedgerRow, RouteInput, Size, StockKind, Warning } from './types.js';
+import { coldWorkWindow } from './window.js';
+
+/** Options of {@link evaluateRoute}. */
+export interface LedgerOptions {
+  /** Formats a length given in mm in the plan's unit, for messages; defaults to `"<x> mm"`. */
+  length?: (mm: number) => string;
+}
+
+const defaultLength = (mm: number) => `${+mm.toPrecision(6)} mm`;
+
+/**
+ * Percent cold work since the last anneal (the trade's %CW): thickness reduction for strip, area
+ * reduction for wire and bar (Callister's %CW = (A0 − A)/A0·100), and for a specimen the area
+ * reduction a uniaxial strain of the same size would give, 100·(1 − exp(−ε̄)).
+ */
+function coldWork(stock: StockKind, ref: Size, size: Size, strainSince: number): number {
+  if (stock === 'strip' && ref.thickness !== undefined && size.thickness !== undefined) return (1 - size.thickness / ref.thickness) * 100;
+  if (stock === 'wire' && ref.diameter !== undefined && size.diameter !== undefined) return (1 - (size.diameter / ref.diameter) ** 2) * 100;
+  return -Math.expm1(-strainSince) * 100;
+}
+
+/**
+ * Carries a material through a route of forming steps and anneals and returns the ledger: one row per
+ * step with the accumulated von Mises plastic strain, %CW since the last anneal and the properties of
+ * {@link stateProperties}, the mean flow stress and plastic work of the step, warnings, the targets
+ * checked on the final state, and the cold-work window.
+ *
+ * Hardening is isotropic and the same loading direction is assumed for the reload yield. An anneal
+ * with softening fraction f lowers the flow stress to σ(ε̄) − f·(σ(ε̄) − σ(0)) and sets the strain to the
+ * one the law gives for that stress ("fractional softening", the measure used for static recovery
+ * and recrystallisation, e.g. Humphreys & Hatherly, *Recrystallization and Related Annealing
+ * Phenomena*, 2nd ed., §6.2); f = 1 is a full anneal to the starting state.
+ * Units: MPa, mm, dimensionless strain, MJ/m³ for work and energy.
+ * @throws InputError naming `steps[i].field` for a step that cannot happen; ComputationError for a
+ * number that cannot be computed (never a NaN in the result).
+ */
+export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledger {
+  const { material, start, steps } = input;
+  const length = opts.length ?? defaultLength;
+  const law = material.law;
+  const eu = law.uniformStrain();
+  const targets = validateTargets(input.targets ?? {});
+  const stock = stockOf(start);
+  const fitted = material.fittedStrainRange;
+
+  let size: Size = { ...start };
+  let eps = 0;
+  let annealSize: Size = size;
+  let strainSince = 0;
+  let epsAfterAnneal = 0;
+  let basis: ReductionBasis = null;
+  const rows: LedgerRow[] = new Array(steps.length);
+
+  for (let i = 0; i < steps.length; i++) {
+    const step = steps[i]!;
+    const path = `steps[${i}]`;
+    const def = STEP_KINDS[step.kind];
+    const effect = def.apply(step, { stock, size, path, length });
+    const before = eps;
+    let meanFlowStress = 0;
+    let plasticWork = 0;
+    if (effect.softeningFraction !== undefined) {
+      const f = effect.softeningFraction;
+      if (f >= 1) eps = 0;
+      else {
+        const s0 = law.stress(0);
+        eps = law.strainAt(law.stress(eps) - f * (law.stress(eps) - s0));
+      }
+      annealSize = effect.size;
+      strainSince = 0;
+      epsAfterAnneal = eps;
+    } else {
+      const d = effect.strainIncrement;
+      eps = before + d;
+      strainSince += d;
+      plasticWork = law.work(eps) - law.work(before);
+      meanFlowStress = d > 1e-12 ? plasticWork / d : law.stress(eps);
+      basis = def.reductionBasis;
+    }
+    size = effect.size;
+    const p = stateProperties(material, eps, eu);
+    const warnings: Warning[] = [];
+    if (eps >= eu && effect.softeningFraction === undefined) {
+      warnings.push({ code: 'necking', message: `accumulated strain ${eps.toFixed(4)} is at or past the uniform strain ${eu.toFixed(4)}: necking risk in tension, no uniform elongation left` });
+    }
+    if (fitted && eps + PROOF_OFFSET > fitted[1]) {
+      warnings.push({ code: 'extrapolated', message: `law used beyond the strain range it was fitted on (${(eps + PROOF_OFFSET).toFixed(4)} > ${fitted[1].toFixed(4)})` });
+    }
+    const row: LedgerRow = {
+      index: i + 1,
+      kind: step.kind,
+      size,
+      strainIncrement: effect.strainIncrement,
+      accumulatedStrain: eps,
+      coldWorkPct: coldWork(stock, annealSize, size, strainSince),
+      flowStress: p.flowStress,
+      reloadYield: p.reloadYield,
+      tensileStrength: p.tensileStrength,
+      yieldRatio: p.yieldRatio,
+      remainingUniformStrain: p.remainingUniformStrain,
+      remainingUniformElongationPct: p.remainingUniformElongationPct,
+      elasticModulus: p.elasticModulus,
+      elasticRecoveryStrain: p.elasticRecoveryStrain,
+      recoveredElasticEnergy: p.recoveredElasticEnergy,
+      meanFlowStress,
+      plasticWork,
+      warnings,
+    };
+    // One sum finds any non-finite field cheaply; only then look for which one.
+    const sum = row.accumulatedStrain + row.coldWorkPct + row.flowStress + row.reloadYield + row.tensileStrength + row.yieldRatio +
+      row.remainingUniformElongationPct + row.elasticRecoveryStrain + row.recoveredElasticEnergy + row.meanFlowStress + row.plasticWork +
+      (size.thickness ?? 0) + (size.diameter ?? 0) + (size.width ?? 0) + (size.height ?? 0);
+    if (!Number.isFinite(sum)) {
+      for (const [k, v] of Object.entries(row)) if (typeof v === 'number' && !Number.isFinite(v)) throw new ComputationError(`${path}.${k}`, `not a finite number (${v}); check the law parameters and the step size`);
+      throw new ComputationError(`${path}.size`, 'size is not finite; check the step size');
+    }
+    rows[i] = row;
+  }
+
+  const initial = stateProperties(material, 0, eu);
+  const final = rows.length > 0 ? rows[rows.length - 1]! : initial;
+  const results = checkTargets(final, targets);
+  return {
+    stock,
+    uniformStrain: eu,
+    initial,
+    rows,
+    targets: results,
+    allTargetsMet: results.every((t) => t.met),
+    coldWorkWindow: coldWorkWindow(law, epsAfterAnneal, targets, basis),
+  };
+}

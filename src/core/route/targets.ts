@@ -1,0 +1,47 @@
+import { checkRange, InputError } from '../errors.js';
+import type { StateProperties, TargetName, TargetResult, Targets } from './types.js';
+
+/** Each target: the state property it limits and whether it is a lower (min) or upper (max) limit. */
+export const TARGET_DEFS: Readonly<Record<TargetName, { property: keyof StateProperties; sense: 'min' | 'max'; unit: 'stress' | 'percent' }>> = {
+  minYield: { property: 'reloadYield', sense: 'min', unit: 'stress' },
+  maxYield: { property: 'reloadYield', sense: 'max', unit: 'stress' },
+  minTensile: { property: 'tensileStrength', sense: 'min', unit: 'stress' },
+  minRemainingElongationPct: { property: 'remainingUniformElongationPct', sense: 'min', unit: 'percent' },
+};
+
+export const TARGET_NAMES = Object.keys(TARGET_DEFS) as TargetName[];
+
+/**
+ * Validates targets: each a finite number ≥ 0, and no pair contradicts (minYield ≤ maxYield).
+ * @throws InputError naming `targets.NAME`, the value and what is allowed.
+ */
+export function validateTargets(t: Targets, path = 'targets'): Targets {
+  const out: Targets = {};
+  for (const name of TARGET_NAMES) {
+    const v = t[name];
+    if (v === undefined) continue;
+    out[name] = checkRange(`${path}.${name}`, v, 0, TARGET_DEFS[name].unit === 'percent' ? 1000 : 1e5);
+  }
+  if (out.minYield !== undefined && out.maxYield !== undefined && out.minYield > out.maxYield) {
+    throw new InputError(`${path}.maxYield`, out.maxYield, `a value ≥ minYield (${out.minYield})`, 'contradictory targets');
+  }
+  return out;
+}
+
+/**
+ * Checks targets against a final state. margin = predicted − limit for a minimum, limit − predicted
+ * for a maximum; met when margin ≥ 0. Units: the target's own (MPa or %).
+ * @example checkTargets({ reloadYield: 320, ... }, { minYield: 300 })[0].margin // 20
+ */
+export function checkTargets(state: StateProperties, targets: Targets): TargetResult[] {
+  const out: TargetResult[] = [];
+  for (const name of TARGET_NAMES) {
+    const limit = targets[name];
+    if (limit === undefined) continue;
+    const def = TARGET_DEFS[name];
+    const predicted = state[def.property];
+    const margin = def.sense === 'min' ? predicted - limit : limit - predicted;
+    out.push({ name, limit, predicted, margin, met: margin >= 0 });
+  }
+  return out;
+}

@@ -1,0 +1,135 @@
+import type { FlowLaw } from '../flow/types.js';
+import type { ModulusDecay } from '../material/modulus.js';
+
+/** Cross-section and height of the stock, mm inside the core. Strip has `thickness`, wire and bar `diameter`. */
+export interface Size {
+  thickness?: number;
+  width?: number;
+  diameter?: number;
+  height?: number;
+}
+
+/** What the stock is, from the starting size: strip (thickness), wire or bar (diameter), or a specimen. */
+export type StockKind = 'strip' | 'wire' | 'specimen';
+
+/** A resolved material: everything in MPa, validated. */
+export interface Material {
+  name: string;
+  /** Young's modulus of the annealed material, MPa. */
+  elasticModulus: number;
+  /** Poisson's ratio, dimensionless; defaults to 0.3 (common practice for steels, copper alloys, aluminium). */
+  poissonRatio: number;
+  law: FlowLaw;
+  modulusDecay?: ModulusDecay;
+  /** Range of true plastic strain the law was fitted on; beyond it the ledger warns. */
+  fittedStrainRange?: readonly [number, number];
+  /** Where the law came from, for provenance: `given`, or `fitted from FILE`. */
+  source?: string;
+}
+
+export type StepKind = 'roll' | 'draw' | 'stretch' | 'stretchBiaxial' | 'upset' | 'shear' | 'strain' | 'anneal';
+
+/** A resolved step, sizes in mm. Exactly one way to give the size change where there is a choice. */
+export type Step =
+  | { kind: 'roll'; thickness?: number; reductionPct?: number }
+  | { kind: 'draw'; diameter?: number; areaReductionPct?: number }
+  | { kind: 'stretch'; strain?: number; engineeringStrain?: number }
+  | { kind: 'stretchBiaxial'; strain: number }
+  | { kind: 'upset'; height?: number; reductionPct?: number }
+  | { kind: 'shear'; shearStrain: number }
+  | { kind: 'strain'; strain: number }
+  | { kind: 'anneal'; softeningFraction?: number };
+
+/** Designer's limits on the final state, in MPa and percent. */
+export interface Targets {
+  minYield?: number;
+  maxYield?: number;
+  minTensile?: number;
+  minRemainingElongationPct?: number;
+}
+
+export type TargetName = keyof Targets;
+
+/** One target checked: margin > 0 means met with room; margin is in the target's own unit. */
+export interface TargetResult {
+  name: TargetName;
+  limit: number;
+  predicted: number;
+  margin: number;
+  met: boolean;
+}
+
+export interface Warning {
+  code: 'necking' | 'extrapolated' | 'yieldRatio';
+  message: string;
+}
+
+/** The state after one step: one row of the ledger (MPa, mm, strains true and dimensionless). */
+export interface LedgerRow {
+  index: number;
+  kind: StepKind;
+  size: Size;
+  strainIncrement: number;
+  accumulatedStrain: number;
+  coldWorkPct: number;
+  flowStress: number;
+  reloadYield: number;
+  tensileStrength: number;
+  yieldRatio: number;
+  remainingUniformStrain: number;
+  remainingUniformElongationPct: number;
+  elasticModulus: number;
+  elasticRecoveryStrain: number;
+  /** Elastic energy recovered on unloading per unit volume, σ²/(2E), MJ/m³ (numerically MPa). */
+  recoveredElasticEnergy: number;
+  meanFlowStress: number;
+  plasticWork: number;
+  warnings: Warning[];
+}
+
+/** Properties of a state that depend only on the accumulated strain (see {@link stateProperties}). */
+export interface StateProperties {
+  flowStress: number;
+  reloadYield: number;
+  tensileStrength: number;
+  yieldRatio: number;
+  remainingUniformStrain: number;
+  remainingUniformElongationPct: number;
+  elasticModulus: number;
+  elasticRecoveryStrain: number;
+  recoveredElasticEnergy: number;
+}
+
+export interface ColdWorkWindow {
+  /** True when no strain since the last anneal meets all the targets together. */
+  empty: boolean;
+  /** Equivalent strain since the last anneal, lower and upper end; null when empty (upper: null when unbounded). */
+  strainFrom: number | null;
+  strainTo: number | null;
+  /** The same window as percent reduction for the last forming step's kind, or null. */
+  reductionBasis: 'thickness' | 'area' | 'height' | null;
+  reductionPctFrom: number | null;
+  reductionPctTo: number | null;
+  /** Which target sets each end (null: the end is 0 strain or unbounded). */
+  limitedBy: { from: TargetName | null; to: TargetName | null };
+  /** In words, why the window is what it is. */
+  note: string;
+}
+
+export interface Ledger {
+  stock: StockKind;
+  /** Considère uniform true plastic strain of the annealed material. */
+  uniformStrain: number;
+  initial: StateProperties;
+  rows: LedgerRow[];
+  targets: TargetResult[];
+  allTargetsMet: boolean;
+  coldWorkWindow: ColdWorkWindow;
+}
+
+export interface RouteInput {
+  material: Material;
+  start: Size;
+  steps: readonly Step[];
+  targets?: Targets;
+}

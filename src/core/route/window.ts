@@ -1,0 +1,83 @@
+import type { FlowLaw } from '../flow/types.js';
+import { PROOF_OFFSET } from './state.js';
+import { reductionPctFromStrain, type ReductionBasis } from './steps.js';
+import type { ColdWorkWindow, TargetName, Targets } from './types.js';
+
+/**
+ * Cold-work window: the range of equivalent strain s added since the last anneal (on top of the
+ * strain ε_b left by that anneal) for which all targets hold together. Each target is monotone in
+ * the accumulated strain ε = ε_b + s, so each gives one bound, found with the law's inverse:
+ * - minYield Y: σ(ε + 0.002) ≥ Y ⇒ ε ≥ σ⁻¹(Y) − 0.002; maxYield likewise gives an upper bound;
+ * - minTensile T: T ≤ σ(εu)·e^(ε−εu) ⇒ ε ≥ εu + ln(T/σ(εu)) when T ≤ σ(εu), else ε ≥ σ⁻¹(T);
+ * - minRemainingElongationPct P: εu − ε ≥ ln(1 + P/100) ⇒ ε ≤ εu − ln(1 + P/100).
+ * The window is reported as strains and, for rolling, drawing and upsetting, as percent reduction
+ * (see {@link reductionPctFromStrain}). Units: dimensionless strain, percent.
+ * @example coldWorkWindow(hollomon({K: 530, n: 0.44}), 0, { minYield: 300 }, 'thickness').strainFrom
+ */
+export function coldWorkWindow(law: FlowLaw, base: number, targets: Targets, basis: ReductionBasis): ColdWorkWindow {
+  const eu = law.uniformStrain();
+  let lo = 0;
+  let hi = Infinity;
+  let loBy: TargetName | null = null;
+  let hiBy: TargetName | null = null;
+  const unreachable: string[] = [];
+  const raise = (eps: number, by: TargetName) => {
+    const s = eps - base;
+    if (s > lo) { lo = s; loBy = by; }
+  };
+  const lower = (eps: number, by: TargetName) => {
+    const s = eps - base;
+    if (s < hi) { hi = s; hiBy = by; }
+  };
+  const inverse = (sigma: number): number | null => {
+    try {
+      return law.strainAt(sigma);
+    } catch {
+      return null;
+    }
+  };
+  if (targets.minYield !== undefined) {
+    const e = inverse(targets.minYield);
+    if (e === null) unreachable.push(`minYield ${targets.minYield} is above the law's saturation stress`);
+    else raise(e - PROOF_OFFSET, 'minYield');
+  }
+  if (targets.maxYield !== undefined) {
+    const e = inverse(targets.maxYield);
+    if (e !== null) lower(e - PROOF_OFFSET, 'maxYield');
+  }
+  if (targets.minTensile !== undefined) {
+    const su = law.stress(eu);
+    if (targets.minTensile <= su) raise(eu + Math.log(targets.minTensile / su), 'minTensile');
+    else {
+      const e = inverse(targets.minTensile);
+      if (e === null) unreachable.push(`minTensile ${targets.minTensile} is above the law's saturation stress`);
+      else raise(e, 'minTensile');
+    }
+  }
+  if (targets.minRemainingElongationPct !== undefined) {
+    lower(eu - Math.log1p(targets.minRemainingElongationPct / 100), 'minRemainingElongationPct');
+  }
+  const emptyWindow = (note: string): ColdWorkWindow => ({
+    empty: true, strainFrom: null, strainTo: null, reductionBasis: basis, reductionPctFrom: null, reductionPctTo: null,
+    limitedBy: { from: loBy, to: hiBy }, note,
+  });
+  if (unreachable.length > 0) return emptyWindow(`no cold work reaches the targets: ${unreachable.join('; ')}`);
+  if (hi < 0) return emptyWindow(`${hiBy} is already exceeded before any cold work since the last anneal`);
+  if (lo > hi) return emptyWindow(`${loBy} needs at least ${fmt(lo)} strain but ${hiBy} allows at most ${fmt(hi)}`);
+  const to = Number.isFinite(hi) ? hi : null;
+  const pctOf = (s: number | null) => (s === null || basis === null ? null : reductionPctFromStrain(basis, s));
+  return {
+    empty: false,
+    strainFrom: lo,
+    strainTo: to,
+    reductionBasis: basis,
+    reductionPctFrom: pctOf(lo),
+    reductionPctTo: pctOf(to),
+    limitedBy: { from: loBy, to: hiBy },
+    note: `strain since the last anneal from ${fmt(lo)}${loBy ? ` (${loBy})` : ''} to ${to === null ? 'no upper limit' : fmt(to) + ` (${hiBy})`}`,
+  };
+}
+
+function fmt(x: number): string {
+  return x.toFixed(4);
+}

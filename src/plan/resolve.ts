@@ -1,0 +1,97 @@
+import { ComputationError, InputError } from '../core/errors.js';
+import { LAW_PARAMETERS } from '../core/flow/params.js';
+import { makeLaw } from '../core/flow/makeLaw.js';
+import type { LawSpec } from '../core/flow/types.js';
+import type { Material, RouteInput, Size, Step, Targets } from '../core/route/types.js';
+import type { Located } from './parse.js';
+import { PlanError, stringToPath } from './problems.js';
+import type { PlanDoc } from './schema.js';
+import { unitsOf, type Units } from './units.js';
+
+/** A plan converted to the core's units (MPa, mm), ready for {@link evaluateRoute}. */
+export interface ResolvedPlan {
+  doc: PlanDoc;
+  units: Units;
+  route: RouteInput;
+}
+
+/** Converts a law spec's stress parameters with `f` (e.g. ksi → MPa). */
+export function convertLaw(spec: LawSpec, f: (x: number) => number): LawSpec {
+  const out: Record<string, unknown> = { law: spec.law };
+  for (const p of LAW_PARAMETERS[spec.law]) {
+    const v = (spec as unknown as Record<string, number>)[p.name];
+    out[p.name] = p.kind === 'stress' && typeof v === 'number' ? f(v) : v;
+  }
+  return out as unknown as LawSpec;
+}
+
+function convertSize(s: Size, f: (x: number) => number): Size {
+  const out: Size = {};
+  for (const k of ['thickness', 'width', 'diameter', 'height'] as const) if (s[k] !== undefined) out[k] = f(s[k]!);
+  return out;
+}
+
+/** Converts a step's lengths with `f`; percentages and strains are unit-free. */
+export function convertStep(step: PlanDoc['steps'][number], f: (x: number) => number): Step {
+  const { label: _label, ...s } = step as typeof step & { label?: string };
+  const out: Record<string, unknown> = { ...s };
+  for (const k of ['thickness', 'diameter', 'height'] as const) if (typeof out[k] === 'number') out[k] = f(out[k] as number);
+  return out as Step;
+}
+
+/**
+ * Turns a validated plan into core input: laws built and checked, everything in MPa and mm.
+ * @throws PlanError (core InputErrors located in the file when `loc` is given).
+ */
+export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): ResolvedPlan {
+  const units = unitsOf(doc.units);
+  return withLocation(file, loc, () => {
+    const m = doc.material;
+    const material: Material = {
+      name: m.name,
+      elasticModulus: units.toMPa(m.elasticModulus),
+      poissonRatio: m.poissonRatio ?? 0.3,
+      law: makeLaw(convertLaw(m.flowCurve as LawSpec, units.toMPa), 'material.flowCurve'),
+      source: 'given in the plan',
+    };
+    if (m.modulusDecay) {
+      const Ea = units.toMPa(m.modulusDecay.Ea);
+      if (Ea > material.elasticModulus) throw new InputError('material.modulusDecay.Ea', m.modulusDecay.Ea, `a modulus at most elasticModulus (${m.elasticModulus})`);
+      material.modulusDecay = { Ea, xi: m.modulusDecay.xi };
+    }
+    if (m.fittedStrainRange) {
+      const [a, b] = m.fittedStrainRange;
+      if (!(b > a)) throw new InputError('material.fittedStrainRange', m.fittedStrainRange, 'a pair [from, to] with to > from');
+      material.fittedStrainRange = [a, b];
+    }
+    const targets: Targets = {};
+    const t = doc.targets;
+    if (t.minYield !== undefined) targets.minYield = units.toMPa(t.minYield);
+    if (t.maxYield !== undefined) targets.maxYield = units.toMPa(t.maxYield);
+    if (t.minTensile !== undefined) targets.minTensile = units.toMPa(t.minTensile);
+    if (t.minRemainingElongationPct !== undefined) targets.minRemainingElongationPct = t.minRemainingElongationPct;
+    if (t.minYield !== undefined && t.maxYield !== undefined && t.minYield > t.maxYield) {
+      throw new InputError('targets.maxYield', t.maxYield, `a value ≥ minYield (${t.minYield})`, 'contradictory targets');
+    }
+    return {
+      doc,
+      units,
+      route: { material, start: convertSize(doc.start, units.toMm), steps: doc.steps.map((s) => convertStep(s, units.toMm)), targets },
+    };
+  });
+}
+
+/** Runs `fn`, turning core InputErrors and ComputationErrors into a located PlanError. */
+export function withLocation<T>(file: string, loc: Located | undefined, fn: () => T): T {
+  try {
+    return fn();
+  } catch (e) {
+    if (e instanceof InputError || e instanceof ComputationError) {
+      const path = stringToPath(e.path);
+      const at = loc?.locate(path);
+      const msg = e.message.startsWith(e.path + ': ') ? e.message.slice(e.path.length + 2) : e.message;
+      throw new PlanError([{ file, ...at, path: e.path, message: msg }]);
+    }
+    throw e;
+  }
+}

@@ -1,0 +1,101 @@
+import { z } from 'zod';
+import { LAW_PARAMETERS, LAW_NAMES } from '../core/flow/params.js';
+import type { LawName } from '../core/flow/types.js';
+
+/**
+ * The plan file: material + starting size + route + targets. One schema validates plans (JSON or
+ * YAML), produces `strainledger schema` (JSON Schema), and types the plan layer. Numbers are in the
+ * plan's own units (`SI`: MPa, mm; `US`: ksi, in); conversion to the core's MPa and mm happens once,
+ * in {@link resolvePlan}.
+ */
+
+const positive = (what: string) => z.number().positive().describe(what);
+const nonNeg = (what: string) => z.number().nonnegative().describe(what);
+
+function lawSchema(law: LawName) {
+  const shape: Record<string, z.ZodType> = { law: z.literal(law) };
+  for (const p of LAW_PARAMETERS[law]) {
+    let s = z.number();
+    s = p.loOpen ? s.gt(p.lo) : s.gte(p.lo);
+    if (Number.isFinite(p.hi)) s = p.hiOpen ? s.lt(p.hi) : s.lte(p.hi);
+    shape[p.name] = s.describe(`${p.meaning}${p.kind === 'stress' ? ' (plan stress unit)' : ' (dimensionless)'}`);
+  }
+  return z.strictObject(shape);
+}
+
+export const LawSchema = z.discriminatedUnion('law', LAW_NAMES.map(lawSchema) as unknown as [ReturnType<typeof lawSchema>, ...ReturnType<typeof lawSchema>[]])
+  .describe('A hardening law in true stress versus true plastic strain');
+
+export const MaterialSchema = z.strictObject({
+  name: z.string().min(1).max(200).describe('Name of the material and temper'),
+  elasticModulus: positive("Young's modulus (plan stress unit)"),
+  poissonRatio: z.number().gte(0).lt(0.5).optional().describe("Poisson's ratio; default 0.3"),
+  flowCurve: LawSchema,
+  modulusDecay: z.strictObject({
+    Ea: positive('saturated chord modulus after large prestrain (plan stress unit)'),
+    xi: positive('rate of the fall of the chord modulus with plastic strain'),
+  }).optional().describe('Fall of the unloading modulus with plastic strain: E = E0 − (E0 − Ea)(1 − exp(−xi·ε̄))'),
+  fittedStrainRange: z.tuple([nonNeg('from'), nonNeg('to')]).optional()
+    .describe('True plastic strain range the law was fitted on; the ledger warns beyond it'),
+});
+
+export const StartSchema = z.strictObject({
+  thickness: positive('strip thickness (plan length unit)').optional(),
+  width: positive('strip width (plan length unit)').optional(),
+  diameter: positive('wire or bar diameter (plan length unit)').optional(),
+  height: positive('height of a billet or slug, for upsetting (plan length unit)').optional(),
+}).describe('Starting size: thickness for strip, diameter for wire and bar, nothing for a specimen');
+
+const label = z.string().max(200).optional().describe('Your name for this step, e.g. "pass 3"');
+const pctBelow100 = (what: string) => z.number().gte(0).lt(100).describe(what);
+
+export const StepSchema = z.discriminatedUnion('kind', [
+  z.strictObject({ kind: z.literal('roll'), label,
+    thickness: positive('exit thickness (plan length unit)').optional(),
+    reductionPct: pctBelow100('thickness reduction of this pass, %').optional() }),
+  z.strictObject({ kind: z.literal('draw'), label,
+    diameter: positive('exit diameter (plan length unit)').optional(),
+    areaReductionPct: pctBelow100('area reduction of this pass, %').optional() }),
+  z.strictObject({ kind: z.literal('stretch'), label,
+    strain: nonNeg('uniaxial true strain').optional(),
+    engineeringStrain: nonNeg('uniaxial engineering strain').optional() }),
+  z.strictObject({ kind: z.literal('stretchBiaxial'), label, strain: nonNeg('major true strain ε1 of equibiaxial stretching') }),
+  z.strictObject({ kind: z.literal('upset'), label,
+    height: positive('height after upsetting (plan length unit)').optional(),
+    reductionPct: pctBelow100('height reduction, %').optional() }),
+  z.strictObject({ kind: z.literal('shear'), label, shearStrain: nonNeg('engineering shear strain γ') }),
+  z.strictObject({ kind: z.literal('strain'), label, strain: nonNeg('von Mises equivalent plastic strain') }),
+  z.strictObject({ kind: z.literal('anneal'), label,
+    softeningFraction: z.number().gt(0).lte(1).optional().describe('fraction of the work hardening removed; 1 (default) is a full anneal') }),
+]);
+
+export const TargetsSchema = z.strictObject({
+  minYield: nonNeg('lowest acceptable reload yield Rp0.2 of the final state (plan stress unit)').optional(),
+  maxYield: nonNeg('highest acceptable reload yield of the final state (plan stress unit)').optional(),
+  minTensile: nonNeg('lowest acceptable tensile strength of the final state (plan stress unit)').optional(),
+  minRemainingElongationPct: nonNeg('lowest acceptable remaining uniform elongation, %').optional(),
+});
+
+export const PlanSchema = z.strictObject({
+  name: z.string().min(1).max(200).describe('Name of the plan'),
+  units: z.enum(['SI', 'US']).default('SI').describe('SI: MPa and mm; US: ksi and in'),
+  description: z.string().max(5000).optional(),
+  material: MaterialSchema,
+  start: StartSchema.default({}),
+  steps: z.array(StepSchema).max(10000).describe('The route, in order'),
+  targets: TargetsSchema.default({}),
+});
+
+/** A plan as written (plan units), after validation. */
+export type PlanDoc = z.output<typeof PlanSchema>;
+export type PlanInput = z.input<typeof PlanSchema>;
+export type PlanStep = z.output<typeof StepSchema>;
+
+/** The JSON Schema of the plan file (draft 2020-12), for editors and for `strainledger schema`. */
+export function planJsonSchema(): unknown {
+  return {
+    ...(z.toJSONSchema(PlanSchema, { io: 'input' }) as object),
+    $id: 'https://strainledger.invalid/schema/plan-v1.json',
+    title: 'strainledger plan',
+  };
+}

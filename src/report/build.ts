@@ -1,0 +1,116 @@
+import type { Ledger, LedgerRow, Size, TargetResult, Warning } from '../core/route/types.js';
+import { LAW_PARAMETERS } from '../core/flow/params.js';
+import type { LoadedPlan } from '../plan/load.js';
+import { convertLaw } from '../plan/resolve.js';
+import { CAUTIONS } from './cautions.js';
+
+/** Version of the JSON report contract. Bump only when a field changes meaning or is removed. */
+export const REPORT_VERSION = 1;
+
+export interface ReportStep {
+  index: number;
+  kind: string;
+  label?: string;
+  size: Size;
+  strainIncrement: number;
+  accumulatedStrain: number;
+  coldWorkPct: number;
+  flowStress: number;
+  reloadYield: number;
+  tensileStrength: number;
+  yieldRatio: number;
+  remainingUniformStrain: number;
+  remainingUniformElongationPct: number;
+  elasticRecoveryStrain: number;
+  recoveredElasticEnergy: number;
+  meanFlowStress: number;
+  plasticWork: number;
+  warnings: Warning[];
+}
+
+/** The JSON report, version 1: stresses (and work per volume) in the plan's stress unit, sizes in its length unit. */
+export interface ReportV1 {
+  reportVersion: 1;
+  plan: { name: string; file: string; hash: string; tool: string };
+  units: { system: 'SI' | 'US'; stress: string; length: string; strain: string; work: string };
+  material: {
+    name: string;
+    elasticModulus: number;
+    flowCurve: Record<string, unknown>;
+    source: string;
+    uniformStrain: number;
+    initial: { reloadYield: number; tensileStrength: number; uniformElongationPct: number };
+  };
+  steps: ReportStep[];
+  targets: TargetResult[];
+  allTargetsMet: boolean;
+  coldWorkWindow: Ledger['coldWorkWindow'];
+  cautions: string[];
+}
+
+/**
+ * Builds the versioned report from a plan and its ledger, converting back to the plan's units.
+ * Pure and deterministic: the same plan gives the same report byte for byte.
+ */
+export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: string; tool: string }): ReportV1 {
+  const u = plan.units;
+  const S = u.fromMPa;
+  const L = (s: Size): Size => {
+    const out: Size = {};
+    for (const k of ['thickness', 'width', 'diameter', 'height'] as const) if (s[k] !== undefined) out[k] = u.fromMm(s[k]!);
+    return out;
+  };
+  const m = plan.route.material;
+  const stressTargets = new Set(['minYield', 'maxYield', 'minTensile']);
+  const step = (r: LedgerRow, i: number): ReportStep => {
+    const label = (plan.doc.steps[i] as { label?: string } | undefined)?.label;
+    return {
+      index: r.index,
+      kind: r.kind,
+      ...(label !== undefined ? { label } : {}),
+      size: L(r.size),
+      strainIncrement: r.strainIncrement,
+      accumulatedStrain: r.accumulatedStrain,
+      coldWorkPct: r.coldWorkPct,
+      flowStress: S(r.flowStress),
+      reloadYield: S(r.reloadYield),
+      tensileStrength: S(r.tensileStrength),
+      yieldRatio: r.yieldRatio,
+      remainingUniformStrain: r.remainingUniformStrain,
+      remainingUniformElongationPct: r.remainingUniformElongationPct,
+      elasticRecoveryStrain: r.elasticRecoveryStrain,
+      recoveredElasticEnergy: S(r.recoveredElasticEnergy),
+      meanFlowStress: S(r.meanFlowStress),
+      plasticWork: S(r.plasticWork),
+      warnings: r.warnings,
+    };
+  };
+  const lawOut = convertLaw({ law: m.law.law, ...m.law.params } as never, S) as unknown as Record<string, unknown>;
+  // Keep parameter order as in the law's table, for stable output.
+  const flowCurve: Record<string, unknown> = { law: m.law.law };
+  for (const p of LAW_PARAMETERS[m.law.law]) flowCurve[p.name] = lawOut[p.name];
+  return {
+    reportVersion: REPORT_VERSION,
+    plan: { name: plan.doc.name, file: plan.file, hash: meta.hash, tool: meta.tool },
+    units: { system: u.system, stress: u.stress, length: u.length, strain: 'true (logarithmic), dimensionless', work: `${u.stress} (energy per volume)` },
+    material: {
+      name: m.name,
+      elasticModulus: S(m.elasticModulus),
+      flowCurve,
+      source: m.source ?? 'given in the plan',
+      uniformStrain: ledger.uniformStrain,
+      initial: {
+        reloadYield: S(ledger.initial.reloadYield),
+        tensileStrength: S(ledger.initial.tensileStrength),
+        uniformElongationPct: ledger.initial.remainingUniformElongationPct,
+      },
+    },
+    steps: ledger.rows.map(step),
+    targets: ledger.targets.map((t) => stressTargets.has(t.name)
+      ? { ...t, limit: S(t.limit), predicted: S(t.predicted), margin: S(t.margin) }
+      : { ...t }),
+    allTargetsMet: ledger.allTargetsMet,
+    coldWorkWindow: ledger.coldWorkWindow,
+    cautions: [...CAUTIONS],
+  };
+}

@@ -1,0 +1,11 @@
+/**
+ * The cautions every report and notebook shows. A prediction that overstates strength could let a
+ * weaker part into service, so these are never optional.
+ */
+export const CAUTIONS: readonly string[] = [
+  'These are planning estimates from a fitted hardening law, isotropic hardening and idealised strain paths; they are not test results.',
+  'Confirm strength, remaining ductility and springback by tests on the real material, heat and route before release.',
+  'Properties past the tensile test\'s uniform strain are extrapolated; laws that fit a test equally well can differ widely there.',
+  'Reversed loading (straightening, reverse bending) yields earlier than an isotropic ledger predicts (Bauschinger effect).',
+  'Follow the applicable codes and standards and licensed engineering judgment; this tool does not replace them.',
+];

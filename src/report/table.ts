@@ -1,0 +1,52 @@
+import type { ReportV1 } from './build.js';
+
+/** Fixed-decimal formatting used by all human-readable reports. */
+export function fixed(x: number | null | undefined, digits: number): string {
+  if (x === null || x === undefined) return '—';
+  return x.toFixed(digits);
+}
+
+/** Pads cells into aligned columns: text left, numbers right. */
+export function alignTable(header: string[], rows: string[][]): string {
+  const widths = header.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? '').length)));
+  const numeric = header.map((_, i) => rows.every((r) => /^[-+]?[\d.]+%?$|^—$/.test(r[i] ?? '')));
+  const line = (cells: string[]) => cells.map((c, i) => (numeric[i] ? c.padStart(widths[i]!) : c.padEnd(widths[i]!))).join('  ').trimEnd();
+  return [line(header), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.map(line)].join('\n');
+}
+
+/** A plain aligned text report for a terminal. `color` adds ANSI colours (only on a TTY). */
+export function tableReport(r: ReportV1, color = false): string {
+  const S = r.units.stress;
+  const L = r.units.length;
+  const paint = (ok: boolean, s: string) => (color ? `\x1b[${ok ? 32 : 31}m${s}\x1b[0m` : s);
+  const out: string[] = [];
+  out.push(`${r.plan.name}  (${r.plan.file}, sha256 ${r.plan.hash.slice(0, 12)}, ${r.plan.tool})`);
+  const fc = Object.entries(r.material.flowCurve).map(([k, v]) => `${k}=${typeof v === 'number' ? +v.toPrecision(6) : v}`).join(' ');
+  out.push(`material: ${r.material.name}; E = ${fixed(r.material.elasticModulus, 0)} ${S}; ${fc} (${r.material.source})`);
+  out.push(`annealed: Rp0.2 ${fixed(r.material.initial.reloadYield, 1)} ${S}, Rm ${fixed(r.material.initial.tensileStrength, 1)} ${S}, uniform elongation ${fixed(r.material.initial.uniformElongationPct, 1)} %`);
+  out.push('');
+  const size = (s: Record<string, number | undefined>) => s.thickness !== undefined ? `t ${fixed(s.thickness, 3)}` : s.diameter !== undefined ? `d ${fixed(s.diameter, 3)}` : s.height !== undefined ? `h ${fixed(s.height, 3)}` : '—';
+  const rows = r.steps.map((s) => [
+    String(s.index), s.label ? `${s.kind} (${s.label})` : s.kind, size(s.size as Record<string, number | undefined>), fixed(s.strainIncrement, 4), fixed(s.accumulatedStrain, 4),
+    fixed(s.coldWorkPct, 1), fixed(s.reloadYield, 1), fixed(s.tensileStrength, 1), fixed(s.yieldRatio, 3),
+    fixed(s.remainingUniformElongationPct, 1), fixed(s.elasticRecoveryStrain * 100, 3), s.warnings.map((w) => w.code).join(','),
+  ]);
+  out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε total', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', 'warnings'], rows));
+  out.push('');
+  if (r.targets.length === 0) out.push('targets: none given');
+  for (const t of r.targets) {
+    out.push(paint(t.met, `${t.met ? 'MET    ' : 'NOT MET'} ${t.name}: predicted ${fixed(t.predicted, 2)}, limit ${fixed(t.limit, 2)}, margin ${fixed(t.margin, 2)}`));
+  }
+  const w = r.coldWorkWindow;
+  out.push(`cold-work window: ${w.empty ? 'empty — ' + w.note : w.note}${!w.empty && w.reductionBasis && w.reductionPctFrom !== null ? `; ${w.reductionBasis} reduction ${fixed(w.reductionPctFrom, 1)} % to ${w.reductionPctTo === null ? 'no limit' : fixed(w.reductionPctTo, 1) + ' %'}` : ''}`);
+  const warned = r.steps.flatMap((s) => s.warnings.map((x) => `step ${s.index}: ${x.message}`));
+  if (warned.length) {
+    out.push('');
+    out.push('warnings:');
+    for (const x of warned) out.push(`  ${x}`);
+  }
+  out.push('');
+  out.push('cautions:');
+  for (const c of r.cautions) out.push(`  - ${c}`);
+  return out.join('\n') + '\n';
+}

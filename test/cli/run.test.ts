@@ -1,0 +1,78 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+// Runs the shipped runner (bin/ → dist/) as a user would; test/globalSetup.ts builds dist/ first.
+const ROOT = join(import.meta.dirname, '..', '..');
+const BIN = join(ROOT, 'bin', 'strainledger.js');
+const run = (...args: string[]) => spawnSync(process.execPath, [BIN, ...args], { cwd: ROOT, encoding: 'utf8' });
+
+describe('strainledger run PLAN --format json', () => {
+  it('writes exactly the contract fields and exits 0 when all targets are met', () => {
+    const r = run('run', 'examples/contact-spring-strip.json', '--format', 'json');
+    expect(r.status).toBe(0);
+    expect(r.stderr).toBe('');
+    const rep = JSON.parse(r.stdout);
+    expect(Object.keys(rep)).toEqual(['reportVersion', 'plan', 'units', 'material', 'steps', 'targets', 'allTargetsMet', 'coldWorkWindow', 'cautions']);
+    expect(rep.reportVersion).toBe(1);
+    for (const k of ['index', 'kind', 'size', 'strainIncrement', 'accumulatedStrain', 'coldWorkPct', 'flowStress', 'reloadYield', 'tensileStrength', 'yieldRatio',
+      'remainingUniformStrain', 'remainingUniformElongationPct', 'elasticRecoveryStrain', 'meanFlowStress', 'plasticWork', 'warnings']) {
+      expect(rep.steps[0], k).toHaveProperty(k);
+    }
+    expect(rep.steps).toHaveLength(5);
+    // Step 5: strip rolled 1.2 → 0.9 → 0.675 mm after the anneal; Callister copper K 530, n 0.44.
+    const eps = (2 / Math.sqrt(3)) * Math.log(1.2 / 0.675);
+    expect(rep.steps[4].reloadYield).toBeCloseTo(530 * (eps + 0.002) ** 0.44, 9);
+    expect(rep.cautions.length).toBeGreaterThan(2);
+  });
+  it('exits 1 when a target is missed', () => {
+    const r = run('run', 'examples/bracket-stretch-specimen.yaml', '--format', 'json');
+    expect(r.status).toBe(1);
+    const rep = JSON.parse(r.stdout);
+    expect(rep.allTargetsMet).toBe(false);
+    expect(rep.targets.find((t: { name: string }) => t.name === 'minRemainingElongationPct').met).toBe(false);
+  });
+  it('US plans report in ksi and inches', () => {
+    const rep = JSON.parse(run('run', 'examples/fencing-wire-us.json', '--format', 'json').stdout);
+    expect(rep.units.stress).toBe('ksi');
+    expect(rep.steps[3].size.diameter).toBeCloseTo(0.148, 12);
+  });
+  it('the same plan gives the same report byte for byte', () => {
+    expect(run('run', 'examples/contact-spring-strip.json', '--format', 'json').stdout).toBe(run('run', 'examples/contact-spring-strip.json', '--format', 'json').stdout);
+  });
+});
+
+describe('invalid input exits 2 with a one-line message naming file, line, field, value and range', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'sl-'));
+  const plan = (obj: unknown, name = 'p.json') => {
+    const f = join(dir, name);
+    writeFileSync(f, typeof obj === 'string' ? obj : JSON.stringify(obj, null, 2));
+    return f;
+  };
+  const good = { name: 'x', material: { name: 'm', elasticModulus: 115000, flowCurve: { law: 'hollomon', K: 530, n: 0.44 } }, start: { thickness: 2 }, steps: [{ kind: 'roll', thickness: 1.5 }] };
+  const cases: Array<[string, unknown, RegExp]> = [
+    ['a roll to a larger size', { ...good, steps: [{ kind: 'roll', thickness: 2.5 }] }, /:\d+:\d+: steps\[0\]\.thickness: .*got 2\.5.*at most the current thickness 2 mm/],
+    ['a reduction of 100 %', { ...good, steps: [{ kind: 'roll', reductionPct: 100 }] }, /steps\[0\]\.reductionPct: got 100, allowed a number < 100/],
+    ['a draw of strip', { ...good, steps: [{ kind: 'draw', areaReductionPct: 10 }] }, /steps\[0\]\.kind: drawing needs wire/],
+    ['a law parameter out of range', { ...good, material: { ...good.material, flowCurve: { law: 'hollomon', K: 530, n: 2 } } }, /material\.flowCurve\.n: got 2, allowed a number ≤ 1/],
+    ['an unknown step kind', { ...good, steps: [{ kind: 'forge' }] }, /steps\[0\]\.kind: got "forge", allowed one of "roll", "draw"/],
+    ['a missing field', { ...good, material: { name: 'm', flowCurve: good.material.flowCurve } }, /material\.elasticModulus: got nothing \(the field is required\), allowed a number/],
+    ['a syntax error', '{ "name": "x", ', /JSON syntax/],
+  ];
+  for (const [what, obj, re] of cases) {
+    it(what, () => {
+      const r = run('run', plan(obj), '--format', 'json');
+      expect(r.status).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr).toMatch(re);
+      expect(r.stderr).not.toMatch(/\n\s+at /);
+    });
+  }
+  it('a missing plan file', () => {
+    const r = run('run', join(dir, 'nope.json'));
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/nope\.json: file not found/);
+  });
+});

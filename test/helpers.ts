@@ -1,0 +1,21 @@
+import { expect } from 'vitest';
+
+/** |actual − expected| ≤ relTol·|expected|, with a message naming both numbers. */
+export function expectRelClose(actual: number, expected: number, relTol: number, what = ''): void {
+  const err = Math.abs(actual - expected);
+  const bound = relTol * Math.abs(expected);
+  expect(Number.isFinite(actual), `${what} is finite`).toBe(true);
+  expect(err <= bound, `${what}: ${actual} vs ${expected}, relative error ${(err / Math.abs(expected)).toExponential(2)} > ${relTol}`).toBe(true);
+}
+
+/** |actual − expected| ≤ absTol. */
+export function expectAbsClose(actual: number, expected: number, absTol: number, what = ''): void {
+  const err = Math.abs(actual - expected);
+  expect(Number.isFinite(actual), `${what} is finite`).toBe(true);
+  expect(err <= absTol, `${what}: ${actual} vs ${expected}, error ${err.toExponential(2)} > ${absTol}`).toBe(true);
+}
+
+/** Central-difference derivative, for checking slopes and works against stresses. */
+export function derivative(f: (x: number) => number, x: number, h = 1e-6): number {
+  return (f(x + h) - f(x - h)) / (2 * h);
+}
