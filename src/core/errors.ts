@@ -56,12 +56,12 @@ export function checkRange(
   hi: number,
   opts: { loOpen?: boolean; hiOpen?: boolean } = {},
 ): number {
-  const { loOpen = false, hiOpen = false } = opts;
+  const loOpen = opts.loOpen ?? false;
+  const hiOpen = opts.hiOpen ?? false;
+  if (typeof value === 'number' && (loOpen ? value > lo : value >= lo) && (hiOpen ? value < hi : value <= hi)) return value;
+  // NaN fails every comparison above, so it lands here too. The message is built only on failure.
   const allowed = `a number in ${loOpen ? '(' : '['}${fmtBound(lo)}, ${fmtBound(hi)}${hiOpen ? ')' : ']'}`;
-  if (typeof value !== 'number' || !Number.isFinite(value)) throw new InputError(path, value, allowed);
-  if (loOpen ? value <= lo : value < lo) throw new InputError(path, value, allowed);
-  if (hiOpen ? value >= hi : value > hi) throw new InputError(path, value, allowed);
-  return value;
+  throw new InputError(path, value, allowed);
 }
 
 function fmtBound(x: number): string {

@@ -37,5 +37,6 @@ export function hockettSherby(params: HockettSherbyParams, path = 'flowCurve'): 
       return Math.pow(-Math.log((sigmaSat - s) / d) / a, 1 / p);
     },
     uniformStrain: () => (eu ??= considereNumeric(stress, slope)),
+    saturationStress: sigmaSat,
   };
 }

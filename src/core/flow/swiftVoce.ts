@@ -40,5 +40,6 @@ export function swiftVoce(params: SwiftVoceParams, path = 'flowCurve'): FlowLaw 
       return brent((e) => stress(e) - s, 0, hiE, 1e-15).root;
     },
     uniformStrain: () => (eu ??= considereNumeric(stress, slope)),
+    ...(al === 0 ? { saturationStress: v.sigma0 + v.Q } : {}),
   };
 }

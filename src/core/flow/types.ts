@@ -49,6 +49,8 @@ export interface FlowLaw {
   strainAt(sigma: number): number;
   /** Considère uniform true plastic strain εu (dσ/dε = σ), cached. */
   uniformStrain(): number;
+  /** The stress the law approaches but never reaches (Voce, Hockett–Sherby), MPa; undefined when unbounded. */
+  readonly saturationStress?: number;
 }
 
 /** Smallest strain at which a singular slope (x^(n-1) at 0) is evaluated. */

@@ -28,5 +28,6 @@ export function voce(params: VoceParams, path = 'flowCurve'): FlowLaw {
       return -Math.log1p(-(s - sigma0) / Q) / b;
     },
     uniformStrain: () => eu,
+    saturationStress: sigma0 + Q,
   };
 }

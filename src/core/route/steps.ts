@@ -65,10 +65,10 @@ function scaled(size: Size, f: { thickness?: number; width?: number; diameter?: 
 }
 
 function smallerSize(path: string, v: unknown, current: number, ctx: StepContext, what: string): number {
+  if (typeof v === 'number' && v > 0 && v <= current * (1 + 1e-12)) return Math.min(v, current);
   const allowed = `a ${what} above 0 and at most the current ${what} ${ctx.length(current)}`;
-  if (typeof v !== 'number' || !Number.isFinite(v) || v <= 0) throw new InputError(path, v, allowed);
-  if (v > current * (1 + 1e-12)) throw new InputError(path, v, allowed, `a step cannot enlarge the ${what}`);
-  return Math.min(v, current);
+  const enlarges = typeof v === 'number' && Number.isFinite(v) && v > current;
+  throw new InputError(path, v, allowed, enlarges ? `a step cannot enlarge the ${what}` : undefined);
 }
 
 const roll: StepKindDef = {

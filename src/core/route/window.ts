@@ -30,6 +30,8 @@ export function coldWorkWindow(law: FlowLaw, base: number, targets: Targets, bas
     if (s < hi) { hi = s; hiBy = by; }
   };
   const inverse = (sigma: number): number | null => {
+    // A stress at or above saturation is reached by no strain (checked first: throwing is slow).
+    if (law.saturationStress !== undefined && sigma >= law.saturationStress) return null;
     try {
       return law.strainAt(sigma);
     } catch {
