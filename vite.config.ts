@@ -1,7 +1,13 @@
+import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
-// One config for the notebook dev server (vite) and the tests (vitest).
-export default defineConfig({
+const repo = fileURLToPath(new URL('.', import.meta.url));
+const page = (p: string) => fileURLToPath(new URL(`./notebooks/${p}`, import.meta.url));
+
+// One config for the notebook dev server and build (vite) and the tests (vitest).
+// The notebook settings (root = notebooks/) apply to every mode but vitest's own ('test'), so the
+// tests keep the repository root; the browser tests start the server with mode 'development'.
+export default defineConfig(({ mode }) => ({
   test: {
     include: ['test/**/*.test.ts'],
     environment: 'node',
@@ -9,4 +15,24 @@ export default defineConfig({
     testTimeout: 60_000,
     hookTimeout: 120_000,
   },
-});
+  ...(mode === 'test' ? {} : {
+    root: page(''),
+    publicDir: false as const,
+    // Pre-bundle up front so a first visit never triggers a reload for newly found dependencies.
+    optimizeDeps: { include: ['@observablehq/runtime', '@observablehq/plot', 'zod', 'yaml'] },
+    server: { host: '127.0.0.1', fs: { allow: [repo] } },
+    preview: { host: '127.0.0.1' },
+    build: {
+      outDir: fileURLToPath(new URL('./dist/notebooks', import.meta.url)),
+      emptyOutDir: true,
+      rollupOptions: {
+        input: {
+          index: page('index.html'),
+          prestrain: page('prestrain/index.html'),
+          route: page('route/index.html'),
+          records: page('records/index.html'),
+        },
+      },
+    },
+  }),
+}));

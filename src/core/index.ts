@@ -32,6 +32,91 @@ export type { StepKindDef, StepContext, StepEffect, ReductionBasis } from './rou
 export { stateProperties, PROOF_OFFSET } from './route/state.js';
 export { evaluateRoute } from './route/ledger.js';
 export type { LedgerOptions } from './route/ledger.js';
-export { checkTargets, validateTargets, TARGET_DEFS, TARGET_NAMES } from './route/targets.js';
+export { checkTargets, checkSpringbackTarget, validateTargets, TARGET_DEFS, TARGET_NAMES } from './route/targets.js';
 export { coldWorkWindow } from './route/window.js';
 export type * from './route/types.js';
+
+// Load paths with reversal: 1-D return mapping, Armstrong–Frederick backstresses
+export { createPathStepper, integratePath, PATH_DEFAULTS } from './path/integrate.js';
+export type { PathStepper } from './path/integrate.js';
+export { isotropicPart, validateKinematic, backstressAfter } from './path/hardening.js';
+export type * from './path/types.js';
+
+// Bending springback: moment–curvature through the thickness, unloading, the inverse
+export { momentCurvature } from './bend/momentCurvature.js';
+export type { MomentResult } from './bend/momentCurvature.js';
+export { springback, RESIDUAL_POINTS } from './bend/springback.js';
+export type { BendTool, SpringbackResult } from './bend/springback.js';
+export { overbendAngle, overbendRadius } from './bend/overbend.js';
+export type { OverbendResult } from './bend/overbend.js';
+export type { BendSection } from './bend/section.js';
+
+// Scatter: seeded Monte Carlo through the route, tolerance bounds
+export { xoshiro128ss } from './scatter/rng.js';
+export type { Rng } from './scatter/rng.js';
+export { normalSampler, normalCdf } from './scatter/normal.js';
+export { normalQuantile } from './scatter/normalQuantile.js';
+export { cholesky } from './scatter/cholesky.js';
+export { noncentralTCdf } from './scatter/noncentralT.js';
+export { normalToleranceFactor } from './scatter/toleranceFactor.js';
+export type { ToleranceFactorResult } from './scatter/toleranceFactor.js';
+export { orderStatisticLowerRank } from './scatter/orderStatisticBound.js';
+
+// Process planning: pass loads, heating, sheet limits, route design
+export { PROCESS_DEFAULTS, RAD_PER_DEG } from './process/defaults.js';
+export { drawingStress } from './process/drawingStress.js';
+export type { DrawingStress } from './process/drawingStress.js';
+export { maxDrawReduction } from './process/maxDrawReduction.js';
+export type { MaxDrawReduction } from './process/maxDrawReduction.js';
+export { rollingLoad } from './process/rollingLoad.js';
+export type { RollingLoad } from './process/rollingLoad.js';
+export { temperatureRise } from './process/temperatureRise.js';
+export { hillLocalizedLimit, hillInstabilityRate, equivalentPerMajor } from './process/hillLocalizedLimit.js';
+export { swiftDiffuseLimit, swiftInstabilityRate } from './process/swiftDiffuseLimit.js';
+export { sheetFormability } from './process/sheetFormability.js';
+export type { SheetFormability } from './process/sheetFormability.js';
+export { passLoads, SHEET_STRAIN_RATIO } from './process/passLoads.js';
+export type { PassInput, PassLoads } from './process/passLoads.js';
+export { designRoute } from './process/designRoute.js';
+export type { DesignSpec, DesignResult, DesignedRoute, AnnealNote } from './process/designRoute.js';
+export { prepareScatter, stepEffects, SCATTER_BLOCK, SCATTER_DEFAULTS, START_FIELDS } from './scatter/problem.js';
+export type { ScatterProblem, ScatterInputSpec, ScatterMaterialSpec, PreparedScatter } from './scatter/problem.js';
+export { evaluateScatterSample, scatterRouteInput, sampleScatterBlock, MAX_CONSECUTIVE_REJECTS } from './scatter/sample.js';
+export type { SampleOutcome, ScatterBlock } from './scatter/sample.js';
+export { summarizeScatter, scatterPercentile } from './scatter/summarize.js';
+export type { ScatterSummary, Distribution, InputSensitivity, ToleranceBound } from './scatter/summarize.js';
+export { deltaMethod } from './scatter/delta.js';
+export type { DeltaResult } from './scatter/delta.js';
+export { runScatter } from './scatter/run.js';
+export type { RunScatterOptions } from './scatter/run.js';
+
+// Tensile records: standard properties (issue 3)
+export { analyzeRecord, ANALYZE_DEFAULTS } from './tensile/analyzeRecord.js';
+export type { AnalyzeOptions } from './tensile/analyzeRecord.js';
+export { analyzeSpecimens, SPECIMEN_PROPERTIES } from './tensile/analyzeSpecimens.js';
+export type { SpecimenSet, PropertySummary, SpecimenProperty } from './tensile/analyzeSpecimens.js';
+export { elasticModulus, ELASTIC_WINDOW } from './tensile/elasticModulus.js';
+export type { ElasticResult } from './tensile/elasticModulus.js';
+export { proofStrength, totalExtensionStrength } from './tensile/proofStrength.js';
+export { yieldPoint } from './tensile/yieldPoint.js';
+export type { YieldPointResult } from './tensile/yieldPoint.js';
+export { nValueFit } from './tensile/nValue.js';
+export { findCycles, fitModulusDecay, UNLOAD_MIN_DROP } from './tensile/cycles.js';
+export type * from './tensile/types.js';
+
+// Law fitting and statistics (issue 3)
+export { levenbergMarquardt, LM_DEFAULTS } from './fit/levenbergMarquardt.js';
+export type { Model, LmOptions, LmResult } from './fit/levenbergMarquardt.js';
+export { fitLaw, lawBounds, lawModel, START_SAMPLE } from './fit/fitLaw.js';
+export type { FitLawOptions } from './fit/fitLaw.js';
+export { fitAllLaws, FIT_DEFAULTS } from './fit/fitAllLaws.js';
+export type { LawComparison, ExtrapolationPoint, FitAllOptions } from './fit/fitAllLaws.js';
+export { fitStatistics } from './fit/fitStatistics.js';
+export type { FitStatistics } from './fit/fitStatistics.js';
+export { linearFit } from './fit/linearFit.js';
+export type { LinearFit } from './fit/linearFit.js';
+export { studentTQuantile, studentTCdf, incompleteBeta, lnGamma } from './fit/studentT.js';
+export { startValues } from './fit/startValues.js';
+export type * from './fit/types.js';
+export { synthesizeRecord } from './tensile/synthesize.js';
+export type { SynthSpec, SynthRecord } from './tensile/synthesize.js';

@@ -98,7 +98,12 @@ function allowedOf(issue: z.core.$ZodIssue): string {
  * once, each with file, line, column, field path, the value and what is allowed.
  */
 export function validatePlan(loc: Located, file: string): PlanDoc {
-  const r = PlanSchema.safeParse(loc.data, { reportInput: true });
+  return validateWith(PlanSchema, loc, file);
+}
+
+/** Validates parsed data against any zod schema (plans, design specs), with the same located messages as {@link validatePlan}. */
+export function validateWith<S extends z.ZodType>(schema: S, loc: Located, file: string): z.output<S> {
+  const r = schema.safeParse(loc.data, { reportInput: true });
   if (r.success) return r.data;
   const problems: Problem[] = [];
   for (const issue of r.error.issues) {

@@ -1,9 +1,12 @@
 import { ComputationError, InputError } from '../core/errors.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import { makeLaw } from '../core/flow/makeLaw.js';
+import { isotropicPart, validateKinematic } from '../core/path/hardening.js';
 import type { LawSpec } from '../core/flow/types.js';
 import type { Material, RouteInput, Size, Step, Targets } from '../core/route/types.js';
+import { prepareScatter, type ScatterProblem } from '../core/scatter/problem.js';
 import type { Located } from './parse.js';
+import { resolveScatter } from './scatterResolve.js';
 import { PlanError, stringToPath } from './problems.js';
 import type { PlanDoc } from './schema.js';
 import { unitsOf, type Units } from './units.js';
@@ -13,6 +16,17 @@ export interface ResolvedPlan {
   doc: PlanDoc;
   units: Units;
   route: RouteInput;
+  /** The plan's scatter section in core units (present only when the plan has one). */
+  scatter?: ScatterProblem;
+}
+
+/** Adds the resolved scatter section when the plan has one (src/plan/scatterResolve.ts). */
+function withScatter(r: ResolvedPlan): ResolvedPlan {
+  if (r.doc.scatter) {
+    r.scatter = resolveScatter(r.doc.scatter, r.route, r.units);
+    prepareScatter(r.scatter); // validates spreads and the correlation matrix here, where errors get a file line
+  }
+  return r;
 }
 
 /** Converts a law spec's stress parameters with `f` (e.g. ksi → MPa). */
@@ -31,11 +45,12 @@ function convertSize(s: Size, f: (x: number) => number): Size {
   return out;
 }
 
-/** Converts a step's lengths with `f`; percentages and strains are unit-free. */
-export function convertStep(step: PlanDoc['steps'][number], f: (x: number) => number): Step {
+/** Converts a step's lengths with `f` (and forces with `force`, plan unit → N); percentages, strains, angles and friction are unit-free. */
+export function convertStep(step: PlanDoc['steps'][number], f: (x: number) => number, force: (x: number) => number = (x) => x): Step {
   const { label: _label, ...s } = step as typeof step & { label?: string };
   const out: Record<string, unknown> = { ...s };
-  for (const k of ['thickness', 'diameter', 'height'] as const) if (typeof out[k] === 'number') out[k] = f(out[k] as number);
+  for (const k of ['thickness', 'diameter', 'height', 'rollRadius', 'width', 'radius'] as const) if (typeof out[k] === 'number') out[k] = f(out[k] as number);
+  if (typeof out.forceCapacity === 'number') out.forceCapacity = force(out.forceCapacity);
   return out as Step;
 }
 
@@ -47,6 +62,8 @@ export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): Resolve
   const units = unitsOf(doc.units);
   return withLocation(file, loc, () => {
     const m = doc.material;
+    // A record-form flow curve is fitted by the runner before resolution (src/cli/recordLaw.ts); the plan layer reads no files.
+    if ('record' in m.flowCurve) throw new InputError('material.flowCurve.record', m.flowCurve.record, 'law parameters here: a record is fitted by `strainledger run` (the runner reads the file), not by the plan layer');
     const material: Material = {
       name: m.name,
       elasticModulus: units.toMPa(m.elasticModulus),
@@ -54,10 +71,17 @@ export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): Resolve
       law: makeLaw(convertLaw(m.flowCurve as LawSpec, units.toMPa), 'material.flowCurve'),
       source: 'given in the plan',
     };
+    if (m.density !== undefined) material.density = m.density;
+    if (m.specificHeat !== undefined) material.specificHeat = m.specificHeat;
     if (m.modulusDecay) {
       const Ea = units.toMPa(m.modulusDecay.Ea);
       if (Ea > material.elasticModulus) throw new InputError('material.modulusDecay.Ea', m.modulusDecay.Ea, `a modulus at most elasticModulus (${m.elasticModulus})`);
       material.modulusDecay = { Ea, xi: m.modulusDecay.xi };
+    }
+    if (m.kinematic) {
+      const kin = validateKinematic({ backstresses: m.kinematic.backstresses.map((b) => ({ C: units.toMPa(b.C), gamma: b.gamma })) }, 'material.kinematic');
+      isotropicPart(material.law, kin, 'material.kinematic');
+      material.kinematic = kin;
     }
     if (m.fittedStrainRange) {
       const [a, b] = m.fittedStrainRange;
@@ -70,14 +94,15 @@ export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): Resolve
     if (t.maxYield !== undefined) targets.maxYield = units.toMPa(t.maxYield);
     if (t.minTensile !== undefined) targets.minTensile = units.toMPa(t.minTensile);
     if (t.minRemainingElongationPct !== undefined) targets.minRemainingElongationPct = t.minRemainingElongationPct;
+    if (t.maxSpringbackDeg !== undefined) targets.maxSpringbackDeg = t.maxSpringbackDeg;
     if (t.minYield !== undefined && t.maxYield !== undefined && t.minYield > t.maxYield) {
       throw new InputError('targets.maxYield', t.maxYield, `a value ≥ minYield (${t.minYield})`, 'contradictory targets');
     }
-    return {
+    return withScatter({
       doc,
       units,
-      route: { material, start: convertSize(doc.start, units.toMm), steps: doc.steps.map((s) => convertStep(s, units.toMm)), targets },
-    };
+      route: { material, start: convertSize(doc.start, units.toMm), steps: doc.steps.map((s) => convertStep(s, units.toMm, units.toN)), targets },
+    });
   });
 }
 

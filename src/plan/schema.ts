@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { LAW_PARAMETERS, LAW_NAMES } from '../core/flow/params.js';
 import type { LawName } from '../core/flow/types.js';
+import { ScatterSchema } from './scatterSchema.js';
 
 /**
  * The plan file: material + starting size + route + targets. One schema validates plans (JSON or
@@ -26,17 +27,44 @@ function lawSchema(law: LawName) {
 export const LawSchema = z.discriminatedUnion('law', LAW_NAMES.map(lawSchema) as unknown as [ReturnType<typeof lawSchema>, ...ReturnType<typeof lawSchema>[]])
   .describe('A hardening law in true stress versus true plastic strain');
 
+/**
+ * A flow curve named by a tensile record instead of law parameters (issue 3): the runner reads the
+ * file (relative to the plan's folder), fits `law` to it when the plan runs, and records
+ * `fitted from FILE` and the fitted strain range. Read in the CLI layer (src/cli/recordLaw.ts), never here.
+ */
+export const RecordFlowCurveSchema = z.strictObject({
+  record: z.string().min(1).max(1000).describe('tensile record file (CSV or tab-separated), relative to the plan'),
+  law: z.enum(LAW_NAMES as [LawName, ...LawName[]]).describe('the law to fit to the record'),
+  options: z.strictObject({
+    stressUnit: z.string().max(20).optional().describe('unit of the stress column when the header does not say'),
+    strainUnit: z.enum(['-', '%']).optional().describe('strain column as a fraction (-) or in per cent (%)'),
+    area: positive('cross-section of a force–extension record, mm²').optional(),
+    diameter: positive('specimen diameter of a force–extension record, mm').optional(),
+    width: positive('specimen width of a force–extension record, mm').optional(),
+    thickness: positive('specimen thickness of a force–extension record, mm').optional(),
+    gaugeLength: positive('extensometer gauge length of a force–extension record, mm').optional(),
+  }).optional().describe('how to read the record when its header and metadata do not say'),
+}).describe('A law fitted to a tensile record when the plan runs');
+
 export const MaterialSchema = z.strictObject({
   name: z.string().min(1).max(200).describe('Name of the material and temper'),
   elasticModulus: positive("Young's modulus (plan stress unit)"),
   poissonRatio: z.number().gte(0).lt(0.5).optional().describe("Poisson's ratio; default 0.3"),
-  flowCurve: LawSchema,
+  flowCurve: z.union([LawSchema, RecordFlowCurveSchema]).describe('A hardening law with its parameters, or a tensile record to fit it to'),
   modulusDecay: z.strictObject({
     Ea: positive('saturated chord modulus after large prestrain (plan stress unit)'),
     xi: positive('rate of the fall of the chord modulus with plastic strain'),
   }).optional().describe('Fall of the unloading modulus with plastic strain: E = E0 − (E0 − Ea)(1 − exp(−xi·ε̄))'),
+  kinematic: z.strictObject({
+    backstresses: z.array(z.strictObject({
+      C: z.number().gt(0).lte(1e7).describe('Armstrong–Frederick hardening modulus C (plan stress unit)'),
+      gamma: z.number().gt(0).lte(1e5).describe('Armstrong–Frederick recall rate γ (dimensionless); the backstress saturates at C/γ'),
+    })).min(1).max(3).describe('one to three backstresses, summed'),
+  }).optional().describe('Kinematic hardening for reversals (Bauschinger effect); the flow curve stays the monotonic response'),
   fittedStrainRange: z.tuple([nonNeg('from'), nonNeg('to')]).optional()
     .describe('True plastic strain range the law was fitted on; the ledger warns beyond it'),
+  density: z.number().gte(500).lte(25000).optional().describe('density, kg/m³ (SI in both unit systems), for the temperature rise of a pass'),
+  specificHeat: z.number().gte(50).lte(5000).optional().describe('specific heat, J/(kg·K) (SI in both unit systems), for the temperature rise of a pass'),
 });
 
 export const StartSchema = z.strictObject({
@@ -52,10 +80,17 @@ const pctBelow100 = (what: string) => z.number().gte(0).lt(100).describe(what);
 export const StepSchema = z.discriminatedUnion('kind', [
   z.strictObject({ kind: z.literal('roll'), label,
     thickness: positive('exit thickness (plan length unit)').optional(),
-    reductionPct: pctBelow100('thickness reduction of this pass, %').optional() }),
+    reductionPct: pctBelow100('thickness reduction of this pass, %').optional(),
+    rollRadius: positive('work-roll radius (plan length unit); with friction, gives roll force and torque').optional(),
+    width: positive('strip width for the roll force (plan length unit); default start.width').optional(),
+    friction: z.number().gte(0).lte(0.6).optional().describe('Coulomb friction coefficient between roll and strip'),
+    forceCapacity: positive('mill force capacity (plan force unit: N or lbf); a warning above it').optional() }),
   z.strictObject({ kind: z.literal('draw'), label,
     diameter: positive('exit diameter (plan length unit)').optional(),
-    areaReductionPct: pctBelow100('area reduction of this pass, %').optional() }),
+    areaReductionPct: pctBelow100('area reduction of this pass, %').optional(),
+    dieHalfAngleDeg: z.number().gte(0).lte(45).optional().describe('die half-angle, degrees; with friction, gives the drawing stress and force'),
+    friction: z.number().gte(0).lte(0.5).optional().describe('Coulomb friction coefficient between die and wire'),
+    forceCapacity: positive('drawing-block pull capacity (plan force unit: N or lbf); a warning above it').optional() }),
   z.strictObject({ kind: z.literal('stretch'), label,
     strain: nonNeg('uniaxial true strain').optional(),
     engineeringStrain: nonNeg('uniaxial engineering strain').optional() }),
@@ -67,6 +102,11 @@ export const StepSchema = z.discriminatedUnion('kind', [
   z.strictObject({ kind: z.literal('strain'), label, strain: nonNeg('von Mises equivalent plastic strain') }),
   z.strictObject({ kind: z.literal('anneal'), label,
     softeningFraction: z.number().gt(0).lte(1).optional().describe('fraction of the work hardening removed; 1 (default) is a full anneal') }),
+  z.strictObject({ kind: z.literal('reverse'), label, strain: z.number().gte(0).lte(1).describe('reversed uniaxial true strain (compression along the forming direction)') }),
+  z.strictObject({ kind: z.literal('bend'), label,
+    radius: positive('inner bend radius on the tool (plan length unit)'),
+    angle: z.number().gt(0).lte(180).describe('bend angle on the tool, degrees'),
+    reverse: z.boolean().optional().describe('bend the other way (reverse bending): the outer side is loaded against the forming direction') }),
 ]);
 
 export const TargetsSchema = z.strictObject({
@@ -74,6 +114,7 @@ export const TargetsSchema = z.strictObject({
   maxYield: nonNeg('highest acceptable reload yield of the final state (plan stress unit)').optional(),
   minTensile: nonNeg('lowest acceptable tensile strength of the final state (plan stress unit)').optional(),
   minRemainingElongationPct: nonNeg('lowest acceptable remaining uniform elongation, %').optional(),
+  maxSpringbackDeg: z.number().gte(0).lte(180).optional().describe('largest acceptable springback of any bend step, degrees'),
 });
 
 export const PlanSchema = z.strictObject({
@@ -84,6 +125,7 @@ export const PlanSchema = z.strictObject({
   start: StartSchema.default({}),
   steps: z.array(StepSchema).max(10000).describe('The route, in order'),
   targets: TargetsSchema.default({}),
+  scatter: ScatterSchema.optional(),
 });
 
 /** A plan as written (plan units), after validation. */

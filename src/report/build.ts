@@ -1,7 +1,10 @@
 import type { Ledger, LedgerRow, Size, TargetResult, Warning } from '../core/route/types.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { LoadedPlan } from '../plan/load.js';
-import { convertLaw } from '../plan/resolve.js';
+import { convertLaw, withLocation } from '../plan/resolve.js';
+import { runScatter } from '../core/scatter/run.js';
+import type { ScatterSummary } from '../core/scatter/summarize.js';
+import { scatterReport, type ReportScatter } from './scatter.js';
 import { CAUTIONS } from './cautions.js';
 
 /** Version of the JSON report contract. Bump only when a field changes meaning or is removed. */
@@ -25,6 +28,23 @@ export interface ReportStep {
   recoveredElasticEnergy: number;
   meanFlowStress: number;
   plasticWork: number;
+  /** Pass loads (optional, present only where they apply): drawing stress in the plan stress unit, forces N or lbf, torque N·m or lbf·ft, temperature rise K, strains true. */
+  drawingStress?: number;
+  drawingForce?: number;
+  drawabilityRatio?: number;
+  maxAreaReductionPct?: number;
+  rollForce?: number;
+  rollTorque?: number;
+  temperatureRise?: number;
+  formingLimitMajorStrain?: number;
+  /** Reload yield against / along the last step's direction with kinematic hardening (plan stress unit); only when the material has `kinematic`. */
+  reverseReloadYield?: number;
+  kinematicReloadYield?: number;
+  /** Bend steps only: outer-fibre bending strain, springback and final angle (degrees), final inner radius (plan length unit; null = springs back flat). */
+  outerFibreStrain?: number;
+  springbackDeg?: number;
+  finalAngleDeg?: number;
+  finalRadius?: number | null;
   warnings: Warning[];
 }
 
@@ -45,6 +65,8 @@ export interface ReportV1 {
   targets: TargetResult[];
   allTargetsMet: boolean;
   coldWorkWindow: Ledger['coldWorkWindow'];
+  /** Monte Carlo scatter (present only when the plan has a `scatter` section; src/report/scatter.ts). */
+  scatter?: ReportScatter;
   cautions: string[];
 }
 
@@ -52,7 +74,7 @@ export interface ReportV1 {
  * Builds the versioned report from a plan and its ledger, converting back to the plan's units.
  * Pure and deterministic: the same plan gives the same report byte for byte.
  */
-export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: string; tool: string }): ReportV1 {
+export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: string; tool: string; scatter?: ScatterSummary }): ReportV1 {
   const u = plan.units;
   const S = u.fromMPa;
   const L = (s: Size): Size => {
@@ -82,6 +104,20 @@ export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: stri
       recoveredElasticEnergy: S(r.recoveredElasticEnergy),
       meanFlowStress: S(r.meanFlowStress),
       plasticWork: S(r.plasticWork),
+      ...(r.drawingStress !== undefined ? { drawingStress: S(r.drawingStress) } : {}),
+      ...(r.drawingForce !== undefined ? { drawingForce: u.fromN(r.drawingForce) } : {}),
+      ...(r.drawabilityRatio !== undefined ? { drawabilityRatio: r.drawabilityRatio } : {}),
+      ...(r.maxAreaReductionPct !== undefined ? { maxAreaReductionPct: r.maxAreaReductionPct } : {}),
+      ...(r.rollForce !== undefined ? { rollForce: u.fromN(r.rollForce) } : {}),
+      ...(r.rollTorque !== undefined ? { rollTorque: u.fromNm(r.rollTorque) } : {}),
+      ...(r.temperatureRise !== undefined ? { temperatureRise: r.temperatureRise } : {}),
+      ...(r.formingLimitMajorStrain !== undefined ? { formingLimitMajorStrain: r.formingLimitMajorStrain } : {}),
+      ...(r.reverseReloadYield !== undefined ? { reverseReloadYield: S(r.reverseReloadYield) } : {}),
+      ...(r.kinematicReloadYield !== undefined ? { kinematicReloadYield: S(r.kinematicReloadYield) } : {}),
+      ...(r.outerFibreStrain !== undefined ? { outerFibreStrain: r.outerFibreStrain } : {}),
+      ...(r.springbackDeg !== undefined ? { springbackDeg: r.springbackDeg } : {}),
+      ...(r.finalAngleDeg !== undefined ? { finalAngleDeg: r.finalAngleDeg } : {}),
+      ...(r.finalRadius !== undefined ? { finalRadius: r.finalRadius === null ? null : u.fromMm(r.finalRadius) } : {}),
       warnings: r.warnings,
     };
   };
@@ -111,6 +147,8 @@ export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: stri
       : { ...t }),
     allTargetsMet: ledger.allTargetsMet,
     coldWorkWindow: ledger.coldWorkWindow,
+    // Scatter: computed here on one thread unless the runner already sampled it on worker threads (same numbers).
+    ...(plan.scatter ? { scatter: scatterReport(plan.scatter, meta.scatter ?? withLocation(plan.file, plan.loc, () => runScatter(plan.scatter!)), u) } : {}),
     cautions: [...CAUTIONS],
   };
 }

@@ -1,27 +1,131 @@
-import { createHash } from 'node:crypto';
 import { parseArgs } from 'node:util';
-import { loadPlanText, runPlan } from '../../plan/load.js';
 import { PlanError } from '../../plan/problems.js';
-import { buildReport } from '../../report/build.js';
-import { tableReport } from '../../report/table.js';
 import type { Command } from '../command.js';
-import { readText } from '../io.js';
-import { TOOL } from '../version.js';
+import { EXTENSION, FORMATS, type Format } from '../render.js';
 
+const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
+
+const GLOB_CHARS = /[*?[\]{}]/;
+
+/**
+ * `run PLAN... [options]`. Plans are evaluated by src/cli/evaluate.ts (read, parse, --set, validate,
+ * resolve, ledger, report — hooks on the plan, such as fitting a named record, belong there); heavy modules are imported only once the arguments are known to be
+ * valid and only for the format asked for, to keep the start-up short.
+ */
 export const run: Command = {
   name: 'run',
-  usage: 'run PLAN [--format table|json]   evaluate a plan; exit 0 all targets met, 1 a target missed, 2 invalid input',
-  run(args, io) {
-    const { values, positionals } = parseArgs({ args, allowPositionals: true, strict: true, options: { format: { type: 'string', default: 'table' } } });
-    if (positionals.length !== 1) throw new PlanError([{ file: '(command line)', path: 'PLAN', message: `got ${positionals.length} plan files, allowed exactly one` }]);
-    const format = values.format!;
-    if (format !== 'table' && format !== 'json') throw new PlanError([{ file: '(command line)', path: '--format', message: `got ${JSON.stringify(format)}, allowed one of table, json` }]);
-    const file = positionals[0]!;
-    const text = readText(file);
-    const plan = loadPlanText(text, file);
-    const ledger = runPlan(plan);
-    const report = buildReport(plan, ledger, { hash: createHash('sha256').update(text).digest('hex'), tool: TOOL });
-    io.stdout(format === 'json' ? JSON.stringify(report, null, 2) + '\n' : tableReport(report, io.isTTY && !process.env.NO_COLOR));
-    return report.allTargetsMet ? 0 : 1;
+  usage: [
+    'run PLAN... [--format table|json|csv|md|html|junit] [--out DIR] [--set PATH=VALUE]... [--sweep PATH=FROM:TO:STEP] [--jobs N] [--no-progress]',
+    '      evaluate plans (files or quoted globs); exit 0 all targets met, 1 a target missed, 2 invalid input (the worst over all plans)',
+  ].join('\n'),
+  async run(args, io) {
+    const { values, positionals } = parseArgs({
+      args, allowPositionals: true, strict: true,
+      options: {
+        format: { type: 'string', short: 'f', default: 'table' },
+        out: { type: 'string', short: 'o' },
+        set: { type: 'string', multiple: true, default: [] },
+        sweep: { type: 'string' },
+        jobs: { type: 'string', short: 'j', default: '1' },
+        'no-progress': { type: 'boolean', default: false },
+      },
+    });
+    const format = values.format as Format;
+    if (!FORMATS.includes(format)) throw cliError('--format', `got ${JSON.stringify(values.format)}, allowed one of ${FORMATS.join(', ')}`);
+    if (!/^\d+$/.test(values.jobs!)) throw cliError('--jobs', `got ${JSON.stringify(values.jobs)}, allowed a whole number ≥ 1`);
+    const { maxJobs } = await import('../batch.js');
+    const jobs = Number(values.jobs);
+    if (jobs < 1 || jobs > maxJobs()) throw cliError('--jobs', `got ${jobs}, allowed 1 to ${maxJobs()}`);
+    if (positionals.length === 0) throw cliError('PLAN', 'got no plan file, allowed one or more plan files or globs');
+    const { parseSet, parseSweep } = await import('../overrides.js');
+    const overrides = values.set!.map(parseSet);
+    const sweep = values.sweep !== undefined ? parseSweep(values.sweep) : undefined;
+    const { checkOutDir } = await import('../out.js');
+    if (values.out !== undefined) checkOutDir(values.out);
+
+    // Plans: files as given, globs expanded (sorted, so the order is the same on every machine).
+    const files: string[] = [];
+    for (const p of positionals) {
+      if (!GLOB_CHARS.test(p)) { files.push(p); continue; }
+      const { globSync } = await import('tinyglobby');
+      const found = globSync(p, { onlyFiles: true, expandDirectories: false }).sort();
+      if (found.length === 0) throw cliError('PLAN', `the pattern ${JSON.stringify(p)} matched no file, allowed a pattern matching at least one plan`);
+      files.push(...found);
+    }
+    const color = io.isTTY && !process.env.NO_COLOR;
+    const progressOn = !values['no-progress'];
+    const { startProgress } = await import('../progress.js');
+
+    if (sweep) {
+      if (files.length !== 1) throw cliError('--sweep', `got ${files.length} plans, allowed exactly one plan with --sweep`);
+      if (format === 'html' || format === 'junit') throw cliError('--format', `got ${format} with --sweep, allowed table, json, csv or md for a sweep`);
+      const [{ readPlan }, sw] = await Promise.all([import('../evaluate.js'), import('../sweep.js')]);
+      const { planOutputs, writeOutput } = await import('../out.js');
+      const targets = values.out !== undefined ? planOutputs(values.out, files, `sweep.${EXTENSION[format]}`) : undefined;
+      const src = readPlan(files[0]!);
+      const progress = await startProgress(sweep.values.length, 'sweep', progressOn);
+      let res;
+      try {
+        res = sw.runSweep(src, sweep, overrides, progress);
+      } finally {
+        progress.stop();
+      }
+      const text = format === 'json' ? sw.sweepJson(res) : format === 'csv' ? sw.sweepCsv(res) : format === 'md' ? sw.sweepMd(res) : sw.sweepTable(res);
+      if (targets) {
+        const target = targets.get(files[0]!)!;
+        writeOutput(target, text);
+        io.stdout(`wrote ${target}\n`);
+      } else io.stdout(text);
+      return res.rows.reduce((w, r) => Math.max(w, r.exit), 0);
+    }
+
+    // One plan: evaluated here; invalid input is thrown (exit 2) before anything is written.
+    if (files.length === 1) {
+      const [{ readPlan, evaluateSource }, { render }, { planOutputs, writeOutput }, { scatterForSource }] = await Promise.all([import('../evaluate.js'), import('../render.js'), import('../out.js'), import('../scatter-workers.js')]);
+      const target = values.out !== undefined ? planOutputs(values.out, files, EXTENSION[format]).get(files[0]!)! : undefined;
+      const src = readPlan(files[0]!);
+      // A scatter section is sampled on --jobs worker threads (the numbers do not depend on how many).
+      const report = evaluateSource(src, overrides, await scatterForSource(src, overrides, jobs, progressOn));
+      const exit = report.allTargetsMet ? 0 : 1;
+      if (target === undefined) io.stdout(await render(report, format, color));
+      else {
+        writeOutput(target, await render(report, format));
+        io.stdout(`${files[0]}: ${exit === 0 ? 'all targets met' : 'a target is NOT met'}; wrote ${target}\n`);
+      }
+      return exit;
+    }
+
+    // A batch (several plans, or --out): each plan on the main thread or a worker, then one summary.
+    if (values.out === undefined && (format === 'md' || format === 'html')) {
+      throw cliError('--format', `got ${format} for ${files.length} plans without --out, allowed table, json, csv or junit on stdout (or --out DIR for one file per plan)`);
+    }
+    const [{ runTasks }, summary, { planOutputs, writeOutput }] = await Promise.all([import('../batch.js'), import('../summary.js'), import('../out.js')]);
+    const targets = values.out !== undefined ? planOutputs(values.out, files, EXTENSION[format]) : undefined;
+    const progress = await startProgress(files.length, 'plans', progressOn);
+    let outcomes;
+    try {
+      outcomes = await runTasks(files.map((file) => ({ file, format, overrides, render: targets !== undefined })), jobs, progress);
+    } finally {
+      progress.stop();
+    }
+    io.stderr(summary.problemLines(outcomes));
+    if (targets) {
+      let n = 0;
+      for (const o of outcomes) if (o.output !== undefined) { writeOutput(targets.get(o.file)!, o.output); n++; }
+      io.stdout(summary.summaryTable(outcomes, color) + `wrote ${n} ${format} report${n === 1 ? '' : 's'} to ${values.out}\n`);
+    } else if (format === 'json') {
+      io.stdout(JSON.stringify(outcomes.map((o) => o.report ?? { file: o.file, invalid: o.problems ?? o.internal }), null, 2) + '\n');
+    } else if (format === 'csv') {
+      const { csvReport, csvLine, csvHeader } = await import('../../report/csv.js');
+      const { extraStepFields } = await import('../../report/fields.js');
+      const reports = outcomes.flatMap((o) => (o.report ? [o.report] : []));
+      const extras = extraStepFields(reports.flatMap((r) => r.steps));
+      io.stdout(csvLine(csvHeader(extras)) + reports.map((r) => csvReport(r, { header: false, extras })).join(''));
+    } else if (format === 'junit') {
+      const { junitReport } = await import('../../report/junit.js');
+      const { formatProblem } = await import('../../plan/problems.js');
+      io.stdout(junitReport(outcomes.map((o) => (o.report ? { name: o.report.plan.name, report: o.report } : { name: o.file, invalid: o.problems?.map(formatProblem).join('\n') ?? o.internal ?? 'invalid' }))));
+    } else io.stdout(summary.summaryTable(outcomes, color));
+    return summary.worstExit(outcomes);
   },
 };

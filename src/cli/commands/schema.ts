@@ -1,11 +1,13 @@
-import { planJsonSchema } from '../../plan/schema.js';
+import { parseArgs } from 'node:util';
 import type { Command } from '../command.js';
 
 export const schema: Command = {
   name: 'schema',
-  usage: 'schema                          print the JSON Schema of the plan file',
-  run(_args, io) {
-    io.stdout(JSON.stringify(planJsonSchema(), null, 2) + '\n');
+  usage: 'schema [--report]               print the JSON Schema of the plan file (--report: of the JSON report, version 1)',
+  async run(args, io) {
+    const { values } = parseArgs({ args, strict: true, allowPositionals: false, options: { report: { type: 'boolean', default: false } } });
+    const s = values.report ? (await import('../../report/schema.js')).reportJsonSchema() : (await import('../../plan/schema.js')).planJsonSchema();
+    io.stdout(JSON.stringify(s, null, 2) + '\n');
     return 0;
   },
 };

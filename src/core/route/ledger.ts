@@ -1,7 +1,9 @@
 import { ComputationError } from '../errors.js';
+import { passLoads } from '../process/passLoads.js';
 import { PROOF_OFFSET, stateProperties } from './state.js';
 import { STEP_KINDS, stockOf, type ReductionBasis } from './steps.js';
-import { checkTargets, validateTargets } from './targets.js';
+import { checkSpringbackTarget, checkTargets, validateTargets } from './targets.js';
+import { backstressAfter, isotropicPart } from '../path/hardening.js';
 import type { Ledger, LedgerRow, RouteInput, Size, StockKind, Warning } from './types.js';
 import { coldWorkWindow } from './window.js';
 
@@ -55,12 +57,18 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   let epsAfterAnneal = 0;
   let basis: ReductionBasis = null;
   const rows: LedgerRow[] = new Array(steps.length);
+  // Kinematic state (issue 6): backstresses along the forming axis, advanced in closed form over each
+  // step's plastic strain in its direction (+1 forward, −1 reverse); see core/path/hardening.ts.
+  const kin = material.kinematic;
+  const iso = kin ? isotropicPart(law, kin, 'material.kinematic') : undefined;
+  const back: number[] = kin ? kin.backstresses.map(() => 0) : [];
+  let dir: 1 | -1 = 1;
 
   for (let i = 0; i < steps.length; i++) {
     const step = steps[i]!;
     const path = `steps[${i}]`;
     const def = STEP_KINDS[step.kind];
-    const effect = def.apply(step, { stock, size, path, length });
+    const effect = def.apply(step, { stock, size, path, length, state: { material, strain: eps, backstresses: [...back] } });
     const before = eps;
     let meanFlowStress = 0;
     let plasticWork = 0;
@@ -71,12 +79,16 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
         const s0 = law.stress(0);
         eps = law.strainAt(law.stress(eps) - f * (law.stress(eps) - s0));
       }
+      for (let k = 0; k < back.length; k++) back[k] = f >= 1 ? 0 : back[k]! * (1 - f);
       annealSize = effect.size;
       strainSince = 0;
       epsAfterAnneal = eps;
     } else {
       const d = effect.strainIncrement;
       eps = before + d;
+      const sdir = effect.direction ?? 1;
+      if (kin) for (let k = 0; k < back.length; k++) back[k] = backstressAfter(back[k]!, kin.backstresses[k]!.C, kin.backstresses[k]!.gamma, sdir, d);
+      if (d > 0) dir = sdir;
       strainSince += d;
       plasticWork = law.work(eps) - law.work(before);
       meanFlowStress = d > 1e-12 ? plasticWork / d : law.stress(eps);
@@ -111,6 +123,42 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
       plasticWork,
       warnings,
     };
+    if (kin && iso) {
+      // 0.2 % proof stress reloading along s: σ = ΣXᵢ(after 0.002 along s) + s·R(ε̄ + 0.002), magnitude along s.
+      const proofAlong = (s: 1 | -1) => {
+        let x = 0;
+        for (let k = 0; k < back.length; k++) x += backstressAfter(back[k]!, kin.backstresses[k]!.C, kin.backstresses[k]!.gamma, s, PROOF_OFFSET);
+        return s * x + iso.size(eps + PROOF_OFFSET);
+      };
+      row.kinematicReloadYield = proofAlong(dir);
+      row.reverseReloadYield = proofAlong(-dir as 1 | -1);
+      if (!Number.isFinite(row.kinematicReloadYield + row.reverseReloadYield)) throw new ComputationError(`${path}.reverseReloadYield`, 'not a finite number; check material.kinematic');
+    } else if (step.kind === 'reverse' || (step.kind === 'bend' && step.reverse === true)) {
+      warnings.push({ code: 'reversal', message: 'reversed loading with isotropic hardening only: the yield in the reversed direction is overstated (Bauschinger effect); give material.kinematic to estimate it' });
+    }
+    if (effect.bend) {
+      const b = effect.bend;
+      row.outerFibreStrain = b.outerFibreStrain;
+      row.springbackDeg = b.springbackDeg;
+      row.finalAngleDeg = b.finalAngleDeg;
+      row.finalRadius = b.finalRadius;
+      if (!Number.isFinite(b.outerFibreStrain + b.springbackDeg + b.finalAngleDeg + (b.finalRadius ?? 0))) throw new ComputationError(`${path}.springbackDeg`, 'not a finite number; check the bend and the material');
+      const t = size.thickness ?? 0;
+      const Ri = (step as { radius: number }).radius;
+      if (Ri < 2 * t) warnings.push({ code: 'bend', message: `sharp bend (inner radius ${length(Ri)} < 2 × thickness ${length(t)}): thin-bending theory (strain y/ρ, neutral surface at mid-thickness, no thinning) is approximate here` });
+      if (b.reverseYield) warnings.push({ code: 'bend', message: 'the residual stress after springback reaches reverse yield in part of the thickness; unloading is not purely elastic and the springback given is somewhat overstated' });
+      warnings.push({ code: 'bend', message: 'after a bend the ledger follows the outer fibre (the most strained); strength varies through the thickness and the mid-plane keeps its earlier state' });
+    }
+    if (effect.softeningFraction === undefined) {
+      // Pass loads, heating and sheet limits, present only where the step and material give what they need.
+      const { warnings: loadWarnings, ...loads } = passLoads({
+        step, stock, law, density: material.density, specificHeat: material.specificHeat, sizeBefore: rows[i - 1]?.size ?? start, sizeAfter: size,
+        strainBefore: before, strainAfter: eps, meanFlowStress, plasticWork, path,
+      });
+      Object.assign(row, loads);
+      warnings.push(...loadWarnings);
+      for (const v of Object.values(loads)) if (!Number.isFinite(v)) throw new ComputationError(path, `a pass load is not a finite number (${v})`);
+    }
     // One sum finds any non-finite field cheaply; only then look for which one.
     const sum = row.accumulatedStrain + row.coldWorkPct + row.flowStress + row.reloadYield + row.tensileStrength + row.yieldRatio +
       row.remainingUniformElongationPct + row.elasticRecoveryStrain + row.recoveredElasticEnergy + row.meanFlowStress + row.plasticWork +
@@ -125,6 +173,11 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   const initial = stateProperties(material, 0, eu);
   const final = rows.length > 0 ? rows[rows.length - 1]! : initial;
   const results = checkTargets(final, targets);
+  let window = coldWorkWindow(law, epsAfterAnneal, targets, basis);
+  if (targets.maxSpringbackDeg !== undefined) {
+    results.push(checkSpringbackTarget(rows, targets.maxSpringbackDeg));
+    window = { ...window, note: `${window.note}; maxSpringbackDeg is checked on the route's bend steps but sets no bound here (springback is not monotone in cold work)` };
+  }
   return {
     stock,
     uniformStrain: eu,
@@ -132,6 +185,6 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
     rows,
     targets: results,
     allTargetsMet: results.every((t) => t.met),
-    coldWorkWindow: coldWorkWindow(law, epsAfterAnneal, targets, basis),
+    coldWorkWindow: window,
   };
 }

@@ -1,6 +1,7 @@
 import { checkRange, InputError } from '../errors.js';
 import { biaxialStrain, drawingStrain, PLANE_STRAIN_FACTOR, rollingStrain, shearStrain, trueFromEngineering, upsetStrain } from './strain.js';
-import type { Size, Step, StepKind, StockKind } from './types.js';
+import { springback, type SpringbackResult } from '../bend/springback.js';
+import type { Material, Size, Step, StepKind, StockKind } from './types.js';
 
 /** Everything a step kind needs to know about the state it acts on. */
 export interface StepContext {
@@ -10,6 +11,8 @@ export interface StepContext {
   path: string;
   /** Formats a length in mm in the plan's own unit, for error messages. */
   length: (mm: number) => string;
+  /** The material state before the step; needed by steps whose effect depends on it (bend). */
+  state?: { material: Material; strain: number; backstresses: readonly number[] };
 }
 
 /** What a step does: an equivalent-strain increment and the new size; an anneal instead softens. */
@@ -18,6 +21,10 @@ export interface StepEffect {
   size: Size;
   /** Set for an anneal: the fraction of the work hardening removed (1 = full anneal). */
   softeningFraction?: number;
+  /** Direction of the plastic strain along the forming axis: +1 (default) forward, −1 reversed (reverse step, reverse bend). */
+  direction?: 1 | -1;
+  /** Set for a bend: the bend and its springback. */
+  bend?: SpringbackResult;
 }
 
 /** How percent reduction relates to the equivalent strain of a step kind (for the cold-work window). */
@@ -188,8 +195,41 @@ const anneal: StepKindDef = {
   },
 };
 
+const reverse: StepKindDef = {
+  kind: 'reverse',
+  reductionBasis: null,
+  apply(step, ctx) {
+    const s = step as Extract<Step, { kind: 'reverse' }>;
+    // Reversed uniaxial strain: compression along the forming axis; the cross-section grows.
+    const eps = checkRange(`${ctx.path}.strain`, s.strain, 0, 1);
+    const lateral = Math.exp(eps / 2);
+    return { strainIncrement: eps, direction: -1, size: scaled(ctx.size, { thickness: lateral, width: lateral, diameter: lateral, height: Math.exp(-eps) }) };
+  },
+};
+
+const bend: StepKindDef = {
+  kind: 'bend',
+  reductionBasis: null,
+  apply(step, ctx) {
+    const s = step as Extract<Step, { kind: 'bend' }>;
+    if (ctx.stock !== 'strip' || ctx.size.thickness === undefined) {
+      throw new InputError(`${ctx.path}.kind`, 'bend', 'a step for this stock (bend needs strip: start.thickness)', 'bending is modelled for strip and sheet only');
+    }
+    if (!ctx.state) throw new InputError(`${ctx.path}.kind`, 'bend', 'a bend evaluated inside a route (evaluateRoute passes the material state)');
+    const st = ctx.state;
+    const m = st.material;
+    const r = springback({
+      elasticModulus: m.elasticModulus, poissonRatio: m.poissonRatio, law: m.law, thickness: ctx.size.thickness,
+      prestrain: st.strain, backstresses: st.backstresses, reverse: s.reverse === true,
+      ...(m.kinematic ? { kinematic: m.kinematic } : {}), ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}),
+    }, { radius: s.radius, angleDeg: s.angle }, ctx.path);
+    // The ledger follows the outer (most strained) fibre: its equivalent plastic strain is the step's increment.
+    return { strainIncrement: r.outerFibrePlasticStrain, direction: s.reverse === true ? -1 : 1, size: { ...ctx.size }, bend: r };
+  },
+};
+
 /** Every step kind by name. */
-export const STEP_KINDS: Readonly<Record<StepKind, StepKindDef>> = { roll, draw, stretch, stretchBiaxial, upset, shear, strain, anneal };
+export const STEP_KINDS: Readonly<Record<StepKind, StepKindDef>> = { roll, draw, stretch, stretchBiaxial, upset, shear, strain, anneal, reverse, bend };
 
 export const STEP_KIND_NAMES = Object.keys(STEP_KINDS) as StepKind[];
 

@@ -1,15 +1,15 @@
 import { checkRange, InputError } from '../errors.js';
-import type { StateProperties, TargetName, TargetResult, Targets } from './types.js';
+import type { LedgerRow, StateProperties, StateTargetName, TargetResult, Targets } from './types.js';
 
 /** Each target: the state property it limits and whether it is a lower (min) or upper (max) limit. */
-export const TARGET_DEFS: Readonly<Record<TargetName, { property: keyof StateProperties; sense: 'min' | 'max'; unit: 'stress' | 'percent' }>> = {
+export const TARGET_DEFS: Readonly<Record<StateTargetName, { property: keyof StateProperties; sense: 'min' | 'max'; unit: 'stress' | 'percent' }>> = {
   minYield: { property: 'reloadYield', sense: 'min', unit: 'stress' },
   maxYield: { property: 'reloadYield', sense: 'max', unit: 'stress' },
   minTensile: { property: 'tensileStrength', sense: 'min', unit: 'stress' },
   minRemainingElongationPct: { property: 'remainingUniformElongationPct', sense: 'min', unit: 'percent' },
 };
 
-export const TARGET_NAMES = Object.keys(TARGET_DEFS) as TargetName[];
+export const TARGET_NAMES = Object.keys(TARGET_DEFS) as StateTargetName[];
 
 /**
  * Validates targets: each a finite number ≥ 0, and no pair contradicts (minYield ≤ maxYield).
@@ -22,6 +22,7 @@ export function validateTargets(t: Targets, path = 'targets'): Targets {
     if (v === undefined) continue;
     out[name] = checkRange(`${path}.${name}`, v, 0, TARGET_DEFS[name].unit === 'percent' ? 1000 : 1e5);
   }
+  if (t.maxSpringbackDeg !== undefined) out.maxSpringbackDeg = checkRange(`${path}.maxSpringbackDeg`, t.maxSpringbackDeg, 0, 180);
   if (out.minYield !== undefined && out.maxYield !== undefined && out.minYield > out.maxYield) {
     throw new InputError(`${path}.maxYield`, out.maxYield, `a value ≥ minYield (${out.minYield})`, 'contradictory targets');
   }
@@ -44,4 +45,21 @@ export function checkTargets(state: StateProperties, targets: Targets): TargetRe
     out.push({ name, limit, predicted, margin, met: margin >= 0 });
   }
   return out;
+}
+
+/**
+ * Checks `maxSpringbackDeg` against the largest springback of any bend step of the route
+ * (margin = limit − predicted, degrees). Springback is not a property of the final state alone (it
+ * belongs to each bend), and it is not monotone in the cold work since the last anneal (it grows with
+ * the flow stress but falls with the chord modulus and depends on each bend's radius), so it gives no
+ * bound to the cold-work window: the window ignores it and says so in its note.
+ * @throws InputError (`targets.maxSpringbackDeg`) when the route has no bend step.
+ * @example checkSpringbackTarget(rows, 3).met
+ */
+export function checkSpringbackTarget(rows: readonly LedgerRow[], limit: number, path = 'targets.maxSpringbackDeg'): TargetResult {
+  let worst: number | null = null;
+  for (const r of rows) if (r.springbackDeg !== undefined && (worst === null || r.springbackDeg > worst)) worst = r.springbackDeg;
+  if (worst === null) throw new InputError(path, limit, 'a springback target only for a route with a bend step');
+  const margin = limit - worst;
+  return { name: 'maxSpringbackDeg', limit, predicted: worst, margin, met: margin >= 0 };
 }

@@ -1,5 +1,6 @@
 import type { FlowLaw } from '../flow/types.js';
 import type { ModulusDecay } from '../material/modulus.js';
+import type { KinematicSpec } from '../path/types.js';
 
 /** Cross-section and height of the stock, mm inside the core. Strip has `thickness`, wire and bar `diameter`. */
 export interface Size {
@@ -21,24 +22,34 @@ export interface Material {
   poissonRatio: number;
   law: FlowLaw;
   modulusDecay?: ModulusDecay;
+  /** Armstrong–Frederick backstresses (combined hardening, see core/path/hardening.ts); without them hardening is isotropic. */
+  kinematic?: KinematicSpec;
   /** Range of true plastic strain the law was fitted on; beyond it the ledger warns. */
   fittedStrainRange?: readonly [number, number];
   /** Where the law came from, for provenance: `given`, or `fitted from FILE`. */
   source?: string;
+  /** Density, kg/m³, for the temperature rise of a pass (optional). */
+  density?: number;
+  /** Specific heat, J/(kg·K), for the temperature rise of a pass (optional). */
+  specificHeat?: number;
 }
 
-export type StepKind = 'roll' | 'draw' | 'stretch' | 'stretchBiaxial' | 'upset' | 'shear' | 'strain' | 'anneal';
+export type StepKind = 'roll' | 'draw' | 'stretch' | 'stretchBiaxial' | 'upset' | 'shear' | 'strain' | 'anneal' | 'reverse' | 'bend';
 
 /** A resolved step, sizes in mm. Exactly one way to give the size change where there is a choice. */
 export type Step =
-  | { kind: 'roll'; thickness?: number; reductionPct?: number }
-  | { kind: 'draw'; diameter?: number; areaReductionPct?: number }
+  | { kind: 'roll'; thickness?: number; reductionPct?: number; rollRadius?: number; width?: number; friction?: number; forceCapacity?: number }
+  | { kind: 'draw'; diameter?: number; areaReductionPct?: number; dieHalfAngleDeg?: number; friction?: number; forceCapacity?: number }
   | { kind: 'stretch'; strain?: number; engineeringStrain?: number }
   | { kind: 'stretchBiaxial'; strain: number }
   | { kind: 'upset'; height?: number; reductionPct?: number }
   | { kind: 'shear'; shearStrain: number }
   | { kind: 'strain'; strain: number }
-  | { kind: 'anneal'; softeningFraction?: number };
+  | { kind: 'anneal'; softeningFraction?: number }
+  /** Reversed uniaxial strain (compression along the forming direction), true strain magnitude. */
+  | { kind: 'reverse'; strain: number }
+  /** Bend of strip on a tool: inner radius (mm), bend angle (degrees); `reverse` bends the other way (reverse bending). */
+  | { kind: 'bend'; radius: number; angle: number; reverse?: boolean };
 
 /** Designer's limits on the final state, in MPa and percent. */
 export interface Targets {
@@ -46,9 +57,14 @@ export interface Targets {
   maxYield?: number;
   minTensile?: number;
   minRemainingElongationPct?: number;
+  /** Largest acceptable springback of any bend step, degrees. */
+  maxSpringbackDeg?: number;
 }
 
 export type TargetName = keyof Targets;
+
+/** Targets that limit a property of the final state (every target but maxSpringbackDeg). */
+export type StateTargetName = Exclude<TargetName, 'maxSpringbackDeg'>;
 
 /** One target checked: margin > 0 means met with room; margin is in the target's own unit. */
 export interface TargetResult {
@@ -60,7 +76,7 @@ export interface TargetResult {
 }
 
 export interface Warning {
-  code: 'necking' | 'extrapolated' | 'yieldRatio';
+  code: 'necking' | 'extrapolated' | 'yieldRatio' | 'drawability' | 'capacity' | 'heating' | 'bite' | 'sheetLimit' | 'reversal' | 'bend';
   message: string;
 }
 
@@ -84,6 +100,27 @@ export interface LedgerRow {
   recoveredElasticEnergy: number;
   meanFlowStress: number;
   plasticWork: number;
+  /** Reload yield (0.2 % proof, MPa) against the direction of the last step, with the kinematic parameters; present only when the material has them. */
+  reverseReloadYield?: number;
+  /** Reload yield (0.2 % proof, MPa) in the direction of the last step, with the kinematic parameters; present only when the material has them. */
+  kinematicReloadYield?: number;
+  /** Bend steps only: outer-fibre bending strain t/(2ρ) (thin-bending theory, ρ the mid-surface radius). */
+  outerFibreStrain?: number;
+  /** Bend steps only: springback angle, degrees. */
+  springbackDeg?: number;
+  /** Bend steps only: bend angle after springback, degrees. */
+  finalAngleDeg?: number;
+  /** Bend steps only: inner radius after springback, mm; null when the strip springs back flat. */
+  finalRadius?: number | null;
+  /** Pass loads, heating and sheet limits (core/process/passLoads.ts); present only where they apply. MPa, N, N·m, K. */
+  drawingStress?: number;
+  drawingForce?: number;
+  drawabilityRatio?: number;
+  maxAreaReductionPct?: number;
+  rollForce?: number;
+  rollTorque?: number;
+  temperatureRise?: number;
+  formingLimitMajorStrain?: number;
   warnings: Warning[];
 }
 

@@ -1,0 +1,200 @@
+// Prestrain explorer: the cell graph. Every number comes from the core (stateProperties,
+// chordModulus, makeLaw); the page only arranges and formats them.
+import {
+  Notebook, expose, slider, stepSlider, choice, valueStream, h, quantity, fixed, DIGITS, restore, byId,
+} from '../../src/cells/index.js';
+import {
+  makeLaw, stateProperties, chordModulus, reductionPctFromStrain, LAW_PARAMETERS, LAW_NAMES, PROOF_OFFSET, InputError,
+} from '../../src/core/index.js';
+import type { FlowLaw, LawSpec, Material } from '../../src/core/index.js';
+import { flowCurveChart, loadUnloadChart } from '../../src/charts/prestrain.js';
+import { BENCH_MATERIAL_KEY, demoPlans, pageChrome } from '../shared/page.js';
+
+pageChrome('prestrain/', 'Prestrain explorer');
+
+/** A material with one or more laws to compare (stresses in MPa). */
+export interface LawSet {
+  name: string;
+  invented: boolean;
+  elasticModulus: number;
+  modulusDecay?: Material['modulusDecay'];
+  testedRange: readonly [number, number] | null;
+  laws: { label: string; law: FlowLaw }[];
+}
+
+const lawLabel = (law: FlowLaw) => `${law.law} (${LAW_PARAMETERS[law.law].map((p) => `${p.name} ${+law.params[p.name]!.toPrecision(4)}`).join(', ')})`;
+
+// Material sources: the invented demo plans, a law typed in, and the record bench's saved fits.
+type Source = { kind: 'demo'; index: number } | { kind: 'typed' } | { kind: 'bench' };
+const demos = demoPlans();
+const sources: { value: Source; text: string }[] = [
+  ...demos.map((d, index) => ({ value: { kind: 'demo', index } as Source, text: `${d.plan.route.material.name} — INVENTED demo (${d.file})` })),
+  { value: { kind: 'typed' }, text: 'a law typed in (JSON below)' },
+  { value: { kind: 'bench' }, text: 'the law saved from the record bench' },
+];
+const sourceInput = choice({ label: 'Material', options: sources, id: 'material' });
+byId('material-input').append(sourceInput);
+
+const lawText = h('textarea', { id: 'law-text', rows: 5, cols: 44, spellcheck: 'false' });
+lawText.value = JSON.stringify({ elasticModulus: 70000, laws: [{ law: 'voce', sigma0: 120, Q: 160, b: 12 }, { law: 'hollomon', K: 400, n: 0.2 }] }, null, 1);
+const lawTextWrap = h('div', { class: 'sl-input', id: 'law-text-wrap' },
+  h('label', { for: 'law-text' }, 'Law typed in (MPa; used when "a law typed in" is chosen)'), lawText);
+Object.defineProperty(lawTextWrap, 'value', { get: () => lawText.value });
+lawText.addEventListener('change', () => lawTextWrap.dispatchEvent(new Event('input')));
+byId('law-text-input').append(lawTextWrap);
+
+const prestrainInput = slider({ label: 'Prestrain ε̄', min: 0, max: 1.5, step: 0.001, value: 0.1, unit: '(equivalent true plastic strain)', id: 'prestrain' });
+byId('prestrain-input').append(prestrainInput);
+
+type Mode = 'uniaxial' | 'plane' | 'equibiaxial';
+const modeInput = stepSlider<Mode>({
+  label: 'Forming mode', id: 'mode', value: 'uniaxial',
+  options: [{ value: 'uniaxial', text: 'uniaxial (stretch, draw)' }, { value: 'plane', text: 'plane strain (roll)' }, { value: 'equibiaxial', text: 'equibiaxial (bulge)' }],
+});
+byId('mode-input').append(modeInput);
+
+function parseTyped(text: string): LawSet {
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch (e) {
+    throw new InputError('law typed in', text.slice(0, 40), `JSON such as {"elasticModulus": 200000, "laws": [{"law": "hollomon", "K": 600, "n": 0.21}]} (${(e as Error).message})`);
+  }
+  const o = raw as { elasticModulus?: unknown; laws?: unknown };
+  const E = o.elasticModulus;
+  if (typeof E !== 'number' || !(E > 0) || !Number.isFinite(E)) throw new InputError('elasticModulus', E, 'a number of MPa above 0');
+  if (!Array.isArray(o.laws) || o.laws.length === 0) throw new InputError('laws', o.laws, `a list of one or more laws (${LAW_NAMES.join(', ')})`);
+  const laws = o.laws.map((spec, i) => makeLaw(spec as LawSpec, `laws[${i}]`));
+  return { name: 'typed in', invented: false, elasticModulus: E, testedRange: null, laws: laws.map((law) => ({ label: lawLabel(law), law })) };
+}
+
+function benchSet(): LawSet {
+  const stored = restore(BENCH_MATERIAL_KEY, (raw) => raw as { name: string; elasticModulus: number; flowCurve: LawSpec; alternatives?: LawSpec[]; fittedStrainRange?: [number, number] });
+  const m = stored.value;
+  if (!m) throw new Error(stored.problem ?? 'no law has been saved from the record bench yet: open the record bench, choose a law and press "use in the other notebooks"');
+  const specs = [m.flowCurve, ...(m.alternatives ?? []).filter((s) => s.law !== m.flowCurve.law)];
+  const laws = specs.map((s, i) => makeLaw(s, `record bench law ${i + 1}`));
+  return { name: m.name, invented: false, elasticModulus: m.elasticModulus, testedRange: m.fittedStrainRange ?? null, laws: laws.map((law) => ({ label: lawLabel(law), law })) };
+}
+
+const nb = new Notebook();
+nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
+  .cell({ name: 'lawText', fn: () => valueStream(lawTextWrap as unknown as HTMLElement & { value: string }) })
+  .cell({ name: 'prestrain', fn: () => valueStream(prestrainInput) })
+  .cell({ name: 'mode', fn: () => valueStream(modeInput) })
+  .cell({
+    name: 'lawSet', inputs: ['source', 'lawText'], into: 'material-note',
+    fn: (source: Source, text: string): LawSet => {
+      if (source.kind === 'typed') return parseTyped(text);
+      if (source.kind === 'bench') return benchSet();
+      const m = demos[source.index]!.plan.route.material;
+      return { name: m.name, invented: true, elasticModulus: m.elasticModulus, ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}), testedRange: m.fittedStrainRange ?? null, laws: [{ label: lawLabel(m.law), law: m.law }] };
+    },
+    render: (v) => {
+      const s = v as LawSet;
+      return h('p', {}, `E = ${fixed(s.elasticModulus, 0)} MPa; ${s.laws.length} law${s.laws.length > 1 ? 's' : ''}. `,
+        s.invented ? h('span', { class: 'sl-invented' }, 'INVENTED demo, handbook law') : null);
+    },
+  })
+  .cell({
+    name: 'materialName', inputs: ['lawSet'], into: 'cell-material-name',
+    fn: (s: LawSet) => h('span', {}, `— ${s.name}`),
+  })
+  .cell({
+    name: 'states', inputs: ['lawSet', 'prestrain'],
+    fn: (s: LawSet, eps: number) => s.laws.map(({ label, law }) => {
+      const m: Material = { name: s.name, elasticModulus: s.elasticModulus, poissonRatio: 0.3, law, ...(s.modulusDecay ? { modulusDecay: s.modulusDecay } : {}) };
+      return { label, law, material: m, uniformStrain: law.uniformStrain(), props: stateProperties(m, eps) };
+    }),
+  })
+  .cell({
+    name: 'numbers', inputs: ['states', 'prestrain'], into: 'cell-numbers',
+    fn: (states: { props: ReturnType<typeof stateProperties>; uniformStrain: number }[], eps: number) => {
+      const p = states[0]!.props;
+      return h('dl', { class: 'sl-quantities', id: 'numbers' },
+        quantity('prestrain ε̄', eps, 3, '', 'prestrain'),
+        quantity('reload yield Rp0.2', p.reloadYield, DIGITS.stress, 'MPa', 'reloadYield'),
+        quantity('tensile strength Rm', p.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength'),
+        quantity('yield ratio Rp0.2/Rm', p.yieldRatio, DIGITS.ratio, '', 'yieldRatio'),
+        quantity('elastic recovery σ/E(ε̄)', p.elasticRecoveryStrain * 100, DIGITS.recoveryPct, '% strain', 'elasticRecovery'),
+        quantity('remaining uniform elongation', p.remainingUniformElongationPct, DIGITS.pct, '%', 'remainingElongation'),
+        quantity('unloading modulus E(ε̄)', p.elasticModulus, 0, 'MPa', 'modulus'),
+        quantity('uniform strain εu (Considère)', states[0]!.uniformStrain, DIGITS.strain, '', 'uniformStrain'));
+    },
+  })
+  .cell({
+    name: 'reductions', inputs: ['prestrain', 'mode'], into: 'cell-reductions',
+    fn: (eps: number, mode: Mode) => {
+      // Equivalent strain → reductions (von Mises; Marciniak, Duncan & Hu §3.4; see core/route/strain.ts).
+      const rows: [string, string][] = mode === 'uniaxial'
+        ? [['stretch (engineering)', `${fixed(Math.expm1(eps) * 100, 1)} %`], ['area reduction (drawing)', `${fixed(reductionPctFromStrain('area', eps), 1)} %`]]
+        : mode === 'plane'
+          ? [['thickness strain ε̄·√3/2', fixed(eps * Math.sqrt(3) / 2, 4)], ['thickness reduction (rolling)', `${fixed(reductionPctFromStrain('thickness', eps), 1)} %`]]
+          : [['major strain ε1 = ε̄/2', fixed(eps / 2, 4)], ['thickness reduction', `${fixed(-Math.expm1(-eps) * 100, 1)} %`]];
+      return h('table', { class: 'sl-table', id: 'reductions' }, h('tbody', {}, ...rows.map(([k, v]) => h('tr', {}, h('td', { class: 'text' }, k), h('td', {}, v)))));
+    },
+  })
+  .cell({
+    name: 'curves', inputs: ['lawSet', 'prestrain'],
+    fn: (s: LawSet, eps: number) => {
+      const top = Math.max(1, eps * 1.3);
+      const N = 120;
+      return s.laws.map(({ label, law }) => ({ label, points: Array.from({ length: N + 1 }, (_, i) => ({ strain: (top * i) / N, stress: law.stress((top * i) / N) })) }));
+    },
+  })
+  .cell({
+    name: 'flowChart', inputs: ['curves', 'states', 'lawSet', 'prestrain'], into: 'cell-flow-chart',
+    fn: (curves: { label: string; points: { strain: number; stress: number }[] }[], states: { label: string; props: { reloadYield: number }; uniformStrain: number }[], s: LawSet, eps: number) =>
+      flowCurveChart(curves, {
+        stressUnit: 'MPa', prestrain: eps,
+        testedRange: s.testedRange ?? [0, Math.min(...states.map((x) => x.uniformStrain))],
+        reloadYields: states.map((x) => ({ label: x.label, strain: eps + PROOF_OFFSET, stress: x.props.reloadYield })),
+      }),
+  })
+  .cell({
+    name: 'lurChart', inputs: ['lawSet', 'prestrain'], into: 'cell-lur-chart',
+    fn: (s: LawSet, eps: number) => {
+      const law = s.laws[0]!.law;
+      const E = (ep: number) => chordModulus(s.elasticModulus, s.modulusDecay, ep);
+      const N = 60;
+      const s0 = law.stress(0);
+      const loading = [{ strain: 0, stress: 0 }, { strain: s0 / E(0), stress: s0 }];
+      for (let i = 1; i <= N; i++) { const ep = (eps * i) / N; const sg = law.stress(ep); loading.push({ strain: ep + sg / E(ep), stress: sg }); }
+      const top = law.stress(eps);
+      const Eu = E(eps);
+      const unloading = [{ strain: eps + top / Eu, stress: top }, { strain: eps, stress: 0 }];
+      const extra = Math.max(0.02, eps * 0.25);
+      const reloading = [{ strain: eps, stress: 0 }];
+      for (let i = 0; i <= N; i++) { const ep = eps + (extra * i) / N; const sg = law.stress(ep); reloading.push({ strain: ep + sg / Eu, stress: sg }); }
+      return loadUnloadChart({ loading, unloading, reloading, recovery: { from: eps, to: eps + top / Eu } }, { stressUnit: 'MPa' });
+    },
+  })
+  .cell({
+    name: 'laws', inputs: ['states', 'curves', 'lawSet'], into: 'cell-laws',
+    fn: (states: { label: string; uniformStrain: number; props: ReturnType<typeof stateProperties> }[], curves: { points: { strain: number; stress: number }[] }[], s: LawSet) => {
+      const head = ['law', 'εu', 'flow stress MPa', 'reload yield Rp0.2 MPa', 'Rm MPa', 'Rp0.2/Rm', 'recovery % strain', 'remaining uniform elongation %'];
+      const table = h('table', { class: 'sl-table', id: 'law-table' },
+        h('thead', {}, h('tr', {}, ...head.map((x) => h('th', { scope: 'col' }, x)))),
+        h('tbody', {}, ...states.map((x) => h('tr', {},
+          h('td', { class: 'text' }, x.label), h('td', {}, fixed(x.uniformStrain, DIGITS.strain)), h('td', {}, fixed(x.props.flowStress, DIGITS.stress)),
+          h('td', {}, fixed(x.props.reloadYield, DIGITS.stress)), h('td', {}, fixed(x.props.tensileStrength, DIGITS.stress)),
+          h('td', {}, fixed(x.props.yieldRatio, DIGITS.ratio)), h('td', {}, fixed(x.props.elasticRecoveryStrain * 100, DIGITS.recoveryPct)),
+          h('td', {}, fixed(x.props.remainingUniformElongationPct, DIGITS.pct))))));
+      if (states.length < 2) return h('div', {}, table, h('p', {}, 'Only one law for this material. Fit every law to a record in the record bench (or type several laws in) to see where they part ways beyond the tested range.'));
+      // Where the laws part ways: first sampled strain at which their stresses differ by more than 5 %.
+      const pts = curves[0]!.points;
+      let from: number | null = null;
+      for (let i = 0; i < pts.length && from === null; i++) {
+        const ys = curves.map((c) => c.points[i]!.stress);
+        if ((Math.max(...ys) - Math.min(...ys)) / Math.min(...ys) > 0.05) from = pts[i]!.strain;
+      }
+      const ry = states.map((x) => x.props.reloadYield);
+      const spread = (Math.max(...ry) - Math.min(...ry)) / Math.min(...ry) * 100;
+      const tested = s.testedRange ?? [0, Math.min(...states.map((x) => x.uniformStrain))];
+      return h('div', {}, table, h('p', { id: 'law-spread' },
+        `At this prestrain the laws' reload yields differ by ${fixed(spread, 1)} %. `,
+        from === null ? 'They stay within 5 % of each other over the whole chart.' : `They differ by more than 5 % from ε̄ ≈ ${fixed(from, 3)} on; the strain range they rest on is ${fixed(tested[0], 3)} to ${fixed(tested[1], 3)}.`));
+    },
+  });
+
+expose('prestrain', nb);

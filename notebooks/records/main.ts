@@ -1,0 +1,204 @@
+// Record bench: a tensile record in, properties and law fits out — through the same record parser
+// (src/records) and analysis (analyzeRecord, fitAllLaws) as the runner.
+import {
+  Notebook, expose, h, fixed, DIGITS, fileDrop, errorBox, byId, autosave, choice, restore,
+} from '../../src/cells/index.js';
+import { analyzeRecord, LAW_PARAMETERS } from '../../src/core/index.js';
+import type { LawName, TensileAnalysis } from '../../src/core/index.js';
+import { parseRecordText, detectLayout, STRESS_UNITS, FORCE_UNITS, LENGTH_UNITS } from '../../src/records/index.js';
+import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
+import { recordCurveChart, residualChart } from '../../src/charts/records.js';
+import { BENCH_MATERIAL_KEY, pageChrome } from '../shared/page.js';
+
+pageChrome('records/', 'Record bench');
+
+interface Input { name: string; text: string }
+type Parsed = { ok: true; input: Input; record: TensileRecord } | { ok: false; input: Input; error: unknown };
+
+const nb = new Notebook();
+let options: RecordOptions = {};
+let current: Input | null = null;
+let lastGood: TensileRecord | null = null;
+
+// Choose or drop a file; examples/*.csv (if any) are offered as INVENTED demo records.
+const EXAMPLE_RECORDS = import.meta.glob('../../examples/*.{csv,tsv,txt}', { query: '?raw', import: 'default', eager: true }) as Record<string, string>;
+const fileInput = h('input', { type: 'file', id: 'record-file', accept: '.csv,.tsv,.txt,text/csv,text/plain' });
+const drop = h('div', { class: 'sl-drop', id: 'record-drop', role: 'button', 'aria-label': 'Record file: drop it here or press Enter to choose' },
+  'Drop a tensile-test export (CSV or tab-separated) here, or ', h('label', { for: 'record-file' }, 'choose one: '), fileInput);
+fileDrop(drop, fileInput, (name, text) => load({ name, text }, {}), (e) => byId('cell-import').replaceChildren(errorBox(e, 'The file could not be read')));
+byId('record-input').append(drop);
+const examples = Object.entries(EXAMPLE_RECORDS);
+if (examples.length) {
+  const ex = choice({ label: 'Demo record (INVENTED)', id: 'example', options: examples.map(([p], i) => ({ value: i, text: p.split('/').pop()! })) });
+  byId('record-input').append(h('div', { class: 'sl-input' }, ex, h('button', { type: 'button', id: 'load-example', onclick: () => { const [p, t] = examples[ex.value]!; load({ name: p.split('/').pop()!, text: t }, {}); } }, 'open')));
+}
+
+function load(input: Input, opts: RecordOptions): void {
+  current = input;
+  options = opts;
+  nb.set('input', { input, options: opts });
+  drawMapping();
+}
+
+/** The column and unit form: shown for every record, needed when columns or units are not recognised. */
+function drawMapping(): void {
+  const box = byId('mapping');
+  if (!current) { box.replaceChildren(h('p', {}, 'Open a record first.')); return; }
+  let header: string[] = [];
+  try { header = detectLayout(current.text.split(/\r?\n/, 400), current.name).header; } catch { /* the import cell says why */ }
+  const colSel = (role: 'strain' | 'stress' | 'force' | 'extension', text: string) => {
+    const sel = h('select', { id: `map-${role}` }, h('option', { value: '' }, '(recognise by name)'), ...header.map((c, i) => h('option', { value: String(i + 1) }, `${i + 1}: ${c}`)));
+    const given = options.columns?.[role];
+    sel.value = given === undefined ? '' : String(given);
+    return h('div', { class: 'sl-input' }, h('label', { for: `map-${role}` }, text), sel);
+  };
+  const unitSel = (id: string, text: string, units: readonly string[]) => {
+    const sel = h('select', { id }, h('option', { value: '' }, '(from the file)'), ...units.map((u) => h('option', { value: u }, u)));
+    return h('div', { class: 'sl-input' }, h('label', { for: id }, text), sel);
+  };
+  const num = (id: string, text: string) => h('div', { class: 'sl-input' }, h('label', { for: id }, text), h('input', { type: 'text', inputmode: 'decimal', id, class: 'sl-number' }), ' mm');
+  box.replaceChildren(
+    colSel('strain', 'strain column'), colSel('stress', 'stress column'), colSel('force', 'force column'), colSel('extension', 'extension column'),
+    unitSel('map-strainUnit', 'strain unit', ['fraction', 'percent']), unitSel('map-stressUnit', 'stress unit', Object.keys(STRESS_UNITS)),
+    unitSel('map-forceUnit', 'force unit', Object.keys(FORCE_UNITS)), unitSel('map-lengthUnit', 'extension unit', Object.keys(LENGTH_UNITS)),
+    num('map-diameter', 'specimen diameter'), num('map-gaugeLength', 'gauge length'),
+    h('button', { type: 'button', id: 'apply-mapping', onclick: applyMapping }, 'read the record again with these settings'));
+  const unitKeys = ['strainUnit', 'stressUnit', 'forceUnit', 'lengthUnit'] as const;
+  for (const k of unitKeys) (byId(`map-${k}`) as HTMLSelectElement).value = String(options[k] ?? '');
+  for (const k of ['diameter', 'gaugeLength'] as const) (byId(`map-${k}`) as HTMLInputElement).value = options[k] === undefined ? '' : String(options[k]);
+}
+
+function applyMapping(): void {
+  if (!current) return;
+  const o: RecordOptions = {};
+  const columns: NonNullable<RecordOptions['columns']> = {};
+  for (const role of ['strain', 'stress', 'force', 'extension'] as const) {
+    const v = (byId(`map-${role}`) as HTMLSelectElement).value;
+    if (v) columns[role] = Number(v);
+  }
+  if (Object.keys(columns).length) o.columns = columns;
+  for (const k of ['strainUnit', 'stressUnit', 'forceUnit', 'lengthUnit'] as const) {
+    const v = (byId(`map-${k}`) as HTMLSelectElement).value;
+    if (v) o[k] = v;
+  }
+  for (const k of ['diameter', 'gaugeLength'] as const) {
+    const t = (byId(`map-${k}`) as HTMLInputElement).value.trim();
+    if (t) o[k] = Number(t); // the parser validates the number and names the field when it is wrong
+  }
+  load(current, o);
+}
+
+nb.cell({ name: 'input', fn: () => null })
+  .cell({
+    // Parsing never rejects: a malformed record is shown as an error here while the last good
+    // record (and everything computed from it) stays on screen.
+    name: 'parsed', inputs: ['input'], into: 'cell-import',
+    fn: (x: { input: Input; options: RecordOptions } | null): Parsed | null => {
+      if (!x) return null;
+      try {
+        return { ok: true, input: x.input, record: parseRecordText(x.input.text, { ...x.options, file: x.input.name }) };
+      } catch (error) {
+        return { ok: false, input: x.input, error };
+      }
+    },
+    render: (v) => {
+      const p = v as Parsed | null;
+      if (!p) return h('p', {}, 'No record yet. The bench reads comma-, semicolon- or tab-separated exports with a header line.');
+      if (!p.ok) return h('div', {}, errorBox(p.error, `${p.input.name} could not be read`), lastGood ? h('p', { class: 'sl-notice' }, `Still showing ${lastGood.name}. Map the columns and units below if they were not recognised.`) : null);
+      const c = p.record.columns;
+      return h('div', {},
+        h('p', { id: 'record-summary' }, `${p.input.name}: ${p.record.rows} rows, ${p.record.basis === 'stress-strain' ? 'stress and strain columns' : 'force and extension columns'} (${Object.entries(c).map(([k, v]) => `${k}: "${v!.name}" ${v!.unit}`).join('; ')}).`),
+        p.record.warnings.length ? h('ul', { class: 'sl-notice' }, ...p.record.warnings.map((w) => h('li', {}, w))) : null);
+    },
+  })
+  .cell({
+    name: 'record', inputs: ['parsed'],
+    fn: (p: Parsed | null): TensileRecord => {
+      if (p?.ok) lastGood = p.record;
+      if (!lastGood) throw new Error('no record has been read yet: choose or drop a file');
+      return lastGood;
+    },
+  })
+  .cell({ name: 'recordName', inputs: ['record'], into: 'cell-record-name', fn: (r: TensileRecord) => h('span', {}, `— ${r.name}`) })
+  .cell({ name: 'analysis', inputs: ['record'], fn: (r: TensileRecord) => analyzeRecord(r) })
+  .cell({
+    name: 'properties', inputs: ['analysis'], into: 'cell-properties',
+    fn: (a: TensileAnalysis) => {
+      const q = (label: string, v: number | null, d: number, unit: string, id: string) =>
+        h('div', { class: 'sl-quantity' }, h('dt', {}, label), h('dd', { 'data-q': id }, h('span', { class: 'sl-num' }, fixed(v, d)), unit ? ` ${unit}` : ''));
+      const w = a.elasticWindow;
+      return h('div', {},
+        h('dl', { class: 'sl-quantities', id: 'properties' },
+          q(`Rp${a.proofOffsetPct}`, a.proofStrength, DIGITS.stress, 'MPa', 'proofStrength'),
+          q('Rm', a.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength'),
+          q('Ag (uniform elongation)', a.uniformElongationPct, 2, '%', 'uniformElongation'),
+          q('A (after fracture)', a.totalElongationPct, 2, '%', 'totalElongation'),
+          q('E (elastic window)', a.elasticModulus, 0, 'MPa', 'elasticModulus'),
+          q('n-value', a.nValue, 3, '', 'nValue'),
+          q('ReH (upper yield)', a.upperYield, DIGITS.stress, 'MPa', 'upperYield'),
+          q('yield ratio Rp/Rm', a.proofStrength === null ? null : a.proofStrength / a.tensileStrength, DIGITS.ratio, '', 'yieldRatio')),
+        h('p', { id: 'elastic-window' }, `Elastic window: ${fixed(w.fromStress, 0)} to ${fixed(w.toStress, 0)} MPa, ${w.points} points, R² ${fixed(w.r2, 5)}, standard error of E ${fixed(w.standardError, 0)} MPa (${w.method}).`),
+        a.warnings.length ? h('ul', { class: 'sl-notice' }, ...a.warnings.map((x) => h('li', {}, x.message))) : null);
+    },
+  })
+  .cell({ name: 'curveChart', inputs: ['record', 'analysis'], into: 'cell-curve-chart', fn: (r: TensileRecord, a: TensileAnalysis) => recordCurveChart(r, a) })
+  .cell({
+    name: 'residualChart', inputs: ['analysis'], into: 'cell-residual-chart',
+    fn: (a: TensileAnalysis) => (a.fits ? residualChart(a.flowCurve.strain, a.fits.fits.filter((f) => f.converged)) : h('p', {}, 'No fits.')),
+  })
+  .cell({
+    name: 'fits', inputs: ['analysis'], into: 'cell-fits',
+    fn: (a: TensileAnalysis) => {
+      if (!a.fits) return h('p', {}, 'No fits.');
+      const c = a.fits;
+      const param = (f: (typeof c.fits)[number], p: string) => {
+        const iv = f.intervals95[p];
+        const v = f.params[p]!;
+        return `${p} ${+v.toPrecision(5)}${iv ? ` (95 %: ${+iv[0].toPrecision(4)} to ${+iv[1].toPrecision(4)})` : ' (interval not identifiable)'}`;
+      };
+      return h('table', { class: 'sl-table', id: 'fits-table' },
+        h('thead', {}, h('tr', {}, ...['law', 'parameters (MPa for stresses)', 'RMSE MPa', 'R²', 'AIC', 'state'].map((x) => h('th', { scope: 'col' }, x)))),
+        h('tbody', {}, ...c.fits.map((f) => h('tr', { 'data-law': f.law },
+          h('td', { class: 'text' }, f.law + (c.best === f.law ? ' (best AIC)' : '')),
+          h('td', { class: 'text' }, LAW_PARAMETERS[f.law].map((p) => param(f, p.name)).join('; ')),
+          h('td', {}, fixed(f.rmse, 2)), h('td', {}, fixed(f.r2, 5)), h('td', {}, fixed(f.aic, 1)),
+          h('td', { class: 'text' }, !f.converged ? 'did not converge' : c.goodLaws.includes(f.law) ? 'fits well' : 'fits worse')))));
+    },
+  })
+  .cell({
+    name: 'spread', inputs: ['analysis'], into: 'cell-spread',
+    fn: (a: TensileAnalysis) => {
+      if (!a.fits) return h('p', {}, 'No fits.');
+      const laws = a.fits.fits.filter((f) => f.converged).map((f) => f.law);
+      return h('div', {},
+        h('table', { class: 'sl-table', id: 'spread-table' },
+          h('thead', {}, h('tr', {}, h('th', { scope: 'col' }, 'true plastic strain'), ...laws.map((l) => h('th', { scope: 'col' }, `${l} MPa`)), h('th', { scope: 'col' }, 'spread %'))),
+          h('tbody', {}, ...a.fits.extrapolation.map((x) => h('tr', {},
+            h('td', { class: 'text' }, `${fixed(x.strain, 3)} (${x.note})`), ...laws.map((l) => h('td', {}, fixed(x.stress[l] ?? null, DIGITS.stress))), h('td', {}, fixed(x.spreadPct, 1)))))),
+        h('p', {}, `Fitted on true plastic strain ${fixed(a.flowCurve.strain[0] ?? null, 4)} to ${fixed(a.flowCurve.strain[a.flowCurve.strain.length - 1] ?? null, 4)}. Beyond that every law is an extrapolation: test the formed material.`));
+    },
+  })
+  .cell({
+    name: 'save', inputs: ['analysis', 'record'], into: 'cell-save',
+    fn: (a: TensileAnalysis, r: TensileRecord) => {
+      const fits = a.fits?.fits.filter((f) => f.converged) ?? [];
+      if (!fits.length) return h('p', {}, 'No converged fit to send.');
+      const pick = choice<LawName>({ label: 'Law', id: 'save-law', options: fits.map((f) => ({ value: f.law, text: f.law })), value: a.fits!.best ?? fits[0]!.law });
+      const out = h('p', { id: 'save-state', role: 'status' });
+      const prev = restore(BENCH_MATERIAL_KEY, (x) => x as { name: string });
+      if (prev.value) out.textContent = `The other notebooks currently have "${prev.value.name}".`;
+      const send = () => {
+        const f = fits.find((x) => x.law === pick.value)!;
+        const spec = { law: f.law, ...f.params };
+        const ok = autosave(BENCH_MATERIAL_KEY, {
+          name: `${r.name} (${f.law} fit)`, elasticModulus: a.elasticModulus, flowCurve: spec,
+          alternatives: fits.map((x) => ({ law: x.law, ...x.params })), fittedStrainRange: f.strainRange, source: `fitted from ${r.file}`,
+        });
+        out.textContent = ok ? `Saved "${r.name} (${f.law} fit)": the route planner ("use the law saved from the record bench") and the prestrain explorer can use it now.` : 'The browser refused to save; nothing was sent.';
+      };
+      return h('div', {}, pick, h('button', { type: 'button', id: 'save-material', onclick: send }, 'use in the other notebooks'), out);
+    },
+  });
+
+drawMapping();
+expose('records', nb);

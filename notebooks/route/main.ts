@@ -1,0 +1,277 @@
+// Route planner: an editable plan (the runner's plan format, in the plan's units) and its ledger.
+// The plan is kept outside the runtime as the user's document (autosaved, undoable); the cells
+// validate it, run it and build the report with the same functions the runner uses.
+import {
+  Notebook, expose, h, fixed, DIGITS, autosave, restore, UndoHistory, planText, planFileName, importPlan,
+  downloadText, fileDrop, errorBox, byId, choice,
+} from '../../src/cells/index.js';
+import { LAW_PARAMETERS, STEP_KIND_NAMES } from '../../src/core/index.js';
+import type { LawSpec } from '../../src/core/index.js';
+import { loadPlanText, runPlan, type LoadedPlan } from '../../src/plan/load.js';
+import { convertLaw } from '../../src/plan/resolve.js';
+import { unitsOf } from '../../src/plan/units.js';
+import { buildReport, type ReportV1 } from '../../src/report/build.js';
+import { strengthByStepChart, ductilityByStepChart } from '../../src/charts/ledger.js';
+import { BENCH_MATERIAL_KEY, demoPlans, pageChrome } from '../shared/page.js';
+
+pageChrome('route/', 'Route planner');
+
+/** The plan as the user edits it: the plan file's JSON (plan units), possibly invalid mid-edit. */
+type Doc = Record<string, any> & { steps: Record<string, any>[] };
+const SAVE_KEY = 'route-plan';
+const FILE = 'route-plan.json';
+
+/** For each step kind: the size fields it takes (first = default) and a starting value. */
+const KIND_FIELDS: Record<string, { fields: string[]; start: Record<string, number> }> = {
+  roll: { fields: ['reductionPct', 'thickness'], start: { reductionPct: 20 } },
+  draw: { fields: ['areaReductionPct', 'diameter'], start: { areaReductionPct: 20 } },
+  stretch: { fields: ['strain', 'engineeringStrain'], start: { strain: 0.05 } },
+  stretchBiaxial: { fields: ['strain'], start: { strain: 0.05 } },
+  upset: { fields: ['reductionPct', 'height'], start: { reductionPct: 20 } },
+  shear: { fields: ['shearStrain'], start: { shearStrain: 0.2 } },
+  strain: { fields: ['strain'], start: { strain: 0.1 } },
+  anneal: { fields: ['softeningFraction'], start: {} },
+};
+const FIELD_TEXT: Record<string, string> = {
+  reductionPct: 'reduction %', thickness: 'exit thickness', areaReductionPct: 'area reduction %', diameter: 'exit diameter',
+  strain: 'true strain', engineeringStrain: 'engineering strain', height: 'height after', shearStrain: 'shear strain γ',
+  softeningFraction: 'softening fraction (1 = full)',
+};
+
+const demos = demoPlans();
+const isDoc = (raw: unknown): Doc => {
+  if (typeof raw !== 'object' || raw === null || !Array.isArray((raw as Doc).steps)) throw new Error('not a plan with a list of steps');
+  return raw as Doc;
+};
+const saved = restore(SAVE_KEY, isDoc);
+let doc: Doc = saved.value ?? JSON.parse(JSON.stringify(demos[0]!.plan.doc));
+const history = new UndoHistory<Doc>();
+const nb = new Notebook();
+
+const status = byId('import-status');
+if (saved.problem) status.replaceChildren(h('p', { class: 'sl-notice' }, saved.problem));
+else if (saved.value) status.replaceChildren(h('p', { class: 'sl-notice' }, 'Restored the route saved in this browser.'));
+
+const lengthUnit = () => unitsOf(doc.units === 'US' ? 'US' : 'SI').length;
+const stressUnit = () => unitsOf(doc.units === 'US' ? 'US' : 'SI').stress;
+
+/** Publishes the document: autosave, recompute, and (for structural edits) redraw the editors. */
+function commit(redraw: boolean): void {
+  const ok = autosave(SAVE_KEY, doc);
+  byId('autosave-state').textContent = ok ? 'autosaved in this browser' : 'autosave is off (the browser refused); export the plan to keep it';
+  (byId('undo') as HTMLButtonElement).disabled = !history.canUndo;
+  nb.set('doc', JSON.parse(JSON.stringify(doc)));
+  if (redraw) drawEditors();
+}
+
+/** One edit: remember the state before it (for undo), apply it, publish. */
+function edit(fn: (d: Doc) => void, redraw = true): void {
+  history.push(doc);
+  fn(doc);
+  commit(redraw);
+}
+
+/** A number field bound to `obj[key]`; empty removes the key; undo restores the value before the field was entered. */
+function numberField(label: string, id: string, get: () => unknown, set: (v: number | string | undefined) => void, unit = ''): HTMLElement {
+  const input = h('input', { type: 'text', inputmode: 'decimal', id, class: 'sl-number', value: get() === undefined ? '' : String(get()) });
+  let before: Doc | null = null;
+  input.addEventListener('focus', () => { before = JSON.parse(JSON.stringify(doc)); });
+  input.addEventListener('input', () => {
+    const t = input.value.trim();
+    const v = t === '' ? undefined : Number.isFinite(Number(t)) ? Number(t) : t;
+    set(v);
+    commit(false);
+  });
+  input.addEventListener('change', () => {
+    if (before) { history.push(before); before = JSON.parse(JSON.stringify(doc)); }
+    (byId('undo') as HTMLButtonElement).disabled = !history.canUndo;
+  });
+  return h('div', { class: 'sl-input' }, h('label', { for: id }, label), input, unit ? h('span', { class: 'sl-unit' }, unit) : null);
+}
+
+function textField(label: string, id: string, get: () => string, set: (v: string) => void): HTMLElement {
+  const input = h('input', { type: 'text', id, value: get(), size: 30 });
+  let before: Doc | null = null;
+  input.addEventListener('focus', () => { before = JSON.parse(JSON.stringify(doc)); });
+  input.addEventListener('input', () => { set(input.value); commit(false); });
+  input.addEventListener('change', () => { if (before) { history.push(before); before = null; } (byId('undo') as HTMLButtonElement).disabled = false; });
+  return h('div', { class: 'sl-input' }, h('label', { for: id }, label), input);
+}
+
+function drawEditors(): void {
+  byId('plan-name').replaceChildren(textField('Plan name', 'plan-name-input', () => String(doc.name ?? ''), (v) => { doc.name = v; }),
+    h('p', {}, `Units: ${doc.units === 'US' ? 'US (ksi, in)' : 'SI (MPa, mm)'}`, /INVENTED/i.test(String(doc.name ?? '')) ? h('span', { class: 'sl-invented' }, ' INVENTED demo') : null));
+  const m = doc.material ?? {};
+  const fc = m.flowCurve ?? {};
+  byId('material-view').replaceChildren(
+    h('p', { id: 'material-summary' }, `${m.name ?? '(no name)'}; E = ${m.elasticModulus} ${stressUnit()}; ${fc.law ?? '?'} `,
+      Object.entries(fc).filter(([k]) => k !== 'law').map(([k, v]) => `${k} ${v}`).join(', ')),
+    h('button', { type: 'button', id: 'use-bench', onclick: useBenchMaterial }, 'Use the law saved from the record bench'));
+  const s = doc.start ?? {};
+  byId('start-editor').replaceChildren(...(['thickness', 'width', 'diameter', 'height'] as const).map((k) =>
+    numberField(k, `start-${k}`, () => s[k], (v) => { doc.start ??= {}; if (v === undefined) delete doc.start[k]; else doc.start[k] = v; }, lengthUnit())));
+  const t = doc.targets ?? {};
+  const tdefs: [string, string, string][] = [['minYield', 'minimum reload yield', stressUnit()], ['maxYield', 'maximum reload yield', stressUnit()], ['minTensile', 'minimum tensile strength', stressUnit()], ['minRemainingElongationPct', 'minimum remaining uniform elongation', '%']];
+  byId('targets-editor').replaceChildren(...tdefs.map(([k, text, unit]) =>
+    numberField(text, `target-${k}`, () => t[k], (v) => { doc.targets ??= {}; if (v === undefined) delete doc.targets[k]; else doc.targets[k] = v; }, unit)));
+  drawSteps();
+}
+
+function drawSteps(): void {
+  const rows = doc.steps.map((step, i) => {
+    const kindSel = h('select', { id: `step-${i}-kind`, 'aria-label': `step ${i + 1} kind` }, ...STEP_KIND_NAMES.map((k) => h('option', { value: k }, k)));
+    kindSel.value = String(step.kind);
+    kindSel.addEventListener('change', () => edit((d) => { d.steps[i] = { kind: kindSel.value, ...(step.label ? { label: step.label } : {}), ...KIND_FIELDS[kindSel.value]!.start }; }));
+    const def = KIND_FIELDS[String(step.kind)] ?? { fields: [], start: {} };
+    const field = def.fields.find((f) => step[f] !== undefined) ?? def.fields[0];
+    const fieldSel = h('select', { id: `step-${i}-field`, 'aria-label': `step ${i + 1} size given as` }, ...def.fields.map((f) => h('option', { value: f }, FIELD_TEXT[f] ?? f)));
+    if (field) fieldSel.value = field;
+    fieldSel.addEventListener('change', () => edit((d) => { const v = field ? d.steps[i]![field] : undefined; if (field) delete d.steps[i]![field]; d.steps[i]![fieldSel.value] = v ?? KIND_FIELDS[String(step.kind)]!.start[fieldSel.value] ?? 0; }));
+    const unit = field && ['thickness', 'diameter', 'height'].includes(field) ? lengthUnit() : '';
+    const value = h('input', { type: 'text', inputmode: 'decimal', class: 'sl-number', id: `step-${i}-value`, 'aria-label': `step ${i + 1} ${field ? FIELD_TEXT[field] : 'value'}`, value: field && step[field] !== undefined ? String(step[field]) : '' });
+    let before: Doc | null = null;
+    value.addEventListener('focus', () => { before = JSON.parse(JSON.stringify(doc)); });
+    value.addEventListener('input', () => {
+      if (!field) return;
+      const t = value.value.trim();
+      if (t === '') delete doc.steps[i]![field];
+      else doc.steps[i]![field] = Number.isFinite(Number(t)) ? Number(t) : t;
+      commit(false);
+    });
+    value.addEventListener('change', () => { if (before) { history.push(before); before = JSON.parse(JSON.stringify(doc)); (byId('undo') as HTMLButtonElement).disabled = false; } });
+    const label = h('input', { type: 'text', id: `step-${i}-label`, 'aria-label': `step ${i + 1} label`, value: String(step.label ?? ''), size: 12 });
+    label.addEventListener('change', () => edit((d) => { if (label.value) d.steps[i]!.label = label.value; else delete d.steps[i]!.label; }, false));
+    const move = (to: number) => () => edit((d) => { const [s] = d.steps.splice(i, 1); d.steps.splice(to, 0, s!); });
+    return h('tr', {},
+      h('td', {}, String(i + 1)), h('td', { class: 'text' }, kindSel), h('td', { class: 'text' }, fieldSel), h('td', {}, value, unit ? ` ${unit}` : ''), h('td', { class: 'text' }, label),
+      h('td', { class: 'text' },
+        h('button', { type: 'button', id: `step-${i}-up`, 'aria-label': `move step ${i + 1} up`, disabled: i === 0, onclick: move(i - 1) }, '↑'),
+        h('button', { type: 'button', id: `step-${i}-down`, 'aria-label': `move step ${i + 1} down`, disabled: i === doc.steps.length - 1, onclick: move(i + 1) }, '↓'),
+        h('button', { type: 'button', id: `step-${i}-remove`, 'aria-label': `remove step ${i + 1}`, onclick: () => edit((d) => { d.steps.splice(i, 1); }) }, 'remove')));
+  });
+  const addKind = choice({ label: 'Add a step of kind', id: 'add-kind', options: STEP_KIND_NAMES.map((k) => ({ value: k, text: k })), value: 'roll' });
+  byId('steps-editor').replaceChildren(
+    h('table', { class: 'sl-table', id: 'steps-table' },
+      h('thead', {}, h('tr', {}, ...['#', 'kind', 'size given as', 'value', 'label', ''].map((x) => h('th', { scope: 'col' }, x)))),
+      h('tbody', {}, ...rows)),
+    h('div', { class: 'sl-input' }, addKind, h('button', { type: 'button', id: 'add-step', onclick: () => edit((d) => { d.steps.push({ kind: addKind.value, ...KIND_FIELDS[addKind.value]!.start }); }) }, 'add step')));
+}
+
+function useBenchMaterial(): void {
+  const stored = restore(BENCH_MATERIAL_KEY, (raw) => raw as { name: string; elasticModulus: number; flowCurve: LawSpec; fittedStrainRange?: [number, number]; source?: string });
+  if (!stored.value) {
+    status.replaceChildren(errorBox(new Error(stored.problem ?? 'no law has been saved from the record bench yet'), 'No material from the record bench'));
+    return;
+  }
+  const b = stored.value;
+  const u = unitsOf(doc.units === 'US' ? 'US' : 'SI');
+  const law = convertLaw(b.flowCurve, u.fromMPa) as unknown as Record<string, number | string>;
+  const flowCurve: Record<string, unknown> = { law: law.law };
+  for (const p of LAW_PARAMETERS[b.flowCurve.law]) flowCurve[p.name] = +Number(law[p.name]).toPrecision(6);
+  edit((d) => {
+    d.material = { name: b.name, elasticModulus: +u.fromMPa(b.elasticModulus).toPrecision(6), flowCurve, ...(b.fittedStrainRange ? { fittedStrainRange: b.fittedStrainRange } : {}) };
+  });
+  status.replaceChildren(h('p', { class: 'sl-notice' }, `Material replaced by "${b.name}" from the record bench (undo to go back).`));
+}
+
+// Plan tools: demo, import (choose or drop), export, undo.
+const fileInput = h('input', { type: 'file', id: 'import-file', accept: '.json,.yaml,.yml,application/json' });
+const drop = h('div', { class: 'sl-drop', id: 'import-drop', role: 'button', 'aria-label': 'Import a plan file: drop it here or press Enter to choose' }, 'Drop a plan file (JSON or YAML) here, or ', h('label', { for: 'import-file' }, 'choose one: '), fileInput);
+fileDrop(drop, fileInput, (name, text) => {
+  try {
+    const loaded = importPlan(text, name);
+    edit((d) => { for (const k of Object.keys(d)) delete d[k]; Object.assign(d, JSON.parse(JSON.stringify(loaded.doc))); });
+    status.replaceChildren(h('p', { class: 'sl-notice' }, `Imported ${name}.`));
+  } catch (e) {
+    // The plan on screen stays as it was; the message names line, field, value and range.
+    status.replaceChildren(errorBox(e, `${name} was not imported`));
+  }
+}, (e) => status.replaceChildren(errorBox(e, 'The file could not be read')));
+const demoSel = choice({ label: 'Demo plan', id: 'demo', options: demos.map((d, i) => ({ value: i, text: `${d.file} (INVENTED)` })) });
+byId('plan-tools').append(
+  h('div', { class: 'sl-input' }, demoSel, h('button', { type: 'button', id: 'load-demo', onclick: () => edit((d) => { for (const k of Object.keys(d)) delete d[k]; Object.assign(d, JSON.parse(JSON.stringify(demos[demoSel.value]!.plan.doc))); }) }, 'start from this demo')),
+  drop,
+  h('div', { class: 'sl-input' },
+    h('button', { type: 'button', id: 'export', onclick: () => downloadText(planFileName(String(doc.name ?? 'plan')), planText(doc as never)) }, 'export plan file'),
+    h('button', { type: 'button', id: 'undo', disabled: true, onclick: () => { const prev = history.undo(); if (prev) { doc = prev; commit(true); } } }, 'undo last edit'),
+    h('span', { id: 'autosave-state', role: 'status' }, '')),
+  h('p', {}, 'Run the exported file headless: ', h('code', {}, 'npx strainledger run FILE --format json')));
+
+// The cells.
+const S = (r: ReportV1) => r.units.stress;
+nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
+  .cell({
+    name: 'plan', inputs: ['doc'], into: 'cell-validation',
+    fn: (d: Doc) => loadPlanText(planText(d as never), FILE),
+    render: () => null,
+  })
+  .cell({
+    name: 'report', inputs: ['plan'],
+    fn: (plan: LoadedPlan) => buildReport(plan, runPlan(plan), { hash: '', tool: 'strainledger notebooks' }),
+  })
+  .cell({
+    name: 'ledgerTable', inputs: ['report'], into: 'cell-ledger',
+    fn: (r: ReportV1) => {
+      const L = r.units.length;
+      const size = (s: Record<string, number | undefined>) => s.thickness !== undefined ? `t ${fixed(s.thickness, DIGITS.size)}` : s.diameter !== undefined ? `d ${fixed(s.diameter, DIGITS.size)}` : s.height !== undefined ? `h ${fixed(s.height, DIGITS.size)}` : '—';
+      const cols: [string, string, (s: ReportV1['steps'][number]) => string][] = [
+        ['step', 'index', (s) => String(s.index)],
+        ['kind', 'kind', (s) => (s.label ? `${s.kind} (${s.label})` : s.kind)],
+        [`size ${L}`, 'size', (s) => size(s.size as Record<string, number | undefined>)],
+        ['Δε̄', 'strainIncrement', (s) => fixed(s.strainIncrement, DIGITS.strain)],
+        ['ε̄ total', 'accumulatedStrain', (s) => fixed(s.accumulatedStrain, DIGITS.strain)],
+        ['%CW since anneal', 'coldWorkPct', (s) => fixed(s.coldWorkPct, DIGITS.pct)],
+        [`reload yield Rp0.2 ${S(r)}`, 'reloadYield', (s) => fixed(s.reloadYield, DIGITS.stress)],
+        [`Rm ${S(r)}`, 'tensileStrength', (s) => fixed(s.tensileStrength, DIGITS.stress)],
+        ['Rp0.2/Rm', 'yieldRatio', (s) => fixed(s.yieldRatio, DIGITS.ratio)],
+        ['uniform elongation left %', 'remainingUniformElongationPct', (s) => fixed(s.remainingUniformElongationPct, DIGITS.pct)],
+        ['elastic recovery % strain', 'elasticRecoveryPct', (s) => fixed(s.elasticRecoveryStrain * 100, DIGITS.recoveryPct)],
+        ['warnings', 'warnings', (s) => s.warnings.map((w) => w.message).join('; ')],
+      ];
+      const i0 = r.material.initial;
+      return h('div', {},
+        h('p', {}, `Annealed: Rp0.2 ${fixed(i0.reloadYield, DIGITS.stress)} ${S(r)}, Rm ${fixed(i0.tensileStrength, DIGITS.stress)} ${S(r)}, uniform elongation ${fixed(i0.uniformElongationPct, DIGITS.pct)} %.`),
+        h('table', { class: 'sl-table', id: 'ledger-table' },
+          h('thead', {}, h('tr', {}, ...cols.map(([t]) => h('th', { scope: 'col' }, t)))),
+          h('tbody', {}, ...r.steps.map((s) => h('tr', {}, ...cols.map(([, key, f]) => h('td', { 'data-col': key, ...(key === 'kind' || key === 'warnings' ? { class: 'text' } : {}) }, f(s))))))));
+    },
+  })
+  .cell({
+    name: 'targets', inputs: ['report'], into: 'cell-targets',
+    fn: (r: ReportV1) => {
+      if (r.targets.length === 0) return h('p', {}, 'No targets given.');
+      const unit = (n: string) => (n === 'minRemainingElongationPct' ? '%' : S(r));
+      const words: Record<string, string> = { minYield: 'minimum reload yield', maxYield: 'maximum reload yield', minTensile: 'minimum tensile strength', minRemainingElongationPct: 'minimum remaining uniform elongation' };
+      return h('ul', { id: 'target-list' }, ...r.targets.map((t) => h('li', { 'data-target': t.name },
+        h('span', { class: t.met ? 'sl-met' : 'sl-missed' }, t.met ? 'met' : 'NOT met'), ` — ${words[t.name] ?? t.name}: predicted ${fixed(t.predicted, 2)} ${unit(t.name)}, limit ${fixed(t.limit, 2)} ${unit(t.name)}, `,
+        t.met ? `margin ${fixed(t.margin, 2)} ${unit(t.name)} to spare` : `short by ${fixed(-t.margin, 2)} ${unit(t.name)}`)),
+        h('li', {}, h('strong', {}, r.allTargetsMet ? 'All targets met.' : 'Not every target is met.')));
+    },
+  })
+  .cell({
+    name: 'window', inputs: ['report'], into: 'cell-window',
+    fn: (r: ReportV1) => {
+      const w = r.coldWorkWindow;
+      const red = !w.empty && w.reductionBasis && w.reductionPctFrom !== null
+        ? ` As ${w.reductionBasis} reduction since the last anneal: ${fixed(w.reductionPctFrom, 1)} % to ${w.reductionPctTo === null ? 'no limit' : fixed(w.reductionPctTo, 1) + ' %'}.` : '';
+      return h('p', { id: 'cold-work-window' }, h('strong', {}, 'Cold-work window: '), w.empty ? `empty — ${w.note}` : `${w.note}.${red}`);
+    },
+  })
+  .cell({
+    name: 'strengthChart', inputs: ['report'], into: 'cell-strength-chart',
+    fn: (r: ReportV1) => {
+      const t = Object.fromEntries(r.targets.map((x) => [x.name, x.limit]));
+      return strengthByStepChart(r.steps, { stressUnit: S(r), initialYield: r.material.initial.reloadYield, ...(t.minYield !== undefined ? { minYield: t.minYield } : {}), ...(t.maxYield !== undefined ? { maxYield: t.maxYield } : {}), width: 600 });
+    },
+  })
+  .cell({
+    name: 'ductilityChart', inputs: ['report'], into: 'cell-ductility-chart',
+    fn: (r: ReportV1) => {
+      const t = Object.fromEntries(r.targets.map((x) => [x.name, x.limit]));
+      return ductilityByStepChart(r.steps, { stressUnit: S(r), ...(t.minRemainingElongationPct !== undefined ? { minRemainingElongationPct: t.minRemainingElongationPct } : {}), width: 600 });
+    },
+  });
+
+drawEditors();
+commit(false);
+expose('route', nb);

@@ -1,0 +1,64 @@
+import * as Plot from '@observablehq/plot';
+import { CHART_STYLE, PALETTE } from './palette.js';
+
+/** Most points a chart draws from one series; longer records are thinned by a fixed stride. */
+export const CHART_MAX_POINTS = 2000;
+
+function thin(n: number): number[] {
+  const stride = Math.max(1, Math.ceil(n / CHART_MAX_POINTS));
+  const out: number[] = [];
+  for (let i = 0; i < n; i += stride) out.push(i);
+  if (out[out.length - 1] !== n - 1 && n > 0) out.push(n - 1);
+  return out;
+}
+
+/**
+ * The record as engineering stress against engineering strain (in %), with the elastic window
+ * (where E was fitted) drawn thick. Strains are shown as recorded (before toe compensation).
+ */
+export function recordCurveChart(
+  record: { strain: ArrayLike<number>; stress: ArrayLike<number> },
+  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number },
+  o: { width?: number; height?: number; document?: Document } = {},
+): SVGSVGElement | HTMLElement {
+  const idx = thin(record.strain.length);
+  const pts = idx.map((i) => ({ e: record.strain[i]! * 100, s: record.stress[i]! }));
+  const w = analysis.elasticWindow;
+  const win: { e: number; s: number }[] = [];
+  for (let i = w.fromIndex; i < w.toIndex; i++) win.push({ e: record.strain[i]! * 100, s: record.stress[i]! });
+  return Plot.plot({
+    ...(o.document ? { document: o.document } : {}),
+    width: o.width ?? 520,
+    height: o.height ?? 300,
+    style: CHART_STYLE,
+    x: { label: 'engineering strain (%)', grid: true },
+    y: { label: 'engineering stress (MPa)', grid: true },
+    marks: [
+      Plot.ruleY([0], { stroke: PALETTE.grid }),
+      Plot.line(pts, { x: 'e', y: 's', stroke: PALETTE.strength, strokeWidth: 1.5 }),
+      Plot.line(win, { x: 'e', y: 's', stroke: PALETTE.elastic, strokeWidth: 6, strokeOpacity: 0.7 }),
+      ...(analysis.proofStrength !== null ? [Plot.ruleY([analysis.proofStrength], { stroke: PALETTE.elastic, strokeDasharray: '4,3' })] : []),
+      Plot.ruleY([analysis.tensileStrength], { stroke: PALETTE.ductility, strokeDasharray: '4,3' }),
+    ],
+  });
+}
+
+/** Residuals (fit − data, MPa) of each law against true plastic strain. */
+export function residualChart(
+  strain: readonly number[],
+  fits: readonly { law: string; residuals: readonly number[] }[],
+  o: { width?: number; height?: number; document?: Document } = {},
+): SVGSVGElement | HTMLElement {
+  const idx = thin(strain.length);
+  const data = fits.flatMap((f) => idx.filter((i) => f.residuals[i] !== undefined).map((i) => ({ eps: strain[i]!, r: f.residuals[i]!, law: f.law })));
+  return Plot.plot({
+    ...(o.document ? { document: o.document } : {}),
+    width: o.width ?? 520,
+    height: o.height ?? 300,
+    style: CHART_STYLE,
+    x: { label: 'true plastic strain (–)', grid: true },
+    y: { label: 'residual (MPa)', grid: true },
+    color: { domain: fits.map((f) => f.law), range: [...PALETTE.laws], legend: true },
+    marks: [Plot.ruleY([0], { stroke: PALETTE.ink }), Plot.line(data, { x: 'eps', y: 'r', stroke: 'law', z: 'law', strokeWidth: 1.2 })],
+  });
+}

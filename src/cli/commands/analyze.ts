@@ -1,0 +1,255 @@
+import { parseArgs } from 'node:util';
+import { LAW_NAMES, LAW_PARAMETERS } from '../../core/flow/params.js';
+import type { LawName } from '../../core/flow/types.js';
+import type { LawFit } from '../../core/fit/types.js';
+import type { LawComparison } from '../../core/fit/fitAllLaws.js';
+import type { TensileAnalysis } from '../../core/tensile/types.js';
+import { PlanError } from '../../plan/problems.js';
+import { unitsOf } from '../../plan/units.js';
+import { CAUTIONS } from '../../report/cautions.js';
+import type { RecordOptions, TensileRecord } from '../../records/builder.js';
+import type { Role } from '../../records/columns.js';
+import type { Command } from '../command.js';
+
+const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
+
+/** Version of the `analyze --format json` contract. */
+export const ANALYZE_VERSION = 1;
+
+function num(name: string, v: string | undefined, lo: number, hi: number): number | undefined {
+  if (v === undefined) return undefined;
+  const x = Number(v);
+  if (v.trim() === '' || !Number.isFinite(x) || x < lo || x > hi) throw cliError(`--${name}`, `got ${JSON.stringify(v)}, allowed a number in [${lo}, ${hi}]`);
+  return x;
+}
+
+/** The JSON of one record's analysis (contract fields first, then the detail). */
+export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: boolean): Record<string, unknown> {
+  const fit = (f: LawFit) => ({
+    law: f.law, params: f.params, standardErrors: f.standardErrors, intervals95: f.intervals95, rmse: f.rmse, r2: f.r2, aic: f.aic, bic: f.bic,
+    converged: f.converged, iterations: f.iterations, strainRange: f.strainRange, points: f.points, ...(residuals ? { residuals: f.residuals } : {}),
+  });
+  return {
+    record: { file: rec.file, name: rec.name, rows: rec.rows, basis: rec.basis, columns: rec.columns, geometry: rec.geometry, layout: rec.layout },
+    elasticModulus: a.elasticModulus,
+    proofStrength: a.proofStrength,
+    upperYield: a.upperYield,
+    lowerYield: a.lowerYield,
+    yieldPointElongationPct: a.yieldPointElongationPct,
+    tensileStrength: a.tensileStrength,
+    uniformElongationPct: a.uniformElongationPct,
+    totalElongationPct: a.totalElongationPct,
+    nValue: a.nValue,
+    K: a.K,
+    fits: a.fits ? a.fits.fits.map(fit) : [],
+    cycles: a.cycles.map((c) => ({ unloadModulus: c.unloadModulus, permanentStrain: c.permanentStrain, recoveredStrain: c.recoveredStrain, reloadProofStrength: c.reloadProofStrength, unloadStress: c.unloadStress })),
+    warnings: [...rec.warnings.map((message) => ({ code: 'import', message })), ...a.warnings],
+    proofOffsetPct: a.proofOffsetPct,
+    proofStrengths: a.proofStrengths,
+    totalExtensionStrength: a.totalExtensionStrength,
+    uniformTotalElongationPct: a.uniformTotalElongationPct,
+    elasticWindow: a.elasticWindow,
+    toeStrain: a.toeStrain,
+    fracture: a.fracture,
+    nFit: a.nFit,
+    bestLaw: a.fits?.best ?? null,
+    goodLaws: a.fits?.goodLaws ?? [],
+    extrapolation: a.fits?.extrapolation ?? [],
+    modulusDecay: a.modulusDecay,
+  };
+}
+
+/** A material block to paste into a plan (`material` of the plan file), stresses in the plan's unit. */
+export function materialBlock(name: string, E: number, fit: LawFit, system: 'SI' | 'US', decay: TensileAnalysis['modulusDecay'], source: string): Record<string, unknown> {
+  const u = unitsOf(system);
+  const law: Record<string, unknown> = { law: fit.law };
+  for (const p of LAW_PARAMETERS[fit.law]) law[p.name] = p.kind === 'stress' ? +u.fromMPa(fit.params[p.name]!).toPrecision(8) : +fit.params[p.name]!.toPrecision(8);
+  return {
+    name: `${name} (fitted from ${source}; check against the material certificate)`.slice(0, 200),
+    elasticModulus: +u.fromMPa(E).toPrecision(6),
+    flowCurve: law,
+    fittedStrainRange: [+fit.strainRange[0].toPrecision(6), +fit.strainRange[1].toPrecision(6)],
+    ...(decay && decay.converged && decay.Ea < decay.E0 ? { modulusDecay: { Ea: +u.fromMPa(decay.Ea).toPrecision(6), xi: +decay.xi.toPrecision(6) } } : {}),
+  };
+}
+
+function chooseFit(c: LawComparison | null, law: LawName | undefined, where: string): LawFit {
+  const f = c?.fits.find((x) => x.law === (law ?? c.best));
+  if (!f) throw cliError(where, `no ${law ?? 'converged'} fit to take a material block from; allowed a record with a plastic flow curve`);
+  if (!f.converged) throw cliError('--law', `the ${f.law} fit did not converge; allowed a law whose fit converged (${c!.fits.filter((x) => x.converged).map((x) => x.law).join(', ')})`);
+  return f;
+}
+
+const fmt = (x: number | null | undefined, d = 1) => (x === null || x === undefined ? '—' : x.toFixed(d));
+
+function tableText(rec: TensileRecord, a: TensileAnalysis): string {
+  const lines: string[] = [];
+  lines.push(`${rec.file}  (${rec.rows} rows, ${rec.basis})`);
+  const w = a.elasticWindow;
+  lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa   window ${fmt(w.fromStress, 0)}–${fmt(w.toStress, 0)} MPa, ${w.points} points, R² ${w.r2.toFixed(5)}`);
+  lines.push(`  Rp${a.proofOffsetPct}        ${fmt(a.proofStrength)} MPa   Rp0.5 ${fmt(a.proofStrengths[1]?.stress)}   Rp1 ${fmt(a.proofStrengths[2]?.stress)}   Rt0.5 ${fmt(a.totalExtensionStrength)}`);
+  if (a.upperYield !== null) lines.push(`  ReH / ReL    ${fmt(a.upperYield)} / ${fmt(a.lowerYield)} MPa   Ae ${fmt(a.yieldPointElongationPct, 2)} %`);
+  lines.push(`  Rm           ${fmt(a.tensileStrength)} MPa`);
+  lines.push(`  Ag / Agt / A ${fmt(a.uniformElongationPct, 2)} / ${fmt(a.uniformTotalElongationPct, 2)} / ${fmt(a.totalElongationPct, 2)} %`);
+  lines.push(`  n, K         ${fmt(a.nValue, 4)}, ${fmt(a.K, 0)} MPa (ISO 10275)`);
+  if (a.fits) {
+    lines.push('  law             RMSE MPa   R²        AIC      converged  parameters');
+    for (const f of a.fits.fits) {
+      const ps = Object.entries(f.params).map(([k, v]) => `${k}=${+v.toPrecision(4)}${f.standardErrors[k] != null ? `±${+f.standardErrors[k]!.toPrecision(2)}` : ''}`).join(' ');
+      lines.push(`  ${f.law.padEnd(15)} ${fmt(f.rmse, 2).padStart(8)}   ${f.r2.toFixed(5)}  ${fmt(f.aic, 0).padStart(7)}  ${(f.converged ? 'yes' : 'NO').padEnd(9)}  ${ps}`);
+    }
+    for (const e of a.fits.extrapolation) lines.push(`  at εp ${e.strain.toPrecision(3)} (${e.note}): spread ${e.spreadPct.toFixed(1)} % over laws that fit well`);
+  }
+  for (const c of a.cycles) lines.push(`  cycle at ${fmt(c.unloadStress)} MPa: chord E ${fmt(c.unloadModulus / 1000, 1)} GPa, permanent ${(c.permanentStrain * 100).toFixed(3)} %, recovered ${(c.recoveredStrain * 100).toFixed(3)} %, reload Rp0.2 ${fmt(c.reloadProofStrength)} MPa`);
+  for (const m of rec.warnings) lines.push(`  warning: ${m}`);
+  for (const m of a.warnings) lines.push(`  warning: ${m.message}`);
+  return lines.join('\n') + '\n';
+}
+
+export const analyze: Command = {
+  name: 'analyze',
+  usage: [
+    'analyze RECORD... [--format json|table] [--law NAME] [--material-block] [--material-out FILE] [--units SI|US]',
+    '      [--offset PCT] [--n-range FROM,TO] [--check-strain X]... [--disagreement PCT] [--modulus MPA] [--residuals]',
+    '      [--column ROLE=NAME]... [--delimiter , ; tab] [--decimal . ,] [--stress-unit U] [--force-unit U] [--length-unit U] [--strain-unit fraction|percent]',
+    '      [--area MM2] [--diameter MM] [--width MM] [--thickness MM] [--gauge-length MM]',
+    '      tensile records: standard properties, every law fitted with statistics; exit 2 for an invalid record',
+  ].join('\n'),
+  async run(args, io) {
+    const { values, positionals } = parseArgs({
+      args, allowPositionals: true, strict: true,
+      options: {
+        format: { type: 'string', default: 'table' },
+        law: { type: 'string' },
+        'material-block': { type: 'boolean', default: false },
+        'material-out': { type: 'string' },
+        units: { type: 'string', default: 'SI' },
+        offset: { type: 'string' },
+        'n-range': { type: 'string' },
+        'check-strain': { type: 'string', multiple: true, default: [] },
+        disagreement: { type: 'string' },
+        modulus: { type: 'string' },
+        residuals: { type: 'boolean', default: false },
+        column: { type: 'string', multiple: true, default: [] },
+        delimiter: { type: 'string' },
+        decimal: { type: 'string' },
+        'stress-unit': { type: 'string' },
+        'force-unit': { type: 'string' },
+        'length-unit': { type: 'string' },
+        'strain-unit': { type: 'string' },
+        area: { type: 'string' },
+        diameter: { type: 'string' },
+        width: { type: 'string' },
+        thickness: { type: 'string' },
+        'gauge-length': { type: 'string' },
+      },
+    });
+    if (positionals.length === 0) throw cliError('RECORD', 'got no record file, allowed one or more tensile record files (CSV or tab-separated)');
+    const format = values.format!;
+    if (format !== 'json' && format !== 'table') throw cliError('--format', `got ${JSON.stringify(format)}, allowed one of json, table`);
+    const units = values.units!;
+    if (units !== 'SI' && units !== 'US') throw cliError('--units', `got ${JSON.stringify(units)}, allowed SI or US`);
+    let law: LawName | undefined;
+    if (values.law !== undefined) {
+      if (!(LAW_NAMES as string[]).includes(values.law)) throw cliError('--law', `got ${JSON.stringify(values.law)}, allowed one of ${LAW_NAMES.join(', ')}`);
+      law = values.law as LawName;
+    }
+    const ropts: RecordOptions = {};
+    if (values.delimiter !== undefined) {
+      const d = values.delimiter === 'tab' || values.delimiter === '\\t' ? '\t' : values.delimiter;
+      if (d !== ',' && d !== ';' && d !== '\t') throw cliError('--delimiter', `got ${JSON.stringify(values.delimiter)}, allowed , ; or tab`);
+      ropts.delimiter = d;
+    }
+    if (values.decimal !== undefined) {
+      if (values.decimal !== '.' && values.decimal !== ',') throw cliError('--decimal', `got ${JSON.stringify(values.decimal)}, allowed . or ,`);
+      ropts.decimal = values.decimal;
+    }
+    if (values['stress-unit'] !== undefined) ropts.stressUnit = values['stress-unit'];
+    if (values['force-unit'] !== undefined) ropts.forceUnit = values['force-unit'];
+    if (values['length-unit'] !== undefined) ropts.lengthUnit = values['length-unit'];
+    if (values['strain-unit'] !== undefined) {
+      const s = values['strain-unit'];
+      if (!['fraction', 'percent', '%'].includes(s)) throw cliError('--strain-unit', `got ${JSON.stringify(s)}, allowed fraction or percent`);
+      ropts.strainUnit = s === 'fraction' ? '' : '%';
+      if (s === 'fraction') ropts.strainUnit = '-';
+    }
+    for (const [k, name] of [['area', 'area'], ['diameter', 'diameter'], ['width', 'width'], ['thickness', 'thickness'], ['gauge-length', 'gaugeLength']] as const) {
+      const v = num(k, values[k], 1e-9, 1e9);
+      if (v !== undefined) (ropts as Record<string, unknown>)[name] = v;
+    }
+    const cols: Partial<Record<Role, string | number>> = {};
+    for (const c of values.column!) {
+      const m = /^(strain|stress|force|extension|time)=(.+)$/.exec(c);
+      if (!m) throw cliError('--column', `got ${JSON.stringify(c)}, allowed ROLE=NAME or ROLE=NUMBER with ROLE one of strain, stress, force, extension, time`);
+      cols[m[1] as Role] = /^\d+$/.test(m[2]!) ? Number(m[2]) : m[2]!;
+    }
+    if (Object.keys(cols).length) ropts.columns = cols;
+    const offset = num('offset', values.offset, 0.01, 5);
+    const disagreement = num('disagreement', values.disagreement, 0, 1000);
+    const modulus = num('modulus', values.modulus, 1, 1e7);
+    const checkStrains = values['check-strain']!.map((s) => num('check-strain', s, 1e-6, 20)!);
+    let nRange: [number, number] | undefined;
+    if (values['n-range'] !== undefined) {
+      const m = /^\s*([0-9.eE+-]+)\s*,\s*([0-9.eE+-]+)\s*$/.exec(values['n-range']);
+      const a = m ? Number(m[1]) : NaN, b = m ? Number(m[2]) : NaN;
+      if (!(a >= 0 && b > a && b <= 5)) throw cliError('--n-range', `got ${JSON.stringify(values['n-range'])}, allowed FROM,TO engineering strains (fractions) with 0 ≤ FROM < TO ≤ 5, e.g. 0.1,0.2`);
+      nRange = [a, b];
+    }
+
+    const [{ readRecordFile }, { analyzeRecord }, { analyzeSpecimens }, { withRecordLocation }] = await Promise.all([
+      import('../../records/node.js'), import('../../core/tensile/analyzeRecord.js'), import('../../core/tensile/analyzeSpecimens.js'), import('../recordErrors.js'),
+    ]);
+    const records: TensileRecord[] = [];
+    for (const f of positionals) records.push(await readRecordFile(f, { ...ropts, file: f }));
+    const aopts = {
+      ...(offset !== undefined ? { proofOffsetPct: offset } : {}),
+      ...(nRange ? { nRange } : {}),
+      ...(checkStrains.length ? { checkStrains } : {}),
+      ...(disagreement !== undefined ? { disagreementPct: disagreement } : {}),
+      ...(modulus !== undefined ? { elasticModulus: modulus } : {}),
+    };
+    const analyses = records.map((r) => withRecordLocation(r.file, () => analyzeRecord(r, aopts)));
+    let block: Record<string, unknown> | undefined;
+    let out: Record<string, unknown>;
+    if (records.length === 1) {
+      const r = records[0]!, a = analyses[0]!;
+      out = { analyzeVersion: ANALYZE_VERSION, ...analysisJson(r, a, values.residuals!), cautions: CAUTIONS };
+      if (values['material-block'] || values['material-out'] !== undefined) block = materialBlock(r.name, a.elasticModulus, chooseFit(a.fits, law, '--material-block'), units, a.modulusDecay, r.file.replace(/^.*[\\/]/, ''));
+    } else {
+      const set = withRecordLocation(positionals.join(', '), () => analyzeSpecimens(records.map((r) => ({ name: r.name, strain: r.strain, stress: r.stress })), { ...aopts, law: law ?? 'swift', laws: LAW_NAMES }));
+      out = {
+        analyzeVersion: ANALYZE_VERSION,
+        records: records.map((r, i) => analysisJson(r, set.specimens[i]!.analysis, values.residuals!)),
+        summary: set.summary,
+        lawParameters: set.lawParameters,
+        jointFit: set.jointFit ? { best: set.jointFit.best, fits: set.jointFit.fits.map((f) => ({ law: f.law, params: f.params, standardErrors: f.standardErrors, rmse: f.rmse, r2: f.r2, aic: f.aic, converged: f.converged, strainRange: f.strainRange, points: f.points })), extrapolation: set.jointFit.extrapolation } : null,
+        warnings: set.jointFit?.warnings ?? [],
+        cautions: CAUTIONS,
+      };
+      if (values['material-block'] || values['material-out'] !== undefined) {
+        const E = set.summary.elasticModulus!.mean;
+        block = materialBlock(`${records.length} specimens`, E, chooseFit(set.jointFit, law, '--material-block'), units, null, `${records.length} records, joint fit`);
+      }
+    }
+    if (values['material-out'] !== undefined) {
+      const { writeFileAtomic } = await import('../io.js');
+      writeFileAtomic(values['material-out'], JSON.stringify(block, null, 2) + '\n');
+    }
+    if (values['material-block']) {
+      io.stdout(JSON.stringify(block, null, 2) + '\n');
+      return 0;
+    }
+    if (format === 'json') io.stdout(JSON.stringify(out, null, 2) + '\n');
+    else {
+      let text = records.map((r, i) => tableText(r, analyses[i]!)).join('\n');
+      if (records.length > 1) {
+        const s = out.summary as Record<string, { mean: number; sd: number | null; n: number }>;
+        text += '\nover specimens (mean ± sd):\n';
+        for (const [k, v] of Object.entries(s)) text += `  ${k.padEnd(26)} ${v.mean.toPrecision(6)} ± ${v.sd === null ? '—' : v.sd.toPrecision(3)}  (n = ${v.n})\n`;
+      }
+      text += '\n' + CAUTIONS.map((c) => `caution: ${c}`).join('\n') + '\n';
+      io.stdout(text);
+    }
+    return 0;
+  },
+};

@@ -1,0 +1,67 @@
+import { mkdirSync, realpathSync, statSync } from 'node:fs';
+import { basename, join, resolve } from 'node:path';
+import { PlanError } from '../plan/problems.js';
+import { writeFileAtomic } from './io.js';
+
+const outErr = (dir: string, message: string) => new PlanError([{ file: dir, path: '--out', message }]);
+
+/**
+ * Checks an output folder before any work: it must be a folder or not exist yet (then it is created
+ * when the first file is written). A path that is a file is invalid input.
+ */
+export function checkOutDir(dir: string): string {
+  const abs = resolve(dir);
+  let st;
+  try {
+    st = statSync(abs);
+  } catch {
+    return abs;
+  }
+  if (!st.isDirectory()) throw outErr(dir, 'is a file, not a folder; allowed a folder (created when missing)');
+  return abs;
+}
+
+/** The output file name of a plan: its base name without extension, plus the format's extension. */
+export function outName(planFile: string, ext: string): string {
+  return `${basename(planFile).replace(/\.(json|ya?ml)$/i, '')}.${ext}`;
+}
+
+function real(p: string): string {
+  try {
+    return realpathSync(p);
+  } catch {
+    return resolve(p);
+  }
+}
+
+/**
+ * Plans the files a run writes: one per plan, inside `dir` only (base names, never paths), never
+ * over an input file, no two plans writing the same file, no target that is a folder.
+ * @throws PlanError (exit 2) before anything is written.
+ */
+export function planOutputs(dir: string, inputs: readonly string[], ext: string): Map<string, string> {
+  const abs = checkOutDir(dir);
+  const inputSet = new Set(inputs.map(real));
+  const out = new Map<string, string>();
+  const taken = new Map<string, string>();
+  for (const f of inputs) {
+    const target = join(abs, outName(f, ext));
+    if (inputSet.has(real(target))) throw outErr(dir, `writing ${target} would overwrite the input ${f}; allowed an output folder that holds no input plan of the same name`);
+    const prev = taken.get(target);
+    if (prev !== undefined) throw outErr(dir, `plans ${prev} and ${f} would both write ${target}; allowed plans with distinct file names`);
+    try {
+      if (statSync(target).isDirectory()) throw outErr(dir, `${target} is a folder; allowed a path for a report file`);
+    } catch (e) {
+      if (e instanceof PlanError) throw e;
+    }
+    taken.set(target, f);
+    out.set(f, target);
+  }
+  return out;
+}
+
+/** Writes one output file atomically (temp file in the same folder, fsync, rename), creating the folder. */
+export function writeOutput(target: string, data: string): void {
+  mkdirSync(resolve(target, '..'), { recursive: true });
+  writeFileAtomic(target, data);
+}

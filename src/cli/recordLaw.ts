@@ -1,0 +1,60 @@
+import { readFileSync, statSync } from 'node:fs';
+import { dirname, isAbsolute, resolve } from 'node:path';
+import { analyzeRecord } from '../core/tensile/analyzeRecord.js';
+import { LAW_PARAMETERS } from '../core/flow/params.js';
+import type { LawName } from '../core/flow/types.js';
+import type { Located } from '../plan/parse.js';
+import { PlanError } from '../plan/problems.js';
+import type { PlanDoc } from '../plan/schema.js';
+import { unitsOf } from '../plan/units.js';
+import { parseRecordText } from '../records/parse.js';
+import type { RecordOptions } from '../records/builder.js';
+
+/** Largest record a plan may name (the plan path reads it whole; `analyze` streams). */
+export const MAX_PLAN_RECORD_BYTES = 200 * 1024 * 1024;
+
+/** A plan's `material.flowCurve` in the record form. */
+export interface RecordFlowCurve {
+  record: string;
+  law: LawName;
+  options?: RecordOptions;
+}
+
+export function isRecordFlowCurve(fc: unknown): fc is RecordFlowCurve {
+  return typeof fc === 'object' && fc !== null && typeof (fc as { record?: unknown }).record === 'string';
+}
+
+/**
+ * A plan whose `material.flowCurve` names a tensile record (`{ "record": "tensile.csv", "law": "swift" }`):
+ * reads the record relative to the plan's folder, analyses it, fits the named law to its flow curve,
+ * and returns the plan with the fitted parameters (in the plan's stress unit) and `fittedStrainRange`,
+ * plus the provenance `fitted from FILE`. Plans with law parameters come back unchanged.
+ * @throws PlanError located at `material.flowCurve.record` (missing file: exit 2).
+ */
+export function fitRecordFlowCurve(doc: PlanDoc, planFile: string, loc?: Located): { doc: PlanDoc; source?: string } {
+  const fc = doc.material.flowCurve as unknown;
+  if (!isRecordFlowCurve(fc)) return { doc };
+  const at = (field: string) => ({ file: planFile, ...(loc?.locate(['material', 'flowCurve', field]) ?? {}), path: `material.flowCurve.${field}` });
+  const path = isAbsolute(fc.record) ? fc.record : resolve(dirname(planFile), fc.record);
+  let text: string;
+  try {
+    const size = statSync(path).size;
+    if (size > MAX_PLAN_RECORD_BYTES) throw new PlanError([{ ...at('record'), message: `the record ${fc.record} is ${size} bytes; allowed at most ${MAX_PLAN_RECORD_BYTES} for a plan (fit it with \`strainledger analyze --material-block\` instead)` }]);
+    text = new TextDecoder('utf-8', { fatal: true }).decode(readFileSync(path));
+  } catch (e) {
+    if (e instanceof PlanError) throw e;
+    const code = (e as NodeJS.ErrnoException).code;
+    const why = code === 'ENOENT' ? 'file not found' : code === 'EISDIR' ? 'is a folder, not a record file' : code === undefined ? 'invalid UTF-8; allowed UTF-8 text' : `cannot read (${code})`;
+    throw new PlanError([{ ...at('record'), message: `got ${JSON.stringify(fc.record)} (${path}): ${why}; allowed a tensile record file, relative to the plan's folder` }]);
+  }
+  const rec = parseRecordText(text, { ...(fc.options ?? {}), file: path });
+  const a = analyzeRecord(rec, { laws: [fc.law] });
+  const fit = a.fits?.fits[0];
+  if (!fit) throw new PlanError([{ ...at('record'), message: `the record ${fc.record} has too few points on its plastic flow curve to fit ${fc.law}; allowed a record that yields and hardens to a maximum force` }]);
+  if (!fit.converged) throw new PlanError([{ ...at('law'), message: `the ${fc.law} fit to ${fc.record} did not converge; allowed a law that fits the record (try another law, or \`strainledger analyze ${fc.record}\`)` }]);
+  const units = unitsOf(doc.units);
+  const law: Record<string, unknown> = { law: fc.law };
+  for (const p of LAW_PARAMETERS[fc.law]) law[p.name] = p.kind === 'stress' ? units.fromMPa(fit.params[p.name]!) : fit.params[p.name]!;
+  const material = { ...doc.material, flowCurve: law, fittedStrainRange: doc.material.fittedStrainRange ?? fit.strainRange } as PlanDoc['material'];
+  return { doc: { ...doc, material }, source: `fitted from ${fc.record}` };
+}

@@ -1,0 +1,104 @@
+import { availableParallelism } from 'node:os';
+import { Worker } from 'node:worker_threads';
+import { InputError } from '../core/errors.js';
+import { prepareScatter, SCATTER_BLOCK, type ScatterProblem } from '../core/scatter/problem.js';
+import { sampleScatterBlock, type ScatterBlock } from '../core/scatter/sample.js';
+import { summarizeScatter, type ScatterSummary } from '../core/scatter/summarize.js';
+import { validatePlan } from '../plan/parse.js';
+import { PlanError } from '../plan/problems.js';
+import { resolvePlan, withLocation } from '../plan/resolve.js';
+import type { PlanSource } from './evaluate.js';
+import { applyOverride, type Override } from './overrides.js';
+import { startProgress } from './progress.js';
+
+/** Blocks kept in flight per worker, so a worker never waits for the next index. */
+const IN_FLIGHT = 2;
+
+/** Largest sensible number of sampling threads on this machine. */
+export function maxScatterThreads(): number {
+  return Math.max(1, availableParallelism());
+}
+
+/**
+ * Samples a scatter problem on `threads` worker threads (node:worker_threads). Blocks of
+ * SCATTER_BLOCK samples, each with its own seeded stream (seed, block index), are handed out one at
+ * a time as workers finish; the summary combines them in block order. So the result is the same,
+ * byte for byte, for any number of threads, and the same as the core's single-thread `runScatter`.
+ * The main thread only hands out work and ticks `onBlock`, so a progress bar keeps moving.
+ * `threads` = 0 samples on the calling thread (no worker), for small runs and tests.
+ * @throws InputError from the problem or from sampling (e.g. spreads too wide).
+ */
+export async function sampleScatterThreads(problem: ScatterProblem, threads: number, onBlock: () => void = () => {}): Promise<ScatterSummary> {
+  const prep = prepareScatter(problem);
+  const blocks: ScatterBlock[] = new Array(prep.blocks);
+  if (threads <= 0) {
+    for (let b = 0; b < prep.blocks; b++) { blocks[b] = sampleScatterBlock(prep, b); onBlock(); }
+    return summarizeScatter(prep, blocks);
+  }
+  const n = Math.min(threads, prep.blocks);
+  const url = new URL('./scatter-worker.js', import.meta.url);
+  let next = 0;
+  const workers: Worker[] = [];
+  try {
+    await Promise.all(Array.from({ length: n }, () => new Promise<void>((resolve, reject) => {
+      const w = new Worker(url, { workerData: problem });
+      workers.push(w);
+      let pending = 0;
+      const feed = () => {
+        while (pending < IN_FLIGHT && next < prep.blocks) { w.postMessage(next++); pending++; }
+        if (pending === 0) resolve();
+      };
+      w.on('message', (m: { block?: ScatterBlock; error?: { kind: string; path?: string; value?: unknown; allowed?: string; message: string } }) => {
+        pending--;
+        if (m.error) {
+          const e = m.error;
+          next = prep.blocks; // stop handing out work
+          if (e.kind === 'input') {
+            const ie = new InputError(e.path!, e.value, e.allowed!);
+            ie.message = e.message; // the worker's full message, detail included
+            reject(ie);
+          } else reject(new Error(e.message));
+          return;
+        }
+        blocks[m.block!.index] = m.block!;
+        onBlock();
+        feed();
+      });
+      w.on('error', reject);
+      feed();
+    })));
+  } finally {
+    await Promise.all(workers.map((w) => w.terminate()));
+  }
+  return summarizeScatter(prep, blocks);
+}
+
+/**
+ * For the runner: when the plan (with `--set` overrides) has a scatter section, samples it on
+ * worker threads with a progress bar on a TTY (silent otherwise, and under CI) and returns the
+ * summary for the report; undefined when there is no scatter section or the plan is invalid (the
+ * report step then reports the problem with its usual message).
+ */
+export async function scatterForSource(src: PlanSource, overrides: readonly Override[], threads: number, progressOn: boolean): Promise<ScatterSummary | undefined> {
+  let plan;
+  try {
+    const data = overrides.length ? structuredClone(src.loc.data) : src.loc.data;
+    for (const o of overrides) applyOverride(data, o.path, o.value, '--set', src.file);
+    const loc = { data, locate: src.loc.locate };
+    plan = resolvePlan(validatePlan(loc, src.file), src.file, loc);
+  } catch (e) {
+    if (e instanceof PlanError) return undefined;
+    throw e;
+  }
+  if (!plan.scatter) return undefined;
+  const problem = plan.scatter;
+  const total = Math.ceil(problem.samples / SCATTER_BLOCK);
+  const progress = await startProgress(total, 'scatter blocks', progressOn);
+  try {
+    return await sampleScatterThreads(problem, threads, () => progress.tick());
+  } catch (e) {
+    return withLocation(src.file, src.loc, () => { throw e; }); // InputError → PlanError with file and line
+  } finally {
+    progress.stop();
+  }
+}

@@ -1,0 +1,44 @@
+import { formatProblem } from '../plan/problems.js';
+import { alignTable } from '../report/table.js';
+import type { Outcome } from './batch.js';
+
+const VERDICT = { 0: 'met', 1: 'NOT MET', 2: 'invalid', 3: 'error' } as const;
+
+/** The smallest margin of a report's targets, with the target's name and unit. */
+export function tightest(o: Outcome): string {
+  const r = o.report;
+  if (!r || r.targets.length === 0) return '—';
+  const t = r.targets.reduce((a, b) => (b.margin < a.margin ? b : a));
+  return `${t.margin.toFixed(2)} ${t.name === 'minRemainingElongationPct' ? '%' : r.units.stress} (${t.name})`;
+}
+
+/**
+ * One summary table for a batch: plan file, plan name, verdict, targets met, the tightest margin and
+ * the exit code, then a count line. Colour (green / red) only when asked (a TTY).
+ */
+export function summaryTable(outcomes: readonly Outcome[], color = false): string {
+  const paint = (code: number, s: string) => (!color ? s : `\x1b[${code === 0 ? 32 : 31}m${s}\x1b[0m`);
+  const rows = outcomes.map((o) => [
+    o.file,
+    o.report?.plan.name ?? '—',
+    VERDICT[o.exit],
+    o.report ? `${o.report.targets.filter((t) => t.met).length}/${o.report.targets.length}` : '—',
+    tightest(o),
+    String(o.exit),
+  ]);
+  const table = alignTable(['plan file', 'plan', 'verdict', 'targets met', 'tightest margin', 'exit'], rows).split('\n');
+  const lines = table.map((l, i) => (i < 2 ? l : paint(outcomes[i - 2]!.exit, l)));
+  const count = (c: number) => outcomes.filter((o) => o.exit === c).length;
+  lines.push('', `${outcomes.length} plans: ${count(0)} met, ${count(1)} not met, ${count(2)} invalid${count(3) ? `, ${count(3)} internal errors` : ''}; exit ${worstExit(outcomes)}`);
+  return lines.join('\n') + '\n';
+}
+
+/** The worst exit code: 3 internal > 2 invalid > 1 missed > 0 met. */
+export function worstExit(outcomes: readonly { exit: number }[]): number {
+  return outcomes.reduce((w, o) => Math.max(w, o.exit), 0);
+}
+
+/** The problems of invalid plans and internal errors, one line each, for stderr. */
+export function problemLines(outcomes: readonly Outcome[]): string {
+  return outcomes.flatMap((o) => o.problems?.map(formatProblem) ?? (o.internal ? [`${o.file}: internal error: ${o.internal}`] : [])).map((l) => l + '\n').join('');
+}

@@ -1,0 +1,111 @@
+import { makeLaw } from '../flow/makeLaw.js';
+import { LAW_NAMES } from '../flow/params.js';
+import type { LawName, LawSpec } from '../flow/types.js';
+import { fitLaw } from './fitLaw.js';
+import type { FitWarning, LawFit } from './types.js';
+
+/** Defaults of the law comparison, stated once. */
+export const FIT_DEFAULTS = {
+  /** A law "fits well" when converged and its RMSE is at most this multiple of the best RMSE. */
+  goodFitRmseFactor: 2,
+  /** Warn when laws that fit well differ by more than this many per cent at a checked strain. */
+  disagreementPct: 10,
+  /** Extrapolation strains as multiples of the top of the fitted strain range. */
+  multiples: [2, 5] as readonly number[],
+} as const;
+
+export interface ExtrapolationPoint {
+  /** True plastic strain. */
+  strain: number;
+  /** Why this strain is checked: `2× fitted range`, `route`, ... */
+  note: string;
+  /** Flow stress of each fitted law at this strain, MPa. */
+  stress: Partial<Record<LawName, number>>;
+  /** (max − min)/min·100 over the laws that fit well, %. */
+  spreadPct: number;
+}
+
+export interface LawComparison {
+  fits: LawFit[];
+  /** Law with the lowest AIC among the converged fits. */
+  best: LawName | null;
+  /** Laws that fit well (see FIT_DEFAULTS.goodFitRmseFactor). */
+  goodLaws: LawName[];
+  extrapolation: ExtrapolationPoint[];
+  warnings: FitWarning[];
+}
+
+export interface FitAllOptions {
+  laws?: readonly LawName[];
+  /** Extra strains to check, e.g. the largest accumulated strain of a route. */
+  checkStrains?: readonly number[];
+  disagreementPct?: number;
+}
+
+/**
+ * Fits every law (or `laws`) to one flow curve and compares them: best by AIC, laws that fit well,
+ * each law's flow stress at 2× and 5× the top of the fitted strain range and at the strains a route
+ * reaches, and a `lawsDisagree` warning where the well-fitting laws differ by more than
+ * `disagreementPct` (default 10 %, FIT_DEFAULTS). The spread is max/min − 1 over those laws.
+ * Units: strain true plastic, stress true MPa. See {@link fitLaw} for the statistics.
+ * @example fitAllLaws(eps, sigma).extrapolation[1].spreadPct // e.g. 35 (laws part ways at 5× εu)
+ */
+export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>, opts: FitAllOptions = {}): LawComparison {
+  const laws = opts.laws ?? LAW_NAMES;
+  const fits: LawFit[] = [];
+  const warnings: FitWarning[] = [];
+  const byLaw = new Map<LawName, LawFit>();
+  const order = [...laws].sort((a, b) => (a === 'swiftVoce' ? 1 : 0) - (b === 'swiftVoce' ? 1 : 0));
+  for (const law of order) {
+    let start: Record<string, number> | undefined;
+    if (law === 'swiftVoce') {
+      const s = byLaw.get('swift') ?? fitLaw('swift', strain, stress);
+      const v = byLaw.get('voce') ?? fitLaw('voce', strain, stress);
+      start = { alpha: 0.5, ...s.params, ...v.params };
+    }
+    const f = fitLaw(law, strain, stress, start ? { start } : {});
+    if (law === 'swiftVoce') {
+      // A blend can always do at least as well as its better part: keep the better of the two starts.
+      const s = byLaw.get('swift');
+      if (s && s.rmse < f.rmse * (1 - 1e-9)) {
+        const g = fitLaw(law, strain, stress, { start: { ...s.params, alpha: 1, sigma0: 0, Q: 0, b: 1 } });
+        if (g.rmse < f.rmse) { byLaw.set(law, g); continue; }
+      }
+    }
+    byLaw.set(law, f);
+  }
+  for (const law of laws) {
+    const f = byLaw.get(law)!;
+    fits.push(f);
+    warnings.push(...f.warnings);
+  }
+  const conv = fits.filter((f) => f.converged);
+  const best = conv.length ? conv.reduce((a, b) => (b.aic < a.aic ? b : a)).law : null;
+  const bestRmse = conv.length ? Math.min(...conv.map((f) => f.rmse)) : Infinity;
+  const good = conv.filter((f) => f.rmse <= FIT_DEFAULTS.goodFitRmseFactor * bestRmse + 1e-12);
+  const top = fits.length ? Math.max(...fits.map((f) => f.strainRange[1])) : 0;
+  const checks: { strain: number; note: string }[] = FIT_DEFAULTS.multiples.map((m) => ({ strain: m * top, note: `${m}× the top of the fitted range` }));
+  for (const s of opts.checkStrains ?? []) if (Number.isFinite(s) && s > 0) checks.push({ strain: s, note: 'strain the route reaches' });
+  const limit = opts.disagreementPct ?? FIT_DEFAULTS.disagreementPct;
+  const extrapolation: ExtrapolationPoint[] = [];
+  for (const c of checks) {
+    const stressAt: Partial<Record<LawName, number>> = {};
+    for (const f of fits) {
+      const v = makeLaw({ law: f.law, ...f.params } as LawSpec).stress(c.strain);
+      if (Number.isFinite(v)) stressAt[f.law] = v;
+    }
+    const vals = good.map((f) => stressAt[f.law]).filter((v): v is number => v !== undefined && v > 0);
+    const spread = vals.length >= 2 ? (Math.max(...vals) / Math.min(...vals) - 1) * 100 : 0;
+    extrapolation.push({ strain: c.strain, note: c.note, stress: stressAt, spreadPct: spread });
+    if (spread > limit) {
+      const hiLaw = good.reduce((a, b) => ((stressAt[b.law] ?? 0) > (stressAt[a.law] ?? 0) ? b : a));
+      const loLaw = good.reduce((a, b) => ((stressAt[b.law] ?? Infinity) < (stressAt[a.law] ?? Infinity) ? b : a));
+      warnings.push({
+        code: 'lawsDisagree',
+        message: `at true plastic strain ${c.strain.toPrecision(3)} (${c.note}) laws that fit the test equally well differ by ${spread.toFixed(1)} % (> ${limit} %): ` +
+          `${hiLaw.law} ${stressAt[hiLaw.law]!.toFixed(0)} MPa, ${loLaw.law} ${stressAt[loLaw.law]!.toFixed(0)} MPa; choosing a law there is an engineering decision — test the formed material`,
+      });
+    }
+  }
+  return { fits, best, goodLaws: good.map((f) => f.law), extrapolation, warnings };
+}

@@ -1,0 +1,122 @@
+import type { LawName } from '../flow/types.js';
+
+/** A linear least-squares solve of y ≈ c0·u + c1·v (two basis columns), or null when singular. */
+function twoColumn(u: ArrayLike<number>, v: ArrayLike<number>, y: ArrayLike<number>): [number, number] | null {
+  let uu = 0, uv = 0, vv = 0, uy = 0, vy = 0;
+  for (let i = 0; i < y.length; i++) {
+    uu += u[i]! * u[i]!;
+    uv += u[i]! * v[i]!;
+    vv += v[i]! * v[i]!;
+    uy += u[i]! * y[i]!;
+    vy += v[i]! * y[i]!;
+  }
+  const det = uu * vv - uv * uv;
+  if (!(Math.abs(det) > 1e-300) || !(Math.abs(det) > 1e-14 * uu * vv)) return null;
+  return [(uy * vv - vy * uv) / det, (vy * uu - uy * uv) / det];
+}
+
+function ssr(f: (e: number) => number, x: ArrayLike<number>, y: ArrayLike<number>): number {
+  let s = 0;
+  for (let i = 0; i < x.length; i++) s += (f(x[i]!) - y[i]!) ** 2;
+  return Number.isFinite(s) ? s : Infinity;
+}
+
+/** ln y = a + b·ln x: returns [b, exp(a)] or null. */
+function powerLine(x: ArrayLike<number>, y: ArrayLike<number>): [number, number] | null {
+  const lx: number[] = [], ly: number[] = [];
+  for (let i = 0; i < x.length; i++) if (x[i]! > 0 && y[i]! > 0) { lx.push(Math.log(x[i]!)); ly.push(Math.log(y[i]!)); }
+  if (lx.length < 2) return null;
+  const ones = lx.map(() => 1);
+  const c = twoColumn(ones, lx, ly);
+  return c ? [c[1], Math.exp(c[0])] : null;
+}
+
+const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
+const logspace = (a: number, b: number, k: number) => Array.from({ length: k }, (_, i) => a * Math.pow(b / a, i / (k - 1)));
+
+/**
+ * Starting values for fitting `law` to a flow curve (x true plastic strain > 0, y true stress MPa),
+ * from closed-form linearisations over a small grid: Hollomon by log–log regression; Ludwik by
+ * log(σ − σ0) regression over a grid of σ0; Swift by log–log regression over a grid of ε0; Voce and
+ * Hockett–Sherby by linear least squares in their stress parameters over a grid of rates (they are
+ * linear in σ0, Q and in σsat, σ0 once b, or a and p, are fixed). Swift–Voce starts from a
+ * 50/50 blend of the Swift and Voce starts. Returns parameters in LAW_PARAMETERS order.
+ * Common practice for nonlinear fits (variable projection idea: G. H. Golub and V. Pereyra,
+ * SIAM J. Numer. Anal. 10 (1973) 413–432).
+ */
+export function startValues(law: LawName, x: ArrayLike<number>, y: ArrayLike<number>): number[] {
+  let ymin = Infinity, ymax = -Infinity;
+  for (let i = 0; i < y.length; i++) { ymin = Math.min(ymin, y[i]!); ymax = Math.max(ymax, y[i]!); }
+  switch (law) {
+    case 'hollomon': {
+      const c = powerLine(x, y);
+      return c ? [clamp(c[1], 1e-3, 1e5), clamp(c[0], 1e-3, 1)] : [ymax, 0.1];
+    }
+    case 'ludwik': {
+      let best: number[] = [0.9 * ymin, ymax - 0.9 * ymin, 0.5];
+      let bestS = Infinity;
+      for (const c of [0, 0.3, 0.5, 0.7, 0.8, 0.9, 0.95, 0.98, 0.995]) {
+        const s0 = c * ymin;
+        const yy = Array.from({ length: y.length }, (_, i) => y[i]! - s0);
+        const p = powerLine(x, yy);
+        if (!p) continue;
+        const K = clamp(p[1], 1e-3, 1e5), n = clamp(p[0], 1e-3, 1);
+        const s = ssr((e) => s0 + K * Math.pow(e, n), x, y);
+        if (s < bestS) { bestS = s; best = [s0, K, n]; }
+      }
+      return best;
+    }
+    case 'swift': return swiftStart(x, y, ymax);
+    case 'voce': return voceStart(x, y, ymin, ymax);
+    case 'hockettSherby': {
+      let best: number[] = [ymax * 1.05, ymin * 0.95, 10, 1];
+      let bestS = Infinity;
+      for (const p of [0.4, 0.6, 0.8, 1, 1.3]) {
+        for (const a of logspace(0.3, 3000, 18)) {
+          const E = Array.from({ length: x.length }, (_, i) => Math.exp(-a * Math.pow(x[i]!, p)));
+          const c = twoColumn(E.map((v) => 1 - v), E, y);
+          if (!c) continue;
+          const [sat, s0] = c;
+          if (!(sat > s0 && s0 >= 0)) continue;
+          const s = ssr((e) => sat - (sat - s0) * Math.exp(-a * Math.pow(e, p)), x, y);
+          if (s < bestS) { bestS = s; best = [sat, s0, a, p]; }
+        }
+      }
+      return best;
+    }
+    case 'swiftVoce': {
+      const s = swiftStart(x, y, ymax);
+      const v = voceStart(x, y, ymin, ymax);
+      return [0.5, ...s, ...v];
+    }
+  }
+}
+
+function swiftStart(x: ArrayLike<number>, y: ArrayLike<number>, ymax: number): number[] {
+  let best: number[] = [ymax, 0.01, 0.1];
+  let bestS = Infinity;
+  for (const e0 of [1e-5, 1e-4, 3e-4, 1e-3, 3e-3, 0.01, 0.03, 0.1, 0.3]) {
+    const xx = Array.from({ length: x.length }, (_, i) => x[i]! + e0);
+    const p = powerLine(xx, y);
+    if (!p) continue;
+    const K = clamp(p[1], 1e-3, 1e5), n = clamp(p[0], 1e-3, 1);
+    const s = ssr((e) => K * Math.pow(e0 + e, n), x, y);
+    if (s < bestS) { bestS = s; best = [K, e0, n]; }
+  }
+  return best;
+}
+
+function voceStart(x: ArrayLike<number>, y: ArrayLike<number>, ymin: number, ymax: number): number[] {
+  let best: number[] = [ymin, Math.max(ymax - ymin, 1), 10];
+  let bestS = Infinity;
+  const ones = Array.from({ length: x.length }, () => 1);
+  for (const b of logspace(0.3, 3000, 24)) {
+    const u = Array.from({ length: x.length }, (_, i) => -Math.expm1(-b * x[i]!));
+    const c = twoColumn(ones, u, y);
+    if (!c) continue;
+    const s0 = Math.max(0, c[0]), Q = Math.max(0, c[1]);
+    const s = ssr((e) => s0 + Q * -Math.expm1(-b * e), x, y);
+    if (s < bestS) { bestS = s; best = [s0, Q, b]; }
+  }
+  return best;
+}

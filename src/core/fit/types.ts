@@ -1,0 +1,34 @@
+import type { LawName } from '../flow/types.js';
+
+/** A warning returned with a result (never global state). */
+export interface FitWarning {
+  code: 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated';
+  message: string;
+}
+
+/** One law fitted to a flow curve (true stress MPa versus true plastic strain). */
+export interface LawFit {
+  law: LawName;
+  /** Fitted parameters by name, stresses in MPa. */
+  params: Record<string, number>;
+  /** Standard error of each parameter, s·sqrt(diag((JᵀJ)⁻¹)); null when it is on a bound or not identifiable. */
+  standardErrors: Record<string, number | null>;
+  /** 95 % confidence interval of each parameter, value ± t(0.975, N − k)·SE; null where the SE is null. */
+  intervals95: Record<string, [number, number] | null>;
+  /** Root-mean-square residual sqrt(SSR/N), MPa. */
+  rmse: number;
+  /** 1 − SSR/SST. */
+  r2: number;
+  /** Akaike information criterion N·ln(SSR/N) + 2k (lower is better; compare on the same data only). */
+  aic: number;
+  /** Bayesian information criterion N·ln(SSR/N) + k·ln N. */
+  bic: number;
+  /** Residuals model − data at each point, MPa. */
+  residuals: number[];
+  converged: boolean;
+  iterations: number;
+  /** Range of true plastic strain the law was fitted on. */
+  strainRange: [number, number];
+  points: number;
+  warnings: FitWarning[];
+}

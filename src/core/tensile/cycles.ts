@@ -1,0 +1,86 @@
+import { fitStatistics } from '../fit/fitStatistics.js';
+import { levenbergMarquardt } from '../fit/levenbergMarquardt.js';
+import type { ModulusDecayFit, UnloadCycle } from './types.js';
+
+/** A fall of stress counts as an unloading when it is at least this fraction of the stress it starts from. */
+export const UNLOAD_MIN_DROP = 0.3;
+
+/**
+ * Finds unload–reload cycles: a stress peak followed by a fall of at least UNLOAD_MIN_DROP of the
+ * peak stress while the strain also falls (elastic recovery; a fall at rising strain is necking or
+ * fracture, not unloading). For each: the chord modulus between the start of unloading and the
+ * reversal (ASTM E111 chord modulus), the permanent strain e_u − σ_u/E_u, the recovered strain
+ * σ_u/E_u, and the reload 0.2 % proof strength (offset line through the reversal point, parallel to
+ * the unloading chord — the ISO 6892-1 offset construction applied to the reload branch).
+ * Units: strain fraction (toe-compensated by `toe`), stress MPa.
+ */
+export function findCycles(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, fromIndex: number, noise: number): UnloadCycle[] {
+  const n = stress.length;
+  const out: UnloadCycle[] = [];
+  const tol = 3 * noise;
+  let i = Math.max(1, fromIndex);
+  while (i < n - 1) {
+    if (!(stress[i]! >= stress[i - 1]! && stress[i + 1]! < stress[i]!)) { i++; continue; }
+    let r = i;
+    let k = i + 1;
+    while (k < n && stress[k]! <= stress[r]! + tol) {
+      if (stress[k]! < stress[r]!) r = k;
+      k++;
+    }
+    const drop = stress[i]! - stress[r]!;
+    if (!(drop >= UNLOAD_MIN_DROP * stress[i]!) || !(strain[r]! < strain[i]! - (0.3 * drop) / E)) { i++; continue; }
+    const u = i;
+    const Eu = drop / (strain[u]! - strain[r]!);
+    const su = stress[u]!;
+    // Reload: from the reversal until the strain passes the start of unloading by 0.5 % or the next unloading.
+    let reload: number | null = null;
+    let prev = stress[r]! - Eu * (strain[r]! - strain[r]! - 0.002);
+    let j = r + 1;
+    for (; j < n; j++) {
+      const g = stress[j]! - (stress[r]! + Eu * (strain[j]! - strain[r]! - 0.002));
+      if (prev > 0 && g <= 0) {
+        const t = prev / (prev - g);
+        reload = stress[j - 1]! + t * (stress[j]! - stress[j - 1]!);
+        break;
+      }
+      prev = g;
+      if (stress[j]! < stress[j - 1]! - Math.max(tol, 0.05 * stress[j - 1]!)) break;
+    }
+    out.push({
+      unloadIndex: u,
+      reversalIndex: r,
+      unloadStress: su,
+      unloadModulus: Eu,
+      permanentStrain: strain[u]! - toe - su / Eu,
+      recoveredStrain: su / Eu,
+      reloadProofStrength: reload,
+    });
+    // Resume once the reload is back above the unloading stress or past its strain.
+    let next = r + 1;
+    while (next < n && stress[next]! < su && strain[next]! <= strain[u]!) next++;
+    i = Math.max(next, r + 1);
+  }
+  return out;
+}
+
+/**
+ * Fits the fall of the unloading chord modulus with plastic strain,
+ * E(εp) = E0 − (E0 − Ea)·(1 − exp(−ξ·εp)), E0 fixed at the initial Young's modulus, Ea and ξ by
+ * bounded Levenberg–Marquardt (0 < Ea ≤ E0, 0 < ξ ≤ 1e4). The form is the chord-modulus law of
+ * Yoshida & Uemori (Int. J. Plasticity 18 (2002) 661–686; cited from memory in CHECKS.md).
+ * Units: moduli MPa, εp true plastic strain. @returns null with fewer than 3 cycles.
+ * @example decay of 200, 190, 184 GPa at εp 0.02, 0.05, 0.1 → Ea ≈ 180 GPa
+ */
+export function fitModulusDecay(E0: number, plasticStrain: readonly number[], modulus: readonly number[]): ModulusDecayFit | null {
+  if (plasticStrain.length < 3) return null;
+  const x = plasticStrain;
+  let emin = Infinity;
+  for (const m of modulus) emin = Math.min(emin, m);
+  const model = (p: Float64Array) => Float64Array.from(x, (e) => E0 - (E0 - p[0]!) * -Math.expm1(-p[1]! * e));
+  const start = [Math.min(E0, Math.max(1, emin * 0.98)), 1 / Math.max(1e-6, x.reduce((a, b) => a + b, 0) / x.length)];
+  const lower = [1, 1e-9], upper = [E0, 1e4];
+  const res = levenbergMarquardt(model, modulus, [Math.min(upper[0]!, start[0]!), Math.min(upper[1]!, start[1]!)], { lower, upper });
+  const resid = Array.from(res.predicted, (v, i) => v - modulus[i]!);
+  const st = fitStatistics(res.jacobian, resid, modulus, 2, res.atBound, res.params);
+  return { E0, Ea: res.params[0]!, xi: res.params[1]!, standardErrors: { Ea: st.standardErrors[0] ?? null, xi: st.standardErrors[1] ?? null }, rmse: st.rmse, converged: res.converged };
+}

@@ -1,0 +1,29 @@
+import { InputError } from '../errors.js';
+import { linearFit } from '../fit/linearFit.js';
+import type { NValueResult } from './types.js';
+
+/**
+ * Strain-hardening exponent n and strength coefficient K by ISO 10275 (and ASTM E646): linear
+ * regression of ln(true stress) on ln(true plastic strain) over the given points,
+ * ln σ = ln K + n·ln εp, so σ = K·εpⁿ. ISO 10275 takes the whole uniform plastic range (from the end of
+ * yield-point effects to maximum force) or a stated range (e.g. 10–20 % engineering strain).
+ * Units: σ in MPa, εp dimensionless; K in MPa. Valid: at least 3 points with εp > 0.
+ * @throws InputError when fewer than 3 usable points.
+ * @example nValueFit([0.01, 0.1], [530 * 0.01 ** 0.44, 530 * 0.1 ** 0.44]) // throws: 3 points needed
+ */
+export function nValueFit(plasticStrain: ArrayLike<number>, trueStress: ArrayLike<number>): NValueResult {
+  const lx: number[] = [], ly: number[] = [];
+  let lo = Infinity, hi = -Infinity;
+  for (let i = 0; i < plasticStrain.length; i++) {
+    const e = plasticStrain[i]!, s = trueStress[i]!;
+    if (e > 0 && s > 0) {
+      lx.push(Math.log(e));
+      ly.push(Math.log(s));
+      lo = Math.min(lo, e);
+      hi = Math.max(hi, e);
+    }
+  }
+  if (lx.length < 3) throw new InputError('nRange', lx.length, 'at least 3 points with true plastic strain > 0 in the n-value range');
+  const f = linearFit(lx, ly);
+  return { n: f.slope, K: Math.exp(f.intercept), r2: f.r2, range: [lo, hi], points: lx.length, method: 'ISO 10275: regression of ln(true stress) on ln(true plastic strain)' };
+}

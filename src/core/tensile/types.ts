@@ -1,0 +1,103 @@
+import type { LawComparison } from '../fit/fitAllLaws.js';
+
+/** A tensile record as the core takes it: engineering strain (fraction) and engineering stress (MPa), same length. */
+export interface TensileData {
+  strain: ArrayLike<number>;
+  stress: ArrayLike<number>;
+}
+
+export interface TensileWarning {
+  code: 'noProofPoint' | 'noFractureDrop' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles';
+  message: string;
+}
+
+/** How E was found: the least-squares window on the initial loading branch. */
+export interface ElasticWindow {
+  /** Stress range of the window, MPa. */
+  fromStress: number;
+  toStress: number;
+  fromIndex: number;
+  /** Exclusive end index. */
+  toIndex: number;
+  points: number;
+  r2: number;
+  /** Standard error of E, MPa. */
+  standardError: number;
+  /** How the window was chosen, in words. */
+  method: string;
+}
+
+/** One unload–reload cycle (engineering values, toe-compensated strains). */
+export interface UnloadCycle {
+  /** Index where unloading starts and where the reversal (lowest stress) is. */
+  unloadIndex: number;
+  reversalIndex: number;
+  /** Stress at the start of unloading, MPa. */
+  unloadStress: number;
+  /** Chord modulus between the start of unloading and the reversal (ASTM E111 chord), MPa. */
+  unloadModulus: number;
+  /** Engineering plastic strain left after unloading: e_u − σ_u/E_u (fraction). */
+  permanentStrain: number;
+  /** Elastic strain recovered on unloading σ_u/E_u (fraction). */
+  recoveredStrain: number;
+  /** 0.2 % proof strength of the reload branch, offset parallel to the unloading chord, MPa; null when the reload does not reach it. */
+  reloadProofStrength: number | null;
+}
+
+/** Fit of the chord-modulus decay E(εp) = E0 − (E0 − Ea)(1 − exp(−ξ·εp)) to the cycles. */
+export interface ModulusDecayFit {
+  E0: number;
+  Ea: number;
+  xi: number;
+  standardErrors: { Ea: number | null; xi: number | null };
+  rmse: number;
+  converged: boolean;
+}
+
+export interface NValueResult {
+  n: number;
+  K: number;
+  r2: number;
+  /** True plastic strain range used. */
+  range: [number, number];
+  points: number;
+  method: string;
+}
+
+/** Everything {@link analyzeRecord} finds. Stresses MPa; percentages of the gauge length. */
+export interface TensileAnalysis {
+  elasticModulus: number;
+  elasticWindow: ElasticWindow;
+  /** Toe correction: strain where the elastic line meets zero stress (subtracted from all strains). */
+  toeStrain: number;
+  /** Rp at the requested offset (default 0.2 %), MPa. */
+  proofStrength: number | null;
+  proofOffsetPct: number;
+  /** Rp0.2, Rp0.5, Rp1, MPa (null where not reached). */
+  proofStrengths: { offsetPct: number; stress: number | null }[];
+  /** Rt0.5: stress at 0.5 % total extension, MPa. */
+  totalExtensionStrength: number | null;
+  upperYield: number | null;
+  lowerYield: number | null;
+  yieldPointElongationPct: number | null;
+  tensileStrength: number;
+  maxForceIndex: number;
+  /** Ag: plastic extension at maximum force, %. */
+  uniformElongationPct: number;
+  /** Agt: total extension at maximum force, %. */
+  uniformTotalElongationPct: number;
+  /** A: plastic elongation after fracture, %. */
+  totalElongationPct: number;
+  fracture: { index: number; detected: boolean; method: string };
+  nValue: number | null;
+  K: number | null;
+  nFit: NValueResult | null;
+  /** True curve to maximum force: true strain, true stress, true plastic strain. */
+  trueCurve: { strain: number[]; stress: number[]; plasticStrain: number[] };
+  /** The flow curve the laws are fitted to (true plastic strain, true stress), from the end of yield effects to maximum force. */
+  flowCurve: { strain: number[]; stress: number[] };
+  cycles: UnloadCycle[];
+  modulusDecay: ModulusDecayFit | null;
+  fits: LawComparison | null;
+  warnings: TensileWarning[];
+}

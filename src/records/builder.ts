@@ -1,0 +1,270 @@
+import { describeColumn, roleScore, ROLES, type ColumnInfo, type Role } from './columns.js';
+import { recordError, show } from './errors.js';
+import type { Layout } from './layout.js';
+import { allowedUnits, AREA_UNITS, LENGTH_UNITS, normUnit, unitFactor } from './units.js';
+
+/** Options of the record readers. Lengths in mm, areas in mm² unless a unit option says otherwise. */
+export interface RecordOptions {
+  /** Name used in messages (the file name). */
+  file?: string;
+  delimiter?: ',' | ';' | '\t';
+  decimal?: '.' | ',';
+  /** Explicit column for a role: its header name or its 1-based number. */
+  columns?: Partial<Record<Role, string | number>>;
+  stressUnit?: string;
+  forceUnit?: string;
+  /** Unit of the extension column (mm or in). */
+  lengthUnit?: string;
+  /** 'fraction' or 'percent' (or '%'). */
+  strainUnit?: string;
+  /** Cross-section, mm²; or width × thickness, or diameter, mm. */
+  area?: number;
+  width?: number;
+  thickness?: number;
+  diameter?: number;
+  /** Extensometer gauge length, mm. */
+  gaugeLength?: number;
+}
+
+/** A record read from a lab export, converted to engineering strain (fraction) and engineering stress (MPa). */
+export interface TensileRecord {
+  name: string;
+  file: string;
+  strain: Float64Array;
+  stress: Float64Array;
+  rows: number;
+  /** 'stress–strain' when the lab's stress and strain columns were used, else 'force–extension'. */
+  basis: 'stress-strain' | 'force-extension';
+  columns: Partial<Record<Role, { name: string; column: number; unit: string }>>;
+  /** Cross-section (mm²) and gauge length (mm) used for a force–extension record. */
+  geometry: { area: number; gaugeLength: number } | null;
+  /** Metadata lines before the header. */
+  metadata: Map<string, { key: string; value: string; unit: string; line: number }>;
+  warnings: string[];
+  layout: { delimiter: string; decimalComma: boolean; headerLine: number; unitsLine: number | null; dataLine: number };
+}
+
+/** Most data rows a record may have (memory bound: 16 bytes a row). */
+export const MAX_ROWS = 50_000_000;
+/** A strain beyond this (as a fraction) is not a tensile strain: the columns are likely swapped or the unit wrong. */
+export const MAX_STRAIN = 5;
+
+interface Plan {
+  mode: 'ss' | 'fe';
+  a: ColumnInfo; // strain or extension
+  b: ColumnInfo; // stress or force
+  fa: number;    // factor to fraction (strain) or mm (extension)
+  fb: number;    // factor to MPa (stress) or N (force)
+  trueValues: boolean;
+  area: number;
+  gauge: number;
+}
+
+/** Collects rows into growable typed arrays; validates every used cell with its line and column. */
+export class RecordBuilder {
+  private xs = new Float64Array(1024);
+  private ys = new Float64Array(1024);
+  private n = 0;
+  private lastLine = 0;
+  private readonly plan: Plan;
+  private readonly columns: TensileRecord['columns'] = {};
+  private readonly warnings: string[] = [];
+  private readonly file: string;
+  private readonly layout: Layout;
+  private readonly width: number;
+  private maxA = -Infinity;
+  private maxALine = 0;
+
+  constructor(layout: Layout, opts: RecordOptions) {
+    this.file = opts.file ?? 'record';
+    this.layout = layout;
+    this.width = layout.header.length;
+    this.plan = this.resolve(opts);
+  }
+
+  private fail(line: number | undefined, col: number | undefined, field: string, msg: string): never {
+    throw recordError(this.file, line, col, field, msg);
+  }
+
+  private resolve(opts: RecordOptions): Plan {
+    const L = this.layout;
+    const cols = L.header.map((h, i) => describeColumn(h, i));
+    // Duplicate names are ambiguous.
+    const seen = new Map<string, number>();
+    for (const c of cols) {
+      const k = c.name.trim().toLowerCase();
+      if (k === '') continue;
+      const prev = seen.get(k);
+      if (prev !== undefined) this.fail(L.headerLine, c.index + 1, c.name, `duplicate column name ${show(c.name)} in columns ${prev + 1} and ${c.index + 1}; expected unique column names (or map columns explicitly)`);
+      seen.set(k, c.index);
+    }
+    const unitOf = (c: ColumnInfo) => (L.units?.[c.index]?.trim() || c.unit || '');
+    const pick = (role: Role): ColumnInfo | undefined => {
+      const given = opts.columns?.[role];
+      if (given !== undefined) {
+        const c = typeof given === 'number' ? cols[given - 1] : cols.find((x) => x.name.trim().toLowerCase() === String(given).trim().toLowerCase());
+        if (!c) this.fail(L.headerLine, undefined, `columns.${role}`, `no column ${show(String(given))}; the header has ${cols.map((x) => show(x.name)).join(', ')}`);
+        return c;
+      }
+      let best: ColumnInfo | undefined;
+      let bs = 0;
+      for (const c of cols) {
+        const s = roleScore(c, role, unitOf(c));
+        if (s > bs) { bs = s; best = c; }
+      }
+      return best;
+    };
+    const found: Partial<Record<Role, ColumnInfo>> = {};
+    for (const r of ROLES) { const c = pick(r); if (c) found[r] = c; }
+    const names = cols.map((x) => show(x.name)).join(', ');
+    let mode: 'ss' | 'fe';
+    if (found.strain && found.stress && found.strain.index !== found.stress.index) mode = 'ss';
+    else if (found.force && found.extension && found.force.index !== found.extension.index) mode = 'fe';
+    else if (found.stress && !found.strain) this.fail(L.headerLine, found.stress.index + 1, 'strain', `no strain column (nor force and extension); the header has ${names}; expected a column named like "Strain [%]" or map it explicitly`);
+    else if (found.strain && !found.stress) this.fail(L.headerLine, found.strain.index + 1, 'stress', `no stress column (nor force and extension); the header has ${names}; expected a column named like "Stress [MPa]" or map it explicitly`);
+    else this.fail(L.headerLine, 1, 'columns', `no strain and stress columns, nor force and extension; the header has ${names}; expected names such as strain, stress, force, extension (with units like [MPa], [%], [kN], [mm]) or an explicit column mapping`);
+    const a = mode === 'ss' ? found.strain! : found.extension!;
+    const b = mode === 'ss' ? found.stress! : found.force!;
+    const unitCell = (c: ColumnInfo) => ({ line: L.units ? L.unitsLine! : L.headerLine, col: c.index + 1 });
+    const factor = (q: 'stress' | 'force' | 'length' | 'strain', c: ColumnInfo, override: string | undefined): number => {
+      const u = override ?? unitOf(c);
+      if (u === '' && q !== 'strain') {
+        if (q === 'stress') { this.warnings.push(`no unit for column ${show(c.name)}; read as MPa`); return 1; }
+        this.fail(unitCell(c).line, unitCell(c).col, c.name, `no unit for the ${q} column; expected ${allowedUnits(q)} in the header (e.g. "${q === 'force' ? 'Force [kN]' : 'Extension [mm]'}"), a units row, or an option`);
+      }
+      const f = unitFactor(q, u === 'percent' ? '%' : u);
+      if (f === undefined) this.fail(override !== undefined ? undefined : unitCell(c).line, override !== undefined ? undefined : unitCell(c).col, c.name, `unit ${show(u)} is not a ${q} unit; allowed ${allowedUnits(q)}`);
+      return f;
+    };
+    let fa: number, fb: number, area = 0, gauge = 0;
+    if (mode === 'ss') {
+      fb = factor('stress', b, opts.stressUnit);
+      const su = opts.strainUnit ?? unitOf(a);
+      fa = su === '' ? NaN : factor('strain', a, opts.strainUnit === 'percent' ? '%' : opts.strainUnit);
+    } else {
+      fb = factor('force', b, opts.forceUnit);
+      fa = factor('length', a, opts.lengthUnit);
+      ({ area, gauge } = this.geometry(opts));
+    }
+    this.columns[mode === 'ss' ? 'strain' : 'extension'] = { name: a.name, column: a.index + 1, unit: unitOf(a) };
+    this.columns[mode === 'ss' ? 'stress' : 'force'] = { name: b.name, column: b.index + 1, unit: unitOf(b) };
+    const trueValues = mode === 'ss' && a.isTrue && b.isTrue;
+    if (trueValues) this.warnings.push('only true stress and true strain columns: converted to engineering values (s = σ/exp(ε), e = exp(ε) − 1); valid to maximum force only');
+    return { mode, a, b, fa, fb, trueValues, area, gauge };
+  }
+
+  private geometry(o: RecordOptions): { area: number; gauge: number } {
+    const md = this.layout.metadata;
+    const find = (re: RegExp) => {
+      for (const [k, v] of md) if (re.test(k)) return v;
+      return undefined;
+    };
+    const num = (v: { value: string; unit: string; line: number; key: string } | undefined, table: Readonly<Record<string, number>>) => {
+      if (!v) return undefined;
+      const x = Number(v.value.replace(',', '.'));
+      const u = normUnit(v.unit || 'mm');
+      const f = Object.prototype.hasOwnProperty.call(table, u) ? table[u] : undefined;
+      if (!Number.isFinite(x) || !(x > 0) || f === undefined) this.fail(v.line, 2, v.key, `got ${show(v.value + ' ' + v.unit)}, expected a positive number in ${table === AREA_UNITS ? 'mm² or in²' : 'mm or in'}`);
+      return x * f;
+    };
+    const pos = (name: string, v: number | undefined) => {
+      if (v !== undefined && !(Number.isFinite(v) && v > 0)) this.fail(undefined, undefined, name, `got ${v}, expected a positive number (mm or mm²)`);
+      return v;
+    };
+    let area = pos('area', o.area);
+    const d = pos('diameter', o.diameter), w = pos('width', o.width), t = pos('thickness', o.thickness);
+    if (area === undefined && d !== undefined) area = (Math.PI / 4) * d * d;
+    if (area === undefined && w !== undefined && t !== undefined) area = w * t;
+    if (area === undefined) area = num(find(/^(original )?cross[ -]?section( area)?$|^s0$|^area$|^original area$/), AREA_UNITS);
+    if (area === undefined) { const dd = num(find(/diameter|^d0$/), LENGTH_UNITS); if (dd !== undefined) area = (Math.PI / 4) * dd * dd; }
+    if (area === undefined) {
+      const ww = num(find(/^(specimen )?width$|^b0$/), LENGTH_UNITS), tt = num(find(/^(specimen )?thickness$|^a0$/), LENGTH_UNITS);
+      if (ww !== undefined && tt !== undefined) area = ww * tt;
+    }
+    let gauge = pos('gaugeLength', o.gaugeLength);
+    if (gauge === undefined) gauge = num(find(/gauge length|^l0$|^le$|extensometer length/), LENGTH_UNITS);
+    if (area === undefined || gauge === undefined) {
+      this.fail(this.layout.headerLine, undefined, area === undefined ? 'cross-section' : 'gaugeLength',
+        `a force–extension record needs the cross-section (area, width × thickness, or diameter) and the gauge length; missing ${area === undefined ? 'the cross-section' : 'the gauge length'}: give options (--area, --diameter, --width and --thickness, --gauge-length) or metadata lines such as "Gauge length: 50 mm"`);
+    }
+    return { area, gauge };
+  }
+
+  /** Parses one number cell; errors name the line, the column and what was expected. */
+  private cell(f: string[], c: ColumnInfo, line: number): number {
+    const raw = f[c.index];
+    if (raw === undefined) this.fail(line, c.index + 1, c.name, `the row has ${f.length} fields; expected ${this.width} as in the header (line ${this.layout.headerLine})`);
+    let t = raw.trim();
+    if (this.layout.decimalComma) t = t.replace(',', '.');
+    if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t)) {
+      if (/^[+-]?(nan|inf|infinity)$/i.test(t)) this.fail(line, c.index + 1, c.name, `got ${show(raw)}, expected a finite number`);
+      this.fail(line, c.index + 1, c.name, `got ${show(raw)}, expected a number${this.layout.decimalComma ? ' with a decimal comma' : ''}`);
+    }
+    const v = Number(t);
+    if (!Number.isFinite(v)) this.fail(line, c.index + 1, c.name, `got ${show(raw)}, expected a finite number`);
+    return v;
+  }
+
+  /** Adds one data row (fields as split by the CSV reader) found at 1-based `line`. */
+  push(f: string[], line: number): void {
+    if (f.length === 1 && f[0]!.trim() === '') return;
+    const { a, b } = this.plan;
+    const x = this.cell(f, a, line);
+    const y = this.cell(f, b, line);
+    if (this.n === this.xs.length) {
+      if (this.n >= MAX_ROWS) this.fail(line, 1, '', `more than ${MAX_ROWS} data rows; split the record`);
+      const nx = new Float64Array(this.n * 2); nx.set(this.xs); this.xs = nx;
+      const ny = new Float64Array(this.n * 2); ny.set(this.ys); this.ys = ny;
+    }
+    this.xs[this.n] = x;
+    this.ys[this.n] = y;
+    if (Math.abs(x) > this.maxA) { this.maxA = Math.abs(x); this.maxALine = line; }
+    this.n++;
+    this.lastLine = line;
+  }
+
+  /** The record: converted, checked for swapped columns and too few rows. */
+  finish(name: string): TensileRecord {
+    const L = this.layout;
+    const p = this.plan;
+    if (this.n === 0) this.fail(L.dataLine, 1, '', 'no data rows; expected rows of numbers after the header');
+    if (this.n < 10) this.fail(this.lastLine, 1, '', `${this.n === 1 ? 'a single data row' : `only ${this.n} data rows`}; expected a tensile record of at least 10 rows`);
+    let fa = p.fa;
+    if (Number.isNaN(fa)) {
+      fa = this.maxA > 1 ? 0.01 : 1;
+      this.warnings.push(`no unit for strain column ${show(p.a.name)}; read as ${fa === 1 ? 'a fraction' : 'percent'} because its largest value is ${this.maxA}`);
+    }
+    const n = this.n;
+    const strain = new Float64Array(n);
+    const stress = new Float64Array(n);
+    let maxS = 0;
+    for (let i = 0; i < n; i++) {
+      let e: number, s: number;
+      if (p.mode === 'ss') {
+        e = this.xs[i]! * fa;
+        s = this.ys[i]! * p.fb;
+        if (p.trueValues) { s = s / Math.exp(e); e = Math.expm1(e); }
+      } else {
+        e = (this.xs[i]! * fa) / p.gauge;
+        s = (this.ys[i]! * p.fb) / p.area;
+      }
+      strain[i] = e;
+      stress[i] = s;
+      maxS = Math.max(maxS, Math.abs(s));
+    }
+    const maxE = this.maxA * fa / (p.mode === 'fe' ? p.gauge : 1);
+    if (maxE > MAX_STRAIN) {
+      this.fail(this.maxALine, p.a.index + 1, p.a.name, `reaches ${this.maxA} — not a ${p.mode === 'ss' ? 'strain' : 'extension'} of a tensile test (expected at most ${MAX_STRAIN * 100} %); are the ${p.mode === 'ss' ? 'strain and stress' : 'extension and force'} columns swapped, or is the unit wrong?`);
+    }
+    if (!(maxS > 0)) this.fail(L.dataLine, p.b.index + 1, p.b.name, 'every stress is 0; expected a loaded specimen');
+    return {
+      name, file: this.file, strain, stress, rows: n,
+      basis: p.mode === 'ss' ? 'stress-strain' : 'force-extension',
+      columns: this.columns,
+      geometry: p.mode === 'fe' ? { area: p.area, gaugeLength: p.gauge } : null,
+      metadata: L.metadata,
+      warnings: this.warnings,
+      layout: { delimiter: L.delimiter, decimalComma: L.decimalComma, headerLine: L.headerLine, unitsLine: L.unitsLine, dataLine: L.dataLine },
+    };
+  }
+}

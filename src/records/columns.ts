@@ -1,0 +1,63 @@
+import { normUnit } from './units.js';
+
+/** What a column holds. */
+export type Role = 'strain' | 'stress' | 'force' | 'extension' | 'time';
+export const ROLES: readonly Role[] = ['strain', 'stress', 'force', 'extension', 'time'];
+
+export interface ColumnInfo {
+  /** 0-based index. */
+  index: number;
+  /** The name as written in the header. */
+  name: string;
+  /** Name without its unit decoration, lower case. */
+  base: string;
+  /** Unit from the decoration (`Stress [MPa]`, `stress_MPa`, `Strain (%)`), or '' when none. */
+  unit: string;
+  /** True for true (logarithmic) strain or true stress. */
+  isTrue: boolean;
+}
+
+const UNIT_SUFFIX = /[_\s](mpa|gpa|ksi|psi|kpa|pa|n|kn|lbf|mm|in|pct|percent|s|sec|min|%)$/i;
+
+/** Splits a header name into base name and unit decoration. */
+export function describeColumn(name: string, index: number): ColumnInfo {
+  let base = name.trim();
+  let unit = '';
+  const br = /^(.*?)[\s_]*[[(]([^\])]*)[\])]\s*$/.exec(base);
+  if (br) {
+    base = br[1]!;
+    unit = br[2]!;
+  } else {
+    const inU = /^(.*?)\s+in\s+(\S+)$/i.exec(base);
+    const suf = UNIT_SUFFIX.exec(base);
+    if (inU) { base = inU[1]!; unit = inU[2]!; }
+    else if (suf) { unit = suf[1]!; base = base.slice(0, base.length - suf[0].length); }
+    else {
+      const slash = /^(.*?)\s*\/\s*(\S+)$/.exec(base);
+      if (slash && /^(mpa|gpa|ksi|psi|n|kn|lbf|mm|in|%|s)$/i.test(slash[2]!)) { base = slash[1]!; unit = slash[2]!; }
+    }
+  }
+  const b = base.toLowerCase().replace(/[_\-.]+/g, ' ').replace(/\s+/g, ' ').trim();
+  return { index, name, base: b, unit: normUnit(unit) === 'pct' ? '%' : unit.trim(), isTrue: /\btrue\b|\blog(arithmic)?\b/.test(b) };
+}
+
+/** Score of a column for a role (0 = not this role). Higher wins; engineering values beat true ones. */
+export function roleScore(c: ColumnInfo, role: Role, unitHint: string): number {
+  const b = c.base;
+  const lengthUnit = /^(mm|in|inch|m|cm|µm|um)$/i.test(normUnit(unitHint));
+  const eng = c.isTrue ? 0 : 1;
+  switch (role) {
+    case 'stress': return /\bstress\b|^sigma$/.test(b) ? 10 + eng * 5 + (/^(eng(ineering)? )?stress$/.test(b) ? 2 : 0) : 0;
+    case 'strain':
+      if (/\bstrain\b|^epsilon$/.test(b)) return 10 + eng * 5 + (/^(eng(ineering)? )?strain$/.test(b) ? 2 : 0) - (/rate/.test(b) ? 20 : 0);
+      if (/^elongation$|^elong$/.test(b) && !lengthUnit) return 8;
+      return 0;
+    case 'force': return /\bforce\b|\bload\b/.test(b) ? 10 + (/^(force|load)$/.test(b) ? 2 : 0) : 0;
+    case 'extension': {
+      if (!/\bextension\b|\bdisplacement\b|\belongation\b|\bextensometer\b|\bdeformation\b/.test(b)) return 0;
+      if (/elongation/.test(b) && !lengthUnit && unitHint !== '') return 0;
+      return 10 - (/machine|crosshead|cross head|stroke|position|actuator|piston/.test(b) ? 6 : 0) + (/^(extension|displacement)$/.test(b) ? 2 : 0);
+    }
+    case 'time': return /^time\b|\btime$/.test(b) ? 10 : 0;
+  }
+}

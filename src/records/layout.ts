@@ -1,0 +1,136 @@
+import { recordError } from './errors.js';
+
+export type Delimiter = ',' | ';' | '\t';
+export const DELIMITERS: readonly Delimiter[] = ['\t', ';', ','];
+
+/** The shape of a record file found from its first lines. */
+export interface Layout {
+  delimiter: Delimiter;
+  decimalComma: boolean;
+  /** 1-based line of the header, of the units row (or null), and of the first data row. */
+  headerLine: number;
+  unitsLine: number | null;
+  dataLine: number;
+  header: string[];
+  units: string[] | null;
+  /** Metadata key/value lines before the header (keys lower-cased, trailing ':' removed). */
+  metadata: Map<string, { key: string; value: string; unit: string; line: number }>;
+}
+
+/** Lines examined to find the header: metadata blocks longer than this are not supported. */
+export const MAX_HEAD_LINES = 400;
+
+/** Splits one line on `d`, honouring double quotes (RFC 4180 quoting). */
+export function splitLine(line: string, d: string): string[] {
+  const out: string[] = [];
+  let cur = '';
+  let q = false;
+  for (let i = 0; i < line.length; i++) {
+    const ch = line[i]!;
+    if (q) {
+      if (ch === '"') {
+        if (line[i + 1] === '"') { cur += '"'; i++; } else q = false;
+      } else cur += ch;
+    } else if (ch === '"' && cur.trim() === '') { q = true; cur = ''; }
+    else if (ch === d) { out.push(cur.trim()); cur = ''; }
+    else cur += ch;
+  }
+  out.push(cur.trim());
+  return out;
+}
+
+const NUM_DOT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const NUM_COMMA = /^[+-]?(\d+,?\d*|,\d+)([eE][+-]?\d+)?$/;
+const NONFINITE = /^[+-]?(nan|inf|infinity|-?1\.#ind|1\.#inf)$/i;
+
+/** True for a number token (or a non-finite token such as `nan`, which the reader rejects later with its line). */
+export function isNumberToken(t: string, decimalComma: boolean): boolean {
+  return (decimalComma ? NUM_COMMA : NUM_DOT).test(t) || NONFINITE.test(t);
+}
+
+function numericRow(f: string[], dc: boolean): boolean {
+  let nums = 0;
+  for (const t of f) {
+    if (t === '') continue;
+    if (!isNumberToken(t, dc)) return false;
+    nums++;
+  }
+  return nums >= 2;
+}
+
+/**
+ * Finds delimiter, decimal mark, header, optional units row, data start and metadata from the first
+ * lines of a record. The header is the first line of ≥ 2 fields, not all numbers, followed (after an
+ * optional units row of the same width) by a row of numbers. Tab, then semicolon, then comma are
+ * tried; decimal comma is recognised with tab or semicolon.
+ * @throws PlanError naming the file and line (header only, no header, one column).
+ */
+export function detectLayout(lines: readonly string[], file: string, opts: { delimiter?: Delimiter | undefined; decimal?: '.' | ',' | undefined } = {}): Layout {
+  const head = lines.slice(0, MAX_HEAD_LINES);
+  const nonEmpty = head.map((l, i) => ({ l, i })).filter((x) => x.l.trim() !== '');
+  if (nonEmpty.length === 0) throw recordError(file, 1, 1, '', 'empty file; expected a header line of column names and rows of numbers below it');
+  const cands = opts.delimiter ? [opts.delimiter] : DELIMITERS;
+  for (const d of cands) {
+    for (let k = 0; k < nonEmpty.length; k++) {
+      const h = splitLine(nonEmpty[k]!.l, d);
+      if (h.length < 2 || h.every((t) => t === '' || isNumberToken(t, d !== ',')) ) continue;
+      const next = nonEmpty[k + 1];
+      if (!next) continue;
+      const tryDc = (dc: boolean) => {
+        const f1 = splitLine(next.l, d);
+        if (f1.length === h.length && numericRow(f1, dc)) return { units: null as string[] | null, data: next };
+        const after = nonEmpty[k + 2];
+        if (f1.length <= h.length && after) {
+          const f2 = splitLine(after.l, d);
+          if (f2.length === h.length && numericRow(f2, dc) && !numericRow(f1, dc)) return { units: f1, data: after };
+        }
+        return null;
+      };
+      const decimalOrder: boolean[] = opts.decimal ? [opts.decimal === ','] : d === ',' ? [false] : [false, true];
+      for (const dc of decimalOrder) {
+        const r = tryDc(dc);
+        if (!r) continue;
+        // Prefer decimal comma when the data use it and the delimiter allows it.
+        let decimalComma = dc;
+        if (!opts.decimal && d !== ',' && !dc) {
+          const f = splitLine(r.data.l, d);
+          if (f.some((t) => /^[+-]?\d*,\d+([eE][+-]?\d+)?$/.test(t))) decimalComma = true;
+        }
+        const metadata = new Map<string, { key: string; value: string; unit: string; line: number }>();
+        for (let m = 0; m < k; m++) {
+          const { l, i } = nonEmpty[m]!;
+          const f = splitLine(l, l.includes('\t') ? '\t' : d);
+          const key = (f[0] ?? '').replace(/:\s*$/, '').trim();
+          if (key && f.length >= 2) metadata.set(key.toLowerCase(), { key, value: f[1] ?? '', unit: f[2] ?? '', line: i + 1 });
+          else if (key.includes(':')) {
+            const [a, ...b] = key.split(':');
+            const rest = b.join(':').trim().split(/\s+/);
+            metadata.set(a!.trim().toLowerCase(), { key: a!.trim(), value: rest[0] ?? '', unit: rest.slice(1).join(' '), line: i + 1 });
+          }
+        }
+        return {
+          delimiter: d, decimalComma,
+          headerLine: nonEmpty[k]!.i + 1,
+          unitsLine: r.units ? nonEmpty[k + 1]!.i + 1 : null,
+          dataLine: r.data.i + 1,
+          header: h,
+          units: r.units ? h.map((_, j) => r.units![j] ?? '') : null,
+          metadata,
+        };
+      }
+    }
+  }
+  // Diagnose why no layout was found.
+  const first = nonEmpty[0]!;
+  const numericLines = nonEmpty.filter((x) => DELIMITERS.some((d) => numericRow(splitLine(x.l, d), d !== ',')));
+  const textLines = nonEmpty.filter((x) => !numericLines.includes(x));
+  if (numericLines.length === 0) {
+    const last = textLines[textLines.length - 1]!;
+    const widest = Math.max(...DELIMITERS.map((d) => splitLine(last.l, d).length));
+    if (widest < 2) throw recordError(file, last.i + 1, 1, '', `only one column found (${JSON.stringify(last.l.slice(0, 40))}); expected columns separated by comma, semicolon or tab`);
+    throw recordError(file, last.i + 1, 1, '', `header only: no rows of numbers after the header at line ${last.i + 1}; expected data rows such as 0.001,205.3`);
+  }
+  if (numericLines[0] === first) throw recordError(file, first.i + 1, 1, '', 'no header line: the file starts with numbers; expected a line of column names (e.g. strain,stress) above the data');
+  const firstNum = numericLines[0]!;
+  throw recordError(file, firstNum.i + 1, 1, '', 'the header and the first data row do not have the same number of columns (or a units row is malformed); expected a header line, an optional units row, then rows of numbers, all with the same number of fields');
+}

@@ -1,0 +1,63 @@
+import { createReadStream, openSync, readSync, closeSync } from 'node:fs';
+import { parse } from 'csv-parse';
+import { RecordBuilder, type RecordOptions, type TensileRecord } from './builder.js';
+import { recordError } from './errors.js';
+import { detectLayout } from './layout.js';
+import { checkText, csvProblem, headLines } from './parse.js';
+
+/** Bytes read to find the layout (metadata, header, units row). */
+export const HEAD_BYTES = 256 * 1024;
+
+/**
+ * Reads a tensile record file as a stream, in bounded memory (Node only; the browser uses
+ * {@link parseRecordText}). The first HEAD_BYTES give the layout; the rest streams through
+ * csv-parse, each row converted at once into typed arrays (16 bytes a row), so a file of millions
+ * of rows needs little more than its numbers. Errors as {@link parseRecordText}.
+ * @throws PlanError naming file, line, column and what was expected (file not found included).
+ */
+export async function readRecordFile(path: string, opts: RecordOptions = {}): Promise<TensileRecord> {
+  const file = opts.file ?? path;
+  let fd: number;
+  try {
+    fd = openSync(path, 'r');
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    throw recordError(file, undefined, undefined, '', code === 'ENOENT' ? 'file not found' : code === 'EISDIR' ? 'is a folder, not a record file' : `cannot read (${code})`);
+  }
+  const buf = Buffer.alloc(HEAD_BYTES);
+  let got: number;
+  try {
+    got = readSync(fd, buf, 0, HEAD_BYTES, 0);
+  } finally {
+    closeSync(fd);
+  }
+  let head = buf.subarray(0, got);
+  if (head.includes(0)) {
+    const at = head.indexOf(0);
+    const pre = head.subarray(0, at).toString('latin1');
+    throw recordError(file, pre.split('\n').length, at - pre.lastIndexOf('\n'), '', 'binary content (NUL byte); expected a text export (CSV or tab-separated) in UTF-8');
+  }
+  let text = new TextDecoder('utf-8', { fatal: false }).decode(head);
+  if (got === HEAD_BYTES) text = text.slice(0, Math.max(text.lastIndexOf('\n'), 0)); // whole lines only
+  const bom = text.charCodeAt(0) === 0xfeff;
+  if (bom) text = text.slice(1);
+  if (text.trim() === '' && got < HEAD_BYTES) throw recordError(file, 1, 1, '', 'empty file; expected a header line of column names and rows of numbers below it');
+  checkText(text, file);
+  const layout = detectLayout(headLines(text), file, opts);
+  const b = new RecordBuilder(layout, { ...opts, file });
+  const parser = createReadStream(path).pipe(parse({
+    bom: true, delimiter: layout.delimiter, from_line: layout.dataLine, relax_column_count: true, skip_empty_lines: true, trim: true, info: true,
+  }));
+  const fatal = new TextDecoder('utf-8', { fatal: true });
+  try {
+    for await (const rec of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
+      for (const cell of rec.record) if (/[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFD]/.test(cell)) throw recordError(file, rec.info.lines, undefined, '', 'binary content; expected a text export (CSV or tab-separated) in UTF-8');
+      b.push(rec.record, rec.info.lines);
+    }
+  } catch (e) {
+    parser.destroy();
+    throw csvProblem(e, file);
+  }
+  void fatal;
+  return b.finish(path.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, ''));
+}

@@ -1,0 +1,48 @@
+/** Units a record may come in, and their factors to the core's units (MPa, N, mm, strain fraction). */
+export const STRESS_UNITS: Readonly<Record<string, number>> = {
+  mpa: 1, 'n/mm²': 1, 'n/mm2': 1, 'n/mm^2': 1, 'n/mm**2': 1, gpa: 1000, kpa: 1e-3, pa: 1e-6,
+  // 1 ksi = 6.894757293168361 MPa, 1 psi = 0.006894757293168361 MPa (NIST SP 811, Appendix B.8).
+  ksi: 6.894757293168361, psi: 0.006894757293168361,
+};
+export const FORCE_UNITS: Readonly<Record<string, number>> = {
+  // 1 lbf = 4.4482216152605 N (NIST SP 811, Appendix B.8).
+  n: 1, kn: 1000, lbf: 4.4482216152605, kip: 4448.2216152605, kgf: 9.80665,
+};
+export const LENGTH_UNITS: Readonly<Record<string, number>> = {
+  mm: 1, in: 25.4, inch: 25.4, m: 1000, cm: 10, µm: 1e-3, um: 1e-3,
+};
+export const AREA_UNITS: Readonly<Record<string, number>> = {
+  'mm²': 1, mm2: 1, 'mm^2': 1, 'in²': 645.16, in2: 645.16, 'in^2': 645.16,
+};
+/** Strain: fraction (empty, '-', '1', 'mm/mm', 'in/in') or percent. */
+export const STRAIN_UNITS: Readonly<Record<string, number>> = {
+  '': 1, '-': 1, '1': 1, 'mm/mm': 1, 'in/in': 1, 'm/m': 1, fraction: 1, '%': 0.01, percent: 0.01, pct: 0.01,
+};
+
+export type Quantity = 'stress' | 'force' | 'length' | 'strain' | 'time';
+
+const TABLES: Record<Exclude<Quantity, 'time'>, Readonly<Record<string, number>>> = {
+  stress: STRESS_UNITS, force: FORCE_UNITS, length: LENGTH_UNITS, strain: STRAIN_UNITS,
+};
+
+/** Lower-cased unit without spaces; 'N/mm^2' and 'N/mm²' alike. */
+export function normUnit(u: string): string {
+  return u.trim().toLowerCase().replace(/\s+/g, '').replace(/^\[|\]$/g, '').replace(/^\(|\)$/g, '');
+}
+
+/** The factor of `unit` for `q`, or undefined when the unit is not known for that quantity. */
+export function unitFactor(q: Exclude<Quantity, 'time'>, unit: string): number | undefined {
+  const t = TABLES[q];
+  const k = normUnit(unit);
+  return Object.prototype.hasOwnProperty.call(t, k) ? t[k] : undefined;
+}
+
+/** Allowed unit names of a quantity, for messages. */
+export function allowedUnits(q: Exclude<Quantity, 'time'>): string {
+  switch (q) {
+    case 'stress': return 'MPa, N/mm², GPa, ksi, psi';
+    case 'force': return 'N, kN, lbf';
+    case 'length': return 'mm, in';
+    case 'strain': return 'a fraction (-, mm/mm) or %';
+  }
+}

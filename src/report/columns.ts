@@ -1,0 +1,51 @@
+import type { ReportStep, ReportV1 } from './build.js';
+import { extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
+
+const fx = (x: number, d: number) => x.toFixed(d);
+
+/** One column of the human-readable step tables (Markdown, HTML), rounded as a reader needs it. */
+export interface StepColumn {
+  header: string;
+  numeric: boolean;
+  cell(s: ReportStep): string;
+}
+
+/**
+ * The step columns of the human-readable reports, in the plan's units: strains to 4 decimals,
+ * stresses to 0.1, percentages to 0.1, elastic recovery in percent to 3 decimals; then every extra
+ * numeric step field (4 significant figures), then the warning codes.
+ */
+export function stepColumns(r: ReportV1): StepColumn[] {
+  const S = r.units.stress;
+  const cols: StepColumn[] = [
+    { header: 'step', numeric: true, cell: (s) => String(s.index) },
+    { header: 'kind', numeric: false, cell: (s) => (s.label ? `${s.kind} (${s.label})` : s.kind) },
+    { header: `size ${r.units.length}`, numeric: false, cell: (s) => sizeText(s.size) },
+    { header: 'Δε', numeric: true, cell: (s) => fx(s.strainIncrement, 4) },
+    { header: 'ε total', numeric: true, cell: (s) => fx(s.accumulatedStrain, 4) },
+    { header: '%CW', numeric: true, cell: (s) => fx(s.coldWorkPct, 1) },
+    { header: `Rp0.2 ${S}`, numeric: true, cell: (s) => fx(s.reloadYield, 1) },
+    { header: `Rm ${S}`, numeric: true, cell: (s) => fx(s.tensileStrength, 1) },
+    { header: 'Rp/Rm', numeric: true, cell: (s) => fx(s.yieldRatio, 3) },
+    { header: 'Ag left %', numeric: true, cell: (s) => fx(s.remainingUniformElongationPct, 1) },
+    { header: 'recovery %', numeric: true, cell: (s) => fx(s.elasticRecoveryStrain * 100, 3) },
+  ];
+  for (const key of extraStepFields(r.steps)) cols.push({ header: key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
+  cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
+  return cols;
+}
+
+/** The cold-work window in one sentence. */
+export function windowText(r: ReportV1): string {
+  const w = r.coldWorkWindow;
+  if (w.empty) return `empty — ${w.note}`;
+  const red = w.reductionBasis && w.reductionPctFrom !== null
+    ? `; ${w.reductionBasis} reduction ${w.reductionPctFrom.toFixed(1)} % to ${w.reductionPctTo === null ? 'no limit' : w.reductionPctTo.toFixed(1) + ' %'}`
+    : '';
+  return w.note + red;
+}
+
+/** The unit of a target's limit, predicted value and margin. */
+export function targetUnit(r: ReportV1, name: string): string {
+  return name === 'minRemainingElongationPct' ? '%' : r.units.stress;
+}

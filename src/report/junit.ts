@@ -1,0 +1,58 @@
+import type { ReportV1 } from './build.js';
+import { targetUnit } from './columns.js';
+
+/** Escapes text for XML 1.0 content and attributes; drops characters XML 1.0 forbids. */
+export function xmlText(s: string): string {
+  return s
+    // eslint-disable-next-line no-control-regex
+    .replace(/[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g, '')
+    .replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&apos;');
+}
+
+/** What a plan contributes to a JUnit document: one suite, one test case per target. */
+export interface JunitSuite {
+  name: string;
+  /** The report, or the problems that made the plan invalid (one error case). */
+  report?: ReportV1;
+  invalid?: string;
+}
+
+function suiteXml(s: JunitSuite): string {
+  const name = xmlText(s.name);
+  if (!s.report) {
+    return `  <testsuite name="${name}" tests="1" failures="0" errors="1" skipped="0">\n`
+      + `    <testcase classname="${name}" name="plan is valid input">\n`
+      + `      <error message="invalid input" type="invalid">${xmlText(s.invalid ?? 'invalid input')}</error>\n    </testcase>\n  </testsuite>\n`;
+  }
+  const r = s.report;
+  const failures = r.targets.filter((t) => !t.met).length;
+  let x = `  <testsuite name="${name}" tests="${r.targets.length}" failures="${failures}" errors="0" skipped="0">\n`;
+  x += '    <properties>\n';
+  for (const [k, v] of [['plan.file', r.plan.file], ['plan.sha256', r.plan.hash], ['tool', r.plan.tool], ['material', r.material.name], ['law.source', r.material.source]] as const) {
+    x += `      <property name="${k}" value="${xmlText(v)}"/>\n`;
+  }
+  x += '    </properties>\n';
+  for (const t of r.targets) {
+    const u = targetUnit(r, t.name);
+    const text = `${t.name}: predicted ${t.predicted.toFixed(2)} ${u}, limit ${t.limit.toFixed(2)} ${u}, margin ${t.margin.toFixed(2)} ${u}`;
+    x += `    <testcase classname="${name}" name="${xmlText(t.name)}">\n`;
+    if (!t.met) x += `      <failure message="${xmlText(text)}" type="targetMissed">${xmlText(text)}</failure>\n`;
+    else x += `      <system-out>${xmlText(text)}</system-out>\n`;
+    x += '    </testcase>\n';
+  }
+  return x + '  </testsuite>\n';
+}
+
+/**
+ * JUnit XML (the de-facto schema read by CI dashboards): a `<testsuites>` element with one
+ * `<testsuite>` per plan and one `<testcase>` per target; a missed target is a `<failure>` whose
+ * message gives predicted value, limit and margin (2 decimals, plan units); an invalid plan is one
+ * `<error>` case. Plan hash, tool and law source are suite properties.
+ */
+export function junitReport(suites: readonly JunitSuite[]): string {
+  const tests = suites.reduce((n, s) => n + (s.report ? s.report.targets.length : 1), 0);
+  const failures = suites.reduce((n, s) => n + (s.report ? s.report.targets.filter((t) => !t.met).length : 0), 0);
+  const errors = suites.filter((s) => !s.report).length;
+  return `<?xml version="1.0" encoding="UTF-8"?>\n<testsuites name="strainledger" tests="${tests}" failures="${failures}" errors="${errors}">\n`
+    + suites.map(suiteXml).join('') + '</testsuites>\n';
+}

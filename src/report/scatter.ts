@@ -1,0 +1,81 @@
+import { LAW_PARAMETERS } from '../core/flow/params.js';
+import type { ScatterProblem } from '../core/scatter/problem.js';
+import type { Distribution, ScatterSummary } from '../core/scatter/summarize.js';
+import type { Units } from '../plan/units.js';
+
+/** Cautions that belong to every scatter section (a probability is only as good as the spreads fed in). */
+export const SCATTER_CAUTIONS: readonly string[] = [
+  'The probability and the tolerance bound cover only the spreads and correlations given in the plan, taken as known; spreads estimated from a few specimens are themselves uncertain, and test error, model error and process variation add to the scatter.',
+  'A lower bound is not a guaranteed minimum: release parts against tests of the real material and the applicable codes and standards.',
+];
+
+type Dist = Distribution;
+
+/** The report's `scatter` section (report version 1; present only when the plan has `scatter`): stresses in the plan's stress unit. */
+export interface ReportScatter {
+  samples: number;
+  seed: number;
+  rejectedDraws: number;
+  inputs: Array<{ name: string; mean: number; sd: number; cv: number; unit: string }>;
+  correlation: Record<string, number>;
+  probabilityAllTargetsMet: number;
+  probabilityStdError: number;
+  targets: Array<{ name: string; limit: number; probabilityMet: number }>;
+  finalReloadYield: Dist;
+  tensileStrength: Dist;
+  remainingElongationPct: Dist;
+  toleranceBound: {
+    value: number; coverage: number; confidence: number; method: string;
+    normalK: number; normalValue: number; distributionFreeRank: number | null; distributionFreeValue: number | null; note: string;
+  };
+  sensitivity: { output: string; method: string; linearR2: number; inputs: Array<{ input: string; src: number; correlation: number }> };
+  deltaMethod: { finalReloadYield: { mean: number; sd: number }; tensileStrength: { mean: number; sd: number }; remainingElongationPct: { mean: number; sd: number } };
+  cautions: string[];
+}
+
+/**
+ * Builds the report's scatter section from a summary, converting stresses (MPa) and start sizes
+ * (mm) back to the plan's units. Deterministic: the same summary gives the same section.
+ */
+export function scatterReport(problem: ScatterProblem, s: ScatterSummary, u: Units): ReportScatter {
+  const S = u.fromMPa;
+  const dist = (d: Dist): Dist => ({ mean: S(d.mean), sd: S(d.sd), min: S(d.min), p05: S(d.p05), p50: S(d.p50), p95: S(d.p95), max: S(d.max) });
+  const law = problem.material.flowCurve.law;
+  const kindOf = (name: string): 'stress' | 'length' | 'none' => name.startsWith('start.')
+    ? 'length'
+    : LAW_PARAMETERS[law].find((p) => p.name === name)?.kind === 'stress' ? 'stress' : 'none';
+  const conv = (name: string, x: number) => { const k = kindOf(name); return k === 'stress' ? S(x) : k === 'length' ? u.fromMm(x) : x; };
+  const correlation: Record<string, number> = {};
+  problem.inputs.forEach((a, i) => problem.inputs.forEach((b, j) => {
+    if (j > i && problem.correlation[i]![j] !== 0) correlation[`${a.name},${b.name}`] = problem.correlation[i]![j]!;
+  }));
+  const stressTarget = (n: string) => n !== 'minRemainingElongationPct';
+  const tb = s.toleranceBound;
+  return {
+    samples: s.samples,
+    seed: s.seed,
+    rejectedDraws: s.rejected,
+    inputs: s.inputs.map((i) => ({ name: i.name, mean: conv(i.name, i.mean), sd: conv(i.name, i.sd), cv: i.cv,
+      unit: kindOf(i.name) === 'stress' ? u.stress : kindOf(i.name) === 'length' ? u.length : '1' })),
+    correlation,
+    probabilityAllTargetsMet: s.probabilityAllTargetsMet,
+    probabilityStdError: s.probabilityStdError,
+    targets: s.targets.map((t) => ({ name: t.name, limit: stressTarget(t.name) ? S(t.limit) : t.limit, probabilityMet: t.probabilityMet })),
+    finalReloadYield: dist(s.finalReloadYield),
+    tensileStrength: dist(s.tensileStrength),
+    remainingElongationPct: s.remainingElongationPct,
+    toleranceBound: {
+      value: S(tb.value), coverage: tb.coverage, confidence: tb.confidence,
+      method: tb.method === 'distribution-free' ? 'distribution-free order statistic (Wilks 1941)' : 'normal tolerance factor, noncentral t (NIST/SEMATECH e-Handbook §7.2.6.3)',
+      normalK: tb.normalK, normalValue: S(tb.normalValue), distributionFreeRank: tb.distributionFreeRank,
+      distributionFreeValue: tb.distributionFreeValue === null ? null : S(tb.distributionFreeValue), note: tb.note,
+    },
+    sensitivity: { output: s.sensitivity.output, method: s.sensitivity.method, linearR2: s.sensitivity.linearR2, inputs: s.sensitivity.inputs.map((i) => ({ ...i })) },
+    deltaMethod: {
+      finalReloadYield: { mean: S(s.deltaMethod.finalReloadYield.mean), sd: S(s.deltaMethod.finalReloadYield.sd) },
+      tensileStrength: { mean: S(s.deltaMethod.tensileStrength.mean), sd: S(s.deltaMethod.tensileStrength.sd) },
+      remainingElongationPct: { ...s.deltaMethod.remainingElongationPct },
+    },
+    cautions: [...SCATTER_CAUTIONS],
+  };
+}

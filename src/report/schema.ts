@@ -1,0 +1,89 @@
+import { z } from 'zod';
+
+/**
+ * The JSON report, version 1, as a zod schema: the published contract (`schema/report-v1.json` is
+ * generated from it by `strainledger schema --report`, and a test checks the two agree and that
+ * real reports validate). Fields are additive: a later optional field (an extra numeric step value,
+ * a new top-level section) does not break a v1 reader, so objects allow extra properties; every
+ * field listed here is required exactly as shown. Numbers are finite (no NaN or Infinity).
+ */
+const num = (what: string) => z.number().describe(what);
+const warning = z.strictObject({ code: z.string().min(1), message: z.string() });
+const size = z.strictObject({
+  thickness: z.number().positive().optional(),
+  width: z.number().positive().optional(),
+  diameter: z.number().positive().optional(),
+  height: z.number().positive().optional(),
+}).describe('Size after the step, in the report length unit');
+
+export const ReportStepSchema = z.looseObject({
+  index: z.number().int().positive().describe('1-based step number'),
+  kind: z.string().min(1),
+  label: z.string().optional(),
+  size,
+  strainIncrement: num('von Mises equivalent plastic strain added by the step'),
+  accumulatedStrain: num('accumulated equivalent plastic strain after the step'),
+  coldWorkPct: num('%CW since the last anneal (geometric)'),
+  flowStress: num('flow stress at the accumulated strain (stress unit)'),
+  reloadYield: num('reload yield Rp0.2 (stress unit)'),
+  tensileStrength: num('tensile strength on the new section (stress unit)'),
+  yieldRatio: num('reload yield / tensile strength'),
+  remainingUniformStrain: num('true strain left before diffuse necking'),
+  remainingUniformElongationPct: num('remaining uniform elongation, %'),
+  elasticRecoveryStrain: num('elastic strain recovered on unloading'),
+  recoveredElasticEnergy: num('elastic energy recovered per volume (stress unit)'),
+  meanFlowStress: num('mean flow stress over the step (stress unit)'),
+  plasticWork: num('plastic work per volume of the step (stress unit)'),
+  warnings: z.array(warning),
+});
+
+const targetName = z.enum(['minYield', 'maxYield', 'minTensile', 'minRemainingElongationPct', 'maxSpringbackDeg']);
+
+export const ReportSchema = z.looseObject({
+  reportVersion: z.literal(1),
+  plan: z.looseObject({
+    name: z.string(),
+    file: z.string(),
+    hash: z.string().regex(/^[0-9a-f]{64}$/).describe('SHA-256 of the plan file (and of the overrides, when given), hex'),
+    tool: z.string(),
+    overrides: z.array(z.string()).optional().describe('--set overrides applied for this run, PATH=VALUE'),
+  }),
+  units: z.strictObject({
+    system: z.enum(['SI', 'US']),
+    stress: z.enum(['MPa', 'ksi']),
+    length: z.enum(['mm', 'in']),
+    strain: z.string(),
+    work: z.string(),
+  }),
+  material: z.looseObject({
+    name: z.string(),
+    elasticModulus: z.number().positive(),
+    flowCurve: z.looseObject({ law: z.string() }),
+    source: z.string(),
+    uniformStrain: z.number(),
+    initial: z.strictObject({ reloadYield: z.number(), tensileStrength: z.number(), uniformElongationPct: z.number() }),
+  }),
+  steps: z.array(ReportStepSchema),
+  targets: z.array(z.strictObject({ name: targetName, limit: z.number(), predicted: z.number(), margin: z.number(), met: z.boolean() })),
+  allTargetsMet: z.boolean(),
+  coldWorkWindow: z.strictObject({
+    empty: z.boolean(),
+    strainFrom: z.number().nullable(),
+    strainTo: z.number().nullable(),
+    reductionBasis: z.enum(['thickness', 'area', 'height']).nullable(),
+    reductionPctFrom: z.number().nullable(),
+    reductionPctTo: z.number().nullable(),
+    limitedBy: z.strictObject({ from: targetName.nullable(), to: targetName.nullable() }),
+    note: z.string(),
+  }),
+  cautions: z.array(z.string()).min(1),
+});
+
+/** The JSON Schema (draft 2020-12) of report v1, as checked in at `schema/report-v1.json`. */
+export function reportJsonSchema(): Record<string, unknown> {
+  return {
+    ...(z.toJSONSchema(ReportSchema, { io: 'output', target: 'draft-2020-12' }) as object),
+    $id: 'https://strainledger.invalid/schema/report-v1.json',
+    title: 'strainledger report, version 1',
+  };
+}

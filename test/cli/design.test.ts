@@ -1,0 +1,84 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { expectRelClose } from '../helpers.js';
+
+// Runs the shipped runner (bin/ → dist/) as a user would; test/globalSetup.ts builds dist/ first.
+const ROOT = join(import.meta.dirname, '..', '..');
+const BIN = join(ROOT, 'bin', 'strainledger.js');
+const cli = (...args: string[]) => spawnSync(process.execPath, [BIN, ...args], { cwd: ROOT, encoding: 'utf8' });
+const EXAMPLE = 'examples/design-fencing-wire.yaml';
+
+describe('strainledger design SPEC', () => {
+  it('prints ranked routes with anneal explanations and the cautions, exit 0', () => {
+    const r = cli('design', EXAMPLE);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toBe('');
+    expect(r.stdout).toMatch(/route 1: 1 anneal\(s\), 5 passes/);
+    expect(r.stdout).toMatch(/last anneal at [\d.]+ mm: the remaining reduction to 2\.5 mm/);
+    expect(r.stdout).toMatch(/licensed engineering judgment/);
+  });
+  it('--format json gives routes whose plans the runner runs with every target met (exit 0)', () => {
+    const r = cli('design', EXAMPLE, '--format', 'json');
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.feasible).toBe(true);
+    expect(out.routes.length).toBeGreaterThan(1);
+    // Total strain 2·ln(5.5/2.5) (drawing, DESIGN.md §4).
+    expectRelClose(out.totalStrain, 2 * Math.log(5.5 / 2.5), 1e-12, 'total strain');
+    // Ductility 1.6 with a 20 % margin (the example spec).
+    expectRelClose(out.maxStrainBeforeAnneal, 1.28, 1e-12, 'strain between anneals');
+    const dir = mkdtempSync(join(tmpdir(), 'sl-design-'));
+    for (const route of out.routes) {
+      const f = join(dir, `r${route.rank}.json`);
+      writeFileSync(f, JSON.stringify(route.plan));
+      const run = cli('run', f, '--format', 'json');
+      expect(run.status, run.stderr).toBe(0);
+      const rep = JSON.parse(run.stdout);
+      expect(rep.allTargetsMet).toBe(true);
+      const last = rep.steps[rep.steps.length - 1];
+      expect(last.size.diameter).toBe(2.5);
+      expectRelClose(last.reloadYield, route.final.reloadYield, 1e-9, 'same yield as the design said');
+      for (const s of rep.steps.filter((x: { kind: string }) => x.kind === 'draw')) {
+        expect(s.drawabilityRatio).toBeLessThanOrEqual(0.8);
+        expect(s.drawingForce).toBeLessThanOrEqual(12000);
+        expect(s.temperatureRise).toBeLessThanOrEqual(120);
+        expect(s.maxAreaReductionPct).toBeGreaterThan(30);
+      }
+    }
+  });
+  it('--out DIR writes each route as a plan file', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sl-design-out-'));
+    const r = cli('design', EXAMPLE, '--out', dir);
+    expect(r.status).toBe(0);
+    const files = readdirSync(dir).sort();
+    expect(files).toContain('design-fencing-wire-route-1.json');
+    const plan = JSON.parse(readFileSync(join(dir, 'design-fencing-wire-route-1.json'), 'utf8'));
+    expect(plan.steps.filter((s: { kind: string }) => s.kind === 'anneal')).toHaveLength(1);
+    expect(cli('run', join(dir, 'design-fencing-wire-route-1.json')).status).toBe(0);
+  });
+  it('an infeasible specification exits 1 and names the binding limit', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sl-design-inf-'));
+    const f = join(dir, 'tight.yaml');
+    writeFileSync(f, readFileSync(join(ROOT, EXAMPLE), 'utf8').replace('final: { diameter: 2.5 }', 'final: { diameter: 5.2 }'));
+    const r = cli('design', f);
+    expect(r.status).toBe(1);
+    expect(r.stdout).toMatch(/NO ROUTE: the binding limit is total reduction \(against minTensile\)/);
+    expect(r.stdout).toMatch(/gives only/);
+  });
+  it('invalid specifications exit 2 naming file, line, column, field, value and range', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sl-design-bad-'));
+    const f = join(dir, 'bad.yaml');
+    writeFileSync(f, readFileSync(join(ROOT, EXAMPLE), 'utf8').replace('maxPassReductionPct: 30', 'maxPassReductionPct: 130'));
+    const r = cli('design', f);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/bad\.yaml:\d+:\d+: limits\.maxPassReductionPct: got 130, allowed a number < 100/);
+    const g = join(dir, 'grow.yaml');
+    writeFileSync(g, readFileSync(join(ROOT, EXAMPLE), 'utf8').replace('final: { diameter: 2.5 }', 'final: { diameter: 6 }'));
+    const r2 = cli('design', g);
+    expect(r2.status).toBe(2);
+    expect(r2.stderr).toMatch(/grow\.yaml:\d+:\d+: final\.diameter: got 6, allowed a size below the starting diameter 5\.5/);
+  });
+});

@@ -1,0 +1,131 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { parse as parseCsv } from 'csv-parse/sync';
+import { DOMParser } from 'linkedom';
+import { afterAll, describe, expect, it } from 'vitest';
+import { expectRelClose } from '../helpers.js';
+
+// Golden tests of every report format on the invented demo plans in examples/, run through the
+// shipped runner. Goldens live in test/cli/golden/ (review a change there like code). Beside the
+// goldens, each format is read back with a general-purpose parser (csv-parse, linkedom's XML
+// parser) and checked against the JSON report and a handbook formula, so a golden cannot simply
+// freeze a wrong number.
+const ROOT = join(import.meta.dirname, '..', '..');
+const BIN = join(ROOT, 'bin', 'strainledger.js');
+const run = (...args: string[]) => spawnSync(process.execPath, [BIN, ...args], { cwd: ROOT, encoding: 'utf8', env: { ...process.env, CI: 'true', NO_COLOR: '1' } });
+const DEMOS = { 'contact-spring-strip': 'examples/contact-spring-strip.json', 'fencing-wire-us': 'examples/fencing-wire-us.json', 'bracket-stretch-specimen': 'examples/bracket-stretch-specimen.yaml' } as const;
+const EXT = { table: 'txt', json: 'json', csv: 'csv', md: 'md', html: 'html', junit: 'junit.xml' } as const;
+const TMP = mkdtempSync(join(tmpdir(), 'sl-formats-'));
+afterAll(() => rmSync(TMP, { recursive: true, force: true }));
+
+const json = (file: string) => JSON.parse(run('run', file, '--format', 'json').stdout);
+
+describe('strainledger run PLAN --format F matches its golden file', () => {
+  for (const [name, file] of Object.entries(DEMOS)) {
+    for (const [format, ext] of Object.entries(EXT)) {
+      it(`${name} as ${format}`, async () => {
+        const r = run('run', file, '--format', format);
+        expect(r.stderr).toBe('');
+        expect(r.status).toBe(name === 'bracket-stretch-specimen' ? 1 : 0);
+        await expect(r.stdout).toMatchFileSnapshot(`golden/${name}.${ext}`);
+      });
+    }
+  }
+  it('a sweep of the last reduction as a table', async () => {
+    const r = run('run', DEMOS['contact-spring-strip'], '--sweep', 'steps[-1].reductionPct=10:40:5');
+    expect(r.status).toBe(1); // 10, 15, 35 and 40 % miss a target
+    await expect(r.stdout).toMatchFileSnapshot('golden/contact-spring-strip.sweep.txt');
+  });
+  it('a batch of all demos prints one summary table and exits with the worst code', async () => {
+    const r = run('run', 'examples/contact-spring-strip.json', 'examples/fencing-wire-us.json', 'examples/bracket-stretch-specimen.yaml');
+    expect(r.status).toBe(1);
+    await expect(r.stdout).toMatchFileSnapshot('golden/batch-summary.txt');
+  });
+});
+
+describe('every format carries the same numbers as the JSON report', () => {
+  const rep = json(DEMOS['contact-spring-strip']);
+  it('csv: one row per step, numbers equal the JSON report and the handbook law (csv-parse reads it)', () => {
+    const rows = parseCsv(run('run', DEMOS['contact-spring-strip'], '--format', 'csv').stdout, { columns: true }) as Record<string, string>[];
+    expect(rows).toHaveLength(rep.steps.length);
+    rows.forEach((row, i) => {
+      for (const k of ['reloadYield', 'tensileStrength', 'accumulatedStrain', 'coldWorkPct']) expect(Number(row[k])).toBe(rep.steps[i][k]);
+    });
+    // Step 5: strip rolled 1.2 → 0.9 → 0.675 mm after the anneal. Plane-strain equivalent strain
+    // (2/√3)·ln(t0/t) (Marciniak, Duncan & Hu, Mechanics of Sheet Metal Forming, §3.4); Hollomon
+    // K 530 MPa, n 0.44 for annealed copper (Callister, 2nd ed., p. 199); reload yield at ε + 0.002.
+    // Tolerance 1e-12: the same closed form, only rounding differs.
+    const eps = (2 / Math.sqrt(3)) * Math.log(1.2 / 0.675);
+    expectRelClose(Number(rows[4]!.reloadYield), 530 * (eps + 0.002) ** 0.44, 1e-12, 'step 5 reload yield');
+    expectRelClose(Number(rows[4]!.coldWorkPct), 100 * (1 - 0.675 / 1.2), 1e-12, 'step 5 %CW (thickness reduction since anneal, Callister)');
+  });
+  it('junit: one test case per target, a failure exactly for each missed target (XML parsed by linkedom)', () => {
+    for (const file of Object.values(DEMOS)) {
+      const rj = json(file);
+      const doc = new DOMParser().parseFromString(run('run', file, '--format', 'junit').stdout, 'text/xml');
+      const cases = [...doc.querySelectorAll('testcase')];
+      expect(cases.map((c) => c.getAttribute('name'))).toEqual(rj.targets.map((t: { name: string }) => t.name));
+      const failed = cases.filter((c) => c.querySelector('failure')).map((c) => c.getAttribute('name'));
+      expect(failed).toEqual(rj.targets.filter((t: { met: boolean }) => !t.met).map((t: { name: string }) => t.name));
+      expect(doc.querySelector('testsuites')!.getAttribute('failures')).toBe(String(failed.length));
+    }
+  });
+  it('md, html and table carry provenance (name, SHA-256, tool, law and source) and every caution', () => {
+    for (const format of ['md', 'html', 'table']) {
+      const text = run('run', DEMOS['fencing-wire-us'], '--format', format).stdout;
+      const r = json(DEMOS['fencing-wire-us']);
+      const plain = text.replace(/&quot;/g, '"').replace(/&#39;|&apos;/g, "'");
+      for (const s of [r.plan.name, r.plan.tool, r.material.source, ...r.cautions]) expect(plain, `${format}: ${s}`).toContain(s);
+      expect(plain).toContain(format === 'table' ? r.plan.hash.slice(0, 12) : r.plan.hash);
+      expect(plain).toMatch(/hollomon/);
+    }
+  });
+  it('html is one self-contained file: two Plot charts as inline SVG, no script, no external request', () => {
+    const html = run('run', DEMOS['contact-spring-strip'], '--format', 'html').stdout;
+    const doc = new DOMParser().parseFromString(html, 'text/html');
+    expect(doc.querySelectorAll('figure svg[class^="plot"]').length).toBe(2);
+    expect(doc.querySelectorAll('script, link, img, iframe').length).toBe(0);
+    expect(html).not.toMatch(/(src|href)="(https?:)?\/\//);
+    // The ledger table shows the same rounded reload yields as the JSON report.
+    const cells = [...doc.querySelectorAll('table')[0]!.querySelectorAll('tbody tr')].map((tr) => tr.querySelectorAll('td')[6]!.textContent);
+    expect(cells).toEqual(rep.steps.map((s: { reloadYield: number }) => s.reloadYield.toFixed(1)));
+  });
+  it('--out DIR writes one file per plan atomically and nothing else', () => {
+    const out = join(TMP, 'reports');
+    const r = run('run', ...Object.values(DEMOS), '--format', 'md', '--out', out);
+    expect(r.status).toBe(1);
+    expect(readdirSync(out).sort()).toEqual(['bracket-stretch-specimen.md', 'contact-spring-strip.md', 'fencing-wire-us.md']);
+    expect(readFileSync(join(out, 'contact-spring-strip.md'), 'utf8')).toBe(run('run', DEMOS['contact-spring-strip'], '--format', 'md').stdout);
+  });
+  it('--jobs 2 gives the same reports as --jobs 1', () => {
+    const a = run('run', ...Object.values(DEMOS), '--format', 'json', '--jobs', '1');
+    const b = run('run', ...Object.values(DEMOS), '--format', 'json', '--jobs', '2');
+    expect(b.status).toBe(1);
+    expect(b.stdout).toBe(a.stdout);
+    expect(JSON.parse(a.stdout)).toHaveLength(3);
+  });
+  it('--set changes one field for one run: the last reduction 25 → 30 % raises the reload yield as the law says', () => {
+    const r = JSON.parse(run('run', DEMOS['contact-spring-strip'], '--format', 'json', '--set', 'steps[4].reductionPct=30').stdout);
+    // 0.9 mm rolled 30 %: t = 0.63 mm; ε since anneal = (2/√3)·ln(1.2/0.63) (Marciniak et al. §3.4), Callister copper law.
+    const eps = (2 / Math.sqrt(3)) * Math.log(1.2 / 0.63);
+    expectRelClose(r.steps[4].reloadYield, 530 * (eps + 0.002) ** 0.44, 1e-12, 'reload yield after the override');
+    expect(r.plan.hash).not.toBe(rep.plan.hash);
+  });
+  it('--sweep gives one row per value whose margins equal single runs with --set', () => {
+    const sw = JSON.parse(run('run', DEMOS['contact-spring-strip'], '--format', 'json', '--sweep', 'steps[-1].reductionPct=20:30:5').stdout);
+    expect(sw.rows.map((r: { value: number }) => r.value)).toEqual([20, 25, 30]);
+    for (const row of sw.rows) {
+      const single = JSON.parse(run('run', DEMOS['contact-spring-strip'], '--format', 'json', '--set', `steps[-1].reductionPct=${row.value}`).stdout);
+      expect(row.targets).toEqual(single.targets.map((t: { name: string; margin: number; met: boolean }) => ({ name: t.name, margin: t.margin, met: t.met })));
+    }
+  });
+  it('a sweep value that makes the plan invalid is a row marked invalid, and the sweep exits 2', () => {
+    const r = run('run', DEMOS['contact-spring-strip'], '--format', 'csv', '--sweep', 'steps[-1].reductionPct=90:100:10');
+    expect(r.status).toBe(2);
+    const rows = parseCsv(r.stdout, { columns: true }) as Record<string, string>[];
+    expect(rows.map((x) => x.exit)).toEqual(['1', '2']);
+    expect(rows[1]!.problem).toMatch(/reductionPct: got 100, allowed a number < 100/);
+  });
+});

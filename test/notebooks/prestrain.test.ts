@@ -1,0 +1,75 @@
+// Real-browser test of the prestrain explorer (Debian's Chromium via playwright-core).
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { hollomon, stateProperties } from '../../src/core/index.js';
+import { expectRelClose } from '../helpers.js';
+import { openPage, settled, startHarness, SCREENSHOTS, type Harness } from './browser.js';
+
+let h: Harness;
+beforeAll(async () => { h = await startHarness(); });
+afterAll(async () => { await h?.close(); });
+
+const num = async (page: import('playwright-core').Page, q: string) => Number(await page.locator(`[data-q="${q}"] .sl-num`).innerText());
+
+describe('prestrain explorer', () => {
+  it('loads with no console error and moving the slider changes the numbers and the chart', async () => {
+    const { page, errors } = await openPage(h, '/prestrain/');
+    await settled(page, 'prestrain');
+    // The first demo material is the contact-spring copper: Hollomon K 530 MPa, n 0.44 (Callister,
+    // Fundamentals of Materials Science and Engineering, 2nd ed., p. 199), E 115 GPa (Table B.2).
+    const ry0 = await num(page, 'reloadYield');
+    const chart0 = await page.locator('#cell-flow-chart svg').last().innerHTML();
+    const rm0 = await num(page, 'tensileStrength');
+    await page.locator('#prestrain-range').focus();
+    // Move the slider from the keyboard: 100 steps of 0.001 up from 0.1 → 0.2.
+    await page.fill('#prestrain-number', '0.2');
+    await settled(page, 'prestrain');
+    const ry1 = await num(page, 'reloadYield');
+    const chart1 = await page.locator('#cell-flow-chart svg').last().innerHTML();
+    expect(ry1).toBeGreaterThan(ry0);
+    expect(chart1).not.toEqual(chart0);
+    // Independent check of the shown numbers: Hollomon σ = K·ε^n by hand at ε̄ + 0.002 (offset
+    // definition of Rp0.2, ISO 6892-1), and Considère Rm = K·n^n·exp(ε̄ − n) on the new section
+    // (Dieter, Mechanical Metallurgy, §8-3); one decimal shown, so 0.06 MPa absolute on ~400 MPa.
+    expectRelClose(ry1, 530 * 0.202 ** 0.44, 0.05 / 400, 'reload yield at 0.2');
+    expectRelClose(rm0, 530 * 0.44 ** 0.44 * Math.exp(0.1 - 0.44), 0.05 / 300, 'Rm at 0.1');
+    expectRelClose(await num(page, 'remainingElongation'), Math.expm1(0.44 - 0.2) * 100, 0.05 / 27, 'remaining uniform elongation');
+    // And the page equals the core for the same state (the same module the runner uses).
+    const core = stateProperties({ name: 'cu', elasticModulus: 115000, poissonRatio: 0.3, law: hollomon({ K: 530, n: 0.44 }) }, 0.2);
+    expect(await num(page, 'yieldRatio')).toBe(Number(core.yieldRatio.toFixed(3)));
+    // The slider from the keyboard: ArrowRight steps the range input by its step.
+    await page.locator('#prestrain-range').press('ArrowRight');
+    await settled(page, 'prestrain');
+    expect(await num(page, 'prestrain')).toBe(0.201);
+    // The forming-mode slider maps the prestrain to reductions: rolling (plane strain) thickness
+    // reduction 1 − exp(−ε̄·√3/2) (Marciniak, Duncan & Hu, Mechanics of Sheet Metal Forming, §3.4).
+    await page.locator('#mode-range').press('ArrowRight');
+    await settled(page, 'prestrain');
+    const red = await page.locator('#reductions').innerText();
+    expect(red).toContain(`${(-Math.expm1(-0.201 * Math.sqrt(3) / 2) * 100).toFixed(1)} %`);
+    expect(await page.locator('.sl-cautions').isVisible()).toBe(true);
+    await page.screenshot({ path: `${SCREENSHOTS}/prestrain.png`, fullPage: true });
+    expect(errors).toEqual([]);
+  });
+
+  it('a malformed typed law shows an error cell naming the field while the inputs keep working', async () => {
+    const { page, errors } = await openPage(h, '/prestrain/');
+    await settled(page, 'prestrain');
+    await page.selectOption('#material-select', { label: 'a law typed in (JSON below)' });
+    await settled(page, 'prestrain');
+    // The default typed set has two laws: the side-by-side table shows both and where they part.
+    expect(await page.locator('#law-table tbody tr').count()).toBe(2);
+    await page.fill('#law-text', '{"elasticModulus": 70000, "laws": [{"law": "voce", "sigma0": -5, "Q": 100, "b": 10}]}');
+    await page.locator('#law-text').dispatchEvent('change');
+    await settled(page, 'prestrain');
+    const err = await page.locator('#material-note .sl-error').innerText();
+    expect(err).toContain('sigma0');
+    expect(err).toContain('-5');
+    // User text is escaped: markup typed in appears as text, no element is created.
+    await page.fill('#law-text', '<img src=x onerror="window.__pwned=1">');
+    await page.locator('#law-text').dispatchEvent('change');
+    await settled(page, 'prestrain');
+    expect(await page.locator('#material-note img').count()).toBe(0);
+    expect(await page.evaluate(() => (window as any).__pwned)).toBeUndefined();
+    expect(errors).toEqual([]);
+  });
+});

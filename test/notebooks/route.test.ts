@@ -1,0 +1,101 @@
+// Real-browser test of the route planner: editing, export → runner parity, autosave/restore, undo.
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openPage, settled, startHarness, REPO, SCREENSHOTS, type Harness } from './browser.js';
+
+let h: Harness;
+let tmp: string;
+beforeAll(async () => { h = await startHarness(); tmp = mkdtempSync(join(tmpdir(), 'sl-route-')); });
+afterAll(async () => { await h?.close(); rmSync(tmp, { recursive: true, force: true }); });
+
+type Page = import('playwright-core').Page;
+const ledgerCells = (page: Page) => page.$$eval('#ledger-table tbody tr', (trs) => trs.map((tr) =>
+  Object.fromEntries([...tr.querySelectorAll('td')].map((td) => [td.getAttribute('data-col'), td.textContent]))));
+
+describe('route planner', () => {
+  it('an edited route, exported and run through the runner, gives the numbers the page shows', async () => {
+    const { page, errors } = await openPage(h, '/route/');
+    await settled(page, 'route');
+    const before = await ledgerCells(page);
+    expect(before.length).toBe(5); // the contact-spring demo route (INVENTED)
+    const chart0 = await page.locator('#cell-strength-chart svg').last().innerHTML();
+    // Edit: step 2 becomes a 30 % reduction, a new 12.5 % roll pass is added and moved up one place.
+    await page.fill('#step-1-value', '30');
+    await page.locator('#step-1-value').press('Tab');
+    await page.selectOption('#add-kind-select', 'roll');
+    await page.click('#add-step');
+    await page.fill('#step-5-value', '12.5');
+    await page.locator('#step-5-value').press('Tab');
+    await page.fill('#target-minYield', '350');
+    await page.locator('#target-minYield').press('Tab');
+    await page.click('#step-5-up');
+    await settled(page, 'route');
+    const shown = await ledgerCells(page);
+    expect(shown.length).toBe(6);
+    expect(shown).not.toEqual(before);
+    expect(await page.locator('#cell-strength-chart svg').last().innerHTML()).not.toEqual(chart0);
+    // Export through the page's own button (a real download of the plan file).
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export')]);
+    const file = join(tmp, 'edited.json');
+    await download.saveAs(file);
+    const run = spawnSync(process.execPath, [join(REPO, 'bin', 'strainledger.js'), 'run', file, '--format', 'json'], { encoding: 'utf8' });
+    expect([0, 1]).toContain(run.status); // 0 all targets met, 1 some not met; 2 would be invalid input
+    const report = JSON.parse(run.stdout) as { steps: Record<string, any>[]; targets: { name: string; met: boolean; predicted: number }[] };
+    expect(report.steps.length).toBe(6);
+    // Parity to the displayed precision (the same digits as the runner's table report).
+    const digits: Record<string, number> = { strainIncrement: 4, accumulatedStrain: 4, coldWorkPct: 1, reloadYield: 1, tensileStrength: 1, yieldRatio: 3, remainingUniformElongationPct: 1 };
+    report.steps.forEach((s, i) => {
+      for (const [k, d] of Object.entries(digits)) expect(shown[i]![k], `step ${i + 1} ${k}`).toBe((s[k] as number).toFixed(d));
+      expect(shown[i]!.elasticRecoveryPct, `step ${i + 1} recovery`).toBe((s.elasticRecoveryStrain * 100).toFixed(3));
+    });
+    for (const t of report.targets) {
+      const li = await page.locator(`[data-target="${t.name}"]`).innerText();
+      expect(li).toContain(t.met ? 'met' : 'NOT met');
+      expect(li).toContain(t.predicted.toFixed(2));
+    }
+    // Undo the last edit (the move up) and the route goes back.
+    await page.click('#undo');
+    await settled(page, 'route');
+    const undone = await ledgerCells(page);
+    expect(undone[5]!.kind).toBe(shown[4]!.kind);
+    expect(undone[4]!.reloadYield).not.toBe(shown[4]!.reloadYield);
+    await page.screenshot({ path: `${SCREENSHOTS}/route.png`, fullPage: true });
+    expect(errors).toEqual([]);
+    await page.close();
+  });
+
+  it('reloading the page restores the edited route, and an invalid value shows an error cell while the editor keeps it', async () => {
+    const { page, errors, context } = await openPage(h, '/route/');
+    await settled(page, 'route');
+    await page.fill('#step-0-value', '1.7');
+    await page.selectOption('#step-0-field', 'thickness');
+    await settled(page, 'route');
+    const edited = await ledgerCells(page);
+    await page.reload();
+    await settled(page, 'route');
+    expect(await page.locator('#import-status').innerText()).toContain('Restored');
+    expect(await ledgerCells(page)).toEqual(edited);
+    // An out-of-range value: the error names the field and the allowed range; the entry stays.
+    await page.fill('#step-0-value', '-3');
+    await settled(page, 'route');
+    const msg = await page.locator('#cell-validation .sl-error').innerText();
+    expect(msg).toContain('steps[0].thickness');
+    expect(await page.inputValue('#step-0-value')).toBe('-3');
+    await page.reload();
+    await settled(page, 'route');
+    expect(await page.inputValue('#step-0-value')).toBe('-3'); // nothing the user typed is lost
+    await page.fill('#step-0-value', '1.7');
+    await settled(page, 'route');
+    expect(await page.locator('#cell-validation .sl-error').count()).toBe(0);
+    // Importing a malformed plan keeps the route on screen and says what is wrong.
+    await page.setInputFiles('#import-file', { name: 'broken.json', mimeType: 'application/json', buffer: Buffer.from('{ "name": "x", "material": { "name": "m", "elasticModulus": -1, "flowCurve": { "law": "hollomon", "K": 500, "n": 0.2 } }, "steps": [] }') });
+    await expect.poll(() => page.locator('#import-status .sl-error').count()).toBe(1);
+    expect(await page.locator('#import-status').innerText()).toContain('elasticModulus');
+    expect(await ledgerCells(page)).toEqual(edited);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
