@@ -9,4 +9,6 @@ export default function setup(): void {
   } catch {
     console.warn('tsc reported type errors; dist/ was still emitted');
   }
+  // The shipped runner (bin/strainledger.js) is the vite bundle in dist/runner/ (vite.runner.config.ts).
+  execFileSync(process.execPath, [join('node_modules', 'vite', 'bin', 'vite.js'), 'build', '-c', 'vite.runner.config.ts'], { cwd: join(import.meta.dirname, '..'), stdio: 'inherit' });
 }

@@ -4,10 +4,10 @@ import {
   Notebook, expose, slider, stepSlider, choice, valueStream, h, quantity, fixed, DIGITS, restore, byId,
 } from '../../src/cells/index.js';
 import {
-  makeLaw, stateProperties, chordModulus, reductionPctFromStrain, LAW_PARAMETERS, LAW_NAMES, PROOF_OFFSET, InputError,
+  makeLaw, fitAllLaws, stateProperties, chordModulus, reductionPctFromStrain, LAW_PARAMETERS, LAW_NAMES, PROOF_OFFSET, InputError,
 } from '../../src/core/index.js';
 import type { FlowLaw, LawSpec, Material } from '../../src/core/index.js';
-import { flowCurveChart, loadUnloadChart } from '../../src/charts/prestrain.js';
+import { flowCurveChart, loadUnloadChart, markPrestrain } from '../../src/charts/prestrain.js';
 import { BENCH_MATERIAL_KEY, demoPlans, pageChrome } from '../shared/page.js';
 
 pageChrome('prestrain/', 'Prestrain explorer');
@@ -43,7 +43,8 @@ Object.defineProperty(lawTextWrap, 'value', { get: () => lawText.value });
 lawText.addEventListener('change', () => lawTextWrap.dispatchEvent(new Event('input')));
 byId('law-text-input').append(lawTextWrap);
 
-const prestrainInput = slider({ label: 'Prestrain ε̄', min: 0, max: 1.5, step: 0.001, value: 0.1, unit: '(equivalent true plastic strain)', id: 'prestrain' });
+const PRESTRAIN_MAX = 1.5;
+const prestrainInput = slider({ label: 'Prestrain ε̄', min: 0, max: PRESTRAIN_MAX, step: 0.001, value: 0.1, unit: '(equivalent true plastic strain)', id: 'prestrain' });
 byId('prestrain-input').append(prestrainInput);
 
 type Mode = 'uniaxial' | 'plane' | 'equibiaxial';
@@ -77,6 +78,20 @@ function benchSet(): LawSet {
   return { name: m.name, invented: false, elasticModulus: m.elasticModulus, testedRange: m.fittedStrainRange ?? null, laws: laws.map((law) => ({ label: lawLabel(law), law })) };
 }
 
+/**
+ * The other laws, each fitted (fitAllLaws, the record bench's fitter) to the given law's curve over
+ * the strain range a tensile test would reach: they agree there and show where they part ways.
+ */
+function companions(law: FlowLaw, range: readonly [number, number]): { label: string; law: FlowLaw }[] {
+  const N = 60;
+  const eps = Array.from({ length: N }, (_, i) => range[0] + ((range[1] - range[0]) * i) / (N - 1));
+  const cmp = fitAllLaws(eps, eps.map((e) => law.stress(e)), { laws: LAW_NAMES.filter((l) => l !== law.law && l !== 'swiftVoce') });
+  return cmp.fits.filter((f) => f.converged).map((f) => {
+    const fitted = makeLaw({ law: f.law, ...f.params } as LawSpec, f.law);
+    return { label: `${lawLabel(fitted)}, fitted to it on ${fixed(range[0], 3)}–${fixed(range[1], 3)}`, law: fitted };
+  });
+}
+
 const nb = new Notebook();
 nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({ name: 'lawText', fn: () => valueStream(lawTextWrap as unknown as HTMLElement & { value: string }) })
@@ -88,7 +103,8 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       if (source.kind === 'typed') return parseTyped(text);
       if (source.kind === 'bench') return benchSet();
       const m = demos[source.index]!.plan.route.material;
-      return { name: m.name, invented: true, elasticModulus: m.elasticModulus, ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}), testedRange: m.fittedStrainRange ?? null, laws: [{ label: lawLabel(m.law), law: m.law }] };
+      const tested = m.fittedStrainRange ?? [PROOF_OFFSET, m.law.uniformStrain()] as const;
+      return { name: m.name, invented: true, elasticModulus: m.elasticModulus, ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}), testedRange: tested, laws: [{ label: lawLabel(m.law), law: m.law }, ...companions(m.law, tested)] };
     },
     render: (v) => {
       const s = v as LawSet;
@@ -135,21 +151,27 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
     },
   })
   .cell({
-    name: 'curves', inputs: ['lawSet', 'prestrain'],
-    fn: (s: LawSet, eps: number) => {
-      const top = Math.max(1, eps * 1.3);
-      const N = 120;
+    // The curves span the slider's whole range, so a slider move never redraws them.
+    name: 'curves', inputs: ['lawSet'],
+    fn: (s: LawSet) => {
+      const top = PRESTRAIN_MAX;
+      const N = 150;
       return s.laws.map(({ label, law }) => ({ label, points: Array.from({ length: N + 1 }, (_, i) => ({ strain: (top * i) / N, stress: law.stress((top * i) / N) })) }));
     },
   })
   .cell({
-    name: 'flowChart', inputs: ['curves', 'states', 'lawSet', 'prestrain'], into: 'cell-flow-chart',
-    fn: (curves: { label: string; points: { strain: number; stress: number }[] }[], states: { label: string; props: { reloadYield: number }; uniformStrain: number }[], s: LawSet, eps: number) =>
-      flowCurveChart(curves, {
-        stressUnit: 'MPa', prestrain: eps,
-        testedRange: s.testedRange ?? [0, Math.min(...states.map((x) => x.uniformStrain))],
-        reloadYields: states.map((x) => ({ label: x.label, strain: eps + PROOF_OFFSET, stress: x.props.reloadYield })),
-      }),
+    name: 'flowBase', inputs: ['curves', 'lawSet'],
+    fn: (curves: { label: string; points: { strain: number; stress: number }[] }[], s: LawSet) =>
+      flowCurveChart(curves, { stressUnit: 'MPa', testedRange: s.testedRange ?? [0, Math.min(...s.laws.map((x) => x.law.uniformStrain()))] }),
+  })
+  .cell({
+    // A slider move only moves the marker on the chart drawn above (same element, no redraw).
+    name: 'flowChart', inputs: ['flowBase', 'states', 'prestrain'], into: 'cell-flow-chart',
+    fn: (chart: SVGSVGElement | HTMLElement, states: { props: { reloadYield: number } }[], eps: number) => {
+      markPrestrain(chart, eps, states.map((x) => ({ strain: eps + PROOF_OFFSET, stress: x.props.reloadYield })));
+      chart.setAttribute('data-prestrain', String(eps));
+      return chart;
+    },
   })
   .cell({
     name: 'lurChart', inputs: ['lawSet', 'prestrain'], into: 'cell-lur-chart',
@@ -181,19 +203,27 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
           h('td', {}, fixed(x.props.yieldRatio, DIGITS.ratio)), h('td', {}, fixed(x.props.elasticRecoveryStrain * 100, DIGITS.recoveryPct)),
           h('td', {}, fixed(x.props.remainingUniformElongationPct, DIGITS.pct))))));
       if (states.length < 2) return h('div', {}, table, h('p', {}, 'Only one law for this material. Fit every law to a record in the record bench (or type several laws in) to see where they part ways beyond the tested range.'));
-      // Where the laws part ways: first sampled strain at which their stresses differ by more than 5 %.
+      // Where the laws part ways: their largest spread inside the tested range, and the first
+      // sampled strain beyond it at which their stresses differ by more than 5 %.
+      const tested = s.testedRange ?? [PROOF_OFFSET, Math.min(...states.map((x) => x.uniformStrain))];
       const pts = curves[0]!.points;
-      let from: number | null = null;
-      for (let i = 0; i < pts.length && from === null; i++) {
+      const spreadAt = (i: number) => {
         const ys = curves.map((c) => c.points[i]!.stress);
-        if ((Math.max(...ys) - Math.min(...ys)) / Math.min(...ys) > 0.05) from = pts[i]!.strain;
+        return Math.min(...ys) > 0 ? (Math.max(...ys) - Math.min(...ys)) / Math.min(...ys) : 0;
+      };
+      let inside = 0;
+      let from: number | null = null;
+      for (let i = 0; i < pts.length; i++) {
+        const e = pts[i]!.strain;
+        if (e >= tested[0] && e <= tested[1]) inside = Math.max(inside, spreadAt(i));
+        else if (e > tested[1] && from === null && spreadAt(i) > 0.05) from = e;
       }
       const ry = states.map((x) => x.props.reloadYield);
       const spread = (Math.max(...ry) - Math.min(...ry)) / Math.min(...ry) * 100;
-      const tested = s.testedRange ?? [0, Math.min(...states.map((x) => x.uniformStrain))];
       return h('div', {}, table, h('p', { id: 'law-spread' },
         `At this prestrain the laws' reload yields differ by ${fixed(spread, 1)} %. `,
-        from === null ? 'They stay within 5 % of each other over the whole chart.' : `They differ by more than 5 % from ε̄ ≈ ${fixed(from, 3)} on; the strain range they rest on is ${fixed(tested[0], 3)} to ${fixed(tested[1], 3)}.`));
+        `Inside the strain range they rest on (${fixed(tested[0], 3)} to ${fixed(tested[1], 3)}) their flow stresses differ by at most ${fixed(inside * 100, 1)} %; `,
+        from === null ? 'beyond it they stay within 5 % of each other over the whole chart.' : `beyond it they differ by more than 5 % from ε̄ ≈ ${fixed(from, 3)} on.`));
     },
   });
 

@@ -88,6 +88,12 @@ function applyMapping(): void {
   load(current, o);
 }
 
+/** (max − min)/min·100 over the given stresses, as text; '—' when fewer than two. */
+function spreadAll(xs: (number | undefined)[]): string {
+  const v = xs.filter((x): x is number => x !== undefined && x > 0);
+  return v.length < 2 ? '—' : fixed(((Math.max(...v) - Math.min(...v)) / Math.min(...v)) * 100, 1);
+}
+
 nb.cell({ name: 'input', fn: () => null })
   .cell({
     // Parsing never rejects: a malformed record is shown as an error here while the last good
@@ -172,9 +178,9 @@ nb.cell({ name: 'input', fn: () => null })
       const laws = a.fits.fits.filter((f) => f.converged).map((f) => f.law);
       return h('div', {},
         h('table', { class: 'sl-table', id: 'spread-table' },
-          h('thead', {}, h('tr', {}, h('th', { scope: 'col' }, 'true plastic strain'), ...laws.map((l) => h('th', { scope: 'col' }, `${l} MPa`)), h('th', { scope: 'col' }, 'spread %'))),
+          h('thead', {}, h('tr', {}, h('th', { scope: 'col' }, 'true plastic strain'), ...laws.map((l) => h('th', { scope: 'col' }, `${l} MPa`)), h('th', { scope: 'col' }, 'spread of the laws that fit well %'), h('th', { scope: 'col' }, 'spread of all converged laws %'))),
           h('tbody', {}, ...a.fits.extrapolation.map((x) => h('tr', {},
-            h('td', { class: 'text' }, `${fixed(x.strain, 3)} (${x.note})`), ...laws.map((l) => h('td', {}, fixed(x.stress[l] ?? null, DIGITS.stress))), h('td', {}, fixed(x.spreadPct, 1)))))),
+            h('td', { class: 'text' }, `${fixed(x.strain, 3)} (${x.note})`), ...laws.map((l) => h('td', {}, fixed(x.stress[l] ?? null, DIGITS.stress))), h('td', {}, fixed(x.spreadPct, 1)), h('td', {}, spreadAll(laws.map((l) => x.stress[l]))))))),
         h('p', {}, `Fitted on true plastic strain ${fixed(a.flowCurve.strain[0] ?? null, 4)} to ${fixed(a.flowCurve.strain[a.flowCurve.strain.length - 1] ?? null, 4)}. Beyond that every law is an extrapolation: test the formed material.`));
     },
   })

@@ -2,6 +2,9 @@ import { Runtime } from '@observablehq/runtime';
 import { byId } from './dom.js';
 import { cellObserver, type Render } from './observer.js';
 
+/** Microtask turns without activity after which {@link Notebook.idle} calls the notebook settled. */
+const QUIET_TICKS = 64;
+
 /** A cell: a name, the names of the cells it reads, and a function of their values. */
 export interface CellSpec {
   name: string;
@@ -95,12 +98,21 @@ export class Notebook {
 
   /** Resolves when no computation is scheduled and no shown cell is pending. */
   async idle(): Promise<void> {
-    for (;;) {
-      if (this.runtime._computing) await this.runtime._computing;
-      // Let fulfilled promises reach their observers.
-      for (let i = 0; i < 4; i++) await Promise.resolve();
-      if (!this.runtime._computing && this.pending.size === 0) return;
-      if (this.pending.size > 0) await new Promise<void>((r) => this.waiters.push(r));
+    // A change reaches the runtime through a chain of promises (input event → generator → runtime
+    // schedule → compute → observers); it is quiet once no computation is scheduled and no cell is
+    // pending for QUIET_TICKS consecutive microtask turns (cheap: no timers, no frames).
+    let quiet = 0;
+    while (quiet < QUIET_TICKS) {
+      if (this.runtime._computing) {
+        quiet = 0;
+        await this.runtime._computing;
+      } else if (this.pending.size > 0) {
+        quiet = 0;
+        await new Promise<void>((r) => this.waiters.push(r));
+      } else {
+        quiet++;
+        await Promise.resolve();
+      }
     }
   }
 }

@@ -9,8 +9,8 @@ export interface CurveSeries {
 
 export interface FlowChartOptions {
   stressUnit: string;
-  /** Accumulated equivalent plastic strain to mark (dashed rule). */
-  prestrain: number;
+  /** Accumulated equivalent plastic strain to mark (dashed rule); omit and use {@link markPrestrain} to move a marker without redrawing. */
+  prestrain?: number;
   /** Strain range the law rests on (the tensile test's range), drawn as a band. */
   testedRange?: readonly [number, number];
   /** The reload yield of each law at the prestrain, marked with a dot. */
@@ -34,8 +34,8 @@ export function flowCurveChart(series: readonly CurveSeries[], o: FlowChartOptio
   marks.push(
     Plot.ruleY([0], { stroke: PALETTE.grid }),
     Plot.line(data, { x: 'strain', y: 'stress', stroke: 'law', strokeWidth: 2 }),
-    Plot.ruleX([o.prestrain], { stroke: PALETTE.ink, strokeDasharray: '5,4' }),
   );
+  if (o.prestrain !== undefined) marks.push(Plot.ruleX([o.prestrain], { stroke: PALETTE.ink, strokeDasharray: '5,4' }));
   if (o.reloadYields) marks.push(Plot.dot(o.reloadYields, { x: 'strain', y: 'stress', stroke: 'label', fill: 'white', r: 4, strokeWidth: 2 }));
   return Plot.plot({
     ...(o.document ? { document: o.document } : {}),
@@ -79,4 +79,40 @@ export function loadUnloadChart(path: LoadUnloadPath, o: { stressUnit: string; w
       Plot.text([{ x: (path.recovery.from + path.recovery.to) / 2, y: 0 }], { x: 'x', y: 'y', text: () => 'elastic recovery', dy: -10, fill: PALETTE.elastic }),
     ],
   });
+}
+
+type ScaledChart = (SVGSVGElement | HTMLElement) & { scale(name: 'x' | 'y'): { apply(v: number): number } | undefined };
+
+/**
+ * Moves the prestrain marker (a dashed rule and one dot per law at the reload yield) on a chart
+ * from {@link flowCurveChart} drawn without `prestrain`, using the chart's own scales: a slider
+ * move updates a few SVG attributes instead of redrawing every curve (see bench/notebook-latency.mjs).
+ */
+export function markPrestrain(chart: SVGSVGElement | HTMLElement, prestrain: number, dots: readonly { stress: number; strain: number }[], colors: readonly string[] = PALETTE.laws): void {
+  const c = chart as ScaledChart;
+  const x = c.scale('x');
+  const y = c.scale('y');
+  const svg = (chart.tagName.toLowerCase() === 'svg' ? chart : chart.querySelector(':scope > svg')) as SVGSVGElement | null;
+  if (!x || !y || !svg) return;
+  const doc = svg.ownerDocument;
+  const NS = 'http://www.w3.org/2000/svg';
+  let g = svg.querySelector<SVGGElement>('g[data-marker="prestrain"]');
+  if (!g) {
+    g = doc.createElementNS(NS, 'g') as SVGGElement;
+    g.setAttribute('data-marker', 'prestrain');
+    svg.appendChild(g);
+  }
+  const [y0, y1] = [y.apply(0), y.apply(Math.max(...dots.map((d) => d.stress), 0) * 1.0)];
+  const top = Math.min(y0, y1, 20);
+  const px = x.apply(prestrain);
+  const parts: SVGElement[] = [];
+  const line = doc.createElementNS(NS, 'line');
+  for (const [k, v] of Object.entries({ x1: px, x2: px, y1: y0, y2: top, stroke: PALETTE.ink, 'stroke-dasharray': '5,4' })) line.setAttribute(k, String(v));
+  parts.push(line);
+  dots.forEach((d, i) => {
+    const dot = doc.createElementNS(NS, 'circle');
+    for (const [k, v] of Object.entries({ cx: x.apply(d.strain), cy: y.apply(d.stress), r: 4, fill: 'white', stroke: colors[i % colors.length]!, 'stroke-width': 2 })) dot.setAttribute(k, String(v));
+    parts.push(dot);
+  });
+  g.replaceChildren(...parts);
 }

@@ -7,6 +7,7 @@ import { resolvePlan } from '../plan/resolve.js';
 import { buildReport, type ReportV1 } from '../report/build.js';
 import { readText } from './io.js';
 import { fitRecordFlowCurve } from './recordLaw.js';
+import { scatterFromRecordFiles } from './scatterRecords.js';
 import { applyOverride, showPath, type Override } from './overrides.js';
 import { TOOL } from './version.js';
 import type { ScatterSummary } from '../core/scatter/summarize.js';
@@ -71,8 +72,12 @@ export function evaluateSource(src: PlanSource, overrides: readonly Override[] =
   // (the plan layer reads no files); the fitted law replaces it and the material records its source.
   const fitted = fitRecordFlowCurve(doc, src.file, loc);
   doc = fitted.doc;
+  // Issue 8 hook: scatter.records (several specimens) become the law at their means plus spreads and correlations.
+  const fromRecords = scatterFromRecordFiles(doc, src.file, loc);
+  doc = fromRecords.doc;
   const plan: LoadedPlan = { ...resolvePlan(doc, src.file, loc), file: src.file, loc };
   if (fitted.source) plan.route.material.source = fitted.source;
+  if (fromRecords.source) plan.route.material.source = fromRecords.source;
   const ledger = runPlan(plan);
   const h = createHash('sha256').update(src.text);
   for (const a of applied) h.update(`\n--set ${a}`);

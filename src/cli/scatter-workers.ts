@@ -1,5 +1,5 @@
 import { availableParallelism } from 'node:os';
-import { Worker } from 'node:worker_threads';
+import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
 import { InputError } from '../core/errors.js';
 import { prepareScatter, SCATTER_BLOCK, type ScatterProblem } from '../core/scatter/problem.js';
 import { sampleScatterBlock, type ScatterBlock } from '../core/scatter/sample.js';
@@ -10,6 +10,29 @@ import { resolvePlan, withLocation } from '../plan/resolve.js';
 import type { PlanSource } from './evaluate.js';
 import { applyOverride, type Override } from './overrides.js';
 import { startProgress } from './progress.js';
+import { fitRecordFlowCurve } from './recordLaw.js';
+import { scatterFromRecordFiles } from './scatterRecords.js';
+
+const ROLE = 'strainledger-scatter-worker';
+
+// This same module is the worker's script (so it works from tsc's dist/ and from the bundled runner
+// chunk alike): started with workerData.role it prepares the problem once, then answers each block
+// index with the sampled block (typed arrays transferred, not copied) or the error that stopped it.
+if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE && parentPort) {
+  const port = parentPort;
+  const prep = prepareScatter((workerData as { problem: ScatterProblem }).problem);
+  port.on('message', (index: number) => {
+    try {
+      const b = sampleScatterBlock(prep, index);
+      port.postMessage({ block: b }, [b.inputs.buffer, b.reloadYield.buffer, b.tensileStrength.buffer, b.remainingElongationPct.buffer, b.metMask.buffer] as ArrayBuffer[]);
+    } catch (e) {
+      const err = e as Error;
+      port.postMessage({ error: err instanceof InputError
+        ? { kind: 'input', path: err.path, value: err.value, allowed: err.allowed, message: err.message }
+        : { kind: 'other', message: err.message } });
+    }
+  });
+}
 
 /** Blocks kept in flight per worker, so a worker never waits for the next index. */
 const IN_FLIGHT = 2;
@@ -36,12 +59,12 @@ export async function sampleScatterThreads(problem: ScatterProblem, threads: num
     return summarizeScatter(prep, blocks);
   }
   const n = Math.min(threads, prep.blocks);
-  const url = new URL('./scatter-worker.js', import.meta.url);
+  const url = new URL(import.meta.url);
   let next = 0;
   const workers: Worker[] = [];
   try {
     await Promise.all(Array.from({ length: n }, () => new Promise<void>((resolve, reject) => {
-      const w = new Worker(url, { workerData: problem });
+      const w = new Worker(url, { workerData: { role: ROLE, problem } });
       workers.push(w);
       let pending = 0;
       const feed = () => {
@@ -85,7 +108,9 @@ export async function scatterForSource(src: PlanSource, overrides: readonly Over
     const data = overrides.length ? structuredClone(src.loc.data) : src.loc.data;
     for (const o of overrides) applyOverride(data, o.path, o.value, '--set', src.file);
     const loc = { data, locate: src.loc.locate };
-    plan = resolvePlan(validatePlan(loc, src.file), src.file, loc);
+    // The same document transforms as evaluate.ts: a record-form flow curve fitted, scatter.records summarised.
+    const doc = scatterFromRecordFiles(fitRecordFlowCurve(validatePlan(loc, src.file), src.file, loc).doc, src.file, loc).doc;
+    plan = resolvePlan(doc, src.file, loc);
   } catch (e) {
     if (e instanceof PlanError) return undefined;
     throw e;

@@ -41,6 +41,8 @@ export { createPathStepper, integratePath, PATH_DEFAULTS } from './path/integrat
 export type { PathStepper } from './path/integrate.js';
 export { isotropicPart, validateKinematic, backstressAfter } from './path/hardening.js';
 export type * from './path/types.js';
+export { fitKinematic, KINEMATIC_FIT_BOUNDS } from './path/fitKinematic.js';
+export type { KinematicFit, KinematicFitOptions } from './path/fitKinematic.js';
 
 // Bending springback: moment–curvature through the thickness, unloading, the inverse
 export { momentCurvature } from './bend/momentCurvature.js';
@@ -120,3 +122,5 @@ export { startValues } from './fit/startValues.js';
 export type * from './fit/types.js';
 export { synthesizeRecord } from './tensile/synthesize.js';
 export type { SynthSpec, SynthRecord } from './tensile/synthesize.js';
+export { scatterFromSpecimens } from './scatter/fromSpecimens.js';
+export type { SpecimenLawParameters, SpecimenScatter } from './scatter/fromSpecimens.js';

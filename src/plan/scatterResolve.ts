@@ -13,6 +13,7 @@ import type { Units } from './units.js';
  * @throws InputError naming `scatter.params.X`, `scatter.start.X` or `scatter.correlation.A,B`.
  */
 export function resolveScatter(sc: ScatterDoc, route: RouteInput, units: Units): ScatterProblem {
+  if (sc.records) throw new InputError('scatter.records', sc.records, 'records read by the runner (strainledger run); where files cannot be read (notebooks), give params and correlation instead');
   const law = route.material.law;
   const inputs: ScatterInputSpec[] = [];
   const lawParams = LAW_PARAMETERS[law.law];

@@ -21,6 +21,8 @@ export const ScatterSchema = z.strictObject({
   }).optional().describe('spread of the starting size (only sizes given in start)'),
   correlation: z.record(z.string(), z.number().gte(-1).lte(1)).default({})
     .describe('correlation between two inputs, keyed "A,B" (e.g. "K,n": -0.5; start sizes as start.thickness); others 0'),
+  records: z.array(z.string().min(1).max(1000)).min(2).max(1000).optional()
+    .describe('tensile records of several specimens of one material (files relative to the plan, read by the runner): the law of material.flowCurve is fitted to each, and the means, spreads and correlations of its parameters replace material.flowCurve, params and their correlations'),
   coverage: z.number().gt(0).lt(1).default(SCATTER_DEFAULTS.coverage).describe('fraction of parts the lower tolerance bound must cover, e.g. 0.90'),
   confidence: z.number().gt(0).lt(1).default(SCATTER_DEFAULTS.confidence).describe('confidence of the lower tolerance bound, e.g. 0.95'),
 }).describe('Scatter of the stock: Monte Carlo through the route, probability of meeting the targets, tolerance bound on the final yield');

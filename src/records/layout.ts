@@ -48,6 +48,11 @@ export function isNumberToken(t: string, decimalComma: boolean): boolean {
   return (decimalComma ? NUM_COMMA : NUM_DOT).test(t) || NONFINITE.test(t);
 }
 
+/** A cell of a units row: empty or a short unit such as `mm`, `kN`, `N/mm²`, `[MPa]`, `%`, `-`, `s-1`. */
+function isUnitToken(t: string): boolean {
+  return t.length <= 14 && !/strain|stress|force|load|time|extension|displacement|elongation/i.test(t) && /^[[(]?[A-Za-z%°µ/²³^0-9\-.·* ]*[\])]?$/.test(t);
+}
+
 function numericRow(f: string[], dc: boolean): boolean {
   let nums = 0;
   for (const t of f) {
@@ -73,7 +78,8 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
   for (const d of cands) {
     for (let k = 0; k < nonEmpty.length; k++) {
       const h = splitLine(nonEmpty[k]!.l, d);
-      if (h.length < 2 || h.every((t) => t === '' || isNumberToken(t, d !== ',')) ) continue;
+      // A header names columns: at least 2 fields, none of them a number.
+      if (h.length < 2 || h.some((t) => t !== '' && isNumberToken(t, d !== ',')) || h.every((t) => t === '')) continue;
       const next = nonEmpty[k + 1];
       if (!next) continue;
       const tryDc = (dc: boolean) => {
@@ -82,7 +88,7 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
         const after = nonEmpty[k + 2];
         if (f1.length <= h.length && after) {
           const f2 = splitLine(after.l, d);
-          if (f2.length === h.length && numericRow(f2, dc) && !numericRow(f1, dc)) return { units: f1, data: after };
+          if (f2.length === h.length && numericRow(f2, dc) && f1.every(isUnitToken)) return { units: f1, data: after };
         }
         return null;
       };

@@ -1,5 +1,6 @@
 import type { ReportV1 } from './build.js';
 import { extraStepFields, sig4, stepNumber } from './fields.js';
+import { scatterLines } from './scatter.js';
 
 /** Fixed-decimal formatting used by all human-readable reports. */
 export function fixed(x: number | null | undefined, digits: number): string {
@@ -51,6 +52,7 @@ export function tableReport(r: ReportV1, color = false): string {
     for (const x of warned) out.push(`  ${x}`);
   }
   out.push('');
+  if (r.scatter) out.push(...scatterLines(r.scatter, r.units.stress), ''); // src/report/scatter.ts
   out.push('cautions:');
   for (const c of r.cautions) out.push(`  - ${c}`);
   return out.join('\n') + '\n';

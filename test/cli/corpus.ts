@@ -48,15 +48,15 @@ const nested = (depth: number) => '['.repeat(depth) + ']'.repeat(depth);
 export const CORPUS: BadCase[] = [
   // wrong types
   jsonCase('elasticModulus given as a string', plan((p) => { mat(p).elasticModulus = '115000'; }), /material\.elasticModulus: got "115000", allowed a number/),
-  jsonCase('steps given as an object', plan((p) => { p.steps = { kind: 'roll' }; }), /steps: got \{"kind":"roll"\}, allowed a array/),
+  jsonCase('steps given as an object', plan((p) => { p.steps = { kind: 'roll' }; }), /steps: got \{"kind":"roll"\}, allowed an array/),
   jsonCase('plan name given as a number', plan((p) => { p.name = 42; }), /name: got 42, allowed a string/),
   jsonCase('law parameter given as a boolean', plan((p) => { (mat(p).flowCurve as Json).K = true; }), /material\.flowCurve\.K: got true, allowed a number/),
   jsonCase('a step given as a string', plan((p) => { p.steps = ['roll']; }), /steps\[0\]: got "roll", allowed/),
-  textCase('the whole plan is a list', 'plan.json', '[1, 2, 3]', /got \[1,2,3\], allowed a object/),
-  textCase('the whole plan is a number', 'plan.json', '42', /got 42, allowed a object/),
-  textCase('an empty file', 'plan.json', '', /got (nothing|null)|allowed a object|JSON syntax/),
+  textCase('the whole plan is a list', 'plan.json', '[1, 2, 3]', /got \[1,2,3\], allowed an object/),
+  textCase('the whole plan is a number', 'plan.json', '42', /got 42, allowed an object/),
+  textCase('an empty file', 'plan.json', '', /got (nothing|null)|allowed an object|JSON syntax/),
   // missing fields
-  jsonCase('material missing', plan((p) => { delete p.material; }), /material: got nothing \(the field is required\), allowed a object/),
+  jsonCase('material missing', plan((p) => { delete p.material; }), /material: got nothing \(the field is required\), allowed an object/),
   jsonCase('flow curve missing', plan((p) => { delete mat(p).flowCurve; }), /material\.flowCurve: got nothing \(the field is required\)/),
   jsonCase('plan name missing', plan((p) => { delete p.name; }), /^[^\n]*name: got nothing \(the field is required\), allowed a string/),
   jsonCase('biaxial stretch without its strain', plan((p) => { p.steps = [{ kind: 'stretchBiaxial' }]; }), /steps\[0\]\.strain: got nothing \(the field is required\), allowed a number/),
@@ -97,7 +97,7 @@ export const CORPUS: BadCase[] = [
   textCase('duplicate keys in YAML', 'plan.yaml', 'name: a\nunits: SI\nunits: US\n', /plan\.yaml:3:\d+: YAML syntax: Map keys must be unique/),
   textCase('a trailing comma in JSON', 'plan.json', JSON.stringify(BASE).replace(/}$/, ',}'), /plan\.json:1:\d+: JSON syntax/),
   textCase('bad YAML indentation', 'plan.yaml', 'name: x\nmaterial:\n  name: m\n elasticModulus: 1\n', /plan\.yaml:\d+:\d+: YAML syntax/),
-  textCase('YAML that is not a plan at all', 'plan.yaml', '- just\n- a list\n', /got \["just","a list"\], allowed a object/),
+  textCase('YAML that is not a plan at all', 'plan.yaml', '- just\n- a list\n', /got \["just","a list"\], allowed an object/),
   textCase('YAML alias bomb', 'plan.yaml', `a: &a [x, x, x, x, x, x, x, x, x]\nb: &b [*a, *a, *a, *a, *a, *a, *a, *a, *a]\nc: &c [*b, *b, *b, *b, *b, *b, *b, *b, *b]\nd: &d [*c, *c, *c, *c, *c, *c, *c, *c, *c]\ne: [*d, *d, *d, *d, *d, *d, *d, *d, *d]\n`, /plan\.yaml.*(alias|Alias)/),
   // deeply nested junk
   textCase('JSON nested 100,000 lists deep', 'plan.json', nested(100_000), /plan\.json: nesting too deep to read/),

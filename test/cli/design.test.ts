@@ -82,3 +82,16 @@ describe('strainledger design SPEC', () => {
     expect(r2.stderr).toMatch(/grow\.yaml:\d+:\d+: final\.diameter: got 6, allowed a size below the starting diameter 5\.5/);
   });
 });
+
+describe('README: the design specification shown in "Process planning" is a valid, feasible spec', () => {
+  it('loads with loadDesignSpecText and designs the same best route as the example file', async () => {
+    const { loadDesignSpecText, runDesign } = await import('../../src/plan/designSpec.js');
+    const readme = readFileSync(join(ROOT, 'README.md'), 'utf8');
+    const section = readme.slice(readme.indexOf('## Process planning'));
+    const block = /```yaml\n([\s\S]*?)```/.exec(section)![1]!;
+    const fromReadme = runDesign(loadDesignSpecText(block, 'README.yaml'));
+    const fromFile = runDesign(loadDesignSpecText(readFileSync(join(ROOT, EXAMPLE), 'utf8'), EXAMPLE));
+    expect(fromReadme.feasible).toBe(true);
+    expect(fromReadme.routes[0]!.steps).toEqual(fromFile.routes[0]!.steps);
+  });
+});

@@ -17,14 +17,14 @@ describe('prestrain explorer', () => {
     // The first demo material is the contact-spring copper: Hollomon K 530 MPa, n 0.44 (Callister,
     // Fundamentals of Materials Science and Engineering, 2nd ed., p. 199), E 115 GPa (Table B.2).
     const ry0 = await num(page, 'reloadYield');
-    const chart0 = await page.locator('#cell-flow-chart svg').last().innerHTML();
+    const chart0 = await page.locator('#cell-flow-chart').innerHTML();
     const rm0 = await num(page, 'tensileStrength');
     await page.locator('#prestrain-range').focus();
     // Move the slider from the keyboard: 100 steps of 0.001 up from 0.1 → 0.2.
     await page.fill('#prestrain-number', '0.2');
     await settled(page, 'prestrain');
     const ry1 = await num(page, 'reloadYield');
-    const chart1 = await page.locator('#cell-flow-chart svg').last().innerHTML();
+    const chart1 = await page.locator('#cell-flow-chart').innerHTML();
     expect(ry1).toBeGreaterThan(ry0);
     expect(chart1).not.toEqual(chart0);
     // Independent check of the shown numbers: Hollomon σ = K·ε^n by hand at ε̄ + 0.002 (offset
@@ -47,6 +47,17 @@ describe('prestrain explorer', () => {
     const red = await page.locator('#reductions').innerText();
     expect(red).toContain(`${(-Math.expm1(-0.201 * Math.sqrt(3) / 2) * 100).toFixed(1)} %`);
     expect(await page.locator('.sl-cautions').isVisible()).toBe(true);
+    // Every law side by side: the other laws are fitted to the demo law over the tensile range
+    // (0.002 to εu = n = 0.44) and part ways beyond it. Voce saturates (σ → σ0 + Q, Voce 1948)
+    // while Hollomon keeps rising, so at ε̄ = 1.4 the Voce row is below the Hollomon row.
+    const spreadText = await page.locator('#law-spread').innerText();
+    const from = Number(/from ε̄ ≈ ([\d.]+)/.exec(spreadText)?.[1]);
+    expect(from).toBeGreaterThan(0.44); // past the end of the tested range, εu = n = 0.44
+    await page.fill('#prestrain-number', '1.4');
+    await settled(page, 'prestrain');
+    const rowYield = async (law: string) => Number(await page.locator('#law-table tbody tr', { hasText: law }).first().locator('td').nth(3).innerText());
+    expect(await rowYield('voce')).toBeLessThan(await rowYield('hollomon (K 530, n 0.44)'));
+    expectRelClose(await rowYield('hollomon (K 530, n 0.44)'), 530 * 1.402 ** 0.44, 0.05 / 600, 'Hollomon at 1.4');
     await page.screenshot({ path: `${SCREENSHOTS}/prestrain.png`, fullPage: true });
     expect(errors).toEqual([]);
   });

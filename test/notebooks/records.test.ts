@@ -69,4 +69,20 @@ describe('record bench', () => {
     expect(await page.locator('#ledger-table tbody tr').count()).toBeGreaterThan(0);
     expect(errors).toEqual([]);
   });
+
+  it('opens an invented demo record from examples/ and labels it invented', async () => {
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    const options = await page.locator('#example-select option').allInnerTexts();
+    expect(options).toContain('stamping-strip-loops.csv');
+    await page.selectOption('#example-select', { label: 'stamping-strip-loops.csv' });
+    await page.click('#load-example');
+    await expect.poll(() => page.locator('#properties').count(), { timeout: 30_000 }).toBe(1);
+    await settled(page, 'records');
+    expect(await page.locator('#record-input').innerText()).toContain('INVENTED');
+    // The file says it was generated from a Swift law with E 207 GPa (invented); the elastic
+    // window must find that modulus within the few per cent a fit window allows (CHECKS.md).
+    expectRelClose(await num(page, 'elasticModulus'), 207000, 0.05, 'E of the invented record');
+    expect(errors).toEqual([]);
+  });
 });

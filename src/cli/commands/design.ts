@@ -99,6 +99,7 @@ export const design: Command = {
         spec: { name: spec.doc.name, file, units: spec.units.system },
         feasible: res.feasible,
         candidatesTried: res.candidatesTried,
+        ledgerRuns: res.ledgerRuns,
         totalStrain: res.totalStrain,
         maxStrainBeforeAnneal: res.maxStrainBeforeAnneal,
         passStrainLimit: res.passStrainLimit,

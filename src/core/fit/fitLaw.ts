@@ -3,6 +3,7 @@ import { makeLaw } from '../flow/makeLaw.js';
 import { LAW_PARAMETERS } from '../flow/params.js';
 import type { LawName, LawSpec } from '../flow/types.js';
 import { fitStatistics } from './fitStatistics.js';
+import { lawJacobian } from './lawJacobian.js';
 import { levenbergMarquardt } from './levenbergMarquardt.js';
 import { startValues } from './startValues.js';
 import type { FitWarning, LawFit } from './types.js';
@@ -51,6 +52,21 @@ export function lawModel(law: LawName, strain: ArrayLike<number>): (p: Float64Ar
 }
 
 /**
+ * The model of a law at fixed strains by the closed forms of {@link lawJacobian} (the same formulas as
+ * the law files, checked against makeLaw in the tests); null outside the LAW_PARAMETERS box or domain.
+ */
+export function lawModelFast(law: LawName, strain: ArrayLike<number>): (p: Float64Array) => Float64Array | null {
+  const { lower, upper } = lawBounds(law);
+  return (p) => {
+    for (let j = 0; j < p.length; j++) if (!(p[j]! >= lower[j]! && p[j]! <= upper[j]!)) return null;
+    const out = new Float64Array(strain.length);
+    if (!lawJacobian(law, strain, p, out, null)) return null;
+    for (let i = 0; i < out.length; i++) if (!Number.isFinite(out[i]!)) return null;
+    return out;
+  };
+}
+
+/**
  * Fits one hardening law to a flow curve by bounded Levenberg–Marquardt least squares.
  *
  * Minimises Σ(σ_law(εᵢ) − σᵢ)² over the law's parameters within the LAW_PARAMETERS ranges, from
@@ -86,8 +102,10 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
     start = startValues(law, xs, ys);
   }
   start = start.map((v, j) => Math.min(upper[j]!, Math.max(lower[j]!, v)));
-  const model = lawModel(law, strain);
-  const res = levenbergMarquardt(model, stress, start, { lower, upper, maxIterations: opts.maxIterations ?? 300 });
+  const model = lawModelFast(law, strain);
+  const res = levenbergMarquardt(model, stress, start, {
+    lower, upper,
+    jacobian: (p, out) => lawJacobian(law, strain, p, new Float64Array(n), out), ...(opts.maxIterations !== undefined ? { maxIterations: opts.maxIterations } : {}) });
   const residuals = Array.from(res.predicted, (v, i) => v - stress[i]!);
   const st = fitStatistics(res.jacobian, residuals, stress, k, res.atBound, res.params);
   const warnings: FitWarning[] = [];

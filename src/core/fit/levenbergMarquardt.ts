@@ -17,10 +17,12 @@ export interface LmOptions {
   costTolerance?: number;
   /** Stop when every step component is below this fraction of its parameter. */
   stepTolerance?: number;
+  /** Analytic Jacobian: fills `out` (n×m row-major) at `p`; returns false to fall back to differences. */
+  jacobian?: (p: Float64Array, out: Float64Array) => boolean;
 }
 
 /** The one place the solver defaults live. */
-export const LM_DEFAULTS = { maxIterations: 300, costTolerance: 1e-12, stepTolerance: 1e-10, gradientTolerance: 1e-10 } as const;
+export const LM_DEFAULTS = { maxIterations: 500, costTolerance: 1e-10, stepTolerance: 1e-9, gradientTolerance: 1e-10 } as const;
 
 export interface LmResult {
   params: Float64Array;
@@ -44,7 +46,8 @@ export interface LmResult {
  *
  * Minimises S(p) = Σᵢ (f(p)ᵢ − yᵢ)² subject to lower ≤ p ≤ upper. Each iteration solves
  * (JᵀJ + λ·diag(JᵀJ))·δ = −Jᵀr (Marquardt's scaling, so the step is invariant to parameter units),
- * projects p + δ onto the box, and accepts it when S falls (λ ← λ/3), else λ ← 2λ and retries.
+ * projects p + δ onto the box, and accepts it when S falls (λ ← λ/3), else λ ← ν·λ, ν ← 2ν and retries (Nielsen's
+ * damping update, H. B. Nielsen, IMM-REP-1999-05, DTU).
  * Parameters sitting on a bound whose gradient pushes outward are held fixed for that iteration
  * (an active-set projection). The Jacobian is by forward differences, step √ε·max(|p|, 1e-6·scale),
  * taken backward when the forward point is outside the box or the model's domain.
@@ -83,6 +86,7 @@ export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: re
   if (!Number.isFinite(S)) throw new InputError('start', Array.from(p), 'a start where the model gives finite values');
   const J = new Float64Array(n * m);
   const jac = (fp: Float64Array) => {
+    if (opts.jacobian && opts.jacobian(p, J)) return;
     const q = Float64Array.from(p);
     for (let j = 0; j < m; j++) {
       const scale = Math.max(Math.abs(p[j]!), 1e-6 * Math.max(1, Math.abs(upper[j]!) < Infinity ? Math.abs(upper[j]!) : 1), 1e-12);
@@ -102,6 +106,7 @@ export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: re
     }
   };
   let lambda = 1e-3;
+  let nu = 2;
   let it = 0;
   let converged = false;
   let reason = 'iteration limit reached';
@@ -164,7 +169,8 @@ export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: re
         p.set(q);
         f = fq!;
         S = Sq;
-        lambda = Math.max(lambda / 3, 1e-12);
+        lambda = Math.max(lambda / 3, 1e-10);
+        nu = 2;
         jac(f);
         if (drop < ftol || small) {
           converged = true;
@@ -178,7 +184,8 @@ export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: re
         reason = 'no smaller cost within the step tolerance';
         break outer;
       }
-      lambda *= 2;
+      lambda *= nu;
+      nu *= 2;
       if (lambda > 1e16) {
         converged = true;
         reason = 'no descent direction left (damping at its limit)';

@@ -29,18 +29,26 @@ export const SPLIT_CHECK_STRAIN = 5;
 export function isotropicPart(law: FlowLaw, kin: KinematicSpec | undefined, path = 'kinematic'): { size: (p: number) => number; slope: (p: number) => number } {
   const bs = kin?.backstresses ?? [];
   if (bs.length === 0) return { size: law.stress, slope: law.slope };
-  const C = bs.map((b) => b.C);
-  const g = bs.map((b) => b.gamma);
-  const size = (p: number): number => {
-    let s = law.stress(p);
-    for (let i = 0; i < C.length; i++) s -= (C[i]! / g[i]!) * -Math.expm1(-g[i]! * p);
-    return s;
-  };
-  const slope = (p: number): number => {
-    let s = law.slope(p);
-    for (let i = 0; i < C.length; i++) s -= C[i]! * Math.exp(-g[i]! * p);
-    return s;
-  };
+  const C = Float64Array.from(bs, (b) => b.C);
+  const g = Float64Array.from(bs, (b) => b.gamma);
+  const stress = law.stress;
+  const lawSlope = law.slope;
+  // One backstress (the common case) without the loop: measurably faster in bench/integrator.mjs.
+  const c0 = C[0]!, g0 = g[0]!, sat0 = c0 / g0;
+  const size = C.length === 1
+    ? (p: number): number => stress(p) - sat0 * -Math.expm1(-g0 * p)
+    : (p: number): number => {
+      let s = stress(p);
+      for (let i = 0; i < C.length; i++) s -= (C[i]! / g[i]!) * -Math.expm1(-g[i]! * p);
+      return s;
+    };
+  const slope = C.length === 1
+    ? (p: number): number => lawSlope(p) - c0 * Math.exp(-g0 * p)
+    : (p: number): number => {
+      let s = lawSlope(p);
+      for (let i = 0; i < C.length; i++) s -= C[i]! * Math.exp(-g[i]! * p);
+      return s;
+    };
   for (let k = 0; k <= 240; k++) {
     const p = k === 0 ? 1e-9 : 1e-6 * Math.pow(SPLIT_CHECK_STRAIN / 1e-6, k / 240);
     const r = size(p);

@@ -74,6 +74,29 @@ export function createPathStepper(material: PathMaterial, opts: PathOptions = {}
   const Eof = decay ? (p: number) => chordModulus(E0, decay, p) : () => E0;
   const dEof = decay ? (p: number) => -(E0 - Ea) * xi * Math.exp(-xi * p) : () => 0;
 
+  // Scratch of the current plastic corrector, kept outside `to` so no closure is allocated per increment.
+  let cp = 0;
+  let cde = 0;
+  let cs: 1 | -1 = 1;
+  let g = 0;
+  let dg = 0;
+  // g(dp) = s·(σ − ΣX) − R, decreasing in dp; g(0) = f > 0. dg its derivative.
+  function evalG(dp: number): void {
+    const pe = cp + dp;
+    const Ee = Eof(pe);
+    const el = cde - cs * dp;
+    let sx = 0;
+    let dsx = 0;
+    for (let i = 0; i < n; i++) {
+      const sat = (cs * C[i]!) / G[i]!;
+      const ex = Math.exp(-G[i]! * dp);
+      sx += sat + (X[i]! - sat) * ex;
+      dsx -= G[i]! * (X[i]! - sat) * ex;
+    }
+    g = cs * (Ee * el - sx) - size(pe);
+    dg = cs * dEof(pe) * el - Ee - cs * dsx - slope(pe);
+  }
+
   function to(e1: number): number {
     const p = st.accumulated;
     const ep = st.plasticStrain;
@@ -91,25 +114,9 @@ export function createPathStepper(material: PathMaterial, opts: PathOptions = {}
       return 0;
     }
     const s: 1 | -1 = xiTr > 0 ? 1 : -1;
-    const de = e1 - ep;
-    // g(dp) = s·(σ − ΣX) − R, decreasing in dp; g(0) = f > 0.
-    let g = 0;
-    let dg = 0;
-    const evalG = (dp: number): void => {
-      const pe = p + dp;
-      const Ee = Eof(pe);
-      const el = de - s * dp;
-      let sx = 0;
-      let dsx = 0;
-      for (let i = 0; i < n; i++) {
-        const sat = (s * C[i]!) / G[i]!;
-        const ex = Math.exp(-G[i]! * dp);
-        sx += sat + (X[i]! - sat) * ex;
-        dsx += -G[i]! * (X[i]! - sat) * ex;
-      }
-      g = s * (Ee * el - sx) - size(pe);
-      dg = s * dEof(pe) * el - Ee - s * dsx - slope(pe);
-    };
+    cp = p;
+    cde = e1 - ep;
+    cs = s;
     let lo = 0;
     let hi = f / Ep;
     evalG(hi);

@@ -90,6 +90,8 @@ export interface DesignResult {
   routes: DesignedRoute[];
   /** Candidate schedules built and run through the ledger. */
   candidatesTried: number;
+  /** Ledger evaluations made (candidate routes and the pass-count search of their segments). */
+  ledgerRuns: number;
   totalStrain: number;
   maxStrainBeforeAnneal: number;
   /** Largest equivalent strain of one pass from the reduction limit. */
@@ -105,7 +107,7 @@ const DEFAULT_DUCTILITY_MARGIN = 0.2;
 /** Final-temper strains are chosen this far inside the window (fraction of its width), so rounding of sizes cannot leave it. */
 const WINDOW_INSET = 0.05;
 /** Number of final-temper strains tried across the window. */
-const WINDOW_SAMPLES = 5;
+const WINDOW_SAMPLES = 7;
 
 const fmt = (x: number, d = 4) => String(+x.toPrecision(d));
 
@@ -179,7 +181,8 @@ export function designRoute(spec: DesignSpec): DesignResult {
   const redPct = (s: number) => (draw ? -Math.expm1(-s) : -Math.expm1(-s / PLANE_STRAIN_FACTOR)) * 100;
   const win = coldWorkWindow(spec.material.law, 0, spec.window, basis);
   const base = { totalStrain: E, maxStrainBeforeAnneal: sMax, passStrainLimit: passStrain, window: win };
-  const infeasible = (limit: string, explanation: string, tried = 0): DesignResult => ({ feasible: false, routes: [], candidatesTried: tried, ...base, binding: { limit, explanation } });
+  let evaluations = 0;
+  const infeasible = (limit: string, explanation: string, tried = 0): DesignResult => ({ feasible: false, routes: [], candidatesTried: tried, ledgerRuns: evaluations, ...base, binding: { limit, explanation } });
 
   if (win.empty) return infeasible(`window (${win.limitedBy.from ?? '?'} against ${win.limitedBy.to ?? '?'})`, `no temper meets the window for this material: ${win.note}`);
   const lo = win.strainFrom ?? 0;
@@ -215,7 +218,6 @@ export function designRoute(spec: DesignSpec): DesignResult {
     return { use, governing };
   };
   const segmentCache = new Map<string, Segment>();
-  let evaluations = 0;
   const segment = (a: number, b: number, p: number): Segment => {
     const key = `${a}|${b}|${p}`;
     const hit = segmentCache.get(key);
@@ -360,5 +362,5 @@ export function designRoute(spec: DesignSpec): DesignResult {
   const score = (r: DesignedRoute) => Math.min(r.windowMargin, r.passMargin, r.annealMargin);
   candidates.sort((a, b) => a.anneals - b.anneals || a.passes - b.passes || score(b) - score(a));
   const routes = candidates.slice(0, maxRoutes).map((r, i) => ({ ...r, rank: i + 1 }));
-  return { feasible: true, routes, candidatesTried: tried, ...base };
+  return { feasible: true, routes, candidatesTried: tried, ledgerRuns: evaluations, ...base };
 }

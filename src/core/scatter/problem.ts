@@ -6,6 +6,7 @@ import type { ModulusDecay } from '../material/modulus.js';
 import { STEP_KINDS, stockOf, type StepEffect } from '../route/steps.js';
 import { TARGET_DEFS, TARGET_NAMES, validateTargets } from '../route/targets.js';
 import type { Material, Size, StateProperties, Step, StockKind, TargetName, Targets } from '../route/types.js';
+import { stateProperties } from '../route/state.js';
 import { cholesky } from './cholesky.js';
 
 /** Samples per block. Each block has its own random stream, so results do not depend on how blocks are shared out. */
@@ -131,9 +132,14 @@ export function prepareScatter(problem: ScatterProblem, path = 'scatter'): Prepa
     ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}),
     ...(m.fittedStrainRange ? { fittedStrainRange: m.fittedStrainRange } : {}),
   };
-  makeLaw(lawSpec, 'material.flowCurve');
   const hasStart = slots.some((s) => s.kind === 'start');
   const fixedEffects = hasStart ? null : stepEffects(problem.start, stock, problem.steps);
+  const nominal = stateProperties({ ...baseMaterial, law: makeLaw(lawSpec, 'material.flowCurve') } as Material, 0);
+  for (const t of TARGET_NAMES) {
+    if (targets[t] !== undefined && typeof nominal[TARGET_DEFS[t].property] !== 'number') {
+      throw new InputError(`targets.${t}`, targets[t], 'with a scatter section, only targets on the final state\'s properties (minYield, maxYield, minTensile, minRemainingElongationPct)');
+    }
+  }
   const targetChecks = TARGET_NAMES.filter((t) => targets[t] !== undefined)
     .map((name) => ({ name, property: TARGET_DEFS[name].property, min: TARGET_DEFS[name].sense === 'min', limit: targets[name]! }));
   return {

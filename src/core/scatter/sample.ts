@@ -120,6 +120,7 @@ export function sampleScatterBlock(prep: PreparedScatter, index: number): Scatte
   const x = new Float64Array(p);
   const material: Material = { ...prep.baseMaterial, law: sampleLaw(prep, mu) };
   let rejected = 0;
+  let lastReason = '';
   for (let s = 0; s < count; s++) {
     for (let tries = 0; ; tries++) {
       for (let i = 0; i < p; i++) zz[i] = z();
@@ -135,6 +136,7 @@ export function sampleScatterBlock(prep: PreparedScatter, index: number): Scatte
         out = finalState(prep, material, prep.fixedEffects ?? stepEffects(sampleStart(prep, x), prep.stock, problem.steps));
       } catch (e) {
         if (!(e instanceof InputError || e instanceof ComputationError)) throw e;
+        lastReason = e.message;
       }
       if (out) {
         inputs.set(x, s * p);
@@ -147,7 +149,7 @@ export function sampleScatterBlock(prep: PreparedScatter, index: number): Scatte
       rejected++;
       if (tries + 1 >= MAX_CONSECUTIVE_REJECTS) {
         throw new InputError('scatter', `${MAX_CONSECUTIVE_REJECTS} draws in a row`, 'spreads narrow enough that most draws are valid law parameters and start sizes the route can take',
-          'the scattered inputs fall outside what the law or the route allows');
+          `the scattered inputs fall outside what the law or the route allows (last: ${lastReason})`);
       }
     }
   }

@@ -146,7 +146,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   }
   let modulusDecay = null;
   if (cycles.length) {
-    const ep = cycles.map((c) => Math.log1p(c.permanentStrain));
+    const ep = cycles.map((c) => c.permanentStrain);
     const ok = ep.every((v) => v > 0);
     if (ok) modulusDecay = fitModulusDecay(E, ep, cycles.map((c) => c.unloadModulus));
     if (cycles.length < 3) warnings.push({ code: 'cycles', message: `${cycles.length} unload–reload cycle(s); at least 3 are needed to fit the fall of the chord modulus` });

@@ -8,14 +8,23 @@ export const UNLOAD_MIN_DROP = 0.3;
 /**
  * Finds unload–reload cycles: a stress peak followed by a fall of at least UNLOAD_MIN_DROP of the
  * peak stress while the strain also falls (elastic recovery; a fall at rising strain is necking or
- * fracture, not unloading). For each: the chord modulus between the start of unloading and the
- * reversal (ASTM E111 chord modulus), the permanent strain e_u − σ_u/E_u, the recovered strain
- * σ_u/E_u, and the reload 0.2 % proof strength (offset line through the reversal point, parallel to
- * the unloading chord — the ISO 6892-1 offset construction applied to the reload branch).
- * Units: strain fraction (toe-compensated by `toe`), stress MPa.
+ * fracture, not unloading). Everything is computed on true stress σ = s(1+e) and true strain
+ * ε = ln(1+e) (toe-compensated), the basis of the chord-modulus law. For each cycle: the chord modulus
+ * between the start of unloading and the reversal (ASTM E111 chord modulus), the true plastic strain
+ * left ε_u − σ_u/E_u, the true elastic strain recovered σ_u/E_u, and the reload 0.2 % proof strength
+ * (true stress; offset line through the reversal point, parallel to the unloading chord — the
+ * ISO 6892-1 offset construction applied to the reload branch).
+ * Units: engineering strain fraction and stress MPa in; MPa and true strain out.
  */
-export function findCycles(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, fromIndex: number, noise: number): UnloadCycle[] {
-  const n = stress.length;
+export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<number>, E: number, toe: number, fromIndex: number, noise: number): UnloadCycle[] {
+  const n = engStress.length;
+  // Work in true stress and true strain: at 10 % strain the engineering chord would read (1 + e)² ≈ 21 % low.
+  const strain = new Float64Array(n), stress = new Float64Array(n);
+  for (let q = 0; q < n; q++) {
+    const e = Math.max(engStrain[q]! - toe, -0.5);
+    strain[q] = Math.log1p(e);
+    stress[q] = engStress[q]! * (1 + e);
+  }
   const out: UnloadCycle[] = [];
   const tol = 3 * noise;
   let i = Math.max(1, fromIndex);
@@ -29,8 +38,11 @@ export function findCycles(strain: ArrayLike<number>, stress: ArrayLike<number>,
     }
     const drop = stress[i]! - stress[r]!;
     if (!(drop >= UNLOAD_MIN_DROP * stress[i]!) || !(strain[r]! < strain[i]! - (0.3 * drop) / E)) { i++; continue; }
-    const u = i;
-    const Eu = drop / (strain[u]! - strain[r]!);
+    // Unloading starts where the strain turns back: the largest strain between the peak and the reversal.
+    let u = i;
+    for (let q = i; q <= r; q++) if (strain[q]! > strain[u]!) u = q;
+    if (!(strain[u]! > strain[r]!)) { i = r + 1; continue; }
+    const Eu = (stress[u]! - stress[r]!) / (strain[u]! - strain[r]!);
     const su = stress[u]!;
     // Reload: from the reversal until the strain passes the start of unloading by 0.5 % or the next unloading.
     let reload: number | null = null;
@@ -51,7 +63,7 @@ export function findCycles(strain: ArrayLike<number>, stress: ArrayLike<number>,
       reversalIndex: r,
       unloadStress: su,
       unloadModulus: Eu,
-      permanentStrain: strain[u]! - toe - su / Eu,
+      permanentStrain: strain[u]! - su / Eu,
       recoveredStrain: su / Eu,
       reloadProofStrength: reload,
     });

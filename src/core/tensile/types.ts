@@ -27,18 +27,18 @@ export interface ElasticWindow {
   method: string;
 }
 
-/** One unload–reload cycle (engineering values, toe-compensated strains). */
+/** One unload–reload cycle (true stress and true strain, toe-compensated). */
 export interface UnloadCycle {
   /** Index where unloading starts and where the reversal (lowest stress) is. */
   unloadIndex: number;
   reversalIndex: number;
-  /** Stress at the start of unloading, MPa. */
+  /** True stress at the start of unloading, MPa. */
   unloadStress: number;
   /** Chord modulus between the start of unloading and the reversal (ASTM E111 chord), MPa. */
   unloadModulus: number;
-  /** Engineering plastic strain left after unloading: e_u − σ_u/E_u (fraction). */
+  /** True plastic strain left after unloading: ε_u − σ_u/E_u. */
   permanentStrain: number;
-  /** Elastic strain recovered on unloading σ_u/E_u (fraction). */
+  /** True elastic strain recovered on unloading σ_u/E_u. */
   recoveredStrain: number;
   /** 0.2 % proof strength of the reload branch, offset parallel to the unloading chord, MPa; null when the reload does not reach it. */
   reloadProofStrength: number | null;

@@ -1,3 +1,5 @@
+import { linearFit } from '../fit/linearFit.js';
+
 export interface YieldPointResult {
   upperYield: number;
   lowerYield: number;
@@ -53,10 +55,27 @@ export function yieldPoint(
   // End of the plateau: the last point at or below level + band before Rm.
   let end = m1;
   for (let k = m1; k <= maxIndex; k++) if (stress[k]! <= level + band) end = k;
+  // Ae ends where work hardening starts: the intersection of the mean plateau level with a straight line
+  // fitted to the first 0.5 % strain of the hardening branch (the construction of ASTM E8 for YPE).
+  let endStrain = strain[end]!;
+  {
+    let j = end;
+    while (j < maxIndex && strain[j]! - strain[end]! < 0.005) j++;
+    let mean = 0, cnt = 0;
+    for (let k = m1; k <= end; k++) { mean += stress[k]!; cnt++; }
+    mean /= cnt;
+    if (j - end >= 3) {
+      try {
+        const h = linearFit(strain, stress, end, j + 1);
+        const x = (mean - h.intercept) / h.slope;
+        if (h.slope > 0 && x >= strain[m1]! && x <= strain[j]!) endStrain = x;
+      } catch { /* keep the last plateau point */ }
+    }
+  }
   let rel = stress[m1]!;
   if (end > m1 + 1) {
     rel = Infinity;
     for (let k = m1 + 1; k <= end; k++) rel = Math.min(rel, stress[k]!);
   }
-  return { upperYield: reh, lowerYield: Math.min(rel, reh), peakIndex: peak, endIndex: end, elongationPct: (strain[end]! - strain[peak]!) * 100 };
+  return { upperYield: reh, lowerYield: Math.min(rel, reh), peakIndex: peak, endIndex: end, elongationPct: (endStrain - strain[peak]!) * 100 };
 }

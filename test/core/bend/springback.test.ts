@@ -113,3 +113,27 @@ describe('springback input validation', () => {
     expect(() => springback({ ...epp, poissonRatio: 0.5 }, { radius: 2, angleDeg: 90 })).toThrow(/bend\.poissonRatio/);
   });
 });
+
+describe('springback(prestrained section with a backstress)', () => {
+  // Low-carbon steel, Callister 2nd ed. p. 199 (K 600, n 0.21), E 207 GPa (Table B.2); the backstress
+  // (C 15000 MPa, γ 150) is an invented input. After forward prestrain the backstress is near C/γ, so
+  // the inner (compressed, i.e. reversed) fibres yield at X − R instead of at σ(ε̄): the section is
+  // weaker in compression than in tension (Bauschinger effect).
+  const base: BendSection = { elasticModulus: 207000, poissonRatio: 0.3, law: hollomon({ K: 600, n: 0.21 }), thickness: 1.6, prestrain: 0.2 };
+  const X = 100 * (1 - Math.exp(-150 * 0.2)); // closed-form backstress after ε̄ = 0.2 forward
+  const kin: BendSection = { ...base, kinematic: { backstresses: [{ C: 15000, gamma: 150 }] }, backstresses: [X] };
+  it('moves the neutral surface towards the outer side and lowers the moment and the springback', () => {
+    const a = springback(base, { radius: 6, angleDeg: 90 });
+    const b = springback(kin, { radius: 6, angleDeg: 90 });
+    expect(a.neutralShift).toBe(0);
+    expect(b.neutralShift).toBeGreaterThan(0);
+    expect(b.moment).toBeLessThan(a.moment);
+    expect(b.springbackDeg).toBeLessThan(a.springbackDeg);
+  });
+  it('is mirror-symmetric: a reverse bend of a reverse-prestrained strip equals the forward case', () => {
+    const a = springback(kin, { radius: 6, angleDeg: 90 });
+    const b = springback({ ...kin, backstresses: [-X], reverse: true }, { radius: 6, angleDeg: 90 });
+    expectRelClose(b.springbackDeg, a.springbackDeg, 1e-9, 'springback');
+    expectRelClose(b.neutralShift, a.neutralShift, 1e-6, 'neutral shift');
+  });
+});
