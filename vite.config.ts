@@ -18,6 +18,8 @@ export default defineConfig(({ mode }) => ({
   ...(mode === 'test' ? {} : {
     root: page(''),
     publicDir: false as const,
+    // Several pages, no single-page fallback: an unknown path is a 404, not the index page.
+    appType: 'mpa' as const,
     // Pre-bundle up front so a first visit never triggers a reload for newly found dependencies.
     optimizeDeps: { include: ['@observablehq/runtime', '@observablehq/plot', 'zod', 'yaml'] },
     server: { host: '127.0.0.1', fs: { allow: [repo] } },
@@ -31,6 +33,9 @@ export default defineConfig(({ mode }) => ({
           prestrain: page('prestrain/index.html'),
           route: page('route/index.html'),
           records: page('records/index.html'),
+          design: page('design/index.html'),
+          scatter: page('scatter/index.html'),
+          reversal: page('reversal/index.html'),
         },
       },
     },

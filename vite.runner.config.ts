@@ -11,12 +11,13 @@ export default defineConfig({
   build: {
     ssr: 'src/cli/main.ts',
     outDir: 'dist/runner',
-    emptyOutDir: true,
+    // Not emptied: other test runs may be reading the previous build; stable chunk names overwrite it in place.
+    emptyOutDir: false,
     target: 'node20',
     minify: false,
     sourcemap: false,
     rollupOptions: {
-      output: { format: 'es', entryFileNames: 'main.js', chunkFileNames: 'chunks/[name]-[hash].js' },
+      output: { format: 'es', entryFileNames: 'main.js', chunkFileNames: 'chunks/[name].js' },
     },
   },
   ssr: { target: 'node', noExternal: true },

@@ -30,13 +30,15 @@ static void step(State *st, double e1) {
   st->eps = e1;
   if (f <= TOL * scale) { st->sig = trial; return; }
   const double s = xi > 0 ? 1.0 : -1.0;
+  const double EG = exp(-G * p); /* exp(-G(p+dp)) = EG*exp(-G dp), as in the Node code */
   const double de = e1 - ep;
   const double sat = s * C / G;
   double g = 0, dg = 0;
 #define EVALG(dp) do { \
     const double pe_ = p + (dp); const double el_ = de - s * (dp); const double ex_ = exp(-G * (dp)); \
     const double sx_ = sat + (X - sat) * ex_; const double dsx_ = -G * (X - sat) * ex_; \
-    g = s * (E * el_ - sx_) - size(pe_); dg = -E - s * dsx_ - slope(pe_); } while (0)
+    const double e_ = EG * ex_; const double rk_ = (C / G) * (1 - e_); const double drk_ = C * e_; \
+    g = s * (E * el_ - sx_) - (law_stress(pe_) - rk_); dg = -E - s * dsx_ - (law_slope(pe_) - drk_); } while (0)
   double lo = 0, hi = f / E;
   EVALG(hi);
   int expand = 0;

@@ -8,6 +8,9 @@ export const NOTEBOOKS = [
   { path: 'prestrain/', title: 'Prestrain explorer', blurb: 'Drag the prestrain: reload yield, tensile strength, elastic recovery and remaining uniform elongation follow, for every law side by side.' },
   { path: 'route/', title: 'Route planner', blurb: 'Edit a route of forming steps and anneals; the ledger, the targets and the cold-work window follow. Import and export plan files for the runner.' },
   { path: 'records/', title: 'Record bench', blurb: 'Drop a tensile-test record (CSV): properties, the elastic window, law fits with residuals and intervals; send a law to the route planner.' },
+  { path: 'design/', title: 'Route designer', blurb: 'Give start and final size, pass and anneal limits and a property window: ranked routes with passes, anneals and the final temper reduction, each downloadable as a plan.' },
+  { path: 'scatter/', title: 'Scatter', blurb: 'Heat-to-heat scatter of the stock through the route: histogram of the final yield with the target, the probability of meeting it and a lower tolerance bound, following the final-pass slider.' },
+  { path: 'reversal/', title: 'Reversal and springback', blurb: 'A load path pulled then pushed back, with backstresses against isotropic hardening; the springback and residual stress of a bend, following the prestrain slider.' },
 ] as const;
 
 /** Header with the navigation (current page marked) and the cautions at the top of every notebook. */

@@ -99,8 +99,11 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
         // Prefer decimal comma when the data use it and the delimiter allows it.
         let decimalComma = dc;
         if (!opts.decimal && d !== ',' && !dc) {
-          const f = splitLine(r.data.l, d);
-          if (f.some((t) => /^[+-]?\d*,\d+([eE][+-]?\d+)?$/.test(t))) decimalComma = true;
+          // Look at up to 50 data rows: the first rows are often whole numbers (0;0).
+          const start = nonEmpty.indexOf(r.data);
+          for (const row of nonEmpty.slice(start, start + 50)) {
+            if (splitLine(row.l, d).some((t) => /^[+-]?\d*,\d+([eE][+-]?\d+)?$/.test(t))) { decimalComma = true; break; }
+          }
         }
         const metadata = new Map<string, { key: string; value: string; unit: string; line: number }>();
         for (let m = 0; m < k; m++) {

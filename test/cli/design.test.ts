@@ -95,3 +95,30 @@ describe('README: the design specification shown in "Process planning" is a vali
     expect(fromReadme.routes[0]!.steps).toEqual(fromFile.routes[0]!.steps);
   });
 });
+
+describe('strainledger run: the pass-load fields of the report contract, in the plan\'s units', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'sl-loads-'));
+  // Callister low-carbon steel K 600 MPa (87.02 ksi), n 0.21; die 6°, μ 0.05 (invented demo values).
+  const plan = (units: 'SI' | 'US') => {
+    const L = units === 'US' ? 1 / 25.4 : 1;
+    const S = units === 'US' ? 1 / 6.894757293168361 : 1;
+    const f = join(dir, `${units}.json`);
+    writeFileSync(f, JSON.stringify({
+      name: 'loads', units,
+      material: { name: 'steel', elasticModulus: 207000 * S, flowCurve: { law: 'hollomon', K: 600 * S, n: 0.21 }, density: 7850, specificHeat: 486 },
+      start: units === 'US' ? { diameter: 5.5 * L } : { diameter: 5.5 },
+      steps: [{ kind: 'draw', diameter: 4.6 * L, dieHalfAngleDeg: 6, friction: 0.05 }],
+    }));
+    return JSON.parse(cli('run', f, '--format', 'json').stdout).steps[0];
+  };
+  it('drawingStress in MPa or ksi, drawingForce in N or lbf (NIST SP 811 B.8: 1 lbf = 4.4482216152605 N); ratio, ΔT unit-free', () => {
+    const si = plan('SI');
+    const us = plan('US');
+    for (const k of ['drawingStress', 'drawingForce', 'drawabilityRatio', 'maxAreaReductionPct', 'temperatureRise']) expect(si, k).toHaveProperty(k);
+    expect(si).not.toHaveProperty('rollForce');
+    expectRelClose(us.drawingStress, si.drawingStress / 6.894757293168361, 1e-9, 'ksi');
+    expectRelClose(us.drawingForce, si.drawingForce / 4.4482216152605, 1e-9, 'lbf');
+    expectRelClose(us.drawabilityRatio, si.drawabilityRatio, 1e-9, 'ratio');
+    expectRelClose(us.temperatureRise, si.temperatureRise, 1e-9, 'K');
+  });
+});

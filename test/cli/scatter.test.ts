@@ -117,7 +117,7 @@ describe('invalid scatter sections exit 2 with file, line, field, value and rang
 
 describe('strainledger run PLAN with scatter.records (several specimens of one material)', () => {
   it('fits the law to each record and samples the specimens\' means, spreads and K–n correlation', async () => {
-    const { specimens } = await import('../core/scatter/specimens.test.js');
+    const { specimens } = await import('../core/scatter/specimenFixtures.js');
     const dir = mkdtempSync(join(tmpdir(), 'sl-rec-'));
     const files = specimens.map((s: { name: string; strain: number[]; stress: number[] }) => {
       const f = `${s.name}.csv`;
@@ -138,14 +138,13 @@ describe('strainledger run PLAN with scatter.records (several specimens of one m
     expect(Object.keys(rep.scatter.correlation)).toEqual(['K,n']);
     expect(rep.material.flowCurve.K).toBe(inputs.K.mean);
   });
-  it('exits 2 naming scatter.records[1] when a record file is missing', () => {
+  it('exits 2 naming scatter.records[0] when a record file is missing', () => {
     const dir = mkdtempSync(join(tmpdir(), 'sl-rec-'));
     const base = JSON.parse(readFileSync(join(ROOT, PLAN), 'utf8'));
     const planFile = join(dir, 'plan.json');
-    writeFileSync(join(dir, 'a.csv'), 'Strain [%],Stress [MPa]\n0,0\n');
-    writeFileSync(planFile, JSON.stringify({ ...base, scatter: { records: ['a.csv', 'missing.csv'] } }, null, 2));
+    writeFileSync(planFile, JSON.stringify({ ...base, scatter: { records: ['missing-a.csv', 'missing-b.csv'] } }, null, 2));
     const r = run('run', planFile, '--format', 'json');
     expect(r.status).toBe(2);
-    expect(r.stderr).toMatch(/scatter\.records\[1\]: got "missing\.csv" .*file not found/);
+    expect(r.stderr).toMatch(/:\d+:\d+: scatter\.records\[0\]: got "missing-a\.csv" .*file not found/);
   });
 });

@@ -15,7 +15,46 @@ type Page = import('playwright-core').Page;
 const ledgerCells = (page: Page) => page.$$eval('#ledger-table tbody tr', (trs) => trs.map((tr) =>
   Object.fromEntries([...tr.querySelectorAll('td')].map((td) => [td.getAttribute('data-col'), td.textContent]))));
 
+type Report = { steps: Record<string, any>[]; targets: { name: string; met: boolean; predicted: number }[] };
+
+/** Exports the plan through the page's own button (a real download) and runs the runner on it. */
+async function exportAndRun(page: Page, name: string): Promise<Report> {
+  const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export')]);
+  const file = join(tmp, name);
+  await download.saveAs(file);
+  const run = spawnSync(process.execPath, [join(REPO, 'bin', 'strainledger.js'), 'run', file, '--format', 'json'], { encoding: 'utf8' });
+  expect([0, 1], `runner exit ${run.status}: ${run.stderr}`).toContain(run.status); // 0 all targets met, 1 some not met; 2 invalid input
+  return JSON.parse(run.stdout) as Report;
+}
+
+/** Every ledger number and target on the page equals the runner's, to the displayed precision. */
+async function expectParity(page: Page, report: Report, shown: Record<string, string | null>[]): Promise<void> {
+  const digits: Record<string, number> = { strainIncrement: 4, accumulatedStrain: 4, coldWorkPct: 1, reloadYield: 1, tensileStrength: 1, yieldRatio: 3, remainingUniformElongationPct: 1 };
+  expect(shown.length).toBe(report.steps.length);
+  report.steps.forEach((s, i) => {
+    for (const [k, d] of Object.entries(digits)) expect(shown[i]![k], `step ${i + 1} ${k}`).toBe((s[k] as number).toFixed(d));
+    expect(shown[i]!.elasticRecoveryPct, `step ${i + 1} recovery`).toBe((s.elasticRecoveryStrain * 100).toFixed(3));
+  });
+  for (const t of report.targets) {
+    const li = await page.locator(`[data-target="${t.name}"]`).innerText();
+    expect(li).toContain(t.met ? 'met' : 'NOT met');
+    expect(li).toContain(t.predicted.toFixed(2));
+  }
+}
+
 describe('route planner', () => {
+  it('a US-unit demo plan (ksi, in) shows the runner\'s numbers in ksi', async () => {
+    const { page, errors, context } = await openPage(h, '/route/');
+    await settled(page, 'route');
+    await page.selectOption('#demo-select', { label: 'examples/fencing-wire-us.json (INVENTED)' });
+    await page.click('#load-demo');
+    await settled(page, 'route');
+    expect(await page.locator('#ledger-table thead').innerText()).toContain('ksi');
+    await expectParity(page, await exportAndRun(page, 'us.json'), await ledgerCells(page));
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it('an edited route, exported and run through the runner, gives the numbers the page shows', async () => {
     const { page, errors } = await openPage(h, '/route/');
     await settled(page, 'route');
@@ -37,25 +76,9 @@ describe('route planner', () => {
     expect(shown.length).toBe(6);
     expect(shown).not.toEqual(before);
     expect(await page.locator('#cell-strength-chart svg').last().innerHTML()).not.toEqual(chart0);
-    // Export through the page's own button (a real download of the plan file).
-    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export')]);
-    const file = join(tmp, 'edited.json');
-    await download.saveAs(file);
-    const run = spawnSync(process.execPath, [join(REPO, 'bin', 'strainledger.js'), 'run', file, '--format', 'json'], { encoding: 'utf8' });
-    expect([0, 1]).toContain(run.status); // 0 all targets met, 1 some not met; 2 would be invalid input
-    const report = JSON.parse(run.stdout) as { steps: Record<string, any>[]; targets: { name: string; met: boolean; predicted: number }[] };
+    const report = await exportAndRun(page, 'edited.json');
     expect(report.steps.length).toBe(6);
-    // Parity to the displayed precision (the same digits as the runner's table report).
-    const digits: Record<string, number> = { strainIncrement: 4, accumulatedStrain: 4, coldWorkPct: 1, reloadYield: 1, tensileStrength: 1, yieldRatio: 3, remainingUniformElongationPct: 1 };
-    report.steps.forEach((s, i) => {
-      for (const [k, d] of Object.entries(digits)) expect(shown[i]![k], `step ${i + 1} ${k}`).toBe((s[k] as number).toFixed(d));
-      expect(shown[i]!.elasticRecoveryPct, `step ${i + 1} recovery`).toBe((s.elasticRecoveryStrain * 100).toFixed(3));
-    });
-    for (const t of report.targets) {
-      const li = await page.locator(`[data-target="${t.name}"]`).innerText();
-      expect(li).toContain(t.met ? 'met' : 'NOT met');
-      expect(li).toContain(t.predicted.toFixed(2));
-    }
+    await expectParity(page, report, shown);
     // Undo the last edit (the move up) and the route goes back.
     await page.click('#undo');
     await settled(page, 'route');

@@ -2,14 +2,11 @@ import { mkdirSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { parseArgs } from 'node:util';
 import type { DesignResult, DesignedRoute } from '../../core/process/designRoute.js';
-import type { LoadedDesignSpec } from '../../plan/designSpec.js';
+import { loadDesignSpecText, routeToPlan, runDesign, type LoadedDesignSpec } from '../../plan/designSpec.js';
 import { PlanError } from '../../plan/problems.js';
 import { CAUTIONS } from '../../report/cautions.js';
 import type { Command } from '../command.js';
 import { readText, writeFileAtomic } from '../io.js';
-
-// The design modules are imported when the command runs, so other commands start as fast as before.
-let routeToPlan: typeof import('../../plan/designSpec.js').routeToPlan;
 
 const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
 const f = (x: number, d = 4) => String(+x.toPrecision(d));
@@ -66,7 +63,7 @@ export const design: Command = {
     'design SPEC [--format table|json] [--out DIR]',
     '      propose ranked routes (passes, anneals, final temper reduction) for a design specification; --out writes each as a plan file; exit 0 routes found, 1 none feasible, 2 invalid input',
   ].join('\n'),
-  async run(args, io) {
+  run(args, io) {
     const { values, positionals } = parseArgs({ args, allowPositionals: true, strict: true, options: { format: { type: 'string', default: 'table' }, out: { type: 'string' } } });
     if (positionals.length !== 1) throw cliError('SPEC', `got ${positionals.length} specification files, allowed exactly one`);
     const format = values.format!;
@@ -79,9 +76,6 @@ export const design: Command = {
       }
     }
     const file = positionals[0]!;
-    const mod = await import('../../plan/designSpec.js');
-    const { loadDesignSpecText, runDesign } = mod;
-    routeToPlan = mod.routeToPlan;
     const spec = loadDesignSpecText(readText(file), file);
     const res = runDesign(spec);
     const written: string[] = [];

@@ -61,13 +61,16 @@ export function createPathStepper(material: PathMaterial, opts: PathOptions = {}
   const iso = isotropicPart(material.law, kin, 'material.kinematic');
   const size = iso.size;
   const slope = iso.slope;
+  const lawStress = material.law.stress;
+  const lawSlope = material.law.slope;
   const decay = material.modulusDecay;
   const Ea = decay ? decay.Ea : E0;
   const xi = decay ? decay.xi : 0;
   const n = kin ? kin.backstresses.length : 0;
   const C = new Float64Array(n);
   const G = new Float64Array(n);
-  for (let i = 0; i < n; i++) { C[i] = kin!.backstresses[i]!.C; G[i] = kin!.backstresses[i]!.gamma; }
+  const SAT = new Float64Array(n);
+  for (let i = 0; i < n; i++) { C[i] = kin!.backstresses[i]!.C; G[i] = kin!.backstresses[i]!.gamma; SAT[i] = C[i]! / G[i]!; }
   const X = new Float64Array(n);
   const st = { strain: 0, stress: 0, plasticStrain: 0, accumulated: 0 };
   const stats = { converged: true, iterations: 0, residual: 0 };
@@ -80,6 +83,10 @@ export function createPathStepper(material: PathMaterial, opts: PathOptions = {}
   let cs: 1 | -1 = 1;
   let g = 0;
   let dg = 0;
+  // exp(−γᵢ·p) at the start of the increment: R(p + dp) needs exp(−γᵢ(p + dp)) = EG[i]·exp(−γᵢ·dp), and
+  // exp(−γᵢ·dp) is already needed for the backstress, so each evaluation costs one exponential per
+  // backstress instead of three (R(p) = σ(p) − Σ(Cᵢ/γᵢ)(1 − exp(−γᵢp)), see hardening.ts).
+  const EG = new Float64Array(n);
   // g(dp) = s·(σ − ΣX) − R, decreasing in dp; g(0) = f > 0. dg its derivative.
   function evalG(dp: number): void {
     const pe = cp + dp;
@@ -87,14 +94,19 @@ export function createPathStepper(material: PathMaterial, opts: PathOptions = {}
     const el = cde - cs * dp;
     let sx = 0;
     let dsx = 0;
+    let rk = 0;
+    let drk = 0;
     for (let i = 0; i < n; i++) {
-      const sat = (cs * C[i]!) / G[i]!;
+      const sat = cs * SAT[i]!;
       const ex = Math.exp(-G[i]! * dp);
       sx += sat + (X[i]! - sat) * ex;
       dsx -= G[i]! * (X[i]! - sat) * ex;
+      const e = EG[i]! * ex;
+      rk += SAT[i]! * (1 - e);
+      drk += C[i]! * e;
     }
-    g = cs * (Ee * el - sx) - size(pe);
-    dg = cs * dEof(pe) * el - Ee - cs * dsx - slope(pe);
+    g = cs * (Ee * el - sx) - (lawStress(pe) - rk);
+    dg = cs * dEof(pe) * el - Ee - cs * dsx - (lawSlope(pe) - drk);
   }
 
   function to(e1: number): number {
@@ -114,6 +126,7 @@ export function createPathStepper(material: PathMaterial, opts: PathOptions = {}
       return 0;
     }
     const s: 1 | -1 = xiTr > 0 ? 1 : -1;
+    for (let i = 0; i < n; i++) EG[i] = Math.exp(-G[i]! * p);
     cp = p;
     cde = e1 - ep;
     cs = s;
@@ -147,7 +160,7 @@ export function createPathStepper(material: PathMaterial, opts: PathOptions = {}
     if (it + 1 > stats.iterations) stats.iterations = it + 1;
     if (res > stats.residual) stats.residual = res;
     for (let i = 0; i < n; i++) {
-      const sat = (s * C[i]!) / G[i]!;
+      const sat = s * SAT[i]!;
       X[i] = sat + (X[i]! - sat) * Math.exp(-G[i]! * dp);
     }
     st.plasticStrain = ep + s * dp;

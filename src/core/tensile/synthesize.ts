@@ -71,13 +71,18 @@ export function synthesizeRecord(spec: SynthSpec): SynthRecord {
   if (law.stress(0) <= 0 && lued === 0) ep0 = spec.startStrain ?? 0.001;
   const sigY = law.stress(ep0);
   const reh = spec.yieldPoint ? spec.yieldPoint.upperRatio * sigY : null;
-  // Elastic rise (true ≈ engineering here; the conversion is exact anyway).
-  const top = reh ?? sigY;
-  const he = Math.min(h, top / E / 40); // at least 40 samples on the elastic rise, as test machines record it
+  // Elastic line (at least 40 samples, as test machines record it) to ReH, or for a law without an initial
+  // yield stress to 0.95·σ(ε0), then a rising microplastic segment to σ(ε0) (no plateau, no drop).
+  const micro = !spec.yieldPoint && ep0 > 0;
+  const top = reh ?? (micro ? 0.95 * sigY : sigY);
+  const he = Math.min(h, top / E / 40);
   for (let eps = 0; eps < top / E; eps += he) pushTrue(eps, E * eps);
   pushTrue(top / E, top);
-  // Plateau (Lüders) at σ(εL) or the small Hollomon start segment.
-  for (let ep = h; ep < ep0; ep += h) pushTrue(ep + sigY / E, sigY);
+  // Plateau (Lüders) at σ(εL), or the microplastic segment.
+  for (let ep = h; ep < ep0; ep += h) {
+    const sg = micro ? sigY * (0.95 + (0.05 * ep) / ep0) : sigY;
+    pushTrue(ep + sg / E, sg);
+  }
   const chord: number[] = [];
   const cyc = [...(spec.cycles?.plasticStrains ?? [])].sort((a, b) => a - b);
   let ci = 0;

@@ -15,7 +15,7 @@ export interface YieldPointResult {
  * elongation Ae (ISO 6892-1 §3.10.2 and §3.6.5; ASTM E8 §7.6 "YPE").
  *
  * ReH is the first stress peak that lies within 0.5 % plastic strain of the elastic line and is
- * followed by a fall of at least max(0.5 % of the peak, 5 × the elastic-fit noise) before the stress
+ * followed by a fall of at least max(0.5 % of the peak, 6 × the elastic-fit noise) before the stress
  * passes the peak again (a first fall of force, ISO 6892-1 §3.10.2.1). The plateau level is the median
  * stress over 0.2 % strain after the first minimum; the plateau ends at the last point before Rm whose
  * stress is within max(4 × noise, 0.5 %) of that level (our reading of "start of uniform work
@@ -33,7 +33,7 @@ export function yieldPoint(
     if (!(s >= stress[i - 1]! && s > stress[i + 1]!)) continue;
     const plastic = strain[i]! - toe - s / E;
     if (plastic > 0.005) break;
-    const tol = Math.max(0.005 * s, 5 * noise);
+    const tol = Math.max(0.005 * s, 6 * noise);
     let fell = false;
     for (let j = i + 1; j <= maxIndex; j++) {
       if (stress[j]! > s) break;

@@ -1,0 +1,51 @@
+import * as Plot from '@observablehq/plot';
+import { CHART_STYLE, PALETTE } from './palette.js';
+
+/** A stress–strain path to draw: true stress against total true strain. */
+export interface PathSeries {
+  label: string;
+  points: readonly { strain: number; stress: number }[];
+}
+
+/**
+ * Load paths with reversal, several models on one chart (e.g. combined kinematic–isotropic hardening
+ * against isotropic only), true stress against total true strain, zero stress ruled. Same code in the
+ * notebooks (browser DOM) and reports (linkedom via `document`).
+ */
+export function reversalChart(series: readonly PathSeries[], o: { stressUnit: string; width?: number; height?: number; document?: Document }): SVGSVGElement | HTMLElement {
+  const data = series.flatMap((s) => s.points.map((p) => ({ ...p, model: s.label })));
+  return Plot.plot({
+    ...(o.document ? { document: o.document } : {}),
+    width: o.width ?? 560,
+    height: o.height ?? 320,
+    style: CHART_STYLE,
+    x: { label: 'total true strain ε (–)', grid: true },
+    y: { label: `true stress (${o.stressUnit})`, grid: true },
+    color: { domain: series.map((s) => s.label), range: [PALETTE.strength, PALETTE.ductility, PALETTE.coldWork], legend: true },
+    marks: [
+      Plot.ruleY([0], { stroke: PALETTE.grid }),
+      Plot.ruleX([0], { stroke: PALETTE.grid }),
+      Plot.line(data, { x: 'strain', y: 'stress', stroke: 'model', strokeWidth: 2 }),
+    ],
+  });
+}
+
+/**
+ * Residual stress through the thickness after springback: stress across, position (inner surface
+ * −t/2 to outer +t/2) up, as in a through-thickness section.
+ */
+export function residualStressChart(profile: readonly { y: number; stress: number }[], o: { stressUnit: string; lengthUnit: string; width?: number; height?: number; document?: Document }): SVGSVGElement | HTMLElement {
+  return Plot.plot({
+    ...(o.document ? { document: o.document } : {}),
+    width: o.width ?? 360,
+    height: o.height ?? 320,
+    style: CHART_STYLE,
+    x: { label: `residual stress (${o.stressUnit})`, grid: true },
+    y: { label: `position through the thickness, outer side up (${o.lengthUnit})`, grid: true },
+    marks: [
+      Plot.ruleX([0], { stroke: PALETTE.grid }),
+      Plot.line(profile, { x: 'stress', y: 'y', stroke: PALETTE.elastic, strokeWidth: 2, curve: 'linear' }),
+      Plot.dot(profile, { x: 'stress', y: 'y', fill: PALETTE.elastic, r: 2 }),
+    ],
+  });
+}

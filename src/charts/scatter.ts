@@ -1,0 +1,52 @@
+import * as Plot from '@observablehq/plot';
+import { CHART_STYLE, PALETTE } from './palette.js';
+
+export interface YieldHistogramOptions {
+  stressUnit: string;
+  minYield?: number;
+  maxYield?: number;
+  /** Lower tolerance bound to mark (dashed). */
+  bound?: number;
+  /** Probability that all targets are met, written on the chart. */
+  probability?: number;
+  width?: number;
+  height?: number;
+  /** A DOM document; in Node pass linkedom's, in the browser omit. */
+  document?: Document;
+}
+
+/**
+ * Histogram of the Monte Carlo final reload yield, with the yield targets as solid rules, the lower
+ * tolerance bound dashed, and the probability of meeting all targets in the caption line. Same code
+ * for notebooks (browser DOM) and reports (linkedom).
+ */
+export function yieldHistogram(values: ArrayLike<number>, o: YieldHistogramOptions): SVGSVGElement | HTMLElement {
+  const data = Array.from(values);
+  const marks: Plot.Markish[] = [
+    Plot.rectY(data, { ...Plot.binX({ y: 'count' }, { x: (d: number) => d, thresholds: 40 }), fill: PALETTE.strength, fillOpacity: 0.8 }),
+    Plot.ruleY([0], { stroke: PALETTE.grid }),
+  ];
+  const rules = [
+    ...(o.minYield !== undefined ? [{ x: o.minYield, label: `min ${o.minYield}` }] : []),
+    ...(o.maxYield !== undefined ? [{ x: o.maxYield, label: `max ${o.maxYield}` }] : []),
+  ];
+  if (rules.length) {
+    marks.push(Plot.ruleX(rules, { x: 'x', stroke: PALETTE.missed, strokeWidth: 2 }));
+    marks.push(Plot.text(rules, { x: 'x', text: 'label', frameAnchor: 'top', dy: 4, dx: 4, textAnchor: 'start', fill: PALETTE.missed }));
+  }
+  if (o.bound !== undefined) {
+    marks.push(Plot.ruleX([o.bound], { stroke: PALETTE.ink, strokeDasharray: '5,3' }));
+    marks.push(Plot.text([{ x: o.bound, label: 'lower bound' }], { x: 'x', text: 'label', frameAnchor: 'bottom', dy: -18, dx: -4, textAnchor: 'end', fill: PALETTE.ink }));
+  }
+  return Plot.plot({
+    ...(o.document ? { document: o.document } : {}),
+    width: o.width ?? 640,
+    height: o.height ?? 300,
+    marginLeft: 56,
+    style: CHART_STYLE,
+    ...(o.probability !== undefined ? { caption: `probability all targets met: ${(o.probability * 100).toFixed(1)} %` } : {}),
+    x: { label: `final reload yield Rp0.2 (${o.stressUnit})`, grid: true },
+    y: { label: 'samples', grid: true },
+    marks,
+  });
+}

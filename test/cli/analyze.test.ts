@@ -1,0 +1,146 @@
+import { spawnSync } from 'node:child_process';
+import { copyFileSync, existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { MaterialSchema } from '../../src/plan/schema.js';
+import { expectRelClose } from '../helpers.js';
+
+// Runs the shipped runner (bin/ → dist/) as a user would; test/globalSetup.ts builds dist/ first.
+const ROOT = join(import.meta.dirname, '..', '..');
+const BIN = join(ROOT, 'bin', 'strainledger.js');
+const run = (...args: string[]) => spawnSync(process.execPath, [BIN, ...args], { cwd: ROOT, encoding: 'utf8' });
+const FIX = join(ROOT, 'test', 'fixtures', '42crmos4');
+const dir = mkdtempSync(join(tmpdir(), 'sl-analyze-'));
+
+describe('strainledger analyze RECORD --format json', () => {
+  it('a 42CrMoS4 open-data record (MaterialDigital, CC BY 4.0): the contract fields, the producers\' Rp0.2 and Rm', () => {
+    const r = run('analyze', join(FIX, '46NT9B.csv'), '--format', 'json');
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.stdout);
+    for (const k of ['elasticModulus', 'proofStrength', 'upperYield', 'lowerYield', 'yieldPointElongationPct', 'tensileStrength', 'uniformElongationPct',
+      'totalElongationPct', 'nValue', 'K', 'fits', 'cycles', 'warnings', 'cautions']) expect(j, k).toHaveProperty(k);
+    // Reference: header of 46NT9B.csv, "Yield stress at 0.2% plastic strain" 1103.3 and "Ultimate tensile strength" 1192.4 MPa
+    // (rounded in SOURCE.md; full values in the file); tolerances as in test/core/tensile/open-data.test.ts.
+    expectRelClose(j.proofStrength, 1103.3, 3e-3, 'Rp0.2');
+    expectRelClose(j.tensileStrength, 1192.4, 1e-4, 'Rm');
+    expect(j.fits).toHaveLength(6);
+    for (const f of j.fits) for (const k of ['law', 'params', 'standardErrors', 'rmse', 'r2', 'converged']) expect(f, `${f.law}.${k}`).toHaveProperty(k);
+    expect(r.stdout).not.toMatch(/NaN|Infinity/);
+  });
+  it('the invented record with unload–reload loops reports every cycle and the chord-modulus decay', () => {
+    const j = JSON.parse(run('analyze', 'examples/stamping-strip-loops.csv', '--format', 'json').stdout);
+    expect(j.cycles).toHaveLength(4);
+    for (const c of j.cycles) for (const k of ['unloadModulus', 'permanentStrain', 'recoveredStrain', 'reloadProofStrength']) expect(Number.isFinite(c[k]), k).toBe(true);
+    // The file says it was generated with Ea = 175 GPa, ξ = 25 (invented); 0.8 MPa noise → a few per cent.
+    expectRelClose(j.modulusDecay.Ea, 175000, 0.03, 'Ea');
+  });
+  it('the invented force–extension export (semicolon, decimal comma, kN, mm, CRLF) shows its yield point', () => {
+    const j = JSON.parse(run('analyze', 'examples/fencing-wire-force-extension.csv', '--format', 'json').stdout);
+    expect(j.record.basis).toBe('force-extension');
+    expect(j.record.layout.decimalComma).toBe(true);
+    expectRelClose(j.record.geometry.area, (Math.PI / 4) * 3.15 ** 2, 1e-12, 'area from the diameter line');
+    // Generated with a 5 % upper yield over σ(εL) = 265 + 215(1 − e^(−11·0.012)) ≈ 291.6 MPa true (invented).
+    expectRelClose(j.upperYield, 1.05 * (265 + 215 * (1 - Math.exp(-11 * 0.012))), 0.01, 'ReH');
+    expect(j.lowerYield).toBeLessThan(j.upperYield);
+    expect(j.yieldPointElongationPct).toBeGreaterThan(0.8);
+  });
+  it('several records: per-record analyses, mean and sd over specimens, and a joint fit', () => {
+    const files = ['46NT71.csv', '46NT73.csv', '46NT99.csv'].map((f) => join(FIX, f));
+    const j = JSON.parse(run('analyze', ...files, '--format', 'json', '--law', 'voce').stdout);
+    expect(j.records).toHaveLength(3);
+    const rp = j.records.map((x: { proofStrength: number }) => x.proofStrength);
+    expectRelClose(j.summary.proofStrength.mean, rp.reduce((a: number, b: number) => a + b, 0) / 3, 1e-12, 'mean');
+    expect(j.summary.proofStrength.sd).toBeGreaterThan(0);
+    expect(j.lawParameters.law).toBe('voce');
+    expect(j.jointFit.fits.length).toBe(6);
+  });
+  it('--format table prints the properties and the cautions', () => {
+    const r = run('analyze', join(FIX, '46NTBN.csv'));
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/Rp0\.2 +1083\.\d MPa/); // header of 46NTBN.csv: 1083.0 MPa
+    expect(r.stdout).toMatch(/caution: .*licensed engineering judgment/);
+  });
+});
+
+describe('strainledger analyze --material-block and a plan that names a record', () => {
+  it('prints a material block the plan schema accepts, and writes it atomically with --material-out', () => {
+    const r = run('analyze', 'examples/stamping-strip-loops.csv', '--material-block', '--law', 'swift');
+    expect(r.status).toBe(0);
+    const block = JSON.parse(r.stdout);
+    expect(MaterialSchema.safeParse(block).success).toBe(true);
+    expect(block.flowCurve.law).toBe('swift');
+    // The file was generated from Swift K 560, ε0 0.006, n 0.23 (invented): fitted back within 1 %, 5 %, 2 %.
+    expectRelClose(block.flowCurve.K, 560, 0.01, 'K');
+    expectRelClose(block.flowCurve.eps0, 0.006, 0.05, 'eps0');
+    expectRelClose(block.flowCurve.n, 0.23, 0.02, 'n');
+    expect(block.modulusDecay.Ea).toBeLessThan(block.elasticModulus);
+    const out = join(dir, 'mat.json');
+    const w = run('analyze', 'examples/stamping-strip-loops.csv', '--material-out', out, '--units', 'US', '--format', 'json');
+    expect(w.status).toBe(0);
+    const us = JSON.parse(readFileSync(out, 'utf8'));
+    expectRelClose(us.flowCurve.K, block.flowCurve.K / 6.894757293168361, 1e-6, 'K in ksi');
+  });
+  it('run PLAN with flowCurve { record, law } fits the law when the plan runs', () => {
+    const r = run('run', 'examples/stamping-strip-from-record.json', '--format', 'json');
+    expect(r.stderr).toBe('');
+    const rep = JSON.parse(r.stdout);
+    expect(rep.material.source).toBe('fitted from stamping-strip-loops.csv');
+    expect(rep.material.flowCurve.law).toBe('swift');
+    expectRelClose(rep.material.flowCurve.n, 0.23, 0.02, 'n');
+    const block = JSON.parse(run('analyze', 'examples/stamping-strip-loops.csv', '--material-block', '--law', 'swift').stdout);
+    expectRelClose(rep.material.flowCurve.K, block.flowCurve.K, 1e-6, 'same fit as analyze');
+  });
+  it('a plan naming a missing record exits 2 naming the field and the file', () => {
+    const plan = JSON.parse(readFileSync(join(ROOT, 'examples', 'stamping-strip-from-record.json'), 'utf8'));
+    plan.material.flowCurve.record = 'no-such-record.csv';
+    const f = join(dir, 'p.json');
+    writeFileSync(f, JSON.stringify(plan, null, 2));
+    const r = run('run', f, '--format', 'json');
+    expect(r.status).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr).toMatch(/p\.json:\d+:\d+: material\.flowCurve\.record: got "no-such-record\.csv" .*file not found/);
+    expect(r.stderr).not.toMatch(/\n\s+at /);
+  });
+  it('a plan naming a malformed record exits 2 with the record\'s line and column', () => {
+    copyFileSync(join(ROOT, 'examples', 'stamping-strip-loops.csv'), join(dir, 'rec.csv'));
+    const text = readFileSync(join(dir, 'rec.csv'), 'utf8').split('\n');
+    text[20] = text[20]!.replace(/,[^,]*$/, ',x');
+    writeFileSync(join(dir, 'rec.csv'), text.join('\n'));
+    const plan = JSON.parse(readFileSync(join(ROOT, 'examples', 'stamping-strip-from-record.json'), 'utf8'));
+    plan.material.flowCurve.record = 'rec.csv';
+    writeFileSync(join(dir, 'q.json'), JSON.stringify(plan));
+    const r = run('run', join(dir, 'q.json'));
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/rec\.csv:21:3: Stress \[MPa\]: got "x", expected a number/);
+  });
+});
+
+describe('strainledger analyze with invalid input exits 2 with a clear message and no stack trace', () => {
+  const cases: [string, string[], RegExp][] = [
+    ['a missing record file', ['analyze', 'nope.csv'], /nope\.csv: file not found/],
+    ['no record', ['analyze'], /RECORD: got no record file/],
+    ['an unknown law', ['analyze', 'examples/stamping-strip-loops.csv', '--law', 'magic'], /--law: got "magic", allowed one of hollomon/],
+    ['a bad format', ['analyze', 'examples/stamping-strip-loops.csv', '--format', 'xml'], /--format: got "xml", allowed one of json, table/],
+    ['a bad n-range', ['analyze', 'examples/stamping-strip-loops.csv', '--n-range', '0.2,0.1'], /--n-range: got "0\.2,0\.1"/],
+  ];
+  for (const [what, args, msg] of cases) {
+    it(what, () => {
+      const r = run(...args);
+      expect(r.status).toBe(2);
+      expect(r.stderr).toMatch(msg);
+      expect(r.stderr).not.toMatch(/\n\s+at /);
+      expect(r.stdout).toBe('');
+    });
+  }
+  it('a malformed record names file, line and column; --material-out writes nothing', () => {
+    const f = join(dir, 'swapped.csv');
+    writeFileSync(f, 'Strain [%],Stress [MPa]\n' + Array.from({ length: 12 }, (_, i) => `${i * 50},${i * 0.05}`).join('\n') + '\n');
+    const out = join(dir, 'never.json');
+    const r = run('analyze', f, '--material-out', out);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/swapped\.csv:13:1: Strain \[%\]: reaches 550 — not a strain/);
+    expect(existsSync(out)).toBe(false);
+  });
+});

@@ -1,0 +1,51 @@
+// Real-browser test of the reversal-and-springback notebook (Debian's Chromium via playwright-core).
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { backstressAfter, hollomon, springback } from '../../src/core/index.js';
+import { expectRelClose } from '../helpers.js';
+import { openPage, settled, startHarness, SCREENSHOTS, type Harness } from './browser.js';
+
+let h: Harness;
+beforeAll(async () => { h = await startHarness(); });
+afterAll(async () => { await h?.close(); });
+
+const num = async (page: import('playwright-core').Page, q: string) => Number(await page.locator(`[data-q="${q}"] .sl-num`).innerText());
+
+describe('reversal and springback notebook', () => {
+  it('opens on the kinematic demo, shows the early reverse yield, and springback follows the prestrain slider', async () => {
+    const { page, errors } = await openPage(h, '/reversal/');
+    await settled(page, 'reversal');
+    expect(await page.locator('#material-select option:checked').innerText()).toContain('hinge-tab-bend');
+    // Isotropic hardening reverses at −σ(ε̄); with backstresses at X − R = 2X − σ(ε̄) (combined split,
+    // X = (C/γ)(1 − e^(−γε̄)), Armstrong–Frederick closed form). Demo material: Callister low-carbon
+    // steel, Hollomon K 600 MPa, n 0.21 (2nd ed., p. 199); invented backstress C 15000 MPa, γ 150.
+    // One decimal shown: 0.05 MPa absolute.
+    const iso = await num(page, 'reverseYieldIso');
+    const kin = await num(page, 'reverseYieldKin');
+    const s05 = 600 * 0.05 ** 0.21;
+    expect(Math.abs(iso + s05)).toBeLessThanOrEqual(0.051);
+    expect(Math.abs(kin - (2 * 100 * (1 - Math.exp(-150 * 0.05)) - s05))).toBeLessThanOrEqual(0.051);
+    const chart0 = await page.locator('#cell-path-chart').innerHTML();
+    const sb0 = await num(page, 'springbackDeg');
+    await page.fill('#prestrain-number', '0.3');
+    await settled(page, 'reversal');
+    const sb1 = await num(page, 'springbackDeg');
+    expect(sb1).toBeGreaterThan(sb0);
+    expect(await page.locator('#cell-path-chart').innerHTML()).not.toEqual(chart0);
+    // The page equals the core for the same inputs (demo plan data: E 207 GPa, ν 0.3, invented
+    // backstress C 15000 MPa, γ 150 and chord-modulus decay Ea 180 GPa, ξ 25; strip 1.8 mm, R 4 mm, 90°).
+    const core = springback({
+      elasticModulus: 207000, poissonRatio: 0.3, law: hollomon({ K: 600, n: 0.21 }), thickness: 1.8, prestrain: 0.3,
+      kinematic: { backstresses: [{ C: 15000, gamma: 150 }] }, backstresses: [backstressAfter(0, 15000, 150, 1, 0.3)],
+      modulusDecay: { Ea: 180000, xi: 25 },
+    }, { radius: 4, angleDeg: 90 });
+    expectRelClose(sb1, Number(core.springbackDeg.toFixed(2)), 1e-12, 'springback shown = core to 2 decimals');
+    expect(await page.locator('.sl-cautions').isVisible()).toBe(true);
+    expect(await page.locator('.sl-invented').first().isVisible()).toBe(true);
+    await page.screenshot({ path: `${SCREENSHOTS}/reversal.png`, fullPage: true });
+    expect(errors).toEqual([]);
+  });
+  it('is linked from the index page', async () => {
+    const { page } = await openPage(h, '/');
+    await expect(page.locator('#notebook-list a', { hasText: 'Reversal and springback' }).count()).resolves.toBe(1);
+  });
+});

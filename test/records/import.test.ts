@@ -1,0 +1,130 @@
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { PlanError } from '../../src/plan/problems.js';
+import { parseRecordText, type RecordOptions } from '../../src/records/index.js';
+import { readRecordFile } from '../../src/records/node.js';
+import { expectRelClose } from '../helpers.js';
+
+// A small record (invented): 12 rows of a linear-then-flat curve, strain in %, stress in MPa.
+const ROWS: [number, number][] = Array.from({ length: 12 }, (_, i) => [i * 0.05, Math.min(i * 100, 700) + i]);
+const csv = (header: string, sep = ',', dec = '.', fmt = (r: [number, number]) => r) =>
+  [header, ...ROWS.map((r) => fmt(r).map((v) => String(v).replace('.', dec)).join(sep))].join('\n') + '\n';
+
+function problemOf(fn: () => unknown): { line?: number; column?: number; path: string; message: string } {
+  try {
+    fn();
+  } catch (e) {
+    expect(e, String(e)).toBeInstanceOf(PlanError);
+    const p = (e as PlanError).problems[0]!;
+    return { ...p, message: `${p.path ? p.path + ': ' : ''}${p.message}` };
+  }
+  throw new Error('expected an error');
+}
+
+describe('parseRecordText(text) reads what labs export', () => {
+  const check = (text: string, opts: RecordOptions = {}) => {
+    const r = parseRecordText(text, { file: 't.csv', ...opts });
+    expect(r.rows).toBe(12);
+    ROWS.forEach(([e, s], i) => {
+      expectRelClose(r.strain[i]! || 1e-300, e / 100 || 1e-300, 1e-12, `strain ${i}`);
+      expectRelClose(r.stress[i]! || 1e-300, s || 1e-300, 1e-12, `stress ${i}`);
+    });
+    return r;
+  };
+  it('comma-separated with units in brackets', () => check(csv('Strain [%],Stress [MPa]')));
+  it('semicolon-separated with decimal comma', () => expect(check(csv('Strain (%);Stress (MPa)', ';', ',')).layout.decimalComma).toBe(true));
+  it('tab-separated with a units row', () => check(['Strain\tStress', '%\tMPa', ...ROWS.map((r) => r.join('\t'))].join('\n')));
+  it('UTF-8 BOM and CRLF line ends', () => check('\uFEFF' + csv('strain_pct,stress_MPa').replace(/\n/g, '\r\n')));
+  it('metadata lines before the header are kept as key/value/unit', () => {
+    const r = check('Specimen:,A-7\nGauge length:,50,mm\n' + csv('Strain [%],Stress [N/mm²]'));
+    expect(r.metadata.get('gauge length')).toMatchObject({ value: '50', unit: 'mm', line: 2 });
+  });
+  it('stress in GPa, ksi and psi is converted to MPa (NIST SP 811: 1 ksi = 6.894757293168361 MPa)', () => {
+    check(csv('Strain [%],Stress [GPa]', ',', '.', ([e, s]) => [e, s / 1000]));
+    check(csv('Strain [%],Stress [ksi]', ',', '.', ([e, s]) => [e, s / 6.894757293168361]));
+    check(csv('Strain [%],Stress [psi]', ',', '.', ([e, s]) => [e, (s / 6.894757293168361) * 1000]));
+  });
+  it('strain as a fraction (mm/mm) and columns in another order', () => {
+    check(['Time [s],Stress [MPa],Strain [mm/mm]', ...ROWS.map(([e, s], i) => `${i},${s},${e / 100}`)].join('\n'));
+  });
+  it('columns mapped explicitly by name or number', () => {
+    const text = ['a,b,c', ...ROWS.map(([e, s]) => `0,${s},${e}`)].join('\n');
+    check(text, { columns: { stress: 'b', strain: 3 }, strainUnit: '%', stressUnit: 'MPa' });
+  });
+  it('force–extension in kN and mm with the cross-section and gauge length from metadata', () => {
+    const A = (Math.PI / 4) * 5 * 5, L0 = 25;
+    const r = check(['Diameter:\t5\tmm', 'Gauge length:\t25\tmm', 'Force [kN]\tExtension [mm]', ...ROWS.map(([e, s]) => `${(s * A) / 1000}\t${(e / 100) * L0}`)].join('\n'));
+    expect(r.basis).toBe('force-extension');
+    expect(r.geometry!.gaugeLength).toBe(25);
+  });
+  it('force–extension in lbf and in with width × thickness from options (NIST: 1 lbf = 4.4482216152605 N)', () => {
+    const A = 12.5 * 2, L0 = 50;
+    check(csv('Load (lbf),Extension (in)', ',', '.', ([e, s]) => [(s * A) / 4.4482216152605, ((e / 100) * L0) / 25.4]).replace(/^([^\n]*)\n/, '$1\n'),
+      { width: 12.5, thickness: 2, gaugeLength: 50 });
+  });
+});
+
+describe('parseRecordText(bad record) names the line, the column and what was expected', () => {
+  const bad: [string, string, RegExp, number | undefined, number | undefined][] = [
+    ['an empty file', '', /empty file; expected a header line/, 1, 1],
+    ['blank lines only', '\n\n  \n', /empty file/, 1, 1],
+    ['a header only', 'Strain [%],Stress [MPa]\n', /header only: no rows of numbers after the header at line 1/, 1, 1],
+    ['text in a numeric column', csv('Strain [%],Stress [MPa]').replace('\n0.25,505', '\n0.25,abc'), /Stress \[MPa\]: got "abc", expected a number/, 7, 2],
+    ['NaN', csv('Strain [%],Stress [MPa]').replace('\n0.25,505', '\n0.25,NaN'), /got "NaN", expected a finite number/, 7, 2],
+    ['Infinity', csv('Strain [%],Stress [MPa]').replace('\n0.2,404', '\n0.2,Infinity'), /got "Infinity", expected a finite number/, 6, 2],
+    ['swapped columns', csv('Strain [%],Stress [MPa]', ',', '.', ([e, s]) => [s, e]), /Strain \[%\]: reaches 711 — not a strain .* swapped/, 13, 1],
+    ['a single row', 'Strain [%],Stress [MPa]\n0.1,200\n', /a single data row; expected a tensile record of at least 10 rows/, 2, 1],
+    ['duplicate column names', csv('Stress [MPa],Stress [MPa]'), /duplicate column name "Stress \[MPa\]" in columns 1 and 2/, 1, 2],
+    ['a broken quoted field', 'Strain [%],Stress [MPa]\n' + ROWS.slice(0, 5).map((r) => r.join(',')).join('\n') + '\n"0.3,606\n' + ROWS.slice(6).map((r) => r.join(',')).join('\n') + '\n', /broken CSV: a quoted field is not closed/, undefined, undefined],
+    ['binary content', 'Strain,Stress\n\u0000\u0001\u0002PK\u0003\u0004', /binary content \(character U\+0000\)/, 2, 1],
+    ['hostile column names', csv('__proto__,constructor'), /no strain and stress columns, nor force and extension; the header has "__proto__", "constructor"/, 1, 1],
+    ['a row shorter than the header', csv('Strain [%],Stress [MPa]').replace('\n0.25,505', '\n0.25'), /the row has 1 fields; expected 2 as in the header \(line 1\)/, 7, 2],
+    ['an unknown stress unit', csv('Strain [%],Stress [bar]'), /unit "bar" is not a stress unit; allowed MPa, N\/mm², GPa, ksi, psi/, 1, 2],
+    ['force without a cross-section', csv('Force [kN],Extension [mm]'), /needs the cross-section .* missing the cross-section/, 1, undefined],
+    ['numbers with no header', ROWS.map((r) => r.join(',')).join('\n'), /no header line: the file starts with numbers/, 1, 1],
+    ['one column only', 'stress\n1\n2\n', /only one column found/, 3, 1],
+  ];
+  for (const [what, text, msg, line, column] of bad) {
+    it(`${what}: a PlanError ${msg}`, () => {
+      const p = problemOf(() => parseRecordText(text, { file: 'bad.csv' }));
+      expect(p.message).toMatch(msg);
+      if (line !== undefined) expect(p.line).toBe(line);
+      if (column !== undefined) expect(p.column).toBe(column);
+      expect(p.message).not.toMatch(/NaN|undefined/i.test(what) ? /(?!)/ : /\bundefined\b/);
+    });
+  }
+  it('a broken quoted field names its line', () => {
+    const p = problemOf(() => parseRecordText(bad[9]![1], { file: 'bad.csv' }));
+    expect(p.line).toBeGreaterThanOrEqual(7);
+  });
+  it('hostile names do not touch Object.prototype', () => {
+    problemOf(() => parseRecordText(csv('__proto__,constructor'), { file: 'x.csv' }));
+    expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+    const r = parseRecordText('__proto__:,x\n' + csv('Strain [%],Stress [MPa]'), { file: 'x.csv' });
+    expect(r.metadata.get('__proto__')!.value).toBe('x');
+    expect(Object.getPrototypeOf({})).toBe(Object.prototype);
+  });
+});
+
+describe('readRecordFile(path) streams the same record as parseRecordText', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'sl-rec-'));
+  it('on a 42CrMoS4 open-data record (MaterialDigital, CC BY 4.0): identical arrays', async () => {
+    const f = join(import.meta.dirname, '..', 'fixtures', '42crmos4', '46NTAV.csv');
+    const a = parseRecordText(readFileSync(f, 'utf8'), { file: f });
+    const b = await readRecordFile(f);
+    expect(b.rows).toBe(577); // SOURCE.md: 46NTAV has 577 data rows
+    expect(Array.from(b.strain)).toEqual(Array.from(a.strain));
+    expect(Array.from(b.stress)).toEqual(Array.from(a.stress));
+  });
+  it('a missing file and a malformed row give located errors', async () => {
+    await expect(readRecordFile(join(dir, 'nope.csv'))).rejects.toThrow(/file not found/);
+    const f = join(dir, 'bad.csv');
+    writeFileSync(f, csv('Strain [%],Stress [MPa]').replace('\n0.25,505', '\n0.25,oops'));
+    await expect(readRecordFile(f)).rejects.toThrow(/bad\.csv:7:2: Stress \[MPa\]: got "oops", expected a number/);
+    const g = join(dir, 'bin.csv');
+    writeFileSync(g, Buffer.from([0x53, 0x2c, 0x54, 0x0a, 0x00, 0x01, 0x02]));
+    await expect(readRecordFile(g)).rejects.toThrow(/binary content/);
+  });
+});
