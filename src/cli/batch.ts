@@ -42,8 +42,12 @@ const ROLE = 'strainledger-batch-worker';
 // This same module is the worker's script: started with workerData.role it serves tasks.
 if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE && parentPort) {
   const port = parentPort;
-  port.on('message', (t: Task) => {
-    void processTask(t).then((o) => port.postMessage(o));
+  port.on('message', (batch: Task[]) => {
+    void (async () => {
+      const out: Outcome[] = [];
+      for (const t of batch) out.push(await processTask(t));
+      port.postMessage(out);
+    })();
   });
 }
 
@@ -54,7 +58,8 @@ export function maxJobs(): number {
 
 /**
  * Evaluates plans, `jobs` at a time. With jobs = 1 (or one plan) everything runs on the main thread;
- * otherwise on `jobs` worker threads (node:worker_threads), each pulling the next plan when done.
+ * otherwise on the main thread and `jobs − 1` worker threads (node:worker_threads), each pulling
+ * the next few plans when done.
  * Outcomes come back in the order of `tasks`.
  */
 export async function runTasks(tasks: readonly Task[], jobs: number, progress: Progress): Promise<Outcome[]> {
@@ -66,27 +71,45 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
     }
     return out;
   }
+  // Plans go out in small batches (fewer messages), small enough to keep both threads busy to the end.
+  const size = Math.max(1, Math.min(32, Math.ceil(tasks.length / (jobs * 8))));
   let next = 0;
-  const n = Math.min(jobs, tasks.length);
+  // The main thread is one of the `jobs`: it takes batches from the same queue, yielding to the
+  // event loop between them so the workers' results are handled (one worker start saved).
+  const mainThread = async () => {
+    while (next < tasks.length) {
+      const from = next;
+      next = Math.min(tasks.length, next + size);
+      for (let i = from; i < next; i++) {
+        out[i] = await processTask(tasks[i]!);
+        progress.tick();
+      }
+      await new Promise((r) => setImmediate(r));
+    }
+  };
+  const n = Math.min(jobs, tasks.length) - 1;
   const url = new URL(import.meta.url);
-  await Promise.all(Array.from({ length: n }, () => new Promise<void>((resolveWorker, rejectWorker) => {
+  await Promise.all([mainThread(), ...Array.from({ length: n }, () => new Promise<void>((resolveWorker, rejectWorker) => {
     const w = new Worker(url, { workerData: { role: ROLE } });
-    let current = -1;
+    let from = 0;
     const feed = () => {
       if (next >= tasks.length) {
         void w.terminate().then(() => resolveWorker());
         return;
       }
-      current = next++;
-      w.postMessage(tasks[current]);
+      from = next;
+      next = Math.min(tasks.length, next + size);
+      w.postMessage(tasks.slice(from, next));
     };
-    w.on('message', (o: Outcome) => {
-      out[current] = o;
-      progress.tick();
+    w.on('message', (batch: Outcome[]) => {
+      batch.forEach((o, k) => {
+        out[from + k] = o;
+        progress.tick();
+      });
       feed();
     });
     w.on('error', (e) => rejectWorker(e));
     feed();
-  })));
+  }))]);
   return out;
 }

@@ -49,7 +49,7 @@ export function roleScore(c: ColumnInfo, role: Role, unitHint: string): number {
   switch (role) {
     case 'stress': return /\bstress\b|^sigma$/.test(b) ? 10 + eng * 5 + (/^(eng(ineering)? )?stress$/.test(b) ? 2 : 0) : 0;
     case 'strain':
-      if (/\bstrain\b|^epsilon$/.test(b)) return 10 + eng * 5 + (/^(eng(ineering)? )?strain$/.test(b) ? 2 : 0) - (/rate/.test(b) ? 20 : 0);
+      if (/\bstrain\b|^epsilon$/.test(b)) return 10 + eng * 5 + (/^(eng(ineering)? |axial |longitudinal )?strain$/.test(b) ? 2 : 0) - (/rate/.test(b) ? 20 : 0) - (/lateral|transverse|width|thickness/.test(b) ? 9 : 0);
       if (/^elongation$|^elong$/.test(b) && !lengthUnit) return 8;
       return 0;
     case 'force': return /\bforce\b|\bload\b/.test(b) ? 10 + (/^(force|load)$/.test(b) ? 2 : 0) : 0;

@@ -14,6 +14,8 @@ export interface BadCase {
   expect: RegExp;
   /** The case gives its own --out (e.g. an output folder that is a file). */
   ownOut?: boolean;
+  /** The message is followed by the usage text (an unknown option). */
+  usage?: boolean;
 }
 
 export const BASE = {
@@ -41,6 +43,16 @@ function jsonCase(name: string, data: unknown, expect: RegExp, extra: string[] =
 }
 function textCase(name: string, file: string, text: string | Buffer, expect: RegExp, extra: string[] = []): BadCase {
   return { name, expect, setup: (dir) => { const f = join(dir, file); writeFileSync(f, text); return ['run', f, '--format', 'json', ...extra]; } };
+}
+
+/** A valid plan whose flow curve is fitted from `record.csv` beside it; `record` null leaves the file out. */
+function recordCase(name: string, record: string | Buffer | null, expect: RegExp): BadCase {
+  return { name, expect, setup: (dir) => {
+    const f = join(dir, 'plan.json');
+    writeFileSync(f, JSON.stringify(plan((p) => { mat(p).flowCurve = { record: 'record.csv', law: 'hollomon' }; })));
+    if (record !== null) writeFileSync(join(dir, 'record.csv'), record);
+    return ['run', f, '--format', 'json'];
+  } };
 }
 
 const nested = (depth: number) => '['.repeat(depth) + ']'.repeat(depth);
@@ -107,6 +119,12 @@ export const CORPUS: BadCase[] = [
   { name: 'a 50 MB file', expect: /plan\.json: file is 52428800 bytes; allowed at most 5242880 bytes for a plan/,
     setup: (dir) => { const f = join(dir, 'plan.json'); writeFileSync(f, Buffer.alloc(50 * 1024 * 1024, 0x20)); return ['run', f, '--format', 'json']; } },
   textCase('invalid UTF-8', 'plan.json', Buffer.concat([Buffer.from('{"name": "caf'), Buffer.from([0xc3, 0x28]), Buffer.from('"}')]), /plan\.json: invalid UTF-8 byte sequence; allowed UTF-8 text/),
+  // records named by a plan (material.flowCurve.record, fitted at run time)
+  recordCase('a plan that names a missing record file', null, /material\.flowCurve\.record: got "record\.csv" \(.*\): file not found/),
+  recordCase('a named record that is empty', '', /record\.csv:1:1: empty file/),
+  recordCase('a named record with a header and no numbers', 'strain,stress\n', /record\.csv:\d+:\d+: .*no rows of numbers/),
+  recordCase('a named record with text in a number column', 'strain,stress\n0,0\n0.01,abc\n', /record\.csv:3:\d+: stress: got "abc", expected a number/),
+  recordCase('a named record that is not UTF-8', Buffer.from([0x73, 0x74, 0xff, 0xfe, 0x0a]), /material\.flowCurve\.record: got "record\.csv" .*(UTF-8|ENCODING)/),
   // files and folders
   { name: 'a plan file that does not exist', expect: /missing\.json: file not found/, setup: (dir) => ['run', join(dir, 'missing.json')] },
   { name: 'a plan path that is a folder', expect: /is a folder, not a file/, setup: (dir) => ['run', dir] },
@@ -123,5 +141,5 @@ export const CORPUS: BadCase[] = [
   jsonCase('--sweep with a zero step', BASE, /--sweep: got STEP 0, allowed a number > 0/, ['--sweep', 'steps[0].thickness=1:1.5:0']),
   jsonCase('an unknown format', BASE, /--format: got "pdf", allowed one of table, json, csv, md, html, junit/, ['--format', 'pdf']),
   jsonCase('--jobs 0', BASE, /--jobs: got 0, allowed 1 to \d+/, ['--jobs', '0']),
-  jsonCase('an unknown option', BASE, /strainledger run: Unknown option '--colour'/, ['--colour']),
+  { ...jsonCase('an unknown option', BASE, /strainledger run: Unknown option '--colour'/, ['--colour']), usage: true },
 ];

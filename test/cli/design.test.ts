@@ -59,6 +59,26 @@ describe('strainledger design SPEC', () => {
     expect(plan.steps.filter((s: { kind: string }) => s.kind === 'anneal')).toHaveLength(1);
     expect(cli('run', join(dir, 'design-fencing-wire-route-1.json')).status).toBe(0);
   });
+  it('a rolling specification (examples/design-copper-strip.yaml) gives routes that run with every target met, roll loads reported', () => {
+    const out = JSON.parse(cli('design', 'examples/design-copper-strip.yaml', '--format', 'json').stdout);
+    expect(out.feasible).toBe(true);
+    // Plane-strain total strain (2/√3)·ln(3.0/0.5) (DESIGN.md §4).
+    expectRelClose(out.totalStrain, 2 / Math.sqrt(3) * Math.log(6), 1e-12, 'total strain');
+    const dir = mkdtempSync(join(tmpdir(), 'sl-design-roll-'));
+    const f = join(dir, 'r1.json');
+    writeFileSync(f, JSON.stringify(out.routes[0].plan));
+    const run = cli('run', f, '--format', 'json');
+    expect(run.status, run.stderr).toBe(0);
+    let prev = 3;
+    for (const s of JSON.parse(run.stdout).steps.filter((x: { kind: string }) => x.kind === 'roll')) {
+      expect(s.rollForce).toBeLessThanOrEqual(600000);
+      expect(s.rollTorque).toBeGreaterThan(0);
+      // Bite: draft ≤ μ²·R = 0.1²·100 = 1 mm (Dieter §17-5, from memory).
+      expect(prev - s.size.thickness).toBeLessThanOrEqual(1 + 1e-9);
+      expect(s.warnings.map((w: { code: string }) => w.code)).not.toContain('bite');
+      prev = s.size.thickness;
+    }
+  });
   it('an infeasible specification exits 1 and names the binding limit', () => {
     const dir = mkdtempSync(join(tmpdir(), 'sl-design-inf-'));
     const f = join(dir, 'tight.yaml');

@@ -60,6 +60,14 @@ describe('route planner', () => {
     await settled(page, 'route');
     const before = await ledgerCells(page);
     expect(before.length).toBe(5); // the contact-spring demo route (INVENTED)
+    // Independent check of the first pass, rolling 2.0 → 1.6 mm: plane strain ε̄ = (2/√3)·ln(t0/t)
+    // (Marciniak, Duncan & Hu, Mechanics of Sheet Metal Forming, §3.4); reload yield Hollomon
+    // 530·(ε̄ + 0.002)^0.44 MPa (Callister's copper K and n; offset 0.002, ISO 6892-1). Shown to
+    // 4 and 1 decimals, so exact agreement of the rounded strings is the right tolerance.
+    const eps1 = (2 / Math.sqrt(3)) * Math.log(2 / 1.6);
+    expect(before[0]!.accumulatedStrain).toBe(eps1.toFixed(4));
+    expect(before[0]!.reloadYield).toBe((530 * (eps1 + 0.002) ** 0.44).toFixed(1));
+    expect(before[0]!.coldWorkPct).toBe('20.0'); // %CW = (t0 − t)/t0 for strip (Callister)
     const chart0 = await page.locator('#cell-strength-chart svg').last().innerHTML();
     // Edit: step 2 becomes a 30 % reduction, a new 12.5 % roll pass is added and moved up one place.
     await page.fill('#step-1-value', '30');

@@ -103,9 +103,10 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   }
   start = start.map((v, j) => Math.min(upper[j]!, Math.max(lower[j]!, v)));
   const model = lawModelFast(law, strain);
+  const scratch = new Float64Array(n);
   const res = levenbergMarquardt(model, stress, start, {
     lower, upper,
-    jacobian: (p, out) => lawJacobian(law, strain, p, new Float64Array(n), out), ...(opts.maxIterations !== undefined ? { maxIterations: opts.maxIterations } : {}) });
+    jacobian: (p, out) => lawJacobian(law, strain, p, scratch, out), ...(opts.maxIterations !== undefined ? { maxIterations: opts.maxIterations } : {}) });
   const residuals = Array.from(res.predicted, (v, i) => v - stress[i]!);
   const st = fitStatistics(res.jacobian, residuals, stress, k, res.atBound, res.params);
   const warnings: FitWarning[] = [];

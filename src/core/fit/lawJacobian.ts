@@ -13,11 +13,12 @@ import type { LawName } from '../flow/types.js';
  */
 export function lawJacobian(law: LawName, x: ArrayLike<number>, p: Float64Array, f: Float64Array, J: Float64Array | null): boolean {
   const n = x.length;
+  const lnx = law === 'hollomon' || law === 'ludwik' || law === 'hockettSherby' ? logsOf(x) : null;
   switch (law) {
     case 'hollomon': {
       const K = p[0]!, m = p[1]!;
       for (let i = 0; i < n; i++) {
-        const lx = Math.log(x[i]!), P = Math.exp(m * lx);
+        const lx = lnx![i]!, P = Math.exp(m * lx);
         f[i] = K * P;
         if (J) { J[i * 2] = P; J[i * 2 + 1] = K * P * lx; }
       }
@@ -26,7 +27,7 @@ export function lawJacobian(law: LawName, x: ArrayLike<number>, p: Float64Array,
     case 'ludwik': {
       const s0 = p[0]!, K = p[1]!, m = p[2]!;
       for (let i = 0; i < n; i++) {
-        const lx = Math.log(x[i]!), P = Math.exp(m * lx);
+        const lx = lnx![i]!, P = Math.exp(m * lx);
         f[i] = s0 + K * P;
         if (J) { J[i * 3] = 1; J[i * 3 + 1] = P; J[i * 3 + 2] = K * P * lx; }
       }
@@ -39,7 +40,7 @@ export function lawJacobian(law: LawName, x: ArrayLike<number>, p: Float64Array,
       if (!(s0 < sat)) return false;
       const d = sat - s0;
       for (let i = 0; i < n; i++) {
-        const lx = Math.log(x[i]!), X = Math.exp(q * lx), E = Math.exp(-a * X);
+        const lx = lnx![i]!, X = Math.exp(q * lx), E = Math.exp(-a * X);
         f[i] = sat - d * E;
         if (J) { const r = i * 4; J[r] = 1 - E; J[r + 1] = E; J[r + 2] = d * X * E; J[r + 3] = d * E * a * X * lx; }
       }
@@ -62,6 +63,17 @@ export function lawJacobian(law: LawName, x: ArrayLike<number>, p: Float64Array,
       return true;
     }
   }
+}
+
+/** ln x of the fixed strains, computed once per strain array (a fit evaluates the model many times). */
+const LOGS = new WeakMap<object, Float64Array>();
+function logsOf(x: ArrayLike<number>): Float64Array {
+  let l = LOGS.get(x as object);
+  if (!l || l.length !== x.length) {
+    l = Float64Array.from({ length: x.length }, (_, i) => Math.log(x[i]!));
+    LOGS.set(x as object, l);
+  }
+  return l;
 }
 
 function swiftPart(x: ArrayLike<number>, p: Float64Array, o: number, scale: number, f: Float64Array, J: Float64Array | null, m: number, c: number): boolean {

@@ -80,7 +80,7 @@ export interface DesignedRoute {
   passMargin: number;
   /** 1 − the largest strain between anneals / the allowed strain. */
   annealMargin: number;
-  /** Which pass limit is used most: `reduction`, `drawability`, `force` or `heating`. */
+  /** Which pass limit is used most: `reduction`, `drawability`, `force`, `heating` or `bite` (rolling: draft ≤ μ²·R). */
   governingPassLimit: string;
   ledger: Ledger;
 }
@@ -122,7 +122,8 @@ const fmt = (x: number, d = 4) => String(+x.toPrecision(d));
  * window and below S_max the route needs no anneal. The strain E − s_f before the last anneal is split
  * into k equal segments (k = ⌈(E − s_f)/S_max⌉ and k + 1), each ending in an anneal; each segment is
  * split into p equal passes, p from ⌈S/s_pass⌉ upward until every pass meets its limits (reduction per
- * pass, drawability ratio, force capacity, temperature rise), evaluated by the ledger itself. Every
+ * pass, drawability ratio, force capacity, temperature rise; for rolling the bite limit draft ≤ μ²·R),
+ * evaluated by the ledger itself. Every
  * candidate is run through {@link evaluateRoute} and kept only if it meets the window and every
  * limit. Ranking: fewest anneals, then fewest passes, then the largest smallest margin.
  * Strains: drawing ε̄ = 2·ln(d0/d); rolling ε̄ = (2/√3)·ln(t0/t) (core/route/strain.ts).
@@ -212,6 +213,9 @@ export function designRoute(spec: DesignSpec): DesignResult {
       const f = r.drawingForce ?? r.rollForce;
       if (capacity !== undefined && f !== undefined) parts.push(['force', f / capacity]);
       if (heating && r.temperatureRise !== undefined) parts.push(['heating', r.temperatureRise / maxDT]);
+      // Rolls bite the strip unaided only for a draft up to μ²·R (Dieter §17-5; see rollingLoad).
+      if (!draw && spec.friction! > 0) parts.push(['bite', (prev - size) / (spec.friction! * spec.friction! * spec.rollRadius!)]);
+      else if (!draw) parts.push(['bite', prev > size ? Infinity : 0]);
       for (const [name, u] of parts) if (u > use) { use = u; governing = name; }
       prev = size;
     }
@@ -264,6 +268,8 @@ export function designRoute(spec: DesignSpec): DesignResult {
   }
 
   const candidates: DesignedRoute[] = [];
+  // Candidates built but refused by the final check (the rounded sizes left the window or a limit).
+  let rejected = 0;
   const seen = new Set<string>();
   let tried = 0;
   for (const sf of finals) {
@@ -322,7 +328,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
     });
     evaluations++;
     const ledger = evaluateRoute({ material, start: startOf(d0), steps, targets: spec.window });
-    if (!ledger.allTargetsMet) return null;
+    if (!ledger.allTargetsMet) { rejected++; return null; }
     // Every pass is checked again on the whole route (the same numbers the runner will print).
     const passIdx: number[] = [];
     ledger.rows.forEach((r, i) => { if (r.kind !== 'anneal') passIdx.push(i); });
@@ -336,7 +342,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
       if (u.use > use) { use = u.use; governing = u.governing; }
       prev = size;
     }
-    if (use > 1 + 1e-9 || maxSeg > sMax * (1 + 1e-9)) return null;
+    if (use > 1 + 1e-9 || maxSeg > sMax * (1 + 1e-9)) { rejected++; return null; }
     const windowMargin = Math.min(...ledger.targets.map((t) => (t.limit !== 0 ? t.margin / Math.abs(t.limit) : t.margin)), Infinity);
     const finalStrain = segs.length > 1 ? strainOf(bounds[bounds.length - 2]!, df) : E;
     return {
@@ -347,6 +353,9 @@ export function designRoute(spec: DesignSpec): DesignResult {
     };
   }
 
+  if (candidates.length === 0 && rejected > 0) {
+    return infeasible('window (size rounding)', `${rejected} schedules were built, but with sizes rounded to ${len(res)} none stays inside the window [${fmt(lo)}, ${Number.isFinite(hi) ? fmt(hi) : '∞'}] of strain since the last anneal and every pass limit: widen the window`, tried);
+  }
   if (candidates.length === 0) {
     const what = lastFailure === 'passes' || lastFailure === 'anneals' || lastFailure === '' ? lastFailure || 'passes' : lastFailure;
     const explain: Record<string, string> = {
@@ -354,6 +363,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
       anneals: `the route needs more than ${maxAnneals} anneals at ${fmt(sMax)} strain between anneals (${sMaxWhy}) for a total strain of ${fmt(E)}`,
       drawability: `the drawing stress exceeds ${fmt(maxDrawRatio * 100, 3)} % of the exit flow stress even at the smallest pass tried (die half-angle ${spec.dieHalfAngleDeg}°, friction ${spec.friction}): use a smaller die angle or better lubrication`,
       force: `the ${draw ? 'drawing' : 'roll'} force exceeds the capacity ${forceText(capacity ?? 0)} even at the smallest pass tried within ${maxPasses} passes`,
+      bite: `the rolls cannot bite the draft of the smallest pass tried within ${maxPasses} passes (largest draft μ²·R = ${len((spec.friction ?? 0) ** 2 * (spec.rollRadius ?? 0))}): raise friction or roll radius, or allow more passes`,
       heating: `the adiabatic temperature rise exceeds ${fmt(maxDT)} K even at the smallest pass tried within ${maxPasses} passes`,
       reduction: `no schedule fits within ${maxPasses} passes at ${fmt(rPass * 100, 3)} % per pass`,
     };

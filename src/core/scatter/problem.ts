@@ -149,15 +149,23 @@ export function prepareScatter(problem: ScatterProblem, path = 'scatter'): Prepa
 }
 
 const lengthMm = (mm: number) => `${+mm.toPrecision(6)} mm`;
+const PATHS: string[] = [];
+const pathOf = (i: number) => PATHS[i] ?? (PATHS[i] = `steps[${i}]`);
 
-/** The effect of every step on a stock of the given start size (the ledger's own step functions). */
+/**
+ * The effect of every step on a stock of the given start size (the ledger's own step functions,
+ * applied in order). Runs once per sample when a start size scatters, so it reuses one context
+ * object and the step paths (the step functions keep neither).
+ */
 export function stepEffects(start: Size, stock: StockKind, steps: readonly Step[]): StepEffect[] {
-  let size: Size = { ...start };
   const out: StepEffect[] = new Array(steps.length);
+  const ctx = { stock, size: { ...start } as Size, path: '', length: lengthMm };
   for (let i = 0; i < steps.length; i++) {
-    const e = STEP_KINDS[steps[i]!.kind].apply(steps[i]!, { stock, size, path: `steps[${i}]`, length: lengthMm });
+    const step = steps[i]!;
+    ctx.path = pathOf(i);
+    const e = STEP_KINDS[step.kind].apply(step, ctx);
     out[i] = e;
-    size = e.size;
+    ctx.size = e.size;
   }
   return out;
 }

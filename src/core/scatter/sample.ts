@@ -109,8 +109,10 @@ export function sampleScatterBlock(prep: PreparedScatter, index: number): Scatte
   const count = Math.min(SCATTER_BLOCK, problem.samples - start);
   if (!(count > 0)) throw new InputError('scatter.block', index, `a block index in [0, ${prep.blocks - 1}]`);
   const z = normalSampler(xoshiro128ss(problem.seed, index));
-  const mu = problem.inputs.map((i) => i.mean);
-  const sd = problem.inputs.map((i) => i.sd);
+  const mu = Float64Array.from(problem.inputs, (i) => i.mean);
+  const sd = Float64Array.from(problem.inputs, (i) => i.sd);
+  const L = new Float64Array(p * p); // the Cholesky factor, row-major
+  for (let i = 0; i < p; i++) for (let j = 0; j <= i; j++) L[i * p + j] = chol[i]![j]!;
   const inputs = new Float64Array(count * p);
   const reloadYield = new Float64Array(count);
   const tensileStrength = new Float64Array(count);
@@ -119,6 +121,8 @@ export function sampleScatterBlock(prep: PreparedScatter, index: number): Scatte
   const zz = new Float64Array(p);
   const x = new Float64Array(p);
   const material: Material = { ...prep.baseMaterial, law: sampleLaw(prep, mu) };
+  const fixed = prep.fixedEffects;
+  const steps = problem.steps;
   let rejected = 0;
   let lastReason = '';
   for (let s = 0; s < count; s++) {
@@ -126,20 +130,19 @@ export function sampleScatterBlock(prep: PreparedScatter, index: number): Scatte
       for (let i = 0; i < p; i++) zz[i] = z();
       for (let i = 0; i < p; i++) {
         let c = 0;
-        const row = chol[i]!;
-        for (let j = 0; j <= i; j++) c += row[j]! * zz[j]!;
+        for (let j = 0; j <= i; j++) c += L[i * p + j]! * zz[j]!;
         x[i] = mu[i]! + sd[i]! * c;
       }
       let out: SampleOutcome | null = null;
       try {
         material.law = sampleLaw(prep, x);
-        out = finalState(prep, material, prep.fixedEffects ?? stepEffects(sampleStart(prep, x), prep.stock, problem.steps));
+        out = finalState(prep, material, fixed ?? stepEffects(sampleStart(prep, x), prep.stock, steps));
       } catch (e) {
         if (!(e instanceof InputError || e instanceof ComputationError)) throw e;
         lastReason = e.message;
       }
       if (out) {
-        inputs.set(x, s * p);
+        for (let i = 0; i < p; i++) inputs[s * p + i] = x[i]!;
         reloadYield[s] = out.reloadYield;
         tensileStrength[s] = out.tensileStrength;
         remainingElongationPct[s] = out.remainingElongationPct;

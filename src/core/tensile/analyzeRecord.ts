@@ -90,7 +90,10 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     }
   }
   const necked = !detected && stress[N - 1]! < 0.9 * Rm;
-  if (!detected && !necked) warnings.push({ code: 'noFractureDrop', message: 'no sudden fall of force after Rm and no necking at the end: the last point is taken as fracture (A assumes the record ends at fracture)' });
+  if (!detected && iMax >= N - Math.max(2, Math.ceil(0.01 * N))) {
+    warnings.push({ code: 'maxAtEnd', message: 'the highest stress is at the end of the record: the test stopped before maximum force, so Rm, Ag and A are lower bounds' });
+  }
+  else if (!detected && !necked) warnings.push({ code: 'noFractureDrop', message: 'no sudden fall of force after Rm and no necking at the end: the last point is taken as fracture (A assumes the record ends at fracture)' });
   const A = (strain[fi]! - toe - stress[fi]! / E) * 100;
 
   // True curve to maximum force.

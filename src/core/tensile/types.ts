@@ -7,7 +7,7 @@ export interface TensileData {
 }
 
 export interface TensileWarning {
-  code: 'noProofPoint' | 'noFractureDrop' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles';
+  code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles';
   message: string;
 }
 

@@ -64,6 +64,11 @@ describe('designRoute(spec): infeasible specifications name the binding limit', 
     const r = designRoute({ ...wire, forceCapacity: 50 });
     expect(r.binding!.limit).toBe('force');
   });
+  it('a window narrower than the size rounding can hit', () => {
+    const r = designRoute({ ...wire, sizeResolution: 0.01, window: { minYield: 560, maxYield: 560.02 } });
+    expect(r.feasible).toBe(false);
+    expect(r.binding!.limit).toBe('window (size rounding)');
+  });
   it('too few anneals allowed', () => {
     const r = designRoute({ ...wire, finalSize: 1, maxStrainBeforeAnneal: 0.9, maxAnneals: 1 });
     expect(r.binding!.limit).toBe('anneals');
@@ -99,12 +104,14 @@ describe('every designed route, run through the runner, meets its own window and
       const L = g.us ? 1 / MM_PER_IN : 1;
       const F = g.us ? 1 / N_PER_LBF : 1;
       const b = g.a + g.width;
+      // Rolling friction 0.08–0.15 with 150 mm rolls: largest bite μ²·R from 0.96 to 3.4 mm.
+      const rollMu = 0.08 + (g.mu / 0.12) * 0.07;
       const spec = {
         name: 'random spec', units: g.us ? 'US' : 'SI',
         material: { name: 'm', elasticModulus: 200000 * S, flowCurve: { law: 'hollomon', K: g.K * S, n: g.n }, ...(g.heat ? { density: 7850, specificHeat: 480 } : {}) },
         process: g.draw
           ? { kind: 'draw', dieHalfAngleDeg: g.angle, friction: g.mu, ...(g.capacity ? { forceCapacity: g.capacity * F } : {}) }
-          : { kind: 'roll', rollRadius: 100 * L, friction: Math.max(g.mu, 0.03), ...(g.capacity ? { forceCapacity: g.capacity * 20 * F } : {}) },
+          : { kind: 'roll', rollRadius: 150 * L, friction: rollMu, ...(g.capacity ? { forceCapacity: g.capacity * 20 * F } : {}) },
         start: g.draw ? { diameter: g.d0 * L } : { thickness: g.d0 * L, width: 60 * L },
         final: g.draw ? { diameter: g.d0 * g.ratio * L } : { thickness: g.d0 * g.ratio * L },
         limits: { maxPassReductionPct: g.maxPass, maxStrainBeforeAnneal: g.sMax, maxDrawabilityRatio: g.drawRatio, maxTemperatureRise: g.maxDT },
@@ -120,7 +127,6 @@ describe('every designed route, run through the runner, meets its own window and
         return;
       }
       feasible++;
-      const toSI = g.us ? MM_PER_IN : 1;
       for (const route of res.routes) {
         const planText = JSON.stringify(routeToPlan(loaded, route.steps, route.rank));
         const plan = loadPlanText(planText, 'designed.json');
@@ -134,9 +140,12 @@ describe('every designed route, run through the runner, meets its own window and
           expect(since, 'strain between anneals').toBeLessThanOrEqual(g.sMax * (1 + 1e-9));
           const size = (g.draw ? r.size.diameter! : r.size.thickness!);
           const red = g.draw ? 100 * (1 - (size / prev) ** 2) : 100 * (1 - size / prev);
+          const draft = prev - size;
           expect(red, 'reduction per pass').toBeLessThanOrEqual(g.maxPass * (1 + 1e-6));
           prev = size;
           if (g.draw) expect(r.drawabilityRatio!, 'drawability').toBeLessThanOrEqual(g.drawRatio * (1 + 1e-9));
+          // Rolls bite unaided only up to a draft μ²·R (Dieter, Mechanical Metallurgy, §17-5; from memory).
+          else expect(draft, 'bite').toBeLessThanOrEqual(rollMu * rollMu * 150 * (1 + 1e-9));
           const force = g.draw ? r.drawingForce! : r.rollForce!;
           expect(Number.isFinite(force)).toBe(true);
           if (g.capacity) expect(force, 'force capacity').toBeLessThanOrEqual((g.draw ? g.capacity : g.capacity * 20) * (1 + 1e-9));
@@ -144,7 +153,6 @@ describe('every designed route, run through the runner, meets its own window and
         });
         const last = ledger.rows[ledger.rows.length - 1]!;
         expect(last.size.diameter ?? last.size.thickness).toBeCloseTo(g.d0 * g.ratio, 6);
-        void toSI;
       }
     }), { seed: 7203, numRuns: 60 });
     // The generator must exercise real routes, not only infeasible ones.
