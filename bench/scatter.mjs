@@ -3,7 +3,8 @@
 // thread, on one worker thread and on two worker threads, measured side by side in one run, and
 // whether the three summaries are identical. Aim (issue 8): under 2 s with two threads on 2 cores.
 // Run: npm run build && node bench/scatter.mjs [samples]
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
+const LOAD = loadavg().map((x) => x.toFixed(2)).join(', ');
 import { sampleScatterThreads } from '../dist/cli/scatter-workers.js';
 
 const samples = Number(process.argv[2] ?? 1_000_000);
@@ -22,16 +23,27 @@ const problem = {
 };
 
 const strip = ({ sorted, ...rest }) => JSON.stringify(rest);
-await sampleScatterThreads({ ...problem, samples: 50_000 }, 0); // warm-up of the calling thread's JIT
-const results = [];
-for (const threads of [0, 1, 2]) {
-  const t0 = performance.now();
-  const s = await sampleScatterThreads(problem, threads);
-  const ms = performance.now() - t0;
-  results.push({ threads, ms, s });
-  console.log(`${threads === 0 ? 'calling thread  ' : `${threads} worker thread${threads > 1 ? 's' : ' '}`}  ${(ms / 1000).toFixed(2)} s  (${(samples / ms / 1000).toFixed(2)} million samples/s)  P(all met) ${s.probabilityAllTargetsMet.toFixed(4)}`);
+// Two cases: law parameters only (the step effects are computed once), and law plus start size
+// (every sample carries its own size through the ten steps).
+const lawOnly = { ...problem, inputs: problem.inputs.slice(0, 2), correlation: [[1, -0.5], [-0.5, 1]] };
+let allSame = true;
+for (const [name, prob] of [['K, n', lawOnly], ['K, n, start thickness', problem]]) {
+  await sampleScatterThreads({ ...prob, samples: 50_000 }, 0); // warm-up of the calling thread's JIT
+  console.log(`inputs ${name}: ${samples} samples, 10 steps`);
+  const results = [];
+  for (const threads of [0, 1, 2]) {
+    const c0 = process.cpuUsage();
+    const t0 = performance.now();
+    const s = await sampleScatterThreads(prob, threads);
+    const ms = performance.now() - t0;
+    const cpu = process.cpuUsage(c0);
+    results.push({ threads, ms, s });
+    // CPU time of all threads of this process: on a busy machine wall time overstates the cost.
+    console.log(`  ${threads === 0 ? 'calling thread  ' : `${threads} worker thread${threads > 1 ? 's' : ' '}`}  wall ${(ms / 1000).toFixed(2)} s  cpu ${((cpu.user + cpu.system) / 1e6).toFixed(2)} s  P(all met) ${s.probabilityAllTargetsMet.toFixed(4)}`);
+  }
+  const same = results.every((r) => strip(r.s) === strip(results[0].s));
+  allSame &&= same;
+  console.log(`  summaries identical for 0, 1 and 2 threads: ${same}; wall ratio 1 thread / 2 threads: ${(results[1].ms / results[2].ms).toFixed(2)}`);
 }
-const same = results.every((r) => strip(r.s) === strip(results[0].s));
-console.log(`summaries identical for 0, 1 and 2 threads: ${same}`);
-console.log(`ratio 1 thread / 2 threads: ${(results[1].ms / results[2].ms).toFixed(2)}; cores available: ${availableParallelism()}; node ${process.version}; ${new Date().toISOString()}`);
-if (!same) process.exit(1);
+console.log(`load average before: ${LOAD}; cores available: ${availableParallelism()}; node ${process.version}; ${new Date().toISOString()}`);
+if (!allSame) process.exit(1);

@@ -70,12 +70,12 @@ function parseTyped(text: string): LawSet {
 }
 
 function benchSet(): LawSet {
-  const stored = restore(BENCH_MATERIAL_KEY, (raw) => raw as { name: string; elasticModulus: number; flowCurve: LawSpec; alternatives?: LawSpec[]; fittedStrainRange?: [number, number] });
+  const stored = restore(BENCH_MATERIAL_KEY, (raw) => raw as { name: string; elasticModulus: number; flowCurve: LawSpec; alternatives?: LawSpec[]; fittedStrainRange?: [number, number]; modulusDecay?: { Ea: number; xi: number } });
   const m = stored.value;
   if (!m) throw new Error(stored.problem ?? 'no law has been saved from the record bench yet: open the record bench, choose a law and press "use in the other notebooks"');
   const specs = [m.flowCurve, ...(m.alternatives ?? []).filter((s) => s.law !== m.flowCurve.law)];
   const laws = specs.map((s, i) => makeLaw(s, `record bench law ${i + 1}`));
-  return { name: m.name, invented: false, elasticModulus: m.elasticModulus, testedRange: m.fittedStrainRange ?? null, laws: laws.map((law) => ({ label: lawLabel(law), law })) };
+  return { name: m.name, invented: false, elasticModulus: m.elasticModulus, ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}), testedRange: m.fittedStrainRange ?? null, laws: laws.map((law) => ({ label: lawLabel(law), law })) };
 }
 
 /**

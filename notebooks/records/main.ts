@@ -59,13 +59,18 @@ function drawMapping(): void {
   const num = (id: string, text: string) => h('div', { class: 'sl-input' }, h('label', { for: id }, text), h('input', { type: 'text', inputmode: 'decimal', id, class: 'sl-number' }), ' mm');
   box.replaceChildren(
     colSel('strain', 'strain column'), colSel('stress', 'stress column'), colSel('force', 'force column'), colSel('extension', 'extension column'),
-    unitSel('map-strainUnit', 'strain unit', ['fraction', 'percent']), unitSel('map-stressUnit', 'stress unit', Object.keys(STRESS_UNITS)),
-    unitSel('map-forceUnit', 'force unit', Object.keys(FORCE_UNITS)), unitSel('map-lengthUnit', 'extension unit', Object.keys(LENGTH_UNITS)),
+    unitSel('map-strainUnit', 'strain unit', ['fraction', 'percent']), unitSel('map-stressUnit', 'stress unit', shown(['MPa', 'N/mm²', 'GPa', 'ksi', 'psi'], STRESS_UNITS)),
+    unitSel('map-forceUnit', 'force unit', shown(['N', 'kN', 'lbf', 'kip', 'kgf'], FORCE_UNITS)), unitSel('map-lengthUnit', 'extension unit', shown(['mm', 'in', 'cm', 'm', 'µm'], LENGTH_UNITS)),
     num('map-diameter', 'specimen diameter'), num('map-gaugeLength', 'gauge length'),
     h('button', { type: 'button', id: 'apply-mapping', onclick: applyMapping }, 'read the record again with these settings'));
   const unitKeys = ['strainUnit', 'stressUnit', 'forceUnit', 'lengthUnit'] as const;
   for (const k of unitKeys) (byId(`map-${k}`) as HTMLSelectElement).value = String(options[k] ?? '');
   for (const k of ['diameter', 'gaugeLength'] as const) (byId(`map-${k}`) as HTMLInputElement).value = options[k] === undefined ? '' : String(options[k]);
+}
+
+/** Unit names as people write them, kept only where the record parser knows them (it compares lower-cased). */
+function shown(names: readonly string[], table: Readonly<Record<string, number>>): string[] {
+  return names.filter((n) => table[n.toLowerCase()] !== undefined);
 }
 
 function applyMapping(): void {
@@ -144,6 +149,8 @@ nb.cell({ name: 'input', fn: () => null })
           q('ReH (upper yield)', a.upperYield, DIGITS.stress, 'MPa', 'upperYield'),
           q('yield ratio Rp/Rm', a.proofStrength === null ? null : a.proofStrength / a.tensileStrength, DIGITS.ratio, '', 'yieldRatio')),
         h('p', { id: 'elastic-window' }, `Elastic window: ${fixed(w.fromStress, 0)} to ${fixed(w.toStress, 0)} MPa, ${w.points} points, R² ${fixed(w.r2, 5)}, standard error of E ${fixed(w.standardError, 0)} MPa (${w.method}).`),
+        a.cycles.length ? h('p', { id: 'modulus-decay' }, `${a.cycles.length} unload–reload loops; unloading chord modulus ${a.cycles.map((c) => fixed(c.unloadModulus, 0)).join(', ')} MPa`,
+          a.modulusDecay?.converged ? `; fitted E(ε̄) = E0 − (E0 − Ea)(1 − exp(−ξ·ε̄)) with Ea ${fixed(a.modulusDecay.Ea, 0)} MPa, ξ ${fixed(a.modulusDecay.xi, 1)} (sent with the law).` : '.') : null,
         a.warnings.length ? h('ul', { class: 'sl-notice' }, ...a.warnings.map((x) => h('li', {}, x.message))) : null);
     },
   })
@@ -199,6 +206,7 @@ nb.cell({ name: 'input', fn: () => null })
         const ok = autosave(BENCH_MATERIAL_KEY, {
           name: `${r.name} (${f.law} fit)`, elasticModulus: a.elasticModulus, flowCurve: spec,
           alternatives: fits.map((x) => ({ law: x.law, ...x.params })), fittedStrainRange: f.strainRange, source: `fitted from ${r.file}`,
+          ...(a.modulusDecay?.converged && a.modulusDecay.Ea <= a.elasticModulus ? { modulusDecay: { Ea: a.modulusDecay.Ea, xi: a.modulusDecay.xi } } : {}),
         });
         out.textContent = ok ? `Saved "${r.name} (${f.law} fit)": the route planner ("use the law saved from the record bench") and the prestrain explorer can use it now.` : 'The browser refused to save; nothing was sent.';
       };

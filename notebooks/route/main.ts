@@ -158,7 +158,7 @@ function drawSteps(): void {
 }
 
 function useBenchMaterial(): void {
-  const stored = restore(BENCH_MATERIAL_KEY, (raw) => raw as { name: string; elasticModulus: number; flowCurve: LawSpec; fittedStrainRange?: [number, number]; source?: string });
+  const stored = restore(BENCH_MATERIAL_KEY, (raw) => raw as { name: string; elasticModulus: number; flowCurve: LawSpec; fittedStrainRange?: [number, number]; modulusDecay?: { Ea: number; xi: number }; source?: string });
   if (!stored.value) {
     status.replaceChildren(errorBox(new Error(stored.problem ?? 'no law has been saved from the record bench yet'), 'No material from the record bench'));
     return;
@@ -169,7 +169,11 @@ function useBenchMaterial(): void {
   const flowCurve: Record<string, unknown> = { law: law.law };
   for (const p of LAW_PARAMETERS[b.flowCurve.law]) flowCurve[p.name] = +Number(law[p.name]).toPrecision(6);
   edit((d) => {
-    d.material = { name: b.name, elasticModulus: +u.fromMPa(b.elasticModulus).toPrecision(6), flowCurve, ...(b.fittedStrainRange ? { fittedStrainRange: b.fittedStrainRange } : {}) };
+    d.material = {
+      name: b.name, elasticModulus: +u.fromMPa(b.elasticModulus).toPrecision(6), flowCurve,
+      ...(b.modulusDecay ? { modulusDecay: { Ea: Math.min(+u.fromMPa(b.modulusDecay.Ea).toPrecision(6), +u.fromMPa(b.elasticModulus).toPrecision(6)), xi: +b.modulusDecay.xi.toPrecision(6) } } : {}),
+      ...(b.fittedStrainRange ? { fittedStrainRange: b.fittedStrainRange } : {}),
+    };
   });
   status.replaceChildren(h('p', { class: 'sl-notice' }, `Material replaced by "${b.name}" from the record bench (undo to go back).`));
 }

@@ -77,7 +77,7 @@ export { hillLocalizedLimit, hillInstabilityRate, equivalentPerMajor } from './p
 export { swiftDiffuseLimit, swiftInstabilityRate } from './process/swiftDiffuseLimit.js';
 export { sheetFormability } from './process/sheetFormability.js';
 export type { SheetFormability } from './process/sheetFormability.js';
-export { passLoads, SHEET_STRAIN_RATIO } from './process/passLoads.js';
+export { passLoads, hasPassLoads, PASS_LOAD_FIELDS, SHEET_STRAIN_RATIO } from './process/passLoads.js';
 export type { PassInput, PassLoads } from './process/passLoads.js';
 export { designRoute } from './process/designRoute.js';
 export type { DesignSpec, DesignResult, DesignedRoute, AnnealNote } from './process/designRoute.js';
@@ -109,7 +109,8 @@ export type * from './tensile/types.js';
 // Law fitting and statistics (issue 3)
 export { levenbergMarquardt, LM_DEFAULTS } from './fit/levenbergMarquardt.js';
 export type { Model, LmOptions, LmResult } from './fit/levenbergMarquardt.js';
-export { fitLaw, lawBounds, lawModel, START_SAMPLE } from './fit/fitLaw.js';
+export { fitLaw, lawBounds, lawModel, lawModelFast, START_SAMPLE } from './fit/fitLaw.js';
+export { lawJacobian } from './fit/lawJacobian.js';
 export type { FitLawOptions } from './fit/fitLaw.js';
 export { fitAllLaws, FIT_DEFAULTS } from './fit/fitAllLaws.js';
 export type { LawComparison, ExtrapolationPoint, FitAllOptions } from './fit/fitAllLaws.js';

@@ -13,7 +13,7 @@ const Spread = z.strictObject({
 }).describe('Normal spread of one input: exactly one of cv or sd');
 
 export const ScatterSchema = z.strictObject({
-  samples: z.number().int().gte(2).lte(1e8).default(SCATTER_DEFAULTS.samples).describe('number of Monte Carlo samples'),
+  samples: z.number().int().gte(2).lte(1e7).default(SCATTER_DEFAULTS.samples).describe('number of Monte Carlo samples'),
   seed: z.number().int().gte(0).lte(4294967295).default(SCATTER_DEFAULTS.seed).describe('seed of the random streams; the same plan and seed give the same report'),
   params: z.record(z.string(), Spread).default({}).describe('spread of law parameters by name (e.g. K, n for hollomon)'),
   start: z.strictObject({

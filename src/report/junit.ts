@@ -4,7 +4,6 @@ import { targetUnit } from './columns.js';
 /** Escapes text for XML 1.0 content and attributes; drops characters XML 1.0 forbids. */
 export function xmlText(s: string): string {
   return s
-    // eslint-disable-next-line no-control-regex
     .replace(/[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g, '')
     .replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&apos;');
 }

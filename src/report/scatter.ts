@@ -88,13 +88,13 @@ export function scatterLines(s: ReportScatter, stress: string): string[] {
   const tb = s.toleranceBound;
   const top = [...s.sensitivity.inputs].sort((a, b) => Math.abs(b.src) - Math.abs(a.src));
   return [
-    `scatter: ${s.samples} samples, seed ${s.seed}; inputs ${s.inputs.map((i) => `${i.name} ${+i.mean.toPrecision(6)} ± ${+i.sd.toPrecision(3)} ${i.unit === '1' ? '' : i.unit}`.trim()).join(', ')}` +
+    `scatter: ${s.samples} samples, seed ${s.seed}; inputs ${s.inputs.length === 0 ? 'none (no spread given)' : ''}${s.inputs.map((i) => `${i.name} ${+i.mean.toPrecision(6)} ± ${+i.sd.toPrecision(3)} ${i.unit === '1' ? '' : i.unit}`.trim()).join(', ')}` +
       (Object.keys(s.correlation).length ? `; correlation ${Object.entries(s.correlation).map(([k, v]) => `${k} ${v}`).join(', ')}` : ''),
     `  probability all targets met: ${pct(s.probabilityAllTargetsMet)} (± ${pct(s.probabilityStdError)} sampling error)` +
       (s.targets.length ? `; ${s.targets.map((t) => `${t.name} ${pct(t.probabilityMet)}`).join(', ')}` : ''),
     `  final Rp0.2 ${stress}: mean ${f(y.mean)}, sd ${f(y.sd)}, 5 % ${f(y.p05)}, 50 % ${f(y.p50)}, 95 % ${f(y.p95)} (first-order: mean ${f(s.deltaMethod.finalReloadYield.mean)}, sd ${f(s.deltaMethod.finalReloadYield.sd)})`,
     `  lower bound on Rp0.2, ${pct(tb.coverage)} coverage at ${pct(tb.confidence)} confidence: ${f(tb.value)} ${stress} (${tb.method}); normal theory ${f(tb.normalValue)} (k = ${tb.normalK.toFixed(4)})`,
-    `  spread driven by: ${top.map((i) => `${i.input} (SRC ${i.src.toFixed(2)})`).join(', ')}; linear R² ${s.sensitivity.linearR2.toFixed(3)}`,
+    top.length ? `  spread driven by: ${top.map((i) => `${i.input} (SRC ${i.src.toFixed(2)})`).join(', ')}; linear R² ${s.sensitivity.linearR2.toFixed(3)}` : '  spread driven by: nothing scatters',
     ...(s.rejectedDraws > 0 ? [`  ${s.rejectedDraws} draws fell outside what the law or route allows and were redrawn (truncated normal)`] : []),
     ...s.cautions.map((c) => `  caution: ${c}`),
   ];

@@ -1,6 +1,7 @@
 // Starts the notebook server (vite, programmatically, on a free loopback port) and Debian's
 // Chromium (playwright-core, never a downloaded browser, never the GPU); stops both afterwards.
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { createServer as netServer } from 'node:net';
 import { join } from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
@@ -31,10 +32,14 @@ export interface Harness {
 
 export async function startHarness(): Promise<Harness> {
   const port = await freePort();
+  // Each server gets its own dependency cache, so test files running in parallel never race on
+  // node_modules/.vite.
+  const cacheDir = mkdtempSync(join(tmpdir(), 'sl-vite-'));
   const server = await createServer({
     configFile: join(REPO, 'vite.config.ts'),
     mode: 'development',
     logLevel: 'error',
+    cacheDir,
     server: { port, strictPort: true, host: '127.0.0.1', hmr: false },
   });
   await server.listen();
@@ -44,6 +49,7 @@ export async function startHarness(): Promise<Harness> {
     browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS });
   } catch (e) {
     await server.close();
+    rmSync(cacheDir, { recursive: true, force: true });
     throw e;
   }
   mkdirSync(SCREENSHOTS, { recursive: true });
@@ -54,6 +60,7 @@ export async function startHarness(): Promise<Harness> {
     async close() {
       await browser.close();
       await server.close();
+      rmSync(cacheDir, { recursive: true, force: true });
     },
   };
 }

@@ -46,8 +46,8 @@ export interface LmResult {
  *
  * Minimises S(p) = Σᵢ (f(p)ᵢ − yᵢ)² subject to lower ≤ p ≤ upper. Each iteration solves
  * (JᵀJ + λ·diag(JᵀJ))·δ = −Jᵀr (Marquardt's scaling, so the step is invariant to parameter units),
- * projects p + δ onto the box, and accepts it when S falls (λ ← λ/3), else λ ← ν·λ, ν ← 2ν and retries (Nielsen's
- * damping update, H. B. Nielsen, IMM-REP-1999-05, DTU).
+ * projects p + δ onto the box, and accepts it when S falls (λ ← λ·max(1/3, 1 − (2ρ − 1)³) with ρ the ratio of actual to predicted
+ * fall), else λ ← ν·λ, ν ← 2ν and retries (Nielsen's damping update, H. B. Nielsen, IMM-REP-1999-05, DTU).
  * Parameters sitting on a bound whose gradient pushes outward are held fixed for that iteration
  * (an active-set projection). The Jacobian is by forward differences, step √ε·max(|p|, 1e-6·scale),
  * taken backward when the forward point is outside the box or the model's domain.
@@ -166,10 +166,20 @@ export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: re
       const Sq = cost(fq);
       if (Sq < S) {
         const drop = (S - Sq) / Math.max(S, 1e-300);
+        // Gain ratio ρ = actual / predicted fall of S (predicted from the linear model, with the projected step).
+        let pred = 0;
+        for (let a = 0; a < k; a++) {
+          const j = free[a]!;
+          const dj = q[j]! - p[j]!;
+          let jd = 0;
+          for (let b = 0; b < k; b++) jd += JtJ[j * m + free[b]!]! * (q[free[b]!]! - p[free[b]!]!);
+          pred += -2 * g[j]! * dj - dj * jd;
+        }
+        const rho = pred > 0 ? (S - Sq) / pred : 0.5;
         p.set(q);
         f = fq!;
         S = Sq;
-        lambda = Math.max(lambda / 3, 1e-10);
+        lambda = Math.max(lambda * Math.max(1 / 3, 1 - (2 * rho - 1) ** 3), 1e-10);
         nu = 2;
         jac(f);
         if (drop < ftol || small) {

@@ -72,8 +72,13 @@ export function createPathStepper(material: PathMaterial, opts: PathOptions = {}
   const SAT = new Float64Array(n);
   for (let i = 0; i < n; i++) { C[i] = kin!.backstresses[i]!.C; G[i] = kin!.backstresses[i]!.gamma; SAT[i] = C[i]! / G[i]!; }
   const X = new Float64Array(n);
-  const st = { strain: 0, stress: 0, plasticStrain: 0, accumulated: 0 };
-  const stats = { converged: true, iterations: 0, residual: 0 };
+  // Created with non-integer values so V8 gives the fields a double representation from the start
+  // (then reset to 0): writing a double into a field that began as a small integer boxes it on every
+  // increment, which showed up as garbage-collection time in bench/integrator.mjs.
+  const st = { strain: 0.5, stress: 0.5, plasticStrain: 0.5, accumulated: 0.5 };
+  st.strain = 0; st.stress = 0; st.plasticStrain = 0; st.accumulated = 0;
+  const stats = { converged: true, iterations: 0, residual: 0.5 };
+  stats.residual = 0;
   const Eof = decay ? (p: number) => chordModulus(E0, decay, p) : () => E0;
   const dEof = decay ? (p: number) => -(E0 - Ea) * xi * Math.exp(-xi * p) : () => 0;
 

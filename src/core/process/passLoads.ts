@@ -54,6 +54,23 @@ export interface PassLoads {
 
 const fmtN = (n: number) => `${+n.toPrecision(4)} N`;
 
+/** The optional numeric fields {@link passLoads} may set, in report order. */
+export const PASS_LOAD_FIELDS = [
+  'drawingStress', 'drawingForce', 'drawabilityRatio', 'maxAreaReductionPct', 'rollForce', 'rollTorque', 'temperatureRise', 'formingLimitMajorStrain',
+] as const;
+
+/**
+ * Whether {@link passLoads} has anything to add for this step: die data on a draw, roll data on a
+ * roll, density and specific heat on the material, or a sheet-stretching step on strip. The ledger
+ * asks first, so routes without process data keep the ledger's hot path free of this work.
+ */
+export function hasPassLoads(step: PassInput['step'], stock: PassInput['stock'], material: { density?: number; specificHeat?: number }): boolean {
+  if (material.density !== undefined && material.specificHeat !== undefined) return true;
+  if (step.kind === 'draw') return step.dieHalfAngleDeg !== undefined || step.friction !== undefined;
+  if (step.kind === 'roll') return step.rollRadius !== undefined || step.friction !== undefined;
+  return stock === 'strip' && SHEET_STRAIN_RATIO[step.kind] !== undefined;
+}
+
 /**
  * Loads, heating and sheet limits of one forming step, from the formulas of this folder:
  * - draw with `dieHalfAngleDeg` and `friction`: drawing stress ({@link drawingStress}), force σd·A1

@@ -33,18 +33,33 @@ export interface SheetFormability {
  * strain (path-change effects ignored); Swift's diffuse neck on the β > 0 side is a lower bound of
  * the practical forming limit (Hill's analysis gives no local neck there). Source: Marciniak, Duncan
  * & Hu, *Mechanics of Sheet Metal Forming*, 2nd ed., §5.3–5.4.
+ * Hollomon (ε̄* = n/z) and Voce (ε̄* = −ln(z(σ0 + Q)/(Q(b + z)))/b) are solved in closed form, other
+ * laws with Brent's method on σ'(ε̄) − z·σ(ε̄).
  * Units: true strains. Valid range: −1 < β ≤ 1, ε̄0 ≥ 0.
  * @throws ComputationError when no instability lies below ε̄ = 10.
  * @example sheetFormability(hollomon({ K: 600, n: 0.2 }), 0, 0).remainingMajorStrain // 0.2
  */
 export function sheetFormability(law: FlowLaw, accumulatedStrain: number, strainRatio: number, path = 'step'): SheetFormability {
-  const beta = checkRange(`${path}.strainRatio`, strainRatio, -1, 1, { loOpen: true });
-  const e0 = checkRange(`${path}.accumulatedStrain`, accumulatedStrain, 0, SEARCH_LIMIT);
+  // Plain comparisons first: field names are built only for a value that fails (ledger hot path).
+  const beta = strainRatio > -1 && strainRatio <= 1 ? strainRatio : checkRange(`${path}.strainRatio`, strainRatio, -1, 1, { loOpen: true });
+  const e0 = accumulatedStrain >= 0 && accumulatedStrain <= SEARCH_LIMIT ? accumulatedStrain : checkRange(`${path}.accumulatedStrain`, accumulatedStrain, 0, SEARCH_LIMIT);
   const criterion = beta <= 0 ? 'hillLocalized' : 'swiftDiffuse';
   const z = beta <= 0 ? hillInstabilityRate(beta) : swiftInstabilityRate(beta);
   const phi = equivalentPerMajor(beta);
   const g = (e: number) => law.slope(e) - z * law.stress(e);
   const base = { strainRatio: beta, criterion } as const;
+  if (law.law === 'hollomon') {
+    // Closed form: (1/σ)·dσ/dε = n/ε, so the limit is ε̄* = n/z exactly (no search needed).
+    const limit = law.params.n! / z;
+    return { ...base, limitEquivalentStrain: Math.max(limit, e0), remainingMajorStrain: Math.max(0, limit - e0) / phi, converged: true, iterations: 0, residual: 0 };
+  }
+  if (law.law === 'voce') {
+    // Closed form: σ = σ0 + Q(1 − e^(−bε)), σ' = Qb·e^(−bε); σ' = z·σ gives e^(−bε) = z(σ0 + Q)/(Q(b + z)).
+    const { sigma0, Q, b } = law.params as { sigma0: number; Q: number; b: number };
+    const x = Q > 0 ? (z * (sigma0 + Q)) / (Q * (b + z)) : 1;
+    const limit = x >= 1 ? 0 : -Math.log(x) / b;
+    return { ...base, limitEquivalentStrain: Math.max(limit, e0), remainingMajorStrain: Math.max(0, limit - e0) / phi, converged: true, iterations: 0, residual: 0 };
+  }
   let lo = Math.max(e0, 1e-12);
   if (g(lo) <= 0) return { ...base, limitEquivalentStrain: e0, remainingMajorStrain: 0, converged: true, iterations: 0, residual: 0 };
   let hi = Math.max(2 * lo, 0.05);

@@ -1,5 +1,5 @@
 import { ComputationError } from '../errors.js';
-import { passLoads } from '../process/passLoads.js';
+import { hasPassLoads, PASS_LOAD_FIELDS, passLoads } from '../process/passLoads.js';
 import { PROOF_OFFSET, stateProperties } from './state.js';
 import { STEP_KINDS, stockOf, type ReductionBasis } from './steps.js';
 import { checkSpringbackTarget, checkTargets, validateTargets } from './targets.js';
@@ -149,15 +149,19 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
       if (b.reverseYield) warnings.push({ code: 'bend', message: 'the residual stress after springback reaches reverse yield in part of the thickness; unloading is not purely elastic and the springback given is somewhat overstated' });
       warnings.push({ code: 'bend', message: 'after a bend the ledger follows the outer fibre (the most strained); strength varies through the thickness and the mid-plane keeps its earlier state' });
     }
-    if (effect.softeningFraction === undefined) {
+    if (effect.softeningFraction === undefined && hasPassLoads(step, stock, material)) {
       // Pass loads, heating and sheet limits, present only where the step and material give what they need.
-      const { warnings: loadWarnings, ...loads } = passLoads({
+      const loads = passLoads({
         step, stock, law, density: material.density, specificHeat: material.specificHeat, sizeBefore: rows[i - 1]?.size ?? start, sizeAfter: size,
         strainBefore: before, strainAfter: eps, meanFlowStress, plasticWork, path,
       });
-      Object.assign(row, loads);
-      warnings.push(...loadWarnings);
-      for (const v of Object.values(loads)) if (!Number.isFinite(v)) throw new ComputationError(path, `a pass load is not a finite number (${v})`);
+      for (const k of PASS_LOAD_FIELDS) {
+        const v = loads[k];
+        if (v === undefined) continue;
+        if (!Number.isFinite(v)) throw new ComputationError(`${path}.${k}`, `not a finite number (${v}); check the process data of the step`);
+        row[k] = v;
+      }
+      if (loads.warnings.length > 0) warnings.push(...loads.warnings);
     }
     // One sum finds any non-finite field cheaply; only then look for which one.
     const sum = row.accumulatedStrain + row.coldWorkPct + row.flowStress + row.reloadYield + row.tensileStrength + row.yieldRatio +

@@ -83,8 +83,8 @@ export interface PreparedScatter {
  */
 export function prepareScatter(problem: ScatterProblem, path = 'scatter'): PreparedScatter {
   const { inputs, correlation } = problem;
-  if (!Number.isInteger(problem.samples) || problem.samples < 2 || problem.samples > 1e8) {
-    throw new InputError(`${path}.samples`, problem.samples, 'an integer in [2, 100000000]');
+  if (!Number.isInteger(problem.samples) || problem.samples < 2 || problem.samples > 1e7) {
+    throw new InputError(`${path}.samples`, problem.samples, 'an integer in [2, 10000000]');
   }
   if (!Number.isInteger(problem.seed) || problem.seed < 0 || problem.seed > 0xffffffff) {
     throw new InputError(`${path}.seed`, problem.seed, 'an integer in [0, 4294967295]');

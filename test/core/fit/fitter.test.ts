@@ -3,10 +3,9 @@ import { join } from 'node:path';
 import { levenbergMarquardt as mlLevenbergMarquardt } from 'ml-levenberg-marquardt';
 import { describe, expect, it } from 'vitest';
 import {
-  analyzeRecord, fitAllLaws, fitLaw, LAW_NAMES, LAW_PARAMETERS, levenbergMarquardt, linearFit, makeLaw, startValues,
+  analyzeRecord, fitAllLaws, fitLaw, LAW_NAMES, LAW_PARAMETERS, lawJacobian, levenbergMarquardt, linearFit, makeLaw, startValues,
   studentTCdf, studentTQuantile, type LawSpec,
 } from '../../../src/core/index.js';
-import { lawJacobian } from '../../../src/core/fit/lawJacobian.js';
 import { parseRecordText } from '../../../src/records/index.js';
 import { expectAbsClose, expectRelClose } from '../../helpers.js';
 

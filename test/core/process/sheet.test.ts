@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { equivalentPerMajor, evaluateRoute, hillLocalizedLimit, hollomon, sheetFormability, swiftDiffuseLimit, swiftInstabilityRate, voce, type Material } from '../../../src/core/index.js';
+import { equivalentPerMajor, evaluateRoute, hillLocalizedLimit, hollomon, sheetFormability, swift, swiftDiffuseLimit, swiftInstabilityRate, voce, type Material } from '../../../src/core/index.js';
 import { expectRelClose } from '../../helpers.js';
 
 // Strains are true strains; β = ε2/ε1; von Mises isotropic sheet.
@@ -51,6 +51,18 @@ describe('sheetFormability(law, ε̄0, β): remaining formability of the current
     const f = sheetFormability(v, 0, -0.5);
     // Hill uniaxial: σ'/σ = 1/2 at the limit.
     expectRelClose(v.slope(f.limitEquivalentStrain) / v.stress(f.limitEquivalentStrain), 0.5, 1e-9, 'rate');
+  });
+  it('a law without a closed form (Swift) is solved so that (1/σ)·dσ/dε equals the criterion rate at the limit', () => {
+    const law = swift({ K: 550, eps0: 0.01, n: 0.25 });
+    for (const beta of [-0.5, 0, 0.5]) {
+      const f = sheetFormability(law, 0.02, beta);
+      expect(f.converged).toBe(true);
+      const z = beta <= 0 ? (1 + beta) / equivalentPerMajor(beta) : swiftInstabilityRate(beta);
+      // Brent to 1e-14 in strain; the rate is smooth, so 1e-9 relative.
+      expectRelClose(law.slope(f.limitEquivalentStrain) / law.stress(f.limitEquivalentStrain), z, 1e-9, `rate at β = ${beta}`);
+      // Swift from eps0: ε̄* = n/z − eps0 (same algebra as Hollomon, shifted).
+      expectRelClose(f.limitEquivalentStrain, 0.25 / z - 0.01, 1e-9, 'closed-form check');
+    }
   });
   it('the ledger reports formingLimitMajorStrain on sheet stretching steps, in the step\'s own strain ratio', () => {
     // Callister annealed low-carbon steel K 600 MPa, n 0.21.
