@@ -75,7 +75,7 @@ export interface LoadedDesignSpec {
  */
 export function loadDesignSpecText(text: string, file = 'spec.json', format = formatOf(file)): LoadedDesignSpec {
   const loc = parseLocated(text, file, format);
-  const doc = validateWith(DesignSpecSchema, loc, file);
+  const doc = validateWith(DesignSpecSchema, loc, file, 'README.md, "Process planning"');
   const units = unitsOf(doc.units);
   const spec = withLocation(file, loc, () => {
     // The material is checked exactly as a plan's (law ranges, modulus decay).

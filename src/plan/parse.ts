@@ -123,7 +123,7 @@ function closestBranch(issues: readonly z.core.$ZodIssue[]): z.core.$ZodIssue[] 
 }
 
 /** Validates parsed data against any zod schema (plans, design specs), with the same located messages as {@link validatePlan}. */
-export function validateWith<S extends z.ZodType>(schema: S, loc: Located, file: string): z.output<S> {
+export function validateWith<S extends z.ZodType>(schema: S, loc: Located, file: string, fieldsDoc = '`strainledger schema`'): z.output<S> {
   const r = schema.safeParse(loc.data, { reportInput: true });
   if (r.success) return r.data;
   const problems: Problem[] = [];
@@ -131,7 +131,7 @@ export function validateWith<S extends z.ZodType>(schema: S, loc: Located, file:
     if (issue.code === 'unrecognized_keys') {
       for (const key of issue.keys) {
         const path = [...issue.path.map((k) => (typeof k === 'symbol' ? String(k) : k)), key] as (string | number)[];
-        problems.push({ file, ...loc.locate(path), path: pathToString(path), message: `unknown field ${JSON.stringify(key)}; allowed only the documented fields (see \`strainledger schema\`)` });
+        problems.push({ file, ...loc.locate(path), path: pathToString(path), message: `unknown field ${JSON.stringify(key)}; allowed only the documented fields (see ${fieldsDoc})` });
       }
       continue;
     }

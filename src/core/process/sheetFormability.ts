@@ -43,25 +43,27 @@ export function sheetFormability(law: FlowLaw, accumulatedStrain: number, strain
   // Plain comparisons first: field names are built only for a value that fails (ledger hot path).
   const beta = strainRatio > -1 && strainRatio <= 1 ? strainRatio : checkRange(`${path}.strainRatio`, strainRatio, -1, 1, { loOpen: true });
   const e0 = accumulatedStrain >= 0 && accumulatedStrain <= SEARCH_LIMIT ? accumulatedStrain : checkRange(`${path}.accumulatedStrain`, accumulatedStrain, 0, SEARCH_LIMIT);
-  const criterion = beta <= 0 ? 'hillLocalized' : 'swiftDiffuse';
+  const criterion: SheetFormability['criterion'] = beta <= 0 ? 'hillLocalized' : 'swiftDiffuse';
   const z = beta <= 0 ? hillInstabilityRate(beta) : swiftInstabilityRate(beta);
   const phi = equivalentPerMajor(beta);
   const g = (e: number) => law.slope(e) - z * law.stress(e);
-  const base = { strainRatio: beta, criterion } as const;
+  // Results are built field by field (no object spread: it is slow on the ledger's hot path).
+  const result = (limitEquivalentStrain: number, remainingMajorStrain: number, iterations: number, residual: number): SheetFormability =>
+    ({ strainRatio: beta, criterion, limitEquivalentStrain, remainingMajorStrain, converged: true, iterations, residual });
   if (law.law === 'hollomon') {
     // Closed form: (1/σ)·dσ/dε = n/ε, so the limit is ε̄* = n/z exactly (no search needed).
     const limit = law.params.n! / z;
-    return { ...base, limitEquivalentStrain: Math.max(limit, e0), remainingMajorStrain: Math.max(0, limit - e0) / phi, converged: true, iterations: 0, residual: 0 };
+    return result(Math.max(limit, e0), Math.max(0, limit - e0) / phi, 0, 0);
   }
   if (law.law === 'voce') {
     // Closed form: σ = σ0 + Q(1 − e^(−bε)), σ' = Qb·e^(−bε); σ' = z·σ gives e^(−bε) = z(σ0 + Q)/(Q(b + z)).
     const { sigma0, Q, b } = law.params as { sigma0: number; Q: number; b: number };
     const x = Q > 0 ? (z * (sigma0 + Q)) / (Q * (b + z)) : 1;
     const limit = x >= 1 ? 0 : -Math.log(x) / b;
-    return { ...base, limitEquivalentStrain: Math.max(limit, e0), remainingMajorStrain: Math.max(0, limit - e0) / phi, converged: true, iterations: 0, residual: 0 };
+    return result(Math.max(limit, e0), Math.max(0, limit - e0) / phi, 0, 0);
   }
   let lo = Math.max(e0, 1e-12);
-  if (g(lo) <= 0) return { ...base, limitEquivalentStrain: e0, remainingMajorStrain: 0, converged: true, iterations: 0, residual: 0 };
+  if (g(lo) <= 0) return result(e0, 0, 0, 0);
   let hi = Math.max(2 * lo, 0.05);
   while (g(hi) > 0) {
     lo = hi;
@@ -70,5 +72,5 @@ export function sheetFormability(law: FlowLaw, accumulatedStrain: number, strain
   }
   const r = brent(g, lo, hi, 1e-14);
   if (!r.converged) throw new ComputationError(`${path}.formingLimitMajorStrain`, 'necking-limit search did not converge');
-  return { ...base, limitEquivalentStrain: r.root, remainingMajorStrain: Math.max(0, r.root - e0) / phi, converged: true, iterations: r.iterations, residual: r.residual };
+  return result(r.root, Math.max(0, r.root - e0) / phi, r.iterations, r.residual);
 }

@@ -23,6 +23,8 @@ const OUTPUTS = ['reloadYield', 'tensileStrength', 'remainingElongationPct'] as 
  * curvature of f times σ², so the Monte Carlo and this agree as the coefficients of variation shrink.
  * Units: those of the outputs (MPa, %).
  * @throws ComputationError when f cannot be evaluated at μ ± h.
+ * @example deltaMethod(prepareScatter(problem)).finalReloadYield.sd // for Hollomon with only K
+ *   scattering: cv_K · K·(ε̄ + 0.002)ⁿ, since the yield is proportional to K
  */
 export function deltaMethod(prep: PreparedScatter): DeltaResult {
   const inputs = prep.problem.inputs;

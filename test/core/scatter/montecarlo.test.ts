@@ -69,8 +69,9 @@ describe('runScatter(problem)', () => {
   it('with only K scattering gives a normal final yield: sd/mean = cv and p05 = mean − 1.645·sd (Y is linear in K)', () => {
     const prob = stripRoute({ inputs: [{ name: 'K', mean: 530, sd: 0.05 * 530 }], correlation: [[1]], samples: 100000, seed: 3 });
     const r = runScatter(prob);
-    // sd of the sample cv ≈ cv/√(2N) ≈ 1.1e-4 → 5e-3 relative tolerance is ~2 % of... generous but failing for any scale error.
-    expectRelClose(r.finalReloadYield.sd / r.finalReloadYield.mean, 0.05, 5e-3, 'cv of Y');
+    // The relative sampling error of a sample sd is 1/√(2N) = 2.2e-3 at N = 1e5; 1e-2 is 4.5 of those
+    // and still fails for a wrong scale (e.g. a variance in place of an sd, or cv applied twice).
+    expectRelClose(r.finalReloadYield.sd / r.finalReloadYield.mean, 0.05, 1e-2, 'cv of Y');
     // z_0.05 = −1.6449 (Abramowitz & Stegun, Table 26.5); sampling sd of p05 ≈ 1.7·sd/√N ≈ 0.005·sd.
     expectAbsClose(r.finalReloadYield.p05, r.finalReloadYield.mean - 1.6449 * r.finalReloadYield.sd, 0.03 * r.finalReloadYield.sd, 'p05');
     expect(r.sensitivity.inputs[0]!.src).toBeGreaterThan(0.999);
