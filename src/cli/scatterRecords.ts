@@ -73,7 +73,7 @@ export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Loc
   const material = { ...doc.material, flowCurve } as PlanDoc['material'];
   return {
     doc: { ...doc, material, scatter: { ...rest, params, correlation } },
-    source: `mean of ${spec.specimens} specimen fits (${sc.records.join(', ')})`,
+    source: `mean of ${spec.specimens} specimen fits (${sc.records.join(', ')})${spec.notes.length ? `; ${spec.notes.join('; ')}` : ''}`,
     notes: spec.notes,
   };
 }

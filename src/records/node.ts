@@ -1,4 +1,6 @@
 import { createReadStream, openSync, readSync, closeSync } from 'node:fs';
+import { Writable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import { parse } from 'csv-parse';
 import { RecordBuilder, type RecordOptions, type TensileRecord } from './builder.js';
 import { recordError } from './errors.js';
@@ -45,19 +47,21 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
   checkText(text, file);
   const layout = detectLayout(headLines(text), file, opts);
   const b = new RecordBuilder(layout, { ...opts, file });
-  const parser = createReadStream(path).pipe(parse({
+  // Rows go straight from csv-parse's on_record into the builder (nothing is queued in the stream).
+  const BIN = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFD]/;
+  const parser = parse({
     bom: true, delimiter: layout.delimiter, from_line: layout.dataLine, relax_column_count: true, skip_empty_lines: true, trim: true, info: true,
-  }));
-  const fatal = new TextDecoder('utf-8', { fatal: true });
-  try {
-    for await (const rec of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
-      for (const cell of rec.record) if (/[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFD]/.test(cell)) throw recordError(file, rec.info.lines, undefined, '', 'binary content; expected a text export (CSV or tab-separated) in UTF-8');
+    on_record: (rec: { record: string[]; info: { lines: number } }) => {
+      for (const cell of rec.record) if (BIN.test(cell)) throw recordError(file, rec.info.lines, undefined, '', 'binary content; expected a text export (CSV or tab-separated) in UTF-8');
       b.push(rec.record, rec.info.lines);
-    }
+      return null;
+    },
+  } as unknown as Parameters<typeof parse>[0]);
+  const sink = new Writable({ objectMode: true, write: (_c, _e, cb) => cb() });
+  try {
+    await pipeline(createReadStream(path), parser, sink);
   } catch (e) {
-    parser.destroy();
     throw csvProblem(e, file);
   }
-  void fatal;
   return b.finish(path.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, ''));
 }

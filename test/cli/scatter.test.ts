@@ -130,7 +130,7 @@ describe('strainledger run PLAN with scatter.records (several specimens of one m
     const r = run('run', planFile, '--format', 'json');
     expect(r.stderr).toBe('');
     const rep = JSON.parse(r.stdout);
-    expect(rep.material.source).toMatch(/^mean of 6 specimen fits/);
+    expect(rep.material.source).toMatch(/^mean of 6 specimen fits .*spreads from only 6 specimens are themselves uncertain/);
     const { specimens: _s, ...inputs } = { specimens: 0, ...Object.fromEntries(rep.scatter.inputs.map((i: { name: string }) => [i.name, i])) };
     // Same tolerances as test/core/scatter/specimens.test.ts (simple-statistics on the true K, n).
     expectRelClose(inputs.K.mean, 531.833, 3e-3, 'mean K');
