@@ -132,6 +132,13 @@ export function prepareScatter(problem: ScatterProblem, path = 'scatter'): Prepa
     ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}),
     ...(m.fittedStrainRange ? { fittedStrainRange: m.fittedStrainRange } : {}),
   };
+  // Bend steps need the material state of each sample (springback); scatter samples share
+  // precomputed step effects, so a bend is refused clearly here rather than failing inside.
+  problem.steps.forEach((st, i) => {
+    if (st.kind === 'bend') {
+      throw new InputError(`steps[${i}].kind`, st.kind, 'with a scatter section: roll, draw, stretch, stretchBiaxial, upset, shear, strain, reverse, anneal', 'scatter through bend steps is not supported');
+    }
+  });
   const hasStart = slots.some((s) => s.kind === 'start');
   const fixedEffects = hasStart ? null : stepEffects(problem.start, stock, problem.steps);
   const nominal = stateProperties({ ...baseMaterial, law: makeLaw(lawSpec, 'material.flowCurve') } as Material, 0);
