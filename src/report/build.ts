@@ -1,4 +1,4 @@
-import type { Ledger, LedgerRow, Size, TargetResult, Warning } from '../core/route/types.js';
+import type { BendFields, KinematicFields, Ledger, LedgerRow, PassLoadFields, Size, TargetResult, Warning } from '../core/route/types.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { LoadedPlan } from '../plan/load.js';
 import { convertLaw, withLocation } from '../plan/resolve.js';
@@ -10,7 +10,12 @@ import { CAUTIONS } from './cautions.js';
 /** Version of the JSON report contract. Bump only when a field changes meaning or is removed. */
 export const REPORT_VERSION = 1;
 
-export interface ReportStep {
+/**
+ * One step of the report. The optional kinematic, bend and pass-load fields are the ledger's, converted
+ * to the plan's units: stresses in its stress unit, lengths in its length unit, forces N or lbf,
+ * torque N·m or lbf·ft, temperature rise K, strains true.
+ */
+export interface ReportStep extends KinematicFields, BendFields, PassLoadFields {
   index: number;
   kind: string;
   label?: string;
@@ -28,23 +33,6 @@ export interface ReportStep {
   recoveredElasticEnergy: number;
   meanFlowStress: number;
   plasticWork: number;
-  /** Pass loads (optional, present only where they apply): drawing stress in the plan stress unit, forces N or lbf, torque N·m or lbf·ft, temperature rise K, strains true. */
-  drawingStress?: number;
-  drawingForce?: number;
-  drawabilityRatio?: number;
-  maxAreaReductionPct?: number;
-  rollForce?: number;
-  rollTorque?: number;
-  temperatureRise?: number;
-  formingLimitMajorStrain?: number;
-  /** Reload yield against / along the last step's direction with kinematic hardening (plan stress unit); only when the material has `kinematic`. */
-  reverseReloadYield?: number;
-  kinematicReloadYield?: number;
-  /** Bend steps only: outer-fibre bending strain, springback and final angle (degrees), final inner radius (plan length unit; null = springs back flat). */
-  outerFibreStrain?: number;
-  springbackDeg?: number;
-  finalAngleDeg?: number;
-  finalRadius?: number | null;
   warnings: Warning[];
 }
 

@@ -6,15 +6,8 @@ export interface FitWarning {
   message: string;
 }
 
-/** One law fitted to a flow curve (true stress MPa versus true plastic strain). */
-export interface LawFit {
-  law: LawName;
-  /** Fitted parameters by name, stresses in MPa. */
-  params: Record<string, number>;
-  /** Standard error of each parameter, s·sqrt(diag((JᵀJ)⁻¹)); null when it is on a bound or not identifiable. */
-  standardErrors: Record<string, number | null>;
-  /** 95 % confidence interval of each parameter, value ± t(0.975, N − k)·SE; null where the SE is null. */
-  intervals95: Record<string, [number, number] | null>;
+/** The goodness-of-fit statistics every fit in the core reports (law fits, kinematic fits). */
+export interface FitQuality {
   /** Root-mean-square residual sqrt(SSR/N), MPa. */
   rmse: number;
   /** 1 − SSR/SST. */
@@ -27,8 +20,19 @@ export interface LawFit {
   residuals: number[];
   converged: boolean;
   iterations: number;
-  /** Range of true plastic strain the law was fitted on. */
-  strainRange: [number, number];
   points: number;
   warnings: FitWarning[];
+}
+
+/** One law fitted to a flow curve (true stress MPa versus true plastic strain). */
+export interface LawFit extends FitQuality {
+  law: LawName;
+  /** Fitted parameters by name, stresses in MPa. */
+  params: Record<string, number>;
+  /** Standard error of each parameter, s·sqrt(diag((JᵀJ)⁻¹)); null when it is on a bound or not identifiable. */
+  standardErrors: Record<string, number | null>;
+  /** 95 % confidence interval of each parameter, value ± t(0.975, N − k)·SE; null where the SE is null. */
+  intervals95: Record<string, [number, number] | null>;
+  /** Range of true plastic strain the law was fitted on. */
+  strainRange: [number, number];
 }

@@ -1,7 +1,7 @@
 import { checkRange, InputError } from '../errors.js';
 import { levenbergMarquardt } from '../fit/levenbergMarquardt.js';
 import { fitStatistics } from '../fit/fitStatistics.js';
-import type { FitWarning } from '../fit/types.js';
+import type { FitQuality, FitWarning } from '../fit/types.js';
 import { createPathStepper } from './integrate.js';
 import type { Backstress, KinematicSpec, PathMaterial } from './types.js';
 
@@ -16,21 +16,11 @@ export interface KinematicFitOptions {
 }
 
 /** Kinematic parameters fitted to a record, with the same statistics as a law fit. */
-export interface KinematicFit {
+export interface KinematicFit extends FitQuality {
   kinematic: KinematicSpec;
   /** Standard error of each C and γ (null on a bound or not identifiable), in the order of `kinematic.backstresses`. */
   standardErrors: Array<{ C: number | null; gamma: number | null }>;
   intervals95: Array<{ C: [number, number] | null; gamma: [number, number] | null }>;
-  rmse: number;
-  r2: number;
-  aic: number;
-  bic: number;
-  /** Residuals model − data, MPa. */
-  residuals: number[];
-  converged: boolean;
-  iterations: number;
-  points: number;
-  warnings: FitWarning[];
 }
 
 /** The one place the fitter's bounds live: C in MPa, γ dimensionless. */

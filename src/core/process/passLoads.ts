@@ -1,5 +1,6 @@
 import { InputError } from '../errors.js';
 import type { FlowLaw } from '../flow/types.js';
+import type { PassLoadFields } from '../route/types.js';
 import { PROCESS_DEFAULTS, RAD_PER_DEG } from './defaults.js';
 import { drawingStress } from './drawingStress.js';
 import { maxDrawReduction } from './maxDrawReduction.js';
@@ -40,15 +41,7 @@ export interface PassInput {
 }
 
 /** The optional ledger fields of a pass (present only where they apply) and its warnings. */
-export interface PassLoads {
-  drawingStress?: number;
-  drawingForce?: number;
-  drawabilityRatio?: number;
-  maxAreaReductionPct?: number;
-  rollForce?: number;
-  rollTorque?: number;
-  temperatureRise?: number;
-  formingLimitMajorStrain?: number;
+export interface PassLoads extends PassLoadFields {
   warnings: { code: 'drawability' | 'capacity' | 'heating' | 'bite' | 'sheetLimit'; message: string }[];
 }
 

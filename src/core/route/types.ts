@@ -80,8 +80,40 @@ export interface Warning {
   message: string;
 }
 
+/** Kinematic-hardening results of a step; present only when the material has `kinematic` parameters. MPa in the core. */
+export interface KinematicFields {
+  /** Reload yield (0.2 % proof) against the direction of the last step, with the kinematic parameters. */
+  reverseReloadYield?: number;
+  /** Reload yield (0.2 % proof) in the direction of the last step, with the kinematic parameters. */
+  kinematicReloadYield?: number;
+}
+
+/** Results of a bend step; present only on bend steps. */
+export interface BendFields {
+  /** Outer-fibre bending strain t/(2ρ) (thin-bending theory, ρ the mid-surface radius). */
+  outerFibreStrain?: number;
+  /** Springback angle, degrees. */
+  springbackDeg?: number;
+  /** Bend angle after springback, degrees. */
+  finalAngleDeg?: number;
+  /** Inner radius after springback (mm in the core); null when the strip springs back flat. */
+  finalRadius?: number | null;
+}
+
+/** Pass loads, heating and sheet limits (core/process/passLoads.ts); present only where they apply. MPa, N, N·m, K in the core. */
+export interface PassLoadFields {
+  drawingStress?: number;
+  drawingForce?: number;
+  drawabilityRatio?: number;
+  maxAreaReductionPct?: number;
+  rollForce?: number;
+  rollTorque?: number;
+  temperatureRise?: number;
+  formingLimitMajorStrain?: number;
+}
+
 /** The state after one step: one row of the ledger (MPa, mm, strains true and dimensionless). */
-export interface LedgerRow {
+export interface LedgerRow extends KinematicFields, BendFields, PassLoadFields {
   index: number;
   kind: StepKind;
   size: Size;
@@ -100,27 +132,6 @@ export interface LedgerRow {
   recoveredElasticEnergy: number;
   meanFlowStress: number;
   plasticWork: number;
-  /** Reload yield (0.2 % proof, MPa) against the direction of the last step, with the kinematic parameters; present only when the material has them. */
-  reverseReloadYield?: number;
-  /** Reload yield (0.2 % proof, MPa) in the direction of the last step, with the kinematic parameters; present only when the material has them. */
-  kinematicReloadYield?: number;
-  /** Bend steps only: outer-fibre bending strain t/(2ρ) (thin-bending theory, ρ the mid-surface radius). */
-  outerFibreStrain?: number;
-  /** Bend steps only: springback angle, degrees. */
-  springbackDeg?: number;
-  /** Bend steps only: bend angle after springback, degrees. */
-  finalAngleDeg?: number;
-  /** Bend steps only: inner radius after springback, mm; null when the strip springs back flat. */
-  finalRadius?: number | null;
-  /** Pass loads, heating and sheet limits (core/process/passLoads.ts); present only where they apply. MPa, N, N·m, K. */
-  drawingStress?: number;
-  drawingForce?: number;
-  drawabilityRatio?: number;
-  maxAreaReductionPct?: number;
-  rollForce?: number;
-  rollTorque?: number;
-  temperatureRise?: number;
-  formingLimitMajorStrain?: number;
   warnings: Warning[];
 }
 
