@@ -6,8 +6,14 @@ import type { FitWarning, LawFit } from './types.js';
 
 /** Defaults of the law comparison, stated once. */
 export const FIT_DEFAULTS = {
-  /** A law "fits well" when converged and its RMSE is at most this multiple of the best RMSE. */
+  /** A law "fits well" when converged and its RMSE is at most this multiple of the best RMSE, ... */
   goodFitRmseFactor: 2,
+  /**
+   * ... or at most this fraction of the mean flow stress of the data: 1 %, the relative force error a
+   * class 1 testing machine may have (ISO 7500-1, class 1: ±1.0 %), so the test itself cannot tell
+   * such laws apart. Without it a near-perfect best fit would leave one "good" law and no spread.
+   */
+  goodFitRelRmse: 0.01,
   /** Warn when laws that fit well differ by more than this many per cent at a checked strain. */
   disagreementPct: 10,
   /** Extrapolation strains as multiples of the top of the fitted strain range. */
@@ -29,7 +35,7 @@ export interface LawComparison {
   fits: LawFit[];
   /** Law with the lowest AIC among the converged fits. */
   best: LawName | null;
-  /** Laws that fit well (see FIT_DEFAULTS.goodFitRmseFactor). */
+  /** Laws that fit well (see FIT_DEFAULTS.goodFitRmseFactor and goodFitRelRmse). */
   goodLaws: LawName[];
   extrapolation: ExtrapolationPoint[];
   warnings: FitWarning[];
@@ -82,7 +88,10 @@ export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const conv = fits.filter((f) => f.converged);
   const best = conv.length ? conv.reduce((a, b) => (b.aic < a.aic ? b : a)).law : null;
   const bestRmse = conv.length ? Math.min(...conv.map((f) => f.rmse)) : Infinity;
-  const good = conv.filter((f) => f.rmse <= FIT_DEFAULTS.goodFitRmseFactor * bestRmse + 1e-12);
+  let meanStress = 0;
+  for (let i = 0; i < stress.length; i++) meanStress += stress[i]! / stress.length;
+  const goodRmse = Math.max(FIT_DEFAULTS.goodFitRmseFactor * bestRmse, FIT_DEFAULTS.goodFitRelRmse * Math.abs(meanStress)) + 1e-12;
+  const good = conv.filter((f) => f.rmse <= goodRmse);
   const top = fits.length ? Math.max(...fits.map((f) => f.strainRange[1])) : 0;
   const checks: { strain: number; note: string }[] = FIT_DEFAULTS.multiples.map((m) => ({ strain: m * top, note: `${m}× the top of the fitted range` }));
   for (const s of opts.checkStrains ?? []) if (Number.isFinite(s) && s > 0) checks.push({ strain: s, note: 'strain the route reaches' });

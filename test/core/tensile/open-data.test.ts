@@ -85,3 +85,23 @@ describe('fitting every law to a 42CrMoS4 flow curve (46NT99)', () => {
     expect(a.fits!.best).not.toBe('hollomon');
   });
 });
+
+describe('extrapolation spread on the 42CrMoS4 records (MaterialDigital 42CrMoS4 tensile data, CC BY 4.0)', () => {
+  // Laws that fit the short uniform range (Ag ≈ 5 %) about equally well must be seen to part ways
+  // beyond it: a saturating law (Voce, Hockett–Sherby) and a power law cannot both hold at 5× the
+  // fitted range. "Fit well" includes every converged law within 1 % RMSE of the mean flow stress
+  // (ISO 7500-1 class 1 force accuracy), so a near-perfect best fit does not hide the others.
+  for (const f of ['46NT71.csv', '46NT99.csv']) {
+    it(`${f}: at least three laws fit well, and at 5× the fitted range they differ by more than 10 % with a lawsDisagree warning`, () => {
+      const a = analyzeRecord(load(f).rec);
+      const cmp = a.fits!;
+      expect(cmp.goodLaws.length).toBeGreaterThanOrEqual(3);
+      const at5 = cmp.extrapolation.find((x) => x.note.startsWith('5×'))!;
+      expect(at5.spreadPct).toBeGreaterThan(10);
+      expect(cmp.warnings.some((w) => w.code === 'lawsDisagree')).toBe(true);
+      // Within the fitted range the same laws agree closely (their RMSE is below 1 % of the stress).
+      for (const l of cmp.goodLaws) expect(cmp.fits.find((x) => x.law === l)!.rmse).toBeLessThan(0.01 * 1200);
+    });
+  }
+});
+
