@@ -53,8 +53,8 @@ export interface LmResult {
  * taken backward when the forward point is outside the box or the model's domain.
  *
  * Sources: K. Levenberg, *Q. Appl. Math.* 2 (1944) 164–168; D. W. Marquardt, *J. SIAM* 11 (1963)
- * 431–441; J. J. Moré, "The Levenberg–Marquardt algorithm: implementation and theory", Lecture Notes
- * in Mathematics 630 (1978). Hand-written rather than taken from a library because bounds and the
+ * 431–441; J. J. Moré, "The Levenberg–Marquardt algorithm: implementation and theory", in
+ * G. A. Watson (ed.), *Numerical Analysis*, Springer LNM vol. 630 (1978) 105–116. Hand-written rather than taken from a library because bounds and the
  * `converged` flag are needed, the systems are tiny (≤ 7 unknowns, Cholesky), and it is checked
  * against ml-levenberg-marquardt and SciPy's curve_fit (test/core/fit, bench/fit.mjs).
  * Units: those of the model. Valid: n ≥ m data, finite start inside the box.
