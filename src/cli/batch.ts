@@ -1,4 +1,3 @@
-import { availableParallelism } from 'node:os';
 import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
 import { PlanError, type Problem } from '../plan/problems.js';
 import type { ReportV1 } from '../report/build.js';
@@ -28,7 +27,7 @@ export interface Outcome {
 /** Evaluates one plan; never throws (invalid input and internal errors become the outcome). */
 export async function processTask(t: Task): Promise<Outcome> {
   try {
-    const report = evaluatePlanFile(t.file, t.overrides);
+    const report = await evaluatePlanFile(t.file, t.overrides);
     const output = t.render ? await render(report, t.format) : undefined;
     return { file: t.file, exit: report.allTargetsMet ? 0 : 1, report, ...(output !== undefined ? { output } : {}) };
   } catch (e) {
@@ -51,10 +50,6 @@ if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE && 
   });
 }
 
-/** Largest `--jobs`: more threads than cores only adds overhead. */
-export function maxJobs(): number {
-  return Math.max(1, availableParallelism() * 2);
-}
 
 /**
  * Evaluates plans, `jobs` at a time. With jobs = 1 (or one plan) everything runs on the main thread;

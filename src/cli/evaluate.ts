@@ -1,16 +1,19 @@
 import { createHash } from 'node:crypto';
 import { statSync } from 'node:fs';
-import { formatOf, runPlan, type LoadedPlan } from '../plan/load.js';
-import { MAX_PLAN_BYTES, parseLocated, validatePlan, type Located } from '../plan/parse.js';
+import { checkPlan } from '../plan/check.js';
+import { formatOf, MAX_PLAN_BYTES, parseLocated, type Located } from '../plan/parse.js';
 import { PlanError } from '../plan/problems.js';
-import { resolvePlan } from '../plan/resolve.js';
+import { resolvePlan, runPlan, withLocation, type LoadedPlan } from '../plan/resolve.js';
+import type { PlanDoc } from '../plan/schema.js';
 import { buildReport, type ReportV1 } from '../report/build.js';
 import { readText } from './io.js';
-import { fitRecordFlowCurve } from './recordLaw.js';
-import { scatterFromRecordFiles } from './scatterRecords.js';
 import { applyOverride, showPath, type Override } from './overrides.js';
 import { TOOL } from './version.js';
 import type { ScatterSummary } from '../core/scatter/summarize.js';
+
+// Start-up matters for a CI step (issue 4: at most twice `node -e 0`), so this module loads only
+// what every valid JSON plan needs. The YAML package, zod (for the words of a refused plan), record
+// fitting and the scatter sampler are imported when a plan needs them (bench/RESULTS.md, "Runner cold start").
 
 /** A plan file read and parsed once (a sweep evaluates it many times). */
 export interface PlanSource {
@@ -23,7 +26,7 @@ export interface PlanSource {
  * Reads and parses a plan file. Refuses files over {@link MAX_PLAN_BYTES} before reading them,
  * invalid UTF-8, syntax errors and nesting too deep for the parser — each as a PlanError (exit 2).
  */
-export function readPlan(file: string): PlanSource {
+export async function readPlan(file: string): Promise<PlanSource> {
   let size = 0;
   try {
     size = statSync(file).size;
@@ -32,8 +35,9 @@ export function readPlan(file: string): PlanSource {
   }
   if (size > MAX_PLAN_BYTES) throw new PlanError([{ file, path: '', message: `file is ${size} bytes; allowed at most ${MAX_PLAN_BYTES} bytes for a plan` }]);
   const text = readText(file);
+  const yaml = formatOf(file) === 'yaml' ? (await import('../plan/yaml.js')).parseYamlLocated : undefined;
   try {
-    return { file, text, loc: parseLocated(text, file, formatOf(file)) };
+    return { file, text, loc: parseLocated(text, file, formatOf(file), yaml) };
   } catch (e) {
     // The parsers recurse: a hostile file nested thousands deep overflows the stack (as a RangeError,
     // or as a syntax error that says so), and YAML aliases can expand without bound.
@@ -46,47 +50,81 @@ export function readPlan(file: string): PlanSource {
   }
 }
 
+/** How a plan's scatter section is sampled by {@link evaluateSource}; without it the section is not sampled. */
+export interface ScatterRun {
+  threads: number;
+  progressOn: boolean;
+}
+
 /**
- * Evaluates a parsed plan with overrides: validate, resolve units, run the ledger, build report v1.
- * The hash is the SHA-256 of the file's text, followed by one `--set` line per override when given.
+ * A plan's document after `--set` overrides, validation and the runner's file hooks: a flow curve
+ * named by a tensile record is fitted (src/cli/recordLaw.ts) and `scatter.records` become the law at
+ * their means with spreads (src/cli/scatterRecords.ts); both modules load only for such plans.
+ * @throws PlanError naming every problem (a `--set` value is marked as such).
  */
-export function evaluateSource(src: PlanSource, overrides: readonly Override[] = [], scatter?: ScatterSummary): ReportV1 {
+export async function planDocument(src: PlanSource, overrides: readonly Override[] = []): Promise<{ loc: Located; doc: PlanDoc; applied: string[]; source?: string }> {
   const loc: Located = overrides.length ? { data: structuredClone(src.loc.data), locate: src.loc.locate } : src.loc;
   const applied: string[] = [];
   for (const o of overrides) {
     const p = applyOverride(loc.data, o.path, o.value, '--set', src.file);
     applied.push(`${showPath(p)}=${JSON.stringify(o.value)}`);
   }
-  let doc;
+  let doc: PlanDoc;
   try {
-    doc = validatePlan(loc, src.file);
+    doc = await checkPlan(loc, src.file);
   } catch (e) {
     if (e instanceof PlanError && applied.length) {
       for (const p of e.problems) if (applied.some((a) => a.startsWith(p.path + '=') || p.path.startsWith(a.slice(0, a.indexOf('='))))) p.message += ' (value from --set)';
     }
     throw e;
   }
-  // Hook for plans whose material names a tensile record instead of law parameters (records issue):
-  // replace `doc` by the plan with fitted parameters here, before units are resolved.
-  // Issue 3 hook (tensile records): a flowCurve naming a record file is fitted here, in the CLI layer
-  // (the plan layer reads no files); the fitted law replaces it and the material records its source.
-  const fitted = fitRecordFlowCurve(doc, src.file, loc);
-  doc = fitted.doc;
-  // Issue 8 hook: scatter.records (several specimens) become the law at their means plus spreads and correlations.
-  const fromRecords = scatterFromRecordFiles(doc, src.file, loc);
-  doc = fromRecords.doc;
+  let source: string | undefined;
+  if ('record' in doc.material.flowCurve) {
+    const fitted = (await import('./recordLaw.js')).fitRecordFlowCurve(doc, src.file, loc);
+    doc = fitted.doc;
+    source = fitted.source;
+  }
+  if (doc.scatter?.records) {
+    const fromRecords = (await import('./scatterRecords.js')).scatterFromRecordFiles(doc, src.file, loc);
+    doc = fromRecords.doc;
+    source = fromRecords.source ?? source;
+  }
+  return { loc, doc, applied, ...(source !== undefined ? { source } : {}) };
+}
+
+/**
+ * Evaluates a parsed plan with overrides: validate, resolve units, run the ledger, sample the scatter
+ * section when `scatter` says how (on worker threads; the numbers do not depend on how many), build
+ * report v1. The hash is the SHA-256 of the file's text, followed by one `--set` line per override.
+ * @throws PlanError (exit 2) for invalid input, located in the plan file.
+ */
+export async function evaluateSource(src: PlanSource, overrides: readonly Override[] = [], scatter?: ScatterRun): Promise<ReportV1> {
+  const { loc, doc, applied, source } = await planDocument(src, overrides);
   const plan: LoadedPlan = { ...resolvePlan(doc, src.file, loc), file: src.file, loc };
-  if (fitted.source) plan.route.material.source = fitted.source;
-  if (fromRecords.source) plan.route.material.source = fromRecords.source;
+  if (source) plan.route.material.source = source;
   const ledger = runPlan(plan);
+  let summary: ScatterSummary | undefined;
+  if (scatter && plan.scatter) {
+    const { sampleScatterWithProgress } = await import('./scatter-workers.js');
+    summary = await withLocationAsync(src.file, src.loc, () => sampleScatterWithProgress(plan.scatter!, scatter.threads, scatter.progressOn));
+  }
   const h = createHash('sha256').update(src.text);
   for (const a of applied) h.update(`\n--set ${a}`);
-  const report = buildReport(plan, ledger, { hash: h.digest('hex'), tool: TOOL, ...(scatter ? { scatter } : {}) });
+  const report = buildReport(plan, ledger, { hash: h.digest('hex'), tool: TOOL, ...(summary ? { scatter: summary } : {}) });
   if (applied.length) report.plan = { ...report.plan, overrides: applied } as ReportV1['plan'];
   return report;
 }
 
+/** {@link withLocation} for an async step: core InputErrors become a PlanError located in the file. */
+async function withLocationAsync<T>(file: string, loc: Located, fn: () => Promise<T>): Promise<T> {
+  try {
+    return await fn();
+  } catch (e) {
+    return withLocation(file, loc, () => { throw e; });
+  }
+}
+
 /** Reads, parses and evaluates one plan file. */
-export function evaluatePlanFile(file: string, overrides: readonly Override[] = []): ReportV1 {
-  return evaluateSource(readPlan(file), overrides);
+export async function evaluatePlanFile(file: string, overrides: readonly Override[] = []): Promise<ReportV1> {
+  return evaluateSource(await readPlan(file), overrides);
 }

@@ -4,14 +4,7 @@ import { InputError } from '../core/errors.js';
 import { prepareScatter, SCATTER_BLOCK, type ScatterProblem } from '../core/scatter/problem.js';
 import { sampleScatterBlock, type ScatterBlock } from '../core/scatter/sample.js';
 import { summarizeScatter, type ScatterSummary } from '../core/scatter/summarize.js';
-import { validatePlan } from '../plan/parse.js';
-import { PlanError } from '../plan/problems.js';
-import { resolvePlan, withLocation } from '../plan/resolve.js';
-import type { PlanSource } from './evaluate.js';
-import { applyOverride, type Override } from './overrides.js';
 import { startProgress } from './progress.js';
-import { fitRecordFlowCurve } from './recordLaw.js';
-import { scatterFromRecordFiles } from './scatterRecords.js';
 
 const ROLE = 'strainledger-scatter-worker';
 
@@ -97,32 +90,15 @@ export async function sampleScatterThreads(problem: ScatterProblem, threads: num
 }
 
 /**
- * For the runner: when the plan (with `--set` overrides) has a scatter section, samples it on
- * worker threads with a progress bar on a TTY (silent otherwise, and under CI) and returns the
- * summary for the report; undefined when there is no scatter section or the plan is invalid (the
- * report step then reports the problem with its usual message).
+ * For the runner: samples a plan's resolved scatter section on worker threads, with a progress bar
+ * on a TTY (silent otherwise, and under CI), and returns the summary for the report.
+ * @throws InputError from the problem or from sampling (the caller locates it in the plan file).
  */
-export async function scatterForSource(src: PlanSource, overrides: readonly Override[], threads: number, progressOn: boolean): Promise<ScatterSummary | undefined> {
-  let plan;
-  try {
-    const data = overrides.length ? structuredClone(src.loc.data) : src.loc.data;
-    for (const o of overrides) applyOverride(data, o.path, o.value, '--set', src.file);
-    const loc = { data, locate: src.loc.locate };
-    // The same document transforms as evaluate.ts: a record-form flow curve fitted, scatter.records summarised.
-    const doc = scatterFromRecordFiles(fitRecordFlowCurve(validatePlan(loc, src.file), src.file, loc).doc, src.file, loc).doc;
-    plan = resolvePlan(doc, src.file, loc);
-  } catch (e) {
-    if (e instanceof PlanError) return undefined;
-    throw e;
-  }
-  if (!plan.scatter) return undefined;
-  const problem = plan.scatter;
+export async function sampleScatterWithProgress(problem: ScatterProblem, threads: number, progressOn: boolean): Promise<ScatterSummary> {
   const total = Math.ceil(problem.samples / SCATTER_BLOCK);
   const progress = await startProgress(total, 'scatter blocks', progressOn);
   try {
     return await sampleScatterThreads(problem, threads, () => progress.tick());
-  } catch (e) {
-    return withLocation(src.file, src.loc, () => { throw e; }); // InputError → PlanError with file and line
   } finally {
     progress.stop();
   }

@@ -33,12 +33,12 @@ export interface SweepResult {
  * makes the plan invalid (e.g. a reduction of 100 %) gives a row marked invalid with the reason;
  * the sweep goes on. Rows come in the order of the values.
  */
-export function runSweep(src: PlanSource, sweep: Sweep, overrides: readonly Override[], progress: Progress): SweepResult {
+export async function runSweep(src: PlanSource, sweep: Sweep, overrides: readonly Override[], progress: Progress): Promise<SweepResult> {
   const rows: SweepRow[] = [];
   let first: ReportV1 | undefined;
   for (const value of sweep.values) {
     try {
-      const r = evaluateSource(src, [...overrides, { text: `${showPath(sweep.path)}=${value}`, path: sweep.path, value }]);
+      const r = await evaluateSource(src, [...overrides, { text: `${showPath(sweep.path)}=${value}`, path: sweep.path, value }]);
       first ??= r;
       const last = r.steps[r.steps.length - 1];
       rows.push({

@@ -2,7 +2,9 @@ import { z } from 'zod';
 import { InputError } from '../core/errors.js';
 import { designRoute, type DesignResult, type DesignSpec } from '../core/process/designRoute.js';
 import type { Step } from '../core/route/types.js';
-import { parseLocated, validateWith, type Located } from './parse.js';
+import { parseLocated, type Located } from './parse.js';
+import { validateWith } from './validate.js';
+import { parseYamlLocated } from './yaml.js';
 import { resolvePlan, withLocation } from './resolve.js';
 import { MaterialSchema, TargetsSchema, type PlanInput } from './schema.js';
 import { unitsOf, type Units } from './units.js';
@@ -74,7 +76,7 @@ export interface LoadedDesignSpec {
  * @throws PlanError listing problems with file, line, column, field, value and what is allowed.
  */
 export function loadDesignSpecText(text: string, file = 'spec.json', format = formatOf(file)): LoadedDesignSpec {
-  const loc = parseLocated(text, file, format);
+  const loc = parseLocated(text, file, format, parseYamlLocated);
   const doc = validateWith(DesignSpecSchema, loc, file, 'README.md, "Process planning"');
   const units = unitsOf(doc.units);
   const spec = withLocation(file, loc, () => {

@@ -1,5 +1,7 @@
 import { formatOf, loadPlanText, type LoadedPlan } from './load.js';
-import { parseLocated, validatePlan, type Located } from './parse.js';
+import { parseLocated, type Located } from './parse.js';
+import { validatePlan } from './validate.js';
+import { parseYamlLocated } from './yaml.js';
 import { resolvePlan } from './resolve.js';
 
 /**
@@ -11,7 +13,7 @@ import { resolvePlan } from './resolve.js';
  */
 export function loadPlanOrMaterial(text: string, file: string): LoadedPlan {
   const format = formatOf(file);
-  const inner = parseLocated(text, file, format);
+  const inner = parseLocated(text, file, format, parseYamlLocated);
   const d = inner.data;
   if (d !== null && typeof d === 'object' && !Array.isArray(d) && 'material' in d) return loadPlanText(text, file, format);
   const { units, ...material } = (d !== null && typeof d === 'object' && !Array.isArray(d) ? d : { value: d }) as Record<string, unknown>;

@@ -1,9 +1,10 @@
 import { ComputationError, InputError } from '../core/errors.js';
+import { evaluateRoute } from '../core/route/ledger.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import { makeLaw } from '../core/flow/makeLaw.js';
 import { isotropicPart, validateKinematic } from '../core/path/hardening.js';
 import type { LawSpec } from '../core/flow/types.js';
-import type { Material, RouteInput, Size, Step, Targets } from '../core/route/types.js';
+import type { Ledger, Material, RouteInput, Size, Step, Targets } from '../core/route/types.js';
 import { prepareScatter, type ScatterProblem } from '../core/scatter/problem.js';
 import type { Located } from './parse.js';
 import { resolveScatter } from './scatterResolve.js';
@@ -18,6 +19,19 @@ export interface ResolvedPlan {
   route: RouteInput;
   /** The plan's scatter section in core units (present only when the plan has one). */
   scatter?: ScatterProblem;
+}
+
+/** A plan read from text: validated, resolved, with its file and a locator for messages. */
+export interface LoadedPlan extends ResolvedPlan {
+  file: string;
+  loc: Located;
+}
+
+/** Evaluates a loaded plan's route; step errors are located in the plan file. */
+export function runPlan(plan: LoadedPlan): Ledger {
+  const u = plan.units;
+  return withLocation(plan.file, plan.loc, () =>
+    evaluateRoute(plan.route, { length: (mm) => `${+u.fromMm(mm).toPrecision(6)} ${u.length}` }));
 }
 
 /** Adds the resolved scatter section when the plan has one (src/plan/scatterResolve.ts). */

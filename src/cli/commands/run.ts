@@ -33,7 +33,7 @@ export const run: Command = {
     const format = values.format as Format;
     if (!FORMATS.includes(format)) throw cliError('--format', `got ${JSON.stringify(values.format)}, allowed one of ${FORMATS.join(', ')}`);
     if (!/^\d+$/.test(values.jobs!)) throw cliError('--jobs', `got ${JSON.stringify(values.jobs)}, allowed a whole number ≥ 1`);
-    const { maxJobs } = await import('../batch.js');
+    const { maxJobs } = await import('../jobs.js');
     const jobs = Number(values.jobs);
     if (jobs < 1 || jobs > maxJobs()) throw cliError('--jobs', `got ${jobs}, allowed 1 to ${maxJobs()}`);
     if (positionals.length === 0) throw cliError('PLAN', 'got no plan file, allowed one or more plan files or globs');
@@ -62,11 +62,11 @@ export const run: Command = {
       const [{ readPlan }, sw] = await Promise.all([import('../evaluate.js'), import('../sweep.js')]);
       const { planOutputs, writeOutput } = await import('../out.js');
       const targets = values.out !== undefined ? planOutputs(values.out, files, `sweep.${EXTENSION[format]}`) : undefined;
-      const src = readPlan(files[0]!);
+      const src = await readPlan(files[0]!);
       const progress = await startProgress(sweep.values.length, 'sweep', progressOn);
       let res;
       try {
-        res = sw.runSweep(src, sweep, overrides, progress);
+        res = await sw.runSweep(src, sweep, overrides, progress);
       } finally {
         progress.stop();
       }
@@ -81,11 +81,10 @@ export const run: Command = {
 
     // One plan: evaluated here; invalid input is thrown (exit 2) before anything is written.
     if (files.length === 1) {
-      const [{ readPlan, evaluateSource }, { render }, { planOutputs, writeOutput }, { scatterForSource }] = await Promise.all([import('../evaluate.js'), import('../render.js'), import('../out.js'), import('../scatter-workers.js')]);
+      const [{ readPlan, evaluateSource }, { render }, { planOutputs, writeOutput }] = await Promise.all([import('../evaluate.js'), import('../render.js'), import('../out.js')]);
       const target = values.out !== undefined ? planOutputs(values.out, files, EXTENSION[format]).get(files[0]!)! : undefined;
-      const src = readPlan(files[0]!);
       // A scatter section is sampled on --jobs worker threads (the numbers do not depend on how many).
-      const report = evaluateSource(src, overrides, await scatterForSource(src, overrides, jobs, progressOn));
+      const report = await evaluateSource(await readPlan(files[0]!), overrides, { threads: jobs, progressOn });
       const exit = report.allTargetsMet ? 0 : 1;
       if (target === undefined) io.stdout(await render(report, format, color));
       else {
