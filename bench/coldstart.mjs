@@ -1,7 +1,8 @@
 // Runner cold start: median wall time of `strainledger run <demo> --format json` against `node -e 0`,
 // measured side by side in one run (interleaved rounds, so machine noise hits all alike).
 // Compares: the shipped bundle (bin/strainledger.js → dist/runner/), the plain tsc output
-// (dist/cli/main.js, one module per source file), and `npx strainledger` (npm's launcher on top).
+// (dist/cli/main.js, one module per source file), and `npx strainledger` (npm's launcher on top),
+// with npm's launcher measured on its own (`npx node -e 0`) to show what it adds to any program.
 // Run: npm run build && node bench/coldstart.mjs [rounds=21]
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
@@ -20,6 +21,8 @@ const cases = [
   { name: 'node bin/strainledger.js (bundle)', cmd: process.execPath, args: ['bin/strainledger.js', 'run', DEMO, '--format', 'json'] },
   { name: 'node dist/cli/main.js (tsc, unbundled)', cmd: process.execPath, args: [tscLauncher, 'run', DEMO, '--format', 'json'] },
   { name: 'npx strainledger', cmd: 'npx', args: ['strainledger', 'run', DEMO, '--format', 'json'] },
+  // npm's launcher on its own, running nothing but node: what `npx` adds before any program starts.
+  { name: 'npx node -e 0 (the launcher alone)', cmd: 'npx', args: ['--no-install', 'node', '-e', '0'] },
 ];
 const times = cases.map(() => []);
 // CPU time (user + sys) of each child via GNU time, where present: less sensitive than wall time

@@ -1,8 +1,11 @@
-// Writes src/plan/generated/planCheck.ts from the built plan schema. Run: npm run gen:validator
-import { writeFileSync } from 'node:fs';
+// Writes src/plan/generated/planSchema.ts from the built plan schema. Run: npm run gen:validator
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { planJsonSchema } from '../dist/plan/schema.js';
-import { planCheckSource } from './plan-validator-source.mjs';
+import { assertSupportedSchema } from '../dist/plan/conforms.js';
+import { planSchemaSource, validityOnly } from './plan-validator-source.mjs';
 
-const out = new URL('../src/plan/generated/planCheck.ts', import.meta.url);
-writeFileSync(out, planCheckSource(planJsonSchema()));
+assertSupportedSchema(validityOnly(planJsonSchema()));
+const out = new URL('../src/plan/generated/planSchema.ts', import.meta.url);
+mkdirSync(new URL('.', out), { recursive: true });
+writeFileSync(out, planSchemaSource(planJsonSchema()));
 console.log(`wrote ${out.pathname}`);

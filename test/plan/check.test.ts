@@ -2,14 +2,23 @@ import { readdirSync, readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { parse as parseYaml } from 'yaml';
 import { describe, expect, it } from 'vitest';
+import Ajv2020Module from 'ajv/dist/2020.js';
 import { fastPlanCheck } from '../../src/plan/check.js';
+import { assertSupportedSchema, conforms, fillDefaults, type SchemaNode } from '../../src/plan/conforms.js';
+import { PLAN_VALIDITY_SCHEMA } from '../../src/plan/generated/planSchema.js';
 import { planJsonSchema, PlanSchema } from '../../src/plan/schema.js';
 // @ts-expect-error plain ES module without types (the generator shared with scripts/gen-plan-validator.mjs)
-import { planCheckSource } from '../../scripts/plan-validator-source.mjs';
+import { planSchemaSource } from '../../scripts/plan-validator-source.mjs';
 
-// The runner's fast plan check (Ajv standalone code generated from the plan JSON Schema) must say
-// "valid" exactly when the zod schema does, and give the same document (defaults filled). zod is the
-// reference here: it is the schema the plan format is defined by (src/plan/schema.ts).
+// The runner's fast plan check (the plan JSON Schema walked by src/plan/conforms.ts) must say "valid"
+// exactly when the zod schema does and give the same document, defaults filled. Two references:
+// zod, the schema the plan format is defined by (src/plan/schema.ts), and Ajv 8 (a general-purpose
+// JSON Schema validator from the registry, draft 2020-12, defaults filled by its useDefaults) on the
+// full JSON Schema that `strainledger schema` prints.
+
+const Ajv2020 = (Ajv2020Module as unknown as { default: typeof Ajv2020Module }).default ?? Ajv2020Module;
+const ajv = new Ajv2020({ useDefaults: true, strictNumbers: true, strict: false, allErrors: false });
+const ajvCheck = ajv.compile(planJsonSchema() as object);
 
 const EXAMPLES = new URL('../../examples/', import.meta.url);
 const examplePlans = readdirSync(EXAMPLES)
@@ -52,9 +61,14 @@ const SEEDS: unknown[] = [KITCHEN_SINK, RECORD_PLAN, ...examplePlans.map((e) => 
 
 function agree(data: unknown): void {
   const z = PlanSchema.safeParse(structuredClone(data));
+  const viaAjv = structuredClone(data);
+  expect(ajvCheck(viaAjv), `Ajv ${z.success ? 'refused' : 'accepted'} what zod ${z.success ? 'accepted' : 'refused'}: ${JSON.stringify(data).slice(0, 300)}`).toBe(z.success);
   const fast = fastPlanCheck(data);
   expect(fast !== undefined, `fast check ${fast ? 'accepted' : 'refused'} what zod ${z.success ? 'accepted' : 'refused'}: ${JSON.stringify(data).slice(0, 400)}${z.success ? '' : `\nzod: ${z.error.issues[0]?.message} at ${z.error.issues[0]?.path.join('.')}`}`).toBe(z.success);
-  if (z.success) expect(fast).toEqual(z.data);
+  if (z.success) {
+    expect(fast).toEqual(z.data);
+    expect(fast).toEqual(viaAjv);
+  }
 }
 
 // Values near every bound in the schema, wrong types, lengths at the string limits (UTF-16 units,
@@ -85,9 +99,35 @@ function parentOf(root: unknown, p: Path): Record<string | number, unknown> | un
 const mutation = fc.record({ pick: fc.nat(), value: fc.constantFrom(...VALUES), op: fc.constantFrom('set', 'set', 'set', 'delete', 'add') });
 
 describe('the fast plan check agrees with the zod schema', () => {
-  it('the committed generated check is current (npm run gen:validator regenerates it)', () => {
-    const committed = readFileSync(new URL('../../src/plan/generated/planCheck.ts', import.meta.url), 'utf8');
-    expect(committed === planCheckSource(planJsonSchema()), 'src/plan/generated/planCheck.ts is stale: run `npm run gen:validator`').toBe(true);
+  it('the committed schema module is current (npm run gen:validator regenerates it) and uses only keywords the check knows', () => {
+    const committed = readFileSync(new URL('../../src/plan/generated/planSchema.ts', import.meta.url), 'utf8');
+    expect(committed === planSchemaSource(planJsonSchema()), 'src/plan/generated/planSchema.ts is stale: run `npm run gen:validator`').toBe(true);
+    expect(() => assertSupportedSchema(PLAN_VALIDITY_SCHEMA)).not.toThrow();
+    expect(() => assertSupportedSchema({ type: 'string', pattern: '^a' })).toThrow(/keyword "pattern" is not supported/);
+    expect(() => assertSupportedSchema({ anyOf: [{ type: 'object', properties: { a: { default: 1 } } }] })).toThrow(/default inside anyOf/);
+  });
+
+  it('each keyword on its own, against Ajv on the same small schemas', () => {
+    const cases: [SchemaNode, unknown[]][] = [
+      [{ type: 'number', exclusiveMinimum: 0, maximum: 1 }, [0, 1e-300, 1, 1.0000001, -1, '1', null, Infinity]],
+      [{ type: 'integer', minimum: 2, exclusiveMaximum: 5 }, [2, 4, 5, 2.5, 1, 4.0]],
+      [{ type: 'string', minLength: 1, maxLength: 2 }, ['', 'a', 'ab', 'abc', '\u{1F600}\u{1F600}', '\u{1F600}\u{1F600}\u{1F600}', '\uD800\uD800', 3]],
+      [{ type: 'string', enum: ['SI', 'US'] }, ['SI', 'si', 'US', 1]],
+      [{ type: 'string', const: 'roll' }, ['roll', 'draw']],
+      [{ type: 'boolean' }, [true, false, 0, 'true', null]],
+      [{ type: 'array', prefixItems: [{ type: 'number' }, { type: 'number' }], items: false, minItems: 2, maxItems: 2 }, [[1, 2], [1], [1, 2, 3], [1, 'a'], {}]],
+      [{ type: 'array', items: { type: 'string' }, minItems: 2 }, [['a', 'b'], ['a'], ['a', 1], 'ab']],
+      [{ type: 'object', properties: { a: { type: 'number' } }, required: ['a'], additionalProperties: false }, [{ a: 1 }, {}, { a: 1, b: 2 }, { a: 'x' }, [], null, JSON.parse('{"a":1,"__proto__":2}'), { constructor: 1, a: 1 }]],
+      [{ type: 'object', propertyNames: { type: 'string' }, additionalProperties: { type: 'number', maximum: 1 } }, [{}, { x: 1 }, { x: 2 }, { x: 'a' }]],
+      [{ anyOf: [{ type: 'number' }, { type: 'string' }] }, [1, 'a', true]],
+      [{ oneOf: [{ type: 'number', maximum: 5 }, { type: 'number', minimum: 3 }] }, [1, 4, 6, 'a']],
+    ];
+    for (const [schema, values] of cases) {
+      const ref = new Ajv2020({ strictNumbers: true, strict: false }).compile(schema);
+      for (const v of values) expect(conforms(schema, v), `${JSON.stringify(schema)} on ${JSON.stringify(v)}`).toBe(ref(v));
+    }
+    const filled = fillDefaults({ type: 'object', properties: { u: { default: 'SI' }, t: { default: {} , type: 'object', properties: { z: { default: 1 } } }, s: { type: 'object', properties: { n: { default: 2 } } } } }, { s: {} });
+    expect(filled).toEqual({ u: 'SI', t: {}, s: { n: 2 } }); // a default is taken as it is, as zod does
   });
 
   it('on every example plan and on a plan using every field', () => {
