@@ -41,12 +41,14 @@ const ROLE = 'strainledger-batch-worker';
 // This same module is the worker's script: started with workerData.role it serves tasks.
 if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE && parentPort) {
   const port = parentPort;
-  port.on('message', (batch: Task[]) => {
-    void (async () => {
+  // Batches are served one after the other, in the order they came (two may be waiting).
+  let queue = Promise.resolve();
+  port.on('message', ({ from, batch }: { from: number; batch: Task[] }) => {
+    queue = queue.then(async () => {
       const out: Outcome[] = [];
       for (const t of batch) out.push(await processTask(t));
-      port.postMessage(out);
-    })();
+      port.postMessage({ from, out });
+    });
   });
 }
 
@@ -69,34 +71,39 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
   // Plans go out in small batches (fewer messages), small enough to keep both threads busy to the end.
   const size = Math.max(1, Math.min(32, Math.ceil(tasks.length / (jobs * 8))));
   let next = 0;
-  // The main thread is one of the `jobs`: it takes batches from the same queue, yielding to the
-  // event loop between them so the workers' results are handled (one worker start saved).
+  // The main thread is one of the `jobs`: it takes batches from the same queue, and yields to the
+  // event loop every few milliseconds so that a worker's finished batch is answered with the next one
+  // at once (a worker waiting for the main thread to finish a batch of its own idled up to half the time).
+  const YIELD_MS = 4;
   const mainThread = async () => {
+    let since = performance.now();
     while (next < tasks.length) {
-      const from = next;
-      next = Math.min(tasks.length, next + size);
-      for (let i = from; i < next; i++) {
-        out[i] = await processTask(tasks[i]!);
-        progress.tick();
+      const i = next++;
+      out[i] = await processTask(tasks[i]!);
+      progress.tick();
+      if (performance.now() - since > YIELD_MS) {
+        await new Promise((r) => setImmediate(r));
+        since = performance.now();
       }
-      await new Promise((r) => setImmediate(r));
     }
   };
   const n = Math.min(jobs, tasks.length) - 1;
   const url = new URL(import.meta.url);
   await Promise.all([mainThread(), ...Array.from({ length: n }, () => new Promise<void>((resolveWorker, rejectWorker) => {
     const w = new Worker(url, { workerData: { role: ROLE } });
-    let from = 0;
+    // Two batches in flight per worker, so it starts the next while its last result is in the post.
+    let pending = 0;
     const feed = () => {
-      if (next >= tasks.length) {
-        void w.terminate().then(() => resolveWorker());
-        return;
+      while (pending < 2 && next < tasks.length) {
+        const from = next;
+        next = Math.min(tasks.length, next + size);
+        pending++;
+        w.postMessage({ from, batch: tasks.slice(from, next) });
       }
-      from = next;
-      next = Math.min(tasks.length, next + size);
-      w.postMessage(tasks.slice(from, next));
+      if (pending === 0) void w.terminate().then(() => resolveWorker());
     };
-    w.on('message', (batch: Outcome[]) => {
+    w.on('message', ({ from, out: batch }: { from: number; out: Outcome[] }) => {
+      pending--;
       batch.forEach((o, k) => {
         out[from + k] = o;
         progress.tick();

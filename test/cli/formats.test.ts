@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { parse as parseCsv } from 'csv-parse/sync';
@@ -116,6 +116,24 @@ describe('every format carries the same numbers as the JSON report', () => {
     expect(b.status).toBe(1);
     expect(b.stdout).toBe(a.stdout);
     expect(JSON.parse(a.stdout)).toHaveLength(3);
+  });
+  it('--jobs 2 on 150 plans (batches in flight on a worker) keeps the order and the reports of --jobs 1, an invalid plan included', () => {
+    const dir = join(TMP, 'many');
+    mkdirSync(dir);
+    const base = JSON.parse(readFileSync(join(ROOT, DEMOS['contact-spring-strip']), 'utf8'));
+    for (let i = 0; i < 150; i++) {
+      const p = structuredClone(base);
+      p.name = `plan ${i} (INVENTED variation)`;
+      p.steps[p.steps.length - 1].reductionPct = i === 77 ? 100 : 5 + (i % 40);
+      writeFileSync(join(dir, `p${String(i).padStart(3, '0')}.json`), JSON.stringify(p));
+    }
+    const a = run('run', join(dir, '*.json'), '--format', 'json', '--jobs', '1');
+    const b = run('run', join(dir, '*.json'), '--format', 'json', '--jobs', '2');
+    expect(a.status).toBe(2); // the worst exit: plan 77 reduces 100 %
+    expect(b.status).toBe(2);
+    expect(b.stdout).toBe(a.stdout);
+    const reps = JSON.parse(b.stdout) as { plan?: { name: string }; invalid?: unknown }[];
+    expect(reps.map((r, i) => (i === 77 ? 'invalid' in r : r.plan!.name === `plan ${i} (INVENTED variation)`)).every(Boolean)).toBe(true);
   });
   it('--set changes one field for one run: the last reduction 25 → 30 % raises the reload yield as the law says', () => {
     const r = JSON.parse(run('run', DEMOS['contact-spring-strip'], '--format', 'json', '--set', 'steps[4].reductionPct=30').stdout);
