@@ -4,6 +4,7 @@ import { PALETTE } from '../charts/palette.js';
 import type { ReportV1 } from './build.js';
 import { stepColumns, targetUnit, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
+import { scatterView } from './scatter.js';
 
 /** Escapes text for HTML content and double-quoted attributes. */
 export function htmlText(s: string): string {
@@ -63,7 +64,13 @@ export function htmlReport(r: ReportV1): string {
   parts.push(`<p><strong>Cold-work window:</strong> ${htmlText(windowText(r))}</p>`);
   const warned = r.steps.flatMap((s) => s.warnings.map((w) => `step ${s.index}: ${w.message}`));
   if (warned.length) parts.push('<h2>Warnings</h2>\n<ul>\n' + warned.map((w) => `<li>${htmlText(w)}</li>`).join('\n') + '\n</ul>');
-  for (const [k, v] of extraSections(r)) parts.push(`<h2>${htmlText(k)}</h2>\n<pre>${htmlText(JSON.stringify(v, null, 2))}</pre>`);
+  if (r.scatter) {
+    const v = scatterView(r.scatter, r.units.stress);
+    parts.push('<h2>Scatter</h2>', ...v.sentences.map((x) => `<p>${htmlText(x)}</p>`));
+    for (const t of v.tables) parts.push(`<h3>${htmlText(t.title)}</h3>`, table(t.header, t.rows, t.numeric));
+    parts.push(`<div class="caution" role="note">${v.cautions.map((c) => `<p><strong>Caution.</strong> ${htmlText(c)}</p>`).join('')}</div>`);
+  }
+  for (const [k, v] of extraSections(r)) if (k !== 'scatter') parts.push(`<h2>${htmlText(k)}</h2>\n<pre>${htmlText(JSON.stringify(v, null, 2))}</pre>`);
   parts.push('<h2>Cautions</h2>\n<ul>\n' + r.cautions.map((c) => `<li>${htmlText(c)}</li>`).join('\n') + '\n</ul>');
   parts.push('</body>\n</html>\n');
   return parts.join('\n');

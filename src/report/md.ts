@@ -1,6 +1,7 @@
 import type { ReportV1 } from './build.js';
 import { stepColumns, targetUnit, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
+import { scatterView } from './scatter.js';
 
 /** Escapes text for a Markdown table cell or line (pipes, backslashes, HTML-significant brackets). */
 export function mdText(s: string): string {
@@ -15,7 +16,8 @@ function mdTable(header: string[], rows: string[][], numeric: boolean[]): string
 
 /**
  * A readable Markdown report (CommonMark with GFM tables): provenance, the annealed state, the
- * ledger table, the targets with margins, the cold-work window, warnings and the cautions. Numbers
+ * ledger table, the targets with margins, the cold-work window, warnings, the scatter section when
+ * the plan has one, and the cautions. Numbers
  * are rounded as in {@link stepColumns}; targets to 2 decimals.
  */
 export function mdReport(r: ReportV1): string {
@@ -43,7 +45,16 @@ export function mdReport(r: ReportV1): string {
     out.push('', '## Warnings', '');
     for (const w of warned) out.push(`- ${mdText(w)}`);
   }
+  if (r.scatter) {
+    const v = scatterView(r.scatter, S);
+    out.push('', '## Scatter');
+    for (const x of v.sentences) out.push('', mdText(x));
+    for (const t of v.tables) out.push('', `**${mdText(t.title)}**`, '', mdTable(t.header, t.rows, t.numeric));
+    out.push('');
+    for (const c of v.cautions) out.push(`- **Caution:** ${mdText(c)}`);
+  }
   for (const [k, v] of extraSections(r)) {
+    if (k === 'scatter') continue;
     out.push('', `## ${mdText(k)}`, '', '```json', JSON.stringify(v, null, 2), '```');
   }
   out.push('', '## Cautions', '');

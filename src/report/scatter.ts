@@ -99,3 +99,45 @@ export function scatterLines(s: ReportScatter, stress: string): string[] {
     ...s.cautions.map((c) => `  caution: ${c}`),
   ];
 }
+
+/** The scatter section as sentences and tables, for the Markdown and HTML reports (same numbers as {@link scatterLines}). */
+export interface ScatterView {
+  /** Plain sentences, in order: what was sampled, the probability, the tolerance bound, redraws. */
+  sentences: string[];
+  tables: Array<{ title: string; header: string[]; rows: string[][]; numeric: boolean[] }>;
+  cautions: string[];
+}
+
+/** Builds {@link ScatterView}: probabilities in per cent to 0.1, stresses to 0.1 in the plan's unit. */
+export function scatterView(s: ReportScatter, stress: string): ScatterView {
+  const f = (x: number, d = 1) => x.toFixed(d);
+  const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
+  const tb = s.toleranceBound;
+  const sentences = [
+    `${s.samples} Monte Carlo samples (seed ${s.seed}) through the route.`,
+    `Probability that all targets are met: ${pct(s.probabilityAllTargetsMet)} (± ${pct(s.probabilityStdError)} sampling error).`,
+    `Lower tolerance bound on the final Rp0.2, covering ${pct(tb.coverage)} of parts at ${pct(tb.confidence)} confidence: ${f(tb.value)} ${stress} (${tb.method}); normal theory gives ${f(tb.normalValue)} ${stress} (k = ${tb.normalK.toFixed(4)}).`,
+    ...(s.rejectedDraws > 0 ? [`${s.rejectedDraws} draws fell outside what the law or route allows and were redrawn (truncated normal).`] : []),
+  ];
+  const dist = (name: string, unit: string, d: Distribution, dm: { mean: number; sd: number }) =>
+    [name, unit, f(d.mean), f(d.sd), f(d.p05), f(d.p50), f(d.p95), f(dm.mean), f(dm.sd)];
+  const tables: ScatterView['tables'] = [
+    { title: 'Inputs that scatter', header: ['input', 'mean', 'sd', 'cv', 'unit'], numeric: [false, true, true, true, false],
+      rows: s.inputs.map((i) => [i.name, String(+i.mean.toPrecision(6)), String(+i.sd.toPrecision(3)), i.cv.toFixed(3), i.unit === '1' ? '—' : i.unit]) },
+    { title: 'Probability of meeting each target', header: ['target', 'limit', 'probability met'], numeric: [false, true, true],
+      rows: s.targets.map((t) => [t.name, f(t.limit, 2), pct(t.probabilityMet)]) },
+    { title: 'Final state across the samples (first-order estimate beside)', header: ['quantity', 'unit', 'mean', 'sd', '5 %', '50 %', '95 %', 'first-order mean', 'first-order sd'],
+      numeric: [false, false, true, true, true, true, true, true, true],
+      rows: [
+        dist('Rp0.2', stress, s.finalReloadYield, s.deltaMethod.finalReloadYield),
+        dist('Rm', stress, s.tensileStrength, s.deltaMethod.tensileStrength),
+        dist('remaining uniform elongation', '%', s.remainingElongationPct, s.deltaMethod.remainingElongationPct),
+      ] },
+    { title: `What drives the spread of ${s.sensitivity.output === 'finalReloadYield' ? 'the final Rp0.2' : s.sensitivity.output} (linear R² ${s.sensitivity.linearR2.toFixed(3)})`, header: ['input', 'standardised regression coefficient', 'correlation'], numeric: [false, true, true],
+      rows: [...s.sensitivity.inputs].sort((a, b) => Math.abs(b.src) - Math.abs(a.src)).map((i) => [i.input, i.src.toFixed(2), i.correlation.toFixed(2)]) },
+  ];
+  if (Object.keys(s.correlation).length) {
+    tables.splice(1, 0, { title: 'Correlations given', header: ['pair', 'correlation'], numeric: [false, true], rows: Object.entries(s.correlation).map(([k, v]) => [k, String(v)]) });
+  }
+  return { sentences, tables, cautions: [...s.cautions] };
+}

@@ -39,6 +39,33 @@ export const ReportStepSchema = z.looseObject({
 
 const targetName = z.enum(['minYield', 'maxYield', 'minTensile', 'minRemainingElongationPct', 'maxSpringbackDeg']);
 
+const probability = (what: string) => z.number().gte(0).lte(1).describe(what);
+const distribution = z.looseObject({ mean: z.number(), sd: z.number().nonnegative(), min: z.number(), p05: z.number(), p50: z.number(), p95: z.number(), max: z.number() });
+const meanSd = z.looseObject({ mean: z.number(), sd: z.number().nonnegative() });
+
+/** The `scatter` section (src/report/scatter.ts), present only when the plan has one. Stresses in the report stress unit. */
+export const ReportScatterSchema = z.looseObject({
+  samples: z.number().int().min(2),
+  seed: z.number().int().nonnegative(),
+  rejectedDraws: z.number().int().nonnegative().describe('draws outside what the law or route allows, redrawn (truncated normal)'),
+  inputs: z.array(z.looseObject({ name: z.string().min(1), mean: z.number(), sd: z.number().nonnegative(), cv: z.number().nonnegative(), unit: z.string() })),
+  correlation: z.record(z.string(), z.number().gte(-1).lte(1)).describe('given correlations, keyed "A,B"'),
+  probabilityAllTargetsMet: probability('share of samples meeting every target'),
+  probabilityStdError: z.number().nonnegative().describe('binomial standard error of that share'),
+  targets: z.array(z.looseObject({ name: targetName, limit: z.number(), probabilityMet: probability('share of samples meeting this target') })),
+  finalReloadYield: distribution,
+  tensileStrength: distribution,
+  remainingElongationPct: distribution,
+  toleranceBound: z.looseObject({
+    value: z.number().describe('lower tolerance bound on the final reload yield'),
+    coverage: probability('share of parts covered'), confidence: probability('confidence of the bound'), method: z.string(),
+    normalK: z.number(), normalValue: z.number(), distributionFreeRank: z.number().int().nullable(), distributionFreeValue: z.number().nullable(), note: z.string(),
+  }),
+  sensitivity: z.looseObject({ output: z.string(), method: z.string(), linearR2: z.number(), inputs: z.array(z.looseObject({ input: z.string(), src: z.number(), correlation: z.number() })) }),
+  deltaMethod: z.looseObject({ finalReloadYield: meanSd, tensileStrength: meanSd, remainingElongationPct: meanSd }),
+  cautions: z.array(z.string()).min(1),
+}).describe('Monte Carlo scatter through the route (present only when the plan has a scatter section)');
+
 export const ReportSchema = z.looseObject({
   reportVersion: z.literal(1),
   plan: z.looseObject({
@@ -76,6 +103,7 @@ export const ReportSchema = z.looseObject({
     limitedBy: z.strictObject({ from: targetName.nullable(), to: targetName.nullable() }),
     note: z.string(),
   }),
+  scatter: ReportScatterSchema.optional(),
   cautions: z.array(z.string()).min(1),
 });
 

@@ -12,7 +12,7 @@ const run = (...args: string[]) => spawnSync(process.execPath, [BIN, ...args], {
 const published = JSON.parse(readFileSync(join(ROOT, 'schema', 'report-v1.json'), 'utf8'));
 const ajv = new Ajv2020.default({ allErrors: true, strict: true });
 const validate = ajv.compile(published);
-const DEMOS = ['examples/contact-spring-strip.json', 'examples/fencing-wire-us.json', 'examples/bracket-stretch-specimen.yaml'];
+const DEMOS = ['examples/contact-spring-strip.json', 'examples/fencing-wire-us.json', 'examples/bracket-stretch-specimen.yaml', 'examples/clip-strip-scatter.json', 'examples/hinge-tab-bend.json'];
 
 describe('schema/report-v1.json, the published JSON Schema of report v1', () => {
   it('strainledger schema --report prints exactly the checked-in file (regenerate with it when the report changes)', () => {
@@ -57,7 +57,25 @@ describe('schema/report-v1.json, the published JSON Schema of report v1', () => 
   it('extra optional fields from later issues keep a report valid (the contract is additive)', () => {
     const r = JSON.parse(run('run', DEMOS[0]!, '--format', 'json').stdout);
     r.steps[0].springbackDeg = 3.2;
-    r.scatter = { samples: 1000 };
+    r.hardnessSurvey = { samples: 3 }; // a section a later version might add
     expect(validate(r)).toBe(true);
+  });
+  it('the scatter section is part of the contract: a broken one is refused', () => {
+    const good = JSON.parse(run('run', 'examples/clip-strip-scatter.json', '--format', 'json').stdout);
+    expect(good.scatter.probabilityAllTargetsMet).toBeGreaterThan(0);
+    expect(validate(good)).toBe(true);
+    const broken: Array<[string, (s: Record<string, any>) => void]> = [
+      ['a probability above 1', (s) => { s.probabilityAllTargetsMet = 1.5; }],
+      ['no tolerance bound', (s) => { delete s.toleranceBound; }],
+      ['a negative spread', (s) => { s.finalReloadYield.sd = -1; }],
+      ['a correlation beyond ±1', (s) => { s.correlation['K,n'] = -1.2; }],
+      ['no cautions', (s) => { s.cautions = []; }],
+      ['an unknown target', (s) => { s.targets[0].name = 'minHardness'; }],
+    ];
+    for (const [what, breakIt] of broken) {
+      const r = structuredClone(good);
+      breakIt(r.scatter);
+      expect(validate(r), what).toBe(false);
+    }
   });
 });

@@ -52,6 +52,27 @@ describe('strainledger run PLAN with a scatter section', () => {
     expect(s.sensitivity.inputs.map((i: { input: string }) => i.input)).toEqual(['K', 'n', 'start.thickness']);
     expect(s.cautions.length).toBeGreaterThan(0);
   });
+  it('the Markdown and HTML reports show the scatter section as sentences and tables with the JSON report\'s numbers, and its cautions', async () => {
+    const s = JSON.parse(one.stdout).scatter;
+    const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
+    const md = run('run', PLAN, '--format', 'md').stdout;
+    const section = md.slice(md.indexOf('## Scatter'), md.indexOf('## Cautions'));
+    expect(section).toContain(`Probability that all targets are met: ${pct(s.probabilityAllTargetsMet)}`);
+    expect(section).toContain(`: ${s.toleranceBound.value.toFixed(1)} MPa`);
+    expect(section).toContain(`| minYield | 330.00 | ${pct(s.targets[0].probabilityMet)} |`);
+    expect(section).toContain(`| Rp0.2 | MPa | ${s.finalReloadYield.mean.toFixed(1)} | ${s.finalReloadYield.sd.toFixed(1)} | ${s.finalReloadYield.p05.toFixed(1)} |`);
+    expect(section).toContain('**Caution:** A lower bound is not a guaranteed minimum');
+    expect(md).not.toContain('```json'); // no raw JSON dump
+    // HTML read back with linkedom's parser (a general-purpose DOM), not by string matching alone.
+    const { DOMParser } = await import('linkedom');
+    const doc = new DOMParser().parseFromString(run('run', PLAN, '--format', 'html').stdout, 'text/html');
+    const h2 = [...doc.querySelectorAll('h2')].find((h) => h.textContent === 'Scatter');
+    expect(h2).toBeDefined();
+    const rows = [...doc.querySelectorAll('table')].flatMap((t) => [...t.querySelectorAll('tr')].map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent)));
+    expect(rows).toContainEqual(['K', '530', '21.2', '0.040', 'MPa']);
+    expect(rows).toContainEqual(['minRemainingElongationPct', '2.00', pct(s.targets[2].probabilityMet)]);
+    expect(doc.querySelector('pre')).toBeNull();
+  });
   it('gives the same report byte for byte with 1 and with 2 worker threads, and on a second run', () => {
     expect(two.status).toBe(0);
     expect(two.stdout).toBe(one.stdout);
