@@ -39,8 +39,9 @@ export async function readPlan(file: string): Promise<PlanSource> {
   try {
     return { file, text, loc: parseLocated(text, file, formatOf(file), yaml) };
   } catch (e) {
-    // The parsers recurse: a hostile file nested thousands deep overflows the stack (as a RangeError,
-    // or as a syntax error that says so), and YAML aliases can expand without bound.
+    // The YAML parser recurses: a hostile file nested thousands deep overflows the stack (as a
+    // RangeError, or as a syntax error that says so), and aliases can expand without bound. (JSON is
+    // read iteratively and refuses nesting deeper than MAX_JSON_DEPTH itself, with line and column.)
     const deep = e instanceof RangeError || (e instanceof PlanError && e.problems.some((p) => /call stack/i.test(p.message)));
     if (deep) throw new PlanError([{ file, path: '', message: 'nesting too deep to read; allowed a plan of plain objects and lists a few levels deep' }]);
     if (e instanceof Error && !(e instanceof PlanError) && /alias/i.test(e.message)) {
