@@ -55,8 +55,8 @@ if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE && 
 
 /**
  * Evaluates plans, `jobs` at a time. With jobs = 1 (or one plan) everything runs on the main thread;
- * otherwise on the main thread and `jobs − 1` worker threads (node:worker_threads), each pulling
- * the next few plans when done.
+ * otherwise on the main thread and, once the work left is worth their start, `jobs − 1` worker
+ * threads (node:worker_threads), each pulling the next few plans when done.
  * Outcomes come back in the order of `tasks`.
  */
 export async function runTasks(tasks: readonly Task[], jobs: number, progress: Progress): Promise<Outcome[]> {
@@ -71,25 +71,9 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
   // Plans go out in small batches (fewer messages), small enough to keep both threads busy to the end.
   const size = Math.max(1, Math.min(32, Math.ceil(tasks.length / (jobs * 8))));
   let next = 0;
-  // The main thread is one of the `jobs`: it takes batches from the same queue, and yields to the
-  // event loop every few milliseconds so that a worker's finished batch is answered with the next one
-  // at once (a worker waiting for the main thread to finish a batch of its own idled up to half the time).
-  const YIELD_MS = 4;
-  const mainThread = async () => {
-    let since = performance.now();
-    while (next < tasks.length) {
-      const i = next++;
-      out[i] = await processTask(tasks[i]!);
-      progress.tick();
-      if (performance.now() - since > YIELD_MS) {
-        await new Promise((r) => setImmediate(r));
-        since = performance.now();
-      }
-    }
-  };
-  const n = Math.min(jobs, tasks.length) - 1;
+  const workers: Promise<void>[] = [];
   const url = new URL(import.meta.url);
-  await Promise.all([mainThread(), ...Array.from({ length: n }, () => new Promise<void>((resolveWorker, rejectWorker) => {
+  const startWorker = () => new Promise<void>((resolveWorker, rejectWorker) => {
     const w = new Worker(url, { workerData: { role: ROLE } });
     // Two batches in flight per worker, so it starts the next while its last result is in the post.
     let pending = 0;
@@ -112,6 +96,33 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
     });
     w.on('error', (e) => rejectWorker(e));
     feed();
-  }))]);
+  });
+  // The main thread is one of the `jobs` and starts at once. Workers start only when the work left
+  // would keep the main thread busy for longer than a worker takes to start (loading the runner's
+  // modules into a new isolate: ~0.1 s for JSON, ~0.4 s with the chart code; bench/RESULTS.md), so
+  // `--jobs N` is not slower than `--jobs 1` on a batch of small plans. The main thread yields to the
+  // event loop every few milliseconds so that a worker's finished batch is answered at once.
+  const YIELD_MS = 4;
+  const PROBE_MS = 25;
+  const WORKER_START_MS = 250;
+  const n = Math.min(jobs, tasks.length) - 1;
+  const t0 = performance.now();
+  let since = t0;
+  let done = 0;
+  while (next < tasks.length) {
+    const i = next++;
+    out[i] = await processTask(tasks[i]!);
+    done++;
+    progress.tick();
+    const now = performance.now();
+    if (workers.length === 0 && now - t0 > PROBE_MS && ((tasks.length - next) * (now - t0)) / done > WORKER_START_MS) {
+      for (let k = 0; k < n; k++) workers.push(startWorker());
+    }
+    if (now - since > YIELD_MS) {
+      await new Promise((r) => setImmediate(r));
+      since = performance.now();
+    }
+  }
+  await Promise.all(workers);
   return out;
 }

@@ -73,5 +73,26 @@ export function htmlReport(r: ReportV1): string {
   for (const [k, v] of extraSections(r)) if (k !== 'scatter') parts.push(`<h2>${htmlText(k)}</h2>\n<pre>${htmlText(JSON.stringify(v, null, 2))}</pre>`);
   parts.push('<h2>Cautions</h2>\n<ul>\n' + r.cautions.map((c) => `<li>${htmlText(c)}</li>`).join('\n') + '\n</ul>');
   parts.push('</body>\n</html>\n');
-  return parts.join('\n');
+  return stableIds(parts.join('\n'));
+}
+
+/**
+ * Plot numbers the ids of markers, clip paths and patterns from a counter that lives as long as the
+ * process (`plot-marker-7`), so the same report would differ with what was drawn before it (in a
+ * batch, and between `--jobs 1` and `--jobs 2`). Renumbered here in order of first appearance: still
+ * unique within the file, and the same file for the same report.
+ */
+export function stableIds(html: string): string {
+  const seen = new Map<string, string>();
+  const next = new Map<string, number>();
+  return html.replace(/\bplot-(marker|clip|pattern)-(\d+)\b/g, (id, kind: string) => {
+    let s = seen.get(id);
+    if (s === undefined) {
+      const k = (next.get(kind) ?? 0) + 1;
+      next.set(kind, k);
+      s = `plot-${kind}-${k}`;
+      seen.set(id, s);
+    }
+    return s;
+  });
 }
