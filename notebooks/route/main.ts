@@ -211,7 +211,10 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
   })
   .cell({
     name: 'report', inputs: ['plan'],
-    fn: (plan: LoadedPlan) => buildReport(plan, runPlan(plan), { hash: '', tool: 'strainledger notebooks' }),
+    // The nominal route only: a plan's scatter section is kept in the document and the exported file
+    // (the runner and the scatter notebook sample it), but not sampled here on every edit — that
+    // would run its Monte Carlo on the page thread for numbers this planner does not show.
+    fn: (plan: LoadedPlan) => buildReport({ ...plan, scatter: undefined }, runPlan(plan), { hash: '', tool: 'strainledger notebooks' }),
   })
   .cell({
     name: 'ledgerTable', inputs: ['report'], into: 'cell-ledger',

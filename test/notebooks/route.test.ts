@@ -55,6 +55,26 @@ describe('route planner', () => {
     await context.close();
   });
 
+  it('a plan with a scatter section: the nominal route as the runner gives it, no sampling on the page, the section kept in the export', async () => {
+    const { page, errors, context } = await openPage(h, '/route/');
+    await settled(page, 'route');
+    await page.selectOption('#demo-select', { label: 'examples/clip-strip-scatter.json (INVENTED)' });
+    await page.click('#load-demo');
+    await settled(page, 'route');
+    const report = await page.evaluate(async () => (await (window as unknown as { strainledger: Record<string, { value(n: string): Promise<unknown> }> }).strainledger.route!.value('report')) as Record<string, unknown>);
+    expect(report.scatter).toBeUndefined();
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click('#export')]);
+    const file = join(tmp, 'scatter.json');
+    await download.saveAs(file);
+    expect(JSON.parse(readFileSync(file, 'utf8')).scatter.samples).toBe(20000);
+    const run = spawnSync(process.execPath, [join(REPO, 'bin', 'strainledger.js'), 'run', file, '--format', 'json'], { encoding: 'utf8' });
+    const fromRunner = JSON.parse(run.stdout) as Report & { scatter: unknown };
+    expect(fromRunner.scatter).toBeDefined(); // the runner samples it
+    await expectParity(page, fromRunner, await ledgerCells(page));
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it('an edited route, exported and run through the runner, gives the numbers the page shows', async () => {
     const { page, errors } = await openPage(h, '/route/');
     await settled(page, 'route');
