@@ -1,0 +1,111 @@
+import { parseArgs } from 'node:util';
+import { fitKinematic, KINEMATIC_FIT_BOUNDS, type KinematicFit } from '../../core/path/fitKinematic.js';
+import { loadPlanOrMaterial } from '../../plan/material.js';
+import { PlanError } from '../../plan/problems.js';
+import { withLocation } from '../../plan/resolve.js';
+import { readRecordFile } from '../../records/node.js';
+import { CAUTIONS } from '../../report/cautions.js';
+import type { Command } from '../command.js';
+import { readText, writeFileAtomic } from '../io.js';
+
+const CLI = '(command line)';
+
+/**
+ * True stress and strain from engineering values at constant volume: ε = ln(1 + e), σ = s·(1 + e)
+ * (Dieter, Mechanical Metallurgy, SI ed., §8-3; valid in uniform deformation, tension or
+ * compression, e > −1). Example: e = 0.02, s = 300 MPa → ε = 0.019803, σ = 306 MPa.
+ */
+export function trueFromEngineering(e: ArrayLike<number>, s: ArrayLike<number>): { strain: Float64Array; stress: Float64Array } {
+  const strain = new Float64Array(e.length);
+  const stress = new Float64Array(e.length);
+  for (let i = 0; i < e.length; i++) {
+    strain[i] = Math.log1p(e[i]!);
+    stress[i] = s[i]! * (1 + e[i]!);
+  }
+  return { strain, stress };
+}
+
+/**
+ * `strainledger kinematic PLAN_OR_MATERIAL RECORD [--backstresses 1|2|3] [--values engineering|true]
+ * [--format table|json] [--material-out FILE]`: fits Armstrong–Frederick backstresses (C, γ) to a
+ * record with a reversal or tension–compression loops (src/core/path/fitKinematic.ts), the material's
+ * flow curve and E kept. The record is read like a tensile record (src/records: columns by name,
+ * units, metadata), signed: compression negative. `--material-out` writes the material with the
+ * fitted `kinematic` block (atomically), ready for a plan. Exit 0 fitted; 1 the fit did not converge;
+ * 2 invalid input.
+ */
+export const kinematic: Command = {
+  name: 'kinematic',
+  usage: [
+    'kinematic PLAN_OR_MATERIAL RECORD [--backstresses 1|2|3] [--values engineering|true] [--format table|json] [--material-out FILE]',
+    '      fit Armstrong–Frederick backstresses (C, γ) to a record with a reversal; the material\'s flow curve and E are kept',
+  ].join('\n'),
+  async run(args, io) {
+    const { values, positionals } = parseArgs({
+      args, allowPositionals: true, strict: true,
+      options: {
+        backstresses: { type: 'string', default: '1' },
+        values: { type: 'string', default: 'engineering' },
+        format: { type: 'string', default: 'table' },
+        'material-out': { type: 'string' },
+      },
+    });
+    if (positionals.length !== 2) throw new PlanError([{ file: CLI, path: 'PLAN_OR_MATERIAL RECORD', message: `got ${positionals.length} files, allowed exactly two: the material (or a plan) and the record` }]);
+    const k = values.backstresses!;
+    if (!/^[123]$/.test(k)) throw new PlanError([{ file: CLI, path: '--backstresses', message: `got ${JSON.stringify(k)}, allowed 1, 2 or 3` }]);
+    const kind = values.values!;
+    if (kind !== 'engineering' && kind !== 'true') throw new PlanError([{ file: CLI, path: '--values', message: `got ${JSON.stringify(kind)}, allowed engineering (a lab export: converted at constant volume) or true` }]);
+    const format = values.format!;
+    if (format !== 'table' && format !== 'json') throw new PlanError([{ file: CLI, path: '--format', message: `got ${JSON.stringify(format)}, allowed one of table, json` }]);
+    const [materialFile, recordFile] = positionals as [string, string];
+    const plan = loadPlanOrMaterial(readText(materialFile), materialFile);
+    const u = plan.units;
+    const rec = await readRecordFile(recordFile, { stressUnit: u.stress });
+    for (let i = 0; i < rec.strain.length; i++) {
+      if (!(rec.strain[i]! > -1)) throw new PlanError([{ file: recordFile, path: `strain[${i}]`, message: `got ${rec.strain[i]}, allowed a strain > −1 (fraction)` }]);
+    }
+    const { strain, stress } = kind === 'engineering' ? trueFromEngineering(rec.strain, rec.stress) : { strain: rec.strain, stress: rec.stress };
+    const m = plan.route.material;
+    const fit: KinematicFit = withLocation(recordFile, undefined, () => fitKinematic(m, strain, stress, { backstresses: Number(k) }));
+    const S = u.fromMPa;
+    const backstresses = fit.kinematic.backstresses.map((b, i) => ({
+      C: S(b.C), gamma: b.gamma, saturation: S(b.C / b.gamma),
+      standardError: { C: fit.standardErrors[i]!.C === null ? null : S(fit.standardErrors[i]!.C!), gamma: fit.standardErrors[i]!.gamma },
+      interval95: {
+        C: fit.intervals95[i]!.C === null ? null : fit.intervals95[i]!.C!.map(S) as [number, number],
+        gamma: fit.intervals95[i]!.gamma,
+      },
+    }));
+    const cautions = [
+      'The backstresses describe this record\'s reversals; other prestrains, strain ranges or paths (bending, multiaxial) may need other values.',
+      ...CAUTIONS,
+    ];
+    if (values['material-out'] !== undefined) {
+      const doc = structuredClone((plan.doc as { material: Record<string, unknown> }).material);
+      doc.kinematic = { backstresses: backstresses.map((b) => ({ C: +b.C.toPrecision(6), gamma: +b.gamma.toPrecision(6) })) };
+      writeFileAtomic(values['material-out'], JSON.stringify({ units: u.system, ...doc }, null, 2) + '\n');
+    }
+    if (format === 'json') {
+      io.stdout(JSON.stringify({
+        material: m.name, record: recordFile, values: kind, units: { stress: u.stress, strain: 'true (logarithmic), dimensionless' },
+        model: 'Armstrong–Frederick backstresses on the material\'s flow curve (src/core/path/fitKinematic.ts)',
+        bounds: { C: KINEMATIC_FIT_BOUNDS.C.map(S), gamma: KINEMATIC_FIT_BOUNDS.gamma },
+        backstresses,
+        rmse: S(fit.rmse), r2: fit.r2, aic: fit.aic, bic: fit.bic, points: fit.points, iterations: fit.iterations, converged: fit.converged,
+        warnings: fit.warnings, cautions,
+      }, null, 2) + '\n');
+    } else {
+      const lines = [
+        `kinematic fit of ${m.name} to ${recordFile} (${fit.points} points, ${kind === 'engineering' ? 'engineering values converted to true' : 'true values'})`,
+        ...backstresses.map((b, i) => `  backstress ${i + 1}: C = ${+b.C.toPrecision(5)} ${u.stress}${b.standardError.C === null ? '' : ` ± ${+b.standardError.C.toPrecision(2)}`}, γ = ${+b.gamma.toPrecision(5)}${b.standardError.gamma === null ? '' : ` ± ${+b.standardError.gamma.toPrecision(2)}`}, saturation C/γ = ${+b.saturation.toPrecision(4)} ${u.stress}`),
+        `  RMSE ${+S(fit.rmse).toPrecision(3)} ${u.stress}, R² ${fit.r2.toFixed(5)}, ${fit.iterations} iterations${fit.converged ? '' : ', NOT converged'}`,
+        ...fit.warnings.map((w) => `  warning: ${w.message}`),
+        ...(values['material-out'] !== undefined ? [`wrote ${values['material-out']}`] : []),
+        'cautions:',
+        ...cautions.map((c) => `  - ${c}`),
+      ];
+      io.stdout(lines.join('\n') + '\n');
+    }
+    return fit.converged ? 0 : 1;
+  },
+};

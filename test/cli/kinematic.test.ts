@@ -1,0 +1,94 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { trueFromEngineering } from '../../src/cli/commands/kinematic.js';
+import { expectRelClose } from '../helpers.js';
+
+// `strainledger kinematic MATERIAL RECORD`: Armstrong–Frederick backstresses fitted to a record with
+// a reversal, through the shipped runner. The record is built from the closed-form 1-D
+// Armstrong–Frederick response (Armstrong & Frederick 1966; Lemaitre & Chaboche, Mechanics of Solid
+// Materials, 1990, §5.4 — from memory), not from our integrator: with a Voce flow curve σ0 + (C/γ)(1 −
+// e^(−γ ε̄)) the yield-surface size stays σ0 and the backstress is the whole of the hardening, so
+// tension gives X = (C/γ)(1 − e^(−γ εp)) and a reversal from X_a at εp = a gives
+// X = −C/γ + (X_a + C/γ)·e^(γ(εp − a)); stress σ = ±σ0 + X, total strain εp + σ/E.
+const ROOT = join(import.meta.dirname, '..', '..');
+const BIN = join(ROOT, 'bin', 'strainledger.js');
+const run = (...args: string[]) => spawnSync(process.execPath, [BIN, ...args], { cwd: ROOT, encoding: 'utf8', env: { ...process.env, CI: 'true' }, maxBuffer: 1 << 28 });
+const TMP = mkdtempSync(join(tmpdir(), 'sl-kin-'));
+afterAll(() => rmSync(TMP, { recursive: true, force: true }));
+
+const E = 200000, S0 = 200, C = 20000, G = 100; // MPa, MPa, MPa, dimensionless: INVENTED test values
+const material = (kinematic?: unknown) => ({ units: 'SI', name: 'closed-form AF test material (INVENTED)', elasticModulus: E, flowCurve: { law: 'voce', sigma0: S0, Q: C / G, b: G }, ...(kinematic ? { kinematic } : {}) });
+
+/** Closed-form record: elastic loading, tension to εp = a, elastic unloading, reverse plastic flow by d. */
+function closedFormRecord(a = 0.02, d = 0.03, n = 200): { strain: number[]; stress: number[] } {
+  const strain: number[] = [], stress: number[] = [];
+  const push = (ep: number, s: number) => { strain.push(ep + s / E); stress.push(s); };
+  for (let i = 0; i <= 20; i++) push(0, (S0 * i) / 20);
+  for (let i = 1; i <= n; i++) { const ep = (a * i) / n; push(ep, S0 + (C / G) * (1 - Math.exp(-G * ep))); }
+  const Xa = (C / G) * (1 - Math.exp(-G * a));
+  for (let i = 1; i <= 20; i++) push(a, S0 + Xa - (2 * S0 * i) / 20);
+  for (let i = 1; i <= n; i++) { const ep = a - (d * i) / n; push(ep, -C / G + (Xa + C / G) * Math.exp(G * (ep - a)) - S0); }
+  return { strain, stress };
+}
+
+describe('strainledger kinematic MATERIAL RECORD', () => {
+  const matFile = join(TMP, 'material.json');
+  writeFileSync(matFile, JSON.stringify(material(), null, 2));
+  const rec = closedFormRecord();
+
+  it('recovers C and γ from a closed-form Armstrong–Frederick reversal (true values), and writes a material that reproduces it', () => {
+    const csv = join(TMP, 'af-true.csv');
+    writeFileSync(csv, 'strain,stress [MPa]\n' + rec.strain.map((e, i) => `${e},${rec.stress[i]}`).join('\n') + '\n');
+    const out = join(TMP, 'fitted.json');
+    const r = run('kinematic', matFile, csv, '--values', 'true', '--format', 'json', '--material-out', out);
+    expect(r.status, r.stderr).toBe(0);
+    const fit = JSON.parse(r.stdout);
+    expectRelClose(fit.backstresses[0].C, C, 1e-6, 'C');
+    expectRelClose(fit.backstresses[0].gamma, G, 1e-6, 'γ');
+    expect(fit.rmse).toBeLessThan(1e-3); // MPa: the return mapping integrates the 1-D AF law exactly along each increment
+    expect(fit.cautions.length).toBeGreaterThan(1);
+    // The written material drives `path` through the record's strain history to the same stresses.
+    const written = JSON.parse(readFileSync(out, 'utf8'));
+    expect(written.kinematic.backstresses).toHaveLength(1);
+    const history = [0.02 + (S0 + (C / G) * (1 - Math.exp(-G * 0.02))) / E, rec.strain[rec.strain.length - 1]!];
+    const p = JSON.parse(run('path', out, '--history', history.join(','), '--increment', '1e-5').stdout);
+    const last = p.points[p.points.length - 1];
+    expectRelClose(last.stress, rec.stress[rec.stress.length - 1]!, 2e-3, 'stress at the end of the reversal');
+  });
+
+  it('reads engineering values by default and converts them at constant volume (ε = ln(1 + e), σ = s(1 + e); Dieter §8-3)', () => {
+    // e = 0.02, s = 300 MPa → ε = ln 1.02 = 0.0198026, σ = 306 MPa (by hand).
+    const t = trueFromEngineering([0.02, -0.01], [300, -250]);
+    expect(t.strain[0]).toBeCloseTo(0.0198026273, 9);
+    expect(t.stress[0]).toBeCloseTo(306, 9);
+    expect(t.strain[1]).toBeCloseTo(Math.log(0.99), 12);
+    expect(t.stress[1]).toBeCloseTo(-247.5, 9);
+    const csv = join(TMP, 'af-eng.csv');
+    const eng = rec.strain.map((e, i) => [Math.expm1(e), rec.stress[i]! / Math.exp(e)]);
+    writeFileSync(csv, 'Strain (%),Stress (MPa)\n' + eng.map(([e, s]) => `${e! * 100},${s}`).join('\n') + '\n');
+    const r = run('kinematic', matFile, csv, '--format', 'json');
+    expect(r.status, r.stderr).toBe(0);
+    const fit = JSON.parse(r.stdout);
+    expect(fit.values).toBe('engineering');
+    expectRelClose(fit.backstresses[0].C, C, 1e-6, 'C from engineering values');
+    expectRelClose(fit.backstresses[0].gamma, G, 1e-6, 'γ from engineering values');
+  });
+
+  it('exits 2 with one clear message for a record without a reversal, a wrong option, or a missing file', () => {
+    const mono = join(TMP, 'mono.csv');
+    const k = rec.strain.findIndex((_, i) => i > 0 && rec.stress[i]! < rec.stress[i - 1]!);
+    writeFileSync(mono, 'strain,stress [MPa]\n' + rec.strain.slice(0, k).map((e, i) => `${e},${rec.stress[i]}`).join('\n') + '\n');
+    const a = run('kinematic', matFile, mono, '--values', 'true');
+    expect(a.status).toBe(2);
+    expect(a.stderr).toMatch(/record: .*allowed a record with at least one unloading or reversal/);
+    const b = run('kinematic', matFile, mono, '--backstresses', '4');
+    expect(b.status).toBe(2);
+    expect(b.stderr).toMatch(/--backstresses: got "4", allowed 1, 2 or 3/);
+    const c = run('kinematic', matFile, join(TMP, 'nonesuch.csv'));
+    expect(c.status).toBe(2);
+    for (const x of [a, b, c]) expect(x.stderr).not.toMatch(/\n\s+at /); // no stack trace
+  });
+});
