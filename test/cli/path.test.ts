@@ -68,3 +68,12 @@ describe('strainledger path with invalid input exits 2 naming the field', () => 
     expect(r.stderr).toMatch(/bad\.json:3:\d+: material\.elasticModulus/);
   });
 });
+
+describe('a reader that stops early', () => {
+  it('`strainledger path ... | head -1` ends quietly: no EPIPE error or stack trace (common practice for command-line tools)', () => {
+    const r = spawnSync('bash', ['-c', `set -o pipefail; "${process.execPath}" "${BIN}" path examples/hinge-tab-bend.json --history 0.03,-0.03,0.03 --increment 1e-6 --format csv | head -1`], { cwd: ROOT, encoding: 'utf8' });
+    expect(r.stdout).toBe('strain,stress_MPa,plasticStrain,accumulatedPlasticStrain,backstress_MPa,yieldSurfaceSize_MPa,modulus_MPa\n');
+    expect(r.stderr).not.toMatch(/EPIPE|Error|\n\s+at /);
+    expect(r.status).toBe(0);
+  });
+});
