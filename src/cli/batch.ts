@@ -57,14 +57,19 @@ if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE && 
  * Evaluates plans, `jobs` at a time. With jobs = 1 (or one plan) everything runs on the main thread;
  * otherwise on the main thread and, once the work left is worth their start, `jobs − 1` worker
  * threads (node:worker_threads), each pulling the next few plans when done.
- * Outcomes come back in the order of `tasks`.
+ * Outcomes come back in the order of `tasks`; `onOutcome` sees each as soon as it is ready (in
+ * completion order), e.g. to write its file while the other plans are still being worked on.
  */
-export async function runTasks(tasks: readonly Task[], jobs: number, progress: Progress): Promise<Outcome[]> {
+export async function runTasks(tasks: readonly Task[], jobs: number, progress: Progress, onOutcome: (o: Outcome) => void = () => {}): Promise<Outcome[]> {
   const out: Outcome[] = new Array(tasks.length);
+  const done = (i: number, o: Outcome) => {
+    out[i] = o;
+    onOutcome(o);
+    progress.tick();
+  };
   if (jobs <= 1 || tasks.length <= 1) {
     for (let i = 0; i < tasks.length; i++) {
-      out[i] = await processTask(tasks[i]!);
-      progress.tick();
+      done(i, await processTask(tasks[i]!));
     }
     return out;
   }
@@ -88,10 +93,7 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
     };
     w.on('message', ({ from, out: batch }: { from: number; out: Outcome[] }) => {
       pending--;
-      batch.forEach((o, k) => {
-        out[from + k] = o;
-        progress.tick();
-      });
+      batch.forEach((o, k) => done(from + k, o));
       feed();
     });
     w.on('error', (e) => rejectWorker(e));
@@ -108,14 +110,13 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
   const n = Math.min(jobs, tasks.length) - 1;
   const t0 = performance.now();
   let since = t0;
-  let done = 0;
+  let mine = 0;
   while (next < tasks.length) {
     const i = next++;
-    out[i] = await processTask(tasks[i]!);
-    done++;
-    progress.tick();
+    done(i, await processTask(tasks[i]!));
+    mine++;
     const now = performance.now();
-    if (workers.length === 0 && now - t0 > PROBE_MS && ((tasks.length - next) * (now - t0)) / done > WORKER_START_MS) {
+    if (workers.length === 0 && now - t0 > PROBE_MS && ((tasks.length - next) * (now - t0)) / mine > WORKER_START_MS) {
       for (let k = 0; k < n; k++) workers.push(startWorker());
     }
     if (now - since > YIELD_MS) {

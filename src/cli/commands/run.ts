@@ -1,6 +1,7 @@
 import { parseArgs } from 'node:util';
 import { PlanError } from '../../plan/problems.js';
 import type { Command } from '../command.js';
+import type { Outcome } from '../batch.js';
 import { EXTENSION, FORMATS, type Format } from '../render.js';
 
 const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
@@ -102,15 +103,24 @@ export const run: Command = {
     const targets = values.out !== undefined ? planOutputs(values.out, files, EXTENSION[format]) : undefined;
     const progress = await startProgress(files.length, 'plans', progressOn);
     let outcomes;
+    let written = 0;
+    // With --out each report is written (atomically) as soon as it is ready, not held until the end:
+    // the writes overlap the workers' computing, and a large batch does not keep every report in memory.
+    const write = (o: Outcome) => {
+      if (targets && o.output !== undefined) {
+        writeOutput(targets.get(o.file)!, o.output);
+        delete o.output;
+        written++;
+      }
+    };
     try {
-      outcomes = await runTasks(files.map((file) => ({ file, format, overrides, render: targets !== undefined })), jobs, progress);
+      outcomes = await runTasks(files.map((file) => ({ file, format, overrides, render: targets !== undefined })), jobs, progress, write);
     } finally {
       progress.stop();
     }
     io.stderr(summary.problemLines(outcomes));
     if (targets) {
-      let n = 0;
-      for (const o of outcomes) if (o.output !== undefined) { writeOutput(targets.get(o.file)!, o.output); n++; }
+      const n = written;
       io.stdout(summary.summaryTable(outcomes, color) + `wrote ${n} ${format} report${n === 1 ? '' : 's'} to ${values.out}\n`);
     } else if (format === 'json') {
       io.stdout(JSON.stringify(outcomes.map((o) => o.report ?? { file: o.file, invalid: o.problems ?? o.internal }), null, 2) + '\n');
