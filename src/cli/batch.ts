@@ -101,25 +101,28 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
   });
   // The main thread is one of the `jobs` and starts at once. Workers start only when the work left
   // would keep the main thread busy for longer than a worker takes to start (loading the runner's
-  // modules into a new isolate: ~0.1 s for JSON, ~0.4 s with the chart code; bench/RESULTS.md), so
+  // modules into a new isolate: ~0.1 s for JSON, ~0.4 s with the chart code; bench/RESULTS.md),
+  // judged from the main thread's rate after its first plan, so
   // `--jobs N` is not slower than `--jobs 1` on a batch of small plans. The main thread yields to the
   // event loop every few milliseconds so that a worker's finished batch is answered at once.
   const YIELD_MS = 4;
-  const PROBE_MS = 25;
-  const WORKER_START_MS = 250;
+  const PROBE_MS = 50;
+  const WORKER_START_MS = 500;
   const n = Math.min(jobs, tasks.length) - 1;
   const t0 = performance.now();
   let since = t0;
   let mine = 0;
+  let tFirst = 0; // the first plan also pays for loading and compiling the code: the rate is taken after it
   while (next < tasks.length) {
     const i = next++;
     done(i, await processTask(tasks[i]!));
     mine++;
     const now = performance.now();
-    if (workers.length === 0 && now - t0 > PROBE_MS && ((tasks.length - next) * (now - t0)) / mine > WORKER_START_MS) {
+    if (mine === 1) tFirst = now;
+    if (workers.length === 0 && mine > 1 && now - t0 > PROBE_MS && ((tasks.length - next) * (now - tFirst)) / (mine - 1) > WORKER_START_MS) {
       for (let k = 0; k < n; k++) workers.push(startWorker());
     }
-    if (now - since > YIELD_MS) {
+    if (workers.length > 0 && now - since > YIELD_MS) { // only workers send messages to answer
       await new Promise((r) => setImmediate(r));
       since = performance.now();
     }
