@@ -53,6 +53,14 @@ if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE && 
 }
 
 
+/** Options of {@link runTasks}. */
+export interface RunTasksOptions {
+  /** Start the workers at once instead of when the work left is worth it (tests of the worker path). */
+  eagerWorkers?: boolean;
+  /** Filled in: how many plans the worker threads evaluated. */
+  stats?: { byWorkers: number };
+}
+
 /**
  * Evaluates plans, `jobs` at a time. With jobs = 1 (or one plan) everything runs on the main thread;
  * otherwise on the main thread and, once the work left is worth their start, `jobs − 1` worker
@@ -60,7 +68,7 @@ if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE && 
  * Outcomes come back in the order of `tasks`; `onOutcome` sees each as soon as it is ready (in
  * completion order), e.g. to write its file while the other plans are still being worked on.
  */
-export async function runTasks(tasks: readonly Task[], jobs: number, progress: Progress, onOutcome: (o: Outcome) => void = () => {}): Promise<Outcome[]> {
+export async function runTasks(tasks: readonly Task[], jobs: number, progress: Progress, onOutcome: (o: Outcome) => void = () => {}, opts: RunTasksOptions = {}): Promise<Outcome[]> {
   const out: Outcome[] = new Array(tasks.length);
   const done = (i: number, o: Outcome) => {
     out[i] = o;
@@ -93,6 +101,7 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
     };
     w.on('message', ({ from, out: batch }: { from: number; out: Outcome[] }) => {
       pending--;
+      if (opts.stats) opts.stats.byWorkers += batch.length;
       batch.forEach((o, k) => done(from + k, o));
       feed();
     });
@@ -113,6 +122,7 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
   let since = t0;
   let mine = 0;
   let tFirst = 0; // the first plan also pays for loading and compiling the code: the rate is taken after it
+  if (opts.eagerWorkers) for (let k = 0; k < n; k++) workers.push(startWorker());
   while (next < tasks.length) {
     const i = next++;
     done(i, await processTask(tasks[i]!));

@@ -117,7 +117,7 @@ describe('every format carries the same numbers as the JSON report', () => {
     expect(b.stdout).toBe(a.stdout);
     expect(JSON.parse(a.stdout)).toHaveLength(3);
   });
-  it('--jobs 2 on 150 plans (HTML: heavy enough that a worker starts, with batches in flight) writes the same files as --jobs 1, an invalid plan included', () => {
+  it('--jobs 2 on 150 plans with HTML reports writes the same files as --jobs 1, an invalid plan included (the worker path itself: test/cli/batch.test.ts)', () => {
     const dir = join(TMP, 'many');
     mkdirSync(dir);
     const base = JSON.parse(readFileSync(join(ROOT, DEMOS['contact-spring-strip']), 'utf8'));
