@@ -86,7 +86,7 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
   let next = 0;
   const workers: Promise<void>[] = [];
   const url = new URL(import.meta.url);
-  const startWorker = () => new Promise<void>((resolveWorker, rejectWorker) => {
+  const launch = () => new Promise<void>((resolveWorker, rejectWorker) => {
     const w = new Worker(url, { workerData: { role: ROLE } });
     // Two batches in flight per worker, so it starts the next while its last result is in the post.
     let pending = 0;
@@ -108,12 +108,19 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
     w.on('error', (e) => rejectWorker(e));
     feed();
   });
-  // The main thread is one of the `jobs` and starts at once. Workers start only when the work left
-  // would keep the main thread busy for longer than a worker takes to start (loading the runner's
-  // modules into a new isolate: ~0.1 s for JSON, ~0.4 s with the chart code; bench/RESULTS.md),
-  // judged from the main thread's rate after its first plan, so
-  // `--jobs N` is not slower than `--jobs 1` on a batch of small plans. The main thread yields to the
-  // event loop every few milliseconds so that a worker's finished batch is answered at once.
+  // A worker that fails is reported when the batch ends (internal error, exit 3); handled at once so
+  // that it is not an unhandled rejection while the main thread is still working.
+  const startWorker = () => {
+    const p = launch();
+    p.catch(() => {});
+    workers.push(p);
+  };
+  // The main thread is one of the `jobs` and starts at once. Workers start only when the work left,
+  // judged from the main thread's rate after its first plan, would keep it busy for longer than a
+  // worker takes to start and warm up (a new isolate loading the runner: ~0.1 s for JSON, ~0.4 s
+  // with the chart code; bench/RESULTS.md), so `--jobs N` is not slower than `--jobs 1` on a batch
+  // of small plans. Once workers run, the main thread yields to the event loop every few
+  // milliseconds so that a worker's finished batch is answered at once.
   const YIELD_MS = 4;
   const PROBE_MS = 50;
   const WORKER_START_MS = 500;
@@ -122,7 +129,7 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
   let since = t0;
   let mine = 0;
   let tFirst = 0; // the first plan also pays for loading and compiling the code: the rate is taken after it
-  if (opts.eagerWorkers) for (let k = 0; k < n; k++) workers.push(startWorker());
+  if (opts.eagerWorkers) for (let k = 0; k < n; k++) startWorker();
   while (next < tasks.length) {
     const i = next++;
     done(i, await processTask(tasks[i]!));
@@ -130,7 +137,7 @@ export async function runTasks(tasks: readonly Task[], jobs: number, progress: P
     const now = performance.now();
     if (mine === 1) tFirst = now;
     if (workers.length === 0 && mine > 1 && now - t0 > PROBE_MS && ((tasks.length - next) * (now - tFirst)) / (mine - 1) > WORKER_START_MS) {
-      for (let k = 0; k < n; k++) workers.push(startWorker());
+      for (let k = 0; k < n; k++) startWorker();
     }
     if (workers.length > 0 && now - since > YIELD_MS) { // only workers send messages to answer
       await new Promise((r) => setImmediate(r));
