@@ -61,8 +61,10 @@ export const kinematic: Command = {
     const plan = loadPlanOrMaterial(readText(materialFile), materialFile);
     const u = plan.units;
     const rec = await readRecordFile(recordFile, { stressUnit: u.stress });
-    for (let i = 0; i < rec.strain.length; i++) {
-      if (!(rec.strain[i]! > -1)) throw new PlanError([{ file: recordFile, path: `strain[${i}]`, message: `got ${rec.strain[i]}, allowed a strain > −1 (fraction)` }]);
+    if (kind === 'engineering') {
+      for (let i = 0; i < rec.strain.length; i++) {
+        if (!(rec.strain[i]! > -1)) throw new PlanError([{ file: recordFile, path: `strain[${i}]`, message: `got ${rec.strain[i]}, allowed an engineering strain > −1 (fraction)` }]);
+      }
     }
     const { strain, stress } = kind === 'engineering' ? trueFromEngineering(rec.strain, rec.stress) : { strain: rec.strain, stress: rec.stress };
     const m = plan.route.material;
