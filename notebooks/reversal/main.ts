@@ -1,9 +1,10 @@
 // Reversal and springback: a load path with reversal (combined against isotropic hardening) and the
 // springback of a bend, both following the prestrain slider. Every number comes from the core
 // (integratePath, springback, backstressAfter); the page only arranges and formats them.
-import { Notebook, expose, slider, choice, valueStream, h, quantity, DIGITS, byId } from '../../src/cells/index.js';
-import { integratePath, springback, backstressAfter, chordModulus } from '../../src/core/index.js';
-import type { Material, PathResult, SpringbackResult } from '../../src/core/index.js';
+import { Notebook, expose, slider, choice, valueStream, h, quantity, DIGITS, byId, fileDrop, errorBox, downloadText } from '../../src/cells/index.js';
+import { integratePath, springback, backstressAfter, chordModulus, fitKinematic, trueCurve } from '../../src/core/index.js';
+import type { KinematicFit, Material, PathResult, SpringbackResult } from '../../src/core/index.js';
+import { parseRecordText } from '../../src/records/index.js';
 import { reversalChart, residualStressChart } from '../../src/charts/reversal.js';
 import { demoPlans, pageChrome } from '../shared/page.js';
 
@@ -26,6 +27,19 @@ const radiusInput = slider({ label: 'Tool inner radius', min: 0.5, max: 60, step
 byId('radius-input').append(radiusInput);
 const angleInput = slider({ label: 'Tool bend angle', min: 5, max: 180, step: 1, value: 90, unit: '°', id: 'angle' });
 byId('angle-input').append(angleInput);
+
+// Reversal records: choose or drop a file, or open the INVENTED demo record (examples/reversal/).
+const REVERSAL_RECORDS = import.meta.glob('../../examples/reversal/*.{csv,tsv,txt}', { query: '?raw', import: 'default', eager: true }) as Record<string, string>;
+const recFile = h('input', { type: 'file', id: 'kinfit-file', accept: '.csv,.tsv,.txt,text/csv,text/plain' });
+const recDrop = h('div', { class: 'sl-drop', id: 'kinfit-drop', role: 'button', 'aria-label': 'Reversal record: drop it here or press Enter to choose' },
+  'Drop a record with a reversal (CSV or tab-separated; compression negative) here, or ', h('label', { for: 'kinfit-file' }, 'choose one: '), recFile);
+const valuesInput = choice({ label: 'Columns hold', id: 'kinfit-values', value: 'engineering' as 'engineering' | 'true', options: [
+  { value: 'engineering' as const, text: 'engineering strain and stress (converted: ε = ln(1 + e), σ = s(1 + e))' },
+  { value: 'true' as const, text: 'true strain and stress' }] });
+const termsInput = choice({ label: 'Backstresses', id: 'kinfit-terms', value: 1, options: [1, 2, 3].map((n) => ({ value: n, text: String(n) })) });
+const demoRecords = Object.entries(REVERSAL_RECORDS);
+byId('kinfit-input').append(recDrop, valuesInput, termsInput,
+  ...(demoRecords.length ? [h('button', { type: 'button', id: 'kinfit-demo', onclick: () => nb.set('recordInput', { name: demoRecords[0]![0].split('/').pop()!, text: demoRecords[0]![1] }) }, `open the INVENTED demo record (${demoRecords[0]![0].split('/').pop()})`)] : []));
 
 interface Paths { kin: PathResult | null; iso: PathResult; reverseYieldKin: number | null; reverseYieldIso: number; top: number }
 
@@ -100,4 +114,53 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
     name: 'residualChart', inputs: ['bend'], into: 'cell-residual-chart',
     fn: (b: SpringbackResult) => residualStressChart(b.residualStress, { stressUnit: 'MPa', lengthUnit: 'mm' }),
   });
+
+interface KinFitView { fit: KinematicFit; strain: Float64Array; stress: Float64Array; model: PathResult; name: string; material: Material }
+
+nb.cell({ name: 'recordInput', fn: () => null })
+  .cell({ name: 'recordValues', fn: () => valueStream(valuesInput) })
+  .cell({ name: 'terms', fn: () => valueStream(termsInput) })
+  .cell({
+    // A record that cannot be read or fitted shows its problem here (file, line, field, value and
+    // what is allowed); the sliders and charts above keep working.
+    name: 'kinfit', inputs: ['material', 'recordInput', 'recordValues', 'terms'], into: 'cell-kinfit-numbers',
+    fn: (m: Material, input: { name: string; text: string } | null, values: 'engineering' | 'true', terms: number): KinFitView | null => {
+      if (!input) return null;
+      const rec = parseRecordText(input.text, { file: input.name });
+      const { strain, stress } = values === 'engineering' ? trueCurve(rec.strain, rec.stress) : { strain: rec.strain, stress: rec.stress };
+      const fit = fitKinematic(m, strain, stress, { backstresses: terms });
+      const base = { elasticModulus: m.elasticModulus, law: m.law, ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}), kinematic: fit.kinematic };
+      const model = integratePath(base, Array.from(strain).filter((_, i) => i > 0 && i % 5 === 0 || i === strain.length - 1), { maxIncrement: 1e-4 });
+      return { fit, strain, stress, model, name: input.name, material: m };
+    },
+    render: (v) => {
+      const k = v as KinFitView | null;
+      if (!k) return h('p', {}, 'No record yet: choose or drop one, or open the demo record.');
+      const f = k.fit;
+      return h('div', {},
+        h('p', {}, `${k.name}: ${f.points} points fitted${f.converged ? '' : ' — NOT converged'}; RMSE ${f.rmse.toPrecision(3)} MPa, R² ${f.r2.toFixed(5)}.`),
+        h('dl', { class: 'sl-quantities' }, ...f.kinematic.backstresses.flatMap((b, i) => [
+          quantity(`C${i + 1} (± ${f.standardErrors[i]!.C === null ? '—' : f.standardErrors[i]!.C!.toPrecision(2)})`, b.C, 0, 'MPa', `kinC${i + 1}`),
+          quantity(`γ${i + 1} (± ${f.standardErrors[i]!.gamma === null ? '—' : f.standardErrors[i]!.gamma!.toPrecision(2)})`, b.gamma, 2, '', `kinGamma${i + 1}`),
+          quantity(`saturation C${i + 1}/γ${i + 1}`, b.C / b.gamma, DIGITS.stress, 'MPa', `kinSat${i + 1}`),
+        ])),
+        ...f.warnings.map((w) => h('p', { class: 'sl-warning' }, w.message)),
+        h('p', { class: 'sl-notice' }, 'These backstresses describe this record; other prestrains, strain ranges or paths may need other values. Confirm on the real material before relying on reversed-yield or springback numbers.'),
+        h('button', { type: 'button', id: 'kinfit-download', onclick: () => {
+          const mat = k.material;
+          const doc = { units: 'SI', name: `${mat.name} (backstresses fitted to ${k.name})`, elasticModulus: mat.elasticModulus, poissonRatio: mat.poissonRatio,
+            flowCurve: { law: mat.law.law, ...mat.law.params }, ...(mat.modulusDecay ? { modulusDecay: mat.modulusDecay } : {}),
+            kinematic: { backstresses: f.kinematic.backstresses.map((b) => ({ C: +b.C.toPrecision(6), gamma: +b.gamma.toPrecision(6) })) } };
+          downloadText('material-with-backstresses.json', JSON.stringify(doc, null, 2) + '\n');
+        } }, 'download the material with these backstresses'));
+    },
+  })
+  .cell({
+    name: 'kinfitChart', inputs: ['kinfit'], into: 'cell-kinfit-chart',
+    fn: (k: KinFitView | null) => k === null ? h('p', {}, '') : reversalChart([
+      { label: 'record (true values)', points: Array.from(k.strain, (e, i) => ({ strain: e, stress: k.stress[i]! })) },
+      { label: 'fitted model', points: k.model.points },
+    ], { stressUnit: 'MPa' }),
+  });
+fileDrop(recDrop, recFile as HTMLInputElement, (name, text) => nb.set('recordInput', { name, text }), (e) => byId('cell-kinfit-numbers').replaceChildren(errorBox(e, 'The file could not be read')));
 expose('reversal', nb);

@@ -103,6 +103,7 @@ export { proofStrength, totalExtensionStrength } from './tensile/proofStrength.j
 export { yieldPoint } from './tensile/yieldPoint.js';
 export type { YieldPointResult } from './tensile/yieldPoint.js';
 export { nValueFit } from './tensile/nValue.js';
+export { trueCurve } from './tensile/trueCurve.js';
 export { findCycles, fitModulusDecay, UNLOAD_MIN_DROP } from './tensile/cycles.js';
 export type * from './tensile/types.js';
 

@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { trueFromEngineering } from '../../src/cli/commands/kinematic.js';
+import { trueCurve } from '../../src/core/index.js';
 import { expectRelClose } from '../helpers.js';
 
 // `strainledger kinematic MATERIAL RECORD`: Armstrong–Frederick backstresses fitted to a record with
@@ -61,7 +61,7 @@ describe('strainledger kinematic MATERIAL RECORD', () => {
 
   it('reads engineering values by default and converts them at constant volume (ε = ln(1 + e), σ = s(1 + e); Dieter §8-3)', () => {
     // e = 0.02, s = 300 MPa → ε = ln 1.02 = 0.0198026, σ = 306 MPa (by hand).
-    const t = trueFromEngineering([0.02, -0.01], [300, -250]);
+    const t = trueCurve([0.02, -0.01], [300, -250]);
     expect(t.strain[0]).toBeCloseTo(0.0198026273, 9);
     expect(t.stress[0]).toBeCloseTo(306, 9);
     expect(t.strain[1]).toBeCloseTo(Math.log(0.99), 12);

@@ -1,8 +1,10 @@
 // Real-browser test of the reversal-and-springback notebook (Debian's Chromium via playwright-core).
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { backstressAfter, hollomon, springback } from '../../src/core/index.js';
 import { expectRelClose } from '../helpers.js';
-import { openPage, settled, startHarness, SCREENSHOTS, type Harness } from './browser.js';
+import { openPage, settled, startHarness, REPO, SCREENSHOTS, type Harness } from './browser.js';
 
 let h: Harness;
 beforeAll(async () => { h = await startHarness(); });
@@ -43,6 +45,32 @@ describe('reversal and springback notebook', () => {
     expect(await page.locator('.sl-invented').first().isVisible()).toBe(true);
     await page.screenshot({ path: `${SCREENSHOTS}/reversal.png`, fullPage: true });
     expect(errors).toEqual([]);
+  });
+  it('fits backstresses to the INVENTED demo reversal record: the runner\'s numbers, near the values it was made from', async () => {
+    const { page, errors, context } = await openPage(h, '/reversal/');
+    await settled(page, 'reversal');
+    await page.click('#kinfit-demo');
+    await settled(page, 'reversal');
+    const C = await num(page, 'kinC1');
+    const gamma = await num(page, 'kinGamma1');
+    // The same fit through the runner (`strainledger kinematic`, the same core function).
+    const r = spawnSync(process.execPath, [join(REPO, 'bin', 'strainledger.js'), 'kinematic', 'examples/hinge-tab-bend.json', 'examples/reversal/hinge-tab-reversal.csv', '--format', 'json'], { cwd: REPO, encoding: 'utf8' });
+    expect(r.status, r.stderr).toBe(0);
+    const cli = JSON.parse(r.stdout).backstresses[0];
+    expect(C).toBe(Number(cli.C.toFixed(0)));
+    expect(gamma).toBe(Number(cli.gamma.toFixed(2)));
+    // The record was generated (scripts/gen-reversal-demo.mjs) with C 15000 MPa, γ 150 and 1 MPa noise:
+    // the fit lands within three standard errors of them.
+    expect(Math.abs(cli.C - 15000)).toBeLessThan(3 * cli.standardError.C);
+    expect(Math.abs(cli.gamma - 150)).toBeLessThan(3 * cli.standardError.gamma);
+    expect(await page.locator('#cell-kinfit-chart svg').count()).toBeGreaterThan(0);
+    // A file that is not a record shows its problem in the panel; the rest of the page keeps working.
+    await page.setInputFiles('#kinfit-file', { name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from('strain,stress [MPa]\n0.01,abc\n') });
+    await settled(page, 'reversal');
+    await expect(page.locator('#cell-kinfit-numbers .sl-error').count()).resolves.toBeGreaterThan(0);
+    expect(await num(page, 'springbackDeg')).toBeGreaterThan(0);
+    expect(errors).toEqual([]);
+    await context.close();
   });
   it('is linked from the index page', async () => {
     const { page } = await openPage(h, '/');

@@ -1,5 +1,6 @@
 import { parseArgs } from 'node:util';
 import { fitKinematic, KINEMATIC_FIT_BOUNDS, type KinematicFit } from '../../core/path/fitKinematic.js';
+import { trueCurve } from '../../core/tensile/trueCurve.js';
 import { loadPlanOrMaterial } from '../../plan/material.js';
 import { PlanError } from '../../plan/problems.js';
 import { withLocation } from '../../plan/resolve.js';
@@ -9,21 +10,6 @@ import type { Command } from '../command.js';
 import { readText, writeFileAtomic } from '../io.js';
 
 const CLI = '(command line)';
-
-/**
- * True stress and strain from engineering values at constant volume: ε = ln(1 + e), σ = s·(1 + e)
- * (Dieter, Mechanical Metallurgy, SI ed., §8-3; valid in uniform deformation, tension or
- * compression, e > −1). Example: e = 0.02, s = 300 MPa → ε = 0.019803, σ = 306 MPa.
- */
-export function trueFromEngineering(e: ArrayLike<number>, s: ArrayLike<number>): { strain: Float64Array; stress: Float64Array } {
-  const strain = new Float64Array(e.length);
-  const stress = new Float64Array(e.length);
-  for (let i = 0; i < e.length; i++) {
-    strain[i] = Math.log1p(e[i]!);
-    stress[i] = s[i]! * (1 + e[i]!);
-  }
-  return { strain, stress };
-}
 
 /**
  * `strainledger kinematic PLAN_OR_MATERIAL RECORD [--backstresses 1|2|3] [--values engineering|true]
@@ -66,7 +52,7 @@ export const kinematic: Command = {
         if (!(rec.strain[i]! > -1)) throw new PlanError([{ file: recordFile, path: `strain[${i}]`, message: `got ${rec.strain[i]}, allowed an engineering strain > −1 (fraction)` }]);
       }
     }
-    const { strain, stress } = kind === 'engineering' ? trueFromEngineering(rec.strain, rec.stress) : { strain: rec.strain, stress: rec.stress };
+    const { strain, stress } = kind === 'engineering' ? trueCurve(rec.strain, rec.stress) : { strain: rec.strain, stress: rec.stress };
     const m = plan.route.material;
     const fit: KinematicFit = withLocation(recordFile, undefined, () => fitKinematic(m, strain, stress, { backstresses: Number(k) }));
     const S = u.fromMPa;
