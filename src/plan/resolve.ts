@@ -8,7 +8,7 @@ import type { Ledger, Material, RouteInput, Size, Step, Targets } from '../core/
 import { prepareScatter, type ScatterProblem } from '../core/scatter/problem.js';
 import type { Located } from './parse.js';
 import { resolveScatter } from './scatterResolve.js';
-import { PlanError, stringToPath } from './problems.js';
+import { PlanError, stringToPath, type Problem } from './problems.js';
 import type { PlanDoc } from './schema.js';
 import { unitsOf, type Units } from './units.js';
 
@@ -69,55 +69,71 @@ export function convertStep(step: PlanDoc['steps'][number], f: (x: number) => nu
 }
 
 /**
- * Turns a validated plan into core input: laws built and checked, everything in MPa and mm.
+ * Turns a validated plan into core input: laws built and checked, everything in MPa and mm. The
+ * checks that do not depend on each other (the flow curve, the modulus decay, the backstresses, the
+ * fitted range, the targets) all run, so a plan with several such problems hears of all of them at
+ * once; the scatter section is checked once the material is sound.
  * @throws PlanError (core InputErrors located in the file when `loc` is given).
  */
 export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): ResolvedPlan {
   const units = unitsOf(doc.units);
-  return withLocation(file, loc, () => {
-    const m = doc.material;
-    // A record-form flow curve is fitted by the runner before resolution (src/cli/recordLaw.ts); the plan layer reads no files.
+  const problems: Problem[] = [];
+  /** Runs one independent check; a located problem is kept and the next check still runs. */
+  const check = <T>(fn: () => T): T | undefined => {
+    try {
+      return withLocation(file, loc, fn);
+    } catch (e) {
+      if (!(e instanceof PlanError)) throw e;
+      problems.push(...e.problems);
+      return undefined;
+    }
+  };
+  const m = doc.material;
+  // A record-form flow curve is fitted by the runner before resolution (src/cli/recordLaw.ts); the plan layer reads no files.
+  const law = check(() => {
     if ('record' in m.flowCurve) throw new InputError('material.flowCurve.record', m.flowCurve.record, 'law parameters here: a record is fitted by `strainledger run` (the runner reads the file), not by the plan layer');
-    const material: Material = {
-      name: m.name,
-      elasticModulus: units.toMPa(m.elasticModulus),
-      poissonRatio: m.poissonRatio ?? 0.3,
-      law: makeLaw(convertLaw(m.flowCurve as LawSpec, units.toMPa), 'material.flowCurve'),
-      source: 'given in the plan',
-    };
-    if (m.density !== undefined) material.density = m.density;
-    if (m.specificHeat !== undefined) material.specificHeat = m.specificHeat;
-    if (m.modulusDecay) {
-      const Ea = units.toMPa(m.modulusDecay.Ea);
-      if (Ea > material.elasticModulus) throw new InputError('material.modulusDecay.Ea', m.modulusDecay.Ea, `a modulus at most elasticModulus (${m.elasticModulus})`);
-      material.modulusDecay = { Ea, xi: m.modulusDecay.xi };
-    }
-    if (m.kinematic) {
-      const kin = validateKinematic({ backstresses: m.kinematic.backstresses.map((b) => ({ C: units.toMPa(b.C), gamma: b.gamma })) }, 'material.kinematic');
-      isotropicPart(material.law, kin, 'material.kinematic');
-      material.kinematic = kin;
-    }
-    if (m.fittedStrainRange) {
-      const [a, b] = m.fittedStrainRange;
-      if (!(b > a)) throw new InputError('material.fittedStrainRange', m.fittedStrainRange, 'a pair [from, to] with to > from');
-      material.fittedStrainRange = [a, b];
-    }
-    const targets: Targets = {};
-    const t = doc.targets;
-    if (t.minYield !== undefined) targets.minYield = units.toMPa(t.minYield);
-    if (t.maxYield !== undefined) targets.maxYield = units.toMPa(t.maxYield);
-    if (t.minTensile !== undefined) targets.minTensile = units.toMPa(t.minTensile);
-    if (t.minRemainingElongationPct !== undefined) targets.minRemainingElongationPct = t.minRemainingElongationPct;
-    if (t.maxSpringbackDeg !== undefined) targets.maxSpringbackDeg = t.maxSpringbackDeg;
+    return makeLaw(convertLaw(m.flowCurve as LawSpec, units.toMPa), 'material.flowCurve');
+  });
+  const elasticModulus = units.toMPa(m.elasticModulus);
+  const modulusDecay = m.modulusDecay && check(() => {
+    const Ea = units.toMPa(m.modulusDecay!.Ea);
+    if (Ea > elasticModulus) throw new InputError('material.modulusDecay.Ea', m.modulusDecay!.Ea, `a modulus at most elasticModulus (${m.elasticModulus})`);
+    return { Ea, xi: m.modulusDecay!.xi };
+  });
+  const kinematic = m.kinematic && check(() => {
+    const kin = validateKinematic({ backstresses: m.kinematic!.backstresses.map((b) => ({ C: units.toMPa(b.C), gamma: b.gamma })) }, 'material.kinematic');
+    if (law) isotropicPart(law, kin, 'material.kinematic');
+    return kin;
+  });
+  const fittedStrainRange = m.fittedStrainRange && check((): [number, number] => {
+    const [a, b] = m.fittedStrainRange!;
+    if (!(b > a)) throw new InputError('material.fittedStrainRange', m.fittedStrainRange, 'a pair [from, to] with to > from');
+    return [a, b];
+  });
+  const targets: Targets = {};
+  const t = doc.targets;
+  if (t.minYield !== undefined) targets.minYield = units.toMPa(t.minYield);
+  if (t.maxYield !== undefined) targets.maxYield = units.toMPa(t.maxYield);
+  if (t.minTensile !== undefined) targets.minTensile = units.toMPa(t.minTensile);
+  if (t.minRemainingElongationPct !== undefined) targets.minRemainingElongationPct = t.minRemainingElongationPct;
+  if (t.maxSpringbackDeg !== undefined) targets.maxSpringbackDeg = t.maxSpringbackDeg;
+  check(() => {
     if (t.minYield !== undefined && t.maxYield !== undefined && t.minYield > t.maxYield) {
       throw new InputError('targets.maxYield', t.maxYield, `a value ≥ minYield (${t.minYield})`, 'contradictory targets');
     }
-    return withScatter({
-      doc,
-      units,
-      route: { material, start: convertSize(doc.start, units.toMm), steps: doc.steps.map((s) => convertStep(s, units.toMm, units.toN)), targets },
-    });
   });
+  if (problems.length > 0 || !law) throw new PlanError(problems);
+  const material: Material = { name: m.name, elasticModulus, poissonRatio: m.poissonRatio ?? 0.3, law, source: 'given in the plan' };
+  if (m.density !== undefined) material.density = m.density;
+  if (m.specificHeat !== undefined) material.specificHeat = m.specificHeat;
+  if (modulusDecay) material.modulusDecay = modulusDecay;
+  if (kinematic) material.kinematic = kinematic;
+  if (fittedStrainRange) material.fittedStrainRange = fittedStrainRange;
+  return withLocation(file, loc, () => withScatter({
+    doc,
+    units,
+    route: { material, start: convertSize(doc.start, units.toMm), steps: doc.steps.map((s) => convertStep(s, units.toMm, units.toN)), targets },
+  }));
 }
 
 /** Runs `fn`, turning core InputErrors and ComputationErrors into a located PlanError. */

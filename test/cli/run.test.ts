@@ -70,6 +70,20 @@ describe('invalid input exits 2 with a one-line message naming file, line, field
       expect(r.stderr).not.toMatch(/\n\s+at /);
     });
   }
+  it('a plan with several independent problems hears of all of them at once, each located', () => {
+    const f = plan({
+      ...good,
+      material: { ...good.material, modulusDecay: { Ea: 300000, xi: 25 }, fittedStrainRange: [0.2, 0.05] },
+      targets: { minYield: 500, maxYield: 300 },
+    }, 'multi.json');
+    const r = run('run', f, '--format', 'json');
+    expect(r.status).toBe(2);
+    const lines = r.stderr.trim().split('\n');
+    expect(lines).toHaveLength(3);
+    expect(lines[0]).toMatch(/multi\.json:\d+:\d+: material\.modulusDecay\.Ea: got 300000, allowed a modulus at most elasticModulus \(115000\)/);
+    expect(lines[1]).toMatch(/multi\.json:\d+:\d+: material\.fittedStrainRange: got \[0\.2,0\.05\], allowed a pair \[from, to\] with to > from/);
+    expect(lines[2]).toMatch(/multi\.json:\d+:\d+: targets\.maxYield: contradictory targets; got 300, allowed a value ≥ minYield \(500\)/);
+  });
   it('a missing plan file', () => {
     const r = run('run', join(dir, 'nope.json'));
     expect(r.status).toBe(2);
