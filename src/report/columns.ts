@@ -47,5 +47,5 @@ export function windowText(r: ReportV1): string {
 
 /** The unit of a target's limit, predicted value and margin. */
 export function targetUnit(r: ReportV1, name: string): string {
-  return name === 'minRemainingElongationPct' ? '%' : r.units.stress;
+  return name === 'minRemainingElongationPct' ? '%' : name === 'maxSpringbackDeg' ? '°' : r.units.stress;
 }

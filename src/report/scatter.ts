@@ -49,7 +49,7 @@ export function scatterReport(problem: ScatterProblem, s: ScatterSummary, u: Uni
   problem.inputs.forEach((a, i) => problem.inputs.forEach((b, j) => {
     if (j > i && problem.correlation[i]![j] !== 0) correlation[`${a.name},${b.name}`] = problem.correlation[i]![j]!;
   }));
-  const stressTarget = (n: string) => n !== 'minRemainingElongationPct';
+  const stressTarget = (n: string) => n !== 'minRemainingElongationPct' && n !== 'maxSpringbackDeg';
   const tb = s.toleranceBound;
   return {
     samples: s.samples,

@@ -18,6 +18,14 @@ describe('strainledger run examples/hinge-tab-bend.json --format json (bend step
     const validate = new Ajv2020.default({ allErrors: true, strict: true }).compile(JSON.parse(readFileSync(join(ROOT, 'schema', 'report-v1.json'), 'utf8')));
     expect(validate(rep), JSON.stringify(validate.errors)).toBe(true);
   });
+  it('the human-readable reports give the springback target in degrees, the others in their own units', () => {
+    const md = run('run', 'examples/hinge-tab-bend.json', '--format', 'md').stdout;
+    const t = rep.targets.find((x: { name: string }) => x.name === 'maxSpringbackDeg');
+    expect(md).toContain(`| maxSpringbackDeg | met | ${t.limit.toFixed(2)} | ${t.predicted.toFixed(2)} | ${t.margin.toFixed(2)} | ° |`);
+    expect(md).toMatch(/\| minYield \| met \| 300\.00 \| [\d.]+ \| [\d.]+ \| MPa \|/);
+    const junit = run('run', 'examples/hinge-tab-bend.json', '--format', 'junit').stdout;
+    expect(junit).toContain(`maxSpringbackDeg: predicted ${t.predicted.toFixed(2)} °, limit 6.00 °`);
+  });
   it('has the bend fields on the bend step only, and reverseReloadYield on every step', () => {
     const [roll, bend] = rep.steps;
     for (const k of ['outerFibreStrain', 'springbackDeg', 'finalAngleDeg', 'finalRadius']) {

@@ -33,8 +33,12 @@ function roundFull(text: string, format: 'json' | 'csv'): string {
 
 const json = (file: string) => JSON.parse(run('run', file, '--format', 'json').stdout);
 
+// Goldens also for the demos with a scatter section and with reversal and bend steps (their own
+// report sections: scatter tables, springback columns).
+const GOLDEN_DEMOS = { ...DEMOS, 'clip-strip-scatter': 'examples/clip-strip-scatter.json', 'hinge-tab-bend': 'examples/hinge-tab-bend.json' } as const;
+
 describe('strainledger run PLAN --format F matches its golden file', () => {
-  for (const [name, file] of Object.entries(DEMOS)) {
+  for (const [name, file] of Object.entries(GOLDEN_DEMOS)) {
     for (const [format, ext] of Object.entries(EXT)) {
       it(`${name} as ${format}`, async () => {
         const r = run('run', file, '--format', format);
