@@ -30,6 +30,15 @@ function suiteXml(s: JunitSuite): string {
   for (const [k, v] of [['plan.file', r.plan.file], ['plan.sha256', r.plan.hash], ['tool', r.plan.tool], ['material', r.material.name], ['law.source', r.material.source]] as const) {
     x += `      <property name="${k}" value="${xmlText(v)}"/>\n`;
   }
+  // A plan with a scatter section: the chance of meeting every target and the lower bound, as
+  // properties a dashboard can chart (not test cases: the targets are judged on the nominal route).
+  if (r.scatter) {
+    const sc = r.scatter;
+    for (const [k, v] of [['scatter.probabilityAllTargetsMet', String(sc.probabilityAllTargetsMet)], ['scatter.samples', String(sc.samples)],
+      [`scatter.toleranceBound.reloadYield.${r.units.stress}`, sc.toleranceBound.value.toFixed(2)]] as const) {
+      x += `      <property name="${xmlText(k)}" value="${xmlText(v)}"/>\n`;
+    }
+  }
   x += '    </properties>\n';
   for (const t of r.targets) {
     const u = targetUnit(r, t.name);
@@ -46,7 +55,8 @@ function suiteXml(s: JunitSuite): string {
  * JUnit XML (the de-facto schema read by CI dashboards): a `<testsuites>` element with one
  * `<testsuite>` per plan and one `<testcase>` per target; a missed target is a `<failure>` whose
  * message gives predicted value, limit and margin (2 decimals, plan units); an invalid plan is one
- * `<error>` case. Plan hash, tool and law source are suite properties.
+ * `<error>` case. Plan hash, tool and law source are suite properties, and for a plan with a scatter
+ * section the probability of meeting every target and the lower tolerance bound on the final yield.
  */
 export function junitReport(suites: readonly JunitSuite[]): string {
   const tests = suites.reduce((n, s) => n + (s.report ? s.report.targets.length : 1), 0);

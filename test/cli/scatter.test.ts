@@ -73,6 +73,16 @@ describe('strainledger run PLAN with a scatter section', () => {
     expect(rows).toContainEqual(['minRemainingElongationPct', '2.00', pct(s.targets[2].probabilityMet)]);
     expect(doc.querySelector('pre')).toBeNull();
   });
+  it('the JUnit report carries the probability and the lower bound as suite properties (read back by an XML parser)', async () => {
+    const s = JSON.parse(one.stdout).scatter;
+    const { DOMParser } = await import('linkedom');
+    const xml = new DOMParser().parseFromString(run('run', PLAN, '--format', 'junit').stdout, 'text/xml');
+    const prop = (n: string) => [...xml.querySelectorAll('property')].find((p) => p.getAttribute('name') === n)?.getAttribute('value');
+    expect(Number(prop('scatter.probabilityAllTargetsMet'))).toBe(s.probabilityAllTargetsMet);
+    expect(Number(prop('scatter.samples'))).toBe(20000);
+    expect(prop('scatter.toleranceBound.reloadYield.MPa')).toBe(s.toleranceBound.value.toFixed(2));
+    expect(xml.querySelectorAll('testcase').length).toBe(3); // one per target, as without scatter
+  });
   it('gives the same report byte for byte with 1 and with 2 worker threads, and on a second run', () => {
     expect(two.status).toBe(0);
     expect(two.stdout).toBe(one.stdout);
