@@ -19,3 +19,14 @@ export function expectAbsClose(actual: number, expected: number, absTol: number,
 export function derivative(f: (x: number) => number, x: number, h = 1e-6): number {
   return (f(x + h) - f(x - h)) / (2 * h);
 }
+
+/** A field path into parsed JSON: keys and list indices. */
+export type Path = (string | number)[];
+
+/** Every path in a JSON-like value, the root ([]) first, depth first. */
+export function paths(x: unknown, at: Path = [], out: Path[] = []): Path[] {
+  out.push(at);
+  if (Array.isArray(x)) x.forEach((v, i) => paths(v, [...at, i], out));
+  else if (x !== null && typeof x === 'object') for (const [k, v] of Object.entries(x)) paths(v, [...at, k], out);
+  return out;
+}

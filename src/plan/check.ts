@@ -7,7 +7,7 @@ import type { PlanDoc } from './schema.js';
  * The plan's fast validity check: the plan JSON Schema (made by zod from src/plan/schema.ts,
  * committed as src/plan/generated/planSchema.ts and tested to be current) walked by
  * src/plan/conforms.ts. It answers only "valid or not" and fills the schema's defaults as zod does,
- * so on a valid plan the runner never loads zod (about 30 ms of start-up: bench/RESULTS.md, "Runner
+ * so on a valid plan the runner never loads zod (about 50 ms to import on this machine: bench/RESULTS.md, "Runner
  * cold start"). Every refused plan goes to zod, which words all its problems; if zod accepts what the
  * check refused, zod's result is used, so the check can only make the runner faster, never change what
  * is valid. test/plan/check.test.ts holds the check to zod and to Ajv on thousands of edited plans.

@@ -2,6 +2,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { parse as parseYaml } from 'yaml';
 import { describe, expect, it } from 'vitest';
+import { paths, type Path } from '../helpers.js';
 import Ajv2020Module from 'ajv/dist/2020.js';
 import { fastPlanCheck } from '../../src/plan/check.js';
 import { assertSupportedSchema, conforms, fillDefaults, type SchemaNode } from '../../src/plan/conforms.js';
@@ -82,13 +83,6 @@ const VALUES: unknown[] = [
   { kind: 'anneal' }, { kind: 'roll', reductionPct: 10 }, { law: 'hollomon', K: 500, n: 0.2 }, { C: 10, gamma: 1 },
 ];
 
-type Path = (string | number)[];
-function paths(x: unknown, at: Path = [], out: Path[] = []): Path[] {
-  out.push(at);
-  if (Array.isArray(x)) x.forEach((v, i) => paths(v, [...at, i], out));
-  else if (x !== null && typeof x === 'object') for (const [k, v] of Object.entries(x)) paths(v, [...at, k], out);
-  return out;
-}
 function parentOf(root: unknown, p: Path): Record<string | number, unknown> | undefined {
   let node: unknown = root;
   for (const k of p.slice(0, -1)) node = (node as Record<string | number, unknown>)[k];

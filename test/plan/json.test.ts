@@ -1,6 +1,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { paths } from '../helpers.js';
 import { parseJsonLocated, MAX_JSON_DEPTH } from '../../src/plan/json.js';
 import { parseLocated } from '../../src/plan/parse.js';
 import { PlanError } from '../../src/plan/problems.js';
@@ -13,13 +14,6 @@ import { parseYamlLocated } from '../../src/plan/yaml.js';
 const EXAMPLES = new URL('../../examples/', import.meta.url);
 const jsonExamples = readdirSync(EXAMPLES).filter((f) => f.endsWith('.json')).map((f) => ({ f, text: readFileSync(new URL(f, EXAMPLES), 'utf8') }));
 
-type Path = (string | number)[];
-function paths(x: unknown, at: Path = [], out: Path[] = []): Path[] {
-  out.push(at);
-  if (Array.isArray(x)) x.forEach((v, i) => paths(v, [...at, i], out));
-  else if (x !== null && typeof x === 'object') for (const [k, v] of Object.entries(x)) paths(v, [...at, k], out);
-  return out;
-}
 function problems(fn: () => unknown): string[] {
   try {
     fn();
