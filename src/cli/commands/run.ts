@@ -16,8 +16,9 @@ const GLOB_CHARS = /[*?[\]{}]/;
 export const run: Command = {
   name: 'run',
   usage: [
-    'run PLAN... [--format table|json|csv|md|html|junit] [--out DIR] [--set PATH=VALUE]... [--sweep PATH=FROM:TO:STEP] [--jobs N] [--no-progress]',
-    '      evaluate plans (files or quoted globs); exit 0 all targets met, 1 a target missed, 2 invalid input (the worst over all plans)',
+    'run PLAN... [--format table|json|csv|md|html|junit] [--out DIR] [--set PATH=VALUE]... [--sweep PATH=FROM:TO:STEP] [--jobs N] [--shard K/N] [--no-progress]',
+    '      evaluate plans (files or quoted globs); exit 0 all targets met, 1 a target missed, 2 invalid input (the worst over all plans);',
+    '      --shard K/N runs the K-th of N shares of the sorted plan list (one CI matrix job each; combine with `merge`)',
   ].join('\n'),
   async run(args, io) {
     const { values, positionals } = parseArgs({
@@ -28,6 +29,7 @@ export const run: Command = {
         set: { type: 'string', multiple: true, default: [] },
         sweep: { type: 'string' },
         jobs: { type: 'string', short: 'j', default: '1' },
+        shard: { type: 'string' },
         'no-progress': { type: 'boolean', default: false },
       },
     });
@@ -41,6 +43,9 @@ export const run: Command = {
     const { parseSet, parseSweep } = await import('../overrides.js');
     const overrides = values.set!.map(parseSet);
     const sweep = values.sweep !== undefined ? parseSweep(values.sweep) : undefined;
+    const { parseShard, shardOf } = await import('../shard.js');
+    const shard = values.shard !== undefined ? parseShard(values.shard) : undefined;
+    if (shard && sweep) throw cliError('--shard', `got --shard ${values.shard} with --sweep, allowed --shard for a list of plans (a sweep is one plan)`);
     const { checkOutDir } = await import('../out.js');
     if (values.out !== undefined) checkOutDir(values.out);
 
@@ -53,6 +58,11 @@ export const run: Command = {
       if (found.length === 0) throw cliError('PLAN', `the pattern ${JSON.stringify(p)} matched no file, allowed a pattern matching at least one plan`);
       files.push(...found);
     }
+    // A shard: the K-th share of the sorted, de-duplicated list (src/cli/shard.ts). Its output always
+    // has the batch form (a JSON array, one JUnit document, a summary table), whatever its size, so
+    // that `merge` combines shards of 0, 1 or many plans alike.
+    const planned = shard ? shardOf(files, shard) : files;
+    if (shard) files.splice(0, files.length, ...planned);
     const color = io.isTTY && !process.env.NO_COLOR;
     const progressOn = !values['no-progress'];
     const { startProgress } = await import('../progress.js');
@@ -81,7 +91,7 @@ export const run: Command = {
     }
 
     // One plan: evaluated here; invalid input is thrown (exit 2) before anything is written.
-    if (files.length === 1) {
+    if (files.length === 1 && !shard) {
       const [{ readPlan, evaluateSource }, { render }, { planOutputs, writeOutput }] = await Promise.all([import('../evaluate.js'), import('../render.js'), import('../out.js')]);
       const target = values.out !== undefined ? planOutputs(values.out, files, EXTENSION[format]).get(files[0]!)! : undefined;
       // A scatter section is sampled on --jobs worker threads (the numbers do not depend on how many).
