@@ -1,0 +1,13 @@
+// strainledger/charts: @observablehq/plot figures for anyone's own page or notebook.
+// Each returns an SVG (or a figure element); in Node pass `document` (e.g. from linkedom's parseHTML).
+
+export { strengthByStepChart, ductilityByStepChart } from './ledger.js';
+export type { LedgerChartStep, LedgerChartOptions } from './ledger.js';
+export { flowCurveChart, loadUnloadChart, markPrestrain } from './prestrain.js';
+export type { CurveSeries, FlowChartOptions, LoadUnloadPath } from './prestrain.js';
+export { recordCurveChart, residualChart, CHART_MAX_POINTS } from './records.js';
+export { reversalChart, residualStressChart } from './reversal.js';
+export type { PathSeries } from './reversal.js';
+export { yieldHistogram } from './scatter.js';
+export type { YieldHistogramOptions } from './scatter.js';
+export { PALETTE, CHART_STYLE } from './palette.js';
