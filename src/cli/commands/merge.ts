@@ -58,7 +58,7 @@ async function jsonEntries(file: string, text: string): Promise<Entry[]> {
       return { key: o.file, exit: typeof o.invalid === 'string' ? 3 : 2, from: file, value: item };
     }
     if (o.reportVersion !== 1) {
-      throw fileError(file, `got reportVersion ${formatValue(o.reportVersion)}; allowed reportVersion 1 (the version this strainledger writes and reads); merge reports of one version`, `${at}${at ? '.' : ''}reportVersion`);
+      throw fileError(file, `got ${formatValue(o.reportVersion)}; allowed reportVersion 1 (the version this strainledger writes and reads); merge reports of one version`, `${at}${at ? '.' : ''}reportVersion`);
     }
     const checked = ReportSchema.safeParse(item);
     if (!checked.success) {
