@@ -36,6 +36,24 @@ describe('documented examples run as written', () => {
   });
 });
 
+describe('README.md is the front door', () => {
+  const readme = readFileSync(join(ROOT, 'README.md'), 'utf8');
+  it('starts with one paragraph stating the job, then the cautions', () => {
+    const [title, job, caution] = readme.split(/\n\s*\n/);
+    expect(title).toBe('# strainledger');
+    expect(job).toMatch(/^Process engineers who cold-form metal/);
+    expect(caution).toMatch(/^> \*\*Caution\.\*\*[\s\S]*codes, standards and licensed engineering practice/);
+  });
+  it('links every reference page (issue 13 and the pages other helpers add)', () => {
+    for (const p of ['plan-file', 'runner', 'records-and-fits', 'reversal-and-springback', 'process-planning', 'scatter', 'library', 'bases-and-units', 'hardness', 'tempers-and-anneals']) {
+      expect(readme).toContain(`](docs/${p}.md)`);
+    }
+  });
+  it('stays short: the reference lives in docs/', () => {
+    expect(Buffer.byteLength(readme)).toBeLessThan(10_000);
+  });
+});
+
 describe('the docs test itself catches a broken example (file and line)', () => {
   const dir = mkdtempSync(join(tmpdir(), 'sl-docs-self-'));
   afterAll(() => rmSync(dir, { recursive: true, force: true }));
