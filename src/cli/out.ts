@@ -65,3 +65,15 @@ export function writeOutput(target: string, data: string): void {
   mkdirSync(resolve(target, '..'), { recursive: true });
   writeFileAtomic(target, data);
 }
+
+/**
+ * Checks a single output file before any work: it may exist (it is replaced atomically) but must not
+ * be a folder. @throws PlanError (exit 2) naming `--out`.
+ */
+export function checkOutFile(file: string): void {
+  try {
+    if (statSync(resolve(file)).isDirectory()) throw new PlanError([{ file, path: '--out', message: 'is a folder; allowed a path for the merged report file' }]);
+  } catch (e) {
+    if (e instanceof PlanError) throw e;
+  }
+}

@@ -77,7 +77,7 @@ export interface LoadedDesignSpec {
  */
 export function loadDesignSpecText(text: string, file = 'spec.json', format = formatOf(file)): LoadedDesignSpec {
   const loc = parseLocated(text, file, format, parseYamlLocated);
-  const doc = validateWith(DesignSpecSchema, loc, file, 'README.md, "Process planning"');
+  const doc = validateWith(DesignSpecSchema, loc, file, 'docs/process-planning.md, "Route design"');
   const units = unitsOf(doc.units);
   const spec = withLocation(file, loc, () => {
     // The material is checked exactly as a plan's (law ranges, modulus decay).

@@ -103,13 +103,13 @@ describe('strainledger design SPEC', () => {
   });
 });
 
-describe('README: the design specification shown in "Process planning" is a valid, feasible spec', () => {
+describe('docs/process-planning.md: the design specification shown in "Route design" is a valid, feasible spec', () => {
   it('loads with loadDesignSpecText and designs the same best route as the example file', async () => {
     const { loadDesignSpecText, runDesign } = await import('../../src/plan/designSpec.js');
-    const readme = readFileSync(join(ROOT, 'README.md'), 'utf8');
-    const section = readme.slice(readme.indexOf('## Process planning'));
+    const page = readFileSync(join(ROOT, 'docs', 'process-planning.md'), 'utf8');
+    const section = page.slice(page.indexOf('## Route design'));
     const block = /```yaml\n([\s\S]*?)```/.exec(section)![1]!;
-    const fromReadme = runDesign(loadDesignSpecText(block, 'README.yaml'));
+    const fromReadme = runDesign(loadDesignSpecText(block, 'process-planning.yaml'));
     const fromFile = runDesign(loadDesignSpecText(readFileSync(join(ROOT, EXAMPLE), 'utf8'), EXAMPLE));
     expect(fromReadme.feasible).toBe(true);
     expect(fromReadme.routes[0]!.steps).toEqual(fromFile.routes[0]!.steps);

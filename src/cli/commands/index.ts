@@ -18,5 +18,6 @@ export const COMMANDS: readonly CommandEntry[] = [
   { name: 'analyze', load: async () => (await import('./analyze.js')).analyze },
   { name: 'tolerance-factor', load: async () => (await import('./tolerance-factor.js')).toleranceFactor },
   { name: 'path', load: async () => (await import('./path.js')).path },
+  { name: 'merge', load: async () => (await import('./merge.js')).merge },
   { name: 'kinematic', load: async () => (await import('./kinematic.js')).kinematic },
 ];

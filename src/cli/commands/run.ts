@@ -23,6 +23,7 @@ export const run = defineCommand({
     set: { type: 'string', multiple: true, default: [], value: 'PATH=VALUE', help: 'change one plan field before it is checked, e.g. steps[0].thickness=1.2' },
     sweep: { type: 'string', value: 'PATH=FROM:TO:STEP', help: 'evaluate one plan over a range of one field; one row per value' },
     jobs: { type: 'string', short: 'j', default: '1', value: 'N', help: 'plans (or scatter blocks) evaluated on N worker threads' },
+    shard: { type: 'string', value: 'K/N', help: 'run only the K-th of N shares of the sorted plan list (one CI matrix job each; combine with merge)' },
     'no-progress': { type: 'boolean', default: false, help: 'no progress bar (it shows only on a terminal, never under CI)' },
   },
   details: 'exit codes: 0 all targets met, 1 a target is not met, 2 invalid input (the worst over all plans)',
@@ -37,6 +38,9 @@ export const run = defineCommand({
     const { parseSet, parseSweep } = await import('../overrides.js');
     const overrides = values.set!.map(parseSet);
     const sweep = values.sweep !== undefined ? parseSweep(values.sweep) : undefined;
+    const { parseShard, shardOf } = await import('../shard.js');
+    const shard = values.shard !== undefined ? parseShard(values.shard) : undefined;
+    if (shard && sweep) throw cliError('--shard', `got --shard ${values.shard} with --sweep, allowed --shard for a list of plans (a sweep is one plan)`);
     const { checkOutDir } = await import('../out.js');
     if (values.out !== undefined) checkOutDir(values.out);
 
@@ -49,6 +53,11 @@ export const run = defineCommand({
       if (found.length === 0) throw cliError('PLAN', `the pattern ${JSON.stringify(p)} matched no file, allowed a pattern matching at least one plan`);
       files.push(...found);
     }
+    // A shard: the K-th share of the sorted, de-duplicated list (src/cli/shard.ts). Its output always
+    // has the batch form (a JSON array, one JUnit document, a summary table), whatever its size, so
+    // that `merge` combines shards of 0, 1 or many plans alike.
+    const planned = shard ? shardOf(files, shard) : files;
+    if (shard) files.splice(0, files.length, ...planned);
     const color = useColor(io);
     const progressOn = !values['no-progress'];
     const { startProgress } = await import('../progress.js');
@@ -77,7 +86,7 @@ export const run = defineCommand({
     }
 
     // One plan: evaluated here; invalid input is thrown (exit 2) before anything is written.
-    if (files.length === 1) {
+    if (files.length === 1 && !shard) {
       const [{ readPlan, evaluateSource }, { render }, { planOutputs, writeOutput }] = await Promise.all([import('../evaluate.js'), import('../render.js'), import('../out.js')]);
       const target = values.out !== undefined ? planOutputs(values.out, files, EXTENSION[format]).get(files[0]!)! : undefined;
       // A scatter section is sampled on --jobs worker threads (the numbers do not depend on how many).

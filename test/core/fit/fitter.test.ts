@@ -152,7 +152,7 @@ describe('fitAllLaws(strain, stress)', () => {
     expect(c.fits.map((f) => f.law)).toEqual(LAW_NAMES);
     const conv = c.fits.filter((f) => f.converged);
     expect(c.best).toBe(conv.reduce((a, b) => (b.aic < a.aic ? b : a)).law);
-    // Spread at 5× the fitted range: Voce saturates, Ludwik/Swift keep rising (CAUTIONS; README).
+    // Spread at 5× the fitted range: Voce saturates, Ludwik/Swift keep rising (CAUTIONS; docs/records-and-fits.md).
     const at5 = c.extrapolation[1]!;
     const vals = c.goodLaws.map((l) => at5.stress[l]!);
     expectRelClose(at5.spreadPct, (Math.max(...vals) / Math.min(...vals) - 1) * 100, 1e-12, 'spread');

@@ -3,16 +3,16 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadPlanText, runPlan } from '../../src/plan/load.js';
 
-// The plan shown in the README section "Reversal and springback" is run as written (documented
+// The plan shown in docs/reversal-and-springback.md ("Plan fields") is run as written (documented
 // examples are tests, STYLE.md).
 const ROOT = join(import.meta.dirname, '..', '..');
 
-describe('README: the reversal-and-springback plan block is a valid plan that runs', () => {
+describe('docs/reversal-and-springback.md: the plan-fields block is a valid plan that runs', () => {
   it('loads, evaluates, and reports reverse yield and springback', () => {
-    const readme = readFileSync(join(ROOT, 'README.md'), 'utf8');
-    const section = readme.slice(readme.indexOf('## Reversal and springback'));
+    const page = readFileSync(join(ROOT, 'docs', 'reversal-and-springback.md'), 'utf8');
+    const section = page.slice(page.indexOf('## Plan fields'));
     const block = /```json\n([\s\S]*?)```/.exec(section)![1]!;
-    const plan = loadPlanText(block, 'README.json');
+    const plan = loadPlanText(block, 'reversal-and-springback.json');
     const led = runPlan(plan);
     expect(led.rows.map((r) => r.kind)).toEqual(['strain', 'reverse', 'bend']);
     expect(led.rows[1]!.reverseReloadYield).toBeGreaterThan(0);
