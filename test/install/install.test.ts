@@ -88,6 +88,11 @@ describe('the packed tarball', () => {
     // Run-time dependencies are what the library imports; notebook and runner-bundle libraries are not.
     expect(Object.keys(pkg.dependencies).sort()).toEqual(['@observablehq/plot', 'csv-parse', 'simple-statistics', 'yaml', 'zod']);
   });
+  it('npm publish --dry-run passes (nothing is published)', () => {
+    const r = sh('npm', ['publish', '--dry-run', '--ignore-scripts'], ROOT);
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout + r.stderr).toContain(`${PKG.name}@${PKG.version}`);
+  });
 });
 
 describe('npx strainledger in the user project (the README\'s CI commands)', () => {
