@@ -1,41 +1,82 @@
 import { formatProblem, PlanError } from '../plan/problems.js';
+import { commandHelp, didYouMean, parseCommandArgs, synopsis, UsageError } from './args.js';
+import type { Command, OptionSpecs } from './command.js';
 import { COMMANDS } from './commands/index.js';
 import type { Io } from './io.js';
+import { TOOL } from './version.js';
 
 export type { Io } from './io.js';
 
 /** Exit codes of the runner (DESIGN.md §5). */
 export const EXIT = { ok: 0, targetMissed: 1, invalid: 2, internal: 3 } as const;
 
-/** The usage text of every command (loads every command module; only for `help` and argument errors). */
+const NAMES = [...COMMANDS.map((c) => c.name), 'help'];
+const GLOBAL_OPTIONS = ['--help', '-h', '--version', '-V'];
+
+/** The overview: every command's synopsis and summary (loads every command module; only for `help`). */
 export async function usage(): Promise<string> {
-  const cmds = await Promise.all(COMMANDS.map((c) => c.load()));
-  return ['usage:', ...cmds.map((c) => `  strainledger ${c.usage}`), '  strainledger help                this text'].join('\n');
+  const cmds = (await Promise.all(COMMANDS.map((c) => c.load()))) as Command<OptionSpecs>[];
+  return [
+    `usage: strainledger COMMAND [options]   (${TOOL})`,
+    '',
+    'commands:',
+    ...cmds.flatMap((c) => [`  ${synopsis(c)}`, `      ${c.summary}`]),
+    '  strainledger help [COMMAND]',
+    '      this text, or one command\'s options (same as strainledger COMMAND --help)',
+    '',
+    'options: -h, --help (on every command), -V, --version',
+    'exit codes: 0 done (every target met), 1 a target is not met, 2 invalid input, 3 internal error',
+    '',
+  ].join('\n');
+}
+
+function unknownCommand(name: string, io: Io): number {
+  const what = name.startsWith('-') ? 'option' : 'command';
+  const allowed = name.startsWith('-') ? GLOBAL_OPTIONS : NAMES;
+  io.stderr(`strainledger: unknown ${what} ${JSON.stringify(name)}; ${didYouMean(name, allowed, (s) => JSON.stringify(s))}allowed ${allowed.join(', ')}\n`);
+  return EXIT.invalid;
 }
 
 /** The runner: returns the exit code; never throws, never prints a stack trace for bad input. */
 export async function main(argv: string[], io: Io): Promise<number> {
   const [name, ...rest] = argv;
-  if (name === undefined || name === 'help' || name === '--help' || name === '-h') {
-    io.stdout((await usage()) + '\n');
-    return name === undefined ? EXIT.invalid : EXIT.ok;
-  }
-  const entry = COMMANDS.find((c) => c.name === name);
-  if (!entry) {
-    io.stderr(`strainledger: unknown command ${JSON.stringify(name)}; allowed ${COMMANDS.map((c) => c.name).join(', ')}, help\n`);
+  if (name === undefined) {
+    io.stderr(await usage());
     return EXIT.invalid;
   }
+  if (name === '--version' || name === '-V') {
+    io.stdout(`${TOOL}\n`);
+    return EXIT.ok;
+  }
+  if (name === 'help' || name === '--help' || name === '-h') {
+    const topic = rest[0];
+    if (topic === undefined) {
+      io.stdout(await usage());
+      return EXIT.ok;
+    }
+    const entry = COMMANDS.find((c) => c.name === topic);
+    if (!entry) return unknownCommand(topic, io);
+    io.stdout(commandHelp((await entry.load()) as Command<OptionSpecs>));
+    return EXIT.ok;
+  }
+  const entry = COMMANDS.find((c) => c.name === name);
+  if (!entry) return unknownCommand(name, io);
+  let cmd: Command<OptionSpecs> | undefined;
   try {
-    const cmd = await entry.load();
-    return await cmd.run(rest, io);
+    cmd = (await entry.load()) as Command<OptionSpecs>;
+    const input = parseCommandArgs(cmd, rest);
+    if (input === 'help') {
+      io.stdout(commandHelp(cmd));
+      return EXIT.ok;
+    }
+    return await cmd.run(input, io);
   } catch (e) {
-    if (e instanceof PlanError) {
-      io.stderr(e.problems.map(formatProblem).join('\n') + '\n');
+    if (e instanceof UsageError && cmd) {
+      io.stderr(`strainledger ${name}: ${e.message}\nusage: ${synopsis(cmd)}\n(strainledger ${name} --help lists every option)\n`);
       return EXIT.invalid;
     }
-    const code = (e as { code?: string }).code;
-    if (typeof code === 'string' && code.startsWith('ERR_PARSE_ARGS')) {
-      io.stderr(`strainledger ${name}: ${(e as Error).message}\n${await usage()}\n`);
+    if (e instanceof PlanError) {
+      io.stderr(e.problems.map(formatProblem).join('\n') + '\n');
       return EXIT.invalid;
     }
     io.stderr(`strainledger: internal error: ${(e as Error).message}\n`);

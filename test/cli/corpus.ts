@@ -141,5 +141,5 @@ export const CORPUS: BadCase[] = [
   jsonCase('--sweep with a zero step', BASE, /--sweep: got STEP 0, allowed a number > 0/, ['--sweep', 'steps[0].thickness=1:1.5:0']),
   jsonCase('an unknown format', BASE, /--format: got "pdf", allowed one of table, json, csv, md, html, junit/, ['--format', 'pdf']),
   jsonCase('--jobs 0', BASE, /--jobs: got 0, allowed 1 to \d+/, ['--jobs', '0']),
-  { ...jsonCase('an unknown option', BASE, /strainledger run: Unknown option '--colour'/, ['--colour']), usage: true },
+  { ...jsonCase('an unknown option', BASE, /strainledger run: unknown option '--colour'/, ['--colour']), usage: true },
 ];

@@ -191,7 +191,10 @@ describe('merge refuses what it cannot combine (exit 2, naming the file)', () =>
 });
 
 describe('help', () => {
-  it('lists merge with its usage line', () => {
-    expect(execFileSync(process.execPath, [BIN, 'help'], { cwd: ROOT, encoding: 'utf8' })).toMatch(/merge REPORT\.\.\. \[--out FILE\]/);
+  it('merge --help and run --help show the declared options', () => {
+    const m = execFileSync(process.execPath, [BIN, 'merge', '--help'], { cwd: ROOT, encoding: 'utf8' });
+    expect(m).toContain('usage: strainledger merge REPORT... [options]');
+    expect(m).toMatch(/-o, --out FILE/);
+    expect(execFileSync(process.execPath, [BIN, 'run', '--help'], { cwd: ROOT, encoding: 'utf8' })).toMatch(/--shard K\/N +run only the K-th of N shares/);
   });
 });

@@ -1,4 +1,3 @@
-import { parseArgs } from 'node:util';
 import { LAW_NAMES, LAW_PARAMETERS } from '../../core/flow/params.js';
 import type { LawName } from '../../core/flow/types.js';
 import type { LawFit } from '../../core/fit/types.js';
@@ -9,7 +8,7 @@ import { unitsOf } from '../../plan/units.js';
 import { CAUTIONS } from '../../report/cautions.js';
 import type { RecordOptions, TensileRecord } from '../../records/builder.js';
 import type { Role } from '../../records/columns.js';
-import type { Command } from '../command.js';
+import { defineCommand } from '../command.js';
 
 const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
 
@@ -106,44 +105,37 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   return lines.join('\n') + '\n';
 }
 
-export const analyze: Command = {
+export const analyze = defineCommand({
   name: 'analyze',
-  usage: [
-    'analyze RECORD... [--format json|table] [--law NAME] [--material-block] [--material-out FILE] [--units SI|US]',
-    '      [--offset PCT] [--n-range FROM,TO] [--check-strain X]... [--disagreement PCT] [--modulus MPA] [--residuals]',
-    '      [--column ROLE=NAME]... [--delimiter , ; tab] [--decimal . ,] [--stress-unit U] [--force-unit U] [--length-unit U] [--strain-unit fraction|percent]',
-    '      [--area MM2] [--diameter MM] [--width MM] [--thickness MM] [--gauge-length MM]',
-    '      tensile records: standard properties, every law fitted with statistics; exit 2 for an invalid record',
-  ].join('\n'),
-  async run(args, io) {
-    const { values, positionals } = parseArgs({
-      args, allowPositionals: true, strict: true,
-      options: {
-        format: { type: 'string', default: 'table' },
-        law: { type: 'string' },
-        'material-block': { type: 'boolean', default: false },
-        'material-out': { type: 'string' },
-        units: { type: 'string', default: 'SI' },
-        offset: { type: 'string' },
-        'n-range': { type: 'string' },
-        'check-strain': { type: 'string', multiple: true, default: [] },
-        disagreement: { type: 'string' },
-        modulus: { type: 'string' },
-        residuals: { type: 'boolean', default: false },
-        column: { type: 'string', multiple: true, default: [] },
-        delimiter: { type: 'string' },
-        decimal: { type: 'string' },
-        'stress-unit': { type: 'string' },
-        'force-unit': { type: 'string' },
-        'length-unit': { type: 'string' },
-        'strain-unit': { type: 'string' },
-        area: { type: 'string' },
-        diameter: { type: 'string' },
-        width: { type: 'string' },
-        thickness: { type: 'string' },
-        'gauge-length': { type: 'string' },
-      },
-    });
+  summary: 'tensile records: standard properties (E, Rp0.2, Rm, Ag, n-value) and every law fitted with statistics',
+  args: 'RECORD...',
+  details: 'exit codes: 0 analysed, 2 invalid record or option',
+  options: {
+    format: { type: 'string', default: 'table', value: 'FORMAT', help: 'output, one of table, json' },
+    law: { type: 'string', value: 'LAW', help: `the law for the material block, one of ${LAW_NAMES.join(', ')} (default: the best by AIC)` },
+    'material-block': { type: 'boolean', default: false, help: 'print a plan `material` block from the fit, ready to paste into a plan' },
+    'material-out': { type: 'string', value: 'FILE', help: 'write that material block to FILE (atomically)' },
+    units: { type: 'string', default: 'SI', value: 'SI|US', help: 'units of the material block: SI (MPa) or US (ksi)' },
+    offset: { type: 'string', value: 'PCT', help: 'proof-strength offset in percent strain, 0.01 to 5 (default 0.2: Rp0.2)' },
+    'n-range': { type: 'string', value: 'FROM,TO', help: 'engineering strain range (fractions) of the n-value fit, e.g. 0.1,0.2' },
+    'check-strain': { type: 'string', multiple: true, default: [], value: 'X', help: 'true plastic strain at which the fitted laws are compared when extrapolated' },
+    disagreement: { type: 'string', value: 'PCT', help: 'spread between good laws, in percent, above which they are reported as disagreeing (default 10)' },
+    modulus: { type: 'string', value: 'MPA', help: "Young's modulus in MPa to use instead of the one fitted to the record" },
+    residuals: { type: 'boolean', default: false, help: 'include each fit\'s residuals in the JSON output' },
+    column: { type: 'string', multiple: true, default: [], value: 'ROLE=NAME', help: 'which column holds a role (strain, stress, force, extension, time), by header name or number' },
+    delimiter: { type: 'string', value: ', ; tab', help: 'field separator of the record (default: detected)' },
+    decimal: { type: 'string', value: '. ,', help: 'decimal mark of the record (default: detected)' },
+    'stress-unit': { type: 'string', value: 'UNIT', help: 'unit of the stress column when the record does not say, e.g. MPa, ksi' },
+    'force-unit': { type: 'string', value: 'UNIT', help: 'unit of the force column when the record does not say, e.g. N, kN, lbf' },
+    'length-unit': { type: 'string', value: 'UNIT', help: 'unit of the extension column and sizes when the record does not say, e.g. mm, in' },
+    'strain-unit': { type: 'string', value: 'fraction|percent', help: 'unit of the strain column when the record does not say' },
+    area: { type: 'string', value: 'MM2', help: 'specimen cross-section (for a force column), in mm²' },
+    diameter: { type: 'string', value: 'MM', help: 'round specimen diameter (for a force column), in mm' },
+    width: { type: 'string', value: 'MM', help: 'flat specimen width (with --thickness), in mm' },
+    thickness: { type: 'string', value: 'MM', help: 'flat specimen thickness (with --width), in mm' },
+    'gauge-length': { type: 'string', value: 'MM', help: 'extensometer gauge length (for an extension column), in mm' },
+  },
+  async run({ values, positionals }, io) {
     if (positionals.length === 0) throw cliError('RECORD', 'got no record file, allowed one or more tensile record files (CSV or tab-separated)');
     const format = values.format!;
     if (format !== 'json' && format !== 'table') throw cliError('--format', `got ${JSON.stringify(format)}, allowed one of json, table`);
@@ -252,4 +244,4 @@ export const analyze: Command = {
     }
     return 0;
   },
-};
+});

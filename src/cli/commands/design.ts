@@ -1,11 +1,10 @@
 import { mkdirSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
-import { parseArgs } from 'node:util';
 import type { DesignResult, DesignedRoute } from '../../core/process/designRoute.js';
 import { loadDesignSpecText, routeToPlan, runDesign, type LoadedDesignSpec } from '../../plan/designSpec.js';
 import { PlanError } from '../../plan/problems.js';
 import { CAUTIONS } from '../../report/cautions.js';
-import type { Command } from '../command.js';
+import { defineCommand } from '../command.js';
 import { readText, writeFileAtomic } from '../io.js';
 
 const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
@@ -57,14 +56,16 @@ function table(spec: LoadedDesignSpec, res: DesignResult): string {
  * Exit 0 when at least one route is found, 1 when the specification is valid but no route meets it
  * (the binding limit is explained), 2 for invalid input.
  */
-export const design: Command = {
+export const design = defineCommand({
   name: 'design',
-  usage: [
-    'design SPEC [--format table|json] [--out DIR]',
-    '      propose ranked routes (passes, anneals, final temper reduction) for a design specification; --out writes each as a plan file; exit 0 routes found, 1 none feasible, 2 invalid input',
-  ].join('\n'),
-  run(args, io) {
-    const { values, positionals } = parseArgs({ args, allowPositionals: true, strict: true, options: { format: { type: 'string', default: 'table' }, out: { type: 'string' } } });
+  summary: 'propose ranked routes (passes, anneals, final temper reduction) for a design specification',
+  args: 'SPEC',
+  details: 'exit codes: 0 routes found, 1 none feasible (the binding limit is explained), 2 invalid input',
+  options: {
+    format: { type: 'string', default: 'table', value: 'FORMAT', help: 'output, one of table, json' },
+    out: { type: 'string', value: 'DIR', help: 'write each proposed route as a plan file SPEC-route-RANK.json into DIR' },
+  },
+  run({ values, positionals }, io) {
     if (positionals.length !== 1) throw cliError('SPEC', `got ${positionals.length} specification files, allowed exactly one`);
     const format = values.format!;
     if (format !== 'table' && format !== 'json') throw cliError('--format', `got ${JSON.stringify(format)}, allowed one of table, json`);
@@ -108,4 +109,4 @@ export const design: Command = {
     }
     return res.feasible ? 0 : 1;
   },
-};
+});

@@ -1,4 +1,3 @@
-import { parseArgs } from 'node:util';
 import { fitKinematic, KINEMATIC_FIT_BOUNDS, type KinematicFit } from '../../core/path/fitKinematic.js';
 import { trueCurve } from '../../core/tensile/trueCurve.js';
 import { loadPlanOrMaterial } from '../../plan/material.js';
@@ -6,7 +5,7 @@ import { PlanError } from '../../plan/problems.js';
 import { withLocation } from '../../plan/resolve.js';
 import { readRecordFile } from '../../records/node.js';
 import { CAUTIONS } from '../../report/cautions.js';
-import type { Command } from '../command.js';
+import { defineCommand } from '../command.js';
 import { readText, writeFileAtomic } from '../io.js';
 
 const CLI = '(command line)';
@@ -20,22 +19,18 @@ const CLI = '(command line)';
  * fitted `kinematic` block (atomically), ready for a plan. Exit 0 fitted; 1 the fit did not converge;
  * 2 invalid input.
  */
-export const kinematic: Command = {
+export const kinematic = defineCommand({
   name: 'kinematic',
-  usage: [
-    'kinematic PLAN_OR_MATERIAL RECORD [--backstresses 1|2|3] [--values engineering|true] [--format table|json] [--material-out FILE]',
-    '      fit Armstrong–Frederick backstresses (C, γ) to a record with a reversal; the material\'s flow curve and E are kept',
-  ].join('\n'),
-  async run(args, io) {
-    const { values, positionals } = parseArgs({
-      args, allowPositionals: true, strict: true,
-      options: {
-        backstresses: { type: 'string', default: '1' },
-        values: { type: 'string', default: 'engineering' },
-        format: { type: 'string', default: 'table' },
-        'material-out': { type: 'string' },
-      },
-    });
+  summary: "fit Armstrong–Frederick backstresses (C, γ) to a record with a reversal; the material's flow curve and E are kept",
+  args: 'PLAN_OR_MATERIAL RECORD',
+  details: 'exit codes: 0 fitted, 1 the fit did not converge, 2 invalid input',
+  options: {
+    backstresses: { type: 'string', default: '1', value: '1|2|3', help: 'number of Armstrong–Frederick backstresses to fit' },
+    values: { type: 'string', default: 'engineering', value: 'engineering|true', help: 'how the record gives stress and strain (engineering values are converted at constant volume)' },
+    format: { type: 'string', default: 'table', value: 'FORMAT', help: 'output, one of table, json' },
+    'material-out': { type: 'string', value: 'FILE', help: 'write the material with its fitted kinematic block to FILE (atomically)' },
+  },
+  async run({ values, positionals }, io) {
     if (positionals.length !== 2) throw new PlanError([{ file: CLI, path: 'PLAN_OR_MATERIAL RECORD', message: `got ${positionals.length} files, allowed exactly two: the material (or a plan) and the record` }]);
     const k = values.backstresses!;
     if (!/^[123]$/.test(k)) throw new PlanError([{ file: CLI, path: '--backstresses', message: `got ${JSON.stringify(k)}, allowed 1, 2 or 3` }]);
@@ -96,4 +91,4 @@ export const kinematic: Command = {
     }
     return fit.converged ? 0 : 1;
   },
-};
+});

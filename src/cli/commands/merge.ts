@@ -1,6 +1,5 @@
-import { parseArgs } from 'node:util';
 import { PlanError, type Problem } from '../../plan/problems.js';
-import type { Command } from '../command.js';
+import { defineCommand } from '../command.js';
 
 const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
 const fileError = (file: string, message: string, path = '') => new PlanError([{ file, path, message }]);
@@ -130,17 +129,19 @@ function mergedText(kind: Kind, entries: readonly Entry[]): string {
  * same rule as `run`. Refused with exit 2, naming the file: a file of the other kind than the first,
  * a report version other than 1, a report that is not report v1, a plan found in two files.
  */
-export const merge: Command = {
+export const merge = defineCommand({
   name: 'merge',
-  usage: [
-    'merge REPORT... [--out FILE]',
-    '      combine the JSON reports or JUnit files of the shards of one run (run --shard K/N) into one; exit as run: the worst over all plans',
+  summary: 'combine the JSON reports or the JUnit files of the shards of one run (run --shard K/N) into the one document a single run writes',
+  args: 'REPORT...',
+  options: {
+    out: { type: 'string', short: 'o', value: 'FILE', help: 'write the merged report to this file (atomically; never over one of its inputs) instead of stdout' },
+  },
+  details: [
+    'REPORT... are JSON reports (run --format json) or JUnit files (run --format junit), not both; quoted globs are expanded.',
+    'Entries are sorted by plan file, the order --shard splits; a plan found in two files is refused.',
+    'exit codes: the worst over all plans, as run: 0 all targets met, 1 a target is not met, 2 an invalid plan or invalid input, 3 an internal error',
   ].join('\n'),
-  async run(args, io) {
-    const { values, positionals } = parseArgs({
-      args, allowPositionals: true, strict: true,
-      options: { out: { type: 'string', short: 'o' } },
-    });
+  async run({ values, positionals }, io) {
     if (positionals.length === 0) throw cliError('REPORT', 'got no report file, allowed one or more JSON reports or JUnit files (or quoted globs)');
     const files: string[] = [];
     for (const p of positionals) {
@@ -193,4 +194,4 @@ export const merge: Command = {
     }
     return worst;
   },
-};
+});

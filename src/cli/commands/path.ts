@@ -1,10 +1,9 @@
-import { parseArgs } from 'node:util';
 import { integratePath } from '../../core/path/integrate.js';
 import { withLocation } from '../../plan/resolve.js';
 import { loadPlanOrMaterial } from '../../plan/material.js';
 import { PlanError } from '../../plan/problems.js';
 import { CAUTIONS } from '../../report/cautions.js';
-import type { Command } from '../command.js';
+import { defineCommand } from '../command.js';
 import { readText, writeFileAtomic } from '../io.js';
 
 const CLI = '(command line)';
@@ -25,14 +24,18 @@ function parseHistory(s: string): number[] {
  * the annealed state at 0) by the 1-D return-mapping integrator, with the plan's kinematic parameters
  * when it has them. Stresses in the plan's unit. Exit 0 ok; 1 an increment missed its tolerance; 2 invalid input.
  */
-export const path: Command = {
+export const path = defineCommand({
   name: 'path',
-  usage: 'path PLAN_OR_MATERIAL --history "0.02,0,-0.02" [--increment H] [--format json|csv] [--out FILE]   stress–strain points of a strain history',
-  run(args, io) {
-    const { values, positionals } = parseArgs({
-      args, allowPositionals: true, strict: true,
-      options: { history: { type: 'string' }, format: { type: 'string', default: 'json' }, increment: { type: 'string' }, out: { type: 'string' } },
-    });
+  summary: 'stress–strain points of a strain history (1-D return mapping, with the material\'s backstresses when it has them)',
+  args: 'PLAN_OR_MATERIAL',
+  details: 'stresses in the plan\'s unit. exit codes: 0 done, 1 an increment missed its tolerance, 2 invalid input',
+  options: {
+    history: { type: 'string', value: 'STRAINS', help: 'comma-separated total true strains to reach in order from the annealed state, e.g. "0.02,0,-0.02" (required)' },
+    increment: { type: 'string', value: 'H', help: 'largest strain increment of the integrator, 1e-7 to 0.05' },
+    format: { type: 'string', default: 'json', value: 'FORMAT', help: 'output, one of json, csv' },
+    out: { type: 'string', value: 'FILE', help: 'write the points to FILE (atomically) instead of stdout' },
+  },
+  run({ values, positionals }, io) {
     if (positionals.length !== 1) throw new PlanError([{ file: CLI, path: 'PLAN_OR_MATERIAL', message: `got ${positionals.length} files, allowed exactly one` }]);
     const format = values.format!;
     if (format !== 'json' && format !== 'csv') throw new PlanError([{ file: CLI, path: '--format', message: `got ${JSON.stringify(format)}, allowed one of json, csv` }]);
@@ -79,4 +82,4 @@ export const path: Command = {
     }
     return 0;
   },
-};
+});

@@ -1,7 +1,7 @@
-import { parseArgs } from 'node:util';
 import { PlanError } from '../../plan/problems.js';
-import type { Command } from '../command.js';
+import { defineCommand } from '../command.js';
 import type { Outcome } from '../batch.js';
+import { useColor } from '../color.js';
 import { EXTENSION, FORMATS, type Format } from '../render.js';
 
 const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
@@ -13,26 +13,21 @@ const GLOB_CHARS = /[*?[\]{}]/;
  * resolve, ledger, report — hooks on the plan, such as fitting a named record, belong there); heavy modules are imported only once the arguments are known to be
  * valid and only for the format asked for, to keep the start-up short.
  */
-export const run: Command = {
+export const run = defineCommand({
   name: 'run',
-  usage: [
-    'run PLAN... [--format table|json|csv|md|html|junit] [--out DIR] [--set PATH=VALUE]... [--sweep PATH=FROM:TO:STEP] [--jobs N] [--shard K/N] [--no-progress]',
-    '      evaluate plans (files or quoted globs); exit 0 all targets met, 1 a target missed, 2 invalid input (the worst over all plans);',
-    '      --shard K/N runs the K-th of N shares of the sorted plan list (one CI matrix job each; combine with `merge`)',
-  ].join('\n'),
-  async run(args, io) {
-    const { values, positionals } = parseArgs({
-      args, allowPositionals: true, strict: true,
-      options: {
-        format: { type: 'string', short: 'f', default: 'table' },
-        out: { type: 'string', short: 'o' },
-        set: { type: 'string', multiple: true, default: [] },
-        sweep: { type: 'string' },
-        jobs: { type: 'string', short: 'j', default: '1' },
-        shard: { type: 'string' },
-        'no-progress': { type: 'boolean', default: false },
-      },
-    });
+  summary: 'evaluate plans (files or quoted globs) through their routes and check their targets',
+  args: 'PLAN...',
+  options: {
+    format: { type: 'string', short: 'f', default: 'table', value: 'FORMAT', help: `report format, one of ${FORMATS.join(', ')}` },
+    out: { type: 'string', short: 'o', value: 'DIR', help: 'write one report file per plan into this folder (created when missing)' },
+    set: { type: 'string', multiple: true, default: [], value: 'PATH=VALUE', help: 'change one plan field before it is checked, e.g. steps[0].thickness=1.2' },
+    sweep: { type: 'string', value: 'PATH=FROM:TO:STEP', help: 'evaluate one plan over a range of one field; one row per value' },
+    jobs: { type: 'string', short: 'j', default: '1', value: 'N', help: 'plans (or scatter blocks) evaluated on N worker threads' },
+    shard: { type: 'string', value: 'K/N', help: 'run only the K-th of N shares of the sorted plan list (1-based; one CI matrix job each; combine the reports with merge)' },
+    'no-progress': { type: 'boolean', default: false, help: 'no progress bar (it shows only on a terminal, never under CI)' },
+  },
+  details: 'exit codes: 0 all targets met, 1 a target is not met, 2 invalid input (the worst over all plans)',
+  async run({ values, positionals }, io) {
     const format = values.format as Format;
     if (!FORMATS.includes(format)) throw cliError('--format', `got ${JSON.stringify(values.format)}, allowed one of ${FORMATS.join(', ')}`);
     if (!/^\d+$/.test(values.jobs!)) throw cliError('--jobs', `got ${JSON.stringify(values.jobs)}, allowed a whole number ≥ 1`);
@@ -63,7 +58,7 @@ export const run: Command = {
     // that `merge` combines shards of 0, 1 or many plans alike.
     const planned = shard ? shardOf(files, shard) : files;
     if (shard) files.splice(0, files.length, ...planned);
-    const color = io.isTTY && !process.env.NO_COLOR;
+    const color = useColor(io);
     const progressOn = !values['no-progress'];
     const { startProgress } = await import('../progress.js');
 
@@ -147,4 +142,4 @@ export const run: Command = {
     } else io.stdout(summary.summaryTable(outcomes, color));
     return summary.worstExit(outcomes);
   },
-};
+});

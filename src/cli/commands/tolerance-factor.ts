@@ -1,9 +1,8 @@
-import { parseArgs } from 'node:util';
 import { InputError } from '../../core/errors.js';
 import { orderStatisticLowerRank } from '../../core/scatter/orderStatisticBound.js';
 import { normalToleranceFactor } from '../../core/scatter/toleranceFactor.js';
 import { PlanError } from '../../plan/problems.js';
-import type { Command } from '../command.js';
+import { defineCommand } from '../command.js';
 
 const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
 
@@ -23,15 +22,16 @@ function numberOption(name: string, v: string | undefined, fallback: number | un
  * the fraction P of a normal population with confidence G, from n tests; and the rank of the
  * distribution-free (order-statistic) bound where n is large enough.
  */
-export const toleranceFactor: Command = {
+export const toleranceFactor = defineCommand({
   name: 'tolerance-factor',
-  usage: 'tolerance-factor --n N [--coverage 0.90] [--confidence 0.95] [--json]   one-sided normal tolerance factor k (x̄ − k·s is the lower bound)',
-  run(args, io) {
-    const { values, positionals } = parseArgs({
-      args, allowPositionals: true, strict: true,
-      options: { n: { type: 'string' }, coverage: { type: 'string' }, confidence: { type: 'string' }, json: { type: 'boolean', default: false } },
-    });
-    if (positionals.length > 0) throw cliError('arguments', `got ${JSON.stringify(positionals.join(' '))}, allowed only the options --n, --coverage, --confidence, --json`);
+  summary: 'one-sided normal tolerance factor k (x̄ − k·s is the lower bound) and the distribution-free rank',
+  options: {
+    n: { type: 'string', value: 'N', help: 'number of tests (sample size), required' },
+    coverage: { type: 'string', value: 'P', help: 'fraction of the population above the bound, e.g. 0.90 (default 0.9)' },
+    confidence: { type: 'string', value: 'G', help: 'confidence level, e.g. 0.95 (default 0.95)' },
+    json: { type: 'boolean', default: false, help: 'print the result as JSON' },
+  },
+  run({ values }, io) {
     const n = numberOption('n', values.n, undefined);
     const coverage = numberOption('coverage', values.coverage, 0.9);
     const confidence = numberOption('confidence', values.confidence, 0.95);
@@ -63,4 +63,4 @@ export const toleranceFactor: Command = {
     ].join('\n'));
     return 0;
   },
-};
+});
