@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join, relative } from 'node:path';
 import { globSync } from 'tinyglobby';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { extractBlocks, ROOT, runShBlock, runTsBlock, shCommands } from './docExamples.js';
+import { extractBlocks, ROOT, runShBlock, runTsBlock, shCommands, typecheckTsBlocks } from './docExamples.js';
 
 // Every command and code example of the README and docs/ runs here (STYLE.md: documented examples
 // are tests). A broken example fails with its file and line.
@@ -26,6 +26,11 @@ describe('documented examples run as written', () => {
       });
     }
   }
+
+  it('every ts block type-checks as a strict TypeScript user of the package would compile it', () => {
+    const ts = pages.flatMap((p) => extractBlocks(readFileSync(join(ROOT, p), 'utf8'), p)).filter((b) => b.lang === 'ts');
+    expect(typecheckTsBlocks(ts)).toEqual([]);
+  });
 
   it('finds the examples of the front door and of each reference page', () => {
     const count = (p: string) => extractBlocks(readFileSync(join(ROOT, p), 'utf8'), p).length;
@@ -84,5 +89,11 @@ describe('the docs test itself catches a broken example (file and line)', () => 
     expect(bad.message).toContain(`${page}:18:`);
     expect(bad.message).toContain('deliberately broken');
     expect(runTsBlock(blocks[3]!).ok).toBe(true);
+  });
+  it('a ts block with a type error is reported at its Markdown line', () => {
+    const bad = { file: page, line: 40, lang: 'ts' as const, body: "import { hollomon } from 'strainledger';\nhollomon({ K: 'x', n: 0.2 });" };
+    const errs = typecheckTsBlocks([blocks[3]!, bad]);
+    expect(errs).toHaveLength(1);
+    expect(errs[0]).toMatch(new RegExp(`broken\\.md:42:\\d+: error TS2322`));
   });
 });
