@@ -102,7 +102,7 @@ export const run = defineCommand({
 
     // A batch (several plans, or --out): each plan on the main thread or a worker, then one summary.
     if (values.out === undefined && (format === 'md' || format === 'html')) {
-      throw cliError('--format', `got ${format} for ${files.length} plans without --out, allowed table, json, csv or junit on stdout (or --out DIR for one file per plan)`);
+      throw cliError('--format', `got ${format} for ${shard ? `shard ${values.shard} (${files.length} plan${files.length === 1 ? '' : 's'})` : `${files.length} plans`} without --out, allowed table, json, csv or junit on stdout (or --out DIR for one file per plan)`);
     }
     const [{ runTasks }, summary, { planOutputs, writeOutput }] = await Promise.all([import('../batch.js'), import('../summary.js'), import('../out.js')]);
     const targets = values.out !== undefined ? planOutputs(values.out, files, EXTENSION[format]) : undefined;
