@@ -28,7 +28,8 @@ type Kind = 'json' | 'junit';
  * @throws PlanError naming the file when it is neither.
  */
 function kindOf(file: string, text: string): Kind {
-  const c = text.replace(/^\uFEFF/, '').trimStart()[0];
+  if (text.trim() === '') throw fileError(file, 'is empty; allowed a JSON report (run --format json) or a JUnit file (run --format junit)');
+  const c = text.trimStart()[0];
   if (c === '[' || c === '{') return 'json';
   if (c === '<') return 'junit';
   throw fileError(file, `starts with ${JSON.stringify(text.trimStart().slice(0, 12))}; allowed a JSON report (run --format json) or a JUnit file (run --format junit)`);
@@ -161,7 +162,7 @@ export const merge = defineCommand({
     let first = '';
     const entries: Entry[] = [];
     for (const file of files) {
-      const text = readText(file);
+      const text = readText(file).replace(/^\uFEFF/, ''); // a byte-order mark added by an editor or a CI step
       const k = kindOf(file, text);
       if (kind === undefined) { kind = k; first = file; }
       else if (k !== kind) {
