@@ -29,7 +29,7 @@ export function summaryTable(outcomes: readonly Outcome[], color = false): strin
   const table = alignTable(['plan file', 'plan', 'verdict', 'targets met', 'tightest margin', 'exit'], rows).split('\n');
   const lines = table.map((l, i) => (i < 2 ? l : paint(outcomes[i - 2]!.exit, l)));
   const count = (c: number) => outcomes.filter((o) => o.exit === c).length;
-  lines.push('', `${outcomes.length} plans: ${count(0)} met, ${count(1)} not met, ${count(2)} invalid${count(3) ? `, ${count(3)} internal errors` : ''}; exit ${worstExit(outcomes)}`);
+  lines.push('', `${outcomes.length} plan${outcomes.length === 1 ? '' : 's'}: ${count(0)} met, ${count(1)} not met, ${count(2)} invalid${count(3) ? `, ${count(3)} internal errors` : ''}; exit ${worstExit(outcomes)}`);
   return lines.join('\n') + '\n';
 }
 

@@ -120,6 +120,16 @@ describe('run PLANS --shard K/N, then merge', () => {
     expect(m.out).toBe('[]\n');
   });
 
+  it('per-plan JUnit files written with --out by two shards merge into the whole run\'s JUnit (valid plans: an invalid plan writes no file)', () => {
+    const dir = join(TMP, 'per-plan');
+    const valid = `${PLANS.replace(/\\/g, '/')}/{a*,b/*,d5,z7}.json`;
+    for (const k of [1, 2]) expect([0, 1]).toContain(cli('run', valid, '--shard', `${k}/2`, '--format', 'junit', '--out', dir).code);
+    const m = cli('merge', `${dir.replace(/\\/g, '/')}/*.junit.xml`);
+    expect(m.code).toBe(1); // d5 misses its target
+    expect(m.out).toBe(cli('run', valid, '--format', 'junit').out);
+    expect(m.err).toMatch(/^merged 6 plans from 6 files/);
+  });
+
   it('merge --out writes the merged file atomically and never over an input', () => {
     const s1 = join(TMP, 'o1.json');
     const s2 = join(TMP, 'o2.json');
@@ -171,6 +181,16 @@ describe('merge refuses what it cannot combine (exit 2, naming the file)', () =>
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/plan examples\/contact-spring-strip\.json is also in/);
   });
+  it('an empty file, and a file that is neither kind', () => {
+    const empty = join(TMP, 'empty.txt');
+    writeFileSync(empty, '\n');
+    expect(cli('merge', empty).err).toContain(`${empty}: is empty`);
+    const csv = join(TMP, 'table.csv');
+    writeFileSync(csv, 'plan,index\n');
+    const r = cli('merge', csv);
+    expect(r.code).toBe(2);
+    expect(r.err).toContain(`${csv}: starts with "plan,index`);
+  });
   it('a truncated or edited JUnit file', () => {
     const cut = join(TMP, 'cut.junit.xml');
     const text = readFileSync(xml, 'utf8');
@@ -191,8 +211,10 @@ describe('merge refuses what it cannot combine (exit 2, naming the file)', () =>
 });
 
 describe('help', () => {
-  it('lists merge with its usage line, and merge --help names its option', () => {
-    expect(execFileSync(process.execPath, [BIN, 'help'], { cwd: ROOT, encoding: 'utf8' })).toMatch(/strainledger merge REPORT\.\.\. \[options\]/);
-    expect(execFileSync(process.execPath, [BIN, 'merge', '--help'], { cwd: ROOT, encoding: 'utf8' })).toMatch(/-o, --out FILE/);
+  it('merge --help and run --help show the declared options', () => {
+    const m = execFileSync(process.execPath, [BIN, 'merge', '--help'], { cwd: ROOT, encoding: 'utf8' });
+    expect(m).toContain('usage: strainledger merge REPORT... [options]');
+    expect(m).toMatch(/-o, --out FILE/);
+    expect(execFileSync(process.execPath, [BIN, 'run', '--help'], { cwd: ROOT, encoding: 'utf8' })).toMatch(/--shard K\/N +run only the K-th of N shares/);
   });
 });

@@ -111,3 +111,33 @@ export function runTsBlock(b: DocBlock, root = ROOT): BlockResult {
     rmSync(f, { force: true });
   }
 }
+
+/**
+ * Type-checks ts blocks as a package user's strict TypeScript would (module nodenext, the package's
+ * own `exports` types from dist/), in one `tsc` run. Errors are mapped back to the Markdown file and
+ * line. Returns the messages ([] when all blocks check).
+ */
+export function typecheckTsBlocks(blocks: readonly DocBlock[], root = ROOT): string[] {
+  const dir = mkdtempSync(join(root, 'test-results', 'docs-typecheck-'));
+  try {
+    const names = new Map<string, DocBlock>();
+    blocks.forEach((b, i) => {
+      const name = `block${i}.ts`;
+      names.set(name, b);
+      writeFileSync(join(dir, name), `${b.body}\nexport {};\n`);
+    });
+    writeFileSync(join(dir, 'tsconfig.json'), JSON.stringify({
+      compilerOptions: { strict: true, noEmit: true, module: 'nodenext', moduleResolution: 'nodenext', target: 'ES2022', lib: ['ES2022', 'DOM'], types: ['node'], skipLibCheck: true },
+      include: ['*.ts'],
+    }));
+    const r = spawnSync(process.execPath, [join(root, 'node_modules', 'typescript', 'bin', 'tsc'), '-p', join(dir, 'tsconfig.json')], { cwd: root, encoding: 'utf8', timeout: 180_000 });
+    if (r.status === 0) return [];
+    return (r.stdout + r.stderr).split('\n').filter((l) => l.trim() !== '').map((l) => {
+      const m = /(block\d+\.ts)\((\d+),(\d+)\): (.*)$/.exec(l);
+      const b = m ? names.get(m[1]!) : undefined;
+      return b ? `${b.file}:${b.line + Number(m![2])}:${m![3]}: ${m![4]}` : l;
+    });
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}

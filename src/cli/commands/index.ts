@@ -13,11 +13,11 @@ export interface CommandEntry {
  */
 export const COMMANDS: readonly CommandEntry[] = [
   { name: 'run', load: async () => (await import('./run.js')).run },
+  { name: 'merge', load: async () => (await import('./merge.js')).merge },
   { name: 'schema', load: async () => (await import('./schema.js')).schema },
   { name: 'design', load: async () => (await import('./design.js')).design },
   { name: 'analyze', load: async () => (await import('./analyze.js')).analyze },
   { name: 'tolerance-factor', load: async () => (await import('./tolerance-factor.js')).toleranceFactor },
   { name: 'path', load: async () => (await import('./path.js')).path },
-  { name: 'merge', load: async () => (await import('./merge.js')).merge },
   { name: 'kinematic', load: async () => (await import('./kinematic.js')).kinematic },
 ];

@@ -28,7 +28,8 @@ type Kind = 'json' | 'junit';
  * @throws PlanError naming the file when it is neither.
  */
 function kindOf(file: string, text: string): Kind {
-  const c = text.replace(/^\uFEFF/, '').trimStart()[0];
+  if (text.trim() === '') throw fileError(file, 'is empty; allowed a JSON report (run --format json) or a JUnit file (run --format junit)');
+  const c = text.trimStart()[0];
   if (c === '[' || c === '{') return 'json';
   if (c === '<') return 'junit';
   throw fileError(file, `starts with ${JSON.stringify(text.trimStart().slice(0, 12))}; allowed a JSON report (run --format json) or a JUnit file (run --format junit)`);
@@ -131,12 +132,16 @@ function mergedText(kind: Kind, entries: readonly Entry[]): string {
  */
 export const merge = defineCommand({
   name: 'merge',
-  summary: 'combine the JSON reports or JUnit files of the shards of one run (run --shard K/N) into one',
+  summary: 'combine the JSON reports or the JUnit files of the shards of one run (run --shard K/N) into the one document a single run writes',
   args: 'REPORT...',
   options: {
-    out: { type: 'string', short: 'o', value: 'FILE', help: 'write the merged report to FILE (atomically) instead of stdout' },
+    out: { type: 'string', short: 'o', value: 'FILE', help: 'write the merged report to this file (atomically; never over one of its inputs) instead of stdout' },
   },
-  details: 'exit codes: as run, the worst over all plans (0 all targets met, 1 a target is not met, 2 invalid input)',
+  details: [
+    'REPORT... are JSON reports (run --format json) or JUnit files (run --format junit), not both; quoted globs are expanded.',
+    'Entries are sorted by plan file, the order --shard splits; a plan found in two files is refused.',
+    'exit codes: the worst over all plans, as run: 0 all targets met, 1 a target is not met, 2 an invalid plan or invalid input, 3 an internal error',
+  ].join('\n'),
   async run({ values, positionals }, io) {
     if (positionals.length === 0) throw cliError('REPORT', 'got no report file, allowed one or more JSON reports or JUnit files (or quoted globs)');
     const files: string[] = [];
@@ -157,7 +162,7 @@ export const merge = defineCommand({
     let first = '';
     const entries: Entry[] = [];
     for (const file of files) {
-      const text = readText(file);
+      const text = readText(file).replace(/^\uFEFF/, ''); // a byte-order mark added by an editor or a CI step
       const k = kindOf(file, text);
       if (kind === undefined) { kind = k; first = file; }
       else if (k !== kind) {

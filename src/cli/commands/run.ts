@@ -23,7 +23,7 @@ export const run = defineCommand({
     set: { type: 'string', multiple: true, default: [], value: 'PATH=VALUE', help: 'change one plan field before it is checked, e.g. steps[0].thickness=1.2' },
     sweep: { type: 'string', value: 'PATH=FROM:TO:STEP', help: 'evaluate one plan over a range of one field; one row per value' },
     jobs: { type: 'string', short: 'j', default: '1', value: 'N', help: 'plans (or scatter blocks) evaluated on N worker threads' },
-    shard: { type: 'string', value: 'K/N', help: 'run only the K-th of N shares of the sorted plan list (one CI matrix job each; combine with merge)' },
+    shard: { type: 'string', value: 'K/N', help: 'run only the K-th of N shares of the sorted plan list (1-based; one CI matrix job each; combine the reports with merge)' },
     'no-progress': { type: 'boolean', default: false, help: 'no progress bar (it shows only on a terminal, never under CI)' },
   },
   details: 'exit codes: 0 all targets met, 1 a target is not met, 2 invalid input (the worst over all plans)',
@@ -102,7 +102,7 @@ export const run = defineCommand({
 
     // A batch (several plans, or --out): each plan on the main thread or a worker, then one summary.
     if (values.out === undefined && (format === 'md' || format === 'html')) {
-      throw cliError('--format', `got ${format} for ${files.length} plans without --out, allowed table, json, csv or junit on stdout (or --out DIR for one file per plan)`);
+      throw cliError('--format', `got ${format} for ${shard ? `shard ${values.shard} (${files.length} plan${files.length === 1 ? '' : 's'})` : `${files.length} plans`} without --out, allowed table, json, csv or junit on stdout (or --out DIR for one file per plan)`);
     }
     const [{ runTasks }, summary, { planOutputs, writeOutput }] = await Promise.all([import('../batch.js'), import('../summary.js'), import('../out.js')]);
     const targets = values.out !== undefined ? planOutputs(values.out, files, EXTENSION[format]) : undefined;
