@@ -38,9 +38,10 @@ const npx = (...args: string[]) => sh('npx', ['--no-install', 'strainledger', ..
 
 let tarball = '';
 let entries: string[] = [];
+let installLog: SpawnSyncReturns<string> | undefined;
 
 beforeAll(() => {
-  // Pack the tree as it stands (its `prepare` build already ran in the global setup).
+  // Pack the tree as it stands (`prepack` would build it; the global setup already did).
   const packed = JSON.parse(npm(['pack', '--ignore-scripts', '--json', '--pack-destination', TMP], ROOT).stdout) as { filename: string }[];
   tarball = join(TMP, packed[0]!.filename);
   entries = execFileSync('tar', ['-tzf', tarball], { encoding: 'utf8' }).split('\n').filter(Boolean);
@@ -48,7 +49,7 @@ beforeAll(() => {
   // The user's project: an empty package, the tarball installed with npm's defaults.
   mkdirSync(APP);
   writeFileSync(join(APP, 'package.json'), JSON.stringify({ name: 'forming-plans', version: '1.0.0', private: true, type: 'module' }, null, 2));
-  npm(['install', '--prefer-offline', '--no-audit', '--no-fund', tarball]);
+  installLog = npm(['install', '--prefer-offline', '--no-audit', '--no-fund', tarball]);
 
   // Plans in nested folders, as YAML, for the README's glob: one meets its targets, one does not.
   const plan = (file: string) => JSON.parse(readFileSync(join(ROOT, 'examples', file), 'utf8')) as Record<string, unknown>;
@@ -84,9 +85,14 @@ describe('the packed tarball', () => {
       expect(entries).toContain(`package/${pkg.exports[e].import.slice(2)}`);
     }
     expect(pkg.private).toBeUndefined();
-    expect(Object.keys(pkg.scripts ?? {}).filter((s) => ['preinstall', 'install', 'postinstall'].includes(s))).toEqual([]);
+    // No install-time scripts: npm would not run them for a dependency anyway, and npm 11 warns about
+    // each (`prepare` included) in the user's project. The build runs on `prepack` instead.
+    expect(Object.keys(pkg.scripts ?? {}).filter((s) => ['preinstall', 'install', 'postinstall', 'prepare'].includes(s))).toEqual([]);
     // Run-time dependencies are what the library imports; notebook and runner-bundle libraries are not.
     expect(Object.keys(pkg.dependencies).sort()).toEqual(['@observablehq/plot', 'csv-parse', 'simple-statistics', 'yaml', 'zod']);
+  });
+  it('installs without a warning about install scripts', () => {
+    expect(installLog!.stdout + installLog!.stderr).not.toMatch(/install-scripts|allowScripts/);
   });
   it('npm publish --dry-run passes (nothing is published)', () => {
     const r = sh('npm', ['publish', '--dry-run', '--ignore-scripts'], ROOT);
