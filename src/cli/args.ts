@@ -1,4 +1,5 @@
 import { parseArgs } from 'node:util';
+import { PlanError } from '../plan/problems.js';
 import type { Command, CommandInput, OptionSpec, OptionSpecs } from './command.js';
 
 /** Options every command understands, handled by the runner before the command runs. */
@@ -49,14 +50,17 @@ function optionLabel(name: string, o: OptionSpec): string {
   return o.type === 'string' ? `${flag} ${o.value ?? 'VALUE'}` : flag;
 }
 
+
 function defaultNote(o: OptionSpec): string {
   if (o.default === undefined || o.default === false || (Array.isArray(o.default) && o.default.length === 0)) return '';
   return ` (default ${Array.isArray(o.default) ? o.default.join(',') : String(o.default)})`;
 }
 
-/** The one-line synopsis: `strainledger run PLAN... [options]`. */
+/** The one-line synopsis: `strainledger path PLAN_OR_MATERIAL --history STRAINS [options]`. */
 export function synopsis(cmd: Command<OptionSpecs>): string {
-  return `strainledger ${cmd.name}${cmd.args ? ` ${cmd.args}` : ''}${Object.keys(cmd.options).length > 0 ? ' [options]' : ''}`;
+  const required = Object.entries(cmd.options).filter(([, o]) => o.required).map(([n, o]) => (o.type === 'string' ? `--${n} ${o.value ?? 'VALUE'}` : `--${n}`));
+  const optional = Object.values(cmd.options).some((o) => !o.required);
+  return ['strainledger', cmd.name, ...(cmd.args ? [cmd.args] : []), ...required, ...(optional ? ['[options]'] : [])].join(' ');
 }
 
 /** The full `--help` text of a command, derived from its declaration. */
@@ -102,6 +106,11 @@ export function parseCommandArgs<O extends OptionSpecs>(cmd: Command<O>, args: s
   try {
     const { values, positionals } = parseArgs({ args, options: config, strict: true, allowPositionals: cmd.args !== undefined });
     delete (values as Record<string, unknown>).help;
+    for (const [name, o] of Object.entries(cmd.options)) {
+      if (o.required && (values as Record<string, unknown>)[name] === undefined) {
+        throw new PlanError([{ file: '(command line)', path: `--${name}`, message: `missing; allowed ${o.help}` }]);
+      }
+    }
     return { values: { ...values } as CommandInput<O>['values'], positionals };
   } catch (e) {
     const code = (e as { code?: string }).code ?? '';

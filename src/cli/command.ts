@@ -13,6 +13,8 @@ export interface OptionSpec {
   default?: string | boolean | string[];
   /** Placeholder for a string option's value in the help text, e.g. 'DIR' (default 'VALUE'). */
   value?: string;
+  /** The command cannot run without it: shown in the synopsis, and refused (exit 2) when missing. */
+  required?: boolean;
   /** What the option does, in one line: units, allowed values, default. */
   help: string;
 }

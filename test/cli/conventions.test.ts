@@ -67,6 +67,16 @@ describe('every command answers --help, -h and help COMMAND from its declared op
         expect(r.stderr).not.toMatch(/\n\s+at |internal error/);
       }
     });
+    it(`${entry.name}: a required option shows in the synopsis and its absence is refused by name (exit 2)`, async () => {
+      const cmd = (await entry.load()) as Command<OptionSpecs>;
+      const help = cli([entry.name, '--help']).stdout.split('\n')[0]!;
+      for (const [name, o] of Object.entries(cmd.options).filter(([, o]) => o.required)) {
+        expect(help).toContain(`--${name}${o.type === 'string' ? ` ${o.value ?? 'VALUE'}` : ''}`);
+        const r = cli([entry.name, ...(cmd.args ? cmd.args.split(' ').map(() => 'examples/hinge-tab-bend.json') : [])]);
+        expect(r.status).toBe(2);
+        expect(r.stderr).toContain(`--${name}: missing`);
+      }
+    });
   }
 });
 

@@ -30,7 +30,7 @@ export const path = defineCommand({
   args: 'PLAN_OR_MATERIAL',
   details: 'stresses in the plan\'s unit. exit codes: 0 done, 1 an increment missed its tolerance, 2 invalid input',
   options: {
-    history: { type: 'string', value: 'STRAINS', help: 'comma-separated total true strains to reach in order from the annealed state, e.g. "0.02,0,-0.02" (required)' },
+    history: { type: 'string', value: 'STRAINS', required: true, help: 'comma-separated total true strains to reach in order from the annealed state, e.g. "0.02,0,-0.02,0.03"' },
     increment: { type: 'string', value: 'H', help: 'largest strain increment of the integrator, 1e-7 to 0.05' },
     format: { type: 'string', default: 'json', value: 'FORMAT', help: 'output, one of json, csv' },
     out: { type: 'string', value: 'FILE', help: 'write the points to FILE (atomically) instead of stdout' },

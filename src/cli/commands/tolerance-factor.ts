@@ -26,7 +26,7 @@ export const toleranceFactor = defineCommand({
   name: 'tolerance-factor',
   summary: 'one-sided normal tolerance factor k (x̄ − k·s is the lower bound) and the distribution-free rank',
   options: {
-    n: { type: 'string', value: 'N', help: 'number of tests (sample size), required' },
+    n: { type: 'string', value: 'N', required: true, help: 'number of tests (sample size), a whole number ≥ 2' },
     coverage: { type: 'string', value: 'P', help: 'fraction of the population above the bound, e.g. 0.90 (default 0.9)' },
     confidence: { type: 'string', value: 'G', help: 'confidence level, e.g. 0.95 (default 0.95)' },
     json: { type: 'boolean', default: false, help: 'print the result as JSON' },
