@@ -211,7 +211,8 @@ describe('merge refuses what it cannot combine (exit 2, naming the file)', () =>
 });
 
 describe('help', () => {
-  it('merge --help and run --help show the declared options', () => {
+  it('help lists merge; merge --help and run --help show the declared options', () => {
+    expect(execFileSync(process.execPath, [BIN, 'help'], { cwd: ROOT, encoding: 'utf8' })).toMatch(/strainledger merge REPORT\.\.\. \[options\]/);
     const m = execFileSync(process.execPath, [BIN, 'merge', '--help'], { cwd: ROOT, encoding: 'utf8' });
     expect(m).toContain('usage: strainledger merge REPORT... [options]');
     expect(m).toMatch(/-o, --out FILE/);
