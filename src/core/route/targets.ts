@@ -1,4 +1,6 @@
 import { checkRange, InputError } from '../errors.js';
+import { TEMPER_BOUNDARY_TOL, temperOf } from '../temper/scale.js';
+import type { TemperScale } from '../temper/types.js';
 import type { LedgerRow, StateProperties, StateTargetName, TargetResult, Targets } from './types.js';
 
 /** Each target: the state property it limits and whether it is a lower (min) or upper (max) limit. */
@@ -23,6 +25,10 @@ export function validateTargets(t: Targets, path = 'targets'): Targets {
     out[name] = checkRange(`${path}.${name}`, v, 0, TARGET_DEFS[name].unit === 'percent' ? 1000 : 1e5);
   }
   if (t.maxSpringbackDeg !== undefined) out.maxSpringbackDeg = checkRange(`${path}.maxSpringbackDeg`, t.maxSpringbackDeg, 0, 180);
+  if (t.temper !== undefined) {
+    if (typeof t.temper !== 'string' || t.temper.length === 0) throw new InputError(`${path}.temper`, t.temper, 'a temper designation of the material\'s temperSystem, e.g. "H04"');
+    out.temper = t.temper;
+  }
   if (out.minYield !== undefined && out.maxYield !== undefined && out.minYield > out.maxYield) {
     throw new InputError(`${path}.maxYield`, out.maxYield, `a value ≥ minYield (${out.minYield})`, 'contradictory targets');
   }
@@ -62,4 +68,26 @@ export function checkSpringbackTarget(rows: readonly LedgerRow[], limit: number,
   if (worst === null) throw new InputError(path, limit, 'a springback target only for a route with a bend step');
   const margin = limit - worst;
   return { name: 'maxSpringbackDeg', limit, predicted: worst, margin, met: margin >= 0 };
+}
+
+/**
+ * Checks the `temper` target on the final state's basis value `x` (core/temper): met when the state's
+ * temper is the one wanted. `limit` is the wanted temper's lower boundary, `predicted` is x, and
+ * `margin` the distance from x to the nearer boundary of the wanted temper (negative outside it), in
+ * the scale's basis (percent reduction, or MPa of Rm).
+ * @throws InputError (`targets.temper`) for a designation not in the scale.
+ * @example checkTemperTarget(temperScale('copperRolled', 0), 25, 'H02').margin // 4.30 (to the H02 boundary 20.70 %)
+ */
+export function checkTemperTarget(scale: TemperScale, x: number, wanted: string, path = 'targets.temper'): TargetResult {
+  const k = scale.bands.findIndex((b) => b.designation === wanted);
+  if (k < 0) throw new InputError(path, wanted, `a temper of ${scale.system}: ${scale.bands.map((b) => b.designation).join(', ')}`);
+  const lo = scale.bands[k]!.from;
+  const hi = scale.bands[k + 1]?.from;
+  const got = temperOf(scale, x)?.designation ?? null;
+  const met = got === wanted;
+  let margin = hi === undefined ? x - lo : Math.min(x - lo, hi - x);
+  // Inside the temper within the boundary tolerance: a margin of round-off size reads as 0, never negative.
+  if (met && margin < 0) margin = 0;
+  else if (!met && margin >= 0) margin = -Math.max(Math.abs(margin), TEMPER_BOUNDARY_TOL * Math.max(1, Math.abs(lo)));
+  return { name: 'temper', limit: lo, predicted: x, margin, met, temper: { wanted, got, basis: scale.basis } };
 }
