@@ -99,6 +99,7 @@ export function loadDesignSpecText(text: string, file = 'spec.json', format = fo
     if (w.maxYield !== undefined) window.maxYield = units.toMPa(w.maxYield);
     if (w.minTensile !== undefined) window.minTensile = units.toMPa(w.minTensile);
     if (w.minRemainingElongationPct !== undefined) window.minRemainingElongationPct = w.minRemainingElongationPct;
+    if (w.temper !== undefined) window.temper = w.temper;
     const p = doc.process;
     const s: DesignSpec = {
       material,

@@ -3,6 +3,7 @@ import { evaluateRoute } from '../core/route/ledger.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import { makeLaw } from '../core/flow/makeLaw.js';
 import { isotropicPart, validateKinematic } from '../core/path/hardening.js';
+import { validateGrainGrowthStrain } from '../core/route/grainGrowth.js';
 import type { LawSpec } from '../core/flow/types.js';
 import type { Ledger, Material, RouteInput, Size, Step, Targets } from '../core/route/types.js';
 import { prepareScatter, type ScatterProblem } from '../core/scatter/problem.js';
@@ -110,6 +111,8 @@ export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): Resolve
     if (!(b > a)) throw new InputError('material.fittedStrainRange', m.fittedStrainRange, 'a pair [from, to] with to > from');
     return [a, b];
   });
+  const grainGrowthStrain = m.grainGrowthStrain && check(() => validateGrainGrowthStrain(m.grainGrowthStrain, 'material.grainGrowthStrain'));
+
   const targets: Targets = {};
   const t = doc.targets;
   if (t.minYield !== undefined) targets.minYield = units.toMPa(t.minYield);
@@ -117,6 +120,10 @@ export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): Resolve
   if (t.minTensile !== undefined) targets.minTensile = units.toMPa(t.minTensile);
   if (t.minRemainingElongationPct !== undefined) targets.minRemainingElongationPct = t.minRemainingElongationPct;
   if (t.maxSpringbackDeg !== undefined) targets.maxSpringbackDeg = t.maxSpringbackDeg;
+  if (t.temper !== undefined) targets.temper = t.temper;
+  check(() => {
+    if (t.temper !== undefined && m.temperSystem === undefined) throw new InputError('targets.temper', t.temper, 'a temper target only with material.temperSystem set');
+  });
   check(() => {
     if (t.minYield !== undefined && t.maxYield !== undefined && t.minYield > t.maxYield) {
       throw new InputError('targets.maxYield', t.maxYield, `a value ≥ minYield (${t.minYield})`, 'contradictory targets');
@@ -129,6 +136,8 @@ export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): Resolve
   if (modulusDecay) material.modulusDecay = modulusDecay;
   if (kinematic) material.kinematic = kinematic;
   if (fittedStrainRange) material.fittedStrainRange = fittedStrainRange;
+  if (m.temperSystem !== undefined) material.temperSystem = m.temperSystem;
+  if (grainGrowthStrain) material.grainGrowthStrain = grainGrowthStrain;
   return withLocation(file, loc, () => withScatter({
     doc,
     units,

@@ -1,3 +1,4 @@
+import type { TemperState } from '../core/temper/types.js';
 import type { BendFields, KinematicFields, Ledger, LedgerRow, PassLoadFields, Size, TargetResult, Warning } from '../core/route/types.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { LoadedPlan } from '../plan/load.js';
@@ -5,7 +6,7 @@ import { convertLaw, withLocation } from '../plan/resolve.js';
 import { runScatter } from '../core/scatter/run.js';
 import type { ScatterSummary } from '../core/scatter/summarize.js';
 import { scatterReport, type ReportScatter } from './scatter.js';
-import { CAUTIONS } from './cautions.js';
+import { CAUTIONS, TEMPER_CAUTION } from './cautions.js';
 
 /** Version of the JSON report contract. Bump only when a field changes meaning or is removed. */
 export const REPORT_VERSION = 1;
@@ -33,6 +34,8 @@ export interface ReportStep extends KinematicFields, BendFields, PassLoadFields 
   recoveredElasticEnergy: number;
   meanFlowStress: number;
   plasticWork: number;
+  /** The step's temper in the material's temper system (null outside it); present only when the material names one. */
+  temper?: TemperState | null;
   warnings: Warning[];
 }
 
@@ -46,6 +49,10 @@ export interface ReportV1 {
     elasticModulus: number;
     flowCurve: Record<string, unknown>;
     source: string;
+    /** The material's temper system, when the plan names one. */
+    temperSystem?: string;
+    /** The grain-growth strain range of the material, when the plan sets one (else the default [0.02, 0.10]). */
+    grainGrowthStrain?: [number, number];
     uniformStrain: number;
     initial: { reloadYield: number; tensileStrength: number; uniformElongationPct: number };
   };
@@ -106,6 +113,7 @@ export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: stri
       ...(r.springbackDeg !== undefined ? { springbackDeg: r.springbackDeg } : {}),
       ...(r.finalAngleDeg !== undefined ? { finalAngleDeg: r.finalAngleDeg } : {}),
       ...(r.finalRadius !== undefined ? { finalRadius: r.finalRadius === null ? null : u.fromMm(r.finalRadius) } : {}),
+      ...(r.temper !== undefined ? { temper: r.temper } : {}),
       warnings: r.warnings,
     };
   };
@@ -122,6 +130,8 @@ export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: stri
       elasticModulus: S(m.elasticModulus),
       flowCurve,
       source: m.source ?? 'given in the plan',
+      ...(m.temperSystem !== undefined ? { temperSystem: m.temperSystem } : {}),
+      ...(m.grainGrowthStrain !== undefined ? { grainGrowthStrain: [m.grainGrowthStrain[0], m.grainGrowthStrain[1]] as [number, number] } : {}),
       uniformStrain: ledger.uniformStrain,
       initial: {
         reloadYield: S(ledger.initial.reloadYield),
@@ -130,13 +140,13 @@ export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: stri
       },
     },
     steps: ledger.rows.map(step),
-    targets: ledger.targets.map((t) => stressTargets.has(t.name)
+    targets: ledger.targets.map((t) => stressTargets.has(t.name) || t.temper?.basis === 'tensileStrength'
       ? { ...t, limit: S(t.limit), predicted: S(t.predicted), margin: S(t.margin) }
       : { ...t }),
     allTargetsMet: ledger.allTargetsMet,
     coldWorkWindow: ledger.coldWorkWindow,
     // Scatter: computed here on one thread unless the runner already sampled it on worker threads (same numbers).
     ...(plan.scatter ? { scatter: scatterReport(plan.scatter, meta.scatter ?? withLocation(plan.file, plan.loc, () => runScatter(plan.scatter!)), u) } : {}),
-    cautions: [...CAUTIONS],
+    cautions: m.temperSystem !== undefined ? [...CAUTIONS, TEMPER_CAUTION] : [...CAUTIONS],
   };
 }

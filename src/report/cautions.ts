@@ -9,3 +9,9 @@ export const CAUTIONS: readonly string[] = [
   'Reversed loading (straightening, reverse bending) yields earlier than an isotropic ledger predicts (Bauschinger effect).',
   'Follow the applicable codes and standards and licensed engineering judgment; this tool does not replace them.',
 ];
+
+/**
+ * Shown besides {@link CAUTIONS} when the steps are named in a temper system: the temper comes from
+ * the predicted state, not from a measurement, and some table values behind it are from memory.
+ */
+export const TEMPER_CAUTION = 'Tempers are named from the predicted state, not measured; release material by the hardness or tensile values its product standard requires, measured on the part.';

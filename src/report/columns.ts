@@ -31,6 +31,7 @@ export function stepColumns(r: ReportV1): StepColumn[] {
     { header: 'recovery %', numeric: true, cell: (s) => fx(s.elasticRecoveryStrain * 100, 3) },
   ];
   for (const key of extraStepFields(r.steps)) cols.push({ header: key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
+  if (hasTemper(r)) cols.push({ header: 'temper', numeric: false, cell: temperText });
   cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
   return cols;
 }
@@ -45,7 +46,28 @@ export function windowText(r: ReportV1): string {
   return w.note + red;
 }
 
+/** Whether the report's steps carry tempers (the material names a temper system). */
+export function hasTemper(r: ReportV1): boolean {
+  return r.steps.some((s) => s.temper !== undefined);
+}
+
+/**
+ * A step's temper for a human report: the designation and how far it is toward the next temper,
+ * `H02 (49 % to H03)`; the top temper alone (`H10`); `—` outside the system or without one.
+ */
+export function temperText(s: ReportStep): string {
+  const t = s.temper;
+  if (!t) return '—';
+  return t.next === null || t.towardNext === null ? t.designation : `${t.designation} (${Math.floor(t.towardNext * 100)} % to ${t.next})`;
+}
+
+/** For a temper target, the tempers wanted and reached in words (` — H04 wanted, H02 reached`); '' for other targets. */
+export function temperTargetNote(t: ReportV1['targets'][number]): string {
+  return t.temper ? ` — ${t.temper.wanted} wanted, ${t.temper.got ?? 'none of the system'} reached` : '';
+}
+
 /** The unit of a target's limit, predicted value and margin. */
 export function targetUnit(r: ReportV1, name: string): string {
+  if (name === 'temper') return r.targets.find((t) => t.name === 'temper')?.temper?.basis === 'tensileStrength' ? r.units.stress : '% thickness reduction';
   return name === 'minRemainingElongationPct' ? '%' : name === 'maxSpringbackDeg' ? '°' : r.units.stress;
 }

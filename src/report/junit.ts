@@ -1,5 +1,5 @@
 import type { ReportV1 } from './build.js';
-import { targetUnit } from './columns.js';
+import { targetUnit, temperTargetNote } from './columns.js';
 
 /** Escapes text for XML 1.0 content and attributes; drops characters XML 1.0 forbids. */
 export function xmlText(s: string): string {
@@ -42,7 +42,7 @@ function suiteXml(s: JunitSuite): string {
   x += '    </properties>\n';
   for (const t of r.targets) {
     const u = targetUnit(r, t.name);
-    const text = `${t.name}: predicted ${t.predicted.toFixed(2)} ${u}, limit ${t.limit.toFixed(2)} ${u}, margin ${t.margin.toFixed(2)} ${u}`;
+    const text = `${t.name}: predicted ${t.predicted.toFixed(2)} ${u}, limit ${t.limit.toFixed(2)} ${u}, margin ${t.margin.toFixed(2)} ${u}${temperTargetNote(t)}`;
     x += `    <testcase classname="${name}" name="${xmlText(t.name)}">\n`;
     if (!t.met) x += `      <failure message="${xmlText(text)}" type="targetMissed">${xmlText(text)}</failure>\n`;
     else x += `      <system-out>${xmlText(text)}</system-out>\n`;

@@ -34,10 +34,16 @@ export const ReportStepSchema = z.looseObject({
   recoveredElasticEnergy: num('elastic energy recovered per volume (stress unit)'),
   meanFlowStress: num('mean flow stress over the step (stress unit)'),
   plasticWork: num('plastic work per volume of the step (stress unit)'),
+  temper: z.strictObject({
+    designation: z.string().min(1).describe('temper designation, e.g. H02'),
+    name: z.string().describe('its name, e.g. half hard'),
+    next: z.string().nullable().describe('the next harder temper; null at the top of the scale'),
+    towardNext: z.number().gte(0).lt(1).nullable().describe('fraction of the way from this temper\'s lower boundary to the next\'s, in the scale\'s basis'),
+  }).nullable().optional().describe('temper in material.temperSystem (null outside the system); present only when the material names one'),
   warnings: z.array(warning),
 });
 
-const targetName = z.enum(['minYield', 'maxYield', 'minTensile', 'minRemainingElongationPct', 'maxSpringbackDeg']);
+const targetName = z.enum(['minYield', 'maxYield', 'minTensile', 'minRemainingElongationPct', 'maxSpringbackDeg', 'temper']);
 
 const probability = (what: string) => z.number().gte(0).lte(1).describe(what);
 const distribution = z.looseObject({ mean: z.number(), sd: z.number().nonnegative(), min: z.number(), p05: z.number(), p50: z.number(), p95: z.number(), max: z.number() });
@@ -87,11 +93,18 @@ export const ReportSchema = z.looseObject({
     elasticModulus: z.number().positive(),
     flowCurve: z.looseObject({ law: z.string() }),
     source: z.string(),
+    temperSystem: z.enum(['copperRolled', 'aluminiumH1x', 'steelStrip']).optional().describe('temper system the steps are named in'),
+    grainGrowthStrain: z.tuple([z.number(), z.number()]).optional().describe('strain range since the previous anneal in which a full anneal warns of coarse grains, when set in the plan'),
     uniformStrain: z.number(),
     initial: z.strictObject({ reloadYield: z.number(), tensileStrength: z.number(), uniformElongationPct: z.number() }),
   }),
   steps: z.array(ReportStepSchema),
-  targets: z.array(z.strictObject({ name: targetName, limit: z.number(), predicted: z.number(), margin: z.number(), met: z.boolean() })),
+  targets: z.array(z.strictObject({
+    name: targetName, limit: z.number(), predicted: z.number(), margin: z.number(), met: z.boolean(),
+    temper: z.strictObject({
+      wanted: z.string(), got: z.string().nullable(), basis: z.enum(['thicknessReductionPct', 'tensileStrength']),
+    }).optional().describe('temper target only: limit is the temper\'s lower boundary, predicted the state\'s value, margin the distance to the nearer boundary, in the basis (% thickness reduction, or stress unit)'),
+  })),
   allTargetsMet: z.boolean(),
   coldWorkWindow: z.strictObject({
     empty: z.boolean(),

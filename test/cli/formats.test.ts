@@ -35,7 +35,7 @@ const json = (file: string) => JSON.parse(run('run', file, '--format', 'json').s
 
 // Goldens also for the demos with a scatter section and with reversal and bend steps (their own
 // report sections: scatter tables, springback columns).
-const GOLDEN_DEMOS = { ...DEMOS, 'clip-strip-scatter': 'examples/clip-strip-scatter.json', 'hinge-tab-bend': 'examples/hinge-tab-bend.json' } as const;
+const GOLDEN_DEMOS = { ...DEMOS, 'clip-strip-scatter': 'examples/clip-strip-scatter.json', 'hinge-tab-bend': 'examples/hinge-tab-bend.json', 'terminal-strip-temper': 'examples/terminal-strip-temper.json' } as const;
 
 describe('strainledger run PLAN --format F matches its golden file', () => {
   for (const [name, file] of Object.entries(GOLDEN_DEMOS)) {

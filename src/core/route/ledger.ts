@@ -83,6 +83,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
     let meanFlowStress = 0;
     let plasticWork = 0;
     let coarseGrain = false;
+    const strainBeforeAnneal = strainSince;
     if (effect.softeningFraction !== undefined) {
       const f = effect.softeningFraction;
       // Only a full anneal recrystallises throughout; a partial one (f < 1) is modelled as softening only.
@@ -114,7 +115,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
       warnings.push({ code: 'necking', message: `accumulated strain ${eps.toFixed(4)} is at or past the uniform strain ${eu.toFixed(4)}: necking risk in tension, no uniform elongation left` });
     }
     if (coarseGrain) {
-      warnings.push({ code: 'grainGrowth', message: `full anneal after only ${strainSince.toFixed(4)} strain since the previous anneal, inside the critical range ${grainRange[0]}–${grainRange[1]} for grain growth: coarse grains (orange peel, lower strength) are likely; cold-work more before annealing, or anneal earlier` });
+      warnings.push({ code: 'grainGrowth', message: `full anneal after only ${strainBeforeAnneal.toFixed(4)} strain since the previous anneal, inside the critical range ${grainRange[0]}–${grainRange[1]} for grain growth: coarse grains (orange peel, lower strength) are likely; give more cold work before this anneal, or leave it out` });
     }
     if (fitted && eps + PROOF_OFFSET > fitted[1]) {
       warnings.push({ code: 'extrapolated', message: `law used beyond the strain range it was fitted on (${(eps + PROOF_OFFSET).toFixed(4)} > ${fitted[1].toFixed(4)})` });

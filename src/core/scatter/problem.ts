@@ -139,6 +139,9 @@ export function prepareScatter(problem: ScatterProblem, path = 'scatter'): Prepa
       throw new InputError(`steps[${i}].kind`, st.kind, 'with a scatter section: roll, draw, stretch, stretchBiaxial, upset, shear, strain, reverse, anneal', 'scatter through bend steps is not supported');
     }
   });
+  if (targets.temper !== undefined) {
+    throw new InputError('targets.temper', targets.temper, 'no temper target with a scatter section (give the temper\'s property limits, e.g. minTensile, instead)', 'scatter does not sample tempers');
+  }
   const hasStart = slots.some((s) => s.kind === 'start');
   const fixedEffects = hasStart ? null : stepEffects(problem.start, stock, problem.steps);
   const nominal = stateProperties({ ...baseMaterial, law: makeLaw(lawSpec, 'material.flowCurve') } as Material, 0);

@@ -153,6 +153,8 @@ describe('coarse-grain warning on a full anneal after a small cold work (critica
     rolledTo({ ...copper, ...extra }, pct, [f === undefined ? { kind: 'anneal' } : { kind: 'anneal', softeningFraction: f }]).rows[1]!.warnings.map((w) => w.code);
   it('warns after 4 % cold work (strain 0.047), not after 30 % (0.41), not after 1 % (0.012, below the range)', () => {
     expect(anneal(4)).toContain('grainGrowth');
+    const msg = rolledTo(copper, 4, [{ kind: 'anneal' }]).rows[1]!.warnings[0]!.message;
+    expect(msg).toContain(`after only ${((2 / Math.sqrt(3)) * -Math.log(0.96)).toFixed(4)} strain`);
     expect(anneal(30)).not.toContain('grainGrowth');
     expect(anneal(1)).not.toContain('grainGrowth');
   });
