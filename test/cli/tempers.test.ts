@@ -62,6 +62,14 @@ describe('a missed temper target', () => {
   });
 });
 
+describe('a temper target with a scatter section', () => {
+  it('is refused (exit 2) naming targets.temper: the scatter sampler checks property targets only', () => {
+    const r = run('run', 'examples/clip-strip-scatter.json', '--set', 'material.temperSystem=copperRolled', '--set', 'targets.temper=H02');
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/targets\.temper: scatter does not sample tempers/);
+  });
+});
+
 describe('CSV and Markdown carry the temper', () => {
   it('CSV (read back with csv-parse) has the temper columns equal to the JSON report', () => {
     const csv = parseCsv(run('run', PLAN, '--format', 'csv').stdout, { columns: true }) as Record<string, string>[];
