@@ -180,7 +180,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
   const passStrain = draw ? -Math.log1p(-rPass) : PLANE_STRAIN_FACTOR * -Math.log1p(-rPass);
   const basis = draw ? 'area' : 'thickness';
   const redPct = (s: number) => (draw ? -Math.expm1(-s) : -Math.expm1(-s / PLANE_STRAIN_FACTOR)) * 100;
-  const win = coldWorkWindow(spec.material.law, 0, spec.window, basis);
+  const win = coldWorkWindow(spec.material.law, 0, spec.window, basis, spec.material.hardness);
   const base = { totalStrain: E, maxStrainBeforeAnneal: sMax, passStrainLimit: passStrain, window: win };
   let evaluations = 0;
   const infeasible = (limit: string, explanation: string, tried = 0): DesignResult => ({ feasible: false, routes: [], candidatesTried: tried, ledgerRuns: evaluations, ...base, binding: { limit, explanation } });

@@ -119,6 +119,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
       elasticModulus: p.elasticModulus,
       elasticRecoveryStrain: p.elasticRecoveryStrain,
       recoveredElasticEnergy: p.recoveredElasticEnergy,
+      hardnessHV: p.hardnessHV,
       meanFlowStress,
       plasticWork,
       warnings,
@@ -165,7 +166,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
     }
     // One sum finds any non-finite field cheaply; only then look for which one.
     const sum = row.accumulatedStrain + row.coldWorkPct + row.flowStress + row.reloadYield + row.tensileStrength + row.yieldRatio +
-      row.remainingUniformElongationPct + row.elasticRecoveryStrain + row.recoveredElasticEnergy + row.meanFlowStress + row.plasticWork +
+      row.remainingUniformElongationPct + row.elasticRecoveryStrain + row.recoveredElasticEnergy + row.hardnessHV + row.meanFlowStress + row.plasticWork +
       (size.thickness ?? 0) + (size.diameter ?? 0) + (size.width ?? 0) + (size.height ?? 0);
     if (!Number.isFinite(sum)) {
       for (const [k, v] of Object.entries(row)) if (typeof v === 'number' && !Number.isFinite(v)) throw new ComputationError(`${path}.${k}`, `not a finite number (${v}); check the law parameters and the step size`);
@@ -177,7 +178,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   const initial = stateProperties(material, 0, eu);
   const final = rows.length > 0 ? rows[rows.length - 1]! : initial;
   const results = checkTargets(final, targets);
-  let window = coldWorkWindow(law, epsAfterAnneal, targets, basis);
+  let window = coldWorkWindow(law, epsAfterAnneal, targets, basis, material.hardness);
   if (targets.maxSpringbackDeg !== undefined) {
     results.push(checkSpringbackTarget(rows, targets.maxSpringbackDeg));
     window = { ...window, note: `${window.note}; maxSpringbackDeg is checked on the route's bend steps but sets no bound here (springback is not monotone in cold work)` };
