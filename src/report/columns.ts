@@ -47,5 +47,6 @@ export function windowText(r: ReportV1): string {
 
 /** The unit of a target's limit, predicted value and margin. */
 export function targetUnit(r: ReportV1, name: string): string {
+  if (name === 'minHardnessHV' || name === 'maxHardnessHV') return 'HV';
   return name === 'minRemainingElongationPct' ? '%' : name === 'maxSpringbackDeg' ? '°' : r.units.stress;
 }

@@ -34,10 +34,15 @@ export const ReportStepSchema = z.looseObject({
   recoveredElasticEnergy: num('elastic energy recovered per volume (stress unit)'),
   meanFlowStress: num('mean flow stress over the step (stress unit)'),
   plasticWork: num('plastic work per volume of the step (stress unit)'),
+  hardnessHV: num("Vickers hardness by Tabor's relation, HV (kgf/mm²; the same in SI and US reports); an estimate").optional(),
+  hardnessHB: num('Brinell hardness converted from hardnessHV by the material group\'s table, approximate; only inside the table range').optional(),
+  hardnessHRB: num('Rockwell B converted from hardnessHV, approximate; only inside the table range').optional(),
+  hardnessHRC: num('Rockwell C converted from hardnessHV, approximate; only inside the table range').optional(),
+  tensileFromHardness: num('tensile strength estimated from hardnessHV by the conversion table, approximate (stress unit)').optional(),
   warnings: z.array(warning),
 });
 
-const targetName = z.enum(['minYield', 'maxYield', 'minTensile', 'minRemainingElongationPct', 'maxSpringbackDeg']);
+const targetName = z.enum(['minYield', 'maxYield', 'minTensile', 'minRemainingElongationPct', 'maxSpringbackDeg', 'minHardnessHV', 'maxHardnessHV']);
 
 const probability = (what: string) => z.number().gte(0).lte(1).describe(what);
 const distribution = z.looseObject({ mean: z.number(), sd: z.number().nonnegative(), min: z.number(), p05: z.number(), p50: z.number(), p95: z.number(), max: z.number() });
@@ -89,6 +94,16 @@ export const ReportSchema = z.looseObject({
     source: z.string(),
     uniformStrain: z.number(),
     initial: z.strictObject({ reloadYield: z.number(), tensileStrength: z.number(), uniformElongationPct: z.number() }),
+    hardness: z.looseObject({
+      relation: z.string(),
+      taborFactor: z.number().positive().describe('c: Vickers hardness in MPa over the flow stress at the accumulated strain plus representativeStrain'),
+      representativeStrain: z.number().nonnegative(),
+      basis: z.enum(['default', 'given', 'fitted']).describe('default (Tabor), given in the plan, or fitted to the plan\'s readings'),
+      taborFactorInterval: z.tuple([z.number(), z.number()]).optional().describe('95 % interval of a fitted factor (Student t)'),
+      readings: z.number().int().min(2).optional(),
+      initialHV: z.number().describe('hardness of the annealed state, HV'),
+      conversionTable: z.looseObject({ group: z.string(), source: z.string(), note: z.string() }).optional(),
+    }).optional().describe('The hardness model: Tabor\'s relation and the basis of its factor'),
   }),
   steps: z.array(ReportStepSchema),
   targets: z.array(z.strictObject({ name: targetName, limit: z.number(), predicted: z.number(), margin: z.number(), met: z.boolean() })),

@@ -1,5 +1,5 @@
 import type { ReportV1 } from './build.js';
-import { extraStepFields, sig4, stepNumber } from './fields.js';
+import { extraStepFields, hardnessText, sig4, stepNumber } from './fields.js';
 import { scatterLines } from './scatter.js';
 
 /** Fixed-decimal formatting used by all human-readable reports. */
@@ -27,6 +27,7 @@ export function tableReport(r: ReportV1, color = false): string {
   const overrides = (r.plan as { overrides?: string[] }).overrides;
   if (overrides?.length) out.push(`overrides (--set): ${overrides.join('; ')}`);
   out.push(`material: ${r.material.name}; E = ${fixed(r.material.elasticModulus, 0)} ${S}; ${fc} (${r.material.source})`);
+  if (r.material.hardness) out.push(`hardness: ${hardnessText(r.material.hardness)}`);
   out.push(`annealed: Rp0.2 ${fixed(r.material.initial.reloadYield, 1)} ${S}, Rm ${fixed(r.material.initial.tensileStrength, 1)} ${S}, uniform elongation ${fixed(r.material.initial.uniformElongationPct, 1)} %`);
   out.push('');
   const size = (s: Record<string, number | undefined>) => s.thickness !== undefined ? `t ${fixed(s.thickness, 3)}` : s.diameter !== undefined ? `d ${fixed(s.diameter, 3)}` : s.height !== undefined ? `h ${fixed(s.height, 3)}` : '—';
