@@ -46,6 +46,17 @@ export {
 export type * from './temper/types.js';
 export type * from './route/types.js';
 
+// Hardness: Tabor's relation, the Tabor-factor fit from readings, conversion tables (issue 15)
+export { STANDARD_GRAVITY, VICKERS_CONTACT_RATIO, HARDNESS_DEFAULTS, HARDNESS_RANGES } from './hardness/defaults.js';
+export { taborHardness, strainForHardness, validateHardnessModel, defaultHardnessModel } from './hardness/taborHardness.js';
+export { fitTaborFactor } from './hardness/fitTaborFactor.js';
+export type { TaborFit } from './hardness/fitTaborFactor.js';
+export { convertHardness, hardnessConversions, hardnessTableRange } from './hardness/convertHardness.js';
+export type { ConvertedHardness } from './hardness/convertHardness.js';
+export { STEEL_TABLE, CONVERSION_TABLES, CONVERSION_GROUPS, HARDNESS_SCALES } from './hardness/conversionTables.js';
+export type { ConversionTable } from './hardness/conversionTables.js';
+export type * from './hardness/types.js';
+
 // Load paths with reversal: 1-D return mapping, Armstrong–Frederick backstresses
 export { createPathStepper, integratePath, PATH_DEFAULTS } from './path/integrate.js';
 export type { PathStepper } from './path/integrate.js';

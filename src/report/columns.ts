@@ -30,7 +30,9 @@ export function stepColumns(r: ReportV1): StepColumn[] {
     { header: 'Ag left %', numeric: true, cell: (s) => fx(s.remainingUniformElongationPct, 1) },
     { header: 'recovery %', numeric: true, cell: (s) => fx(s.elasticRecoveryStrain * 100, 3) },
   ];
-  for (const key of extraStepFields(r.steps)) cols.push({ header: key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
+  // Vickers hardness (Tabor estimate) to 0.1 HV, in its own column when the report has it.
+  if (r.steps.some((s) => s.hardnessHV !== undefined)) cols.push({ header: 'HV', numeric: true, cell: (s) => (s.hardnessHV === undefined ? '—' : fx(s.hardnessHV, 1)) });
+  for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
   if (hasTemper(r)) cols.push({ header: 'temper', numeric: false, cell: temperText });
   cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
   return cols;
@@ -69,5 +71,6 @@ export function temperTargetNote(t: ReportV1['targets'][number]): string {
 /** The unit of a target's limit, predicted value and margin. */
 export function targetUnit(r: ReportV1, name: string): string {
   if (name === 'temper') return r.targets.find((t) => t.name === 'temper')?.temper?.basis === 'tensileStrength' ? r.units.stress : '% thickness reduction';
+  if (name === 'minHardnessHV' || name === 'maxHardnessHV') return 'HV';
   return name === 'minRemainingElongationPct' ? '%' : name === 'maxSpringbackDeg' ? '°' : r.units.stress;
 }

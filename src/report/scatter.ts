@@ -1,3 +1,4 @@
+import { TARGET_DEFS } from '../core/route/targets.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { ScatterProblem } from '../core/scatter/problem.js';
 import type { Distribution, ScatterSummary } from '../core/scatter/summarize.js';
@@ -49,7 +50,7 @@ export function scatterReport(problem: ScatterProblem, s: ScatterSummary, u: Uni
   problem.inputs.forEach((a, i) => problem.inputs.forEach((b, j) => {
     if (j > i && problem.correlation[i]![j] !== 0) correlation[`${a.name},${b.name}`] = problem.correlation[i]![j]!;
   }));
-  const stressTarget = (n: string) => n !== 'minRemainingElongationPct' && n !== 'maxSpringbackDeg';
+  const stressTarget = (n: string) => (TARGET_DEFS as Record<string, { unit: string } | undefined>)[n]?.unit === 'stress';
   const tb = s.toleranceBound;
   return {
     samples: s.samples,

@@ -190,7 +190,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
     const scale = temperScale(spec.material.temperSystem, stateProperties(spec.material, 0).tensileStrength);
     band = temperStrainBand(scale, spec.material.law, spec.window.temper, 'window.temper');
   }
-  const win = coldWorkWindow(spec.material.law, 0, spec.window, basis, band);
+  const win = coldWorkWindow(spec.material.law, 0, spec.window, basis, spec.material.hardness, band);
   const base = { totalStrain: E, maxStrainBeforeAnneal: sMax, passStrainLimit: passStrain, window: win };
   let evaluations = 0;
   const infeasible = (limit: string, explanation: string, tried = 0): DesignResult => ({ feasible: false, routes: [], candidatesTried: tried, ledgerRuns: evaluations, ...base, binding: { limit, explanation } });

@@ -136,6 +136,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
       elasticModulus: p.elasticModulus,
       elasticRecoveryStrain: p.elasticRecoveryStrain,
       recoveredElasticEnergy: p.recoveredElasticEnergy,
+      hardnessHV: p.hardnessHV,
       meanFlowStress,
       plasticWork,
       warnings,
@@ -183,7 +184,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
     }
     // One sum finds any non-finite field cheaply; only then look for which one.
     const sum = row.accumulatedStrain + row.coldWorkPct + row.flowStress + row.reloadYield + row.tensileStrength + row.yieldRatio +
-      row.remainingUniformElongationPct + row.elasticRecoveryStrain + row.recoveredElasticEnergy + row.meanFlowStress + row.plasticWork +
+      row.remainingUniformElongationPct + row.elasticRecoveryStrain + row.recoveredElasticEnergy + row.hardnessHV + row.meanFlowStress + row.plasticWork +
       (size.thickness ?? 0) + (size.diameter ?? 0) + (size.width ?? 0) + (size.height ?? 0);
     if (!Number.isFinite(sum)) {
       for (const [k, v] of Object.entries(row)) if (typeof v === 'number' && !Number.isFinite(v)) throw new ComputationError(`${path}.${k}`, `not a finite number (${v}); check the law parameters and the step size`);
@@ -197,7 +198,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   const results = checkTargets(final, targets);
   if (scale && targets.temper !== undefined) results.push(checkTemperTarget(scale, temperBasisValue(scale, final === initial ? 0 : rows[rows.length - 1]!.accumulatedStrain, final), targets.temper));
   const band = scale && targets.temper !== undefined ? temperStrainBand(scale, law, targets.temper) : undefined;
-  let window = coldWorkWindow(law, epsAfterAnneal, targets, basis, band);
+  let window = coldWorkWindow(law, epsAfterAnneal, targets, basis, material.hardness, band);
   if (targets.maxSpringbackDeg !== undefined) {
     results.push(checkSpringbackTarget(rows, targets.maxSpringbackDeg));
     window = { ...window, note: `${window.note}; maxSpringbackDeg is checked on the route's bend steps but sets no bound here (springback is not monotone in cold work)` };

@@ -4,12 +4,17 @@ import type { TemperScale } from '../temper/types.js';
 import type { LedgerRow, StateProperties, StateTargetName, TargetResult, Targets } from './types.js';
 
 /** Each target: the state property it limits and whether it is a lower (min) or upper (max) limit. */
-export const TARGET_DEFS: Readonly<Record<StateTargetName, { property: keyof StateProperties; sense: 'min' | 'max'; unit: 'stress' | 'percent' }>> = {
+export const TARGET_DEFS: Readonly<Record<StateTargetName, { property: keyof StateProperties; sense: 'min' | 'max'; unit: 'stress' | 'percent' | 'hardness' }>> = {
   minYield: { property: 'reloadYield', sense: 'min', unit: 'stress' },
   maxYield: { property: 'reloadYield', sense: 'max', unit: 'stress' },
   minTensile: { property: 'tensileStrength', sense: 'min', unit: 'stress' },
   minRemainingElongationPct: { property: 'remainingUniformElongationPct', sense: 'min', unit: 'percent' },
+  minHardnessHV: { property: 'hardnessHV', sense: 'min', unit: 'hardness' },
+  maxHardnessHV: { property: 'hardnessHV', sense: 'max', unit: 'hardness' },
 };
+
+/** Largest value a target may take, by its unit: MPa, percent, HV (Vickers numbers end near 2000 for the hardest steels; common practice). */
+const TARGET_MAX = { stress: 1e5, percent: 1000, hardness: 3000 } as const;
 
 export const TARGET_NAMES = Object.keys(TARGET_DEFS) as StateTargetName[];
 
@@ -22,7 +27,7 @@ export function validateTargets(t: Targets, path = 'targets'): Targets {
   for (const name of TARGET_NAMES) {
     const v = t[name];
     if (v === undefined) continue;
-    out[name] = checkRange(`${path}.${name}`, v, 0, TARGET_DEFS[name].unit === 'percent' ? 1000 : 1e5);
+    out[name] = checkRange(`${path}.${name}`, v, 0, TARGET_MAX[TARGET_DEFS[name].unit]);
   }
   if (t.maxSpringbackDeg !== undefined) out.maxSpringbackDeg = checkRange(`${path}.maxSpringbackDeg`, t.maxSpringbackDeg, 0, 180);
   if (t.temper !== undefined) {
@@ -32,12 +37,15 @@ export function validateTargets(t: Targets, path = 'targets'): Targets {
   if (out.minYield !== undefined && out.maxYield !== undefined && out.minYield > out.maxYield) {
     throw new InputError(`${path}.maxYield`, out.maxYield, `a value ≥ minYield (${out.minYield})`, 'contradictory targets');
   }
+  if (out.minHardnessHV !== undefined && out.maxHardnessHV !== undefined && out.minHardnessHV > out.maxHardnessHV) {
+    throw new InputError(`${path}.maxHardnessHV`, out.maxHardnessHV, `a value ≥ minHardnessHV (${out.minHardnessHV})`, 'contradictory targets');
+  }
   return out;
 }
 
 /**
  * Checks targets against a final state. margin = predicted − limit for a minimum, limit − predicted
- * for a maximum; met when margin ≥ 0. Units: the target's own (MPa or %).
+ * for a maximum; met when margin ≥ 0. Units: the target's own (MPa, % or HV).
  * @example checkTargets({ reloadYield: 320, ... }, { minYield: 300 })[0].margin // 20
  */
 export function checkTargets(state: StateProperties, targets: Targets): TargetResult[] {

@@ -2,6 +2,7 @@ import type { FlowLaw } from '../flow/types.js';
 import type { ModulusDecay } from '../material/modulus.js';
 import type { KinematicSpec } from '../path/types.js';
 import type { TemperState, TemperSystemName } from '../temper/types.js';
+import type { HardnessModel } from '../hardness/types.js';
 
 /** Cross-section and height of the stock, mm inside the core. Strip has `thickness`, wire and bar `diameter`. */
 export interface Size {
@@ -40,6 +41,8 @@ export interface Material {
    * grains, [from, to]; default {@link DEFAULT_GRAIN_GROWTH_STRAIN} (core/route/grainGrowth.ts).
    */
   grainGrowthStrain?: readonly [number, number];
+  /** Tabor hardness model (core/hardness); without it the defaults (c ≈ 2.78, εr 0.08) apply. */
+  hardness?: HardnessModel;
 }
 
 export type StepKind = 'roll' | 'draw' | 'stretch' | 'stretchBiaxial' | 'upset' | 'shear' | 'strain' | 'anneal' | 'reverse' | 'bend';
@@ -65,6 +68,9 @@ export interface Targets {
   maxYield?: number;
   minTensile?: number;
   minRemainingElongationPct?: number;
+  /** Vickers hardness limits of the final state, HV (kgf/mm²), by Tabor's relation. */
+  minHardnessHV?: number;
+  maxHardnessHV?: number;
   /** Largest acceptable springback of any bend step, degrees. */
   maxSpringbackDeg?: number;
   /** Temper designation the final state must have, in the material's `temperSystem` (e.g. "H04"). */
@@ -146,6 +152,8 @@ export interface LedgerRow extends KinematicFields, BendFields, PassLoadFields {
   elasticRecoveryStrain: number;
   /** Elastic energy recovered on unloading per unit volume, σ²/(2E), MJ/m³ (numerically MPa). */
   recoveredElasticEnergy: number;
+  /** Vickers hardness estimate by Tabor's relation, HV (kgf/mm²); see core/hardness/taborHardness.ts. */
+  hardnessHV: number;
   meanFlowStress: number;
   plasticWork: number;
   /** The state's temper in the material's `temperSystem`; null outside the system; absent without a system. */
@@ -164,6 +172,8 @@ export interface StateProperties {
   elasticModulus: number;
   elasticRecoveryStrain: number;
   recoveredElasticEnergy: number;
+  /** Vickers hardness estimate by Tabor's relation, HV (kgf/mm²). */
+  hardnessHV: number;
 }
 
 export interface ColdWorkWindow {
