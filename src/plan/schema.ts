@@ -66,7 +66,7 @@ export const MaterialSchema = z.strictObject({
   density: z.number().gte(500).lte(25000).optional().describe('density, kg/m³ (SI in both unit systems), for the temperature rise of a pass'),
   specificHeat: z.number().gte(50).lte(5000).optional().describe('specific heat, J/(kg·K) (SI in both unit systems), for the temperature rise of a pass'),
   temperSystem: z.enum(['copperRolled', 'aluminiumH1x', 'steelStrip']).optional()
-    .describe('Standard tempers to name each step in: copperRolled (ASTM B601 H01–H10, strip only), aluminiumH1x (H12–H19 by tensile strength), steelStrip (No. 5–No. 1, strip only)'),
+    .describe('Standard tempers to name each step in: copperRolled (ASTM B601 H01–H10, strip only), aluminiumH1x (H12–H19 by tensile strength), steelStrip (ASTM A109 No. 5–No. 1 by hardness)'),
   grainGrowthStrain: z.tuple([z.number().gte(0).lte(1).describe('from'), z.number().gt(0).lte(1).describe('to')]).optional()
     .describe('Equivalent strain since the previous anneal within which a full anneal risks coarse grains; default [0.02, 0.10] (common practice)'),
   hardness: z.strictObject({

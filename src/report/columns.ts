@@ -70,7 +70,10 @@ export function temperTargetNote(t: ReportV1['targets'][number]): string {
 
 /** The unit of a target's limit, predicted value and margin. */
 export function targetUnit(r: ReportV1, name: string): string {
-  if (name === 'temper') return r.targets.find((t) => t.name === 'temper')?.temper?.basis === 'tensileStrength' ? r.units.stress : '% thickness reduction';
+  if (name === 'temper') {
+    const basis = r.targets.find((t) => t.name === 'temper')?.temper?.basis;
+    return basis === 'tensileStrength' ? r.units.stress : basis === 'hardnessHV' ? 'HV' : '% thickness reduction';
+  }
   if (name === 'minHardnessHV' || name === 'maxHardnessHV') return 'HV';
   return name === 'minRemainingElongationPct' ? '%' : name === 'maxSpringbackDeg' ? '°' : r.units.stress;
 }

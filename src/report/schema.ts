@@ -117,8 +117,8 @@ export const ReportSchema = z.looseObject({
   targets: z.array(z.strictObject({
     name: targetName, limit: z.number(), predicted: z.number(), margin: z.number(), met: z.boolean(),
     temper: z.strictObject({
-      wanted: z.string(), got: z.string().nullable(), basis: z.enum(['thicknessReductionPct', 'tensileStrength']),
-    }).optional().describe('temper target only: limit is the temper\'s lower boundary, predicted the state\'s value, margin the distance to the nearer boundary, in the basis (% thickness reduction, or stress unit)'),
+      wanted: z.string(), got: z.string().nullable(), basis: z.enum(['thicknessReductionPct', 'tensileStrength', 'hardnessHV']),
+    }).optional().describe('temper target only: limit is the temper\'s lower boundary, predicted the state\'s value, margin the distance to the nearer boundary, in the basis (% thickness reduction, stress unit, or HV)'),
   })),
   allTargetsMet: z.boolean(),
   coldWorkWindow: z.strictObject({

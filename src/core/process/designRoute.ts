@@ -188,7 +188,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
   if (spec.window.temper !== undefined) {
     if (spec.material.temperSystem === undefined) throw new InputError('window.temper', spec.window.temper, 'a temper target only with material.temperSystem set');
     const scale = temperScale(spec.material.temperSystem, stateProperties(spec.material, 0).tensileStrength);
-    band = temperStrainBand(scale, spec.material.law, spec.window.temper, 'window.temper');
+    band = temperStrainBand(scale, spec.material.law, spec.window.temper, 'window.temper', spec.material.hardness);
   }
   const win = coldWorkWindow(spec.material.law, 0, spec.window, basis, spec.material.hardness, band);
   const base = { totalStrain: E, maxStrainBeforeAnneal: sMax, passStrainLimit: passStrain, window: win };

@@ -56,7 +56,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   // Temper scale (core/temper): thickness-reduction systems name strip tempers and refuse wire and bar.
   const scale = material.temperSystem === undefined ? undefined : temperScale(material.temperSystem, stateProperties(material, 0, eu).tensileStrength);
   if (scale && scale.basis === 'thicknessReductionPct' && stock === 'wire') {
-    throw new InputError('material.temperSystem', material.temperSystem, 'aluminiumH1x for wire or bar (copperRolled and steelStrip name tempers of rolled strip by thickness reduction)');
+    throw new InputError('material.temperSystem', material.temperSystem, 'aluminiumH1x or steelStrip for wire or bar (copperRolled names tempers of rolled strip by thickness reduction)');
   }
   if (targets.temper !== undefined && !scale) throw new InputError('targets.temper', targets.temper, 'a temper target only with material.temperSystem set');
 
@@ -197,7 +197,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   const final = rows.length > 0 ? rows[rows.length - 1]! : initial;
   const results = checkTargets(final, targets);
   if (scale && targets.temper !== undefined) results.push(checkTemperTarget(scale, temperBasisValue(scale, final === initial ? 0 : rows[rows.length - 1]!.accumulatedStrain, final), targets.temper));
-  const band = scale && targets.temper !== undefined ? temperStrainBand(scale, law, targets.temper) : undefined;
+  const band = scale && targets.temper !== undefined ? temperStrainBand(scale, law, targets.temper, 'targets.temper', material.hardness) : undefined;
   let window = coldWorkWindow(law, epsAfterAnneal, targets, basis, material.hardness, band);
   if (targets.maxSpringbackDeg !== undefined) {
     results.push(checkSpringbackTarget(rows, targets.maxSpringbackDeg));

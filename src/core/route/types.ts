@@ -94,7 +94,7 @@ export interface TargetResult {
    * `limit` is then the temper's lower boundary, `predicted` the state's value and `margin` the
    * distance to the nearer boundary of the temper, all in the system's basis (% reduction or stress).
    */
-  temper?: { wanted: string; got: string | null; basis: 'thicknessReductionPct' | 'tensileStrength' };
+  temper?: { wanted: string; got: string | null; basis: 'thicknessReductionPct' | 'tensileStrength' | 'hardnessHV' };
 }
 
 export interface Warning {

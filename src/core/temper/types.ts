@@ -5,15 +5,16 @@ export type TemperSystemName = 'copperRolled' | 'aluminiumH1x' | 'steelStrip';
  * The property a temper system is defined by:
  * - `thicknessReductionPct`: thickness reduction of strip from the annealed state, % (the row's
  *   accumulated strain read as plane-strain rolling: 100·(1 − e^(−(√3/2)·ε̄)));
- * - `tensileStrength`: the row's tensile strength Rm, MPa in the core.
+ * - `tensileStrength`: the row's tensile strength Rm, MPa in the core;
+ * - `hardnessHV`: the row's Vickers hardness (Tabor estimate, core/hardness), HV.
  */
-export type TemperBasis = 'thicknessReductionPct' | 'tensileStrength';
+export type TemperBasis = 'thicknessReductionPct' | 'tensileStrength' | 'hardnessHV';
 
 /** One temper of a scale: it runs from `from` (inclusive) up to the next temper's `from` (exclusive). */
 export interface TemperBand {
   designation: string;
   name: string;
-  /** Lower boundary in the scale's basis (percent, or MPa). */
+  /** Lower boundary in the scale's basis (percent, MPa or HV). */
   from: number;
 }
 

@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   aluminiumH1xBoundaries, BS_NUMBER_RATIO, bsReductionPct, COPPER_ROLLED_TEMPERS, designRoute, evaluateRoute, h18Increase, hollomon,
-  InputError, PLANE_STRAIN_FACTOR, stateProperties, temperOf, temperScale, voce, type DesignSpec, type Material, type Step,
+  InputError, PLANE_STRAIN_FACTOR, stateProperties, temperOf, temperScale, voce, convertHardness, strainForHardness, hvOfRockwellB, type DesignSpec, type Material, type Step,
 } from '../../../src/core/index.js';
 import { expectRelClose } from '../../helpers.js';
 
@@ -134,17 +134,58 @@ describe('aluminiumH1x: EN 515 / ANSI H35.1 rule (increase table from memory)', 
   });
 });
 
-describe('steelStrip: A109 designations in order (reduction bands approximate, from memory)', () => {
-  it('No. 5 dead soft annealed, No. 4 skin rolled after 1 %, then No. 3, No. 2, No. 1 with more reduction', () => {
-    const m: Material = { ...steel, temperSystem: 'steelStrip' };
-    const got = [0.1, 1, 8, 25, 50].map((p) => rolledTo(m, p).rows[0]!.temper!);
-    expect(got.map((t) => t.designation)).toEqual(['No. 5', 'No. 4', 'No. 3', 'No. 2', 'No. 1']);
-    expect(got.map((t) => t.name)).toEqual(['dead soft', 'skin rolled', 'quarter hard', 'half hard', 'hard']);
+describe('steelStrip: ASTM A109 Rockwell B minima (from memory) read from the row\'s own hardness', () => {
+  const m: Material = { ...steel, temperSystem: 'steelStrip' };
+  // A109 lower limits in HRB, as recalled (No. 4 begins above No. 5's B55 maximum).
+  const minima: [string, number][] = [['No. 4', 55], ['No. 3', 60], ['No. 2', 70], ['No. 1', 84]];
+  it('each boundary is the HV whose steel-table HRB (convertHardness, the report\'s own conversion) is the A109 minimum', () => {
+    const scale = temperScale('steelStrip', 0);
+    expect(scale.basis).toBe('hardnessHV');
+    for (const [d, hrb] of minima) {
+      const band = scale.bands.find((x) => x.designation === d)!;
+      expectRelClose(convertHardness(band.from, 'steel', 'HRB').value, hrb, 1e-12, d);
+    }
   });
-  it('the scale basis is the plane-strain reduction of the accumulated strain: 100·(1 − e^(−(√3/2)ε̄))', () => {
-    const l = evaluateRoute({ material: { ...steel, temperSystem: 'steelStrip' }, start: {}, steps: [{ kind: 'strain', strain: PLANE_STRAIN_FACTOR * -Math.log(1 - 0.16) }] });
-    expect(l.rows[0]!.temper!.designation).toBe('No. 2');
-    expect(temperOf(temperScale('steelStrip', 0), 14.99)!.designation).toBe('No. 3');
+  it('a state 0.05 HV past each boundary reports that temper and its converted HRB reaches the minimum; 0.05 HV before, the softer one', () => {
+    const scale = temperScale('steelStrip', 0);
+    minima.forEach(([d, hrb], i) => {
+      const from = scale.bands.find((x) => x.designation === d)!.from;
+      const eAbove = strainForHardness(steel.law, from + 0.05)!;
+      const eBelow = strainForHardness(steel.law, from - 0.05)!;
+      if (eBelow < 0) return; // already harder than this boundary when annealed (Tabor estimate)
+      const above = evaluateRoute({ material: m, start: {}, steps: [{ kind: 'strain', strain: eAbove }] }).rows[0]!;
+      expect(above.temper!.designation).toBe(d);
+      expect(convertHardness(above.hardnessHV, 'steel', 'HRB').value).toBeGreaterThanOrEqual(hrb);
+      const below = evaluateRoute({ material: m, start: {}, steps: [{ kind: 'strain', strain: eBelow }] }).rows[0]!;
+      expect(below.temper!.designation).toBe(i === 0 ? 'No. 5' : minima[i - 1]![0]);
+    });
+  });
+  it('names in order with more reduction, on wire as well as strip (the basis is hardness)', () => {
+    const got = [0, 3, 20, 60].map((p) => rolledTo(m, p).rows[0]!.temper!);
+    const order = ['No. 5', 'No. 4', 'No. 3', 'No. 2', 'No. 1'];
+    for (let i = 1; i < got.length; i++) expect(order.indexOf(got[i]!.designation)).toBeGreaterThanOrEqual(order.indexOf(got[i - 1]!.designation));
+    expect(got.at(-1)!.designation).toBe('No. 1');
+    expect(evaluateRoute({ material: m, start: { diameter: 3 }, steps: [{ kind: 'draw', areaReductionPct: 40 }] }).rows[0]!.temper).not.toBeNull();
+  });
+  it('a No. 2 window is exact at both ends', () => {
+    const w = evaluateRoute({ material: m, start: { thickness: 1 }, steps: [], targets: { temper: 'No. 2' } }).coldWorkWindow;
+    for (const s of [w.strainFrom!, w.strainTo!]) {
+      const at = evaluateRoute({ material: m, start: { thickness: 1 }, steps: [{ kind: 'strain', strain: s }], targets: { temper: 'No. 2' } });
+      expect(at.rows[0]!.temper!.designation).toBe('No. 2');
+      expect(at.allTargetsMet).toBe(true);
+    }
+  });
+  it('hvOfRockwellB inverts the table: HRB 70 lies between the 120 HV (66.7) and 130 HV (71.2) rows', () => {
+    expectRelClose(hvOfRockwellB(70), 120 + (10 * (70 - 66.7)) / (71.2 - 66.7), 1e-12);
+  });
+});
+
+describe('copper H02 hardness against the loose handbook range (CHECKS.md: half-hard copper strip about 80–100 HV, from memory)', () => {
+  it('a strip rolled 1 % past the H02 boundary reads between 80 and 100 HV (Tabor estimate, defaults)', () => {
+    const r = rolledTo(copper, bsReductionPct(2) + 1).rows[0]!;
+    expect(r.temper!.designation).toBe('H02');
+    expect(r.hardnessHV).toBeGreaterThan(80);
+    expect(r.hardnessHV).toBeLessThan(100);
   });
 });
 
