@@ -187,7 +187,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
   let band: { from: number; to: number | null } | null | undefined;
   if (spec.window.temper !== undefined) {
     if (spec.material.temperSystem === undefined) throw new InputError('window.temper', spec.window.temper, 'a temper target only with material.temperSystem set');
-    const scale = temperScale(spec.material.temperSystem, stateProperties(spec.material, 0).tensileStrength);
+    const scale = temperScale(spec.material.temperSystem, spec.material.temperSystem === 'aluminiumH1x' ? stateProperties(spec.material, 0).tensileStrength : 0);
     band = temperStrainBand(scale, spec.material.law, spec.window.temper, 'window.temper', spec.material.hardness);
   }
   const win = coldWorkWindow(spec.material.law, 0, spec.window, basis, spec.material.hardness, band);

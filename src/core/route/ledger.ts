@@ -54,7 +54,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   const fitted = material.fittedStrainRange;
   const grainRange = validateGrainGrowthStrain(material.grainGrowthStrain);
   // Temper scale (core/temper): thickness-reduction systems name strip tempers and refuse wire and bar.
-  const scale = material.temperSystem === undefined ? undefined : temperScale(material.temperSystem, stateProperties(material, 0, eu).tensileStrength);
+  const scale = material.temperSystem === undefined ? undefined : temperScale(material.temperSystem, material.temperSystem === 'aluminiumH1x' ? stateProperties(material, 0, eu).tensileStrength : 0);
   if (scale && scale.basis === 'thicknessReductionPct' && stock === 'wire') {
     throw new InputError('material.temperSystem', material.temperSystem, 'aluminiumH1x or steelStrip for wire or bar (copperRolled names tempers of rolled strip by thickness reduction)');
   }

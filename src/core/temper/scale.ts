@@ -68,6 +68,17 @@ export const TEMPER_BOUNDARY_TOL = 1e-9;
  * @throws InputError (`material.temperSystem`) for an unknown system.
  */
 export function temperScale(system: TemperSystemName, rmO: number, path = 'material.temperSystem'): TemperScale {
+  // Copper and steel scales do not depend on the material: built once (measured: rebuilding them on
+  // every ledger run cost about a tenth of a 10-step route; bench/tempers.mjs).
+  if (system === 'copperRolled') return (COPPER_SCALE ??= Object.freeze(buildScale(system, rmO, path)));
+  if (system === 'steelStrip') return (STEEL_SCALE ??= Object.freeze(buildScale(system, rmO, path)));
+  return buildScale(system, rmO, path);
+}
+
+let COPPER_SCALE: TemperScale | undefined;
+let STEEL_SCALE: TemperScale | undefined;
+
+function buildScale(system: TemperSystemName, rmO: number, path: string): TemperScale {
   const bands = (rows: readonly (readonly [string, string, number])[], from: (x: number) => number): TemperBand[] =>
     rows.map(([designation, name, x]) => ({ designation, name, from: from(x) }));
   switch (system) {
