@@ -14,6 +14,8 @@ import { buildReport, type ReportV1 } from '../../src/report/build.js';
 import { hasTemper, targetUnit, temperText } from '../../src/report/columns.js';
 import { TEMPER_CAUTION } from '../../src/report/cautions.js';
 import { strengthByStepChart, ductilityByStepChart } from '../../src/charts/ledger.js';
+import { hardnessByStepChart } from '../../src/charts/hardness.js';
+import { hardnessText } from '../../src/report/fields.js';
 import { BENCH_MATERIAL_KEY, demoPlans, pageChrome } from '../shared/page.js';
 
 pageChrome('route/', 'Route planner');
@@ -114,7 +116,8 @@ function drawEditors(): void {
   byId('start-editor').replaceChildren(...(['thickness', 'width', 'diameter', 'height'] as const).map((k) =>
     numberField(k, `start-${k}`, () => s[k], (v) => { doc.start ??= {}; if (v === undefined) delete doc.start[k]; else doc.start[k] = v; }, lengthUnit())));
   const t = doc.targets ?? {};
-  const tdefs: [string, string, string][] = [['minYield', 'minimum reload yield', stressUnit()], ['maxYield', 'maximum reload yield', stressUnit()], ['minTensile', 'minimum tensile strength', stressUnit()], ['minRemainingElongationPct', 'minimum remaining uniform elongation', '%']];
+  const tdefs: [string, string, string][] = [['minYield', 'minimum reload yield', stressUnit()], ['maxYield', 'maximum reload yield', stressUnit()], ['minTensile', 'minimum tensile strength', stressUnit()], ['minRemainingElongationPct', 'minimum remaining uniform elongation', '%'],
+    ['minHardnessHV', 'minimum Vickers hardness', 'HV'], ['maxHardnessHV', 'maximum Vickers hardness', 'HV']];
   byId('targets-editor').replaceChildren(...tdefs.map(([k, text, unit]) =>
     numberField(text, `target-${k}`, () => t[k], (v) => { doc.targets ??= {}; if (v === undefined) delete doc.targets[k]; else doc.targets[k] = v; }, unit)),
     textField('temper (e.g. H04; needs a temper system)', 'target-temper', () => String(t.temper ?? ''), (v) => { doc.targets ??= {}; if (v.trim() === '') delete doc.targets.temper; else doc.targets.temper = v.trim(); }));
@@ -250,6 +253,7 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
         ['Rp0.2/Rm', 'yieldRatio', (s) => fixed(s.yieldRatio, DIGITS.ratio)],
         ['uniform elongation left %', 'remainingUniformElongationPct', (s) => fixed(s.remainingUniformElongationPct, DIGITS.pct)],
         ['elastic recovery % strain', 'elasticRecoveryPct', (s) => fixed(s.elasticRecoveryStrain * 100, DIGITS.recoveryPct)],
+        ['HV (Tabor estimate)', 'hardnessHV', (s) => fixed(s.hardnessHV, 1)],
         ...(hasTemper(r) ? [['temper', 'temper', temperText] as [string, string, (s: ReportV1['steps'][number]) => string]] : []),
         ['warnings', 'warnings', (s) => s.warnings.map((w) => w.message).join('; ')],
       ];
@@ -266,8 +270,9 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
     name: 'targets', inputs: ['report'], into: 'cell-targets',
     fn: (r: ReportV1) => {
       if (r.targets.length === 0) return h('p', {}, 'No targets given.');
-      const unit = (n: string) => (n === 'minRemainingElongationPct' ? '%' : n === 'temper' ? targetUnit(r, n) : S(r));
-      const words: Record<string, string> = { minYield: 'minimum reload yield', maxYield: 'maximum reload yield', minTensile: 'minimum tensile strength', minRemainingElongationPct: 'minimum remaining uniform elongation' };
+      const unit = (n: string) => (n === 'minRemainingElongationPct' ? '%' : n === 'minHardnessHV' || n === 'maxHardnessHV' ? 'HV' : n === 'temper' ? targetUnit(r, n) : S(r));
+      const words: Record<string, string> = { minYield: 'minimum reload yield', maxYield: 'maximum reload yield', minTensile: 'minimum tensile strength', minRemainingElongationPct: 'minimum remaining uniform elongation',
+        minHardnessHV: 'minimum Vickers hardness', maxHardnessHV: 'maximum Vickers hardness' };
       const name = (t: ReportV1['targets'][number]) => (t.temper ? `temper ${t.temper.wanted} (reached: ${t.temper.got ?? 'none of the system'})` : words[t.name] ?? t.name);
       return h('ul', { id: 'target-list' }, ...r.targets.map((t) => h('li', { 'data-target': t.name },
         h('span', { class: t.met ? 'sl-met' : 'sl-missed' }, t.met ? 'met' : 'NOT met'), ` — ${name(t)}: predicted ${fixed(t.predicted, 2)} ${unit(t.name)}, limit ${fixed(t.limit, 2)} ${unit(t.name)}, `,
@@ -296,6 +301,16 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
     fn: (r: ReportV1) => {
       const t = Object.fromEntries(r.targets.map((x) => [x.name, x.limit]));
       return ductilityByStepChart(r.steps, { stressUnit: S(r), ...(t.minRemainingElongationPct !== undefined ? { minRemainingElongationPct: t.minRemainingElongationPct } : {}), width: 600 });
+    },
+  })
+  .cell({
+    name: 'hardnessChart', inputs: ['report'], into: 'cell-hardness-chart',
+    fn: (r: ReportV1) => {
+      const t = Object.fromEntries(r.targets.map((x) => [x.name, x.limit]));
+      const hm = r.material.hardness;
+      return h('div', {},
+        hardnessByStepChart(r.steps, { ...(hm ? { initialHV: hm.initialHV } : {}), ...(t.minHardnessHV !== undefined ? { minHardnessHV: t.minHardnessHV } : {}), ...(t.maxHardnessHV !== undefined ? { maxHardnessHV: t.maxHardnessHV } : {}), width: 600 }),
+        hm ? h('p', { id: 'hardness-basis', class: 'sl-note' }, hardnessText(hm)) : null);
     },
   });
 

@@ -30,6 +30,12 @@ function suiteXml(s: JunitSuite): string {
   for (const [k, v] of [['plan.file', r.plan.file], ['plan.sha256', r.plan.hash], ['tool', r.plan.tool], ['material', r.material.name], ['law.source', r.material.source]] as const) {
     x += `      <property name="${k}" value="${xmlText(v)}"/>\n`;
   }
+  // The basis of the hardness estimate, when hardness targets are judged (Tabor factor and where it came from).
+  const h = r.material.hardness;
+  if (h && r.targets.some((t) => t.name === 'minHardnessHV' || t.name === 'maxHardnessHV')) {
+    x += `      <property name="hardness.taborFactor" value="${h.taborFactor.toFixed(4)}"/>\n`;
+    x += `      <property name="hardness.basis" value="${xmlText(h.basis)}"/>\n`;
+  }
   // A plan with a scatter section: the chance of meeting every target and the lower bound, as
   // properties a dashboard can chart (not test cases: the targets are judged on the nominal route).
   if (r.scatter) {

@@ -25,6 +25,7 @@ describe('strainledger run with hardness', () => {
     const high = run('run', PLAN, '--format', 'junit', '--set', 'targets.maxHardnessHV=150');
     expect(high.status).toBe(1);
     expect(high.stdout).toMatch(/<failure message="maxHardnessHV: predicted [\d.]+ HV, limit 150.00 HV, margin -[\d.]+ HV"/);
+    expect(high.stdout).toMatch(/<property name="hardness.basis" value="fitted"\/>/);
   });
   it('every step carries hardnessHV = c·σ(ε̄ + εr)/g₀ with the c fitted to the plan\'s readings, and the basis in the provenance', () => {
     const rep = JSON.parse(run('run', PLAN, '--format', 'json').stdout);
