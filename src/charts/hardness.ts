@@ -36,7 +36,8 @@ export function hardnessByStepChart(steps: readonly HardnessChartStep[], o: Hard
     const top = hi ?? Math.max(lo ?? 0, ...data.map((d) => d.hv)) * 1.1;
     marks.push(Plot.rectY([{ y1: lo ?? 0, y2: top }], { y1: 'y1', y2: 'y2', fill: PALETTE.band, fillOpacity: 0.25 }));
     for (const [v, what] of [[lo, 'min'], [hi, 'max']] as const) {
-      if (v !== undefined) marks.push(Plot.text([{ y: v }], { y: 'y', frameAnchor: 'left', dx: 4, dy: what === 'min' ? 8 : -8, text: () => `${what} ${v} HV`, fill: PALETTE.ink }));
+      // Labelled inside the band at its right end, clear of the axis label and of the line's start.
+      if (v !== undefined) marks.push(Plot.text([{ y: v }], { y: 'y', frameAnchor: 'right', textAnchor: 'end', dx: -4, dy: what === 'min' ? -7 : 8, text: () => `${what} ${v} HV`, fill: PALETTE.ink }));
     }
   }
   marks.push(
@@ -48,7 +49,8 @@ export function hardnessByStepChart(steps: readonly HardnessChartStep[], o: Hard
     width: o.width ?? 640,
     height: o.height ?? 240,
     style: CHART_STYLE,
-    x: { label: 'step', ticks: steps.length + 1, tickFormat: 'd' },
+    // One tick per step, at whole numbers (a tick count can land between steps and repeat a label).
+    x: { label: 'step', ticks: data.map((d) => d.index), tickFormat: 'd' },
     y: { label: 'Vickers hardness HV (Tabor estimate)', grid: true },
     marks,
   });

@@ -1,5 +1,5 @@
 import type { ReportStep, ReportV1 } from './build.js';
-import { extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
+import { conversionHeader, extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
 
 const fx = (x: number, d: number) => x.toFixed(d);
 
@@ -32,7 +32,7 @@ export function stepColumns(r: ReportV1): StepColumn[] {
   ];
   // Vickers hardness (Tabor estimate) to 0.1 HV, in its own column when the report has it.
   if (r.steps.some((s) => s.hardnessHV !== undefined)) cols.push({ header: 'HV', numeric: true, cell: (s) => (s.hardnessHV === undefined ? '—' : fx(s.hardnessHV, 1)) });
-  for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
+  for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: conversionHeader(key, S) ?? key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
   if (hasTemper(r)) cols.push({ header: 'temper', numeric: false, cell: temperText });
   cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
   return cols;

@@ -32,6 +32,11 @@ export function extraSections(r: ReportV1): [string, unknown][] {
   return Object.entries(r).filter(([k]) => !REPORT_FIELDS_V1.includes(k));
 }
 
+/** Column headers of the approximate hardness conversions (`≈`: converted by a table, an estimate). */
+export function conversionHeader(key: string, stressUnit: string): string | undefined {
+  return ({ hardnessHB: '≈HB', hardnessHRB: '≈HRB', hardnessHRC: '≈HRC', tensileFromHardness: `≈Rm from HV ${stressUnit}` } as Record<string, string>)[key];
+}
+
 /** A step's extra numeric field, or undefined. */
 export function stepNumber(s: ReportStep, key: string): number | undefined {
   const v = (s as unknown as Record<string, unknown>)[key];

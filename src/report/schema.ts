@@ -67,6 +67,7 @@ export const ReportScatterSchema = z.looseObject({
   finalReloadYield: distribution,
   tensileStrength: distribution,
   remainingElongationPct: distribution,
+  hardnessHV: distribution.optional().describe('final Vickers hardness by Tabor\'s relation, HV (the same in SI and US reports)'),
   toleranceBound: z.looseObject({
     value: z.number().describe('lower tolerance bound on the final reload yield'),
     coverage: probability('share of parts covered'), confidence: probability('confidence of the bound'), method: z.string(),

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import {
   evaluateRoute, evaluateScatterSample, prepareScatter, runScatter, sampleScatterBlock, scatterRouteInput, taborHardness, hollomon, type ScatterProblem,
 } from '../../../src/core/index.js';
-import { expectAbsClose } from '../../helpers.js';
+import { expectAbsClose, expectRelClose } from '../../helpers.js';
 
 // INVENTED scenario: a clip-strip shop rolls annealed low-carbon steel to a hardness band. Law: Hollomon
 // K 600 MPa, n 0.21 (Callister, Fundamentals of Materials Science and Engineering, 2nd ed., p. 199).
@@ -50,5 +50,11 @@ describe('scatter with hardness targets', () => {
     expectAbsClose(summary.targets[0]!.probabilityMet, expected, 0.015);
     expect(expected).toBeGreaterThan(0.2);
     expect(expected).toBeLessThan(0.8);
+    // HV ∝ K, so the final hardness is normal with mean HV(600) and sd HV(600)·30/600. N = 20000:
+    // the mean's sampling sd is 0.035 % of it, the sd's 0.5 %; tolerances are about 4 sampling sd.
+    const hv600 = (3 * 600 * (eps + 0.08) ** 0.21) / 9.80665;
+    expectRelClose(summary.hardnessHV.mean, hv600, 0.0015);
+    expectRelClose(summary.hardnessHV.sd, hv600 * 0.05, 0.02);
+    expectRelClose(summary.hardnessHV.p50, hv600, 0.002);
   });
 });
