@@ -4,7 +4,7 @@ import {
   Notebook, expose, slider, stepSlider, choice, valueStream, h, quantity, fixed, DIGITS, restore, byId,
 } from '../../src/cells/index.js';
 import {
-  makeLaw, fitAllLaws, stateProperties, chordModulus, reductionPctFromStrain, LAW_PARAMETERS, LAW_NAMES, PROOF_OFFSET, InputError,
+  makeLaw, fitAllLaws, stateProperties, chordModulus, reductionPctFromStrain, LAW_PARAMETERS, LAW_NAMES, PROOF_OFFSET, InputError, defaultHardnessModel,
 } from '../../src/core/index.js';
 import type { FlowLaw, LawSpec, Material } from '../../src/core/index.js';
 import { flowCurveChart, loadUnloadChart, markPrestrain } from '../../src/charts/prestrain.js';
@@ -20,6 +20,8 @@ export interface LawSet {
   modulusDecay?: Material['modulusDecay'];
   testedRange: readonly [number, number] | null;
   laws: { label: string; law: FlowLaw }[];
+  /** Tabor hardness model of a demo plan's material (its own c); the defaults otherwise. */
+  hardness?: Material['hardness'];
 }
 
 const lawLabel = (law: FlowLaw) => `${law.law} (${LAW_PARAMETERS[law.law].map((p) => `${p.name} ${+law.params[p.name]!.toPrecision(4)}`).join(', ')})`;
@@ -104,7 +106,7 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       if (source.kind === 'bench') return benchSet();
       const m = demos[source.index]!.plan.route.material;
       const tested = m.fittedStrainRange ?? [PROOF_OFFSET, m.law.uniformStrain()] as const;
-      return { name: m.name, invented: true, elasticModulus: m.elasticModulus, ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}), testedRange: tested, laws: [{ label: lawLabel(m.law), law: m.law }, ...companions(m.law, tested)] };
+      return { name: m.name, invented: true, elasticModulus: m.elasticModulus, ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}), ...(m.hardness ? { hardness: m.hardness } : {}), testedRange: tested, laws: [{ label: lawLabel(m.law), law: m.law }, ...companions(m.law, tested)] };
     },
     render: (v) => {
       const s = v as LawSet;
@@ -119,15 +121,17 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({
     name: 'states', inputs: ['lawSet', 'prestrain'],
     fn: (s: LawSet, eps: number) => s.laws.map(({ label, law }) => {
-      const m: Material = { name: s.name, elasticModulus: s.elasticModulus, poissonRatio: 0.3, law, ...(s.modulusDecay ? { modulusDecay: s.modulusDecay } : {}) };
+      const m: Material = { name: s.name, elasticModulus: s.elasticModulus, poissonRatio: 0.3, law, ...(s.modulusDecay ? { modulusDecay: s.modulusDecay } : {}), ...(s.hardness ? { hardness: s.hardness } : {}) };
       return { label, law, material: m, uniformStrain: law.uniformStrain(), props: stateProperties(m, eps) };
     }),
   })
   .cell({
-    name: 'numbers', inputs: ['states', 'prestrain'], into: 'cell-numbers',
-    fn: (states: { props: ReturnType<typeof stateProperties>; uniformStrain: number }[], eps: number) => {
+    name: 'numbers', inputs: ['states', 'prestrain', 'lawSet'], into: 'cell-numbers',
+    fn: (states: { props: ReturnType<typeof stateProperties>; uniformStrain: number }[], eps: number, s: LawSet) => {
       const p = states[0]!.props;
-      return h('dl', { class: 'sl-quantities', id: 'numbers' },
+      const hm = s.hardness ?? defaultHardnessModel();
+      const basis = hm.basis === 'fitted' ? `c ${fixed(hm.taborFactor, 3)} fitted to ${hm.readings} readings` : hm.basis === 'given' ? `c ${fixed(hm.taborFactor, 3)} given in the plan` : `default c ${fixed(hm.taborFactor, 3)}`;
+      return h('div', {}, h('dl', { class: 'sl-quantities', id: 'numbers' },
         quantity('prestrain ε̄', eps, 3, '', 'prestrain'),
         quantity('reload yield Rp0.2', p.reloadYield, DIGITS.stress, 'MPa', 'reloadYield'),
         quantity('tensile strength Rm', p.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength'),
@@ -135,7 +139,10 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
         quantity('elastic recovery σ/E(ε̄)', p.elasticRecoveryStrain * 100, DIGITS.recoveryPct, '% strain', 'elasticRecovery'),
         quantity('remaining uniform elongation', p.remainingUniformElongationPct, DIGITS.pct, '%', 'remainingElongation'),
         quantity('unloading modulus E(ε̄)', p.elasticModulus, 0, 'MPa', 'modulus'),
-        quantity('uniform strain εu (Considère)', states[0]!.uniformStrain, DIGITS.strain, '', 'uniformStrain'));
+        quantity('uniform strain εu (Considère)', states[0]!.uniformStrain, DIGITS.strain, '', 'uniformStrain'),
+        quantity('Vickers hardness (Tabor estimate)', p.hardnessHV, 1, 'HV', 'hardnessHV')),
+        h('p', { class: 'sl-note', id: 'hardness-note' },
+          `HV = c·σ(ε̄ + ${hm.representativeStrain})/9.80665 (Tabor), ${basis}. An estimate, typically within 10–15 %: release parts by measured hardness.`));
     },
   })
   .cell({
@@ -194,14 +201,14 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({
     name: 'laws', inputs: ['states', 'curves', 'lawSet'], into: 'cell-laws',
     fn: (states: { label: string; uniformStrain: number; props: ReturnType<typeof stateProperties> }[], curves: { points: { strain: number; stress: number }[] }[], s: LawSet) => {
-      const head = ['law', 'εu', 'flow stress MPa', 'reload yield Rp0.2 MPa', 'Rm MPa', 'Rp0.2/Rm', 'recovery % strain', 'remaining uniform elongation %'];
+      const head = ['law', 'εu', 'flow stress MPa', 'reload yield Rp0.2 MPa', 'Rm MPa', 'Rp0.2/Rm', 'recovery % strain', 'remaining uniform elongation %', 'HV (Tabor estimate)'];
       const table = h('table', { class: 'sl-table', id: 'law-table' },
         h('thead', {}, h('tr', {}, ...head.map((x) => h('th', { scope: 'col' }, x)))),
         h('tbody', {}, ...states.map((x) => h('tr', {},
           h('td', { class: 'text' }, x.label), h('td', {}, fixed(x.uniformStrain, DIGITS.strain)), h('td', {}, fixed(x.props.flowStress, DIGITS.stress)),
           h('td', {}, fixed(x.props.reloadYield, DIGITS.stress)), h('td', {}, fixed(x.props.tensileStrength, DIGITS.stress)),
           h('td', {}, fixed(x.props.yieldRatio, DIGITS.ratio)), h('td', {}, fixed(x.props.elasticRecoveryStrain * 100, DIGITS.recoveryPct)),
-          h('td', {}, fixed(x.props.remainingUniformElongationPct, DIGITS.pct))))));
+          h('td', {}, fixed(x.props.remainingUniformElongationPct, DIGITS.pct)), h('td', {}, fixed(x.props.hardnessHV, 1))))));
       if (states.length < 2) return h('div', {}, table, h('p', {}, 'Only one law for this material. Fit every law to a record in the record bench (or type several laws in) to see where they part ways beyond the tested range.'));
       // Where the laws part ways: their largest spread inside the tested range, and the first
       // sampled strain beyond it at which their stresses differ by more than 5 %.

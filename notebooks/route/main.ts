@@ -11,7 +11,11 @@ import { loadPlanText, runPlan, type LoadedPlan } from '../../src/plan/load.js';
 import { convertLaw } from '../../src/plan/resolve.js';
 import { unitsOf } from '../../src/plan/units.js';
 import { buildReport, type ReportV1 } from '../../src/report/build.js';
+import { hasTemper, targetUnit, temperText } from '../../src/report/columns.js';
+import { TEMPER_CAUTION } from '../../src/report/cautions.js';
 import { strengthByStepChart, ductilityByStepChart } from '../../src/charts/ledger.js';
+import { hardnessByStepChart } from '../../src/charts/hardness.js';
+import { hardnessText } from '../../src/report/fields.js';
 import { BENCH_MATERIAL_KEY, demoPlans, pageChrome } from '../shared/page.js';
 
 pageChrome('route/', 'Route planner');
@@ -106,15 +110,31 @@ function drawEditors(): void {
   byId('material-view').replaceChildren(
     h('p', { id: 'material-summary' }, `${m.name ?? '(no name)'}; E = ${m.elasticModulus} ${stressUnit()}; ${fc.law ?? '?'} `,
       Object.entries(fc).filter(([k]) => k !== 'law').map(([k, v]) => `${k} ${v}`).join(', ')),
-    h('button', { type: 'button', id: 'use-bench', onclick: useBenchMaterial }, 'Use the law saved from the record bench'));
+    h('button', { type: 'button', id: 'use-bench', onclick: useBenchMaterial }, 'Use the law saved from the record bench'),
+    temperSystemField());
   const s = doc.start ?? {};
   byId('start-editor').replaceChildren(...(['thickness', 'width', 'diameter', 'height'] as const).map((k) =>
     numberField(k, `start-${k}`, () => s[k], (v) => { doc.start ??= {}; if (v === undefined) delete doc.start[k]; else doc.start[k] = v; }, lengthUnit())));
   const t = doc.targets ?? {};
-  const tdefs: [string, string, string][] = [['minYield', 'minimum reload yield', stressUnit()], ['maxYield', 'maximum reload yield', stressUnit()], ['minTensile', 'minimum tensile strength', stressUnit()], ['minRemainingElongationPct', 'minimum remaining uniform elongation', '%']];
+  const tdefs: [string, string, string][] = [['minYield', 'minimum reload yield', stressUnit()], ['maxYield', 'maximum reload yield', stressUnit()], ['minTensile', 'minimum tensile strength', stressUnit()], ['minRemainingElongationPct', 'minimum remaining uniform elongation', '%'],
+    ['minHardnessHV', 'minimum Vickers hardness', 'HV'], ['maxHardnessHV', 'maximum Vickers hardness', 'HV']];
   byId('targets-editor').replaceChildren(...tdefs.map(([k, text, unit]) =>
-    numberField(text, `target-${k}`, () => t[k], (v) => { doc.targets ??= {}; if (v === undefined) delete doc.targets[k]; else doc.targets[k] = v; }, unit)));
+    numberField(text, `target-${k}`, () => t[k], (v) => { doc.targets ??= {}; if (v === undefined) delete doc.targets[k]; else doc.targets[k] = v; }, unit)),
+    textField('temper (e.g. H04; needs a temper system)', 'target-temper', () => String(t.temper ?? ''), (v) => { doc.targets ??= {}; if (v.trim() === '') delete doc.targets.temper; else doc.targets.temper = v.trim(); }));
   drawSteps();
+}
+
+/** The standard temper system each ledger row is named in (docs/tempers-and-anneals.md); "none" removes it. */
+const TEMPER_SYSTEM_TEXT: [string, string][] = [
+  ['', 'none'], ['copperRolled', 'copper strip, B&S numbers of reduction (ASTM B601 H01–H10)'],
+  ['aluminiumH1x', 'aluminium, strain-hardened H12–H19 by tensile strength (EN 515 / ANSI H35.1)'],
+  ['steelStrip', 'carbon steel strip No. 5–No. 1 (ASTM A109 names, approximate)'],
+];
+function temperSystemField(): HTMLElement {
+  const sel = h('select', { id: 'material-temper-system' }, ...TEMPER_SYSTEM_TEXT.map(([v, text]) => h('option', { value: v }, text)));
+  sel.value = String(doc.material?.temperSystem ?? '');
+  sel.addEventListener('change', () => edit((d) => { d.material ??= {}; if (sel.value === '') delete d.material.temperSystem; else d.material.temperSystem = sel.value; }));
+  return h('div', { class: 'sl-input' }, h('label', { for: 'material-temper-system' }, 'temper system'), sel);
 }
 
 function drawSteps(): void {
@@ -233,24 +253,29 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
         ['Rp0.2/Rm', 'yieldRatio', (s) => fixed(s.yieldRatio, DIGITS.ratio)],
         ['uniform elongation left %', 'remainingUniformElongationPct', (s) => fixed(s.remainingUniformElongationPct, DIGITS.pct)],
         ['elastic recovery % strain', 'elasticRecoveryPct', (s) => fixed(s.elasticRecoveryStrain * 100, DIGITS.recoveryPct)],
+        ['HV (Tabor estimate)', 'hardnessHV', (s) => fixed(s.hardnessHV, 1)],
+        ...(hasTemper(r) ? [['temper', 'temper', temperText] as [string, string, (s: ReportV1['steps'][number]) => string]] : []),
         ['warnings', 'warnings', (s) => s.warnings.map((w) => w.message).join('; ')],
       ];
       const i0 = r.material.initial;
       return h('div', {},
         h('p', {}, `Annealed: Rp0.2 ${fixed(i0.reloadYield, DIGITS.stress)} ${S(r)}, Rm ${fixed(i0.tensileStrength, DIGITS.stress)} ${S(r)}, uniform elongation ${fixed(i0.uniformElongationPct, DIGITS.pct)} %.`),
+        hasTemper(r) ? h('p', { class: 'sl-cautions', id: 'temper-caution' }, h('strong', {}, 'Caution. '), TEMPER_CAUTION) : null,
         h('table', { class: 'sl-table', id: 'ledger-table' },
           h('thead', {}, h('tr', {}, ...cols.map(([t]) => h('th', { scope: 'col' }, t)))),
-          h('tbody', {}, ...r.steps.map((s) => h('tr', {}, ...cols.map(([, key, f]) => h('td', { 'data-col': key, ...(key === 'kind' || key === 'warnings' ? { class: 'text' } : {}) }, f(s))))))));
+          h('tbody', {}, ...r.steps.map((s) => h('tr', {}, ...cols.map(([, key, f]) => h('td', { 'data-col': key, ...(key === 'kind' || key === 'warnings' || key === 'temper' ? { class: 'text' } : {}) }, f(s))))))));
     },
   })
   .cell({
     name: 'targets', inputs: ['report'], into: 'cell-targets',
     fn: (r: ReportV1) => {
       if (r.targets.length === 0) return h('p', {}, 'No targets given.');
-      const unit = (n: string) => (n === 'minRemainingElongationPct' ? '%' : S(r));
-      const words: Record<string, string> = { minYield: 'minimum reload yield', maxYield: 'maximum reload yield', minTensile: 'minimum tensile strength', minRemainingElongationPct: 'minimum remaining uniform elongation' };
+      const unit = (n: string) => (n === 'minRemainingElongationPct' ? '%' : n === 'minHardnessHV' || n === 'maxHardnessHV' ? 'HV' : n === 'temper' ? targetUnit(r, n) : S(r));
+      const words: Record<string, string> = { minYield: 'minimum reload yield', maxYield: 'maximum reload yield', minTensile: 'minimum tensile strength', minRemainingElongationPct: 'minimum remaining uniform elongation',
+        minHardnessHV: 'minimum Vickers hardness', maxHardnessHV: 'maximum Vickers hardness' };
+      const name = (t: ReportV1['targets'][number]) => (t.temper ? `temper ${t.temper.wanted} (reached: ${t.temper.got ?? 'none of the system'})` : words[t.name] ?? t.name);
       return h('ul', { id: 'target-list' }, ...r.targets.map((t) => h('li', { 'data-target': t.name },
-        h('span', { class: t.met ? 'sl-met' : 'sl-missed' }, t.met ? 'met' : 'NOT met'), ` — ${words[t.name] ?? t.name}: predicted ${fixed(t.predicted, 2)} ${unit(t.name)}, limit ${fixed(t.limit, 2)} ${unit(t.name)}, `,
+        h('span', { class: t.met ? 'sl-met' : 'sl-missed' }, t.met ? 'met' : 'NOT met'), ` — ${name(t)}: predicted ${fixed(t.predicted, 2)} ${unit(t.name)}, limit ${fixed(t.limit, 2)} ${unit(t.name)}, `,
         t.met ? `margin ${fixed(t.margin, 2)} ${unit(t.name)} to spare` : `short by ${fixed(-t.margin, 2)} ${unit(t.name)}`)),
         h('li', {}, h('strong', {}, r.allTargetsMet ? 'All targets met.' : 'Not every target is met.')));
     },
@@ -276,6 +301,16 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
     fn: (r: ReportV1) => {
       const t = Object.fromEntries(r.targets.map((x) => [x.name, x.limit]));
       return ductilityByStepChart(r.steps, { stressUnit: S(r), ...(t.minRemainingElongationPct !== undefined ? { minRemainingElongationPct: t.minRemainingElongationPct } : {}), width: 600 });
+    },
+  })
+  .cell({
+    name: 'hardnessChart', inputs: ['report'], into: 'cell-hardness-chart',
+    fn: (r: ReportV1) => {
+      const t = Object.fromEntries(r.targets.map((x) => [x.name, x.limit]));
+      const hm = r.material.hardness;
+      return h('div', {},
+        hardnessByStepChart(r.steps, { ...(hm ? { initialHV: hm.initialHV } : {}), ...(t.minHardnessHV !== undefined ? { minHardnessHV: t.minHardnessHV } : {}), ...(t.maxHardnessHV !== undefined ? { maxHardnessHV: t.maxHardnessHV } : {}), width: 600 }),
+        hm ? h('p', { id: 'hardness-basis', class: 'sl-note' }, hardnessText(hm)) : null);
     },
   });
 

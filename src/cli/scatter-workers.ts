@@ -17,7 +17,7 @@ if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE && 
   port.on('message', (index: number) => {
     try {
       const b = sampleScatterBlock(prep, index);
-      port.postMessage({ block: b }, [b.inputs.buffer, b.reloadYield.buffer, b.tensileStrength.buffer, b.remainingElongationPct.buffer, b.metMask.buffer] as ArrayBuffer[]);
+      port.postMessage({ block: b }, [b.inputs.buffer, b.reloadYield.buffer, b.tensileStrength.buffer, b.remainingElongationPct.buffer, b.hardnessHV.buffer, b.metMask.buffer] as ArrayBuffer[]);
     } catch (e) {
       const err = e as Error;
       port.postMessage({ error: err instanceof InputError

@@ -1,4 +1,5 @@
 import { formatProblem } from '../plan/problems.js';
+import { targetUnit } from '../report/columns.js';
 import { alignTable } from '../report/table.js';
 import type { Outcome } from './batch.js';
 
@@ -9,7 +10,7 @@ export function tightest(o: Outcome): string {
   const r = o.report;
   if (!r || r.targets.length === 0) return '—';
   const t = r.targets.reduce((a, b) => (b.margin < a.margin ? b : a));
-  return `${t.margin.toFixed(2)} ${t.name === 'minRemainingElongationPct' ? '%' : r.units.stress} (${t.name})`;
+  return `${t.margin.toFixed(2)} ${targetUnit(r, t.name)} (${t.name})`;
 }
 
 /**

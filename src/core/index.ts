@@ -34,7 +34,28 @@ export { evaluateRoute } from './route/ledger.js';
 export type { LedgerOptions } from './route/ledger.js';
 export { checkTargets, checkSpringbackTarget, validateTargets, TARGET_DEFS, TARGET_NAMES } from './route/targets.js';
 export { coldWorkWindow } from './route/window.js';
+export { checkTemperTarget } from './route/targets.js';
+export { DEFAULT_GRAIN_GROWTH_STRAIN, validateGrainGrowthStrain, inGrainGrowthRange } from './route/grainGrowth.js';
+
+// Standard tempers: copper strip by B&S numbers, strain-hardened aluminium, carbon steel strip
+export { BS_NUMBER_RATIO, bsReductionPct } from './temper/bsNumbers.js';
+export { h18Increase, aluminiumH1xBoundaries, H18_INCREASE, H19_ABOVE_H18 } from './temper/aluminiumH1x.js';
+export {
+  TEMPER_SYSTEMS, COPPER_ROLLED_TEMPERS, STEEL_STRIP_TEMPERS, hvOfRockwellB, TEMPER_BOUNDARY_TOL, temperScale, temperBasisValue, temperOf, temperStrainBand,
+} from './temper/scale.js';
+export type * from './temper/types.js';
 export type * from './route/types.js';
+
+// Hardness: Tabor's relation, the Tabor-factor fit from readings, conversion tables (issue 15)
+export { STANDARD_GRAVITY, VICKERS_CONTACT_RATIO, HARDNESS_DEFAULTS, HARDNESS_RANGES } from './hardness/defaults.js';
+export { taborHardness, strainForHardness, validateHardnessModel, defaultHardnessModel } from './hardness/taborHardness.js';
+export { fitTaborFactor } from './hardness/fitTaborFactor.js';
+export type { TaborFit } from './hardness/fitTaborFactor.js';
+export { convertHardness, hardnessConversions, hardnessTableRange } from './hardness/convertHardness.js';
+export type { ConvertedHardness } from './hardness/convertHardness.js';
+export { STEEL_TABLE, CONVERSION_TABLES, CONVERSION_GROUPS, HARDNESS_SCALES } from './hardness/conversionTables.js';
+export type { ConversionTable } from './hardness/conversionTables.js';
+export type * from './hardness/types.js';
 
 // Load paths with reversal: 1-D return mapping, Armstrong–Frederick backstresses
 export { createPathStepper, integratePath, PATH_DEFAULTS } from './path/integrate.js';

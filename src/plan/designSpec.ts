@@ -99,6 +99,11 @@ export function loadDesignSpecText(text: string, file = 'spec.json', format = fo
     if (w.maxYield !== undefined) window.maxYield = units.toMPa(w.maxYield);
     if (w.minTensile !== undefined) window.minTensile = units.toMPa(w.minTensile);
     if (w.minRemainingElongationPct !== undefined) window.minRemainingElongationPct = w.minRemainingElongationPct;
+    if (w.temper !== undefined) window.temper = w.temper;
+    // Vickers numbers are the same in SI and US plans (kgf/mm²): not converted.
+    if (w.minHardnessHV !== undefined && w.maxHardnessHV !== undefined && w.minHardnessHV > w.maxHardnessHV) throw new InputError('window.maxHardnessHV', w.maxHardnessHV, `a value ≥ minHardnessHV (${w.minHardnessHV})`);
+    if (w.minHardnessHV !== undefined) window.minHardnessHV = w.minHardnessHV;
+    if (w.maxHardnessHV !== undefined) window.maxHardnessHV = w.maxHardnessHV;
     const p = doc.process;
     const s: DesignSpec = {
       material,

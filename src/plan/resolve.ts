@@ -3,7 +3,12 @@ import { evaluateRoute } from '../core/route/ledger.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import { makeLaw } from '../core/flow/makeLaw.js';
 import { isotropicPart, validateKinematic } from '../core/path/hardening.js';
-import type { LawSpec } from '../core/flow/types.js';
+import { validateGrainGrowthStrain } from '../core/route/grainGrowth.js';
+import type { FlowLaw, LawSpec } from '../core/flow/types.js';
+import { HARDNESS_DEFAULTS } from '../core/hardness/defaults.js';
+import { fitTaborFactor } from '../core/hardness/fitTaborFactor.js';
+import { validateHardnessModel } from '../core/hardness/taborHardness.js';
+import type { HardnessModel } from '../core/hardness/types.js';
 import type { Ledger, Material, RouteInput, Size, Step, Targets } from '../core/route/types.js';
 import { prepareScatter, type ScatterProblem } from '../core/scatter/problem.js';
 import type { Located } from './parse.js';
@@ -110,6 +115,8 @@ export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): Resolve
     if (!(b > a)) throw new InputError('material.fittedStrainRange', m.fittedStrainRange, 'a pair [from, to] with to > from');
     return [a, b];
   });
+  const grainGrowthStrain = m.grainGrowthStrain && check(() => validateGrainGrowthStrain(m.grainGrowthStrain, 'material.grainGrowthStrain'));
+
   const targets: Targets = {};
   const t = doc.targets;
   if (t.minYield !== undefined) targets.minYield = units.toMPa(t.minYield);
@@ -117,6 +124,19 @@ export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): Resolve
   if (t.minTensile !== undefined) targets.minTensile = units.toMPa(t.minTensile);
   if (t.minRemainingElongationPct !== undefined) targets.minRemainingElongationPct = t.minRemainingElongationPct;
   if (t.maxSpringbackDeg !== undefined) targets.maxSpringbackDeg = t.maxSpringbackDeg;
+  if (t.temper !== undefined) targets.temper = t.temper;
+  check(() => {
+    if (t.temper !== undefined && m.temperSystem === undefined) throw new InputError('targets.temper', t.temper, 'a temper target only with material.temperSystem set');
+  });
+  // Vickers numbers (kgf/mm²) are the same in SI and US plans: not converted (plan/units.ts).
+  if (t.minHardnessHV !== undefined) targets.minHardnessHV = t.minHardnessHV;
+  if (t.maxHardnessHV !== undefined) targets.maxHardnessHV = t.maxHardnessHV;
+  check(() => {
+    if (t.minHardnessHV !== undefined && t.maxHardnessHV !== undefined && t.minHardnessHV > t.maxHardnessHV) {
+      throw new InputError('targets.maxHardnessHV', t.maxHardnessHV, `a value ≥ minHardnessHV (${t.minHardnessHV})`, 'contradictory targets');
+    }
+  });
+  const hardness = m.hardness && law && check(() => resolveHardness(m.hardness!, law));
   check(() => {
     if (t.minYield !== undefined && t.maxYield !== undefined && t.minYield > t.maxYield) {
       throw new InputError('targets.maxYield', t.maxYield, `a value ≥ minYield (${t.minYield})`, 'contradictory targets');
@@ -129,11 +149,34 @@ export function resolvePlan(doc: PlanDoc, file = 'plan', loc?: Located): Resolve
   if (modulusDecay) material.modulusDecay = modulusDecay;
   if (kinematic) material.kinematic = kinematic;
   if (fittedStrainRange) material.fittedStrainRange = fittedStrainRange;
+  if (m.temperSystem !== undefined) material.temperSystem = m.temperSystem;
+  if (grainGrowthStrain) material.grainGrowthStrain = grainGrowthStrain;
+  if (hardness) material.hardness = hardness;
   return withLocation(file, loc, () => withScatter({
     doc,
     units,
     route: { material, start: convertSize(doc.start, units.toMm), steps: doc.steps.map((s) => convertStep(s, units.toMm, units.toN)), targets },
   }));
+}
+
+/**
+ * The plan's `material.hardness` as a core hardness model: the given Tabor factor, or one fitted to
+ * `readings` with its 95 % interval, or the defaults; the representative strain given or 0.08.
+ * @throws InputError naming `material.hardness.readings` when both a factor and readings are given, or
+ * when the readings do not fit (see fitTaborFactor).
+ */
+export function resolveHardness(h: NonNullable<PlanDoc['material']['hardness']>, law: FlowLaw): HardnessModel {
+  const representativeStrain = h.representativeStrain ?? HARDNESS_DEFAULTS.representativeStrain;
+  let model: HardnessModel;
+  if (h.readings !== undefined) {
+    if (h.taborFactor !== undefined) throw new InputError('material.hardness.readings', `${h.readings.length} readings`, 'either readings or taborFactor, not both', 'c is either given or fitted');
+    const fit = fitTaborFactor(law, h.readings, representativeStrain, 'material.hardness.readings');
+    model = { taborFactor: fit.taborFactor, representativeStrain, basis: 'fitted', taborFactorInterval: fit.interval, readings: fit.n };
+  } else {
+    model = { taborFactor: h.taborFactor ?? HARDNESS_DEFAULTS.taborFactor, representativeStrain, basis: h.taborFactor !== undefined ? 'given' : 'default' };
+  }
+  if (h.conversionTable !== undefined) model.conversionGroup = h.conversionTable;
+  return validateHardnessModel(model);
 }
 
 /** Runs `fn`, turning core InputErrors and ComputationErrors into a located PlanError. */

@@ -58,6 +58,7 @@ export function resolveScatter(sc: ScatterDoc, route: RouteInput, units: Units):
       name: m.name, elasticModulus: m.elasticModulus, poissonRatio: m.poissonRatio, flowCurve: lawSpec(law),
       ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}),
       ...(m.fittedStrainRange ? { fittedStrainRange: m.fittedStrainRange } : {}),
+      ...(m.hardness ? { hardness: m.hardness } : {}),
     },
     start: route.start,
     steps: route.steps,

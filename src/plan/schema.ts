@@ -65,6 +65,23 @@ export const MaterialSchema = z.strictObject({
     .describe('True plastic strain range the law was fitted on; the ledger warns beyond it'),
   density: z.number().gte(500).lte(25000).optional().describe('density, kg/m³ (SI in both unit systems), for the temperature rise of a pass'),
   specificHeat: z.number().gte(50).lte(5000).optional().describe('specific heat, J/(kg·K) (SI in both unit systems), for the temperature rise of a pass'),
+  temperSystem: z.enum(['copperRolled', 'aluminiumH1x', 'steelStrip']).optional()
+    .describe('Standard tempers to name each step in: copperRolled (ASTM B601 H01–H10, strip only), aluminiumH1x (H12–H19 by tensile strength), steelStrip (ASTM A109 No. 5–No. 1 by hardness)'),
+  grainGrowthStrain: z.tuple([z.number().gte(0).lte(1).describe('from'), z.number().gt(0).lte(1).describe('to')]).optional()
+    .describe('Equivalent strain since the previous anneal within which a full anneal risks coarse grains; default [0.02, 0.10] (common practice)'),
+  hardness: z.strictObject({
+    taborFactor: z.number().gte(1).lte(5).optional()
+      .describe("Tabor factor c: Vickers hardness in MPa over the flow stress at the accumulated strain plus representativeStrain; default 3·sin(68°) ≈ 2.78 (Tabor's 3, Vickers contact area). Not with readings"),
+    representativeStrain: z.number().gte(0).lte(0.3).optional()
+      .describe('strain the indentation adds to the accumulated strain; default 0.08 (Tabor, Vickers pyramid)'),
+    readings: z.array(z.strictObject({
+      strain: z.number().gte(0).lte(5).describe('accumulated equivalent plastic strain of the state read (true)'),
+      hv: z.number().gte(1).lte(3000).describe('Vickers hardness read on that state, HV (kgf/mm², the same in SI and US plans)'),
+    })).min(2).max(1000).optional()
+      .describe('your own hardness readings of states of known strain; c is fitted to them (least squares through the origin, 95 % interval). Not with taborFactor'),
+    conversionTable: z.enum(['steel']).optional()
+      .describe('material group of a published hardness conversion table (ISO 18265 / ASTM E140); gives approximate HB, HRB, HRC and Rm inside the table range. Only non-austenitic steels are included'),
+  }).optional().describe('Vickers hardness after every step by Tabor\'s relation HV = c·σ(ε̄ + εr)/9.80665 (HV in kgf/mm²)'),
 });
 
 export const StartSchema = z.strictObject({
@@ -114,7 +131,10 @@ export const TargetsSchema = z.strictObject({
   maxYield: nonNeg('highest acceptable reload yield of the final state (plan stress unit)').optional(),
   minTensile: nonNeg('lowest acceptable tensile strength of the final state (plan stress unit)').optional(),
   minRemainingElongationPct: nonNeg('lowest acceptable remaining uniform elongation, %').optional(),
+  minHardnessHV: z.number().gte(0).lte(3000).optional().describe('lowest acceptable Vickers hardness of the final state, HV (kgf/mm², the same in SI and US plans)'),
+  maxHardnessHV: z.number().gte(0).lte(3000).optional().describe('highest acceptable Vickers hardness of the final state, HV'),
   maxSpringbackDeg: z.number().gte(0).lte(180).optional().describe('largest acceptable springback of any bend step, degrees'),
+  temper: z.string().min(1).max(20).optional().describe('temper the final state must have, in material.temperSystem, e.g. "H04"'),
 });
 
 export const PlanSchema = z.strictObject({

@@ -21,7 +21,10 @@ export interface Units {
   fromMPa(x: number): number;
   toMm(x: number): number;
   fromMm(x: number): number;
-  /** Forces: N (SI) or lbf (US); torques N·m or lbf·ft. Density (kg/m³) and specific heat (J/(kg·K)) stay SI in both systems. */
+  /**
+   * Forces: N (SI) or lbf (US); torques N·m or lbf·ft. Density (kg/m³) and specific heat (J/(kg·K)) stay SI in both systems.
+   * Vickers hardness (HV, kgf/mm² by convention; targets, readings, report) is the same number in SI and US plans: never converted.
+   */
   force: 'N' | 'lbf';
   torque: 'N·m' | 'lbf·ft';
   toN(x: number): number;

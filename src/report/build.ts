@@ -1,11 +1,15 @@
+import type { TemperState } from '../core/temper/types.js';
 import type { BendFields, KinematicFields, Ledger, LedgerRow, PassLoadFields, Size, TargetResult, Warning } from '../core/route/types.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
+import { CONVERSION_TABLES } from '../core/hardness/conversionTables.js';
+import { hardnessConversions } from '../core/hardness/convertHardness.js';
+import { defaultHardnessModel } from '../core/hardness/taborHardness.js';
 import type { LoadedPlan } from '../plan/load.js';
 import { convertLaw, withLocation } from '../plan/resolve.js';
 import { runScatter } from '../core/scatter/run.js';
 import type { ScatterSummary } from '../core/scatter/summarize.js';
 import { scatterReport, type ReportScatter } from './scatter.js';
-import { CAUTIONS } from './cautions.js';
+import { CAUTIONS, TEMPER_CAUTION } from './cautions.js';
 
 /** Version of the JSON report contract. Bump only when a field changes meaning or is removed. */
 export const REPORT_VERSION = 1;
@@ -33,7 +37,32 @@ export interface ReportStep extends KinematicFields, BendFields, PassLoadFields 
   recoveredElasticEnergy: number;
   meanFlowStress: number;
   plasticWork: number;
+  /** The step's temper in the material's temper system (null outside it); present only when the material names one. */
+  temper?: TemperState | null;
+  /** Vickers hardness by Tabor's relation, HV (kgf/mm², the same in SI and US reports). */
+  hardnessHV?: number;
+  /** Approximate conversions of hardnessHV by the material group's table (only inside its range; `material.hardness.conversionTable`). */
+  hardnessHB?: number;
+  hardnessHRB?: number;
+  hardnessHRC?: number;
+  /** Tensile strength estimated from hardnessHV by the conversion table, approximate (stress unit). */
+  tensileFromHardness?: number;
   warnings: Warning[];
+}
+
+/** The hardness model of the report's material: Tabor's relation and where its factor came from. */
+export interface ReportHardness {
+  relation: string;
+  taborFactor: number;
+  representativeStrain: number;
+  /** `default` (Tabor's 3 × the Vickers contact ratio), `given` in the plan, or `fitted` to readings. */
+  basis: 'default' | 'given' | 'fitted';
+  /** 95 % interval of the fitted factor (basis `fitted`). */
+  taborFactorInterval?: [number, number];
+  readings?: number;
+  /** Hardness of the annealed state, HV. */
+  initialHV: number;
+  conversionTable?: { group: string; source: string; note: string };
 }
 
 /** The JSON report, version 1: stresses (and work per volume) in the plan's stress unit, sizes in its length unit. */
@@ -46,8 +75,13 @@ export interface ReportV1 {
     elasticModulus: number;
     flowCurve: Record<string, unknown>;
     source: string;
+    /** The material's temper system, when the plan names one. */
+    temperSystem?: string;
+    /** The grain-growth strain range of the material, when the plan sets one (else the default [0.02, 0.10]). */
+    grainGrowthStrain?: [number, number];
     uniformStrain: number;
     initial: { reloadYield: number; tensileStrength: number; uniformElongationPct: number };
+    hardness?: ReportHardness;
   };
   steps: ReportStep[];
   targets: TargetResult[];
@@ -106,8 +140,34 @@ export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: stri
       ...(r.springbackDeg !== undefined ? { springbackDeg: r.springbackDeg } : {}),
       ...(r.finalAngleDeg !== undefined ? { finalAngleDeg: r.finalAngleDeg } : {}),
       ...(r.finalRadius !== undefined ? { finalRadius: r.finalRadius === null ? null : u.fromMm(r.finalRadius) } : {}),
+      ...(r.temper !== undefined ? { temper: r.temper } : {}),
+      hardnessHV: r.hardnessHV,
+      ...conversions(r.hardnessHV),
       warnings: r.warnings,
     };
+  };
+  // Approximate conversions of the Vickers estimate, only where the material's table covers the value.
+  const group = m.hardness?.conversionGroup;
+  const conversions = (hv: number): Partial<ReportStep> => {
+    if (!group) return {};
+    const c = hardnessConversions(hv, group);
+    const out: Partial<ReportStep> = {};
+    if (c.HB !== undefined) out.hardnessHB = c.HB;
+    if (c.HRB !== undefined) out.hardnessHRB = c.HRB;
+    if (c.HRC !== undefined) out.hardnessHRC = c.HRC;
+    if (c.Rm !== undefined) out.tensileFromHardness = S(c.Rm);
+    return out;
+  };
+  const hm = m.hardness ?? defaultHardnessModel();
+  const hardness: ReportHardness = {
+    relation: 'HV = c·σ(ε̄ + εr)/9.80665 (Tabor), σ the flow curve in MPa, HV in kgf/mm²',
+    taborFactor: hm.taborFactor,
+    representativeStrain: hm.representativeStrain,
+    basis: hm.basis,
+    ...(hm.taborFactorInterval ? { taborFactorInterval: [hm.taborFactorInterval[0], hm.taborFactorInterval[1]] as [number, number] } : {}),
+    ...(hm.readings !== undefined ? { readings: hm.readings } : {}),
+    initialHV: ledger.initial.hardnessHV,
+    ...(group ? { conversionTable: { group, source: CONVERSION_TABLES[group].source, note: `approximate; given only inside the table's range (HB, HRB, HRC, Rm each have their own), blank outside it` } } : {}),
   };
   const lawOut = convertLaw({ law: m.law.law, ...m.law.params } as never, S) as unknown as Record<string, unknown>;
   // Keep parameter order as in the law's table, for stable output.
@@ -122,21 +182,24 @@ export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: stri
       elasticModulus: S(m.elasticModulus),
       flowCurve,
       source: m.source ?? 'given in the plan',
+      ...(m.temperSystem !== undefined ? { temperSystem: m.temperSystem } : {}),
+      ...(m.grainGrowthStrain !== undefined ? { grainGrowthStrain: [m.grainGrowthStrain[0], m.grainGrowthStrain[1]] as [number, number] } : {}),
       uniformStrain: ledger.uniformStrain,
       initial: {
         reloadYield: S(ledger.initial.reloadYield),
         tensileStrength: S(ledger.initial.tensileStrength),
         uniformElongationPct: ledger.initial.remainingUniformElongationPct,
       },
+      hardness,
     },
     steps: ledger.rows.map(step),
-    targets: ledger.targets.map((t) => stressTargets.has(t.name)
+    targets: ledger.targets.map((t) => stressTargets.has(t.name) || t.temper?.basis === 'tensileStrength'
       ? { ...t, limit: S(t.limit), predicted: S(t.predicted), margin: S(t.margin) }
       : { ...t }),
     allTargetsMet: ledger.allTargetsMet,
     coldWorkWindow: ledger.coldWorkWindow,
     // Scatter: computed here on one thread unless the runner already sampled it on worker threads (same numbers).
     ...(plan.scatter ? { scatter: scatterReport(plan.scatter, meta.scatter ?? withLocation(plan.file, plan.loc, () => runScatter(plan.scatter!)), u) } : {}),
-    cautions: [...CAUTIONS],
+    cautions: m.temperSystem !== undefined ? [...CAUTIONS, TEMPER_CAUTION] : [...CAUTIONS],
   };
 }

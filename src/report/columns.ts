@@ -1,5 +1,5 @@
 import type { ReportStep, ReportV1 } from './build.js';
-import { extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
+import { conversionHeader, extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
 
 const fx = (x: number, d: number) => x.toFixed(d);
 
@@ -30,7 +30,10 @@ export function stepColumns(r: ReportV1): StepColumn[] {
     { header: 'Ag left %', numeric: true, cell: (s) => fx(s.remainingUniformElongationPct, 1) },
     { header: 'recovery %', numeric: true, cell: (s) => fx(s.elasticRecoveryStrain * 100, 3) },
   ];
-  for (const key of extraStepFields(r.steps)) cols.push({ header: key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
+  // Vickers hardness (Tabor estimate) to 0.1 HV, in its own column when the report has it.
+  if (r.steps.some((s) => s.hardnessHV !== undefined)) cols.push({ header: 'HV', numeric: true, cell: (s) => (s.hardnessHV === undefined ? '—' : fx(s.hardnessHV, 1)) });
+  for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: conversionHeader(key, S) ?? key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
+  if (hasTemper(r)) cols.push({ header: 'temper', numeric: false, cell: temperText });
   cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
   return cols;
 }
@@ -45,7 +48,32 @@ export function windowText(r: ReportV1): string {
   return w.note + red;
 }
 
+/** Whether the report's steps carry tempers (the material names a temper system). */
+export function hasTemper(r: ReportV1): boolean {
+  return r.steps.some((s) => s.temper !== undefined);
+}
+
+/**
+ * A step's temper for a human report: the designation and how far it is toward the next temper,
+ * `H02 (49 % to H03)`; the top temper alone (`H10`); `—` outside the system or without one.
+ */
+export function temperText(s: ReportStep): string {
+  const t = s.temper;
+  if (!t) return '—';
+  return t.next === null || t.towardNext === null ? t.designation : `${t.designation} (${Math.floor(t.towardNext * 100)} % to ${t.next})`;
+}
+
+/** For a temper target, the tempers wanted and reached in words (` — H04 wanted, H02 reached`); '' for other targets. */
+export function temperTargetNote(t: ReportV1['targets'][number]): string {
+  return t.temper ? ` — ${t.temper.wanted} wanted, ${t.temper.got ?? 'none of the system'} reached` : '';
+}
+
 /** The unit of a target's limit, predicted value and margin. */
 export function targetUnit(r: ReportV1, name: string): string {
+  if (name === 'temper') {
+    const basis = r.targets.find((t) => t.name === 'temper')?.temper?.basis;
+    return basis === 'tensileStrength' ? r.units.stress : basis === 'hardnessHV' ? 'HV' : '% thickness reduction';
+  }
+  if (name === 'minHardnessHV' || name === 'maxHardnessHV') return 'HV';
   return name === 'minRemainingElongationPct' ? '%' : name === 'maxSpringbackDeg' ? '°' : r.units.stress;
 }

@@ -20,9 +20,12 @@ const V1_NUMERIC = [
 ] as const;
 
 /** Header of {@link csvReport}'s rows for a report (extra numeric step fields included). */
-export function csvHeader(extras: readonly string[]): string[] {
-  return ['plan', 'stressUnit', 'lengthUnit', 'index', 'kind', 'label', 'thickness', 'width', 'diameter', 'height', ...V1_NUMERIC, ...extras, 'warnings'];
+export function csvHeader(extras: readonly string[], tempers = false): string[] {
+  return ['plan', 'stressUnit', 'lengthUnit', 'index', 'kind', 'label', 'thickness', 'width', 'diameter', 'height', ...V1_NUMERIC, ...extras, ...(tempers ? TEMPER_COLUMNS : []), 'warnings'];
 }
+
+/** Temper columns (present when a step carries a temper): designation, its name, the next temper, the fraction of the way to it. */
+export const TEMPER_COLUMNS = ['temper', 'temperName', 'temperNext', 'temperTowardNext'] as const;
 
 /**
  * The ledger as CSV (RFC 4180, CRLF line ends, header row): one row per step, numbers at full
@@ -30,15 +33,17 @@ export function csvHeader(extras: readonly string[]): string[] {
  * numeric step fields after report v1's, warning codes joined by `;`. Machine-readable: no cautions
  * here; the human-readable formats carry them.
  */
-export function csvReport(r: ReportV1, opts: { header?: boolean; extras?: readonly string[] } = {}): string {
+export function csvReport(r: ReportV1, opts: { header?: boolean; extras?: readonly string[]; tempers?: boolean } = {}): string {
   const extras = opts.extras ?? extraStepFields(r.steps);
-  let out = opts.header === false ? '' : csvLine(csvHeader(extras));
+  const tempers = opts.tempers ?? r.steps.some((s) => s.temper !== undefined);
+  let out = opts.header === false ? '' : csvLine(csvHeader(extras, tempers));
   for (const s of r.steps) {
     const row = s as unknown as Record<string, number>;
     out += csvLine([
       r.plan.name, r.units.stress, r.units.length, s.index, s.kind, s.label ?? '',
       s.size.thickness, s.size.width, s.size.diameter, s.size.height,
-      ...V1_NUMERIC.map((k) => row[k]), ...extras.map((k) => stepNumber(s, k)), s.warnings.map((w) => w.code).join(';'),
+      ...V1_NUMERIC.map((k) => row[k]), ...extras.map((k) => stepNumber(s, k)),
+      ...(tempers ? [s.temper?.designation, s.temper?.name, s.temper?.next, s.temper?.towardNext] : []), s.warnings.map((w) => w.code).join(';'),
     ]);
   }
   return out;

@@ -32,6 +32,11 @@ export function extraSections(r: ReportV1): [string, unknown][] {
   return Object.entries(r).filter(([k]) => !REPORT_FIELDS_V1.includes(k));
 }
 
+/** Column headers of the approximate hardness conversions (`≈`: converted by a table, an estimate). */
+export function conversionHeader(key: string, stressUnit: string): string | undefined {
+  return ({ hardnessHB: '≈HB', hardnessHRB: '≈HRB', hardnessHRC: '≈HRC', tensileFromHardness: `≈Rm from HV ${stressUnit}` } as Record<string, string>)[key];
+}
+
 /** A step's extra numeric field, or undefined. */
 export function stepNumber(s: ReportStep, key: string): number | undefined {
   const v = (s as unknown as Record<string, unknown>)[key];
@@ -67,5 +72,15 @@ export function provenance(r: ReportV1): { label: string; value: string }[] {
     { label: 'elastic modulus', value: `${+r.material.elasticModulus.toPrecision(6)} ${r.units.stress}` },
     { label: 'hardening law', value: `${fc} (true stress in ${r.units.stress} vs true plastic strain)` },
     { label: 'law source', value: r.material.source },
+    ...(r.material.hardness ? [{ label: 'hardness', value: hardnessText(r.material.hardness) }] : []),
   ];
+}
+
+/** The hardness model in one line: relation, factor and its basis, representative strain, table. */
+export function hardnessText(h: NonNullable<ReportV1['material']['hardness']>): string {
+  const basis = h.basis === 'fitted'
+    ? `fitted to ${h.readings} readings, 95 % interval ${h.taborFactorInterval!.map((x) => x.toFixed(3)).join('–')}`
+    : h.basis === 'given' ? 'given in the plan' : "default: Tabor's 3 × Vickers contact ratio 0.927";
+  const table = h.conversionTable ? `; conversions (approximate) by ${h.conversionTable.source}` : '; no conversion table (HV only)';
+  return `HV = c·σ(ε̄ + εr)/9.80665 (Tabor), c = ${h.taborFactor.toFixed(3)} (${basis}), εr = ${h.representativeStrain}; annealed ${h.initialHV.toFixed(1)} HV${table}`;
 }

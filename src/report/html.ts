@@ -1,8 +1,9 @@
 import { parseHTML } from 'linkedom';
 import { ductilityByStepChart, strengthByStepChart } from '../charts/ledger.js';
+import { hardnessByStepChart } from '../charts/hardness.js';
 import { PALETTE } from '../charts/palette.js';
 import type { ReportV1 } from './build.js';
-import { stepColumns, targetUnit, windowText } from './columns.js';
+import { stepColumns, targetUnit, temperTargetNote, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
 import { scatterView } from './scatter.js';
 
@@ -54,11 +55,15 @@ export function htmlReport(r: ReportV1): string {
   parts.push(table(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
   parts.push(`<figure>${strength.outerHTML}<figcaption>Reload yield Rp0.2 and tensile strength Rm after each step (step 0: annealed); the band is the yield target.</figcaption></figure>`);
   parts.push(`<figure>${ductility.outerHTML}<figcaption>Remaining uniform elongation and %CW since the last anneal after each step.</figcaption></figure>`);
+  if (r.steps.some((s) => s.hardnessHV !== undefined)) {
+    const hv = hardnessByStepChart(r.steps, opt({ initialHV: r.material.hardness?.initialHV, minHardnessHV: limit('minHardnessHV'), maxHardnessHV: limit('maxHardnessHV'), document: document as unknown as Document }));
+    parts.push(`<figure>${hv.outerHTML}<figcaption>Vickers hardness estimated by Tabor's relation after each step (step 0: annealed); the band is the hardness target. An estimate: release parts by measured hardness.</figcaption></figure>`);
+  }
   parts.push('<h2>Targets</h2>');
   if (r.targets.length === 0) parts.push('<p>No targets given.</p>');
   else {
     parts.push(table(['target', 'status', 'limit', 'predicted', 'margin', 'unit'],
-      r.targets.map((t) => [t.name, t.met ? 'met' : 'NOT MET', t.limit.toFixed(2), t.predicted.toFixed(2), t.margin.toFixed(2), targetUnit(r, t.name)]),
+      r.targets.map((t) => [t.name + temperTargetNote(t), t.met ? 'met' : 'NOT MET', t.limit.toFixed(2), t.predicted.toFixed(2), t.margin.toFixed(2), targetUnit(r, t.name)]),
       [false, false, true, true, true, false]));
   }
   parts.push(`<p><strong>Cold-work window:</strong> ${htmlText(windowText(r))}</p>`);

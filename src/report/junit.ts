@@ -1,5 +1,5 @@
 import type { ReportV1 } from './build.js';
-import { targetUnit } from './columns.js';
+import { targetUnit, temperTargetNote } from './columns.js';
 
 /** Escapes text for XML 1.0 content and attributes; drops characters XML 1.0 forbids. */
 export function xmlText(s: string): string {
@@ -30,6 +30,12 @@ function suiteXml(s: JunitSuite): string {
   for (const [k, v] of [['plan.file', r.plan.file], ['plan.sha256', r.plan.hash], ['tool', r.plan.tool], ['material', r.material.name], ['law.source', r.material.source]] as const) {
     x += `      <property name="${k}" value="${xmlText(v)}"/>\n`;
   }
+  // The basis of the hardness estimate, when hardness targets are judged (Tabor factor and where it came from).
+  const h = r.material.hardness;
+  if (h && r.targets.some((t) => t.name === 'minHardnessHV' || t.name === 'maxHardnessHV')) {
+    x += `      <property name="hardness.taborFactor" value="${h.taborFactor.toFixed(4)}"/>\n`;
+    x += `      <property name="hardness.basis" value="${xmlText(h.basis)}"/>\n`;
+  }
   // A plan with a scatter section: the chance of meeting every target and the lower bound, as
   // properties a dashboard can chart (not test cases: the targets are judged on the nominal route).
   if (r.scatter) {
@@ -42,7 +48,7 @@ function suiteXml(s: JunitSuite): string {
   x += '    </properties>\n';
   for (const t of r.targets) {
     const u = targetUnit(r, t.name);
-    const text = `${t.name}: predicted ${t.predicted.toFixed(2)} ${u}, limit ${t.limit.toFixed(2)} ${u}, margin ${t.margin.toFixed(2)} ${u}`;
+    const text = `${t.name}: predicted ${t.predicted.toFixed(2)} ${u}, limit ${t.limit.toFixed(2)} ${u}, margin ${t.margin.toFixed(2)} ${u}${temperTargetNote(t)}`;
     x += `    <testcase classname="${name}" name="${xmlText(t.name)}">\n`;
     if (!t.met) x += `      <failure message="${xmlText(text)}" type="targetMissed">${xmlText(text)}</failure>\n`;
     else x += `      <system-out>${xmlText(text)}</system-out>\n`;

@@ -1,3 +1,4 @@
+import { TARGET_DEFS } from '../core/route/targets.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { ScatterProblem } from '../core/scatter/problem.js';
 import type { Distribution, ScatterSummary } from '../core/scatter/summarize.js';
@@ -24,6 +25,8 @@ export interface ReportScatter {
   finalReloadYield: Dist;
   tensileStrength: Dist;
   remainingElongationPct: Dist;
+  /** Final Vickers hardness (Tabor estimate), HV: the same in SI and US reports. */
+  hardnessHV?: Dist;
   toleranceBound: {
     value: number; coverage: number; confidence: number; method: string;
     normalK: number; normalValue: number; distributionFreeRank: number | null; distributionFreeValue: number | null; note: string;
@@ -49,7 +52,7 @@ export function scatterReport(problem: ScatterProblem, s: ScatterSummary, u: Uni
   problem.inputs.forEach((a, i) => problem.inputs.forEach((b, j) => {
     if (j > i && problem.correlation[i]![j] !== 0) correlation[`${a.name},${b.name}`] = problem.correlation[i]![j]!;
   }));
-  const stressTarget = (n: string) => n !== 'minRemainingElongationPct' && n !== 'maxSpringbackDeg';
+  const stressTarget = (n: string) => (TARGET_DEFS as Record<string, { unit: string } | undefined>)[n]?.unit === 'stress';
   const tb = s.toleranceBound;
   return {
     samples: s.samples,
@@ -64,6 +67,7 @@ export function scatterReport(problem: ScatterProblem, s: ScatterSummary, u: Uni
     finalReloadYield: dist(s.finalReloadYield),
     tensileStrength: dist(s.tensileStrength),
     remainingElongationPct: s.remainingElongationPct,
+    hardnessHV: s.hardnessHV,
     toleranceBound: {
       value: S(tb.value), coverage: tb.coverage, confidence: tb.confidence,
       method: tb.method === 'distribution-free' ? 'distribution-free order statistic (Wilks 1941)' : 'normal tolerance factor, noncentral t (NIST/SEMATECH e-Handbook §7.2.6.3)',
@@ -132,6 +136,8 @@ export function scatterView(s: ReportScatter, stress: string): ScatterView {
         dist('Rp0.2', stress, s.finalReloadYield, s.deltaMethod.finalReloadYield),
         dist('Rm', stress, s.tensileStrength, s.deltaMethod.tensileStrength),
         dist('remaining uniform elongation', '%', s.remainingElongationPct, s.deltaMethod.remainingElongationPct),
+        // No first-order estimate is computed for the hardness: '—'.
+        ...(s.hardnessHV ? [[...dist('Vickers hardness (Tabor estimate)', 'HV', s.hardnessHV, { mean: 0, sd: 0 }).slice(0, 7), '—', '—']] : []),
       ] },
     { title: `What drives the spread of ${s.sensitivity.output === 'finalReloadYield' ? 'the final Rp0.2' : s.sensitivity.output} (linear R² ${s.sensitivity.linearR2.toFixed(3)})`, header: ['input', 'standardised regression coefficient', 'correlation'], numeric: [false, true, true],
       rows: [...s.sensitivity.inputs].sort((a, b) => Math.abs(b.src) - Math.abs(a.src)).map((i) => [i.input, i.src.toFixed(2), i.correlation.toFixed(2)]) },

@@ -34,10 +34,21 @@ export const ReportStepSchema = z.looseObject({
   recoveredElasticEnergy: num('elastic energy recovered per volume (stress unit)'),
   meanFlowStress: num('mean flow stress over the step (stress unit)'),
   plasticWork: num('plastic work per volume of the step (stress unit)'),
+  temper: z.strictObject({
+    designation: z.string().min(1).describe('temper designation, e.g. H02'),
+    name: z.string().describe('its name, e.g. half hard'),
+    next: z.string().nullable().describe('the next harder temper; null at the top of the scale'),
+    towardNext: z.number().gte(0).lt(1).nullable().describe('fraction of the way from this temper\'s lower boundary to the next\'s, in the scale\'s basis'),
+  }).nullable().optional().describe('temper in material.temperSystem (null outside the system); present only when the material names one'),
+  hardnessHV: num("Vickers hardness by Tabor's relation, HV (kgf/mm²; the same in SI and US reports); an estimate").optional(),
+  hardnessHB: num('Brinell hardness converted from hardnessHV by the material group\'s table, approximate; only inside the table range').optional(),
+  hardnessHRB: num('Rockwell B converted from hardnessHV, approximate; only inside the table range').optional(),
+  hardnessHRC: num('Rockwell C converted from hardnessHV, approximate; only inside the table range').optional(),
+  tensileFromHardness: num('tensile strength estimated from hardnessHV by the conversion table, approximate (stress unit)').optional(),
   warnings: z.array(warning),
 });
 
-const targetName = z.enum(['minYield', 'maxYield', 'minTensile', 'minRemainingElongationPct', 'maxSpringbackDeg']);
+const targetName = z.enum(['minYield', 'maxYield', 'minTensile', 'minRemainingElongationPct', 'maxSpringbackDeg', 'minHardnessHV', 'maxHardnessHV', 'temper']);
 
 const probability = (what: string) => z.number().gte(0).lte(1).describe(what);
 const distribution = z.looseObject({ mean: z.number(), sd: z.number().nonnegative(), min: z.number(), p05: z.number(), p50: z.number(), p95: z.number(), max: z.number() });
@@ -56,6 +67,7 @@ export const ReportScatterSchema = z.looseObject({
   finalReloadYield: distribution,
   tensileStrength: distribution,
   remainingElongationPct: distribution,
+  hardnessHV: distribution.optional().describe('final Vickers hardness by Tabor\'s relation, HV (the same in SI and US reports)'),
   toleranceBound: z.looseObject({
     value: z.number().describe('lower tolerance bound on the final reload yield'),
     coverage: probability('share of parts covered'), confidence: probability('confidence of the bound'), method: z.string(),
@@ -87,11 +99,28 @@ export const ReportSchema = z.looseObject({
     elasticModulus: z.number().positive(),
     flowCurve: z.looseObject({ law: z.string() }),
     source: z.string(),
+    temperSystem: z.enum(['copperRolled', 'aluminiumH1x', 'steelStrip']).optional().describe('temper system the steps are named in'),
+    grainGrowthStrain: z.tuple([z.number(), z.number()]).optional().describe('strain range since the previous anneal in which a full anneal warns of coarse grains, when set in the plan'),
     uniformStrain: z.number(),
     initial: z.strictObject({ reloadYield: z.number(), tensileStrength: z.number(), uniformElongationPct: z.number() }),
+    hardness: z.looseObject({
+      relation: z.string(),
+      taborFactor: z.number().positive().describe('c: Vickers hardness in MPa over the flow stress at the accumulated strain plus representativeStrain'),
+      representativeStrain: z.number().nonnegative(),
+      basis: z.enum(['default', 'given', 'fitted']).describe('default (Tabor), given in the plan, or fitted to the plan\'s readings'),
+      taborFactorInterval: z.tuple([z.number(), z.number()]).optional().describe('95 % interval of a fitted factor (Student t)'),
+      readings: z.number().int().min(2).optional(),
+      initialHV: z.number().describe('hardness of the annealed state, HV'),
+      conversionTable: z.looseObject({ group: z.string(), source: z.string(), note: z.string() }).optional(),
+    }).optional().describe('The hardness model: Tabor\'s relation and the basis of its factor'),
   }),
   steps: z.array(ReportStepSchema),
-  targets: z.array(z.strictObject({ name: targetName, limit: z.number(), predicted: z.number(), margin: z.number(), met: z.boolean() })),
+  targets: z.array(z.strictObject({
+    name: targetName, limit: z.number(), predicted: z.number(), margin: z.number(), met: z.boolean(),
+    temper: z.strictObject({
+      wanted: z.string(), got: z.string().nullable(), basis: z.enum(['thicknessReductionPct', 'tensileStrength', 'hardnessHV']),
+    }).optional().describe('temper target only: limit is the temper\'s lower boundary, predicted the state\'s value, margin the distance to the nearer boundary, in the basis (% thickness reduction, stress unit, or HV)'),
+  })),
   allTargetsMet: z.boolean(),
   coldWorkWindow: z.strictObject({
     empty: z.boolean(),

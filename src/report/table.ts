@@ -1,6 +1,7 @@
 import type { ReportV1 } from './build.js';
-import { extraStepFields, sig4, stepNumber } from './fields.js';
+import { conversionHeader, extraStepFields, hardnessText, sig4, stepNumber } from './fields.js';
 import { scatterLines } from './scatter.js';
+import { hasTemper, targetUnit, temperTargetNote, temperText } from './columns.js';
 
 /** Fixed-decimal formatting used by all human-readable reports. */
 export function fixed(x: number | null | undefined, digits: number): string {
@@ -27,21 +28,26 @@ export function tableReport(r: ReportV1, color = false): string {
   const overrides = (r.plan as { overrides?: string[] }).overrides;
   if (overrides?.length) out.push(`overrides (--set): ${overrides.join('; ')}`);
   out.push(`material: ${r.material.name}; E = ${fixed(r.material.elasticModulus, 0)} ${S}; ${fc} (${r.material.source})`);
+  if (r.material.hardness) out.push(`hardness: ${hardnessText(r.material.hardness)}`);
   out.push(`annealed: Rp0.2 ${fixed(r.material.initial.reloadYield, 1)} ${S}, Rm ${fixed(r.material.initial.tensileStrength, 1)} ${S}, uniform elongation ${fixed(r.material.initial.uniformElongationPct, 1)} %`);
   out.push('');
   const size = (s: Record<string, number | undefined>) => s.thickness !== undefined ? `t ${fixed(s.thickness, 3)}` : s.diameter !== undefined ? `d ${fixed(s.diameter, 3)}` : s.height !== undefined ? `h ${fixed(s.height, 3)}` : '—';
   // Extra numeric step fields added after report v1 (4 significant figures), blank where absent.
-  const extras = extraStepFields(r.steps);
+  const extras = extraStepFields(r.steps).filter((k) => k !== 'hardnessHV');
+  // Vickers hardness (Tabor estimate) to 0.1 HV, in its own column when the report has it.
+  const tempers = hasTemper(r);
+  const hv = r.steps.some((s) => s.hardnessHV !== undefined) ? ['HV'] : [];
   const rows = r.steps.map((s) => [
     String(s.index), s.label ? `${s.kind} (${s.label})` : s.kind, size(s.size as Record<string, number | undefined>), fixed(s.strainIncrement, 4), fixed(s.accumulatedStrain, 4),
     fixed(s.coldWorkPct, 1), fixed(s.reloadYield, 1), fixed(s.tensileStrength, 1), fixed(s.yieldRatio, 3),
-    fixed(s.remainingUniformElongationPct, 1), fixed(s.elasticRecoveryStrain * 100, 3), ...extras.map((k) => sig4(stepNumber(s, k))), s.warnings.map((w) => w.code).join(','),
+    fixed(s.remainingUniformElongationPct, 1), fixed(s.elasticRecoveryStrain * 100, 3), ...hv.map(() => fixed(s.hardnessHV, 1)), ...extras.map((k) => sig4(stepNumber(s, k))),
+    ...(tempers ? [temperText(s)] : []), s.warnings.map((w) => w.code).join(','),
   ]);
-  out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε total', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', ...extras, 'warnings'], rows));
+  out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε total', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', ...hv, ...extras.map((k) => conversionHeader(k, S) ?? k), ...(tempers ? ['temper'] : []), 'warnings'], rows));
   out.push('');
   if (r.targets.length === 0) out.push('targets: none given');
   for (const t of r.targets) {
-    out.push(paint(t.met, `${t.met ? 'MET    ' : 'NOT MET'} ${t.name}: predicted ${fixed(t.predicted, 2)}, limit ${fixed(t.limit, 2)}, margin ${fixed(t.margin, 2)}`));
+    out.push(paint(t.met, `${t.met ? 'MET    ' : 'NOT MET'} ${t.name}: predicted ${fixed(t.predicted, 2)}, limit ${fixed(t.limit, 2)}, margin ${fixed(t.margin, 2)}${t.temper ? ` ${targetUnit(r, t.name)}` : ''}${temperTargetNote(t)}`));
   }
   const w = r.coldWorkWindow;
   out.push(`cold-work window: ${w.empty ? 'empty — ' + w.note : w.note}${!w.empty && w.reductionBasis && w.reductionPctFrom !== null ? `; ${w.reductionBasis} reduction ${fixed(w.reductionPctFrom, 1)} % to ${w.reductionPctTo === null ? 'no limit' : fixed(w.reductionPctTo, 1) + ' %'}` : ''}`);

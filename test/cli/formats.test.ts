@@ -35,7 +35,7 @@ const json = (file: string) => JSON.parse(run('run', file, '--format', 'json').s
 
 // Goldens also for the demos with a scatter section and with reversal and bend steps (their own
 // report sections: scatter tables, springback columns).
-const GOLDEN_DEMOS = { ...DEMOS, 'clip-strip-scatter': 'examples/clip-strip-scatter.json', 'hinge-tab-bend': 'examples/hinge-tab-bend.json' } as const;
+const GOLDEN_DEMOS = { ...DEMOS, 'clip-strip-scatter': 'examples/clip-strip-scatter.json', 'hinge-tab-bend': 'examples/hinge-tab-bend.json', 'terminal-strip-temper': 'examples/terminal-strip-temper.json' } as const;
 
 describe('strainledger run PLAN --format F matches its golden file', () => {
   for (const [name, file] of Object.entries(GOLDEN_DEMOS)) {
@@ -97,10 +97,11 @@ describe('every format carries the same numbers as the JSON report', () => {
       expect(plain).toMatch(/hollomon/);
     }
   });
-  it('html is one self-contained file: two Plot charts as inline SVG, no script, no external request', () => {
+  it('html is one self-contained file: three Plot charts (strength, ductility, hardness) as inline SVG, no script, no external request', () => {
     const html = run('run', DEMOS['contact-spring-strip'], '--format', 'html').stdout;
     const doc = new DOMParser().parseFromString(html, 'text/html');
-    expect(doc.querySelectorAll('figure svg[class^="plot"]').length).toBe(2);
+    expect(doc.querySelectorAll('figure svg[class^="plot"]').length).toBe(3);
+    expect(html).toMatch(/Vickers hardness estimated by Tabor's relation/);
     expect(doc.querySelectorAll('script, link, img, iframe').length).toBe(0);
     expect(html).not.toMatch(/(src|href)="(https?:)?\/\//);
     // The ledger table shows the same rounded reload yields as the JSON report.

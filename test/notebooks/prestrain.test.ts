@@ -36,6 +36,10 @@ describe('prestrain explorer', () => {
     // And the page equals the core for the same state (the same module the runner uses).
     const core = stateProperties({ name: 'cu', elasticModulus: 115000, poissonRatio: 0.3, law: hollomon({ K: 530, n: 0.44 }) }, 0.2);
     expect(await num(page, 'yieldRatio')).toBe(Number(core.yieldRatio.toFixed(3)));
+    // HV at the prestrain by Tabor's relation, by hand: 3·sin 68°·K·(ε̄ + 0.08)ⁿ/9.80665 (defaults: Tabor 1951,
+    // from memory; Vickers geometry ISO 6507-1); one decimal shown, so 0.05 HV absolute on ~85 HV.
+    expectRelClose(await num(page, 'hardnessHV'), (3 * Math.sin((68 * Math.PI) / 180) * 530 * 0.28 ** 0.44) / 9.80665, 0.05 / 85, 'HV at 0.2');
+    expect(await page.locator('#hardness-note').innerText()).toMatch(/default c 2\.782.*release parts by measured hardness/);
     // The slider from the keyboard: ArrowRight steps the range input by its step.
     await page.locator('#prestrain-range').press('ArrowRight');
     await settled(page, 'prestrain');

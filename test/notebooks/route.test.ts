@@ -34,6 +34,7 @@ async function expectParity(page: Page, report: Report, shown: Record<string, st
   report.steps.forEach((s, i) => {
     for (const [k, d] of Object.entries(digits)) expect(shown[i]![k], `step ${i + 1} ${k}`).toBe((s[k] as number).toFixed(d));
     expect(shown[i]!.elasticRecoveryPct, `step ${i + 1} recovery`).toBe((s.elasticRecoveryStrain * 100).toFixed(3));
+    expect(shown[i]!.hardnessHV, `step ${i + 1} HV`).toBe((s.hardnessHV as number).toFixed(1));
   });
   for (const t of report.targets) {
     const li = await page.locator(`[data-target="${t.name}"]`).innerText();
@@ -43,6 +44,30 @@ async function expectParity(page: Page, report: Report, shown: Record<string, st
 }
 
 describe('route planner', () => {
+  it('hardness: the HV column, the hardness targets in HV and the hardness band, as the runner gives them', async () => {
+    const { page, errors, context } = await openPage(h, '/route/');
+    await settled(page, 'route');
+    await page.selectOption('#demo-select', { label: 'examples/hardness-steel-strip.json (INVENTED)' });
+    await page.click('#load-demo');
+    await settled(page, 'route');
+    expect(await page.locator('#ledger-table thead').innerText()).toContain('HV (Tabor estimate)');
+    const report = await exportAndRun(page, 'hardness.json');
+    await expectParity(page, report, await ledgerCells(page));
+    expect(await page.locator('[data-target="minHardnessHV"]').innerText()).toMatch(/minimum Vickers hardness: predicted [\d.]+ HV, limit 140\.00 HV/);
+    // The chart draws the 140–170 HV band (a filled rect) and labels both ends.
+    const chart = page.locator('#cell-hardness-chart');
+    expect(await chart.locator('svg rect').count()).toBeGreaterThan(0);
+    expect(await chart.innerText()).toMatch(/min 140 HV[\s\S]*max 170 HV|max 170 HV[\s\S]*min 140 HV/);
+    expect(await page.locator('#hardness-basis').innerText()).toMatch(/fitted to 4 readings, 95 % interval/);
+    // Editing the hardness target moves the verdict, as for the other targets.
+    await page.fill('#target-maxHardnessHV', '150');
+    await settled(page, 'route');
+    expect(await page.locator('[data-target="maxHardnessHV"]').innerText()).toContain('NOT met');
+    await page.screenshot({ path: join(SCREENSHOTS, 'route-hardness.png'), fullPage: true });
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+
   it('a US-unit demo plan (ksi, in) shows the runner\'s numbers in ksi', async () => {
     const { page, errors, context } = await openPage(h, '/route/');
     await settled(page, 'route');

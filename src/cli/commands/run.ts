@@ -134,7 +134,8 @@ export const run = defineCommand({
       const { extraStepFields } = await import('../../report/fields.js');
       const reports = outcomes.flatMap((o) => (o.report ? [o.report] : []));
       const extras = extraStepFields(reports.flatMap((r) => r.steps));
-      io.stdout(csvLine(csvHeader(extras)) + reports.map((r) => csvReport(r, { header: false, extras })).join(''));
+      const tempers = reports.some((r) => r.steps.some((s) => s.temper !== undefined));
+      io.stdout(csvLine(csvHeader(extras, tempers)) + reports.map((r) => csvReport(r, { header: false, extras, tempers })).join(''));
     } else if (format === 'junit') {
       const { junitReport } = await import('../../report/junit.js');
       const { formatProblem } = await import('../../plan/problems.js');

@@ -3,6 +3,9 @@ import { evaluateRoute } from '../route/ledger.js';
 import { PLANE_STRAIN_FACTOR } from '../route/strain.js';
 import type { ColdWorkWindow, Ledger, Material, Size, Step, Targets } from '../route/types.js';
 import { coldWorkWindow } from '../route/window.js';
+import { inGrainGrowthRange, validateGrainGrowthStrain } from '../route/grainGrowth.js';
+import { stateProperties } from '../route/state.js';
+import { temperScale, temperStrainBand } from '../temper/scale.js';
 import { PROCESS_DEFAULTS } from './defaults.js';
 
 /**
@@ -180,7 +183,14 @@ export function designRoute(spec: DesignSpec): DesignResult {
   const passStrain = draw ? -Math.log1p(-rPass) : PLANE_STRAIN_FACTOR * -Math.log1p(-rPass);
   const basis = draw ? 'area' : 'thickness';
   const redPct = (s: number) => (draw ? -Math.expm1(-s) : -Math.expm1(-s / PLANE_STRAIN_FACTOR)) * 100;
-  const win = coldWorkWindow(spec.material.law, 0, spec.window, basis);
+  const grainRange = validateGrainGrowthStrain(spec.material.grainGrowthStrain);
+  let band: { from: number; to: number | null } | null | undefined;
+  if (spec.window.temper !== undefined) {
+    if (spec.material.temperSystem === undefined) throw new InputError('window.temper', spec.window.temper, 'a temper target only with material.temperSystem set');
+    const scale = temperScale(spec.material.temperSystem, spec.material.temperSystem === 'aluminiumH1x' ? stateProperties(spec.material, 0).tensileStrength : 0);
+    band = temperStrainBand(scale, spec.material.law, spec.window.temper, 'window.temper', spec.material.hardness);
+  }
+  const win = coldWorkWindow(spec.material.law, 0, spec.window, basis, spec.material.hardness, band);
   const base = { totalStrain: E, maxStrainBeforeAnneal: sMax, passStrainLimit: passStrain, window: win };
   let evaluations = 0;
   const infeasible = (limit: string, explanation: string, tried = 0): DesignResult => ({ feasible: false, routes: [], candidatesTried: tried, ledgerRuns: evaluations, ...base, binding: { limit, explanation } });
@@ -256,6 +266,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
     return null;
   };
   let lastFailure = '';
+  let grainBlocked = 0;
 
   // Final-temper strains to try.
   const finals: number[] = [];
@@ -282,6 +293,8 @@ export function designRoute(spec: DesignSpec): DesignResult {
       for (let j = 1; j <= kk; j++) annealSizes.push(j === kk ? round(sizeAfter(df, -sf)) : round(sizeAfter(d0, (rest * j) / kk)));
       if (annealSizes.some((x, j) => !(x < (j === 0 ? d0 : annealSizes[j - 1]!)) || !(x > df))) continue;
       const bounds = [d0, ...annealSizes, df];
+      // Never anneal inside the critical strain for grain growth (core/route/grainGrowth.ts).
+      if (annealSizes.some((x, j) => inGrainGrowthRange(strainOf(bounds[j]!, x), grainRange))) { grainBlocked++; continue; }
       for (const extra of [0, 1]) {
         const segs: Segment[] = [];
         let passes = 0;
@@ -329,6 +342,8 @@ export function designRoute(spec: DesignSpec): DesignResult {
     evaluations++;
     const ledger = evaluateRoute({ material, start: startOf(d0), steps, targets: spec.window });
     if (!ledger.allTargetsMet) { rejected++; return null; }
+    // The ledger's own grain-growth check on the rounded sizes (the same warning the runner prints).
+    if (ledger.rows.some((r) => r.warnings.some((w) => w.code === 'grainGrowth'))) { grainBlocked++; return null; }
     // Every pass is checked again on the whole route (the same numbers the runner will print).
     const passIdx: number[] = [];
     ledger.rows.forEach((r, i) => { if (r.kind !== 'anneal') passIdx.push(i); });
@@ -353,6 +368,9 @@ export function designRoute(spec: DesignSpec): DesignResult {
     };
   }
 
+  if (candidates.length === 0 && grainBlocked > 0 && rejected === 0) {
+    return infeasible('grain growth', `${grainBlocked} schedules would anneal after a strain inside the critical range ${grainRange[0]}–${grainRange[1]} for grain growth (coarse grains); none avoids it: move the final temper in the window, or change material.grainGrowthStrain if tests on the alloy justify it`, tried);
+  }
   if (candidates.length === 0 && rejected > 0) {
     return infeasible('window (size rounding)', `${rejected} schedules were built, but with sizes rounded to ${len(res)} none stays inside the window [${fmt(lo)}, ${Number.isFinite(hi) ? fmt(hi) : '∞'}] of strain since the last anneal and every pass limit: widen the window`, tried);
   }

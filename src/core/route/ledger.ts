@@ -2,7 +2,10 @@ import { ComputationError } from '../errors.js';
 import { hasPassLoads, PASS_LOAD_FIELDS, passLoads } from '../process/passLoads.js';
 import { PROOF_OFFSET, stateProperties } from './state.js';
 import { STEP_KINDS, stockOf, type ReductionBasis } from './steps.js';
-import { checkSpringbackTarget, checkTargets, validateTargets } from './targets.js';
+import { checkSpringbackTarget, checkTargets, checkTemperTarget, validateTargets } from './targets.js';
+import { inGrainGrowthRange, validateGrainGrowthStrain } from './grainGrowth.js';
+import { temperBasisValue, temperOf, temperScale, temperStrainBand } from '../temper/scale.js';
+import { InputError } from '../errors.js';
 import { backstressAfter, isotropicPart } from '../path/hardening.js';
 import type { Ledger, LedgerRow, RouteInput, Size, StockKind, Warning } from './types.js';
 import { coldWorkWindow } from './window.js';
@@ -49,6 +52,13 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   const targets = validateTargets(input.targets ?? {});
   const stock = stockOf(start);
   const fitted = material.fittedStrainRange;
+  const grainRange = validateGrainGrowthStrain(material.grainGrowthStrain);
+  // Temper scale (core/temper): thickness-reduction systems name strip tempers and refuse wire and bar.
+  const scale = material.temperSystem === undefined ? undefined : temperScale(material.temperSystem, material.temperSystem === 'aluminiumH1x' ? stateProperties(material, 0, eu).tensileStrength : 0);
+  if (scale && scale.basis === 'thicknessReductionPct' && stock === 'wire') {
+    throw new InputError('material.temperSystem', material.temperSystem, 'aluminiumH1x or steelStrip for wire or bar (copperRolled names tempers of rolled strip by thickness reduction)');
+  }
+  if (targets.temper !== undefined && !scale) throw new InputError('targets.temper', targets.temper, 'a temper target only with material.temperSystem set');
 
   let size: Size = { ...start };
   let eps = 0;
@@ -72,8 +82,12 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
     const before = eps;
     let meanFlowStress = 0;
     let plasticWork = 0;
+    let coarseGrain = false;
+    const strainBeforeAnneal = strainSince;
     if (effect.softeningFraction !== undefined) {
       const f = effect.softeningFraction;
+      // Only a full anneal recrystallises throughout; a partial one (f < 1) is modelled as softening only.
+      coarseGrain = f >= 1 && inGrainGrowthRange(strainSince, grainRange);
       if (f >= 1) eps = 0;
       else {
         const s0 = law.stress(0);
@@ -100,6 +114,9 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
     if (eps >= eu && effect.softeningFraction === undefined) {
       warnings.push({ code: 'necking', message: `accumulated strain ${eps.toFixed(4)} is at or past the uniform strain ${eu.toFixed(4)}: necking risk in tension, no uniform elongation left` });
     }
+    if (coarseGrain) {
+      warnings.push({ code: 'grainGrowth', message: `full anneal after only ${strainBeforeAnneal.toFixed(4)} strain since the previous anneal, inside the critical range ${grainRange[0]}–${grainRange[1]} for grain growth: coarse grains (orange peel, lower strength) are likely; give more cold work before this anneal, or leave it out` });
+    }
     if (fitted && eps + PROOF_OFFSET > fitted[1]) {
       warnings.push({ code: 'extrapolated', message: `law used beyond the strain range it was fitted on (${(eps + PROOF_OFFSET).toFixed(4)} > ${fitted[1].toFixed(4)})` });
     }
@@ -119,10 +136,12 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
       elasticModulus: p.elasticModulus,
       elasticRecoveryStrain: p.elasticRecoveryStrain,
       recoveredElasticEnergy: p.recoveredElasticEnergy,
+      hardnessHV: p.hardnessHV,
       meanFlowStress,
       plasticWork,
       warnings,
     };
+    if (scale) row.temper = temperOf(scale, temperBasisValue(scale, eps, p));
     if (kin && iso) {
       // 0.2 % proof stress reloading along s: σ = ΣXᵢ(after 0.002 along s) + s·R(ε̄ + 0.002), magnitude along s.
       const proofAlong = (s: 1 | -1) => {
@@ -165,7 +184,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
     }
     // One sum finds any non-finite field cheaply; only then look for which one.
     const sum = row.accumulatedStrain + row.coldWorkPct + row.flowStress + row.reloadYield + row.tensileStrength + row.yieldRatio +
-      row.remainingUniformElongationPct + row.elasticRecoveryStrain + row.recoveredElasticEnergy + row.meanFlowStress + row.plasticWork +
+      row.remainingUniformElongationPct + row.elasticRecoveryStrain + row.recoveredElasticEnergy + row.hardnessHV + row.meanFlowStress + row.plasticWork +
       (size.thickness ?? 0) + (size.diameter ?? 0) + (size.width ?? 0) + (size.height ?? 0);
     if (!Number.isFinite(sum)) {
       for (const [k, v] of Object.entries(row)) if (typeof v === 'number' && !Number.isFinite(v)) throw new ComputationError(`${path}.${k}`, `not a finite number (${v}); check the law parameters and the step size`);
@@ -177,7 +196,9 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   const initial = stateProperties(material, 0, eu);
   const final = rows.length > 0 ? rows[rows.length - 1]! : initial;
   const results = checkTargets(final, targets);
-  let window = coldWorkWindow(law, epsAfterAnneal, targets, basis);
+  if (scale && targets.temper !== undefined) results.push(checkTemperTarget(scale, temperBasisValue(scale, final === initial ? 0 : rows[rows.length - 1]!.accumulatedStrain, final), targets.temper));
+  const band = scale && targets.temper !== undefined ? temperStrainBand(scale, law, targets.temper, 'targets.temper', material.hardness) : undefined;
+  let window = coldWorkWindow(law, epsAfterAnneal, targets, basis, material.hardness, band);
   if (targets.maxSpringbackDeg !== undefined) {
     results.push(checkSpringbackTarget(rows, targets.maxSpringbackDeg));
     window = { ...window, note: `${window.note}; maxSpringbackDeg is checked on the route's bend steps but sets no bound here (springback is not monotone in cold work)` };

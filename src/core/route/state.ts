@@ -1,3 +1,5 @@
+import { HARDNESS_DEFAULTS } from '../hardness/defaults.js';
+import { taborHardness } from '../hardness/taborHardness.js';
 import { chordModulus } from '../material/modulus.js';
 import type { Material, StateProperties } from './types.js';
 
@@ -13,8 +15,10 @@ export const PROOF_OFFSET = 0.002;
  *   volume, Considère), the flow stress σ(ε̄) at or past εu (the part necks as it yields);
  * - yield ratio reload yield / tensile strength (can read slightly above 1 past εu);
  * - remaining uniform strain max(0, εu − ε̄) and elongation 100·(exp(remaining) − 1) %;
- * - elastic recovery σ(ε̄)/E(ε̄) and recovered energy σ²/(2E) per volume.
- * Units: MPa, dimensionless strains, MJ/m³. Valid range: ε̄ ≥ 0.
+ * - elastic recovery σ(ε̄)/E(ε̄) and recovered energy σ²/(2E) per volume;
+ * - Vickers hardness c·σ(ε̄ + εr)/g₀ by Tabor's relation ({@link taborHardness}; the material's
+ *   `hardness` model or the defaults).
+ * Units: MPa, dimensionless strains, MJ/m³, HV (kgf/mm²). Valid range: ε̄ ≥ 0.
  * Source: Considère (1885) via Dieter, *Mechanical Metallurgy*, 3rd ed., §8-3; definitions as in
  * ISO 6892-1.
  * @example stateProperties(copper, 0).remainingUniformStrain // = n for a Hollomon law
@@ -36,5 +40,6 @@ export function stateProperties(m: Material, eps: number, eu: number = m.law.uni
     elasticModulus: E,
     elasticRecoveryStrain: flowStress / E,
     recoveredElasticEnergy: (flowStress * flowStress) / (2 * E),
+    hardnessHV: taborHardness(law, eps, m.hardness ?? HARDNESS_DEFAULTS),
   };
 }

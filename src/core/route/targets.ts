@@ -1,13 +1,20 @@
 import { checkRange, InputError } from '../errors.js';
+import { TEMPER_BOUNDARY_TOL, temperOf } from '../temper/scale.js';
+import type { TemperScale } from '../temper/types.js';
 import type { LedgerRow, StateProperties, StateTargetName, TargetResult, Targets } from './types.js';
 
 /** Each target: the state property it limits and whether it is a lower (min) or upper (max) limit. */
-export const TARGET_DEFS: Readonly<Record<StateTargetName, { property: keyof StateProperties; sense: 'min' | 'max'; unit: 'stress' | 'percent' }>> = {
+export const TARGET_DEFS: Readonly<Record<StateTargetName, { property: keyof StateProperties; sense: 'min' | 'max'; unit: 'stress' | 'percent' | 'hardness' }>> = {
   minYield: { property: 'reloadYield', sense: 'min', unit: 'stress' },
   maxYield: { property: 'reloadYield', sense: 'max', unit: 'stress' },
   minTensile: { property: 'tensileStrength', sense: 'min', unit: 'stress' },
   minRemainingElongationPct: { property: 'remainingUniformElongationPct', sense: 'min', unit: 'percent' },
+  minHardnessHV: { property: 'hardnessHV', sense: 'min', unit: 'hardness' },
+  maxHardnessHV: { property: 'hardnessHV', sense: 'max', unit: 'hardness' },
 };
+
+/** Largest value a target may take, by its unit: MPa, percent, HV (Vickers numbers end near 2000 for the hardest steels; common practice). */
+const TARGET_MAX = { stress: 1e5, percent: 1000, hardness: 3000 } as const;
 
 export const TARGET_NAMES = Object.keys(TARGET_DEFS) as StateTargetName[];
 
@@ -20,18 +27,25 @@ export function validateTargets(t: Targets, path = 'targets'): Targets {
   for (const name of TARGET_NAMES) {
     const v = t[name];
     if (v === undefined) continue;
-    out[name] = checkRange(`${path}.${name}`, v, 0, TARGET_DEFS[name].unit === 'percent' ? 1000 : 1e5);
+    out[name] = checkRange(`${path}.${name}`, v, 0, TARGET_MAX[TARGET_DEFS[name].unit]);
   }
   if (t.maxSpringbackDeg !== undefined) out.maxSpringbackDeg = checkRange(`${path}.maxSpringbackDeg`, t.maxSpringbackDeg, 0, 180);
+  if (t.temper !== undefined) {
+    if (typeof t.temper !== 'string' || t.temper.length === 0) throw new InputError(`${path}.temper`, t.temper, 'a temper designation of the material\'s temperSystem, e.g. "H04"');
+    out.temper = t.temper;
+  }
   if (out.minYield !== undefined && out.maxYield !== undefined && out.minYield > out.maxYield) {
     throw new InputError(`${path}.maxYield`, out.maxYield, `a value ≥ minYield (${out.minYield})`, 'contradictory targets');
+  }
+  if (out.minHardnessHV !== undefined && out.maxHardnessHV !== undefined && out.minHardnessHV > out.maxHardnessHV) {
+    throw new InputError(`${path}.maxHardnessHV`, out.maxHardnessHV, `a value ≥ minHardnessHV (${out.minHardnessHV})`, 'contradictory targets');
   }
   return out;
 }
 
 /**
  * Checks targets against a final state. margin = predicted − limit for a minimum, limit − predicted
- * for a maximum; met when margin ≥ 0. Units: the target's own (MPa or %).
+ * for a maximum; met when margin ≥ 0. Units: the target's own (MPa, % or HV).
  * @example checkTargets({ reloadYield: 320, ... }, { minYield: 300 })[0].margin // 20
  */
 export function checkTargets(state: StateProperties, targets: Targets): TargetResult[] {
@@ -62,4 +76,26 @@ export function checkSpringbackTarget(rows: readonly LedgerRow[], limit: number,
   if (worst === null) throw new InputError(path, limit, 'a springback target only for a route with a bend step');
   const margin = limit - worst;
   return { name: 'maxSpringbackDeg', limit, predicted: worst, margin, met: margin >= 0 };
+}
+
+/**
+ * Checks the `temper` target on the final state's basis value `x` (core/temper): met when the state's
+ * temper is the one wanted. `limit` is the wanted temper's lower boundary, `predicted` is x, and
+ * `margin` the distance from x to the nearer boundary of the wanted temper (negative outside it), in
+ * the scale's basis (percent reduction, or MPa of Rm).
+ * @throws InputError (`targets.temper`) for a designation not in the scale.
+ * @example checkTemperTarget(temperScale('copperRolled', 0), 25, 'H02').margin // 4.30 (to the H02 boundary 20.70 %)
+ */
+export function checkTemperTarget(scale: TemperScale, x: number, wanted: string, path = 'targets.temper'): TargetResult {
+  const k = scale.bands.findIndex((b) => b.designation === wanted);
+  if (k < 0) throw new InputError(path, wanted, `a temper of ${scale.system}: ${scale.bands.map((b) => b.designation).join(', ')}`);
+  const lo = scale.bands[k]!.from;
+  const hi = scale.bands[k + 1]?.from;
+  const got = temperOf(scale, x)?.designation ?? null;
+  const met = got === wanted;
+  let margin = hi === undefined ? x - lo : Math.min(x - lo, hi - x);
+  // Inside the temper within the boundary tolerance: a margin of round-off size reads as 0, never negative.
+  if (met && margin < 0) margin = 0;
+  else if (!met && margin >= 0) margin = -Math.max(Math.abs(margin), TEMPER_BOUNDARY_TOL * Math.max(1, Math.abs(lo)));
+  return { name: 'temper', limit: lo, predicted: x, margin, met, temper: { wanted, got, basis: scale.basis } };
 }

@@ -1,6 +1,8 @@
 import type { FlowLaw } from '../flow/types.js';
 import type { ModulusDecay } from '../material/modulus.js';
 import type { KinematicSpec } from '../path/types.js';
+import type { TemperState, TemperSystemName } from '../temper/types.js';
+import type { HardnessModel } from '../hardness/types.js';
 
 /** Cross-section and height of the stock, mm inside the core. Strip has `thickness`, wire and bar `diameter`. */
 export interface Size {
@@ -32,6 +34,15 @@ export interface Material {
   density?: number;
   /** Specific heat, J/(kg·K), for the temperature rise of a pass (optional). */
   specificHeat?: number;
+  /** Temper system each row is named in (core/temper); without it rows carry no temper. */
+  temperSystem?: TemperSystemName;
+  /**
+   * Equivalent plastic strain since the previous anneal within which a full anneal risks coarse
+   * grains, [from, to]; default {@link DEFAULT_GRAIN_GROWTH_STRAIN} (core/route/grainGrowth.ts).
+   */
+  grainGrowthStrain?: readonly [number, number];
+  /** Tabor hardness model (core/hardness); without it the defaults (c ≈ 2.78, εr 0.08) apply. */
+  hardness?: HardnessModel;
 }
 
 export type StepKind = 'roll' | 'draw' | 'stretch' | 'stretchBiaxial' | 'upset' | 'shear' | 'strain' | 'anneal' | 'reverse' | 'bend';
@@ -57,14 +68,19 @@ export interface Targets {
   maxYield?: number;
   minTensile?: number;
   minRemainingElongationPct?: number;
+  /** Vickers hardness limits of the final state, HV (kgf/mm²), by Tabor's relation. */
+  minHardnessHV?: number;
+  maxHardnessHV?: number;
   /** Largest acceptable springback of any bend step, degrees. */
   maxSpringbackDeg?: number;
+  /** Temper designation the final state must have, in the material's `temperSystem` (e.g. "H04"). */
+  temper?: string;
 }
 
 export type TargetName = keyof Targets;
 
 /** Targets that limit a property of the final state (every target but maxSpringbackDeg). */
-export type StateTargetName = Exclude<TargetName, 'maxSpringbackDeg'>;
+export type StateTargetName = Exclude<TargetName, 'maxSpringbackDeg' | 'temper'>;
 
 /** One target checked: margin > 0 means met with room; margin is in the target's own unit. */
 export interface TargetResult {
@@ -73,10 +89,16 @@ export interface TargetResult {
   predicted: number;
   margin: number;
   met: boolean;
+  /**
+   * For the `temper` target only: the temper wanted and the one reached (null outside the system).
+   * `limit` is then the temper's lower boundary, `predicted` the state's value and `margin` the
+   * distance to the nearer boundary of the temper, all in the system's basis (% reduction or stress).
+   */
+  temper?: { wanted: string; got: string | null; basis: 'thicknessReductionPct' | 'tensileStrength' | 'hardnessHV' };
 }
 
 export interface Warning {
-  code: 'necking' | 'extrapolated' | 'yieldRatio' | 'drawability' | 'capacity' | 'heating' | 'bite' | 'sheetLimit' | 'reversal' | 'bend';
+  code: 'necking' | 'extrapolated' | 'yieldRatio' | 'drawability' | 'capacity' | 'heating' | 'bite' | 'sheetLimit' | 'reversal' | 'bend' | 'grainGrowth';
   message: string;
 }
 
@@ -130,8 +152,12 @@ export interface LedgerRow extends KinematicFields, BendFields, PassLoadFields {
   elasticRecoveryStrain: number;
   /** Elastic energy recovered on unloading per unit volume, σ²/(2E), MJ/m³ (numerically MPa). */
   recoveredElasticEnergy: number;
+  /** Vickers hardness estimate by Tabor's relation, HV (kgf/mm²); see core/hardness/taborHardness.ts. */
+  hardnessHV: number;
   meanFlowStress: number;
   plasticWork: number;
+  /** The state's temper in the material's `temperSystem`; null outside the system; absent without a system. */
+  temper?: TemperState | null;
   warnings: Warning[];
 }
 
@@ -146,6 +172,8 @@ export interface StateProperties {
   elasticModulus: number;
   elasticRecoveryStrain: number;
   recoveredElasticEnergy: number;
+  /** Vickers hardness estimate by Tabor's relation, HV (kgf/mm²). */
+  hardnessHV: number;
 }
 
 export interface ColdWorkWindow {

@@ -1,4 +1,7 @@
 import type { FlowLaw } from '../flow/types.js';
+import { HARDNESS_DEFAULTS } from '../hardness/defaults.js';
+import { strainForHardness } from '../hardness/taborHardness.js';
+import type { HardnessModel } from '../hardness/types.js';
 import { PROOF_OFFSET } from './state.js';
 import { reductionPctFromStrain, type ReductionBasis } from './steps.js';
 import type { ColdWorkWindow, TargetName, Targets } from './types.js';
@@ -9,12 +12,20 @@ import type { ColdWorkWindow, TargetName, Targets } from './types.js';
  * the accumulated strain ε = ε_b + s, so each gives one bound, found with the law's inverse:
  * - minYield Y: σ(ε + 0.002) ≥ Y ⇒ ε ≥ σ⁻¹(Y) − 0.002; maxYield likewise gives an upper bound;
  * - minTensile T: T ≤ σ(εu)·e^(ε−εu) ⇒ ε ≥ εu + ln(T/σ(εu)) when T ≤ σ(εu), else ε ≥ σ⁻¹(T);
- * - minRemainingElongationPct P: εu − ε ≥ ln(1 + P/100) ⇒ ε ≤ εu − ln(1 + P/100).
+ * - minRemainingElongationPct P: εu − ε ≥ ln(1 + P/100) ⇒ ε ≤ εu − ln(1 + P/100);
+ * - minHardnessHV H: c·σ(ε + εr)/g₀ ≥ H ⇒ ε ≥ σ⁻¹(H·g₀/c) − εr; maxHardnessHV likewise an upper bound
+ *   (Tabor's relation, {@link strainForHardness}; `hardness` is the material's model, defaults otherwise).
+ * - temper D: the accumulated-strain interval of that temper ({@link temperStrainBand}), passed in as
+ *   `temper` (null when the law cannot reach it).
  * The window is reported as strains and, for rolling, drawing and upsetting, as percent reduction
  * (see {@link reductionPctFromStrain}). Units: dimensionless strain, percent.
  * @example coldWorkWindow(hollomon({K: 530, n: 0.44}), 0, { minYield: 300 }, 'thickness').strainFrom
  */
-export function coldWorkWindow(law: FlowLaw, base: number, targets: Targets, basis: ReductionBasis): ColdWorkWindow {
+export function coldWorkWindow(
+  law: FlowLaw, base: number, targets: Targets, basis: ReductionBasis,
+  hardness: Pick<HardnessModel, 'taborFactor' | 'representativeStrain'> = HARDNESS_DEFAULTS,
+  temper?: { from: number; to: number | null } | null,
+): ColdWorkWindow {
   const eu = law.uniformStrain();
   let lo = 0;
   let hi = Infinity;
@@ -58,6 +69,22 @@ export function coldWorkWindow(law: FlowLaw, base: number, targets: Targets, bas
   }
   if (targets.minRemainingElongationPct !== undefined) {
     lower(eu - Math.log1p(targets.minRemainingElongationPct / 100), 'minRemainingElongationPct');
+  }
+  if (targets.temper !== undefined && temper !== undefined) {
+    if (temper === null) unreachable.push(`temper ${targets.temper} is above the law's saturation stress`);
+    else {
+      raise(temper.from, 'temper');
+      if (temper.to !== null) lower(temper.to, 'temper');
+    }
+  }
+  if (targets.minHardnessHV !== undefined) {
+    const e = strainForHardness(law, targets.minHardnessHV, hardness);
+    if (e === null) unreachable.push(`minHardnessHV ${targets.minHardnessHV} is above the hardness of the law's saturation stress`);
+    else raise(e, 'minHardnessHV');
+  }
+  if (targets.maxHardnessHV !== undefined) {
+    const e = strainForHardness(law, targets.maxHardnessHV, hardness);
+    if (e !== null) lower(e, 'maxHardnessHV');
   }
   const emptyWindow = (note: string): ColdWorkWindow => ({
     empty: true, strainFrom: null, strainTo: null, reductionBasis: basis, reductionPctFrom: null, reductionPctTo: null,

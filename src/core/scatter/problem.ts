@@ -3,6 +3,7 @@ import { makeLaw } from '../flow/makeLaw.js';
 import { LAW_PARAMETERS } from '../flow/params.js';
 import type { FlowLaw, LawSpec } from '../flow/types.js';
 import type { ModulusDecay } from '../material/modulus.js';
+import type { HardnessModel } from '../hardness/types.js';
 import { STEP_KINDS, stockOf, type StepEffect } from '../route/steps.js';
 import { TARGET_DEFS, TARGET_NAMES, validateTargets } from '../route/targets.js';
 import type { Material, Size, StateProperties, Step, StockKind, TargetName, Targets } from '../route/types.js';
@@ -34,6 +35,8 @@ export interface ScatterMaterialSpec {
   flowCurve: LawSpec;
   modulusDecay?: ModulusDecay;
   fittedStrainRange?: readonly [number, number];
+  /** Tabor hardness model (plain data); the same c and εr for every sample. */
+  hardness?: HardnessModel;
 }
 
 /**
@@ -131,6 +134,7 @@ export function prepareScatter(problem: ScatterProblem, path = 'scatter'): Prepa
     name: m.name, elasticModulus: m.elasticModulus, poissonRatio: m.poissonRatio,
     ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}),
     ...(m.fittedStrainRange ? { fittedStrainRange: m.fittedStrainRange } : {}),
+    ...(m.hardness ? { hardness: m.hardness } : {}),
   };
   // Bend steps need the material state of each sample (springback); scatter samples share
   // precomputed step effects, so a bend is refused clearly here rather than failing inside.
@@ -139,12 +143,15 @@ export function prepareScatter(problem: ScatterProblem, path = 'scatter'): Prepa
       throw new InputError(`steps[${i}].kind`, st.kind, 'with a scatter section: roll, draw, stretch, stretchBiaxial, upset, shear, strain, reverse, anneal', 'scatter through bend steps is not supported');
     }
   });
+  if (targets.temper !== undefined) {
+    throw new InputError('targets.temper', targets.temper, 'no temper target with a scatter section (give the temper\'s property limits, e.g. minTensile, instead)', 'scatter does not sample tempers');
+  }
   const hasStart = slots.some((s) => s.kind === 'start');
   const fixedEffects = hasStart ? null : stepEffects(problem.start, stock, problem.steps);
   const nominal = stateProperties({ ...baseMaterial, law: makeLaw(lawSpec, 'material.flowCurve') } as Material, 0);
   for (const t of TARGET_NAMES) {
     if (targets[t] !== undefined && typeof nominal[TARGET_DEFS[t].property] !== 'number') {
-      throw new InputError(`targets.${t}`, targets[t], 'with a scatter section, only targets on the final state\'s properties (minYield, maxYield, minTensile, minRemainingElongationPct)');
+      throw new InputError(`targets.${t}`, targets[t], 'with a scatter section, only targets on the final state\'s properties (minYield, maxYield, minTensile, minRemainingElongationPct, minHardnessHV, maxHardnessHV)');
     }
   }
   const targetChecks = TARGET_NAMES.filter((t) => targets[t] !== undefined)

@@ -11,6 +11,8 @@ export interface SampleOutcome {
   reloadYield: number;
   tensileStrength: number;
   remainingElongationPct: number;
+  /** Vickers hardness of the final state by Tabor's relation, HV. */
+  hardnessHV: number;
   /** Bit 0: all targets met; bit i + 1: target i (in the order of `checkTargets`) met. */
   metMask: number;
 }
@@ -65,7 +67,7 @@ function finalState(prep: PreparedScatter, material: Material, effects: readonly
     else all = false;
   }
   if (all) mask |= 1;
-  return { reloadYield: p.reloadYield, tensileStrength: p.tensileStrength, remainingElongationPct: p.remainingUniformElongationPct, metMask: mask };
+  return { reloadYield: p.reloadYield, tensileStrength: p.tensileStrength, remainingElongationPct: p.remainingUniformElongationPct, hardnessHV: p.hardnessHV, metMask: mask };
 }
 
 /** The plain route of one sample, for {@link evaluateRoute} (used to check the fast path). */
@@ -86,6 +88,8 @@ export interface ScatterBlock {
   reloadYield: Float64Array;
   tensileStrength: Float64Array;
   remainingElongationPct: Float64Array;
+  /** Final Vickers hardness (Tabor), HV. */
+  hardnessHV: Float64Array;
   metMask: Uint16Array;
   /** Draws rejected because the route could not take them (a parameter outside its range, a start size below a pass's exit size). */
   rejected: number;
@@ -117,6 +121,7 @@ export function sampleScatterBlock(prep: PreparedScatter, index: number): Scatte
   const reloadYield = new Float64Array(count);
   const tensileStrength = new Float64Array(count);
   const remainingElongationPct = new Float64Array(count);
+  const hardnessHV = new Float64Array(count);
   const metMask = new Uint16Array(count);
   const zz = new Float64Array(p);
   const x = new Float64Array(p);
@@ -146,6 +151,7 @@ export function sampleScatterBlock(prep: PreparedScatter, index: number): Scatte
         reloadYield[s] = out.reloadYield;
         tensileStrength[s] = out.tensileStrength;
         remainingElongationPct[s] = out.remainingElongationPct;
+        hardnessHV[s] = out.hardnessHV;
         metMask[s] = out.metMask;
         break;
       }
@@ -156,5 +162,5 @@ export function sampleScatterBlock(prep: PreparedScatter, index: number): Scatte
       }
     }
   }
-  return { index, count, inputs, reloadYield, tensileStrength, remainingElongationPct, metMask, rejected };
+  return { index, count, inputs, reloadYield, tensileStrength, remainingElongationPct, hardnessHV, metMask, rejected };
 }

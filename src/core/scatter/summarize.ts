@@ -58,11 +58,13 @@ export interface ScatterSummary {
   finalReloadYield: Distribution;
   tensileStrength: Distribution;
   remainingElongationPct: Distribution;
+  /** Final Vickers hardness by Tabor's relation, HV. */
+  hardnessHV: Distribution;
   toleranceBound: ToleranceBound;
   sensitivity: { output: 'finalReloadYield'; method: string; linearR2: number; inputs: InputSensitivity[] };
   deltaMethod: DeltaResult;
   /** Sorted samples of each output, for {@link scatterPercentile} and histograms; not part of the report. */
-  sorted: { finalReloadYield: Float64Array; tensileStrength: Float64Array; remainingElongationPct: Float64Array };
+  sorted: { finalReloadYield: Float64Array; tensileStrength: Float64Array; remainingElongationPct: Float64Array; hardnessHV: Float64Array };
 }
 
 /**
@@ -78,7 +80,7 @@ export function scatterPercentile(sorted: ArrayLike<number>, p: number): number 
   return quantileSorted(sorted as number[], p);
 }
 
-function concat(blocks: readonly ScatterBlock[], key: 'reloadYield' | 'tensileStrength' | 'remainingElongationPct', n: number): Float64Array {
+function concat(blocks: readonly ScatterBlock[], key: 'reloadYield' | 'tensileStrength' | 'remainingElongationPct' | 'hardnessHV', n: number): Float64Array {
   const out = new Float64Array(n);
   let o = 0;
   for (const b of blocks) { out.set(b[key], o); o += b.count; }
@@ -189,7 +191,8 @@ export function summarizeScatter(prep: PreparedScatter, blocks: readonly Scatter
   const ys = concat(ordered, 'reloadYield', N);
   const ts = concat(ordered, 'tensileStrength', N);
   const es = concat(ordered, 'remainingElongationPct', N);
-  const sorted = { finalReloadYield: ys.slice().sort(), tensileStrength: ts.slice().sort(), remainingElongationPct: es.slice().sort() };
+  const hs = concat(ordered, 'hardnessHV', N);
+  const sorted = { finalReloadYield: ys.slice().sort(), tensileStrength: ts.slice().sort(), remainingElongationPct: es.slice().sort(), hardnessHV: hs.slice().sort() };
 
   const targetNames = TARGET_NAMES.filter((t) => prep.targets[t] !== undefined);
   const metCounts = new Array<number>(targetNames.length + 1).fill(0);
@@ -227,6 +230,7 @@ export function summarizeScatter(prep: PreparedScatter, blocks: readonly Scatter
     finalReloadYield: yieldDist,
     tensileStrength: distribution(ts, sorted.tensileStrength),
     remainingElongationPct: distribution(es, sorted.remainingElongationPct),
+    hardnessHV: distribution(hs, sorted.hardnessHV),
     toleranceBound,
     sensitivity: { output: 'finalReloadYield', method: 'standardised regression coefficients (Saltelli et al., Global Sensitivity Analysis: The Primer, 2008, ch. 1)', ...sens },
     deltaMethod: deltaMethod(prep),
