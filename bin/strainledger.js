@@ -1,6 +1,16 @@
 #!/usr/bin/env node
 // The headless runner. Ships compiled JavaScript (dist/), no TypeScript at run time.
-import { main } from '../dist/runner/main.js';
+let main;
+try {
+  ({ main } = await import('../dist/runner/main.js'));
+} catch (e) {
+  // Only in a clone that was never built (an installed package always holds dist/): say what to do.
+  if (e?.code === 'ERR_MODULE_NOT_FOUND' && String(e.message).includes('dist/runner/main.js')) {
+    process.stderr.write('strainledger: the runner is not built (dist/runner/main.js is missing); in a clone of the repository run `npm run build` first\n');
+    process.exit(3);
+  }
+  throw e;
+}
 
 // A reader that stops early (`| head`) closes the pipe: finish quietly, as command-line tools do.
 process.stdout.on('error', (e) => { if (e.code === 'EPIPE') process.exit(process.exitCode ?? 0); else throw e; });

@@ -38,9 +38,10 @@ const npx = (...args: string[]) => sh('npx', ['--no-install', 'strainledger', ..
 
 let tarball = '';
 let entries: string[] = [];
+let installLog: SpawnSyncReturns<string> | undefined;
 
 beforeAll(() => {
-  // Pack the tree as it stands (its `prepare` build already ran in the global setup).
+  // Pack the tree as it stands (`prepack` would build it; the global setup already did).
   const packed = JSON.parse(npm(['pack', '--ignore-scripts', '--json', '--pack-destination', TMP], ROOT).stdout) as { filename: string }[];
   tarball = join(TMP, packed[0]!.filename);
   entries = execFileSync('tar', ['-tzf', tarball], { encoding: 'utf8' }).split('\n').filter(Boolean);
@@ -48,7 +49,7 @@ beforeAll(() => {
   // The user's project: an empty package, the tarball installed with npm's defaults.
   mkdirSync(APP);
   writeFileSync(join(APP, 'package.json'), JSON.stringify({ name: 'forming-plans', version: '1.0.0', private: true, type: 'module' }, null, 2));
-  npm(['install', '--prefer-offline', '--no-audit', '--no-fund', tarball]);
+  installLog = npm(['install', '--prefer-offline', '--no-audit', '--no-fund', tarball]);
 
   // Plans in nested folders, as YAML, for the README's glob: one meets its targets, one does not.
   const plan = (file: string) => JSON.parse(readFileSync(join(ROOT, 'examples', file), 'utf8')) as Record<string, unknown>;
@@ -84,9 +85,14 @@ describe('the packed tarball', () => {
       expect(entries).toContain(`package/${pkg.exports[e].import.slice(2)}`);
     }
     expect(pkg.private).toBeUndefined();
-    expect(Object.keys(pkg.scripts ?? {}).filter((s) => ['preinstall', 'install', 'postinstall'].includes(s))).toEqual([]);
+    // No install-time scripts: npm would not run them for a dependency anyway, and npm 11 warns about
+    // each (`prepare` included) in the user's project. The build runs on `prepack` instead.
+    expect(Object.keys(pkg.scripts ?? {}).filter((s) => ['preinstall', 'install', 'postinstall', 'prepare'].includes(s))).toEqual([]);
     // Run-time dependencies are what the library imports; notebook and runner-bundle libraries are not.
     expect(Object.keys(pkg.dependencies).sort()).toEqual(['@observablehq/plot', 'csv-parse', 'simple-statistics', 'yaml', 'zod']);
+  });
+  it('installs without a warning about install scripts', () => {
+    expect(installLog!.stdout + installLog!.stderr).not.toMatch(/install-scripts|allowScripts/);
   });
   it('npm publish --dry-run passes (nothing is published)', () => {
     const r = sh('npm', ['publish', '--dry-run', '--ignore-scripts'], ROOT);
@@ -178,9 +184,10 @@ export { plan, input, rec, chart, wrong };
 `);
     const tsc = join(ROOT, 'node_modules', 'typescript', 'bin', 'tsc');
     for (const [module, resolution] of [['nodenext', 'nodenext'], ['esnext', 'bundler']]) {
-      // A user's tsconfig: strict, no @types/node (a browser project), libraries' own .d.ts skipped as usual.
+      // A user's tsconfig: strict, no @types/node (a browser project). Under nodenext every .d.ts is
+      // checked too (skipLibCheck false): ours and those of the dependencies they name.
       const config = `tsconfig.${resolution}.json`;
-      writeFileSync(join(APP, config), JSON.stringify({ compilerOptions: { strict: true, noEmit: true, skipLibCheck: true, types: [], lib: ['es2022', 'dom'], target: 'es2022', module, moduleResolution: resolution }, files: ['typed.ts'] }));
+      writeFileSync(join(APP, config), JSON.stringify({ compilerOptions: { strict: true, noEmit: true, skipLibCheck: resolution !== 'nodenext', types: [], lib: ['es2022', 'dom'], target: 'es2022', module, moduleResolution: resolution }, files: ['typed.ts'] }));
       const r = sh(process.execPath, [tsc, '-p', config]);
       expect(r.status, `${resolution}: ${r.stdout}${r.stderr}`).toBe(0);
     }
