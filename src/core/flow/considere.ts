@@ -48,3 +48,50 @@ export function tensileStrengthOf(law: { stress(e: number): number; uniformStrai
 export function uniformElongationOf(law: { uniformStrain(): number }): number {
   return Math.expm1(law.uniformStrain());
 }
+
+/** Peaks already found, per law object (a law is immutable; its peaks never change). */
+const PEAKS = new WeakMap<object, readonly number[]>();
+
+/**
+ * Strains at which the force of a tensile test has a local maximum: the points where
+ * g(ε) = ln σ(ε) − ε changes from rising to falling (dσ/dε − σ goes from + to −, Considère), in
+ * increasing order, ε > 0. The engineering stress on the section of a state ε̄,
+ * σ(ε)·exp(ε̄ − ε) for ε ≥ ε̄, therefore peaks at ε̄ itself or at one of these strains.
+ *
+ * For a law whose σ'/σ falls monotonically (every concave law: Hollomon, Ludwik, Swift with n ≤ 1,
+ * Voce, the Swift–Voce blend, Hockett–Sherby with p ≤ 1) there is at most one peak, the Considère
+ * uniform strain εu (none when εu = 0). A Hockett–Sherby law with p > 1 is S-shaped: its slope rises
+ * from 0, so the force may fall at yield, rise and fall again; its second peak is found by a scan of
+ * dσ/dε − σ on a geometric grid (ratio 1.05, from 10⁻⁶ to 10) and Brent on each sign change.
+ * Source: Considère (1885) via Dieter, *Mechanical Metallurgy*, 3rd ed., §8-3 (force maximum
+ * where dσ/dε = σ); the scan is ours. Units: true plastic strain. Cached per law object.
+ * @example forcePeaks(hollomon({ K: 530, n: 0.44 })) // [0.44]
+ */
+export function forcePeaks(law: { readonly law: string; readonly params: Readonly<Record<string, number>>; stress(e: number): number; slope(e: number): number; uniformStrain(): number }): readonly number[] {
+  const cached = PEAKS.get(law);
+  if (cached) return cached;
+  let peaks: number[];
+  if (law.law === 'hockettSherby' && (law.params.p ?? 0) > 1) {
+    peaks = [];
+    const h = (e: number) => law.slope(e) - law.stress(e);
+    let a = 1e-6;
+    let ha = h(a);
+    while (a < CONSIDERE_SEARCH_LIMIT) {
+      const b = Math.min(a * 1.05, CONSIDERE_SEARCH_LIMIT);
+      const hb = h(b);
+      if (ha > 0 && hb <= 0) {
+        const r = brent(h, a, b, 1e-14);
+        if (!r.converged) throw new ComputationError('material.flowCurve', 'force-peak search did not converge');
+        peaks.push(r.root);
+      }
+      a = b;
+      ha = hb;
+    }
+  } else {
+    const eu = law.uniformStrain();
+    peaks = eu > 0 ? [eu] : [];
+  }
+  const frozen = Object.freeze(peaks);
+  PEAKS.set(law, frozen);
+  return frozen;
+}
