@@ -1,3 +1,4 @@
+import { formatNumber, targetUnit as unitOfTarget, targetUnitKind } from './numbers.js';
 import type { ReportStep, ReportV1 } from './build.js';
 import { extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
 
@@ -45,7 +46,12 @@ export function windowText(r: ReportV1): string {
   return w.note + red;
 }
 
-/** The unit of a target's limit, predicted value and margin. */
+/** The unit of a target's limit, predicted value and margin (see `numbers.ts`). */
 export function targetUnit(r: ReportV1, name: string): string {
-  return name === 'minRemainingElongationPct' ? '%' : name === 'maxSpringbackDeg' ? '°' : r.units.stress;
+  return unitOfTarget(name, r.units.stress);
+}
+
+/** A target's limit, predicted value or margin at its kind's precision, without the unit. */
+export function targetNumber(r: ReportV1, name: string, x: number): string {
+  return formatNumber(x, targetUnitKind(name), r.units.stress);
 }

@@ -2,7 +2,7 @@ import { parseHTML } from 'linkedom';
 import { ductilityByStepChart, strengthByStepChart } from '../charts/ledger.js';
 import { PALETTE } from '../charts/palette.js';
 import type { ReportV1 } from './build.js';
-import { stepColumns, targetUnit, windowText } from './columns.js';
+import { stepColumns, targetNumber, targetUnit, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
 import { scatterView } from './scatter.js';
 
@@ -58,7 +58,7 @@ export function htmlReport(r: ReportV1): string {
   if (r.targets.length === 0) parts.push('<p>No targets given.</p>');
   else {
     parts.push(table(['target', 'status', 'limit', 'predicted', 'margin', 'unit'],
-      r.targets.map((t) => [t.name, t.met ? 'met' : 'NOT MET', t.limit.toFixed(2), t.predicted.toFixed(2), t.margin.toFixed(2), targetUnit(r, t.name)]),
+      r.targets.map((t) => [t.name, t.met ? 'met' : 'NOT MET', targetNumber(r, t.name, t.limit), targetNumber(r, t.name, t.predicted), targetNumber(r, t.name, t.margin), targetUnit(r, t.name)]),
       [false, false, true, true, true, false]));
   }
   parts.push(`<p><strong>Cold-work window:</strong> ${htmlText(windowText(r))}</p>`);

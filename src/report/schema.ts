@@ -8,6 +8,8 @@ import { z } from 'zod';
  * field listed here is required exactly as shown. Numbers are finite (no NaN or Infinity).
  */
 const num = (what: string) => z.number().describe(what);
+/** The unit of a target's limit, predicted value and margin (src/report/numbers.ts `targetUnit`). */
+const TARGET_UNIT_TEXT = 'in the target\'s own unit: the report stress unit for minYield, maxYield and minTensile (engineering stresses), % for minRemainingElongationPct, degrees for maxSpringbackDeg';
 const warning = z.strictObject({ code: z.string().min(1), message: z.string() });
 const size = z.strictObject({
   thickness: z.number().positive().optional(),
@@ -24,15 +26,15 @@ export const ReportStepSchema = z.looseObject({
   strainIncrement: num('von Mises equivalent plastic strain added by the step'),
   accumulatedStrain: num('accumulated equivalent plastic strain after the step'),
   coldWorkPct: num('%CW since the last anneal (geometric)'),
-  flowStress: num('flow stress at the accumulated strain (stress unit)'),
-  reloadYield: num('reload yield Rp0.2 (stress unit)'),
-  tensileStrength: num('tensile strength on the new section (stress unit)'),
-  yieldRatio: num('reload yield / tensile strength'),
-  remainingUniformStrain: num('true strain left before diffuse necking'),
-  remainingUniformElongationPct: num('remaining uniform elongation, %'),
-  elasticRecoveryStrain: num('elastic strain recovered on unloading'),
+  flowStress: num('flow stress σ(ε̄) at the accumulated strain: TRUE stress (stress unit)'),
+  reloadYield: num('reload yield Rp0.2: ENGINEERING 0.2 % proof strength on the part\'s own section after the step, σ(ε̄ + 0.002)·e^(−0.002) (stress unit); never above tensileStrength'),
+  tensileStrength: num('tensile strength Rm: ENGINEERING, maximum force over the part\'s own section after the step (stress unit)'),
+  yieldRatio: num('reloadYield / tensileStrength, both engineering on the same section; 0 to 1'),
+  remainingUniformStrain: num('TRUE plastic strain left before diffuse necking in uniaxial tension (Considère)'),
+  remainingUniformElongationPct: num('remaining uniform elongation: ENGINEERING plastic elongation left to maximum force, % of the part\'s own length'),
+  elasticRecoveryStrain: num('elastic strain recovered on unloading, σ(ε̄)/E(ε̄) (true stress over the chord modulus; dimensionless)'),
   recoveredElasticEnergy: num('elastic energy recovered per volume (stress unit)'),
-  meanFlowStress: num('mean flow stress over the step (stress unit)'),
+  meanFlowStress: num('mean flow stress over the step: TRUE stress (stress unit)'),
   plasticWork: num('plastic work per volume of the step (stress unit)'),
   warnings: z.array(warning),
 });
@@ -53,9 +55,9 @@ export const ReportScatterSchema = z.looseObject({
   probabilityAllTargetsMet: probability('share of samples meeting every target'),
   probabilityStdError: z.number().nonnegative().describe('binomial standard error of that share'),
   targets: z.array(z.looseObject({ name: targetName, limit: z.number(), probabilityMet: probability('share of samples meeting this target') })),
-  finalReloadYield: distribution,
-  tensileStrength: distribution,
-  remainingElongationPct: distribution,
+  finalReloadYield: distribution.describe('final reload yield Rp0.2 over the samples: engineering, on the part\'s own section (stress unit)'),
+  tensileStrength: distribution.describe('final Rm over the samples: engineering (stress unit)'),
+  remainingElongationPct: distribution.describe('final remaining uniform elongation over the samples: engineering, %'),
   toleranceBound: z.looseObject({
     value: z.number().describe('lower tolerance bound on the final reload yield'),
     coverage: probability('share of parts covered'), confidence: probability('confidence of the bound'), method: z.string(),
@@ -88,10 +90,20 @@ export const ReportSchema = z.looseObject({
     flowCurve: z.looseObject({ law: z.string() }),
     source: z.string(),
     uniformStrain: z.number(),
-    initial: z.strictObject({ reloadYield: z.number(), tensileStrength: z.number(), uniformElongationPct: z.number() }),
+    initial: z.strictObject({
+      reloadYield: num('annealed Rp0.2, engineering (stress unit)'),
+      tensileStrength: num('annealed Rm, engineering (stress unit)'),
+      uniformElongationPct: num('annealed uniform elongation Ag, engineering, %'),
+    }),
   }),
   steps: z.array(ReportStepSchema),
-  targets: z.array(z.strictObject({ name: targetName, limit: z.number(), predicted: z.number(), margin: z.number(), met: z.boolean() })),
+  targets: z.array(z.strictObject({
+    name: targetName,
+    limit: num(TARGET_UNIT_TEXT),
+    predicted: num(`predicted value on the same basis as the ledger field the target limits; ${TARGET_UNIT_TEXT}`),
+    margin: num(`predicted − limit for a minimum, limit − predicted for a maximum (≥ 0 when met); ${TARGET_UNIT_TEXT}`),
+    met: z.boolean(),
+  })),
   allTargetsMet: z.boolean(),
   coldWorkWindow: z.strictObject({
     empty: z.boolean(),

@@ -1,5 +1,6 @@
 import type { ReportV1 } from './build.js';
 import { extraStepFields, sig4, stepNumber } from './fields.js';
+import { flowCurveText, formatTargetValue } from './numbers.js';
 import { scatterLines } from './scatter.js';
 
 /** Fixed-decimal formatting used by all human-readable reports. */
@@ -23,10 +24,10 @@ export function tableReport(r: ReportV1, color = false): string {
   const paint = (ok: boolean, s: string) => (color ? `\x1b[${ok ? 32 : 31}m${s}\x1b[0m` : s);
   const out: string[] = [];
   out.push(`${r.plan.name}  (${r.plan.file}, sha256 ${r.plan.hash.slice(0, 12)}, ${r.plan.tool})`);
-  const fc = Object.entries(r.material.flowCurve).map(([k, v]) => `${k}=${typeof v === 'number' ? +v.toPrecision(6) : v}`).join(' ');
+  const fc = flowCurveText(r.material.flowCurve, S);
   const overrides = (r.plan as { overrides?: string[] }).overrides;
   if (overrides?.length) out.push(`overrides (--set): ${overrides.join('; ')}`);
-  out.push(`material: ${r.material.name}; E = ${fixed(r.material.elasticModulus, 0)} ${S}; ${fc} (${r.material.source})`);
+  out.push(`material: ${r.material.name}; E = ${fixed(r.material.elasticModulus, 0)} ${S}; ${fc} (true stress vs true plastic strain; ${r.material.source})`);
   out.push(`annealed: Rp0.2 ${fixed(r.material.initial.reloadYield, 1)} ${S}, Rm ${fixed(r.material.initial.tensileStrength, 1)} ${S}, uniform elongation ${fixed(r.material.initial.uniformElongationPct, 1)} %`);
   out.push('');
   const size = (s: Record<string, number | undefined>) => s.thickness !== undefined ? `t ${fixed(s.thickness, 3)}` : s.diameter !== undefined ? `d ${fixed(s.diameter, 3)}` : s.height !== undefined ? `h ${fixed(s.height, 3)}` : '—';
@@ -41,7 +42,8 @@ export function tableReport(r: ReportV1, color = false): string {
   out.push('');
   if (r.targets.length === 0) out.push('targets: none given');
   for (const t of r.targets) {
-    out.push(paint(t.met, `${t.met ? 'MET    ' : 'NOT MET'} ${t.name}: predicted ${fixed(t.predicted, 2)}, limit ${fixed(t.limit, 2)}, margin ${fixed(t.margin, 2)}`));
+    const v = (x: number) => formatTargetValue(x, t.name, S);
+    out.push(paint(t.met, `${t.met ? 'MET    ' : 'NOT MET'} ${t.name}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, margin ${v(t.margin)}`));
   }
   const w = r.coldWorkWindow;
   out.push(`cold-work window: ${w.empty ? 'empty — ' + w.note : w.note}${!w.empty && w.reductionBasis && w.reductionPctFrom !== null ? `; ${w.reductionBasis} reduction ${fixed(w.reductionPctFrom, 1)} % to ${w.reductionPctTo === null ? 'no limit' : fixed(w.reductionPctTo, 1) + ' %'}` : ''}`);
