@@ -24,7 +24,7 @@ export const PROOF_SECTION_FACTOR = Math.exp(-PROOF_OFFSET);
  * Source: ISO 6892-1 §3.10.3 (proof strength, plastic extension; force over the original section
  * of the specimen, here the formed part's section); constant volume as in Dieter, *Mechanical
  * Metallurgy*, 3rd ed., §8-3. Units: MPa (the law's stress unit). Valid range: ε̄ ≥ 0.
- * @example reloadYield(hollomon({ K: 530, n: 0.44 }), 0.2) // 530·0.202^0.44·e^−0.002 ≈ 261.96
+ * @example reloadYield(hollomon({ K: 530, n: 0.44 }), 0.2) // 530·0.202^0.44·e^−0.002 ≈ 261.7
  */
 export function reloadYield(law: Pick<FlowLaw, 'stress'>, eps: number): number {
   return law.stress(eps + PROOF_OFFSET) * PROOF_SECTION_FACTOR;
@@ -35,7 +35,7 @@ export function reloadYield(law: Pick<FlowLaw, 'stress'>, eps: number): number {
  * ε̄ = σ⁻¹(Y·exp(0.002)) − 0.002. May be negative (Y below the annealed state's reload yield: every
  * state reaches it); the caller decides. Returns `null` when no strain reaches Y (at or above the
  * law's saturation stress). Units: Y in MPa, result true plastic strain.
- * @example strainForReloadYield(hollomon({ K: 530, n: 0.44 }), 261.96) // ≈ 0.2
+ * @example strainForReloadYield(hollomon({ K: 530, n: 0.44 }), 261.7) // ≈ 0.2
  */
 export function strainForReloadYield(law: Pick<FlowLaw, 'strainAt' | 'saturationStress'>, Y: number): number | null {
   const sigma = Y / PROOF_SECTION_FACTOR;
