@@ -93,7 +93,7 @@ export function formatLawParam(info: ParamInfo, value: number): string {
   const a = Math.abs(value);
   // 4 significant figures; numbers from 1e-4 up to 1e6 without an exponent.
   if (a >= 1e-4 && a < 1e6) return String(+value.toPrecision(4));
-  return value.toPrecision(4);
+  return value.toExponential(3).replace('e+', 'e');
 }
 
 /**
