@@ -2,7 +2,7 @@
 // The plan is kept outside the runtime as the user's document (autosaved, undoable); the cells
 // validate it, run it and build the report with the same functions the runner uses.
 import {
-  Notebook, expose, h, fixed, formatNumber, formatTargetValue, DIGITS, autosave, restore, UndoHistory, planText, planFileName, importPlan,
+  Notebook, expose, h, fixed, formatNumber, formatTargetValue, flowCurveText, DIGITS, autosave, restore, UndoHistory, planText, planFileName, importPlan,
   downloadText, fileDrop, errorBox, byId, choice,
 } from '../../src/cells/index.js';
 import { LAW_PARAMETERS, STEP_KIND_NAMES } from '../../src/core/index.js';
@@ -104,8 +104,10 @@ function drawEditors(): void {
   const m = doc.material ?? {};
   const fc = m.flowCurve ?? {};
   byId('material-view').replaceChildren(
-    h('p', { id: 'material-summary' }, `${m.name ?? '(no name)'}; E = ${m.elasticModulus} ${stressUnit()}; ${fc.law ?? '?'} `,
-      Object.entries(fc).filter(([k]) => k !== 'law').map(([k, v]) => `${k} ${v}`).join(', ')),
+    // The plan's law as an engineer writes it (4 significant figures, "0 (at bound)"); true stress
+    // against true plastic strain. The plan document itself keeps the numbers as given.
+    h('p', { id: 'material-summary' }, `${m.name ?? '(no name)'}; E = ${m.elasticModulus} ${stressUnit()}; `,
+      `${flowCurveText(fc as Record<string, unknown>, stressUnit())} (true stress vs true plastic strain)`),
     h('button', { type: 'button', id: 'use-bench', onclick: useBenchMaterial }, 'Use the law saved from the record bench'));
   const s = doc.start ?? {};
   byId('start-editor').replaceChildren(...(['thickness', 'width', 'diameter', 'height'] as const).map((k) =>

@@ -8,7 +8,7 @@ import { h } from './dom.js';
  * number shown in a notebook has the same digits as the runner prints for it.
  */
 export { fixed };
-export { formatNumber, formatTargetValue, formatLaw, formatLawParam, targetUnit } from '../report/numbers.js';
+export { formatNumber, formatTargetValue, formatLaw, formatLawParam, flowCurveText, targetUnit } from '../report/numbers.js';
 
 /**
  * Displayed precision, one table for all notebooks (digits after the point), taken from the reports'
