@@ -49,6 +49,14 @@ export function uniformElongationOf(law: { uniformStrain(): number }): number {
   return Math.expm1(law.uniformStrain());
 }
 
+/**
+ * True for a law whose force can peak after its first Considère point (Hockett–Sherby with p > 1,
+ * see {@link forcePeaks}); every other law has a single peak at εu. A cheap test for hot paths.
+ */
+export function hasLaterForcePeaks(law: { readonly law: string; readonly params: Readonly<Record<string, number>> }): boolean {
+  return law.law === 'hockettSherby' && (law.params.p ?? 0) > 1;
+}
+
 /** Peaks already found, per law object (a law is immutable; its peaks never change). */
 const PEAKS = new WeakMap<object, readonly number[]>();
 
@@ -71,7 +79,7 @@ export function forcePeaks(law: { readonly law: string; readonly params: Readonl
   const cached = PEAKS.get(law);
   if (cached) return cached;
   let peaks: number[];
-  if (law.law === 'hockettSherby' && (law.params.p ?? 0) > 1) {
+  if (hasLaterForcePeaks(law)) {
     peaks = [];
     const h = (e: number) => law.slope(e) - law.stress(e);
     let a = 1e-6;

@@ -1,4 +1,4 @@
-import { forcePeaks } from '../flow/considere.js';
+import { forcePeaks, hasLaterForcePeaks } from '../flow/considere.js';
 import { chordModulus } from '../material/modulus.js';
 import { reloadYield as reloadYieldOf } from './reloadYield.js';
 import type { Material, StateProperties } from './types.js';
@@ -29,10 +29,9 @@ export function stateProperties(m: Material, eps: number, eu: number = m.law.uni
   const flowStress = law.stress(eps);
   const reloadYield = reloadYieldOf(law, eps);
   let tensileStrength = eps < eu ? law.stress(eu) * Math.exp(eps - eu) : flowStress;
-  const peaks = forcePeaks(law);
-  if (peaks.length > 1 || (peaks.length === 1 && peaks[0] !== eu)) {
+  if (hasLaterForcePeaks(law)) {
     // S-shaped law: the force may peak again after εu (see forcePeaks).
-    for (const pk of peaks) if (pk > eps) tensileStrength = Math.max(tensileStrength, law.stress(pk) * Math.exp(eps - pk));
+    for (const pk of forcePeaks(law)) if (pk > eps) tensileStrength = Math.max(tensileStrength, law.stress(pk) * Math.exp(eps - pk));
   }
   const remainingUniformStrain = eps < eu ? eu - eps : 0;
   const E = chordModulus(m.elasticModulus, m.modulusDecay, eps);

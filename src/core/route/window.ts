@@ -1,4 +1,4 @@
-import { forcePeaks } from '../flow/considere.js';
+import { forcePeaks, hasLaterForcePeaks } from '../flow/considere.js';
 import type { FlowLaw } from '../flow/types.js';
 import { strainForReloadYield } from './reloadYield.js';
 import { reductionPctFromStrain, type ReductionBasis } from './steps.js';
@@ -52,8 +52,7 @@ export function coldWorkWindow(law: FlowLaw, base: number, targets: Targets, bas
   }
   if (targets.minTensile !== undefined) {
     const T = targets.minTensile;
-    const peaks = forcePeaks(law);
-    if (peaks.length <= 1) {
+    if (!hasLaterForcePeaks(law)) {
       const su = law.stress(eu);
       if (T <= su) raise(eu + Math.log(T / su), 'minTensile');
       else {
@@ -65,7 +64,7 @@ export function coldWorkWindow(law: FlowLaw, base: number, targets: Targets, bas
       // S-shaped law (see forcePeaks): Rm(ε) ≥ T where σ(ε) ≥ T or, before a peak p, where
       // σ(p)·e^(ε−p) ≥ T; Rm is monotone, so the bound is the smallest of these.
       let e = inverse(T);
-      for (const pk of peaks) {
+      for (const pk of forcePeaks(law)) {
         const sp = law.stress(pk);
         if (T <= sp) e = Math.min(e ?? Infinity, pk + Math.log(T / sp));
       }
