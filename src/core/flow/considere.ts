@@ -79,27 +79,53 @@ export function forcePeaks(law: { readonly law: string; readonly params: Readonl
   const cached = PEAKS.get(law);
   if (cached) return cached;
   let peaks: number[];
-  if (hasLaterForcePeaks(law)) {
-    peaks = [];
-    const h = (e: number) => law.slope(e) - law.stress(e);
-    let a = 1e-6;
-    let ha = h(a);
-    while (a < CONSIDERE_SEARCH_LIMIT) {
-      const b = Math.min(a * 1.05, CONSIDERE_SEARCH_LIMIT);
-      const hb = h(b);
-      if (ha > 0 && hb <= 0) {
-        const r = brent(h, a, b, 1e-14);
-        if (!r.converged) throw new ComputationError('material.flowCurve', 'force-peak search did not converge');
-        peaks.push(r.root);
-      }
-      a = b;
-      ha = hb;
-    }
-  } else {
+  if (hasLaterForcePeaks(law)) peaks = forcePeakScan((e) => law.stress(e), (e) => law.slope(e));
+  else {
     const eu = law.uniformStrain();
     peaks = eu > 0 ? [eu] : [];
   }
   const frozen = Object.freeze(peaks);
   PEAKS.set(law, frozen);
   return frozen;
+}
+
+/**
+ * Every local force maximum of a tensile test on a law, scanned: the strains where dσ/dε − σ goes
+ * from + to − on a geometric grid (ratio 1.05, 10⁻⁶ to 10), each refined by Brent. Used for S-shaped
+ * laws (see {@link forcePeaks}). Units: true plastic strain, increasing.
+ * @throws ComputationError when a refinement does not converge.
+ */
+export function forcePeakScan(stress: (e: number) => number, slope: (e: number) => number): number[] {
+  const peaks: number[] = [];
+  const h = (e: number) => slope(e) - stress(e);
+  let a = 1e-6;
+  let ha = h(a);
+  while (a < CONSIDERE_SEARCH_LIMIT) {
+    const b = Math.min(a * 1.05, CONSIDERE_SEARCH_LIMIT);
+    const hb = h(b);
+    if (ha > 0 && hb <= 0) {
+      const r = brent(h, a, b, 1e-14);
+      if (!r.converged) throw new ComputationError('material.flowCurve', 'force-peak search did not converge');
+      peaks.push(r.root);
+    }
+    a = b;
+    ha = hb;
+  }
+  return peaks;
+}
+
+/**
+ * Uniform strain of an S-shaped law: the strain of the test's maximum force, the largest
+ * σ(ε)·e^(−ε) over ε ≥ 0 (ISO 6892-1 reads Ag at maximum force), among ε = 0 and the scanned peaks.
+ * Where the force falls right at yield and rises again above that level, this is the later peak —
+ * not the first point where dσ/dε = σ (which is 0 there). Units: true plastic strain.
+ */
+export function maximumForceStrain(stress: (e: number) => number, slope: (e: number) => number): number {
+  let best = 0;
+  let gBest = Math.log(stress(0));
+  for (const pk of forcePeakScan(stress, slope)) {
+    const g = Math.log(stress(pk)) - pk;
+    if (g > gBest) { gBest = g; best = pk; }
+  }
+  return best;
 }
