@@ -1,4 +1,4 @@
-import { formatNumber, targetUnit as unitOfTarget, targetUnitKind } from './numbers.js';
+import { extraFieldHeader, formatNumber, targetUnit as unitOfTarget, targetUnitKind } from './numbers.js';
 import type { ReportStep, ReportV1 } from './build.js';
 import { extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
 
@@ -31,9 +31,15 @@ export function stepColumns(r: ReportV1): StepColumn[] {
     { header: 'Ag left %', numeric: true, cell: (s) => fx(s.remainingUniformElongationPct, 1) },
     { header: 'recovery %', numeric: true, cell: (s) => fx(s.elasticRecoveryStrain * 100, 3) },
   ];
-  for (const key of extraStepFields(r.steps)) cols.push({ header: key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
+  for (const key of extraStepFields(r.steps)) cols.push({ header: extraFieldHeader(key, r.units), numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
   cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
   return cols;
+}
+
+/** One sentence under every ledger table: the basis of its stresses and strains (docs/bases-and-units.md). */
+export function ledgerBasisNote(r: ReportV1): string {
+  const kin = extraStepFields(r.steps).some((k) => /ReloadYield$/.test(k));
+  return `Rp0.2, Rm${kin ? ' and the reload yields' : ''}: engineering stresses on the part's own section after the step; Δε, ε total: true equivalent plastic strain.`;
 }
 
 /** The cold-work window in one sentence. */

@@ -2,7 +2,7 @@ import { parseHTML } from 'linkedom';
 import { ductilityByStepChart, strengthByStepChart } from '../charts/ledger.js';
 import { PALETTE } from '../charts/palette.js';
 import type { ReportV1 } from './build.js';
-import { stepColumns, targetNumber, targetUnit, windowText } from './columns.js';
+import { ledgerBasisNote, stepColumns, targetNumber, targetUnit, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
 import { scatterView } from './scatter.js';
 
@@ -52,6 +52,7 @@ export function htmlReport(r: ReportV1): string {
   parts.push(`<p>Rp0.2 ${r.material.initial.reloadYield.toFixed(1)} ${htmlText(r.units.stress)}, Rm ${r.material.initial.tensileStrength.toFixed(1)} ${htmlText(r.units.stress)}, uniform elongation ${r.material.initial.uniformElongationPct.toFixed(1)} %, Considère uniform true strain ${r.material.uniformStrain.toFixed(4)}.</p>`);
   parts.push('<h2>Ledger</h2>');
   parts.push(table(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
+  parts.push(`<p>${htmlText(ledgerBasisNote(r))}</p>`);
   parts.push(`<figure>${strength.outerHTML}<figcaption>Reload yield Rp0.2 and tensile strength Rm after each step (step 0: annealed); the band is the yield target.</figcaption></figure>`);
   parts.push(`<figure>${ductility.outerHTML}<figcaption>Remaining uniform elongation and %CW since the last anneal after each step.</figcaption></figure>`);
   parts.push('<h2>Targets</h2>');

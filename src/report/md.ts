@@ -1,5 +1,5 @@
 import type { ReportV1 } from './build.js';
-import { stepColumns, targetNumber, targetUnit, windowText } from './columns.js';
+import { ledgerBasisNote, stepColumns, targetNumber, targetUnit, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
 import { scatterView } from './scatter.js';
 
@@ -32,6 +32,7 @@ export function mdReport(r: ReportV1): string {
   out.push('', '## Ledger', '');
   const cols = stepColumns(r);
   out.push(mdTable(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
+  out.push('', mdText(ledgerBasisNote(r)));
   out.push('', '## Targets', '');
   if (r.targets.length === 0) out.push('No targets given.');
   else {

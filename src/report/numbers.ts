@@ -126,3 +126,32 @@ export function flowCurveText(flowCurve: Readonly<Record<string, unknown>>, stre
   }
   return [formatLaw(law as LawName, params, stressUnit, sep), ...other].join(', ');
 }
+
+/**
+ * Unit of an extra numeric ledger field (beyond report v1's own) as a column header suffix, in the
+ * report's unit system; `''` for a dimensionless field or one not listed here (a new field should be
+ * added). Human-readable headers only: CSV headers stay the bare field names.
+ */
+export function extraFieldUnit(key: string, units: { system: string; stress: string; length: string }): string {
+  const us = units.system === 'US';
+  const table: Readonly<Record<string, string>> = {
+    drawingStress: units.stress,
+    reverseReloadYield: `${units.stress}, eng.`,
+    kinematicReloadYield: `${units.stress}, eng.`,
+    drawingForce: us ? 'lbf' : 'N',
+    rollForce: us ? 'lbf' : 'N',
+    rollTorque: us ? 'lbf·ft' : 'N·m',
+    temperatureRise: 'K',
+    maxAreaReductionPct: '%',
+    springbackDeg: '°',
+    finalAngleDeg: '°',
+    finalRadius: units.length,
+  };
+  return table[key] ?? '';
+}
+
+/** A human-readable header for an extra field: `springbackDeg °`, `reverseReloadYield MPa, eng.`. */
+export function extraFieldHeader(key: string, units: { system: string; stress: string; length: string }): string {
+  const u = extraFieldUnit(key, units);
+  return u ? `${key} (${u})` : key;
+}

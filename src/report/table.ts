@@ -1,6 +1,7 @@
 import type { ReportV1 } from './build.js';
 import { extraStepFields, sig4, stepNumber } from './fields.js';
-import { flowCurveText, formatTargetValue } from './numbers.js';
+import { ledgerBasisNote } from './columns.js';
+import { extraFieldHeader, flowCurveText, formatTargetValue } from './numbers.js';
 import { scatterLines } from './scatter.js';
 
 /** Fixed-decimal formatting used by all human-readable reports. */
@@ -38,7 +39,8 @@ export function tableReport(r: ReportV1, color = false): string {
     fixed(s.coldWorkPct, 1), fixed(s.reloadYield, 1), fixed(s.tensileStrength, 1), fixed(s.yieldRatio, 3),
     fixed(s.remainingUniformElongationPct, 1), fixed(s.elasticRecoveryStrain * 100, 3), ...extras.map((k) => sig4(stepNumber(s, k))), s.warnings.map((w) => w.code).join(','),
   ]);
-  out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε total', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', ...extras, 'warnings'], rows));
+  out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε total', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', ...extras.map((k) => extraFieldHeader(k, r.units)), 'warnings'], rows));
+  out.push(ledgerBasisNote(r));
   out.push('');
   if (r.targets.length === 0) out.push('targets: none given');
   for (const t of r.targets) {
