@@ -1,7 +1,7 @@
 // Route designer: a design specification (the `design` command's format) and the ranked routes it
 // gives. Every number comes from the same functions the runner uses (loadDesignSpecText,
 // designRoute, routeToPlan); the page only arranges and formats them.
-import { Notebook, expose, slider, valueStream, h, fixed, autosave, restore, downloadText, planFileName, byId } from '../../src/cells/index.js';
+import { Notebook, expose, slider, valueStream, h, fixed, formatNumber, autosave, restore, downloadText, planFileName, byId } from '../../src/cells/index.js';
 import { designRoute, type DesignResult, type DesignedRoute } from '../../src/core/index.js';
 import { loadDesignSpecText, routeToPlan, type LoadedDesignSpec } from '../../src/plan/designSpec.js';
 import exampleSpec from '../../examples/design-fencing-wire.yaml?raw';
@@ -74,7 +74,7 @@ nb.cell({ name: 'specText', fn: () => valueStream(specWrap as unknown as HTMLEle
           h('p', {}, h('strong', {}, `${r.anneals} anneal${r.anneals === 1 ? '' : 's'}, ${r.passes} passes`),
             ` — final reduction ${fixed(r.finalReductionPct, 1)} %; smallest margins: window ${fixed(r.windowMargin * 100, 1)} %, passes ${fixed(r.passMargin * 100, 1)} % (${r.governingPassLimit} governs), anneal ${fixed(r.annealMargin * 100, 1)} %`),
           h('p', { class: 'sl-sizes' }, `sizes (${u.length}): ${routeSizes(spec, r)}`),
-          h('p', {}, `final reload yield ${fixed(u.fromMPa(last.reloadYield), 1)} ${u.stress}, tensile strength ${fixed(u.fromMPa(last.tensileStrength), 1)} ${u.stress}`),
+          h('p', {}, `final reload yield Rp0.2 ${formatNumber(u.fromMPa(last.reloadYield), 'stress', u.stress)} ${u.stress}, tensile strength Rm ${formatNumber(u.fromMPa(last.tensileStrength), 'stress', u.stress)} ${u.stress} (engineering, on the final section)`),
           r.annealNotes.length ? h('ul', {}, ...r.annealNotes.map((n) => h('li', {}, `after pass ${n.afterPass}: ${n.reason}`))) : h('p', {}, 'no anneal needed: the whole reduction lands in the window'),
           button);
       }));

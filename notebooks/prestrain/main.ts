@@ -1,7 +1,7 @@
 // Prestrain explorer: the cell graph. Every number comes from the core (stateProperties,
 // chordModulus, makeLaw); the page only arranges and formats them.
 import {
-  Notebook, expose, slider, stepSlider, choice, valueStream, h, quantity, fixed, DIGITS, restore, byId,
+  Notebook, expose, slider, stepSlider, choice, valueStream, h, quantity, fixed, formatLaw, DIGITS, restore, byId,
 } from '../../src/cells/index.js';
 import {
   makeLaw, fitAllLaws, stateProperties, chordModulus, reductionPctFromStrain, LAW_PARAMETERS, LAW_NAMES, PROOF_OFFSET, InputError, defaultHardnessModel,
@@ -24,7 +24,11 @@ export interface LawSet {
   hardness?: Material['hardness'];
 }
 
-const lawLabel = (law: FlowLaw) => `${law.law} (${LAW_PARAMETERS[law.law].map((p) => `${p.name} ${+law.params[p.name]!.toPrecision(4)}`).join(', ')})`;
+// A law as an engineer writes it (src/report/numbers.ts): 4 significant figures, a parameter a fit
+// collapsed onto its bound as "0 (at bound)", stresses with their unit.
+const lawLabel = (law: FlowLaw) => formatLaw(law.law, law.params, 'MPa');
+/** The law specs of a set, as the typed-in box writes them (full precision: this is data, not display). */
+const lawSpecs = (laws: readonly FlowLaw[]) => laws.map((law) => ({ law: law.law, ...Object.fromEntries(LAW_PARAMETERS[law.law].map((p) => [p.name, law.params[p.name]!])) }));
 
 // Material sources: the invented demo plans, a law typed in, and the record bench's saved fits.
 type Source = { kind: 'demo'; index: number } | { kind: 'typed' } | { kind: 'bench' };
@@ -37,12 +41,33 @@ const sources: { value: Source; text: string }[] = [
 const sourceInput = choice({ label: 'Material', options: sources, id: 'material' });
 byId('material-input').append(sourceInput);
 
+// The box always shows the law in use: the chosen material's E and law (read-only) or, with "a law
+// typed in", the user's own text (editable). The user's text is kept while another material is shown;
+// until the user edits it, it starts from the law last in use, so its E is the material's.
 const lawText = h('textarea', { id: 'law-text', rows: 5, cols: 44, spellcheck: 'false' });
 lawText.value = JSON.stringify({ elasticModulus: 70000, laws: [{ law: 'voce', sigma0: 120, Q: 160, b: 12 }, { law: 'hollomon', K: 400, n: 0.2 }] }, null, 1);
-const lawTextWrap = h('div', { class: 'sl-input', id: 'law-text-wrap' },
-  h('label', { for: 'law-text' }, 'Law typed in (MPa; used when "a law typed in" is chosen)'), lawText);
+lawText.readOnly = true;
+let typedDraft: string | null = null;
+const lawTextLabel = h('label', { for: 'law-text', id: 'law-text-label' }, 'Law in use (MPa)');
+const lawTextWrap = h('div', { class: 'sl-input', id: 'law-text-wrap' }, lawTextLabel, lawText);
 Object.defineProperty(lawTextWrap, 'value', { get: () => lawText.value });
-lawText.addEventListener('change', () => lawTextWrap.dispatchEvent(new Event('input')));
+lawText.addEventListener('input', () => { if (!lawText.readOnly) typedDraft = lawText.value; });
+lawText.addEventListener('change', () => { if (!lawText.readOnly) typedDraft = lawText.value; lawTextWrap.dispatchEvent(new Event('input')); });
+/** Shows the law in use in the box (read-only) or the user's draft (editable). */
+function showLawInBox(inUse: { elasticModulus: number; laws: readonly FlowLaw[] } | 'typed'): void {
+  if (inUse === 'typed') {
+    // Already editable: the box holds what the user is typing; never overwrite it.
+    if (!lawText.readOnly) return;
+    typedDraft ??= lawText.value;
+    lawText.readOnly = false;
+    lawText.value = typedDraft;
+    lawTextLabel.textContent = 'Law typed in (MPa; edit, then leave the box to apply)';
+    return;
+  }
+  lawText.readOnly = true;
+  lawText.value = JSON.stringify({ elasticModulus: inUse.elasticModulus, laws: lawSpecs(inUse.laws) }, null, 1);
+  lawTextLabel.textContent = 'Law in use (MPa; read-only — choose "a law typed in" to edit a copy)';
+}
 byId('law-text-input').append(lawTextWrap);
 
 const PRESTRAIN_MAX = 1.5;
@@ -101,10 +126,18 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({ name: 'mode', fn: () => valueStream(modeInput) })
   .cell({
     name: 'lawSet', inputs: ['source', 'lawText'], into: 'material-note',
-    fn: (source: Source, text: string): LawSet => {
-      if (source.kind === 'typed') return parseTyped(text);
-      if (source.kind === 'bench') return benchSet();
+    fn: (source: Source, _text: string): LawSet => {
+      if (source.kind === 'typed') {
+        showLawInBox('typed');
+        return parseTyped(lawText.value);
+      }
+      if (source.kind === 'bench') {
+        const set = benchSet();
+        showLawInBox({ elasticModulus: set.elasticModulus, laws: set.laws.map((x) => x.law) });
+        return set;
+      }
       const m = demos[source.index]!.plan.route.material;
+      showLawInBox({ elasticModulus: m.elasticModulus, laws: [m.law] });
       const tested = m.fittedStrainRange ?? [PROOF_OFFSET, m.law.uniformStrain()] as const;
       return { name: m.name, invented: true, elasticModulus: m.elasticModulus, ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}), ...(m.hardness ? { hardness: m.hardness } : {}), testedRange: tested, laws: [{ label: lawLabel(m.law), law: m.law }, ...companions(m.law, tested)] };
     },
@@ -133,8 +166,8 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       const basis = hm.basis === 'fitted' ? `c ${fixed(hm.taborFactor, 3)} fitted to ${hm.readings} readings` : hm.basis === 'given' ? `c ${fixed(hm.taborFactor, 3)} given in the plan` : `default c ${fixed(hm.taborFactor, 3)}`;
       return h('div', {}, h('dl', { class: 'sl-quantities', id: 'numbers' },
         quantity('prestrain ε̄', eps, 3, '', 'prestrain'),
-        quantity('reload yield Rp0.2', p.reloadYield, DIGITS.stress, 'MPa', 'reloadYield'),
-        quantity('tensile strength Rm', p.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength'),
+        quantity('reload yield Rp0.2 (engineering, own section)', p.reloadYield, DIGITS.stress, 'MPa', 'reloadYield'),
+        quantity('tensile strength Rm (engineering, own section)', p.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength'),
         quantity('yield ratio Rp0.2/Rm', p.yieldRatio, DIGITS.ratio, '', 'yieldRatio'),
         quantity('elastic recovery σ/E(ε̄)', p.elasticRecoveryStrain * 100, DIGITS.recoveryPct, '% strain', 'elasticRecovery'),
         quantity('remaining uniform elongation', p.remainingUniformElongationPct, DIGITS.pct, '%', 'remainingElongation'),
@@ -174,8 +207,10 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({
     // A slider move only moves the marker on the chart drawn above (same element, no redraw).
     name: 'flowChart', inputs: ['flowBase', 'states', 'prestrain'], into: 'cell-flow-chart',
-    fn: (chart: SVGSVGElement | HTMLElement, states: { props: { reloadYield: number } }[], eps: number) => {
-      markPrestrain(chart, eps, states.map((x) => ({ strain: eps + PROOF_OFFSET, stress: x.props.reloadYield })));
+    fn: (chart: SVGSVGElement | HTMLElement, states: { law: FlowLaw }[], eps: number) => {
+      // On the flow curve (true stress vs true plastic strain) the proof point sits at ε̄ + 0.002 with
+      // its TRUE stress; the Rp0.2 shown in the numbers is that times e^(−0.002), the engineering value.
+      markPrestrain(chart, eps, states.map((x) => ({ strain: eps + PROOF_OFFSET, stress: x.law.stress(eps + PROOF_OFFSET) })));
       chart.setAttribute('data-prestrain', String(eps));
       return chart;
     },
@@ -201,7 +236,7 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({
     name: 'laws', inputs: ['states', 'curves', 'lawSet'], into: 'cell-laws',
     fn: (states: { label: string; uniformStrain: number; props: ReturnType<typeof stateProperties> }[], curves: { points: { strain: number; stress: number }[] }[], s: LawSet) => {
-      const head = ['law', 'εu', 'flow stress MPa', 'reload yield Rp0.2 MPa', 'Rm MPa', 'Rp0.2/Rm', 'recovery % strain', 'remaining uniform elongation %', 'HV (Tabor estimate)'];
+      const head = ['law', 'εu', 'flow stress MPa (true)', 'reload yield Rp0.2 MPa (eng.)', 'Rm MPa (eng.)', 'Rp0.2/Rm', 'recovery % strain', 'remaining uniform elongation %', 'HV (Tabor estimate)'];
       const table = h('table', { class: 'sl-table', id: 'law-table' },
         h('thead', {}, h('tr', {}, ...head.map((x) => h('th', { scope: 'col' }, x)))),
         h('tbody', {}, ...states.map((x) => h('tr', {},

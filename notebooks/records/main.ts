@@ -1,7 +1,7 @@
 // Record bench: a tensile record in, properties and law fits out — through the same record parser
 // (src/records) and analysis (analyzeRecord, fitAllLaws) as the runner.
 import {
-  Notebook, expose, h, fixed, DIGITS, fileDrop, errorBox, byId, autosave, choice, restore,
+  Notebook, expose, h, fixed, formatLawParam, DIGITS, fileDrop, errorBox, byId, autosave, choice, restore,
 } from '../../src/cells/index.js';
 import { analyzeRecord, LAW_PARAMETERS } from '../../src/core/index.js';
 import type { LawName, TensileAnalysis } from '../../src/core/index.js';
@@ -167,7 +167,7 @@ nb.cell({ name: 'input', fn: () => null })
       const param = (f: (typeof c.fits)[number], p: string) => {
         const iv = f.intervals95[p];
         const v = f.params[p]!;
-        return `${p} ${+v.toPrecision(5)}${iv ? ` (95 %: ${+iv[0].toPrecision(4)} to ${+iv[1].toPrecision(4)})` : ' (interval not identifiable)'}`;
+        return `${p} ${formatLawParam(LAW_PARAMETERS[f.law].find((x) => x.name === p)!, v)}${iv ? ` (95 %: ${+iv[0].toPrecision(4)} to ${+iv[1].toPrecision(4)})` : ' (interval not identifiable)'}`;
       };
       return h('table', { class: 'sl-table', id: 'fits-table' },
         h('thead', {}, h('tr', {}, ...['law', 'parameters (MPa for stresses)', 'RMSE MPa', 'R²', 'AIC', 'state'].map((x) => h('th', { scope: 'col' }, x)))),

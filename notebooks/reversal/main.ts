@@ -83,8 +83,8 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({
     name: 'pathNumbers', inputs: ['paths'], into: 'cell-path-numbers',
     fn: (p: Paths) => h('dl', { class: 'sl-quantities' },
-      quantity('reverse yield, isotropic hardening', p.reverseYieldIso, DIGITS.stress, 'MPa', 'reverseYieldIso'),
-      quantity('reverse yield, with backstresses', p.reverseYieldKin, DIGITS.stress, 'MPa', 'reverseYieldKin')),
+      quantity('reverse yield onset, isotropic hardening (true stress)', p.reverseYieldIso, DIGITS.stress, 'MPa', 'reverseYieldIso'),
+      quantity('reverse yield onset, with backstresses (true stress)', p.reverseYieldKin, DIGITS.stress, 'MPa', 'reverseYieldKin')),
   })
   .cell({
     name: 'pathChart', inputs: ['paths'], into: 'cell-path-chart',

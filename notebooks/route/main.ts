@@ -2,7 +2,7 @@
 // The plan is kept outside the runtime as the user's document (autosaved, undoable); the cells
 // validate it, run it and build the report with the same functions the runner uses.
 import {
-  Notebook, expose, h, fixed, DIGITS, autosave, restore, UndoHistory, planText, planFileName, importPlan,
+  Notebook, expose, h, fixed, formatNumber, formatTargetValue, flowCurveText, DIGITS, autosave, restore, UndoHistory, planText, planFileName, importPlan,
   downloadText, fileDrop, errorBox, byId, choice,
 } from '../../src/cells/index.js';
 import { LAW_PARAMETERS, STEP_KIND_NAMES } from '../../src/core/index.js';
@@ -108,8 +108,10 @@ function drawEditors(): void {
   const m = doc.material ?? {};
   const fc = m.flowCurve ?? {};
   byId('material-view').replaceChildren(
-    h('p', { id: 'material-summary' }, `${m.name ?? '(no name)'}; E = ${m.elasticModulus} ${stressUnit()}; ${fc.law ?? '?'} `,
-      Object.entries(fc).filter(([k]) => k !== 'law').map(([k, v]) => `${k} ${v}`).join(', ')),
+    // The plan's law as an engineer writes it (4 significant figures, "0 (at bound)"); true stress
+    // against true plastic strain. The plan document itself keeps the numbers as given.
+    h('p', { id: 'material-summary' }, `${m.name ?? '(no name)'}; E = ${m.elasticModulus} ${stressUnit()}; `,
+      `${flowCurveText(fc as Record<string, unknown>, stressUnit())} (true stress vs true plastic strain)`),
     h('button', { type: 'button', id: 'use-bench', onclick: useBenchMaterial }, 'Use the law saved from the record bench'),
     temperSystemField());
   const s = doc.start ?? {};
@@ -248,8 +250,8 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
         ['Δε̄', 'strainIncrement', (s) => fixed(s.strainIncrement, DIGITS.strain)],
         ['ε̄ total', 'accumulatedStrain', (s) => fixed(s.accumulatedStrain, DIGITS.strain)],
         ['%CW since anneal', 'coldWorkPct', (s) => fixed(s.coldWorkPct, DIGITS.pct)],
-        [`reload yield Rp0.2 ${S(r)}`, 'reloadYield', (s) => fixed(s.reloadYield, DIGITS.stress)],
-        [`Rm ${S(r)}`, 'tensileStrength', (s) => fixed(s.tensileStrength, DIGITS.stress)],
+        [`reload yield Rp0.2 ${S(r)} (eng.)`, 'reloadYield', (s) => formatNumber(s.reloadYield, 'stress', S(r))],
+        [`Rm ${S(r)} (eng.)`, 'tensileStrength', (s) => formatNumber(s.tensileStrength, 'stress', S(r))],
         ['Rp0.2/Rm', 'yieldRatio', (s) => fixed(s.yieldRatio, DIGITS.ratio)],
         ['uniform elongation left %', 'remainingUniformElongationPct', (s) => fixed(s.remainingUniformElongationPct, DIGITS.pct)],
         ['elastic recovery % strain', 'elasticRecoveryPct', (s) => fixed(s.elasticRecoveryStrain * 100, DIGITS.recoveryPct)],
@@ -259,7 +261,8 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
       ];
       const i0 = r.material.initial;
       return h('div', {},
-        h('p', {}, `Annealed: Rp0.2 ${fixed(i0.reloadYield, DIGITS.stress)} ${S(r)}, Rm ${fixed(i0.tensileStrength, DIGITS.stress)} ${S(r)}, uniform elongation ${fixed(i0.uniformElongationPct, DIGITS.pct)} %.`),
+        h('p', {}, `Annealed: Rp0.2 ${formatNumber(i0.reloadYield, 'stress', S(r))} ${S(r)}, Rm ${formatNumber(i0.tensileStrength, 'stress', S(r))} ${S(r)}, uniform elongation ${fixed(i0.uniformElongationPct, DIGITS.pct)} %. `,
+          'Rp0.2 and Rm are engineering stresses on the part\'s own section after each step (what a tensile test of the formed part reports); ε̄ is true (von Mises equivalent) plastic strain.'),
         hasTemper(r) ? h('p', { class: 'sl-cautions', id: 'temper-caution' }, h('strong', {}, 'Caution. '), TEMPER_CAUTION) : null,
         h('table', { class: 'sl-table', id: 'ledger-table' },
           h('thead', {}, h('tr', {}, ...cols.map(([t]) => h('th', { scope: 'col' }, t)))),
@@ -270,13 +273,15 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
     name: 'targets', inputs: ['report'], into: 'cell-targets',
     fn: (r: ReportV1) => {
       if (r.targets.length === 0) return h('p', {}, 'No targets given.');
-      const unit = (n: string) => (n === 'minRemainingElongationPct' ? '%' : n === 'minHardnessHV' || n === 'maxHardnessHV' ? 'HV' : n === 'temper' ? targetUnit(r, n) : S(r));
-      const words: Record<string, string> = { minYield: 'minimum reload yield', maxYield: 'maximum reload yield', minTensile: 'minimum tensile strength', minRemainingElongationPct: 'minimum remaining uniform elongation',
+      const words: Record<string, string> = { minYield: 'minimum reload yield', maxYield: 'maximum reload yield', minTensile: 'minimum tensile strength', minRemainingElongationPct: 'minimum remaining uniform elongation', maxSpringbackDeg: 'largest springback',
         minHardnessHV: 'minimum Vickers hardness', maxHardnessHV: 'maximum Vickers hardness' };
       const name = (t: ReportV1['targets'][number]) => (t.temper ? `temper ${t.temper.wanted} (reached: ${t.temper.got ?? 'none of the system'})` : words[t.name] ?? t.name);
-      return h('ul', { id: 'target-list' }, ...r.targets.map((t) => h('li', { 'data-target': t.name },
-        h('span', { class: t.met ? 'sl-met' : 'sl-missed' }, t.met ? 'met' : 'NOT met'), ` — ${name(t)}: predicted ${fixed(t.predicted, 2)} ${unit(t.name)}, limit ${fixed(t.limit, 2)} ${unit(t.name)}, `,
-        t.met ? `margin ${fixed(t.margin, 2)} ${unit(t.name)} to spare` : `short by ${fixed(-t.margin, 2)} ${unit(t.name)}`)),
+      return h('ul', { id: 'target-list' }, ...r.targets.map((t) => {
+        const v = (x: number) => formatTargetValue(x, t.name, S(r), t.temper?.basis);
+        return h('li', { 'data-target': t.name },
+          h('span', { class: t.met ? 'sl-met' : 'sl-missed' }, t.met ? 'met' : 'NOT met'), ` — ${name(t)}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, `,
+          t.met ? `margin ${v(t.margin)} to spare` : `short by ${v(-t.margin)}`);
+      }),
         h('li', {}, h('strong', {}, r.allTargetsMet ? 'All targets met.' : 'Not every target is met.')));
     },
   })

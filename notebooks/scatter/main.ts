@@ -1,7 +1,7 @@
 // Scatter notebook: the histogram of the final yield with the target and the probability of
 // meeting it, following the final-pass slider. The Monte Carlo is the core's `runScatter` (the same
 // function, seed and blocks as `strainledger run`), computed in a web worker.
-import { Notebook, expose, slider, choice, valueStream, h, quantity, fixed, DIGITS, byId } from '../../src/cells/index.js';
+import { Notebook, expose, slider, choice, valueStream, h, quantity, fixed, formatNumber, DIGITS, byId } from '../../src/cells/index.js';
 import { InputError, evaluateRoute, type ScatterProblem, type ScatterSummary } from '../../src/core/index.js';
 import { yieldHistogram } from '../../src/charts/scatter.js';
 import { SCATTER_CAUTIONS } from '../../src/report/scatter.js';
@@ -102,13 +102,13 @@ nb.cell({ name: 'plan', fn: () => valueStream(planInput) })
     },
   })
   .cell({
-    name: 'sensitivity', inputs: ['summary'], into: 'cell-sensitivity',
-    fn: (s: ScatterSummary) => h('div', {},
+    name: 'sensitivity', inputs: ['summary', 'plan'], into: 'cell-sensitivity',
+    fn: (s: ScatterSummary, plan: LoadedPlan) => h('div', {},
       h('h3', {}, 'Which input drives the spread'),
       h('table', { class: 'sl-table', id: 'sensitivity' },
         h('thead', {}, h('tr', {}, ...['input', 'standardised regression coefficient', 'correlation with final Rp0.2'].map((x) => h('th', { scope: 'col' }, x)))),
         h('tbody', {}, ...s.sensitivity.inputs.map((i) => h('tr', {}, h('td', { class: 'text' }, i.input), h('td', {}, fixed(i.src, 3)), h('td', {}, fixed(i.correlation, 3)))))),
-      h('p', {}, `Linear model R² ${fixed(s.sensitivity.linearR2, 3)}; first-order check: mean ${fixed(s.deltaMethod.finalReloadYield.mean, 1)}, sd ${fixed(s.deltaMethod.finalReloadYield.sd, 1)} MPa.`)),
+      h('p', {}, `Linear model R² ${fixed(s.sensitivity.linearR2, 3)}; first-order check: mean ${formatNumber(plan.units.fromMPa(s.deltaMethod.finalReloadYield.mean), 'stress', plan.units.stress)} ${plan.units.stress}, sd ${formatNumber(plan.units.fromMPa(s.deltaMethod.finalReloadYield.sd), 'stress', plan.units.stress)} ${plan.units.stress}.`)),
   })
   .cell({
     name: 'cautions', into: 'cell-scatter-cautions',

@@ -1,4 +1,5 @@
 import { fixed } from '../report/table.js';
+import { DISPLAY_DIGITS } from '../report/numbers.js';
 import { CAUTIONS } from '../report/cautions.js';
 import { h } from './dom.js';
 
@@ -7,15 +8,20 @@ import { h } from './dom.js';
  * number shown in a notebook has the same digits as the runner prints for it.
  */
 export { fixed };
+export { formatNumber, formatTargetValue, formatLaw, formatLawParam, flowCurveText, targetUnit } from '../report/numbers.js';
 
-/** Displayed precision, one table for all notebooks (digits after the point). */
+/**
+ * Displayed precision, one table for all notebooks (digits after the point), taken from the reports'
+ * `DISPLAY_DIGITS` (src/report/numbers.ts). `stress` is for MPa; a stress in the plan's unit goes
+ * through `formatNumber(x, 'stress', unit)`.
+ */
 export const DIGITS = {
-  stress: 1,
-  strain: 4,
-  pct: 1,
-  ratio: 3,
-  size: 3,
-  recoveryPct: 3,
+  stress: DISPLAY_DIGITS.stress.MPa,
+  strain: DISPLAY_DIGITS.strain,
+  pct: DISPLAY_DIGITS.percent,
+  ratio: DISPLAY_DIGITS.ratio,
+  size: DISPLAY_DIGITS.size,
+  recoveryPct: DISPLAY_DIGITS.recoveryPct,
 } as const;
 
 /** A labelled quantity: `<div><dt>reload yield Rp0.2</dt><dd>412.3 MPa</dd></div>`. */

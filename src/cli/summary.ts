@@ -1,16 +1,21 @@
 import { formatProblem } from '../plan/problems.js';
-import { targetUnit } from '../report/columns.js';
+import { formatTargetValue } from '../report/numbers.js';
 import { alignTable } from '../report/table.js';
 import type { Outcome } from './batch.js';
 
 const VERDICT = { 0: 'met', 1: 'NOT MET', 2: 'invalid', 3: 'error' } as const;
 
-/** The smallest margin of a report's targets, with the target's name and unit. */
+/**
+ * The tightest target of a report and its margin in that target's own unit (`4.1 MPa (minYield)`,
+ * `0.41° (maxSpringbackDeg)`). Targets in different units are compared by margin relative to
+ * their limit (margin / |limit|; the margin itself for a zero limit), never MPa against degrees.
+ */
 export function tightest(o: Outcome): string {
   const r = o.report;
   if (!r || r.targets.length === 0) return '—';
-  const t = r.targets.reduce((a, b) => (b.margin < a.margin ? b : a));
-  return `${t.margin.toFixed(2)} ${targetUnit(r, t.name)} (${t.name})`;
+  const rel = (t: { margin: number; limit: number }) => (t.limit !== 0 ? t.margin / Math.abs(t.limit) : t.margin);
+  const t = r.targets.reduce((a, b) => (rel(b) < rel(a) ? b : a));
+  return `${formatTargetValue(t.margin, t.name, r.units.stress, t.temper?.basis)} (${t.name})`;
 }
 
 /**

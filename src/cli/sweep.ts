@@ -8,6 +8,7 @@ import { alignTable } from '../report/table.js';
 import { evaluateSource, type PlanSource } from './evaluate.js';
 import { showPath, type Override, type Sweep } from './overrides.js';
 import type { Progress } from './progress.js';
+import { formatNumber, targetUnit, targetUnitKind } from '../report/numbers.js';
 
 /** One value of a sweep: the final state's strengths and each target's margin, or why it is invalid. */
 export interface SweepRow {
@@ -67,29 +68,28 @@ function targetNames(res: SweepResult): string[] {
 
 function header(res: SweepResult): string[] {
   const S = res.report?.units.stress ?? '';
-  return [res.path, `Rp0.2 ${S}`, `Rm ${S}`, 'Ag left %', ...targetNames(res).map((n) => `margin ${n}`), 'verdict'];
+  return [res.path, `Rp0.2 ${S}`, `Rm ${S}`, 'Ag left %', ...targetNames(res).map((n) => `margin ${n} ${targetUnit(n, S)}`), 'verdict'];
 }
 
-function cells(res: SweepRow, names: string[], fmt: (x: number | null, d: number) => string): string[] {
+function cells(res: SweepRow, names: string[], S: string): string[] {
   return [
-    String(res.value), fmt(res.reloadYield, 1), fmt(res.tensileStrength, 1), fmt(res.remainingUniformElongationPct, 1),
-    ...names.map((n) => { const t = res.targets.find((x) => x.name === n); return t ? fmt(t.margin, 2) : '—'; }),
+    String(res.value), formatNumber(res.reloadYield, 'stress', S), formatNumber(res.tensileStrength, 'stress', S), formatNumber(res.remainingUniformElongationPct, 'percent'),
+    ...names.map((n) => { const t = res.targets.find((x) => x.name === n); return t ? formatNumber(t.margin, targetUnitKind(n), S) : '—'; }),
     res.exit === 2 ? `invalid: ${res.problem}` : res.allTargetsMet ? 'met' : 'NOT MET',
   ];
 }
 
-const fixed = (x: number | null, d: number) => (x === null ? '—' : x.toFixed(d));
 
 /** Plan, file hash and tool, the law and its source: the provenance lines of a sweep. */
 function provenanceLines(res: SweepResult): string[] {
   return res.report ? provenance(res.report).filter((p) => p.label !== 'overrides').map((p) => `${p.label}: ${p.value}`) : [];
 }
 
-/** The sweep as an aligned table with provenance and cautions (margins to 2 decimals). */
+/** The sweep as an aligned table with provenance and cautions (each margin in its target's unit, `numbers.ts` precision). */
 export function sweepTable(res: SweepResult): string {
   const names = targetNames(res);
   const out = [...provenanceLines(res), `sweep: ${res.path} from ${res.sweep.from} to ${res.sweep.to} step ${res.sweep.step}; margin > 0 is room to spare`, ''];
-  out.push(alignTable(header(res), res.rows.map((r) => cells(r, names, fixed))));
+  out.push(alignTable(header(res), res.rows.map((r) => cells(r, names, res.report?.units.stress ?? 'MPa'))));
   out.push('', 'cautions:', ...(res.report?.cautions ?? CAUTIONS).map((c) => `  - ${c}`));
   return out.join('\n') + '\n';
 }
@@ -125,7 +125,7 @@ export function sweepMd(res: SweepResult): string {
   for (const l of provenanceLines(res)) out.push(`- ${mdText(l)}`);
   out.push('', `From ${res.sweep.from} to ${res.sweep.to} in steps of ${res.sweep.step}; margin > 0 is room to spare.`, '');
   out.push(`| ${h.map(mdText).join(' | ')} |`, `| ${h.map((_, i) => (i === h.length - 1 ? '---' : '---:')).join(' | ')} |`);
-  for (const r of res.rows) out.push(`| ${cells(r, names, fixed).map(mdText).join(' | ')} |`);
+  for (const r of res.rows) out.push(`| ${cells(r, names, res.report?.units.stress ?? 'MPa').map(mdText).join(' | ')} |`);
   out.push('', '## Cautions', '', ...(res.report?.cautions ?? CAUTIONS).map((c) => `- ${mdText(c)}`));
   return out.join('\n') + '\n';
 }

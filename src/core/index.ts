@@ -16,7 +16,7 @@ export { hockettSherby } from './flow/hockettSherby.js';
 export { swiftVoce } from './flow/swiftVoce.js';
 export { makeLaw, lawSpec } from './flow/makeLaw.js';
 export { LAW_PARAMETERS, LAW_NAMES } from './flow/params.js';
-export { considereNumeric, tensileStrengthOf, uniformElongationOf, CONSIDERE_SEARCH_LIMIT } from './flow/considere.js';
+export { considereNumeric, forcePeaks, tensileStrengthOf, uniformElongationOf, CONSIDERE_SEARCH_LIMIT } from './flow/considere.js';
 export type * from './flow/types.js';
 
 // Material
@@ -29,7 +29,8 @@ export {
 } from './route/strain.js';
 export { STEP_KINDS, STEP_KIND_NAMES, stockOf, reductionPctFromStrain, MAX_STEP_STRAIN } from './route/steps.js';
 export type { StepKindDef, StepContext, StepEffect, ReductionBasis } from './route/steps.js';
-export { stateProperties, PROOF_OFFSET } from './route/state.js';
+export { stateProperties } from './route/state.js';
+export { reloadYield, strainForReloadYield, PROOF_OFFSET, PROOF_SECTION_FACTOR } from './route/reloadYield.js';
 export { evaluateRoute } from './route/ledger.js';
 export type { LedgerOptions } from './route/ledger.js';
 export { checkTargets, checkSpringbackTarget, validateTargets, TARGET_DEFS, TARGET_NAMES } from './route/targets.js';

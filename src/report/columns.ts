@@ -1,3 +1,4 @@
+import { extraFieldHeader, formatNumber, targetUnit as unitOfTarget, targetUnitKind } from './numbers.js';
 import type { ReportStep, ReportV1 } from './build.js';
 import { conversionHeader, extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
 
@@ -32,10 +33,16 @@ export function stepColumns(r: ReportV1): StepColumn[] {
   ];
   // Vickers hardness (Tabor estimate) to 0.1 HV, in its own column when the report has it.
   if (r.steps.some((s) => s.hardnessHV !== undefined)) cols.push({ header: 'HV', numeric: true, cell: (s) => (s.hardnessHV === undefined ? '—' : fx(s.hardnessHV, 1)) });
-  for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: conversionHeader(key, S) ?? key, numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
+  for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: conversionHeader(key, S) ?? extraFieldHeader(key, r.units), numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
   if (hasTemper(r)) cols.push({ header: 'temper', numeric: false, cell: temperText });
   cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
   return cols;
+}
+
+/** One sentence under every ledger table: the basis of its stresses and strains (docs/bases-and-units.md). */
+export function ledgerBasisNote(r: ReportV1): string {
+  const kin = extraStepFields(r.steps).some((k) => /ReloadYield$/.test(k));
+  return `Rp0.2, Rm${kin ? ' and the reload yields' : ''}: engineering stresses on the part's own section after the step; Δε, ε total: true equivalent plastic strain.`;
 }
 
 /** The cold-work window in one sentence. */
@@ -68,12 +75,17 @@ export function temperTargetNote(t: ReportV1['targets'][number]): string {
   return t.temper ? ` — ${t.temper.wanted} wanted, ${t.temper.got ?? 'none of the system'} reached` : '';
 }
 
-/** The unit of a target's limit, predicted value and margin. */
+/** The basis of a report's temper target (what its limit and margin measure), if it has one. */
+function temperBasisOf(r: ReportV1, name: string): string | undefined {
+  return name === 'temper' ? r.targets.find((t) => t.name === 'temper')?.temper?.basis : undefined;
+}
+
+/** The unit of a target's limit, predicted value and margin (see `numbers.ts`). */
 export function targetUnit(r: ReportV1, name: string): string {
-  if (name === 'temper') {
-    const basis = r.targets.find((t) => t.name === 'temper')?.temper?.basis;
-    return basis === 'tensileStrength' ? r.units.stress : basis === 'hardnessHV' ? 'HV' : '% thickness reduction';
-  }
-  if (name === 'minHardnessHV' || name === 'maxHardnessHV') return 'HV';
-  return name === 'minRemainingElongationPct' ? '%' : name === 'maxSpringbackDeg' ? '°' : r.units.stress;
+  return unitOfTarget(name, r.units.stress, temperBasisOf(r, name));
+}
+
+/** A target's limit, predicted value or margin at its kind's precision, without the unit. */
+export function targetNumber(r: ReportV1, name: string, x: number): string {
+  return formatNumber(x, targetUnitKind(name, temperBasisOf(r, name)), r.units.stress);
 }

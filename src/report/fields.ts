@@ -1,4 +1,5 @@
 import type { ReportStep, ReportV1 } from './build.js';
+import { flowCurveText } from './numbers.js';
 
 /** The step fields of report v1 as first published; anything else numeric is an extra field. */
 export const STEP_FIELDS_V1: readonly string[] = [
@@ -60,7 +61,7 @@ export function sizeText(s: ReportStep['size']): string {
 
 /** Provenance lines every human-readable report carries: plan, hash, tool, law and where it came from. */
 export function provenance(r: ReportV1): { label: string; value: string }[] {
-  const fc = Object.entries(r.material.flowCurve).map(([k, v]) => `${k} = ${typeof v === 'number' ? +v.toPrecision(6) : String(v)}`).join(', ');
+  const fc = flowCurveText(r.material.flowCurve, r.units.stress);
   const overrides = (r.plan as { overrides?: string[] }).overrides;
   return [
     { label: 'plan', value: r.plan.name },

@@ -3,7 +3,7 @@ import { ductilityByStepChart, strengthByStepChart } from '../charts/ledger.js';
 import { hardnessByStepChart } from '../charts/hardness.js';
 import { PALETTE } from '../charts/palette.js';
 import type { ReportV1 } from './build.js';
-import { stepColumns, targetUnit, temperTargetNote, windowText } from './columns.js';
+import { ledgerBasisNote, stepColumns, targetNumber, targetUnit, temperTargetNote, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
 import { scatterView } from './scatter.js';
 
@@ -53,6 +53,7 @@ export function htmlReport(r: ReportV1): string {
   parts.push(`<p>Rp0.2 ${r.material.initial.reloadYield.toFixed(1)} ${htmlText(r.units.stress)}, Rm ${r.material.initial.tensileStrength.toFixed(1)} ${htmlText(r.units.stress)}, uniform elongation ${r.material.initial.uniformElongationPct.toFixed(1)} %, Considère uniform true strain ${r.material.uniformStrain.toFixed(4)}.</p>`);
   parts.push('<h2>Ledger</h2>');
   parts.push(table(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
+  parts.push(`<p>${htmlText(ledgerBasisNote(r))}</p>`);
   parts.push(`<figure>${strength.outerHTML}<figcaption>Reload yield Rp0.2 and tensile strength Rm after each step (step 0: annealed); the band is the yield target.</figcaption></figure>`);
   parts.push(`<figure>${ductility.outerHTML}<figcaption>Remaining uniform elongation and %CW since the last anneal after each step.</figcaption></figure>`);
   if (r.steps.some((s) => s.hardnessHV !== undefined)) {
@@ -63,7 +64,7 @@ export function htmlReport(r: ReportV1): string {
   if (r.targets.length === 0) parts.push('<p>No targets given.</p>');
   else {
     parts.push(table(['target', 'status', 'limit', 'predicted', 'margin', 'unit'],
-      r.targets.map((t) => [t.name + temperTargetNote(t), t.met ? 'met' : 'NOT MET', t.limit.toFixed(2), t.predicted.toFixed(2), t.margin.toFixed(2), targetUnit(r, t.name)]),
+      r.targets.map((t) => [t.name + temperTargetNote(t), t.met ? 'met' : 'NOT MET', targetNumber(r, t.name, t.limit), targetNumber(r, t.name, t.predicted), targetNumber(r, t.name, t.margin), targetUnit(r, t.name)]),
       [false, false, true, true, true, false]));
   }
   parts.push(`<p><strong>Cold-work window:</strong> ${htmlText(windowText(r))}</p>`);

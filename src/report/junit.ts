@@ -1,5 +1,6 @@
 import type { ReportV1 } from './build.js';
-import { targetUnit, temperTargetNote } from './columns.js';
+import { temperTargetNote } from './columns.js';
+import { formatTargetValue } from './numbers.js';
 
 /** Escapes text for XML 1.0 content and attributes; drops characters XML 1.0 forbids. */
 export function xmlText(s: string): string {
@@ -47,8 +48,8 @@ function suiteXml(s: JunitSuite): string {
   }
   x += '    </properties>\n';
   for (const t of r.targets) {
-    const u = targetUnit(r, t.name);
-    const text = `${t.name}: predicted ${t.predicted.toFixed(2)} ${u}, limit ${t.limit.toFixed(2)} ${u}, margin ${t.margin.toFixed(2)} ${u}${temperTargetNote(t)}`;
+    const v = (x: number) => formatTargetValue(x, t.name, r.units.stress, t.temper?.basis);
+    const text = `${t.name}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, margin ${v(t.margin)}${temperTargetNote(t)}`;
     x += `    <testcase classname="${name}" name="${xmlText(t.name)}">\n`;
     if (!t.met) x += `      <failure message="${xmlText(text)}" type="targetMissed">${xmlText(text)}</failure>\n`;
     else x += `      <system-out>${xmlText(text)}</system-out>\n`;
@@ -60,7 +61,8 @@ function suiteXml(s: JunitSuite): string {
 /**
  * JUnit XML (the de-facto schema read by CI dashboards): a `<testsuites>` element with one
  * `<testsuite>` per plan and one `<testcase>` per target; a missed target is a `<failure>` whose
- * message gives predicted value, limit and margin (2 decimals, plan units); an invalid plan is one
+ * message gives predicted value, limit and margin (each in the target's own unit: the plan's stress
+ * unit, % or degrees, at the precision of `numbers.ts`); an invalid plan is one
  * `<error>` case. Plan hash, tool and law source are suite properties, and for a plan with a scatter
  * section the probability of meeting every target and the lower tolerance bound on the final yield.
  */

@@ -1,5 +1,5 @@
 import type { ReportV1 } from './build.js';
-import { stepColumns, targetUnit, temperTargetNote, windowText } from './columns.js';
+import { ledgerBasisNote, stepColumns, targetNumber, targetUnit, temperTargetNote, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
 import { scatterView } from './scatter.js';
 
@@ -32,11 +32,12 @@ export function mdReport(r: ReportV1): string {
   out.push('', '## Ledger', '');
   const cols = stepColumns(r);
   out.push(mdTable(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
+  out.push('', mdText(ledgerBasisNote(r)));
   out.push('', '## Targets', '');
   if (r.targets.length === 0) out.push('No targets given.');
   else {
     out.push(mdTable(['target', 'status', 'limit', 'predicted', 'margin', 'unit'],
-      r.targets.map((t) => [t.name + temperTargetNote(t), t.met ? 'met' : 'NOT MET', t.limit.toFixed(2), t.predicted.toFixed(2), t.margin.toFixed(2), targetUnit(r, t.name)]),
+      r.targets.map((t) => [t.name + temperTargetNote(t), t.met ? 'met' : 'NOT MET', targetNumber(r, t.name, t.limit), targetNumber(r, t.name, t.predicted), targetNumber(r, t.name, t.margin), targetUnit(r, t.name)]),
       [false, false, true, true, true, false]));
   }
   out.push('', `**Cold-work window:** ${mdText(windowText(r))}`);

@@ -8,6 +8,8 @@ import { z } from 'zod';
  * field listed here is required exactly as shown. Numbers are finite (no NaN or Infinity).
  */
 const num = (what: string) => z.number().describe(what);
+/** The unit of a target's limit, predicted value and margin (src/report/numbers.ts `targetUnit`). */
+const TARGET_UNIT_TEXT = 'in the target\'s own unit: the report stress unit for minYield, maxYield and minTensile (engineering stresses), % for minRemainingElongationPct, degrees for maxSpringbackDeg, HV for minHardnessHV and maxHardnessHV; a temper target in its basis (% thickness reduction, stress unit or HV)';
 const warning = z.strictObject({ code: z.string().min(1), message: z.string() });
 const size = z.strictObject({
   thickness: z.number().positive().optional(),
@@ -24,15 +26,15 @@ export const ReportStepSchema = z.looseObject({
   strainIncrement: num('von Mises equivalent plastic strain added by the step'),
   accumulatedStrain: num('accumulated equivalent plastic strain after the step'),
   coldWorkPct: num('%CW since the last anneal (geometric)'),
-  flowStress: num('flow stress at the accumulated strain (stress unit)'),
-  reloadYield: num('reload yield Rp0.2 (stress unit)'),
-  tensileStrength: num('tensile strength on the new section (stress unit)'),
-  yieldRatio: num('reload yield / tensile strength'),
-  remainingUniformStrain: num('true strain left before diffuse necking'),
-  remainingUniformElongationPct: num('remaining uniform elongation, %'),
-  elasticRecoveryStrain: num('elastic strain recovered on unloading'),
+  flowStress: num('flow stress σ(ε̄) at the accumulated strain: TRUE stress (stress unit)'),
+  reloadYield: num('reload yield Rp0.2: ENGINEERING 0.2 % proof strength on the part\'s own section after the step, σ(ε̄ + 0.002)·e^(−0.002) (stress unit); never above tensileStrength'),
+  tensileStrength: num('tensile strength Rm: ENGINEERING, maximum force over the part\'s own section after the step (stress unit)'),
+  yieldRatio: num('reloadYield / tensileStrength, both engineering on the same section; 0 to 1'),
+  remainingUniformStrain: num('TRUE plastic strain left before diffuse necking in uniaxial tension (Considère)'),
+  remainingUniformElongationPct: num('remaining uniform elongation: ENGINEERING plastic elongation left to maximum force, % of the part\'s own length'),
+  elasticRecoveryStrain: num('elastic strain recovered on unloading, σ(ε̄)/E(ε̄) (true stress over the chord modulus; dimensionless)'),
   recoveredElasticEnergy: num('elastic energy recovered per volume (stress unit)'),
-  meanFlowStress: num('mean flow stress over the step (stress unit)'),
+  meanFlowStress: num('mean flow stress over the step: TRUE stress (stress unit)'),
   plasticWork: num('plastic work per volume of the step (stress unit)'),
   temper: z.strictObject({
     designation: z.string().min(1).describe('temper designation, e.g. H02'),
@@ -64,9 +66,9 @@ export const ReportScatterSchema = z.looseObject({
   probabilityAllTargetsMet: probability('share of samples meeting every target'),
   probabilityStdError: z.number().nonnegative().describe('binomial standard error of that share'),
   targets: z.array(z.looseObject({ name: targetName, limit: z.number(), probabilityMet: probability('share of samples meeting this target') })),
-  finalReloadYield: distribution,
-  tensileStrength: distribution,
-  remainingElongationPct: distribution,
+  finalReloadYield: distribution.describe('final reload yield Rp0.2 over the samples: engineering, on the part\'s own section (stress unit)'),
+  tensileStrength: distribution.describe('final Rm over the samples: engineering (stress unit)'),
+  remainingElongationPct: distribution.describe('final remaining uniform elongation over the samples: engineering, %'),
   hardnessHV: distribution.optional().describe('final Vickers hardness by Tabor\'s relation, HV (the same in SI and US reports)'),
   toleranceBound: z.looseObject({
     value: z.number().describe('lower tolerance bound on the final reload yield'),
@@ -102,7 +104,11 @@ export const ReportSchema = z.looseObject({
     temperSystem: z.enum(['copperRolled', 'aluminiumH1x', 'steelStrip']).optional().describe('temper system the steps are named in'),
     grainGrowthStrain: z.tuple([z.number(), z.number()]).optional().describe('strain range since the previous anneal in which a full anneal warns of coarse grains, when set in the plan'),
     uniformStrain: z.number(),
-    initial: z.strictObject({ reloadYield: z.number(), tensileStrength: z.number(), uniformElongationPct: z.number() }),
+    initial: z.strictObject({
+      reloadYield: num('annealed Rp0.2, engineering (stress unit)'),
+      tensileStrength: num('annealed Rm, engineering (stress unit)'),
+      uniformElongationPct: num('annealed uniform elongation Ag, engineering, %'),
+    }),
     hardness: z.looseObject({
       relation: z.string(),
       taborFactor: z.number().positive().describe('c: Vickers hardness in MPa over the flow stress at the accumulated strain plus representativeStrain'),
@@ -116,7 +122,11 @@ export const ReportSchema = z.looseObject({
   }),
   steps: z.array(ReportStepSchema),
   targets: z.array(z.strictObject({
-    name: targetName, limit: z.number(), predicted: z.number(), margin: z.number(), met: z.boolean(),
+    name: targetName,
+    limit: num(TARGET_UNIT_TEXT),
+    predicted: num(`predicted value on the same basis as the ledger field the target limits; ${TARGET_UNIT_TEXT}`),
+    margin: num(`predicted − limit for a minimum, limit − predicted for a maximum (≥ 0 when met); ${TARGET_UNIT_TEXT}`),
+    met: z.boolean(),
     temper: z.strictObject({
       wanted: z.string(), got: z.string().nullable(), basis: z.enum(['thicknessReductionPct', 'tensileStrength', 'hardnessHV']),
     }).optional().describe('temper target only: limit is the temper\'s lower boundary, predicted the state\'s value, margin the distance to the nearer boundary, in the basis (% thickness reduction, stress unit, or HV)'),

@@ -1,5 +1,7 @@
 import type { ReportV1 } from './build.js';
 import { conversionHeader, extraStepFields, hardnessText, sig4, stepNumber } from './fields.js';
+import { ledgerBasisNote } from './columns.js';
+import { extraFieldHeader, flowCurveText, formatTargetValue } from './numbers.js';
 import { scatterLines } from './scatter.js';
 import { hasTemper, targetUnit, temperTargetNote, temperText } from './columns.js';
 
@@ -24,10 +26,10 @@ export function tableReport(r: ReportV1, color = false): string {
   const paint = (ok: boolean, s: string) => (color ? `\x1b[${ok ? 32 : 31}m${s}\x1b[0m` : s);
   const out: string[] = [];
   out.push(`${r.plan.name}  (${r.plan.file}, sha256 ${r.plan.hash.slice(0, 12)}, ${r.plan.tool})`);
-  const fc = Object.entries(r.material.flowCurve).map(([k, v]) => `${k}=${typeof v === 'number' ? +v.toPrecision(6) : v}`).join(' ');
+  const fc = flowCurveText(r.material.flowCurve, S);
   const overrides = (r.plan as { overrides?: string[] }).overrides;
   if (overrides?.length) out.push(`overrides (--set): ${overrides.join('; ')}`);
-  out.push(`material: ${r.material.name}; E = ${fixed(r.material.elasticModulus, 0)} ${S}; ${fc} (${r.material.source})`);
+  out.push(`material: ${r.material.name}; E = ${fixed(r.material.elasticModulus, 0)} ${S}; ${fc} (true stress vs true plastic strain; ${r.material.source})`);
   if (r.material.hardness) out.push(`hardness: ${hardnessText(r.material.hardness)}`);
   out.push(`annealed: Rp0.2 ${fixed(r.material.initial.reloadYield, 1)} ${S}, Rm ${fixed(r.material.initial.tensileStrength, 1)} ${S}, uniform elongation ${fixed(r.material.initial.uniformElongationPct, 1)} %`);
   out.push('');
@@ -43,11 +45,13 @@ export function tableReport(r: ReportV1, color = false): string {
     fixed(s.remainingUniformElongationPct, 1), fixed(s.elasticRecoveryStrain * 100, 3), ...hv.map(() => fixed(s.hardnessHV, 1)), ...extras.map((k) => sig4(stepNumber(s, k))),
     ...(tempers ? [temperText(s)] : []), s.warnings.map((w) => w.code).join(','),
   ]);
-  out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε total', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', ...hv, ...extras.map((k) => conversionHeader(k, S) ?? k), ...(tempers ? ['temper'] : []), 'warnings'], rows));
+  out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε total', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', ...hv, ...extras.map((k) => conversionHeader(k, S) ?? extraFieldHeader(k, r.units)), ...(tempers ? ['temper'] : []), 'warnings'], rows));
+  out.push(ledgerBasisNote(r));
   out.push('');
   if (r.targets.length === 0) out.push('targets: none given');
   for (const t of r.targets) {
-    out.push(paint(t.met, `${t.met ? 'MET    ' : 'NOT MET'} ${t.name}: predicted ${fixed(t.predicted, 2)}, limit ${fixed(t.limit, 2)}, margin ${fixed(t.margin, 2)}${t.temper ? ` ${targetUnit(r, t.name)}` : ''}${temperTargetNote(t)}`));
+    const v = (x: number) => formatTargetValue(x, t.name, S, t.temper?.basis);
+    out.push(paint(t.met, `${t.met ? 'MET    ' : 'NOT MET'} ${t.name}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, margin ${v(t.margin)}${temperTargetNote(t)}`));
   }
   const w = r.coldWorkWindow;
   out.push(`cold-work window: ${w.empty ? 'empty — ' + w.note : w.note}${!w.empty && w.reductionBasis && w.reductionPctFrom !== null ? `; ${w.reductionBasis} reduction ${fixed(w.reductionPctFrom, 1)} % to ${w.reductionPctTo === null ? 'no limit' : fixed(w.reductionPctTo, 1) + ' %'}` : ''}`);

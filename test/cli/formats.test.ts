@@ -70,10 +70,11 @@ describe('every format carries the same numbers as the JSON report', () => {
     });
     // Step 5: strip rolled 1.2 → 0.9 → 0.675 mm after the anneal. Plane-strain equivalent strain
     // (2/√3)·ln(t0/t) (Marciniak, Duncan & Hu, Mechanics of Sheet Metal Forming, §3.4); Hollomon
-    // K 530 MPa, n 0.44 for annealed copper (Callister, 2nd ed., p. 199); reload yield at ε + 0.002.
+    // K 530 MPa, n 0.44 for annealed copper (Callister, 2nd ed., p. 199); reload yield at ε + 0.002 as
+    // force over the formed section (ISO 6892-1 Rp0.2, constant volume): × e^(−0.002).
     // Tolerance 1e-12: the same closed form, only rounding differs.
     const eps = (2 / Math.sqrt(3)) * Math.log(1.2 / 0.675);
-    expectRelClose(Number(rows[4]!.reloadYield), 530 * (eps + 0.002) ** 0.44, 1e-12, 'step 5 reload yield');
+    expectRelClose(Number(rows[4]!.reloadYield), 530 * (eps + 0.002) ** 0.44 * Math.exp(-0.002), 1e-12, 'step 5 reload yield');
     expectRelClose(Number(rows[4]!.coldWorkPct), 100 * (1 - 0.675 / 1.2), 1e-12, 'step 5 %CW (thickness reduction since anneal, Callister)');
   });
   it('junit: one test case per target, a failure exactly for each missed target (XML parsed by linkedom)', () => {
@@ -150,7 +151,7 @@ describe('every format carries the same numbers as the JSON report', () => {
     const r = JSON.parse(run('run', DEMOS['contact-spring-strip'], '--format', 'json', '--set', 'steps[4].reductionPct=30').stdout);
     // 0.9 mm rolled 30 %: t = 0.63 mm; ε since anneal = (2/√3)·ln(1.2/0.63) (Marciniak et al. §3.4), Callister copper law.
     const eps = (2 / Math.sqrt(3)) * Math.log(1.2 / 0.63);
-    expectRelClose(r.steps[4].reloadYield, 530 * (eps + 0.002) ** 0.44, 1e-12, 'reload yield after the override');
+    expectRelClose(r.steps[4].reloadYield, 530 * (eps + 0.002) ** 0.44 * Math.exp(-0.002), 1e-12, 'reload yield after the override');
     expect(r.plan.hash).not.toBe(rep.plan.hash);
   });
   it('--sweep gives one row per value whose margins equal single runs with --set', () => {

@@ -28,9 +28,10 @@ describe('prestrain explorer', () => {
     expect(ry1).toBeGreaterThan(ry0);
     expect(chart1).not.toEqual(chart0);
     // Independent check of the shown numbers: Hollomon σ = K·ε^n by hand at ε̄ + 0.002 (offset
-    // definition of Rp0.2, ISO 6892-1), and Considère Rm = K·n^n·exp(ε̄ − n) on the new section
-    // (Dieter, Mechanical Metallurgy, §8-3); one decimal shown, so 0.06 MPa absolute on ~400 MPa.
-    expectRelClose(ry1, 530 * 0.202 ** 0.44, 0.05 / 400, 'reload yield at 0.2');
+    // definition of Rp0.2, ISO 6892-1), as force over the formed section: × e^(−0.002) (constant
+    // volume), and Considère Rm = K·n^n·exp(ε̄ − n) on the new section (Dieter, Mechanical
+    // Metallurgy, §8-3); one decimal shown, so 0.05 MPa absolute on ~260 MPa.
+    expectRelClose(ry1, 530 * 0.202 ** 0.44 * Math.exp(-0.002), 0.05 / 260, 'reload yield at 0.2');
     expectRelClose(rm0, 530 * 0.44 ** 0.44 * Math.exp(0.1 - 0.44), 0.05 / 300, 'Rm at 0.1');
     expectRelClose(await num(page, 'remainingElongation'), Math.expm1(0.44 - 0.2) * 100, 0.05 / 27, 'remaining uniform elongation');
     // And the page equals the core for the same state (the same module the runner uses).
@@ -60,8 +61,17 @@ describe('prestrain explorer', () => {
     await page.fill('#prestrain-number', '1.4');
     await settled(page, 'prestrain');
     const rowYield = async (law: string) => Number(await page.locator('#law-table tbody tr', { hasText: law }).first().locator('td').nth(3).innerText());
-    expect(await rowYield('voce')).toBeLessThan(await rowYield('hollomon (K 530, n 0.44)'));
-    expectRelClose(await rowYield('hollomon (K 530, n 0.44)'), 530 * 1.402 ** 0.44, 0.05 / 600, 'Hollomon at 1.4');
+    expect(await rowYield('voce')).toBeLessThan(await rowYield('hollomon: K 530 MPa, n 0.44'));
+    expectRelClose(await rowYield('hollomon: K 530 MPa, n 0.44'), 530 * 1.402 ** 0.44 * Math.exp(-0.002), 0.05 / 600, 'Hollomon at 1.4');
+    // Law parameters read as an engineer writes them: no exponent noise such as 1.821e-18 (a fitted
+    // parameter that collapsed onto its bound reads "0 (at bound)").
+    const lawsText = await page.locator('#law-table').innerText();
+    expect(lawsText).not.toMatch(/\de[-+]\d/);
+    // The law box shows the law in use: the demo copper's E 115000 MPa and its Hollomon law, read-only.
+    const box = JSON.parse(await page.locator('#law-text').inputValue()) as { elasticModulus: number; laws: { law: string; K: number; n: number }[] };
+    expect(box.elasticModulus).toBe(115000);
+    expect(box.laws).toEqual([{ law: 'hollomon', K: 530, n: 0.44 }]);
+    expect(await page.locator('#law-text').getAttribute('readonly')).not.toBeNull();
     await page.screenshot({ path: `${SCREENSHOTS}/prestrain.png`, fullPage: true });
     expect(errors).toEqual([]);
   });
@@ -71,8 +81,22 @@ describe('prestrain explorer', () => {
     await settled(page, 'prestrain');
     await page.selectOption('#material-select', { label: 'a law typed in (JSON below)' });
     await settled(page, 'prestrain');
-    // The default typed set has two laws: the side-by-side table shows both and where they part.
+    // Until the user edits it, the typed box starts from the law last in use (the demo copper, E
+    // 115000 MPa), editable: one law in the table, the same numbers as the demo's own law.
+    expect(await page.locator('#law-text').getAttribute('readonly')).toBeNull();
+    expect(JSON.parse(await page.locator('#law-text').inputValue()).elasticModulus).toBe(115000);
+    expect(await page.locator('#law-table tbody tr').count()).toBe(1);
+    // Two laws typed in: the side-by-side table shows both and where they part.
+    await page.fill('#law-text', '{"elasticModulus": 70000, "laws": [{"law": "voce", "sigma0": 120, "Q": 160, "b": 12}, {"law": "hollomon", "K": 400, "n": 0.2}]}');
+    await page.locator('#law-text').dispatchEvent('change');
+    await settled(page, 'prestrain');
     expect(await page.locator('#law-table tbody tr').count()).toBe(2);
+    // The user's text survives a visit to another material.
+    await page.selectOption('#material-select', { index: 0 });
+    await settled(page, 'prestrain');
+    await page.selectOption('#material-select', { label: 'a law typed in (JSON below)' });
+    await settled(page, 'prestrain');
+    expect(JSON.parse(await page.locator('#law-text').inputValue()).elasticModulus).toBe(70000);
     await page.fill('#law-text', '{"elasticModulus": 70000, "laws": [{"law": "voce", "sigma0": -5, "Q": 100, "b": 10}]}');
     await page.locator('#law-text').dispatchEvent('change');
     await settled(page, 'prestrain');

@@ -6,6 +6,7 @@ import type { TensileAnalysis } from '../../core/tensile/types.js';
 import { PlanError } from '../../plan/problems.js';
 import { unitsOf } from '../../plan/units.js';
 import { CAUTIONS } from '../../report/cautions.js';
+import { formatLawParam } from '../../report/numbers.js';
 import type { RecordOptions, TensileRecord } from '../../records/builder.js';
 import type { Role } from '../../records/columns.js';
 import { defineCommand } from '../command.js';
@@ -81,6 +82,12 @@ function chooseFit(c: LawComparison | null, law: LawName | undefined, where: str
 
 const fmt = (x: number | null | undefined, d = 1) => (x === null || x === undefined ? '—' : x.toFixed(d));
 
+/** A fitted parameter as an engineer writes it (report/numbers.ts): `0 (at bound)` for a collapsed one. */
+function paramText(law: LawName, name: string, v: number): string {
+  const info = LAW_PARAMETERS[law].find((p) => p.name === name);
+  return info ? formatLawParam(info, v) : String(+v.toPrecision(4));
+}
+
 function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   const lines: string[] = [];
   lines.push(`${rec.file}  (${rec.rows} rows, ${rec.basis})`);
@@ -94,7 +101,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   if (a.fits) {
     lines.push('  law             RMSE MPa   R²        AIC      converged  parameters');
     for (const f of a.fits.fits) {
-      const ps = Object.entries(f.params).map(([k, v]) => `${k}=${+v.toPrecision(4)}${f.standardErrors[k] != null ? `±${+f.standardErrors[k]!.toPrecision(2)}` : ''}`).join(' ');
+      const ps = Object.entries(f.params).map(([k, v]) => `${k}=${paramText(f.law, k, v)}${f.standardErrors[k] != null ? `±${+f.standardErrors[k]!.toPrecision(2)}` : ''}`).join(' ');
       lines.push(`  ${f.law.padEnd(15)} ${fmt(f.rmse, 2).padStart(8)}   ${f.r2.toFixed(5)}  ${fmt(f.aic, 0).padStart(7)}  ${(f.converged ? 'yes' : 'NO').padEnd(9)}  ${ps}`);
     }
     for (const e of a.fits.extrapolation) lines.push(`  at εp ${e.strain.toPrecision(3)} (${e.note}): spread ${e.spreadPct.toFixed(1)} % over laws that fit well`);

@@ -1,6 +1,6 @@
 import { InputError } from '../errors.js';
 import { integrate } from '../numeric/quadrature.js';
-import { considereNumeric } from './considere.js';
+import { considereNumeric, maximumForceStrain } from './considere.js';
 import { SLOPE_FLOOR, type FlowLaw, type HockettSherbyParams } from './types.js';
 import { requireBelow, validateParams } from './validate.js';
 
@@ -36,7 +36,9 @@ export function hockettSherby(params: HockettSherbyParams, path = 'flowCurve'): 
       if (s >= sigmaSat) throw new InputError('stress', s, `below the saturation stress sigmaSat = ${sigmaSat} MPa`);
       return Math.pow(-Math.log((sigmaSat - s) / d) / a, 1 / p);
     },
-    uniformStrain: () => (eu ??= considereNumeric(stress, slope)),
+    // p ≤ 1: concave, one Considère point. p > 1: S-shaped (slope 0 at yield), the force may fall at
+    // yield and rise again, so the uniform strain is that of the maximum force (considere.ts).
+    uniformStrain: () => (eu ??= p > 1 ? maximumForceStrain(stress, slope) : considereNumeric(stress, slope)),
     saturationStress: sigmaSat,
   };
 }

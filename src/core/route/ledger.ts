@@ -1,6 +1,7 @@
 import { ComputationError } from '../errors.js';
 import { hasPassLoads, PASS_LOAD_FIELDS, passLoads } from '../process/passLoads.js';
-import { PROOF_OFFSET, stateProperties } from './state.js';
+import { PROOF_OFFSET } from './reloadYield.js';
+import { stateProperties } from './state.js';
 import { STEP_KINDS, stockOf, type ReductionBasis } from './steps.js';
 import { checkSpringbackTarget, checkTargets, checkTemperTarget, validateTargets } from './targets.js';
 import { inGrainGrowthRange, validateGrainGrowthStrain } from './grainGrowth.js';
@@ -143,11 +144,14 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
     };
     if (scale) row.temper = temperOf(scale, temperBasisValue(scale, eps, p));
     if (kin && iso) {
-      // 0.2 % proof stress reloading along s: σ = ΣXᵢ(after 0.002 along s) + s·R(ε̄ + 0.002), magnitude along s.
+      // 0.2 % proof stress reloading along s, engineering on the part's own section: the true stress
+      // s·ΣXᵢ(after 0.002 along s) + R(ε̄ + 0.002), magnitude, times exp(−s·0.002). Convention: +1 is
+      // tension along the forming axis (the section shrinks by e^−0.002), −1 compression (the section
+      // grows by e^+0.002, so the compressive proof strength on the part's section is the larger).
       const proofAlong = (s: 1 | -1) => {
         let x = 0;
         for (let k = 0; k < back.length; k++) x += backstressAfter(back[k]!, kin.backstresses[k]!.C, kin.backstresses[k]!.gamma, s, PROOF_OFFSET);
-        return s * x + iso.size(eps + PROOF_OFFSET);
+        return (s * x + iso.size(eps + PROOF_OFFSET)) * Math.exp(-s * PROOF_OFFSET);
       };
       row.kinematicReloadYield = proofAlong(dir);
       row.reverseReloadYield = proofAlong(-dir as 1 | -1);

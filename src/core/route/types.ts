@@ -104,9 +104,13 @@ export interface Warning {
 
 /** Kinematic-hardening results of a step; present only when the material has `kinematic` parameters. MPa in the core. */
 export interface KinematicFields {
-  /** Reload yield (0.2 % proof) against the direction of the last step, with the kinematic parameters. */
+  /**
+   * Reload yield (0.2 % proof) against the direction of the last step, with the kinematic parameters:
+   * engineering, magnitude, on the part's own section. Convention: +1 along the forming axis is
+   * tension (true stress × e^(−0.002) at the proof point), −1 compression (× e^(+0.002)).
+   */
   reverseReloadYield?: number;
-  /** Reload yield (0.2 % proof) in the direction of the last step, with the kinematic parameters. */
+  /** Reload yield (0.2 % proof) in the direction of the last step, with the kinematic parameters; basis as `reverseReloadYield`. */
   kinematicReloadYield?: number;
 }
 
@@ -163,9 +167,13 @@ export interface LedgerRow extends KinematicFields, BendFields, PassLoadFields {
 
 /** Properties of a state that depend only on the accumulated strain (see {@link stateProperties}). */
 export interface StateProperties {
+  /** True stress σ(ε̄), MPa. */
   flowStress: number;
+  /** Engineering 0.2 % proof strength on the part's own section, σ(ε̄ + 0.002)·e^(−0.002), MPa (see `reloadYield`). */
   reloadYield: number;
+  /** Engineering tensile strength Rm on the part's own section, MPa. */
   tensileStrength: number;
+  /** reloadYield / tensileStrength, both engineering on the same section; ≤ 1. */
   yieldRatio: number;
   remainingUniformStrain: number;
   remainingUniformElongationPct: number;

@@ -1,8 +1,10 @@
+import { forcePeaks, hasLaterForcePeaks } from '../flow/considere.js';
 import type { FlowLaw } from '../flow/types.js';
 import { HARDNESS_DEFAULTS } from '../hardness/defaults.js';
 import { strainForHardness } from '../hardness/taborHardness.js';
 import type { HardnessModel } from '../hardness/types.js';
 import { PROOF_OFFSET } from './state.js';
+import { strainForReloadYield } from './reloadYield.js';
 import { reductionPctFromStrain, type ReductionBasis } from './steps.js';
 import type { ColdWorkWindow, TargetName, Targets } from './types.js';
 
@@ -10,7 +12,9 @@ import type { ColdWorkWindow, TargetName, Targets } from './types.js';
  * Cold-work window: the range of equivalent strain s added since the last anneal (on top of the
  * strain ε_b left by that anneal) for which all targets hold together. Each target is monotone in
  * the accumulated strain ε = ε_b + s, so each gives one bound, found with the law's inverse:
- * - minYield Y: σ(ε + 0.002) ≥ Y ⇒ ε ≥ σ⁻¹(Y) − 0.002; maxYield likewise gives an upper bound;
+ * - minYield Y: Rp0.2(ε) = σ(ε + 0.002)·e^(−0.002) ≥ Y ⇒ ε ≥ σ⁻¹(Y·e^(0.002)) − 0.002
+ *   ({@link strainForReloadYield}, the inverse of the ledger's own `reloadYield`); maxYield likewise
+ *   gives an upper bound;
  * - minTensile T: T ≤ σ(εu)·e^(ε−εu) ⇒ ε ≥ εu + ln(T/σ(εu)) when T ≤ σ(εu), else ε ≥ σ⁻¹(T);
  * - minRemainingElongationPct P: εu − ε ≥ ln(1 + P/100) ⇒ ε ≤ εu − ln(1 + P/100);
  * - minHardnessHV H: c·σ(ε + εr)/g₀ ≥ H ⇒ ε ≥ σ⁻¹(H·g₀/c) − εr; maxHardnessHV likewise an upper bound
@@ -50,20 +54,33 @@ export function coldWorkWindow(
     }
   };
   if (targets.minYield !== undefined) {
-    const e = inverse(targets.minYield);
-    if (e === null) unreachable.push(`minYield ${targets.minYield} is above the law's saturation stress`);
-    else raise(e - PROOF_OFFSET, 'minYield');
+    const e = strainForReloadYield(law, targets.minYield);
+    if (e === null) unreachable.push(`minYield ${targets.minYield} is above the law's saturation stress (as a reload yield)`);
+    else raise(e, 'minYield');
   }
   if (targets.maxYield !== undefined) {
-    const e = inverse(targets.maxYield);
-    if (e !== null) lower(e - PROOF_OFFSET, 'maxYield');
+    const e = strainForReloadYield(law, targets.maxYield);
+    if (e !== null) lower(e, 'maxYield');
   }
   if (targets.minTensile !== undefined) {
-    const su = law.stress(eu);
-    if (targets.minTensile <= su) raise(eu + Math.log(targets.minTensile / su), 'minTensile');
-    else {
-      const e = inverse(targets.minTensile);
-      if (e === null) unreachable.push(`minTensile ${targets.minTensile} is above the law's saturation stress`);
+    const T = targets.minTensile;
+    if (!hasLaterForcePeaks(law)) {
+      const su = law.stress(eu);
+      if (T <= su) raise(eu + Math.log(T / su), 'minTensile');
+      else {
+        const e = inverse(T);
+        if (e === null) unreachable.push(`minTensile ${T} is above the law's saturation stress`);
+        else raise(e, 'minTensile');
+      }
+    } else {
+      // S-shaped law (see forcePeaks): Rm(ε) ≥ T where σ(ε) ≥ T or, before a peak p, where
+      // σ(p)·e^(ε−p) ≥ T; Rm is monotone, so the bound is the smallest of these.
+      let e = inverse(T);
+      for (const pk of forcePeaks(law)) {
+        const sp = law.stress(pk);
+        if (T <= sp) e = Math.min(e ?? Infinity, pk + Math.log(T / sp));
+      }
+      if (e === null) unreachable.push(`minTensile ${T} is above the law's saturation stress`);
       else raise(e, 'minTensile');
     }
   }

@@ -24,7 +24,7 @@ const OUTPUTS = ['reloadYield', 'tensileStrength', 'remainingElongationPct'] as 
  * Units: those of the outputs (MPa, %).
  * @throws ComputationError when f cannot be evaluated at μ ± h.
  * @example deltaMethod(prepareScatter(problem)).finalReloadYield.sd // for Hollomon with only K
- *   scattering: cv_K · K·(ε̄ + 0.002)ⁿ, since the yield is proportional to K
+ *   scattering: cv_K · K·(ε̄ + 0.002)ⁿ·e^(−0.002), since the yield is proportional to K
  */
 export function deltaMethod(prep: PreparedScatter): DeltaResult {
   const inputs = prep.problem.inputs;

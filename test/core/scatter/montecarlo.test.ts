@@ -40,11 +40,12 @@ describe('evaluateScatterSample(prep, x)', () => {
 
 describe('deltaMethod(prep) — first-order propagation (JCGM 100:2008 GUM §5.2.2 eq. 13, from memory)', () => {
   it('matches the hand-derived Hollomon sensitivities ∂Y/∂K = Y/K, ∂Y/∂n = Y·ln(ε̄ + 0.002) with correlation', () => {
-    // One stretch to ε̄ = 0.3: Y = K·(0.302)^n (reload yield, offset 0.002 as ISO 6892-1 Rp0.2).
+    // One stretch to ε̄ = 0.3: Y = K·(0.302)^n·e^(−0.002) (reload yield: ISO 6892-1 Rp0.2, offset
+    // 0.002, force over the part's own section, constant volume).
     const prob = stripRoute({ start: {}, steps: [{ kind: 'strain', strain: 0.3 }], targets: {} });
     const d = deltaMethod(prepareScatter(prob));
     const a = 0.302;
-    const Y = 530 * a ** 0.44;
+    const Y = 530 * a ** 0.44 * Math.exp(-0.002);
     const cK = Y / 530, cn = Y * Math.log(a);
     const sK = 0.04 * 530, sn = 0.06 * 0.44;
     const sd = Math.sqrt((cK * sK) ** 2 + (cn * sn) ** 2 + 2 * -0.5 * cK * cn * sK * sn);
