@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -51,6 +51,21 @@ describe('strainledger run with hardness', () => {
     // K 600 MPa = 87.0226 ksi to 6 figures; sizes to 6 figures: hardness agrees to 1e-5.
     expectRelClose(us.steps[1].hardnessHV, si.steps[1].hardnessHV, 1e-5);
     expect(us.targets.find((t: { name: string }) => t.name === 'minHardnessHV').limit).toBe(140);
+  });
+  it('design: a hardness window in the specification places the final temper so every route meets it', () => {
+    // The INVENTED fencing-wire design with its yield window replaced by 150–165 HV (invented limits).
+    const spec = join(TMP, 'design-hv.yaml');
+    writeFileSync(spec, readFileSync(join(ROOT, 'examples/design-fencing-wire.yaml'), 'utf8')
+      .replace(/^ {2}minYield: .*$/m, '  minHardnessHV: 150\n  maxHardnessHV: 165').replace(/^ {2}maxYield: .*\n/m, ''));
+    const r = run('design', spec, '--format', 'json');
+    expect(r.status, r.stderr).toBe(0);
+    const res = JSON.parse(r.stdout);
+    expect(res.routes.length).toBeGreaterThan(0);
+    for (const route of res.routes) {
+      expect(route.final.hardnessHV).toBeGreaterThanOrEqual(150);
+      expect(route.final.hardnessHV).toBeLessThanOrEqual(165);
+      expect(route.plan.targets).toMatchObject({ minHardnessHV: 150, maxHardnessHV: 165 });
+    }
   });
   it('refuses a factor and readings together, and readings that imply an impossible factor, naming the field (exit 2)', () => {
     const both = join(TMP, 'both.json');

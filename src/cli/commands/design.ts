@@ -27,6 +27,7 @@ function routeJson(spec: LoadedDesignSpec, r: DesignedRoute) {
       reloadYield: u.fromMPa(last.reloadYield),
       tensileStrength: u.fromMPa(last.tensileStrength),
       remainingUniformElongationPct: last.remainingUniformElongationPct,
+      hardnessHV: last.hardnessHV,
     },
     plan: routeToPlan(spec, r.steps, r.rank),
   };
@@ -43,7 +44,7 @@ function table(spec: LoadedDesignSpec, res: DesignResult): string {
     const sizes = r.steps.map((s) => (s.kind === 'anneal' ? 'anneal' : f(u.fromMm((s.kind === 'draw' ? s.diameter : (s as { thickness?: number }).thickness)!), 5))).join(' → ');
     out.push('', `route ${r.rank}: ${r.anneals} anneal(s), ${r.passes} passes; final reduction ${f(r.finalReductionPct, 3)} %; margins window ${f(r.windowMargin * 100, 3)} %, passes ${f(r.passMargin * 100, 3)} % (${r.governingPassLimit} governs), anneal ${f(r.annealMargin * 100, 3)} %`);
     out.push(`  sizes (${u.length}): ${f(u.fromMm(spec.spec.startSize), 5)} → ${sizes}`);
-    out.push(`  final: reload yield ${f(u.fromMPa(last.reloadYield))} ${u.stress}, tensile ${f(u.fromMPa(last.tensileStrength))} ${u.stress}, remaining uniform elongation ${f(last.remainingUniformElongationPct, 3)} %${last.temper !== undefined ? `, temper ${last.temper?.designation ?? 'none of the system'}` : ''}`);
+    out.push(`  final: reload yield ${f(u.fromMPa(last.reloadYield))} ${u.stress}, tensile ${f(u.fromMPa(last.tensileStrength))} ${u.stress}, remaining uniform elongation ${f(last.remainingUniformElongationPct, 3)} %, hardness ${f(last.hardnessHV, 4)} HV (Tabor estimate)${last.temper !== undefined ? `, temper ${last.temper?.designation ?? 'none of the system'}` : ''}`);
     for (const n of r.annealNotes) out.push(`  after pass ${n.afterPass}: ${n.reason}`);
   }
   out.push('', 'Cautions:', ...CAUTIONS.map((c) => `  - ${c}`));
