@@ -108,15 +108,21 @@ export { findCycles, fitModulusDecay, UNLOAD_MIN_DROP } from './tensile/cycles.j
 export type * from './tensile/types.js';
 
 // Law fitting and statistics (issue 3)
-export { levenbergMarquardt, LM_DEFAULTS } from './fit/levenbergMarquardt.js';
-export type { Model, LmOptions, LmResult } from './fit/levenbergMarquardt.js';
+export { levenbergMarquardt, levenbergMarquardtNormal, LM_DEFAULTS } from './fit/levenbergMarquardt.js';
+export type { Model, LmOptions, LmResult, NormalProblem, NormalLmResult } from './fit/levenbergMarquardt.js';
+export { lawData, lawNormalProblem, lawResidualPass } from './fit/lawNormalEquations.js';
+export type { LawData } from './fit/lawNormalEquations.js';
+export { blockAverage, reductionBlockSize, REDUCTION_DEFAULTS } from './fit/blockAverage.js';
+export type { BlockAverages } from './fit/blockAverage.js';
+export { effectivePoints } from './fit/effectivePoints.js';
+export type { EffectivePoints } from './fit/effectivePoints.js';
 export { fitLaw, lawBounds, lawModel, lawModelFast, START_SAMPLE } from './fit/fitLaw.js';
 export { lawJacobian } from './fit/lawJacobian.js';
 export type { FitLawOptions } from './fit/fitLaw.js';
 export { fitAllLaws, FIT_DEFAULTS } from './fit/fitAllLaws.js';
 export type { LawComparison, ExtrapolationPoint, FitAllOptions } from './fit/fitAllLaws.js';
-export { fitStatistics } from './fit/fitStatistics.js';
-export type { FitStatistics } from './fit/fitStatistics.js';
+export { fitStatistics, parameterErrors } from './fit/fitStatistics.js';
+export type { FitStatistics, ParameterErrors } from './fit/fitStatistics.js';
 export { linearFit } from './fit/linearFit.js';
 export type { LinearFit } from './fit/linearFit.js';
 export { studentTQuantile, studentTCdf, incompleteBeta, lnGamma } from './fit/studentT.js';
