@@ -56,12 +56,16 @@ export class RowScanner {
         pos = end + 1;
       }
       LONE_CR.lastIndex = 0;
-      const m = LONE_CR.exec(text);
+      const m = text.indexOf('\r') === -1 ? null : LONE_CR.exec(text);
       if (m && m.index < pos) return -1; // CR line ends: line numbers would differ
       if (this.line < this.dataLine) return final ? -1 : pos;
     }
     QUOTE_OR_CONTROL.lastIndex = pos;
     if (QUOTE_OR_CONTROL.test(text)) return -1;
+    if (text.indexOf('\r', pos) !== -1) {
+      LONE_CR.lastIndex = pos;
+      if (LONE_CR.test(text)) return -1;
+    }
     while (pos < n) {
       let end = text.indexOf('\n', pos);
       if (end === -1) {
@@ -146,5 +150,5 @@ function decimal(text: string, from: number, to: number, point: number): number 
 }
 
 const LONE_CR = /\r(?!\n|$)/g;
-/** A quote (quoted cells may hold delimiters and line breaks), a lone CR, or a control character. */
-const QUOTE_OR_CONTROL = /["\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFD]|\r(?!\n|$)/g;
+/** A quote (quoted cells may hold delimiters and line breaks) or a control character (one character class: fast). */
+const QUOTE_OR_CONTROL = /["\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFD]/g;
