@@ -40,10 +40,12 @@ export interface LabRecordTruth {
   uniformTotalElongationPct: number;
   /** A: plastic elongation at the last sample before fracture, %. */
   totalElongationPct: number;
-  /** ReH: highest recorded noise-free sample at the yield drop; ReL: lowest recorded noise-free sample on the plateau after the drop; Ae: strain from ReH to the start of hardening, %. Null for continuous yielding. */
+  /** ReH: highest recorded noise-free sample at the yield drop (null also when no sample caught the peak, `yieldDropRecorded` false); ReL: lowest recorded noise-free sample on the plateau after the drop; Ae: strain from ReH to the start of hardening, %. Null for continuous yielding. */
   upperYield: number | null;
   lowerYield: number | null;
   yieldPointElongationPct: number | null;
+  /** For a record made with a yield drop: whether the samples show it (see `upperYield`); null without a drop. */
+  yieldDropRecorded: boolean | null;
   /** Samples in the elastic rise (below 0.9·Rp0.2 or ReH). */
   elasticPoints: number;
 }
@@ -170,6 +172,9 @@ export function synthesizeLabRecord(spec: LabRecordSpec): LabRecord {
   for (let k = 0; k < 100 && b - a > 1e-12; k++) { const m = 0.5 * (a + b); if (g(m) > 0) a = m; else b = m; }
   const rp = curve(0.5 * (a + b));
   const yieldTop = reH ?? rp;
+  // A drop is in the record only when a sample caught the peak at least half-way up the drop (with coarse
+  // sampling the last elastic sample can sit below the plateau: no machine could show that drop).
+  const recorded = reH !== null && reHrec > reLrec + 0.5 * (reH - reL);
   for (let i = 0; i < N; i++) if (strain[i]! - toe > 0 && (strain[i]! - toe) * E < 0.9 * yieldTop) elasticPoints++;
   return {
     strain, stress,
@@ -180,9 +185,10 @@ export function synthesizeLabRecord(spec: LabRecordSpec): LabRecord {
       uniformElongationPct: (eUeng - Rm / E) * 100,
       uniformTotalElongationPct: eUeng * 100,
       totalElongationPct: (eF - sFrac / E) * 100,
-      upperYield: reH !== null ? reHrec : null,
-      lowerYield: reH !== null ? reLrec : null,
-      yieldPointElongationPct: reH !== null ? (eL - eH) * 100 : null,
+      upperYield: recorded ? reHrec : null,
+      lowerYield: recorded ? reLrec : null,
+      yieldPointElongationPct: recorded ? (eL - eH) * 100 : null,
+      yieldDropRecorded: reH === null ? null : recorded,
       elasticPoints,
     },
   };

@@ -41,7 +41,7 @@ export const YIELD_DROP = {
  *   reported only when ReH − level > max(1.5 % of ReH, 4 standard errors of that difference).
  *   A continuous curve has level ≥ the curve at the knee and never passes.
  * - ReL (ISO 6892-1 §3.10.2.2: the lowest stress during plastic yielding, the initial transient
- *   ignored) is the lowest value of a moving average (window chosen from σ̂ so its noise is about 0.3 %
+ *   ignored) is the lowest value of a moving average (window chosen from σ̂ so its noise is about 0.15 %
  *   of the level, at most a sixth of the plateau) from where the average first reaches the plateau level
  *   to the end of the plateau. The plateau ends at the last averaged point within max(3 noise sd of the
  *   average, 1 %) of the level before Rm; Ae ends where the level meets a line fitted to the first 0.5 %
@@ -66,9 +66,9 @@ export function yieldPoint(
   let top = d;
   for (let i = d + 1; i <= maxIndex; i++) if (stress[i]! > stress[top]!) top = i;
   maxIndex = top;
-  // The peak: the highest sample from the elastic band to just past the departure.
+  // The peak: the highest sample from the elastic band to the departure (still on the elastic line).
   let q = Math.max(fromIndex, d - 1);
-  for (let i = Math.max(fromIndex, 0); i <= Math.min(d + 1, maxIndex); i++) if (stress[i]! > stress[q]!) q = i;
+  for (let i = Math.max(fromIndex, 0); i < d; i++) if (stress[i]! > stress[q]!) q = i;
   if (strain[q]! - toe - stress[q]! / E > Y.maxPeakPlastic) return null;
   // ReH from a line through the rising samples above half the peak stress, read at the peak.
   let k0 = q;
@@ -78,8 +78,9 @@ export function yieldPoint(
   if (q - k0 + 1 >= 3) {
     try {
       const f = linearFit(strain, stress, k0, q + 1);
-      reh = f.intercept + f.slope * strain[q]!;
-      seReh = noise * Math.sqrt(4 / (q - k0 + 1));
+      const v = f.intercept + f.slope * strain[q]!;
+      // Only a peak on the line: a sample already bending away is read as it is.
+      if (Math.abs(v - stress[q]!) <= 3 * noise + 0.002 * v) { reh = v; seReh = noise * Math.sqrt(4 / (q - k0 + 1)); }
     } catch { /* keep the sample */ }
   }
   // Plateau level after the departure.
@@ -95,7 +96,7 @@ export function yieldPoint(
   if (!(drop > threshold)) return null;
   // Smoothed plateau from the departure to maximum force.
   const to = Math.max(d + 1, maxIndex + 1);
-  const wNoise = Math.ceil(((noise / (0.003 * level)) ** 2));
+  const wNoise = Math.ceil(((noise / (0.0015 * level)) ** 2));
   // Rough plateau length for the cap: points until the raw stress first passes level + 5 %.
   let rough = d;
   while (rough < maxIndex && stress[rough]! < 1.05 * level) rough++;
