@@ -95,14 +95,14 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   const n = strain.length;
   if (stress.length !== n) throw new InputError('stress', stress.length, `as many values as strain (${n})`);
   if (n < k + 2) throw new InputError('points', n, `at least ${k + 2} points to fit ${law} (${k} parameters)`);
-  let lo = Infinity, hi = -Infinity;
-  for (let i = 0; i < n; i++) {
-    const e = strain[i]!, s = stress[i]!;
+  // One pass packs the data (Float64Arrays, ln ε) and finds its range and the first bad point.
+  const full = opts.packed && opts.packed.x.length === n ? opts.packed : lawData(strain, stress);
+  if (full.bad >= 0) {
+    const i = full.bad, e = strain[i]!, s = stress[i]!;
     if (!(e > 0) || !(e < Infinity)) throw new InputError(`strain[${i}]`, e, 'a finite true plastic strain > 0');
-    if (!(s > 0) || !(s < Infinity)) throw new InputError(`stress[${i}]`, s, 'a finite true stress > 0 MPa');
-    if (e < lo) lo = e;
-    if (e > hi) hi = e;
+    throw new InputError(`stress[${i}]`, s, 'a finite true stress > 0 MPa');
   }
+  const lo = full.lo, hi = full.hi;
   const { lower, upper } = lawBounds(law);
   let start: number[];
   if (opts.start) {
@@ -115,9 +115,15 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
     start = startValues(law, xs, ys);
   }
   start = start.map((v, j) => Math.min(upper[j]!, Math.max(lower[j]!, v)));
-  const full = opts.packed && opts.packed.x.length === n ? opts.packed : lawData(strain, stress);
   const blockSize = reductionBlockSize(n);
-  const fitted = blockSize > 1 ? (() => { const b = blockAverage(full.x, full.y, blockSize); return lawData(b.x, b.y, b.w); })() : full;
+  let fitted = full;
+  if (blockSize > 1) {
+    if (full.blocks?.size !== blockSize) {
+      const b = blockAverage(full.x, full.y, blockSize);
+      full.blocks = { size: blockSize, data: lawData(b.x, b.y, b.w) };
+    }
+    fitted = full.blocks.data;
+  }
   const res = levenbergMarquardtNormal(lawNormalProblem(law, fitted, lower, upper), start, {
     lower, upper, ...(opts.maxIterations !== undefined ? { maxIterations: opts.maxIterations } : {}) });
   const pass = lawResidualPass(law, full, res.params);

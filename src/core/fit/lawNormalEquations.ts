@@ -59,6 +59,13 @@ export interface LawData {
   w: Float64Array | null;
   /** ln x, computed once. */
   lx: Float64Array;
+  /** Smallest and largest x. */
+  lo: number;
+  hi: number;
+  /** Index of the first point whose x or y is not finite and > 0, or -1 (fitLaw refuses such data). */
+  bad: number;
+  /** Block averages of these data for a given block size, made once (see fitLaw). */
+  blocks?: { size: number; data: LawData };
 }
 
 /** Packs strain/stress (and weights) for {@link lawNormalProblem}; ln x is computed once here. */
@@ -70,8 +77,15 @@ function packed(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Array | nu
   const xs = x instanceof Float64Array ? x : Float64Array.from(x as ArrayLike<number>);
   const ys = y instanceof Float64Array ? y : Float64Array.from(y as ArrayLike<number>);
   const lx = new Float64Array(xs.length);
-  for (let i = 0; i < xs.length; i++) lx[i] = Math.log(xs[i]!);
-  return { x: xs, y: ys, w, lx };
+  let lo = Infinity, hi = -Infinity, bad = -1;
+  for (let i = 0; i < xs.length; i++) {
+    const e = xs[i]!, s = ys[i]!;
+    if (bad < 0 && (!(e > 0) || !(e < Infinity) || !(s > 0) || !(s < Infinity))) bad = i;
+    if (e < lo) lo = e;
+    if (e > hi) hi = e;
+    lx[i] = Math.log(e);
+  }
+  return { x: xs, y: ys, w, lx, lo, hi, bad };
 }
 
 /**
