@@ -32,7 +32,8 @@ for name, spec in d['laws'].items():
     times = []
     p = None
     ok = True
-    for k in range(d.get('repeat', 3) + 1):  # the first run warms up and is not timed
+    repeat = d.get('repeat', 3)
+    for k in range(repeat + 1 if repeat > 0 else 1):  # the first run warms up and is not timed (repeat 0: one timed run)
         t0 = time.perf_counter()
         try:
             p, _cov = curve_fit(f, x, y, p0=spec['start'], bounds=(spec['lower'], spec['upper']), method='trf', maxfev=20000)
@@ -40,7 +41,7 @@ for name, spec in d['laws'].items():
             ok = False
             out['laws'][name] = {'error': str(e)}
             break
-        if k > 0:
+        if k > 0 or repeat == 0:
             times.append(time.perf_counter() - t0)
     if not ok:
         continue

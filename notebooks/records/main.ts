@@ -1,24 +1,61 @@
 // Record bench: a tensile record in, properties and law fits out — through the same record parser
-// (src/records) and analysis (analyzeRecord, fitAllLaws) as the runner.
+// (src/records) and analysis (analyzeRecord, fitAllLaws) as the runner, computed in a web worker
+// (worker.ts) so that a large record never freezes the page.
 import {
   Notebook, expose, h, fixed, formatLawParam, DIGITS, fileDrop, errorBox, byId, autosave, choice, restore,
 } from '../../src/cells/index.js';
-import { analyzeRecord, LAW_PARAMETERS } from '../../src/core/index.js';
+import { InputError, LAW_PARAMETERS } from '../../src/core/index.js';
 import type { LawName, TensileAnalysis } from '../../src/core/index.js';
-import { parseRecordText, detectLayout, STRESS_UNITS, FORCE_UNITS, LENGTH_UNITS } from '../../src/records/index.js';
+import { PlanError } from '../../src/plan/problems.js';
+import { detectLayout, STRESS_UNITS, FORCE_UNITS, LENGTH_UNITS } from '../../src/records/index.js';
+import type { WorkerError, WorkerReply, WorkerRequest } from './worker.js';
 import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
 import { recordCurveChart, residualChart } from '../../src/charts/records.js';
 import { BENCH_MATERIAL_KEY, pageChrome } from '../shared/page.js';
 
 pageChrome('records/', 'Record bench');
 
-interface Input { name: string; text: string }
-type Parsed = { ok: true; input: Input; record: TensileRecord } | { ok: false; input: Input; error: unknown };
+interface Input { name: string; text: string; demo?: boolean }
+type Parsed = { ok: true; input: Input; record: TensileRecord; analysis: TensileAnalysis | null; analysisError: unknown } | { ok: false; input: Input; error: unknown };
+
+/** The error a worker sent as data, as the class the error cells know. */
+function rebuild(e: WorkerError): Error {
+  if (e.kind === 'plan') return new PlanError(e.problems);
+  if (e.kind === 'input') {
+    const x = new InputError(e.path, e.value, e.allowed);
+    x.message = e.message;
+    return x;
+  }
+  return new Error(e.message);
+}
+
+// One worker for the page; a newer record supersedes a reply still on its way.
+let worker: Worker | null = null;
+let nextId = 0;
+const waiting = new Map<number, (r: WorkerReply) => void>();
+function readInWorker(input: Input, options: RecordOptions): Promise<WorkerReply> {
+  if (!worker) {
+    worker = new Worker(new URL('./worker.ts', import.meta.url), { type: 'module' });
+    worker.onmessage = (e: MessageEvent<WorkerReply>) => { waiting.get(e.data.id)?.(e.data); waiting.delete(e.data.id); };
+    worker.onerror = (e) => {
+      for (const [id, done] of waiting) done({ id, ok: false, error: { kind: 'other', message: `the record worker failed: ${e.message}` } });
+      waiting.clear();
+      worker?.terminate();
+      worker = null;
+    };
+  }
+  const id = ++nextId;
+  return new Promise((resolve) => {
+    waiting.set(id, resolve);
+    const msg: WorkerRequest = { id, name: input.name, text: input.text, options };
+    worker!.postMessage(msg);
+  });
+}
 
 const nb = new Notebook();
 let options: RecordOptions = {};
 let current: Input | null = null;
-let lastGood: TensileRecord | null = null;
+let lastGood: Extract<Parsed, { ok: true }> | null = null;
 
 // Choose or drop a file; examples/*.csv (if any) are offered as INVENTED demo records.
 const EXAMPLE_RECORDS = import.meta.glob('../../examples/*.{csv,tsv,txt}', { query: '?raw', import: 'default', eager: true }) as Record<string, string>;
@@ -28,9 +65,11 @@ const drop = h('div', { class: 'sl-drop', id: 'record-drop', role: 'button', 'ar
 fileDrop(drop, fileInput, (name, text) => load({ name, text }, {}), (e) => byId('cell-import').replaceChildren(errorBox(e, 'The file could not be read')));
 byId('record-input').append(drop);
 const examples = Object.entries(EXAMPLE_RECORDS);
+const DEMO_FIRST = 'stamping-strip-loops.csv';
+examples.sort(([a], [b]) => Number(b.endsWith(DEMO_FIRST)) - Number(a.endsWith(DEMO_FIRST)));
 if (examples.length) {
   const ex = choice({ label: 'Demo record (INVENTED)', id: 'example', options: examples.map(([p], i) => ({ value: i, text: p.split('/').pop()! })) });
-  byId('record-input').append(h('div', { class: 'sl-input' }, ex, h('button', { type: 'button', id: 'load-example', onclick: () => { const [p, t] = examples[ex.value]!; load({ name: p.split('/').pop()!, text: t }, {}); } }, 'open')));
+  byId('record-input').append(h('div', { class: 'sl-input' }, ex, h('button', { type: 'button', id: 'load-example', onclick: () => { const [p, t] = examples[ex.value]!; load({ name: p.split('/').pop()!, text: t, demo: true }, {}); } }, 'open')));
 }
 
 function load(input: Input, opts: RecordOptions): void {
@@ -101,37 +140,44 @@ function spreadAll(xs: (number | undefined)[]): string {
 
 nb.cell({ name: 'input', fn: () => null })
   .cell({
-    // Parsing never rejects: a malformed record is shown as an error here while the last good
-    // record (and everything computed from it) stays on screen.
+    // Reading and analysing run in the worker. This cell never rejects: a malformed record is shown
+    // as an error here while the last good record (and everything computed from it) stays on screen.
     name: 'parsed', inputs: ['input'], into: 'cell-import',
-    fn: (x: { input: Input; options: RecordOptions } | null): Parsed | null => {
+    fn: async (x: { input: Input; options: RecordOptions } | null): Promise<Parsed | null> => {
       if (!x) return null;
-      try {
-        return { ok: true, input: x.input, record: parseRecordText(x.input.text, { ...x.options, file: x.input.name }) };
-      } catch (error) {
-        return { ok: false, input: x.input, error };
-      }
+      const r = await readInWorker(x.input, x.options);
+      if (!r.ok) return { ok: false, input: x.input, error: rebuild(r.error) };
+      return { ok: true, input: x.input, record: r.record, analysis: r.analysis, analysisError: r.analysisError ? rebuild(r.analysisError) : null };
     },
     render: (v) => {
       const p = v as Parsed | null;
-      if (!p) return h('p', {}, 'No record yet. The bench reads comma-, semicolon- or tab-separated exports with a header line.');
-      if (!p.ok) return h('div', {}, errorBox(p.error, `${p.input.name} could not be read`), lastGood ? h('p', { class: 'sl-notice' }, `Still showing ${lastGood.name}. Map the columns and units below if they were not recognised.`) : null);
+      if (!p) return h('p', {}, 'No record yet: drop a tensile-test export above, or open the INVENTED demo record. The bench reads comma-, semicolon- or tab-separated exports with a header line.');
+      if (!p.ok) return h('div', {}, errorBox(p.error, `${p.input.name} could not be read`), lastGood ? h('p', { class: 'sl-notice' }, `Still showing ${lastGood.record.name}. Map the columns and units below if they were not recognised.`) : null);
       const c = p.record.columns;
       return h('div', {},
+        p.input.demo ? h('p', { class: 'sl-invented', id: 'demo-note' }, 'INVENTED demo record (generated from a known law, not a test): drop your own export above.') : null,
         h('p', { id: 'record-summary' }, `${p.input.name}: ${p.record.rows} rows, ${p.record.basis === 'stress-strain' ? 'stress and strain columns' : 'force and extension columns'} (${Object.entries(c).map(([k, v]) => `${k}: "${v!.name}" ${v!.unit}`).join('; ')}).`),
         p.record.warnings.length ? h('ul', { class: 'sl-notice' }, ...p.record.warnings.map((w) => h('li', {}, w))) : null);
     },
   })
   .cell({
-    name: 'record', inputs: ['parsed'],
-    fn: (p: Parsed | null): TensileRecord => {
-      if (p?.ok) lastGood = p.record;
+    // The last record read, with its analysis (or the reason it could not be analysed).
+    name: 'current', inputs: ['parsed'],
+    fn: (p: Parsed | null): Extract<Parsed, { ok: true }> => {
+      if (p?.ok) lastGood = p;
       if (!lastGood) throw new Error('no record has been read yet: choose or drop a file');
       return lastGood;
     },
   })
-  .cell({ name: 'recordName', inputs: ['record'], into: 'cell-record-name', fn: (r: TensileRecord) => h('span', {}, `— ${r.name}`) })
-  .cell({ name: 'analysis', inputs: ['record'], fn: (r: TensileRecord) => analyzeRecord(r) })
+  .cell({ name: 'record', inputs: ['current'], fn: (c: Extract<Parsed, { ok: true }>) => c.record })
+  .cell({ name: 'recordName', inputs: ['current'], into: 'cell-record-name', fn: (c: Extract<Parsed, { ok: true }>) => h('span', {}, `— ${c.record.name}${c.input.demo ? ' (INVENTED demo record)' : ''}`) })
+  .cell({
+    name: 'analysis', inputs: ['current'],
+    fn: (c: Extract<Parsed, { ok: true }>): TensileAnalysis => {
+      if (!c.analysis) throw c.analysisError;
+      return c.analysis;
+    },
+  })
   .cell({
     name: 'properties', inputs: ['analysis'], into: 'cell-properties',
     fn: (a: TensileAnalysis) => {
@@ -169,13 +215,20 @@ nb.cell({ name: 'input', fn: () => null })
         const v = f.params[p]!;
         return `${p} ${formatLawParam(LAW_PARAMETERS[f.law].find((x) => x.name === p)!, v)}${iv ? ` (95 %: ${+iv[0].toPrecision(4)} to ${+iv[1].toPrecision(4)})` : ' (interval not identifiable)'}`;
       };
-      return h('table', { class: 'sl-table', id: 'fits-table' },
+      const basis = c.fits.find((f) => f.law === c.best)?.basis ?? c.fits[0]?.basis;
+      const n = c.fits[0]?.points ?? 0;
+      const how = h('p', { id: 'fit-basis' },
+        basis && basis.blockSize > 1 ? `Fitted on ${basis.fittedPoints} averages of ${basis.blockSize} consecutive points (the flow curve has ${n}); RMSE, R² and AIC are those of the full curve. ` : `Fitted on all ${n} points of the flow curve. `,
+        `95 % intervals allow for residuals that are not independent: each standard error is widened by √(n/n_eff), with n_eff = n(1 − ρ)/(1 + ρ) from the residuals' lag-1 autocorrelation ρ`,
+        basis ? ` (${c.best ?? c.fits[0]!.law}: ρ ${fixed(basis.lag1Autocorrelation, 3)}, n_eff ${fixed(basis.effectivePoints, 0)}, ×${fixed(basis.inflation, 1)}).` : '.');
+      const table = h('table', { class: 'sl-table', id: 'fits-table' },
         h('thead', {}, h('tr', {}, ...['law', 'parameters (MPa for stresses)', 'RMSE MPa', 'R²', 'AIC', 'state'].map((x) => h('th', { scope: 'col' }, x)))),
         h('tbody', {}, ...c.fits.map((f) => h('tr', { 'data-law': f.law },
           h('td', { class: 'text' }, f.law + (c.best === f.law ? ' (best AIC)' : '')),
           h('td', { class: 'text' }, LAW_PARAMETERS[f.law].map((p) => param(f, p.name)).join('; ')),
           h('td', {}, fixed(f.rmse, 2)), h('td', {}, fixed(f.r2, 5)), h('td', {}, fixed(f.aic, 1)),
           h('td', { class: 'text' }, !f.converged ? 'did not converge' : c.goodLaws.includes(f.law) ? 'fits well' : 'fits worse')))));
+      return h('div', {}, table, how);
     },
   })
   .cell({
@@ -214,5 +267,8 @@ nb.cell({ name: 'input', fn: () => null })
     },
   });
 
-drawMapping();
+// Before any record is dropped the bench shows the INVENTED demo record (never empty error cells).
+const demo = examples[0];
+if (demo) load({ name: demo[0].split('/').pop()!, text: demo[1], demo: true }, {});
+else drawMapping();
 expose('records', nb);

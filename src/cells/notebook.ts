@@ -64,7 +64,9 @@ export class Notebook {
   cell(spec: CellSpec): this {
     const el = typeof spec.into === 'string' ? byId(spec.into) : spec.into;
     const name = spec.name;
-    const observer = cellObserver(el ?? document.createElement('div'), spec.render, {
+    // A hidden cell renders nothing: serialising its value (a record of 100,000 points, say) into a
+    // detached element took a second of the page thread per change (measured, issue 12).
+    const observer = cellObserver(el ?? document.createElement('div'), spec.render ?? (el ? undefined : () => null), {
       onPending: () => this.pending.add(name),
       onSettled: (ok) => {
         this.pending.delete(name);

@@ -46,7 +46,7 @@ export function recordCurveChart(
 /** Residuals (fit − data, MPa) of each law against true plastic strain. */
 export function residualChart(
   strain: readonly number[],
-  fits: readonly { law: string; residuals: readonly number[] }[],
+  fits: readonly { law: string; residuals: ArrayLike<number> }[],
   o: { width?: number; height?: number; document?: Document } = {},
 ): SVGSVGElement | HTMLElement {
   const idx = thin(strain.length);

@@ -122,7 +122,11 @@ export type { SpecimenSet, PropertySummary, SpecimenProperty } from './tensile/a
 export { elasticModulus, ELASTIC_WINDOW } from './tensile/elasticModulus.js';
 export type { ElasticResult } from './tensile/elasticModulus.js';
 export { proofStrength, totalExtensionStrength } from './tensile/proofStrength.js';
-export { yieldPoint } from './tensile/yieldPoint.js';
+export { yieldPoint, YIELD_DROP } from './tensile/yieldPoint.js';
+export { recordNoise } from './tensile/recordNoise.js';
+export { forceMaximum } from './tensile/forceMaximum.js';
+export type { ForceMaximum } from './tensile/forceMaximum.js';
+export { quadraticFit, movingAverage } from './tensile/localFit.js';
 export type { YieldPointResult } from './tensile/yieldPoint.js';
 export { nValueFit } from './tensile/nValue.js';
 export { trueCurve } from './tensile/trueCurve.js';
@@ -130,15 +134,21 @@ export { findCycles, fitModulusDecay, UNLOAD_MIN_DROP } from './tensile/cycles.j
 export type * from './tensile/types.js';
 
 // Law fitting and statistics (issue 3)
-export { levenbergMarquardt, LM_DEFAULTS } from './fit/levenbergMarquardt.js';
-export type { Model, LmOptions, LmResult } from './fit/levenbergMarquardt.js';
+export { levenbergMarquardt, levenbergMarquardtNormal, LM_DEFAULTS } from './fit/levenbergMarquardt.js';
+export type { Model, LmOptions, LmResult, NormalProblem, NormalLmResult } from './fit/levenbergMarquardt.js';
+export { lawData, lawNormalProblem, lawResidualPass } from './fit/lawNormalEquations.js';
+export type { LawData } from './fit/lawNormalEquations.js';
+export { blockAverage, reductionBlockSize, REDUCTION_DEFAULTS } from './fit/blockAverage.js';
+export type { BlockAverages } from './fit/blockAverage.js';
+export { effectivePoints } from './fit/effectivePoints.js';
+export type { EffectivePoints } from './fit/effectivePoints.js';
 export { fitLaw, lawBounds, lawModel, lawModelFast, START_SAMPLE } from './fit/fitLaw.js';
 export { lawJacobian } from './fit/lawJacobian.js';
 export type { FitLawOptions } from './fit/fitLaw.js';
 export { fitAllLaws, FIT_DEFAULTS } from './fit/fitAllLaws.js';
 export type { LawComparison, ExtrapolationPoint, FitAllOptions } from './fit/fitAllLaws.js';
-export { fitStatistics } from './fit/fitStatistics.js';
-export type { FitStatistics } from './fit/fitStatistics.js';
+export { fitStatistics, parameterErrors } from './fit/fitStatistics.js';
+export type { FitStatistics, ParameterErrors } from './fit/fitStatistics.js';
 export { linearFit } from './fit/linearFit.js';
 export type { LinearFit } from './fit/linearFit.js';
 export { studentTQuantile, studentTCdf, incompleteBeta, lnGamma } from './fit/studentT.js';
@@ -146,5 +156,7 @@ export { startValues } from './fit/startValues.js';
 export type * from './fit/types.js';
 export { synthesizeRecord } from './tensile/synthesize.js';
 export type { SynthSpec, SynthRecord } from './tensile/synthesize.js';
+export { synthesizeLabRecord } from './tensile/synthesizeLabRecord.js';
+export type { LabRecordSpec, LabRecord, LabRecordTruth } from './tensile/synthesizeLabRecord.js';
 export { scatterFromSpecimens } from './scatter/fromSpecimens.js';
 export type { SpecimenLawParameters, SpecimenScatter } from './scatter/fromSpecimens.js';

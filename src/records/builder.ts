@@ -211,6 +211,19 @@ export class RecordBuilder {
     const { a, b } = this.plan;
     const x = this.cell(f, a, line);
     const y = this.cell(f, b, line);
+    this.pushValues(x, y, line);
+  }
+
+  /**
+   * What the fast row scanner needs: the 0-based columns of the two values, the header's width and
+   * the decimal mark. Cells it cannot read as the located reader would are left to that reader.
+   */
+  get cells(): { a: number; b: number; width: number; decimalComma: boolean; delimiter: string; dataLine: number } {
+    return { a: this.plan.a.index, b: this.plan.b.index, width: this.width, decimalComma: this.layout.decimalComma, delimiter: this.layout.delimiter, dataLine: this.layout.dataLine };
+  }
+
+  /** Adds the two numbers of one data row found at 1-based `line` (already checked as {@link push} checks cells). */
+  pushValues(x: number, y: number, line: number): void {
     if (this.n === this.xs.length) {
       if (this.n >= MAX_ROWS) this.fail(line, 1, '', `more than ${MAX_ROWS} data rows; split the record`);
       const nx = new Float64Array(this.n * 2); nx.set(this.xs); this.xs = nx;

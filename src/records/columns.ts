@@ -1,4 +1,6 @@
-import { normUnit } from './units.js';
+import { normUnit, unitFactor } from './units.js';
+
+const knownUnit = (u: string) => (['stress', 'force', 'length', 'strain'] as const).some((q) => normUnit(u) !== '' && unitFactor(q, u) !== undefined) || /^(s|sec|min)$/i.test(u);
 
 /** What a column holds. */
 export type Role = 'strain' | 'stress' | 'force' | 'extension' | 'time';
@@ -17,16 +19,28 @@ export interface ColumnInfo {
   isTrue: boolean;
 }
 
-const UNIT_SUFFIX = /[_\s](mpa|gpa|ksi|psi|kpa|pa|n|kn|lbf|mm|in|pct|percent|s|sec|min|%)$/i;
+const UNIT_SUFFIX = /[_\s,\-](mpa|gpa|ksi|psi|kpa|pa|n|kn|lbf|lbs?|kips?|kgf|mm|in|inch|pct|percent|s|sec|min|%|µε|με|ue|microstrain|mm\/mm|in\/in|n\/mm²|n\/mm2)$/i;
+/** `strain_in_per_in`, `Strain mm per mm`: a unit written with "per" after the name. */
+const PER_SUFFIX = /^(.*?)[_\s,\-]+([a-zµμ²]+)[_\s]+per[_\s]+([a-zµμ²]+)$/i;
+/** `Stress, MPa`, `Load - lbf`, `Strain: %`: a unit after a comma, dash or colon. */
+const SEP_SUFFIX = /^(.*?)\s*[,:;]\s*(\S+)$|^(.*?)\s+[-–]\s+(\S+)$/;
 
 /** Splits a header name into base name and unit decoration. */
 export function describeColumn(name: string, index: number): ColumnInfo {
   let base = name.trim();
   let unit = '';
-  const br = /^(.*?)[\s_]*[[(]([^\])]*)[\])]\s*$/.exec(base);
+  const br = /^(.*?)[\s_]*[[({<]([^\])}>]*)[\])}>]\s*$/.exec(base);
+  const per = PER_SUFFIX.exec(base);
+  const sep = SEP_SUFFIX.exec(base);
   if (br) {
     base = br[1]!;
     unit = br[2]!;
+  } else if (per && /^(in|inch|mm|m|µm|μm|um|ft)$/i.test(per[2]!) && /^(in|inch|mm|m|ft)$/i.test(per[3]!)) {
+    base = per[1]!;
+    unit = `${per[2]}/${per[3]}`;
+  } else if (sep && knownUnit((sep[2] ?? sep[4])!)) {
+    base = (sep[1] ?? sep[3])!;
+    unit = (sep[2] ?? sep[4])!;
   } else {
     const inU = /^(.*?)\s+in\s+(\S+)$/i.exec(base);
     const suf = UNIT_SUFFIX.exec(base);

@@ -5,18 +5,23 @@ export const STRESS_UNITS: Readonly<Record<string, number>> = {
   ksi: 6.894757293168361, psi: 0.006894757293168361,
 };
 export const FORCE_UNITS: Readonly<Record<string, number>> = {
-  // 1 lbf = 4.4482216152605 N (NIST SP 811, Appendix B.8).
-  n: 1, kn: 1000, lbf: 4.4482216152605, kip: 4448.2216152605, kgf: 9.80665,
+  // 1 lbf = 4.4482216152605 N, 1 kgf = 9.80665 N (NIST SP 811, Appendix B.8); 'lb'/'lbs' as US exports
+  // write pound-force (common practice).
+  n: 1, kn: 1000, mn: 1e6, lbf: 4.4482216152605, lb: 4.4482216152605, lbs: 4.4482216152605,
+  kip: 4448.2216152605, kips: 4448.2216152605, klbf: 4448.2216152605, kgf: 9.80665,
 };
 export const LENGTH_UNITS: Readonly<Record<string, number>> = {
-  mm: 1, in: 25.4, inch: 25.4, m: 1000, cm: 10, µm: 1e-3, um: 1e-3,
+  mm: 1, in: 25.4, inch: 25.4, inches: 25.4, '"': 25.4, m: 1000, cm: 10, µm: 1e-3, μm: 1e-3, um: 1e-3,
 };
 export const AREA_UNITS: Readonly<Record<string, number>> = {
   'mm²': 1, mm2: 1, 'mm^2': 1, 'in²': 645.16, in2: 645.16, 'in^2': 645.16,
 };
 /** Strain: fraction (empty, '-', '1', 'mm/mm', 'in/in') or percent. */
 export const STRAIN_UNITS: Readonly<Record<string, number>> = {
-  '': 1, '-': 1, '1': 1, 'mm/mm': 1, 'in/in': 1, 'm/m': 1, fraction: 1, '%': 0.01, percent: 0.01, pct: 0.01,
+  '': 1, '-': 1, '1': 1, 'mm/mm': 1, 'in/in': 1, 'm/m': 1, 'ft/ft': 1, fraction: 1, '%': 0.01, percent: 0.01, pct: 0.01,
+  // Microstrain (µε = 1e-6; micro sign U+00B5 or Greek mu U+03BC; 'ue' as ASCII exports write it), mm/m = 1e-3.
+  'µε': 1e-6, 'με': 1e-6, 'µe': 1e-6, ue: 1e-6, µstrain: 1e-6, microstrain: 1e-6, 'µm/m': 1e-6, 'μm/m': 1e-6, 'um/m': 1e-6,
+  'mm/m': 1e-3, 'µin/in': 1e-6, 'uin/in': 1e-6,
 };
 
 export type Quantity = 'stress' | 'force' | 'length' | 'strain' | 'time';
@@ -25,9 +30,15 @@ const TABLES: Record<Exclude<Quantity, 'time'>, Readonly<Record<string, number>>
   stress: STRESS_UNITS, force: FORCE_UNITS, length: LENGTH_UNITS, strain: STRAIN_UNITS,
 };
 
-/** Lower-cased unit without spaces; 'N/mm^2' and 'N/mm²' alike. */
+/**
+ * Lower-cased unit without spaces or the brackets around it ([MPa], (ksi), {mm}, <N>); 'N/mm^2' and
+ * 'N/mm²' alike; 'in per in', 'in_per_in' and 'in./in.' read as 'in/in'; 'lbf.' as 'lbf'.
+ */
 export function normUnit(u: string): string {
-  return u.trim().toLowerCase().replace(/\s+/g, '').replace(/^\[|\]$/g, '').replace(/^\(|\)$/g, '');
+  let k = u.trim().toLowerCase();
+  for (let i = 0; i < 2; i++) k = k.replace(/^[[({<]\s*(.*?)\s*[\])}>]$/, '$1');
+  k = k.replace(/[\s_]+per[\s_]+/g, '/').replace(/\s+/g, '').replace(/\.(?=\/|$)/g, '');
+  return k;
 }
 
 /** The factor of `unit` for `q`, or undefined when the unit is not known for that quantity. */
@@ -41,8 +52,8 @@ export function unitFactor(q: Exclude<Quantity, 'time'>, unit: string): number |
 export function allowedUnits(q: Exclude<Quantity, 'time'>): string {
   switch (q) {
     case 'stress': return 'MPa, N/mm², GPa, ksi, psi';
-    case 'force': return 'N, kN, lbf';
-    case 'length': return 'mm, in';
-    case 'strain': return 'a fraction (-, mm/mm) or %';
+    case 'force': return 'N, kN, lbf, kip, kgf';
+    case 'length': return 'mm, in, m, cm, µm';
+    case 'strain': return 'a fraction (-, mm/mm, in/in), %, mm/m or µε (microstrain)';
   }
 }

@@ -26,7 +26,7 @@ function num(name: string, v: string | undefined, lo: number, hi: number): numbe
 /** The JSON of one record's analysis (contract fields first, then the detail). */
 export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: boolean): Record<string, unknown> {
   const fit = (f: LawFit) => ({
-    law: f.law, params: f.params, standardErrors: f.standardErrors, intervals95: f.intervals95, rmse: f.rmse, r2: f.r2, aic: f.aic, bic: f.bic,
+    law: f.law, params: f.params, standardErrors: f.standardErrors, intervals95: f.intervals95, standardErrorsIndependent: f.standardErrorsIndependent, basis: f.basis, rmse: f.rmse, r2: f.r2, aic: f.aic, bic: f.bic,
     converged: f.converged, iterations: f.iterations, strainRange: f.strainRange, points: f.points, ...(residuals ? { residuals: f.residuals } : {}),
   });
   return {
@@ -103,6 +103,13 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
     for (const f of a.fits.fits) {
       const ps = Object.entries(f.params).map(([k, v]) => `${k}=${paramText(f.law, k, v)}${f.standardErrors[k] != null ? `±${+f.standardErrors[k]!.toPrecision(2)}` : ''}`).join(' ');
       lines.push(`  ${f.law.padEnd(15)} ${fmt(f.rmse, 2).padStart(8)}   ${f.r2.toFixed(5)}  ${fmt(f.aic, 0).padStart(7)}  ${(f.converged ? 'yes' : 'NO').padEnd(9)}  ${ps}`);
+    }
+    const b0 = a.fits.fits[0]?.basis;
+    if (b0) {
+      lines.push(b0.blockSize > 1
+        ? `  fitted on ${b0.fittedPoints} averages of ${b0.blockSize} consecutive points (flow curve of ${a.fits.fits[0]!.points}); RMSE, R², AIC on the full curve`
+        : `  fitted on all ${a.fits.fits[0]!.points} points of the flow curve`);
+      lines.push(`  ± is a standard error widened for correlated residuals by √(n/n_eff), n_eff = n(1 − ρ)/(1 + ρ) from the lag-1 autocorrelation ρ: ${a.fits.fits.map((f) => `${f.law} ρ ${f.basis.lag1Autocorrelation.toFixed(2)}`).join(', ')}`);
     }
     for (const e of a.fits.extrapolation) lines.push(`  at εp ${e.strain.toPrecision(3)} (${e.note}): spread ${e.spreadPct.toFixed(1)} % over laws that fit well`);
   }

@@ -2,6 +2,7 @@ import { makeLaw } from '../flow/makeLaw.js';
 import { LAW_NAMES } from '../flow/params.js';
 import type { LawName, LawSpec } from '../flow/types.js';
 import { fitLaw } from './fitLaw.js';
+import { lawData } from './lawNormalEquations.js';
 import type { FitWarning, LawFit } from './types.js';
 
 /** Defaults of the law comparison, stated once. */
@@ -61,20 +62,22 @@ export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const fits: LawFit[] = [];
   const warnings: FitWarning[] = [];
   const byLaw = new Map<LawName, LawFit>();
+  const packed = lawData(strain, stress); // ln ε once for every law
+  const fit = (law: LawName, o: { start?: Record<string, number> } = {}) => fitLaw(law, strain, stress, { ...o, packed });
   const order = [...laws].sort((a, b) => (a === 'swiftVoce' ? 1 : 0) - (b === 'swiftVoce' ? 1 : 0));
   for (const law of order) {
     let start: Record<string, number> | undefined;
     if (law === 'swiftVoce') {
-      const s = byLaw.get('swift') ?? fitLaw('swift', strain, stress);
-      const v = byLaw.get('voce') ?? fitLaw('voce', strain, stress);
+      const s = byLaw.get('swift') ?? fit('swift');
+      const v = byLaw.get('voce') ?? fit('voce');
       start = { alpha: 0.5, ...s.params, ...v.params };
     }
-    const f = fitLaw(law, strain, stress, start ? { start } : {});
+    const f = fit(law, start ? { start } : {});
     if (law === 'swiftVoce') {
       // A blend can always do at least as well as its better part: keep the better of the two starts.
       const s = byLaw.get('swift');
       if (s && s.rmse < f.rmse * (1 - 1e-9)) {
-        const g = fitLaw(law, strain, stress, { start: { ...s.params, alpha: 1, sigma0: 0, Q: 0, b: 1 } });
+        const g = fit(law, { start: { ...s.params, alpha: 1, sigma0: 0, Q: 0, b: 1 } });
         if (g.rmse < f.rmse) { byLaw.set(law, g); continue; }
       }
     }

@@ -2,9 +2,12 @@ import { InputError } from '../errors.js';
 import { makeLaw } from '../flow/makeLaw.js';
 import { LAW_PARAMETERS } from '../flow/params.js';
 import type { LawName, LawSpec } from '../flow/types.js';
-import { fitStatistics } from './fitStatistics.js';
+import { blockAverage, reductionBlockSize } from './blockAverage.js';
+import { effectivePoints } from './effectivePoints.js';
+import { parameterErrors } from './fitStatistics.js';
 import { lawJacobian } from './lawJacobian.js';
-import { levenbergMarquardt } from './levenbergMarquardt.js';
+import { lawData, lawNormalProblem, lawResidualPass, type LawData } from './lawNormalEquations.js';
+import { levenbergMarquardtNormal } from './levenbergMarquardt.js';
 import { startValues } from './startValues.js';
 import type { FitWarning, LawFit } from './types.js';
 
@@ -13,6 +16,8 @@ export interface FitLawOptions {
   /** Start instead of the automatic one, parameters by name (MPa). */
   start?: Record<string, number>;
   maxIterations?: number;
+  /** The same strain and stress already packed by {@link lawData} (fitAllLaws packs a curve once for all laws). */
+  packed?: LawData;
 }
 
 /** At most this many points are used to choose the start (evenly spaced); the fit itself uses all. */
@@ -70,8 +75,15 @@ export function lawModelFast(law: LawName, strain: ArrayLike<number>): (p: Float
  * Fits one hardening law to a flow curve by bounded Levenberg–Marquardt least squares.
  *
  * Minimises Σ(σ_law(εᵢ) − σᵢ)² over the law's parameters within the LAW_PARAMETERS ranges, from
- * {@link startValues}; returns parameters, standard errors and 95 % intervals, RMSE, R², AIC, BIC,
- * residuals and `converged` ({@link fitStatistics} for the formulas and sources).
+ * {@link startValues}. The normal equations are built in one fused pass per step with analytic
+ * derivatives ({@link lawNormalProblem}). Curves of more than REDUCTION_DEFAULTS.fitAllUpTo points
+ * are fitted on block averages of consecutive points ({@link blockAverage}, about
+ * REDUCTION_DEFAULTS.blocks of them, weighted by their counts); RMSE, R², AIC, BIC and the
+ * residuals are always those of the FULL curve.
+ * Intervals: the residuals of closely spaced points are not independent, so the standard errors are
+ * widened by sqrt(n/n_eff) with n_eff from the residuals' lag-1 autocorrelation
+ * ({@link effectivePoints}) and the t quantile uses n_eff − k degrees of freedom
+ * ({@link parameterErrors}); `standardErrorsIndependent` keeps the independent-point values.
  * Units: strain true plastic (dimensionless, > 0), stress true MPa. Valid: at least k + 2 points.
  * @throws InputError for fewer points than parameters + 2 or non-finite or non-positive data.
  * @example fitLaw('hollomon', [0.01, 0.05, 0.1], [530 * 0.01 ** 0.44, 530 * 0.05 ** 0.44, 530 * 0.1 ** 0.44]).params // { K: 530, n: 0.44 }
@@ -83,13 +95,14 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   const n = strain.length;
   if (stress.length !== n) throw new InputError('stress', stress.length, `as many values as strain (${n})`);
   if (n < k + 2) throw new InputError('points', n, `at least ${k + 2} points to fit ${law} (${k} parameters)`);
-  let lo = Infinity, hi = -Infinity;
-  for (let i = 0; i < n; i++) {
-    if (!(strain[i]! > 0) || !Number.isFinite(strain[i]!)) throw new InputError(`strain[${i}]`, strain[i], 'a finite true plastic strain > 0');
-    if (!(stress[i]! > 0) || !Number.isFinite(stress[i]!)) throw new InputError(`stress[${i}]`, stress[i], 'a finite true stress > 0 MPa');
-    lo = Math.min(lo, strain[i]!);
-    hi = Math.max(hi, strain[i]!);
+  // One pass packs the data (Float64Arrays, ln ε) and finds its range and the first bad point.
+  const full = opts.packed && opts.packed.x.length === n ? opts.packed : lawData(strain, stress);
+  if (full.bad >= 0) {
+    const i = full.bad, e = strain[i]!, s = stress[i]!;
+    if (!(e > 0) || !(e < Infinity)) throw new InputError(`strain[${i}]`, e, 'a finite true plastic strain > 0');
+    throw new InputError(`stress[${i}]`, s, 'a finite true stress > 0 MPa');
   }
+  const lo = full.lo, hi = full.hi;
   const { lower, upper } = lawBounds(law);
   let start: number[];
   if (opts.start) {
@@ -102,29 +115,45 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
     start = startValues(law, xs, ys);
   }
   start = start.map((v, j) => Math.min(upper[j]!, Math.max(lower[j]!, v)));
-  const model = lawModelFast(law, strain);
-  const scratch = new Float64Array(n);
-  const res = levenbergMarquardt(model, stress, start, {
-    lower, upper,
-    jacobian: (p, out) => lawJacobian(law, strain, p, scratch, out), ...(opts.maxIterations !== undefined ? { maxIterations: opts.maxIterations } : {}) });
-  const residuals = Array.from(res.predicted, (v, i) => v - stress[i]!);
-  const st = fitStatistics(res.jacobian, residuals, stress, k, res.atBound, res.params);
+  const blockSize = reductionBlockSize(n);
+  let fitted = full;
+  if (blockSize > 1) {
+    if (full.blocks?.size !== blockSize) {
+      const b = blockAverage(full.x, full.y, blockSize);
+      full.blocks = { size: blockSize, data: lawData(b.x, b.y, b.w) };
+    }
+    fitted = full.blocks.data;
+  }
+  const res = levenbergMarquardtNormal(lawNormalProblem(law, fitted, lower, upper), start, {
+    lower, upper, ...(opts.maxIterations !== undefined ? { maxIterations: opts.maxIterations } : {}) });
+  const pass = lawResidualPass(law, full, res.params);
+  const ssr = pass.ssr;
+  const ssrN = Math.max(ssr / n, 1e-300);
+  const eff = effectivePoints(n, ssr, pass.lag1);
+  // JᵀJ of the full curve: the solver's own when every point was fitted; with block averages the
+  // weighted Σ w_b∇σ(x̄_b)∇σ(x̄_b)ᵀ, equal to the full sum up to second order in the block span.
+  const independent = parameterErrors(res.JtJ, k, ssr, n, res.atBound, res.params, n);
+  const honest = parameterErrors(res.JtJ, k, ssr, n, res.atBound, res.params, eff.effectiveN);
   const warnings: FitWarning[] = [];
   if (!res.converged) warnings.push({ code: 'notConverged', message: `${law}: the fit did not converge in ${res.iterations} iterations (${res.reason})` });
   const params: Record<string, number> = {};
   const standardErrors: Record<string, number | null> = {};
+  const standardErrorsIndependent: Record<string, number | null> = {};
   const intervals95: Record<string, [number, number] | null> = {};
   info.forEach((p, j) => {
     params[p.name] = res.params[j]!;
-    standardErrors[p.name] = st.standardErrors[j]!;
-    intervals95[p.name] = st.intervals95[j]!;
+    standardErrors[p.name] = honest.standardErrors[j]!;
+    standardErrorsIndependent[p.name] = independent.standardErrors[j]!;
+    intervals95[p.name] = honest.intervals95[j]!;
     if (res.atBound[j]) warnings.push({ code: 'atBound', message: `${law}: ${p.name} ended on its bound (${res.params[j]}); its standard error is not given` });
   });
-  if (st.singular) warnings.push({ code: 'notIdentifiable', message: `${law}: the data do not determine all ${k} parameters (singular information matrix); standard errors are not given` });
+  if (honest.singular) warnings.push({ code: 'notIdentifiable', message: `${law}: the data do not determine all ${k} parameters (singular information matrix); standard errors are not given` });
   return {
     law, params, standardErrors, intervals95,
-    rmse: st.rmse, r2: st.r2, aic: st.aic, bic: st.bic,
-    residuals, converged: res.converged, iterations: res.iterations,
-    strainRange: [lo, hi], points: n, warnings,
+    rmse: Math.sqrt(ssr / n), r2: pass.sst > 0 ? 1 - ssr / pass.sst : ssr === 0 ? 1 : 0,
+    aic: n * Math.log(ssrN) + 2 * k, bic: n * Math.log(ssrN) + k * Math.log(n),
+    residuals: pass.residuals, converged: res.converged, iterations: res.iterations,
+    strainRange: [lo, hi], points: n, warnings, standardErrorsIndependent,
+    basis: { fittedPoints: fitted.x.length, blockSize, lag1Autocorrelation: eff.lag1, effectivePoints: eff.effectiveN, inflation: eff.inflation },
   };
 }

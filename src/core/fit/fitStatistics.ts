@@ -60,23 +60,59 @@ export function fitStatistics(
     singular: false,
   };
   if (dof < 1 || free.length === 0) return out;
-  const f = free.length;
-  const A = new Float64Array(f * f);
+  const A = new Float64Array(m * m);
   for (let i = 0; i < n; i++) {
     const row = i * m;
-    for (let a = 0; a < f; a++) {
-      const ja = jacobian[row + free[a]!]!;
-      for (let b = 0; b <= a; b++) A[a * f + b] = A[a * f + b]! + ja * jacobian[row + free[b]!]!;
+    for (let a = 0; a < m; a++) {
+      const ja = jacobian[row + a]!;
+      for (let b = 0; b <= a; b++) A[a * m + b] = A[a * m + b]! + ja * jacobian[row + b]!;
     }
   }
-  for (let a = 0; a < f; a++) for (let b = 0; b < a; b++) A[b * f + a] = A[a * f + b]!;
+  for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) A[b * m + a] = A[a * m + b]!;
+  const se = parameterErrors(A, m, ssr, n, atBound, params, n);
+  out.standardErrors = se.standardErrors;
+  out.intervals95 = se.intervals95;
+  out.singular = se.singular;
+  return out;
+}
+
+/** Standard errors and 95 % intervals from JᵀJ (see {@link parameterErrors}). */
+export interface ParameterErrors {
+  standardErrors: (number | null)[];
+  intervals95: ([number, number] | null)[];
+  singular: boolean;
+  /** Degrees of freedom of the t quantile: effectiveN − free parameters (at least 1). */
+  dof: number;
+}
+
+/**
+ * Standard errors and 95 % intervals of least-squares parameters from the normal matrix JᵀJ (m×m,
+ * row-major) at the solution, over the parameters not held at a bound:
+ * C = s²·(JᵀJ)⁻¹·(n / n_eff), s² = SSR/(n − f), SE = sqrt(diag C), interval p ± t(0.975, n_eff − f)·SE,
+ * with f the free parameters. For independent points n_eff = n (the usual linearised estimate, what
+ * SciPy's curve_fit returns as pcov with absolute_sigma=False; Bates & Watts 1988 §2.3). For
+ * autocorrelated residuals pass n_eff from {@link effectivePoints}: the variance of each estimate
+ * grows by n/n_eff and the t quantile uses the effective degrees of freedom (Bayley & Hammersley
+ * 1946, from memory). Units: SE in parameter units. Valid: n > f.
+ * @example parameterErrors(JtJ, 2, ssr, 1000, [false, false], [530, 0.2], 80).standardErrors
+ */
+export function parameterErrors(JtJ: Float64Array, m: number, ssr: number, n: number, atBound: readonly boolean[], params: ArrayLike<number>, effectiveN: number): ParameterErrors {
+  const out: ParameterErrors = { standardErrors: new Array(m).fill(null), intervals95: new Array(m).fill(null), singular: false, dof: 0 };
+  const free: number[] = [];
+  for (let j = 0; j < m; j++) if (!atBound[j]) free.push(j);
+  const f = free.length;
+  if (n - f < 1 || f === 0) return out;
+  const A = new Float64Array(f * f);
+  for (let a = 0; a < f; a++) for (let b = 0; b < f; b++) A[a * f + b] = JtJ[free[a]! * m + free[b]!]!;
   const inv = invertSymmetric(A, f);
   if (!inv) {
     out.singular = true;
     return out;
   }
-  const s2 = ssr / dof;
-  const t = studentTQuantile(0.975, dof);
+  const nEff = Math.min(n, Math.max(1, effectiveN));
+  const s2 = (ssr / (n - f)) * (n / nEff);
+  out.dof = Math.max(1, nEff - f);
+  const t = studentTQuantile(0.975, out.dof);
   for (let a = 0; a < f; a++) {
     const v = s2 * inv[a * f + a]!;
     if (!(v >= 0) || !Number.isFinite(v)) continue;

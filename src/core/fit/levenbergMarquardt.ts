@@ -42,28 +42,45 @@ export interface LmResult {
 }
 
 /**
- * Levenberg–Marquardt least squares with box bounds, for models of a few parameters.
- *
- * Minimises S(p) = Σᵢ (f(p)ᵢ − yᵢ)² subject to lower ≤ p ≤ upper. Each iteration solves
- * (JᵀJ + λ·diag(JᵀJ))·δ = −Jᵀr (Marquardt's scaling, so the step is invariant to parameter units),
- * projects p + δ onto the box, and accepts it when S falls (λ ← λ·max(1/3, 1 − (2ρ − 1)³) with ρ the ratio of actual to predicted
- * fall), else λ ← ν·λ, ν ← 2ν and retries (Nielsen's damping update, H. B. Nielsen, IMM-REP-1999-05, DTU).
- * Parameters sitting on a bound whose gradient pushes outward are held fixed for that iteration
- * (an active-set projection). The Jacobian is by forward differences, step √ε·max(|p|, 1e-6·scale),
- * taken backward when the forward point is outside the box or the model's domain.
- *
- * Sources: K. Levenberg, *Q. Appl. Math.* 2 (1944) 164–168; D. W. Marquardt, *J. SIAM* 11 (1963)
- * 431–441; J. J. Moré, "The Levenberg–Marquardt algorithm: implementation and theory", in
- * G. A. Watson (ed.), *Numerical Analysis*, Springer LNM vol. 630 (1978) 105–116. Hand-written rather than taken from a library because bounds and the
- * `converged` flag are needed, the systems are tiny (≤ 7 unknowns, Cholesky), and it is checked
- * against ml-levenberg-marquardt and SciPy's curve_fit (test/core/fit, bench/fit.mjs).
- * Units: those of the model. Valid: n ≥ m data, finite start inside the box.
- * @throws InputError when the start is outside the box or the model cannot be evaluated there.
- * @example levenbergMarquardt((p) => Float64Array.from(x, (xi) => p[0]! * xi), y, [1], { lower: [0], upper: [10] })
+ * A least-squares problem as the solver sees it: the cost and the normal equations at a parameter
+ * vector, so a caller can build JᵀJ and Jᵀr in one fused pass over its data without ever holding
+ * the n×m Jacobian (see `fit/lawNormalEquations.ts`).
  */
-export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: readonly number[], opts: LmOptions): LmResult {
+export interface NormalProblem {
+  /** Number of parameters. */
+  m: number;
+  /** S(p) = Σ wᵢ·(f(p)ᵢ − yᵢ)², or Infinity outside the model's domain. */
+  cost(p: Float64Array): number;
+  /**
+   * Fills JtJ (m×m, row-major, both triangles) with Σ wᵢ·∇fᵢ∇fᵢᵀ and g (m) with Σ wᵢ·∇fᵢ·rᵢ (rᵢ = fᵢ − yᵢ)
+   * at p and returns S(p); Infinity outside the domain.
+   */
+  normal(p: Float64Array, JtJ: Float64Array, g: Float64Array): number;
+}
+
+/** What {@link levenbergMarquardtNormal} returns: the solution and JᵀJ there (for the covariance). */
+export interface NormalLmResult {
+  params: Float64Array;
+  converged: boolean;
+  iterations: number;
+  /** S at `params`. */
+  residual: number;
+  reason: string;
+  /** JᵀJ at `params` (m×m, row-major). */
+  JtJ: Float64Array;
+  atBound: boolean[];
+}
+
+/**
+ * The same bounded Levenberg–Marquardt as {@link levenbergMarquardt} (Marquardt scaling, Nielsen's
+ * damping update, active-set projection on the box), working on the normal equations a problem
+ * builds itself: memory O(m²) instead of O(n·m), one pass over the data per accepted step.
+ * Sources as for {@link levenbergMarquardt}. Units: those of the model.
+ * @throws InputError when the start is outside the box or the cost is not finite there.
+ * @example levenbergMarquardtNormal(lawNormalProblem('voce', x, y, null), start, { lower, upper }).params
+ */
+export function levenbergMarquardtNormal(problem: NormalProblem, start: readonly number[], opts: LmOptions): NormalLmResult {
   const m = start.length;
-  const n = y.length;
   const { lower, upper } = opts;
   const maxIt = opts.maxIterations ?? LM_DEFAULTS.maxIterations;
   const ftol = opts.costTolerance ?? LM_DEFAULTS.costTolerance;
@@ -72,62 +89,17 @@ export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: re
   for (let j = 0; j < m; j++) {
     if (!(p[j]! >= lower[j]! && p[j]! <= upper[j]!)) throw new InputError(`start[${j}]`, p[j], `a number in [${lower[j]}, ${upper[j]}]`);
   }
-  const cost = (f: Float64Array | null): number => {
-    if (!f) return Infinity;
-    let s = 0;
-    for (let i = 0; i < n; i++) {
-      const r = f[i]! - y[i]!;
-      s += r * r;
-    }
-    return Number.isFinite(s) ? s : Infinity;
-  };
-  let f = model(p);
-  let S = cost(f);
+  const JtJ = new Float64Array(m * m);
+  const g = new Float64Array(m);
+  let S = problem.normal(p, JtJ, g);
   if (!Number.isFinite(S)) throw new InputError('start', Array.from(p), 'a start where the model gives finite values');
-  const J = new Float64Array(n * m);
-  const jac = (fp: Float64Array) => {
-    if (opts.jacobian && opts.jacobian(p, J)) return;
-    const q = Float64Array.from(p);
-    for (let j = 0; j < m; j++) {
-      const scale = Math.max(Math.abs(p[j]!), 1e-6 * Math.max(1, Math.abs(upper[j]!) < Infinity ? Math.abs(upper[j]!) : 1), 1e-12);
-      let h = 1.4901161193847656e-8 * scale;
-      let g: Float64Array | null = null;
-      if (p[j]! + h <= upper[j]!) {
-        q[j] = p[j]! + h;
-        g = model(q);
-      }
-      if (!g || !Number.isFinite(cost(g))) {
-        h = -h;
-        q[j] = p[j]! + h;
-        g = q[j]! >= lower[j]! ? model(q) : null;
-      }
-      q[j] = p[j]!;
-      for (let i = 0; i < n; i++) J[i * m + j] = g ? (g[i]! - fp[i]!) / h : 0;
-    }
-  };
   let lambda = 1e-3;
   let nu = 2;
   let it = 0;
   let converged = false;
   let reason = 'iteration limit reached';
-  const JtJ = new Float64Array(m * m);
-  const g = new Float64Array(m);
   let atBound: boolean[] = new Array(m).fill(false);
-  jac(f!);
   outer: for (it = 1; it <= maxIt; it++) {
-    // Normal equations.
-    JtJ.fill(0);
-    g.fill(0);
-    for (let i = 0; i < n; i++) {
-      const r = f![i]! - y[i]!;
-      const row = i * m;
-      for (let a = 0; a < m; a++) {
-        const ja = J[row + a]!;
-        g[a] = g[a]! + ja * r;
-        for (let b = 0; b <= a; b++) JtJ[a * m + b] = JtJ[a * m + b]! + ja * J[row + b]!;
-      }
-    }
-    for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) JtJ[b * m + a] = JtJ[a * m + b]!;
     // Active set: on a bound with the descent direction (−g) pointing out of the box.
     atBound = Array.from({ length: m }, (_, j) => (p[j]! <= lower[j]! && g[j]! > 0) || (p[j]! >= upper[j]! && g[j]! < 0));
     const free: number[] = [];
@@ -162,8 +134,7 @@ export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: re
         q[j] = Math.min(upper[j]!, Math.max(lower[j]!, p[j]! + d[a]!));
         if (Math.abs(q[j]! - p[j]!) > xtol * (Math.abs(p[j]!) + xtol)) small = false;
       }
-      const fq = model(q);
-      const Sq = cost(fq);
+      const Sq = problem.cost(q);
       if (Sq < S) {
         const drop = (S - Sq) / Math.max(S, 1e-300);
         // Gain ratio ρ = actual / predicted fall of S (predicted from the linear model, with the projected step).
@@ -177,11 +148,9 @@ export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: re
         }
         const rho = pred > 0 ? (S - Sq) / pred : 0.5;
         p.set(q);
-        f = fq!;
-        S = Sq;
+        S = problem.normal(p, JtJ, g);
         lambda = Math.max(lambda * Math.max(1 / 3, 1 - (2 * rho - 1) ** 3), 1e-10);
         nu = 2;
-        jac(f);
         if (drop < ftol || small) {
           converged = true;
           reason = drop < ftol ? 'relative fall of the cost below tolerance' : 'step below tolerance';
@@ -204,5 +173,99 @@ export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: re
     }
   }
   if (it > maxIt) it = maxIt;
-  return { params: p, converged, iterations: it, residual: S, reason, jacobian: J, predicted: f!, atBound };
+  return { params: p, converged, iterations: it, residual: S, reason, JtJ, atBound };
+}
+
+/**
+ * Levenberg–Marquardt least squares with box bounds, for models of a few parameters.
+ *
+ * Minimises S(p) = Σᵢ (f(p)ᵢ − yᵢ)² subject to lower ≤ p ≤ upper. Each iteration solves
+ * (JᵀJ + λ·diag(JᵀJ))·δ = −Jᵀr (Marquardt's scaling, so the step is invariant to parameter units),
+ * projects p + δ onto the box, and accepts it when S falls (λ ← λ·max(1/3, 1 − (2ρ − 1)³) with ρ the ratio of actual to predicted
+ * fall), else λ ← ν·λ, ν ← 2ν and retries (Nielsen's damping update, H. B. Nielsen, IMM-REP-1999-05, DTU).
+ * Parameters sitting on a bound whose gradient pushes outward are held fixed for that iteration
+ * (an active-set projection). The Jacobian is by forward differences, step √ε·max(|p|, 1e-6·scale),
+ * taken backward when the forward point is outside the box or the model's domain.
+ *
+ * Sources: K. Levenberg, *Q. Appl. Math.* 2 (1944) 164–168; D. W. Marquardt, *J. SIAM* 11 (1963)
+ * 431–441; J. J. Moré, "The Levenberg–Marquardt algorithm: implementation and theory", in
+ * G. A. Watson (ed.), *Numerical Analysis*, Springer LNM vol. 630 (1978) 105–116. Hand-written rather than taken from a library because bounds and the
+ * `converged` flag are needed, the systems are tiny (≤ 7 unknowns, Cholesky), and it is checked
+ * against ml-levenberg-marquardt and SciPy's curve_fit (test/core/fit, bench/fit.mjs).
+ * Units: those of the model. Valid: n ≥ m data, finite start inside the box.
+ * @throws InputError when the start is outside the box or the model cannot be evaluated there.
+ * @example levenbergMarquardt((p) => Float64Array.from(x, (xi) => p[0]! * xi), y, [1], { lower: [0], upper: [10] })
+ */
+export function levenbergMarquardt(model: Model, y: ArrayLike<number>, start: readonly number[], opts: LmOptions): LmResult {
+  const m = start.length;
+  const n = y.length;
+  const { lower, upper } = opts;
+  const cost = (f: Float64Array | null): number => {
+    if (!f) return Infinity;
+    let s = 0;
+    for (let i = 0; i < n; i++) {
+      const r = f[i]! - y[i]!;
+      s += r * r;
+    }
+    return Number.isFinite(s) ? s : Infinity;
+  };
+  const J = new Float64Array(n * m);
+  const jac = (p: Float64Array, fp: Float64Array) => {
+    if (opts.jacobian && opts.jacobian(p, J)) return;
+    const q = Float64Array.from(p);
+    for (let j = 0; j < m; j++) {
+      const scale = Math.max(Math.abs(p[j]!), 1e-6 * Math.max(1, Math.abs(upper[j]!) < Infinity ? Math.abs(upper[j]!) : 1), 1e-12);
+      let h = 1.4901161193847656e-8 * scale;
+      let g: Float64Array | null = null;
+      if (p[j]! + h <= upper[j]!) {
+        q[j] = p[j]! + h;
+        g = model(q);
+      }
+      if (!g || !Number.isFinite(cost(g))) {
+        h = -h;
+        q[j] = p[j]! + h;
+        g = q[j]! >= lower[j]! ? model(q) : null;
+      }
+      q[j] = p[j]!;
+      for (let i = 0; i < n; i++) J[i * m + j] = g ? (g[i]! - fp[i]!) / h : 0;
+    }
+  };
+  // The last model evaluation, so the normal equations at an accepted trial point reuse it.
+  let lastP: Float64Array | null = null;
+  let lastF: Float64Array | null = null;
+  const evaluate = (p: Float64Array): Float64Array | null => {
+    if (lastP && lastP.every((v, j) => v === p[j])) return lastF;
+    lastP = Float64Array.from(p);
+    lastF = model(p);
+    return lastF;
+  };
+  let jacAt: Float64Array | null = null;
+  const problem: NormalProblem = {
+    m,
+    cost: (p) => cost(evaluate(p)),
+    normal: (p, JtJ, g) => {
+      const f = evaluate(p);
+      const S = cost(f);
+      if (!Number.isFinite(S)) return Infinity;
+      jac(p, f!);
+      jacAt = Float64Array.from(p);
+      JtJ.fill(0);
+      g.fill(0);
+      for (let i = 0; i < n; i++) {
+        const r = f![i]! - y[i]!;
+        const row = i * m;
+        for (let a = 0; a < m; a++) {
+          const ja = J[row + a]!;
+          g[a] = g[a]! + ja * r;
+          for (let b = 0; b <= a; b++) JtJ[a * m + b] = JtJ[a * m + b]! + ja * J[row + b]!;
+        }
+      }
+      for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) JtJ[b * m + a] = JtJ[a * m + b]!;
+      return S;
+    },
+  };
+  const res = levenbergMarquardtNormal(problem, start, opts);
+  const predicted = evaluate(res.params)!;
+  if (!jacAt || !(jacAt as Float64Array).every((v, j) => v === res.params[j])) jac(res.params, predicted);
+  return { params: res.params, converged: res.converged, iterations: res.iterations, residual: res.residual, reason: res.reason, jacobian: J, predicted, atBound: res.atBound };
 }

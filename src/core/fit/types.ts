@@ -35,4 +35,25 @@ export interface LawFit extends FitQuality {
   intervals95: Record<string, [number, number] | null>;
   /** Range of true plastic strain the law was fitted on. */
   strainRange: [number, number];
+  /**
+   * Standard errors as if every point were an independent observation (s·sqrt(diag((JᵀJ)⁻¹)), what
+   * SciPy's curve_fit reports); shown for comparison only: too small for closely sampled records.
+   */
+  standardErrorsIndependent: Record<string, number | null>;
+  /** How the fit and its intervals were computed (see {@link FitBasis}). */
+  basis: FitBasis;
+}
+
+/** How a law fit was computed: on which points, and how its intervals allow for correlated residuals. */
+export interface FitBasis {
+  /** Points the solver fitted: all points, or block averages of `blockSize` consecutive points. */
+  fittedPoints: number;
+  /** 1 when every point was fitted; else the points per block average (REDUCTION_DEFAULTS). */
+  blockSize: number;
+  /** Lag-1 autocorrelation of the residuals on the full curve. */
+  lag1Autocorrelation: number;
+  /** Effective number of independent points, n(1 − ρ)/(1 + ρ) (effectivePoints). */
+  effectivePoints: number;
+  /** Factor by which `standardErrors` exceed `standardErrorsIndependent`: sqrt(n / effectivePoints). */
+  inflation: number;
 }

@@ -2,7 +2,10 @@ import { InputError } from '../errors.js';
 import { fitAllLaws } from '../fit/fitAllLaws.js';
 import type { LawName } from '../flow/types.js';
 import { fitModulusDecay, findCycles } from './cycles.js';
-import { elasticModulus } from './elasticModulus.js';
+import { linearFit } from '../fit/linearFit.js';
+import { ELASTIC_WINDOW, elasticModulus } from './elasticModulus.js';
+import { forceMaximum } from './forceMaximum.js';
+import { recordNoise } from './recordNoise.js';
 import { nValueFit } from './nValue.js';
 import { proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { TensileAnalysis, TensileData, TensileWarning } from './types.js';
@@ -57,44 +60,73 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     if (!Number.isFinite(stress[i]!)) throw new InputError(`stress[${i}]`, stress[i], 'a finite number');
   }
   const warnings: TensileWarning[] = [];
-  let iMax = 0;
-  for (let i = 1; i < N; i++) if (stress[i]! > stress[iMax]!) iMax = i;
-  const Rm = stress[iMax]!;
-  if (!(Rm > 0)) throw new InputError('stress', Rm, 'a record whose highest stress is above 0 MPa');
-  const el = elasticModulus(strain, stress, Rm);
-  const E = opts.elasticModulus ?? el.modulus;
-  const toe = opts.elasticModulus === undefined ? el.toeStrain : el.toeStrain * (el.modulus / E);
-  if (el.window.points < 8) warnings.push({ code: 'fewElasticPoints', message: `only ${el.window.points} points in the elastic window; E is uncertain (±${((el.window.standardError / el.modulus) * 100).toFixed(1)} % standard error)` });
+  let iRaw = 0;
+  for (let i = 1; i < N; i++) if (stress[i]! > stress[iRaw]!) iRaw = i;
+  const sMax = stress[iRaw]!;
+  if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
+  const noise = recordNoise(stress);
+  const el = elasticModulus(strain, stress, sMax, noise);
+  const given = opts.elasticModulus;
+  if (given !== undefined && !(given > 0 && Number.isFinite(given))) throw new InputError('elasticModulus', given, 'a modulus > 0 MPa');
+  const E = given ?? el.modulus;
+  let toe = el.toeStrain;
+  if (given !== undefined) {
+    // The given E through the centroid of the elastic band.
+    let mx = 0, my = 0;
+    const { fromIndex: a, toIndex: b } = el.window;
+    for (let i = a; i < b; i++) { mx += strain[i]!; my += stress[i]!; }
+    toe = (mx - my / E) / (b - a);
+    const [lo, hi] = el.window.interval95;
+    if (!(given >= lo && given <= hi)) warnings.push({ code: 'modulusGiven', message: `the given E ${(given / 1000).toFixed(1)} GPa is outside the 95 % interval of the measured one (${(lo / 1000).toFixed(1)}–${(hi / 1000).toFixed(1)} GPa); the given E is used` });
+  } else {
+    const bad = el.issues.find((x) => x.code === 'implausibleModulus');
+    if (bad) throw new InputError('elasticModulus', +el.modulus.toPrecision(4), `a modulus of a metal (${ELASTIC_WINDOW.plausible[0] / 1000}–${ELASTIC_WINDOW.plausible[1] / 1000} GPa) from the elastic band; ${bad.message}`);
+  }
+  for (const x of el.issues) if (x.code !== 'implausibleModulus' || given === undefined) warnings.push({ code: x.code, message: x.message });
 
   const offPct = opts.proofOffsetPct ?? ANALYZE_DEFAULTS.proofOffsetPct;
   if (!(offPct > 0 && offPct <= 5)) throw new InputError('proofOffsetPct', offPct, 'a number in (0, 5] %');
-  const rp = (pct: number) => proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N);
+  const rp = (pct: number) => proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise);
   const proof = rp(offPct);
   if (!proof) warnings.push({ code: 'noProofPoint', message: `the curve never meets the ${offPct} % offset line; no proof strength` });
   const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null }));
   const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);
 
-  const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, iMax, el.noise);
-  const eM = strain[iMax]! - toe;
-  const Ag = (eM - Rm / E) * 100;
-  const Agt = eM * 100;
-
-  // Fracture: first sudden fall after Rm, else the end of the record.
+  // Fracture: first sudden fall after the highest stress, else the end of the record.
   let fi = N - 1;
   let detected = false;
-  for (let i = iMax; i < N - 1; i++) {
-    if (stress[i + 1]! < (1 - ANALYZE_DEFAULTS.fractureDrop) * stress[i]! || stress[i + 1]! < ANALYZE_DEFAULTS.fractureFloor * Rm) {
+  for (let i = iRaw; i < N - 1; i++) {
+    if (stress[i + 1]! < (1 - ANALYZE_DEFAULTS.fractureDrop) * stress[i]! || stress[i + 1]! < ANALYZE_DEFAULTS.fractureFloor * sMax) {
       fi = i;
       detected = true;
       break;
     }
   }
+  const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
+  // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
+  const topFrom = yp ? yp.endIndex : Math.min(el.window.toIndex, fi);
+  const fm = forceMaximum(strain, stress, noise, topFrom, fi + 1);
+  const Rm = fm.stress;
+  const iMax = fm.index;
+  const eM = fm.strain - toe;
+  const Ag = (eM - Rm / E) * 100;
+  const Agt = eM * 100;
+  if (fm.flat) warnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; Ag is read at the middle of the flat part (±${((fm.span[1] - fm.span[0]) * 50).toFixed(2)} points)` });
+
   const necked = !detected && stress[N - 1]! < 0.9 * Rm;
   if (!detected && iMax >= N - Math.max(2, Math.ceil(0.01 * N))) {
     warnings.push({ code: 'maxAtEnd', message: 'the highest stress is at the end of the record: the test stopped before maximum force, so Rm, Ag and A are lower bounds' });
   }
   else if (!detected && !necked) warnings.push({ code: 'noFractureDrop', message: 'no sudden fall of force after Rm and no necking at the end: the last point is taken as fracture (A assumes the record ends at fracture)' });
-  const A = (strain[fi]! - toe - stress[fi]! / E) * 100;
+  // A: the stress at fracture from a line through the last samples (its elastic part s_f/E, not one noisy sample).
+  let sF = stress[fi]!;
+  {
+    const k = Math.min(fi - iMax, Math.max(3, Math.min(50, Math.round(N / 1000))));
+    if (k >= 3) {
+      try { const f = linearFit(strain, stress, fi - k + 1, fi + 1); sF = f.intercept + f.slope * strain[fi]!; } catch { /* keep the sample */ }
+    }
+  }
+  const A = (strain[fi]! - toe - sF / E) * 100;
 
   // True curve to maximum force.
   const tStrain: number[] = [], tStress: number[] = [], tPlastic: number[] = [];
@@ -108,7 +140,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     tPlastic.push(eps - s / E);
   }
   // Flow curve: monotone envelope (cycles left out), from the end of yield effects to Fm.
-  const cycles = findCycles(strain, stress, E, toe, el.window.toIndex, el.noise);
+  const cycles = findCycles(strain, stress, E, toe, el.window.toIndex, noise);
   const fromTrue = yp ? Math.log1p(strain[yp.endIndex]! - toe) - (stress[yp.endIndex]! * (1 + strain[yp.endIndex]! - toe)) / E : ANALYZE_DEFAULTS.flowCurveFrom;
   const fStrain: number[] = [], fStress: number[] = [];
   let runMax = -Infinity;
@@ -157,6 +189,11 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
 
   return {
     elasticModulus: E,
+    elasticModulusSource: given !== undefined ? 'given' : 'measured',
+    measuredModulus: el.modulus,
+    measuredModulusInterval95: el.window.interval95,
+    noise,
+    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, method: 'maximum of a least-squares parabola through the samples whose moving average lies within max(2 noise sd, 0.1 %) of the top; Ag at its vertex, or at the middle of a top flat within the noise' },
     elasticWindow: el.window,
     toeStrain: toe,
     proofStrength: proof?.stress ?? null,

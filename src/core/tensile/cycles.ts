@@ -13,7 +13,8 @@ export const UNLOAD_MIN_DROP = 0.3;
  * between the start of unloading and the reversal (ASTM E111 chord modulus), the true plastic strain
  * left ε_u − σ_u/E_u, the true elastic strain recovered σ_u/E_u, and the reload 0.2 % proof strength
  * (true stress; offset line through the reversal point, parallel to the unloading chord — the
- * ISO 6892-1 offset construction applied to the reload branch).
+ * ISO 6892-1 offset construction applied to the reload branch). Each cycle also carries the same values
+ * on the engineering basis of a test report (`engineering`: s = σ/exp(ε), e = exp(ε) − 1, Dowling §4.5).
  * Units: engineering strain fraction and stress MPa in; MPa and true strain out.
  */
 export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<number>, E: number, toe: number, fromIndex: number, noise: number): UnloadCycle[] {
@@ -46,6 +47,7 @@ export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<nu
     const su = stress[u]!;
     // Reload: from the reversal until the strain passes the start of unloading by 0.5 % or the next unloading.
     let reload: number | null = null;
+    let reloadStrain = 0;
     let prev = stress[r]! - Eu * (strain[r]! - strain[r]! - 0.002);
     let j = r + 1;
     for (; j < n; j++) {
@@ -53,12 +55,15 @@ export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<nu
       if (prev > 0 && g <= 0) {
         const t = prev / (prev - g);
         reload = stress[j - 1]! + t * (stress[j]! - stress[j - 1]!);
+        reloadStrain = strain[j - 1]! + t * (strain[j]! - strain[j - 1]!);
         break;
       }
       prev = g;
       if (stress[j]! < stress[j - 1]! - Math.max(tol, 0.05 * stress[j - 1]!)) break;
     }
+    const ep = strain[u]! - su / Eu;
     out.push({
+      basis: 'true',
       unloadIndex: u,
       reversalIndex: r,
       unloadStress: su,
@@ -66,6 +71,11 @@ export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<nu
       permanentStrain: strain[u]! - su / Eu,
       recoveredStrain: su / Eu,
       reloadProofStrength: reload,
+      engineering: {
+        unloadStress: su / Math.exp(strain[u]!),
+        permanentStrain: Math.expm1(ep),
+        reloadProofStrength: reload === null ? null : reload / Math.exp(reloadStrain),
+      },
     });
     // Resume once the reload is back above the unloading stress or past its strain.
     let next = r + 1;

@@ -1,14 +1,18 @@
+import { polynomialFit } from './localFit.js';
+
 /**
  * Proof strength, plastic extension: the stress where the line parallel to the elastic line, offset by
  * `offset` strain, meets the curve — Rp in ISO 6892-1 §3.10.3.1 and Figure 3 (0.2 % offset: Rp0.2);
  * "offset method", ASTM E8 §7.7.1. Found as the first sign change of g = σ − E·(e − e0 − offset)
- * after `fromIndex`, linearly interpolated between the two bracketing points.
+ * after `fromIndex`, linearly interpolated between the two bracketing points; with `noise` > 0 (the
+ * record's noise sd, MPa) the crossing is read from a least-squares parabola through the samples
+ * whose plastic strain is within [offset/2, 2·offset] (at least 7), not from two noisy samples.
  * Units: strain fraction, stresses and E in MPa. Valid: offset > 0.
  * @returns the stress in MPa and the (fractional) index, or null when the curve never crosses the line.
  * @example proofStrength([0, 0.002, 0.004, 0.006], [0, 400, 440, 450], 200000, 0, 0.002) // ≈ 436.4 MPa
  */
 export function proofStrength(
-  strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, fromIndex = 0, toIndex = strain.length,
+  strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, fromIndex = 0, toIndex = strain.length, noise = 0,
 ): { stress: number; index: number } | null {
   const g = (i: number) => stress[i]! - E * (strain[i]! - toe - offset);
   let prev = g(fromIndex);
@@ -16,11 +20,40 @@ export function proofStrength(
     const cur = g(i);
     if (prev > 0 && cur <= 0) {
       const t = prev / (prev - cur);
-      return { stress: stress[i - 1]! + t * (stress[i]! - stress[i - 1]!), index: i - 1 + t };
+      const raw = { stress: stress[i - 1]! + t * (stress[i]! - stress[i - 1]!), index: i - 1 + t };
+      return noise > 0 ? smoothCrossing(strain, stress, E, toe, offset, i, toIndex, noise) ?? raw : raw;
     }
     prev = cur;
   }
   return null;
+}
+
+/**
+ * The offset-line crossing read from a local least-squares parabola s(e) instead of two noisy samples:
+ * the samples around the crossing whose plastic strain e − e0 − s/E lies in [offset/2, 2·offset] (at
+ * least 7, contiguous), so the estimate's noise is about σ̂·√(3/m) instead of σ̂. Null when the fit
+ * does not cross the line inside its own span (the raw crossing is used then).
+ */
+function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number, noise: number): { stress: number; index: number } | null {
+  const pl = (i: number) => strain[i]! - toe - stress[i]! / E;
+  const lo = 0.5 * offset, hi = 2 * offset;
+  let a = c, b = c;
+  while (a - 1 >= 0 && pl(a - 1) >= lo && strain[a - 1]! < strain[a]!) a--;
+  while (b + 1 < toIndex && pl(b + 1) <= hi && strain[b + 1]! > strain[b]!) b++;
+  if (b - a + 1 < 7) return null;
+  const f = polynomialFit(strain, stress, a, b + 1, 2);
+  if (!f) return null;
+  const G = (e: number) => f.at(e) - E * (e - toe - offset);
+  let x0 = strain[a]!, x1 = strain[b]!;
+  if (!(G(x0) > 0 && G(x1) <= 0)) return null;
+  for (let k = 0; k < 80 && x1 - x0 > 1e-14; k++) { const m = 0.5 * (x0 + x1); if (G(m) > 0) x0 = m; else x1 = m; }
+  const e = 0.5 * (x0 + x1);
+  // Fractional index by the strain of the neighbouring samples.
+  let i = a;
+  while (i < b && strain[i + 1]! < e) i++;
+  const t = strain[i + 1]! > strain[i]! ? (e - strain[i]!) / (strain[i + 1]! - strain[i]!) : 0;
+  void noise;
+  return { stress: f.at(e), index: i + Math.min(1, Math.max(0, t)) };
 }
 
 /**

@@ -7,7 +7,8 @@ export interface TensileData {
 }
 
 export interface TensileWarning {
-  code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles';
+  code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles'
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'modulusGiven' | 'flatTop';
   message: string;
 }
 
@@ -21,14 +22,24 @@ export interface ElasticWindow {
   toIndex: number;
   points: number;
   r2: number;
-  /** Standard error of E, MPa. */
+  /** Standard error of E, MPa: max(record noise, residual scatter)/√Sxx. */
   standardError: number;
+  /** 95 % confidence interval of the fitted E (Student t), MPa. */
+  interval95: [number, number];
+  /** The Rp0.2 estimate the band is tied to (10–40 % of it), MPa. */
+  proofEstimate: number;
   /** How the window was chosen, in words. */
   method: string;
 }
 
-/** One unload–reload cycle (true stress and true strain, toe-compensated). */
+/**
+ * One unload–reload cycle. Basis: the top-level stress and strain fields are **true** stress and
+ * **true** (logarithmic) strain, toe-compensated (`basis: 'true'`); `engineering` gives the values a test
+ * report compares with (engineering stress s = σ/(1 + e), engineering strain e = exp(ε) − 1).
+ */
 export interface UnloadCycle {
+  /** The basis of the top-level fields: always 'true' (true stress, true strain). */
+  basis: 'true';
   /** Index where unloading starts and where the reversal (lowest stress) is. */
   unloadIndex: number;
   reversalIndex: number;
@@ -42,6 +53,15 @@ export interface UnloadCycle {
   recoveredStrain: number;
   /** 0.2 % proof strength of the reload branch, offset parallel to the unloading chord, MPa; null when the reload does not reach it. */
   reloadProofStrength: number | null;
+  /** The same cycle on the engineering basis of a test report: stresses MPa, strains fractions. */
+  engineering: {
+    /** Engineering stress at the start of unloading, MPa. */
+    unloadStress: number;
+    /** Engineering strain left at zero stress, exp(εp) − 1. */
+    permanentStrain: number;
+    /** Engineering stress where the reload branch meets the 0.2 % offset line, MPa (null when not reached). */
+    reloadProofStrength: number | null;
+  };
 }
 
 /** Fit of the chord-modulus decay E(εp) = E0 − (E0 − Ea)(1 − exp(−ξ·εp)) to the cycles. */
@@ -66,7 +86,17 @@ export interface NValueResult {
 
 /** Everything {@link analyzeRecord} finds. Stresses MPa; percentages of the gauge length. */
 export interface TensileAnalysis {
+  /** The E used for every property below: the measured one, or the one given (`elasticModulusSource`). */
   elasticModulus: number;
+  /** Where E came from: 'measured' (the elastic band) or 'given' (an option such as --modulus). */
+  elasticModulusSource: 'measured' | 'given';
+  /** The E measured on the elastic band and its 95 % interval, MPa (also when a given E is used). */
+  measuredModulus: number;
+  measuredModulusInterval95: [number, number];
+  /** Noise of the stress estimated from the data (second differences, robust scale), MPa. */
+  noise: number;
+  /** How Rm and Ag were read: the local parabola around the top (samples, strain span, flat top). */
+  forceMaximum: { points: number; span: [number, number]; flat: boolean; method: string };
   elasticWindow: ElasticWindow;
   /** Toe correction: strain where the elastic line meets zero stress (subtracted from all strains). */
   toeStrain: number;

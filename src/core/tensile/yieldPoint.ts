@@ -1,4 +1,5 @@
 import { linearFit } from '../fit/linearFit.js';
+import { movingAverage } from './localFit.js';
 
 export interface YieldPointResult {
   upperYield: number;
@@ -8,74 +9,124 @@ export interface YieldPointResult {
   endIndex: number;
   /** Ae, engineering strain from ReH to the start of uniform work hardening, %. */
   elongationPct: number;
+  /** The fall from ReH to the plateau level and the smallest fall that would have counted, MPa. */
+  drop: number;
+  dropThreshold: number;
 }
+
+/** Thresholds of the yield-drop test, stated once. */
+export const YIELD_DROP = {
+  /** The fall must exceed this fraction of ReH (common practice: drops under ~1.5 % are hard to tell from a rounded knee)… */
+  minRelDrop: 0.015,
+  /** …and this many standard errors of (ReH estimate − plateau level). */
+  sigmas: 4,
+  /** A departure from the elastic line: this many noise sd below it, two samples in a row. */
+  departSigmas: 4,
+  /** Strain over which the plateau level after the drop is taken (median), fraction. */
+  plateauStrain: 0.003,
+  /** The peak must lie within this plastic strain of the elastic line. */
+  maxPeakPlastic: 0.005,
+} as const;
 
 /**
  * Discontinuous yielding: upper yield strength ReH, lower yield strength ReL and yield-point
- * elongation Ae (ISO 6892-1 §3.10.2 and §3.6.5; ASTM E8 §7.6 "YPE").
+ * elongation Ae (ISO 6892-1 §3.10.2 and §3.6.5; ASTM E8 §7.6 "YPE"), reported only for a drop that
+ * stands clear of the record's noise and is followed by a plateau.
  *
- * ReH is the first stress peak that lies within 0.5 % plastic strain of the elastic line and is
- * followed by a fall of at least max(0.5 % of the peak, 6 × the elastic-fit noise) before the stress
- * passes the peak again (a first fall of force, ISO 6892-1 §3.10.2.1). The plateau level is the median
- * stress over 0.2 % strain after the first minimum; the plateau ends at the last point before Rm whose
- * stress is within max(4 × noise, 0.5 %) of that level (our reading of "start of uniform work
- * hardening", §3.6.5). ReL is the
- * lowest stress on the plateau after the first local minimum (the initial transient ignored, §3.10.2.2)
- * when the plateau goes on past it, else that minimum.
- * Units: strain fraction (toe-compensated), stress MPa. @returns null for continuous yielding.
+ * - The elastic rise ends at the first of two samples in a row lying more than 4σ̂ (and 0.5 %) below the
+ *   elastic line σ = E(e − e0); the peak q is the last sample before it still within 2σ̂ of the line.
+ * - ReH is the value at q of a least-squares line through the rising samples above half the peak stress
+ *   (noise of the estimate about σ̂·2/√k for k samples, not the noise of one sample).
+ * - The plateau level is the median stress over 0.3 % strain after the departure. A yield drop is
+ *   reported only when ReH − level > max(1.5 % of ReH, 4 standard errors of that difference).
+ *   A continuous curve has level ≥ the curve at the knee and never passes.
+ * - ReL (ISO 6892-1 §3.10.2.2: the lowest stress during plastic yielding, the initial transient
+ *   ignored) is the lowest value of a moving average (window chosen from σ̂ so its noise is about 0.15 %
+ *   of the level, at most a sixth of the plateau) from where the average first reaches the plateau level
+ *   to the end of the plateau. The plateau ends at the last averaged point within max(3 noise sd of the
+ *   average, 1 %) of the level before Rm; Ae ends where the level meets a line fitted to the first 0.5 %
+ *   strain of the hardening branch (the ASTM E8 construction for YPE, from memory).
+ * Units: strain fraction (toe-compensated by `toe`), stress MPa; σ̂ = `noise` in MPa. `maxIndex`: the
+ * last index to look at (fracture); the plateau ends before the highest stress after the departure.
+ * Cost: O(n). @returns null for continuous yielding.
  */
 export function yieldPoint(
   strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, fromIndex: number, maxIndex: number, noise: number,
 ): YieldPointResult | null {
-  let peak = -1;
-  for (let i = Math.max(1, fromIndex); i < maxIndex; i++) {
-    const s = stress[i]!;
-    if (!(s >= stress[i - 1]! && s > stress[i + 1]!)) continue;
-    const plastic = strain[i]! - toe - s / E;
-    if (plastic > 0.005) break;
-    const tol = Math.max(0.005 * s, 6 * noise);
-    let fell = false;
-    for (let j = i + 1; j <= maxIndex; j++) {
-      if (stress[j]! > s) break;
-      if (stress[j]! < s - tol) { fell = true; break; }
-    }
-    if (fell) { peak = i; break; }
+  const Y = YIELD_DROP;
+  const lineAt = (i: number) => E * (strain[i]! - toe);
+  // Departure from the elastic line.
+  let d = -1;
+  for (let i = Math.max(1, fromIndex); i < maxIndex - 1; i++) {
+    const tol = (k: number) => Math.max(Y.departSigmas * noise, 0.005 * lineAt(k));
+    if (stress[i]! < lineAt(i) - tol(i) && stress[i + 1]! < lineAt(i + 1) - tol(i + 1)) { d = i; break; }
   }
-  if (peak < 0) return null;
-  const reh = stress[peak]!;
-  // First local minimum after the peak (the end of the initial transient).
-  let m1 = peak + 1;
-  while (m1 + 1 <= maxIndex && stress[m1 + 1]! <= stress[m1]!) m1++;
-  // Plateau level: median stress over 0.2 % strain after that minimum (at least 3 points).
-  const lv: number[] = [];
-  for (let k = m1; k <= maxIndex && (lv.length < 3 || strain[k]! - strain[m1]! < 0.002); k++) lv.push(stress[k]!);
-  lv.sort((a, b) => a - b);
-  const level = lv[Math.floor(lv.length / 2)]!;
-  const band = Math.max(4 * noise, 0.005 * level);
-  // End of the plateau: the last point at or below level + band before Rm.
-  let end = m1;
-  for (let k = m1; k <= maxIndex; k++) if (stress[k]! <= level + band) end = k;
-  // Ae ends where work hardening starts: the intersection of the mean plateau level with a straight line
-  // fitted to the first 0.5 % strain of the hardening branch (the construction of ASTM E8 for YPE).
+  if (d < 1) return null;
+  // Maximum force after the departure (ISO 6892-1: Fm after work hardening begins) bounds the plateau.
+  let top = d;
+  for (let i = d + 1; i <= maxIndex; i++) if (stress[i]! > stress[top]!) top = i;
+  maxIndex = top;
+  // The peak: the highest sample from the elastic band to the departure (still on the elastic line).
+  let q = Math.max(fromIndex, d - 1);
+  for (let i = Math.max(fromIndex, 0); i < d; i++) if (stress[i]! > stress[q]!) q = i;
+  if (strain[q]! - toe - stress[q]! / E > Y.maxPeakPlastic) return null;
+  // ReH from a line through the rising samples above half the peak stress, read at the peak.
+  let k0 = q;
+  while (k0 > fromIndex && stress[k0 - 1]! >= 0.5 * stress[q]! && stress[k0 - 1]! < stress[k0]! + 3 * noise) k0--;
+  let reh = stress[q]!;
+  let seReh = noise;
+  if (q - k0 + 1 >= 3) {
+    try {
+      const f = linearFit(strain, stress, k0, q + 1);
+      const v = f.intercept + f.slope * strain[q]!;
+      // Only a peak on the line: a sample already bending away is read as it is.
+      if (Math.abs(v - stress[q]!) <= 3 * noise + 0.002 * v) { reh = v; seReh = noise * Math.sqrt(4 / (q - k0 + 1)); }
+    } catch { /* keep the sample */ }
+  }
+  // Plateau level after the departure.
+  let pEnd = d;
+  while (pEnd < maxIndex && (strain[pEnd]! - strain[d]! < Y.plateauStrain || pEnd - d < 5)) pEnd++;
+  const nLevel = pEnd - d;
+  if (nLevel < 3) return null;
+  const lv = Float64Array.from({ length: nLevel }, (_, k) => stress[d + k]!).sort();
+  const level = lv[nLevel >> 1]!;
+  const seDiff = Math.sqrt(seReh * seReh + (1.57 * noise * noise) / nLevel);
+  const threshold = Math.max(Y.minRelDrop * reh, Y.sigmas * seDiff);
+  const drop = reh - level;
+  if (!(drop > threshold)) return null;
+  // Smoothed plateau from the departure to maximum force.
+  const to = Math.max(d + 1, maxIndex + 1);
+  const wNoise = Math.ceil(((noise / (0.0015 * level)) ** 2));
+  // Rough plateau length for the cap: points until the raw stress first passes level + 5 %.
+  let rough = d;
+  while (rough < maxIndex && stress[rough]! < 1.05 * level) rough++;
+  const w = Math.max(1, Math.min(wNoise, Math.floor((rough - d) / 6))) | 1;
+  const ma = movingAverage(stress, d, to, w);
+  const band = Math.max((3 * noise) / Math.sqrt(w), 0.01 * level);
+  let s0 = 0;
+  while (s0 < ma.length - 1 && ma[s0]! > level + band) s0++;
+  let endRel = s0;
+  for (let k = s0; k < ma.length; k++) if (ma[k]! <= level + band) endRel = k;
+  const end = d + endRel;
+  let rel = Infinity;
+  const from = Math.min(s0 + (w >> 1), endRel);
+  for (let k = from; k <= Math.max(from, endRel - (w >> 1)); k++) rel = Math.min(rel, ma[k]!);
+  if (!Number.isFinite(rel)) rel = level;
+  // Ae ends where work hardening starts: plateau mean level meets a line through the first 0.5 % strain of hardening.
   let endStrain = strain[end]!;
   {
+    let mean = 0;
+    for (let k = s0; k <= endRel; k++) mean += ma[k]!;
+    mean /= endRel - s0 + 1;
     let j = end;
     while (j < maxIndex && strain[j]! - strain[end]! < 0.005) j++;
-    let mean = 0, cnt = 0;
-    for (let k = m1; k <= end; k++) { mean += stress[k]!; cnt++; }
-    mean /= cnt;
     if (j - end >= 3) {
       try {
         const h = linearFit(strain, stress, end, j + 1);
         const x = (mean - h.intercept) / h.slope;
-        if (h.slope > 0 && x >= strain[m1]! && x <= strain[j]!) endStrain = x;
+        if (h.slope > 0 && x >= strain[d]! && x <= strain[j]!) endStrain = x;
       } catch { /* keep the last plateau point */ }
     }
   }
-  let rel = stress[m1]!;
-  if (end > m1 + 1) {
-    rel = Infinity;
-    for (let k = m1 + 1; k <= end; k++) rel = Math.min(rel, stress[k]!);
-  }
-  return { upperYield: reh, lowerYield: Math.min(rel, reh), peakIndex: peak, endIndex: end, elongationPct: (endStrain - strain[peak]!) * 100 };
+  return { upperYield: reh, lowerYield: Math.min(rel, reh), peakIndex: q, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
 }

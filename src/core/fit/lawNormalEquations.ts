@@ -1,0 +1,168 @@
+import type { LawName } from '../flow/types.js';
+import type { NormalProblem } from './levenbergMarquardt.js';
+
+/**
+ * One point of a law: writes ∂σ/∂p into `gr` and returns σ. `lx` is ln x (used by the laws that
+ * need it). Formulas as in {@link lawJacobian}; NaN or ±Infinity outside the law's domain.
+ */
+type PointFn = (x: number, lx: number, p: Float64Array, gr: Float64Array) => number;
+
+const POINT: Record<LawName, PointFn> = {
+  hollomon: (_x, lx, p, gr) => {
+    const P = Math.exp(p[1]! * lx), s = p[0]! * P;
+    gr[0] = P; gr[1] = s * lx;
+    return s;
+  },
+  ludwik: (_x, lx, p, gr) => {
+    const P = Math.exp(p[2]! * lx), kp = p[1]! * P;
+    gr[0] = 1; gr[1] = P; gr[2] = kp * lx;
+    return p[0]! + kp;
+  },
+  swift: (x, _lx, p, gr) => swiftAt(x, p, 0, 1, gr, 0),
+  voce: (x, _lx, p, gr) => voceAt(x, p, 0, 1, gr, 0),
+  hockettSherby: (_x, lx, p, gr) => {
+    const sat = p[0]!, s0 = p[1]!, a = p[2]!;
+    const d = sat - s0, X = Math.exp(p[3]! * lx), E = Math.exp(-a * X), dE = d * E;
+    gr[0] = 1 - E; gr[1] = E; gr[2] = dE * X; gr[3] = dE * a * X * lx;
+    return d > 0 ? sat - dE : NaN;
+  },
+  swiftVoce: (x, _lx, p, gr) => {
+    const al = p[0]!;
+    const S = swiftAt(x, p, 1, al, gr, 1);
+    const V = voceAt(x, p, 4, 1 - al, gr, 4);
+    gr[0] = S - V;
+    return al * S + (1 - al) * V;
+  },
+};
+
+/** Swift K(ε0 + x)ⁿ at parameters p[o..o+2]; gradient scaled by `c` into gr[at..at+2]; returns the unscaled stress. */
+function swiftAt(x: number, p: Float64Array, o: number, c: number, gr: Float64Array, at: number): number {
+  const K = p[o]!, k = p[o + 2]!;
+  const u = p[o + 1]! + x, lu = Math.log(u), P = Math.exp(k * lu), s = K * P;
+  gr[at] = c * P; gr[at + 1] = (c * k * s) / u; gr[at + 2] = c * s * lu;
+  return s;
+}
+
+/** Voce σ0 + Q(1 − e^(−bx)) at parameters p[o..o+2]; gradient scaled by `c` into gr[at..at+2]. */
+function voceAt(x: number, p: Float64Array, o: number, c: number, gr: Float64Array, at: number): number {
+  const Q = p[o + 1]!, b = p[o + 2]!;
+  const E = Math.exp(-b * x), om = -Math.expm1(-b * x);
+  gr[at] = c; gr[at + 1] = c * om; gr[at + 2] = c * Q * x * E;
+  return p[o]! + Q * om;
+}
+
+/** Data of a weighted law fit: strains x > 0, stresses y, optional weights w (counts of averaged points). */
+export interface LawData {
+  x: Float64Array;
+  y: Float64Array;
+  /** Weight of each point; null for 1 each. */
+  w: Float64Array | null;
+  /** ln x, computed once. */
+  lx: Float64Array;
+  /** Smallest and largest x. */
+  lo: number;
+  hi: number;
+  /** Index of the first point whose x or y is not finite and > 0, or -1 (fitLaw refuses such data). */
+  bad: number;
+  /** Block averages of these data for a given block size, made once (see fitLaw). */
+  blocks?: { size: number; data: LawData };
+}
+
+/** Packs strain/stress (and weights) for {@link lawNormalProblem}; ln x is computed once here. */
+export function lawData(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Array | null = null): LawData {
+  return packed(x, y, w);
+}
+
+function packed(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Array | null): LawData {
+  const xs = x instanceof Float64Array ? x : Float64Array.from(x as ArrayLike<number>);
+  const ys = y instanceof Float64Array ? y : Float64Array.from(y as ArrayLike<number>);
+  const lx = new Float64Array(xs.length);
+  let lo = Infinity, hi = -Infinity, bad = -1;
+  for (let i = 0; i < xs.length; i++) {
+    const e = xs[i]!, s = ys[i]!;
+    if (bad < 0 && (!(e > 0) || !(e < Infinity) || !(s > 0) || !(s < Infinity))) bad = i;
+    if (e < lo) lo = e;
+    if (e > hi) hi = e;
+    lx[i] = Math.log(e);
+  }
+  return { x: xs, y: ys, w, lx, lo, hi, bad };
+}
+
+/**
+ * The least-squares problem of fitting `law` to weighted data, for {@link levenbergMarquardtNormal}:
+ * S(p) = Σ wᵢ(σ(xᵢ; p) − yᵢ)², and JᵀWJ, JᵀWr built in ONE fused pass per call (each point's
+ * analytic gradient goes straight into the m×m sums; no n×m Jacobian is stored). Parameters outside
+ * `lower`…`upper` or a non-finite stress give Infinity (the step is rejected, never NaN).
+ * Formulas: see {@link lawJacobian} (the same derivatives, checked against central differences).
+ * Source of the normal-equation form: Å. Björck, *Numerical Methods for Least Squares Problems*
+ * (SIAM 1996) §2.1 (from memory). Units: strain true plastic, stress MPa.
+ * @example levenbergMarquardtNormal(lawNormalProblem('voce', lawData(x, y), lower, upper), start, { lower, upper })
+ */
+export function lawNormalProblem(law: LawName, d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
+  const pt = POINT[law];
+  const m = lower.length;
+  const gr = new Float64Array(m);
+  const { x, y, w, lx } = d;
+  const n = x.length;
+  const inBox = (p: Float64Array) => {
+    for (let j = 0; j < m; j++) if (!(p[j]! >= lower[j]! && p[j]! <= upper[j]!)) return false;
+    return true;
+  };
+  return {
+    m,
+    cost(p) {
+      if (!inBox(p)) return Infinity;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const r = pt(x[i]!, lx[i]!, p, gr) - y[i]!;
+        s += w ? w[i]! * r * r : r * r;
+      }
+      return Number.isFinite(s) ? s : Infinity;
+    },
+    normal(p, A, g) {
+      A.fill(0);
+      g.fill(0);
+      if (!inBox(p)) return Infinity;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const r = pt(x[i]!, lx[i]!, p, gr) - y[i]!;
+        const wi = w ? w[i]! : 1;
+        s += wi * r * r;
+        for (let a = 0; a < m; a++) {
+          const ga = wi * gr[a]!;
+          g[a] = g[a]! + ga * r;
+          const row = a * m;
+          for (let b = 0; b <= a; b++) A[row + b] = A[row + b]! + ga * gr[b]!;
+        }
+      }
+      for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) A[b * m + a] = A[a * m + b]!;
+      return Number.isFinite(s) ? s : Infinity;
+    },
+  };
+}
+
+/**
+ * The fitted law on the full curve in one pass: residuals (model − data), SSR, SST, and the lag-1
+ * sum Σ rᵢrᵢ₋₁ (for the residuals' autocorrelation). Units MPa, MPa².
+ */
+export function lawResidualPass(law: LawName, d: LawData, p: Float64Array): { residuals: number[]; ssr: number; sst: number; lag1: number; ok: boolean } {
+  const pt = POINT[law];
+  const gr = new Float64Array(p.length);
+  const { x, y, lx } = d;
+  const n = x.length;
+  const residuals = new Array<number>(n);
+  let my = 0;
+  for (let i = 0; i < n; i++) my += y[i]!;
+  my /= n;
+  let ssr = 0, sst = 0, lag1 = 0, prev = 0;
+  for (let i = 0; i < n; i++) {
+    const r = pt(x[i]!, lx[i]!, p, gr) - y[i]!;
+    residuals[i] = r;
+    ssr += r * r;
+    if (i > 0) lag1 += r * prev;
+    prev = r;
+    const dy = y[i]! - my;
+    sst += dy * dy;
+  }
+  return { residuals, ssr, sst, lag1, ok: Number.isFinite(ssr) };
+}

@@ -1,0 +1,115 @@
+import { movingAverage } from './localFit.js';
+
+/** Where the maximum of force is and how it was read. */
+export interface ForceMaximum {
+  /** Rm: the maximum of the local least-squares parabola, MPa. */
+  stress: number;
+  /** Engineering strain (as recorded, toe not removed) where Ag is read: the vertex, or the middle of a top flat within the noise. */
+  strain: number;
+  /** Sample nearest to that strain. */
+  index: number;
+  /** Samples in the parabola fit and its strain span. */
+  points: number;
+  span: [number, number];
+  /** True when the top is flat within the noise, so Ag is read at the middle of the flat part. */
+  flat: boolean;
+}
+
+/**
+ * Maximum force from a local smooth fit around the top, not the highest raw sample (the highest of
+ * many noisy samples is biased high by 2–3 noise standard deviations).
+ *
+ * A centred moving average (window n/200, 5 to 2001 samples) finds the top; the samples whose average
+ * lies within max(2σ̂, 0.1 % of the top) of it, contiguous around it (at least 7), get a least-squares
+ * parabola; Rm is the parabola's maximum on that span. Ag is read at the middle of the part of the span
+ * where the parabola lies within 2σ̂/√m of Rm (m samples in the fit): for a curved top that is the
+ * vertex; where the top is flat within the noise it is the middle of the flat part (ASTM E8/E8M
+ * practice for flat tops, from memory). ISO 6892-1 §3.10.1: for a record with a yield drop, Fm is the
+ * highest force after work hardening begins — the caller passes `from` after the yield plateau.
+ * Units: strain fraction, stress MPa, σ̂ = `noise` MPa. Valid: `to − from` ≥ 3. Cost: O(to − from).
+ * @example forceMaximum([0, 1, 2, 3, 4], [0, 3, 4, 3, 0], 0, 0, 5).stress // 4.0
+ */
+export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number>, noise: number, from: number, to: number): ForceMaximum {
+  const n = to - from;
+  let w = Math.max(5, Math.min(20001, Math.round(n / 50))) | 1;
+  if (w > n) w = Math.max(1, n) | 1;
+  const ma = movingAverage(stress, from, to, w);
+  let j = 0;
+  for (let k = 1; k < n; k++) if (ma[k]! > ma[j]!) j = k;
+  const delta = Math.max((3 * noise) / Math.sqrt(w), 0.01 * Math.abs(ma[j]!));
+  // Outermost samples whose average is within delta of the top (a contiguous scan would stop at the first
+  // noise dip of the average).
+  let a = 0, b = n - 1;
+  while (a < j && ma[a]! < ma[j]! - delta) a++;
+  while (b > j && ma[b]! < ma[j]! - delta) b--;
+  // The averaging window blunts the top by about w/2 samples on each side: widen by that.
+  a = Math.max(0, a - (w >> 2)); b = Math.min(n - 1, b + (w >> 2));
+  while (b - a + 1 < 9 && (a > 0 || b < n - 1)) { if (a > 0) a--; if (b < n - 1) b++; }
+  const i0 = from + a, i1 = from + b + 1;
+  const xa = strain[i0]!, xb = strain[i1 - 1]!;
+  // Two half-parabolas joined at the vertex xv: s = Rm − aL(x − xv)² left of it, Rm − aR(x − xv)² right of it.
+  // For a fixed xv the model is linear in (Rm, aL, aR); xv minimises the residual sum (grid, then golden section).
+  const h = Math.max(xb - xa, 1e-300);
+  const solve = (xv: number) => {
+    // Columns: 1, −u² (left), −u² (right), u³ (left): a cubic term lets the long hardening side bend.
+    const S = [0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0], T = [0, 0, 0, 0];
+    let tt = 0;
+    for (let i = i0; i < i1; i++) {
+      const u = (strain[i]! - xv) / h, y = stress[i]!;
+      const c1 = u < 0 ? -u * u : 0, c2 = u < 0 ? 0 : -u * u, c3 = u < 0 ? u * u * u : 0;
+      const col = [1, c1, c2, c3];
+      for (let r = 0; r < 4; r++) { T[r]! += col[r]! * y; for (let c = r; c < 4; c++) S[r * 4 + c]! += col[r]! * col[c]!; }
+      tt += y * y;
+    }
+    const idx = [0, 1, 2, 3].filter((k) => k === 0 || S[k * 4 + k]! > 0);
+    if (idx.includes(3) && idx.filter((k) => k === 1 || k === 3).length < 2) idx.splice(idx.indexOf(3), 1);
+    const M = idx.map((r) => [...idx.map((c) => S[Math.min(r, c) * 4 + Math.max(r, c)]!), T[r]!]);
+    const m = M.length;
+    for (let c = 0; c < m; c++) {
+      let piv = c;
+      for (let r = c + 1; r < m; r++) if (Math.abs(M[r]![c]!) > Math.abs(M[piv]![c]!)) piv = r;
+      [M[c], M[piv]] = [M[piv]!, M[c]!];
+      if (!(Math.abs(M[c]![c]!) > 1e-12 * Math.abs(M[0]![0]!) * 1e-6)) return null;
+      for (let r = 0; r < m; r++) {
+        if (r === c) continue;
+        const f = M[r]![c]! / M[c]![c]!;
+        for (let k = c; k <= m; k++) M[r]![k]! -= f * M[c]![k]!;
+      }
+    }
+    const coef = [0, 0, 0, 0];
+    idx.forEach((k, r) => { coef[k] = M[r]![m]! / M[r]![r]!; });
+    let ssr = tt;
+    for (let k = 0; k < 4; k++) ssr -= coef[k]! * T[k]!;
+    return { Rm: coef[0]!, aL: coef[1]!, aR: coef[2]!, ssr };
+  };
+  let bestX = strain[from + j]!, bestF = solve(bestX);
+  const G = 48;
+  for (let g = 0; g <= G; g++) {
+    const xv = xa + ((xb - xa) * g) / G;
+    const f = solve(xv);
+    if (f && (!bestF || f.ssr < bestF.ssr)) { bestF = f; bestX = xv; }
+  }
+  let lo = Math.max(xa, bestX - (xb - xa) / G), hi = Math.min(xb, bestX + (xb - xa) / G);
+  const gr = (Math.sqrt(5) - 1) / 2;
+  for (let k = 0; k < 30 && hi - lo > 1e-12; k++) {
+    const x1 = hi - gr * (hi - lo), x2 = lo + gr * (hi - lo);
+    const f1 = solve(x1), f2 = solve(x2);
+    if (!f1 || !f2) break;
+    if (f1.ssr < f2.ssr) hi = x2; else lo = x1;
+  }
+  const xm = 0.5 * (lo + hi);
+  const fm = solve(xm);
+  if (fm && bestF && fm.ssr <= bestF.ssr) { bestF = fm; bestX = xm; }
+  let best = from + j;
+  if (!bestF) return { stress: ma[j]!, strain: strain[best]!, index: best, points: i1 - i0, span: [xa, xb], flat: false };
+  // Flat top: neither side falls by more than the fit's noise over the span.
+  const fallL = bestF.aL * ((bestX - xa) / h) ** 2, fallR = bestF.aR * ((xb - bestX) / h) ** 2;
+  const tolFit = (4 * noise) / Math.sqrt(i1 - i0);
+  const flat = !(fallL > tolFit) && !(fallR > tolFit);
+  const xAg = flat ? 0.5 * (xa + xb) : bestX;
+  const topStress = bestF.Rm;
+  // Nearest sample (strain rises through the top; scan the span).
+  let bd = Infinity;
+  for (let i = i0; i < i1; i++) { const dd = Math.abs(strain[i]! - xAg); if (dd < bd) { bd = dd; best = i; } }
+  return { stress: topStress, strain: xAg, index: best, points: i1 - i0, span: [xa, xb], flat };
+}

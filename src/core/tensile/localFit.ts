@@ -1,0 +1,131 @@
+/**
+ * Least-squares parabola y = c0 + c1·u + c2·u² in the centred, scaled variable u = (x − x̄)/h over
+ * indices [from, to), by the normal equations of the three monomials (Draper & Smith, *Applied
+ * Regression Analysis*, ch. 5; centring and scaling keep them well conditioned). Written here because
+ * it is one 3×3 solve in one pass over typed arrays, with no allocation per point.
+ * Units: those of x and y. Valid: at least 3 points with distinct x.
+ * @returns null when the system is singular.
+ * @example quadraticFit([0, 1, 2, 3], [0, 1, 4, 9], 0, 4)!.at(2) // 4
+ */
+export function quadraticFit(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number): QuadraticFit | null {
+  const n = to - from;
+  if (n < 3) return null;
+  let xm = 0;
+  for (let i = from; i < to; i++) xm += x[i]!;
+  xm /= n;
+  let h = 0;
+  for (let i = from; i < to; i++) h = Math.max(h, Math.abs(x[i]! - xm));
+  if (!(h > 0)) return null;
+  let s1 = 0, s2 = 0, s3 = 0, s4 = 0, t0 = 0, t1 = 0, t2 = 0;
+  for (let i = from; i < to; i++) {
+    const u = (x[i]! - xm) / h, u2 = u * u, v = y[i]!;
+    s1 += u; s2 += u2; s3 += u2 * u; s4 += u2 * u2;
+    t0 += v; t1 += v * u; t2 += v * u2;
+  }
+  // Solve [[n s1 s2][s1 s2 s3][s2 s3 s4]] c = t by Cramer's rule.
+  const det = n * (s2 * s4 - s3 * s3) - s1 * (s1 * s4 - s3 * s2) + s2 * (s1 * s3 - s2 * s2);
+  if (!(Math.abs(det) > 1e-12 * n * n * n)) return null;
+  const c0 = (t0 * (s2 * s4 - s3 * s3) - s1 * (t1 * s4 - s3 * t2) + s2 * (t1 * s3 - s2 * t2)) / det;
+  const c1 = (n * (t1 * s4 - t2 * s3) - t0 * (s1 * s4 - s3 * s2) + s2 * (s1 * t2 - t1 * s2)) / det;
+  const c2 = (n * (s2 * t2 - s3 * t1) - s1 * (s1 * t2 - s2 * t1) + t0 * (s1 * s3 - s2 * s2)) / det;
+  let ssr = 0;
+  for (let i = from; i < to; i++) {
+    const u = (x[i]! - xm) / h;
+    const r = y[i]! - (c0 + c1 * u + c2 * u * u);
+    ssr += r * r;
+  }
+  return new QuadraticFit(c0, c1, c2, xm, h, n, ssr);
+}
+
+export class QuadraticFit {
+  constructor(readonly c0: number, readonly c1: number, readonly c2: number, readonly xm: number, readonly h: number, readonly n: number, readonly ssr: number) {}
+  at(x: number): number {
+    const u = (x - this.xm) / this.h;
+    return this.c0 + this.c1 * u + this.c2 * u * u;
+  }
+  /** x of the vertex, or null for a straight line. */
+  vertex(): number | null {
+    return this.c2 !== 0 ? this.xm - (this.h * this.c1) / (2 * this.c2) : null;
+  }
+}
+
+/**
+ * Centred moving average of y over [from, to) with an odd window w (shrinking at the ends), one pass
+ * with a running sum. Units: those of y.
+ * @example movingAverage([1, 2, 3, 4, 5], 0, 5, 3) // Float64Array [1.5, 2, 3, 4, 4.5]
+ */
+export function movingAverage(y: ArrayLike<number>, from: number, to: number, w: number): Float64Array {
+  const n = to - from;
+  const out = new Float64Array(Math.max(0, n));
+  const half = Math.max(0, (w - 1) >> 1);
+  let lo = 0, hi = -1, sum = 0;
+  for (let i = 0; i < n; i++) {
+    const a = Math.max(0, i - half), b = Math.min(n - 1, i + half);
+    while (hi < b) sum += y[from + ++hi]!;
+    while (lo < a) sum -= y[from + lo++]!;
+    out[i] = sum / (hi - lo + 1);
+  }
+  return out;
+}
+
+/**
+ * Least-squares polynomial of degree `deg` (1–3) in u = (x − x̄)/h over [from, to), by the normal
+ * equations solved with partial pivoting (Draper & Smith, *Applied Regression Analysis*, ch. 5; centring
+ * and scaling keep a cubic's 4×4 system well conditioned). Written here: one pass, no allocation per point.
+ * @returns the coefficients c[0..deg] in u, x̄ and h, or null when singular or fewer than deg + 2 points.
+ * @example polynomialFit([0, 1, 2, 3, 4], [0, 1, 8, 27, 64], 0, 5, 3)!.at(2) // 8
+ */
+export function polynomialFit(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, deg: number): PolyFit | null {
+  const n = to - from, m = deg + 1;
+  if (n < deg + 2) return null;
+  let xm = 0;
+  for (let i = from; i < to; i++) xm += x[i]!;
+  xm /= n;
+  let h = 0;
+  for (let i = from; i < to; i++) h = Math.max(h, Math.abs(x[i]! - xm));
+  if (!(h > 0)) return null;
+  const S = new Float64Array(2 * m - 1), T = new Float64Array(m);
+  for (let i = from; i < to; i++) {
+    const u = (x[i]! - xm) / h, v = y[i]!;
+    let p = 1;
+    for (let k = 0; k < 2 * m - 1; k++) { S[k]! += p; if (k < m) T[k]! += v * p; p *= u; }
+  }
+  const A: number[][] = [];
+  for (let r = 0; r < m; r++) { const row: number[] = []; for (let c = 0; c < m; c++) row.push(S[r + c]!); row.push(T[r]!); A.push(row); }
+  for (let c = 0; c < m; c++) {
+    let piv = c;
+    for (let r = c + 1; r < m; r++) if (Math.abs(A[r]![c]!) > Math.abs(A[piv]![c]!)) piv = r;
+    if (!(Math.abs(A[piv]![c]!) > 1e-12 * n)) return null;
+    [A[c], A[piv]] = [A[piv]!, A[c]!];
+    for (let r = 0; r < m; r++) {
+      if (r === c) continue;
+      const f = A[r]![c]! / A[c]![c]!;
+      for (let k = c; k <= m; k++) A[r]![k]! -= f * A[c]![k]!;
+    }
+  }
+  const c = A.map((row, r) => row[m]! / row[r]!);
+  return new PolyFit(c, xm, h);
+}
+
+export class PolyFit {
+  constructor(readonly c: readonly number[], readonly xm: number, readonly h: number) {}
+  at(x: number): number {
+    const u = (x - this.xm) / this.h;
+    let v = 0;
+    for (let k = this.c.length - 1; k >= 0; k--) v = v * u + this.c[k]!;
+    return v;
+  }
+  /** Largest value on [xa, xb] and where: end points and the roots of the derivative inside. */
+  maxOn(xa: number, xb: number): { x: number; y: number } {
+    const cand = [xa, xb];
+    const [, c1 = 0, c2 = 0, c3 = 0] = this.c;
+    // derivative in u: c1 + 2c2 u + 3c3 u²
+    if (Math.abs(c3) > 1e-300) {
+      const A = 3 * c3, B = 2 * c2, C = c1, D = B * B - 4 * A * C;
+      if (D >= 0) { const q = -0.5 * (B + Math.sign(B || 1) * Math.sqrt(D)); cand.push(this.xm + this.h * (q / A)); if (q !== 0) cand.push(this.xm + this.h * (C / q)); }
+    } else if (Math.abs(c2) > 1e-300) cand.push(this.xm - (this.h * c1) / (2 * c2));
+    let best = { x: xa, y: this.at(xa) };
+    for (const x of cand) if (x >= xa && x <= xb) { const y = this.at(x); if (y > best.y) best = { x, y }; }
+    return best;
+  }
+}

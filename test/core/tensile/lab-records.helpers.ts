@@ -1,0 +1,35 @@
+import { makeLaw, xoshiro128ss, type LabRecordSpec, type LawSpec } from '../../../src/core/index.js';
+
+// Moduli of handbook magnitude (Callister, Table B.2: steels 207 GPa, Al 69–72 GPa, Cu 115 GPa).
+const MODULI = [69000, 115000, 193000, 207000];
+
+export interface Case { seed: number; spec: Omit<LabRecordSpec, 'rng'>; what: string }
+
+/** Case `seed`: law, modulus, points, noise, toe and yield drop drawn from a seeded stream of their own. */
+export function labCase(seed: number): Case {
+  const r = xoshiro128ss(seed, 7);
+  const u = (a: number, b: number) => a + (b - a) * r.nextFloat();
+  const E = MODULI[seed % MODULI.length]!;
+  const sy = u(120, 600) * (E / 200000) ** 0.5;
+  let law: LawSpec;
+  switch (Math.floor(seed / MODULI.length) % 4) {
+    case 0: law = { law: 'swift', K: sy / 0.01 ** 0.2 * u(0.9, 1.1), eps0: u(0.003, 0.02), n: u(0.12, 0.35) }; break;
+    case 1: law = { law: 'voce', sigma0: sy, Q: sy * u(0.4, 1.2), b: u(8, 25) }; break;
+    case 2: law = { law: 'ludwik', sigma0: sy, K: sy * u(1, 3), n: u(0.3, 0.6) }; break;
+    default: law = { law: 'hockettSherby', sigma0: sy, sigmaSat: sy * u(1.5, 2.5), a: u(3, 10), p: u(0.6, 0.9) };
+  }
+  const L = makeLaw(law);
+  const eu = L.uniformStrain();
+  const Rm = L.stress(eu) / Math.exp(eu + L.stress(eu) / E);
+  const big = seed % 50 === 7;
+  const points = big ? 100000 : Math.round(1000 * 10 ** u(0, 1));
+  const noise = Rm * u(0.001, 0.01);
+  const toe = seed % 3 === 1 ? (u(0.05, 0.25) * sy) / E : 0;
+  const drop = seed % 3 === 2 && eu > 0.08 ? { drop: u(0.03, 0.1), luedersStrain: u(0.005, Math.min(0.03, eu / 3)), serration: u(0, 0.005) } : undefined;
+  return {
+    seed,
+    spec: { law, elasticModulus: E, points, noise, toe, ...(drop ? { yieldDrop: drop } : {}) },
+    what: `seed ${seed}: ${JSON.stringify(law)}, E ${E}, ${points} points, noise ${(noise / Rm * 100).toFixed(2)} % Rm, toe ${toe.toExponential(1)}${drop ? `, drop ${(drop.drop * 100).toFixed(1)} % Lüders ${(drop.luedersStrain * 100).toFixed(2)} %` : ''}`,
+  };
+}
+

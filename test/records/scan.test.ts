@@ -1,0 +1,120 @@
+// The fast row scanner (src/records/scan.ts) against an independent CSV parser from the registry
+// (udsv 0.7.3, npm), and against the located reader for what it must refuse.
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import fc from 'fast-check';
+import { initParser } from 'udsv';
+import { describe, expect, it } from 'vitest';
+import { PlanError } from '../../src/plan/problems.js';
+import { parseRecordText } from '../../src/records/index.js';
+import { readRecordFile } from '../../src/records/node.js';
+
+/** Reference: udsv splits the rows; Number() reads the cells (decimal comma replaced). */
+function reference(text: string, delimiter: string, skip: number, decimalComma: boolean, cols: [number, number], width: number): [number[], number[]] {
+  const body = text.split('\n').slice(skip).join('\n');
+  // udsv needs the column list (with none it does not return).
+  const schema = { col: delimiter, row: '\n', encl: '', esc: '', trim: true, cols: Array.from({ length: width }, (_, i) => ({ name: `c${i}`, type: 's' as const, repl: { empty: '', null: undefined, NaN: undefined } })) };
+  const rows = initParser(schema).stringArrs(body);
+  const xs: number[] = [], ys: number[] = [];
+  for (const r of rows) {
+    if (r.length === 1 && r[0]!.trim() === '') continue;
+    const v = (s: string) => Number(decimalComma ? s.trim().replace(',', '.') : s.trim());
+    xs.push(v(r[cols[0]]!));
+    ys.push(v(r[cols[1]]!));
+  }
+  return [xs, ys];
+}
+
+const cell = fc.oneof(
+  fc.double({ min: -1e6, max: 1e6, noNaN: true }).map((v) => String(v)),
+  fc.integer({ min: -100000, max: 100000 }).map(String),
+  fc.tuple(fc.integer({ min: 0, max: 999 }), fc.integer({ min: 0, max: 99999 })).map(([a, b]) => `${a}.${String(b).padStart(5, '0')}`),
+  fc.tuple(fc.integer({ min: 1, max: 9 }), fc.integer({ min: -12, max: 12 })).map(([a, e]) => `${a}.5e${e}`),
+  fc.integer({ min: 0, max: 999 }).map((a) => `+${a}.`),
+  fc.integer({ min: 0, max: 999 }).map((a) => `-.${a}`),
+);
+
+// Strains in % below the 500 % the reader accepts, in the same written forms.
+const strainCell = fc.oneof(
+  fc.double({ min: -1, max: 300, noNaN: true }).map((v) => String(v)),
+  fc.tuple(fc.integer({ min: 0, max: 299 }), fc.integer({ min: 0, max: 99999 })).map(([a, b]) => `${a}.${String(b).padStart(5, '0')}`),
+  fc.tuple(fc.integer({ min: 1, max: 9 }), fc.integer({ min: -12, max: 1 })).map(([a, e]) => `${a}.5E${e}`),
+  fc.integer({ min: 0, max: 99 }).map((a) => `+${a}.`),
+  fc.integer({ min: 0, max: 999 }).map((a) => `-.${a}`),
+);
+
+describe('parseRecordText through the fast scanner gives what an independent parser reads', () => {
+  it('random plain records (delimiters, decimal comma, spaces, CRLF, blank lines, extra columns): same numbers as udsv + Number()', () => {
+    let runs = 0, refused = 0;
+    fc.assert(fc.property(
+      fc.constantFrom(',', ';', '\t'), fc.boolean(), fc.boolean(), fc.integer({ min: 0, max: 2 }),
+      fc.array(fc.tuple(strainCell, cell, fc.constantFrom('', ' ', '  '), fc.boolean()), { minLength: 10, maxLength: 60 }),
+      (d, comma, crlf, extra, rows) => {
+        runs++;
+        const dc = comma && d !== ',';
+        const nl = crlf ? '\r\n' : '\n';
+        const fmt = (s: string) => (dc ? s.replace('.', ',') : s);
+        const header = ['Strain [%]', 'Stress [MPa]', ...Array.from({ length: extra }, (_, i) => `Note ${i}`)].join(d);
+        // A row of positive values first, so the layout is found the same way every time.
+        let text = header + nl + ['1', '2', ...Array.from({ length: extra }, () => '0')].join(d) + nl;
+        for (const [a, b, pad, blank] of rows) {
+          text += [pad + fmt(a) + pad, fmt(b) + pad, ...Array.from({ length: extra }, () => 'n/a')].join(d) + nl;
+          if (blank) text += nl;
+        }
+        let got;
+        try {
+          got = parseRecordText(text, { file: 'p.csv', decimal: dc ? ',' : '.', strainUnit: 'percent' });
+        } catch (e) {
+          // Only the record-level checks may refuse (e.g. every stress 0, strains beyond 500 %); never a cell.
+          expect(String((e as PlanError).message)).not.toMatch(/expected a number/);
+          refused++;
+          return;
+        }
+        const [xs, ys] = reference(text.replace(/\r\n/g, '\n'), d, 1, dc, [0, 1], 2 + extra);
+        expect(got.rows).toBe(xs.length);
+        for (let i = 0; i < xs.length; i++) {
+          expect(got.strain[i]).toBe(xs[i]! * 0.01);
+          expect(got.stress[i]).toBe(ys[i]!);
+        }
+      }), { numRuns: 200, seed: 12 });
+    expect(refused, `${refused} of ${runs} random records refused as records`).toBeLessThan(runs / 10);
+  });
+
+  it('plain decimals of 1 to 17 digits with the point anywhere read to the same double as Number() (the reference: the engine\'s own ECMAScript StringToNumber)', () => {
+    const rnd = fc.sample(fc.tuple(fc.integer({ min: 1, max: 17 }), fc.integer({ min: 0, max: 17 }), fc.boolean(), fc.array(fc.integer({ min: 0, max: 9 }), { minLength: 17, maxLength: 17 })), { numRuns: 20_000, seed: 3 });
+    const cells = rnd.map(([len, at, neg, ds]) => {
+      const digits = ds.slice(0, len).join('');
+      const p = Math.min(at, len);
+      return `${neg ? '-' : ''}${digits.slice(0, p)}.${digits.slice(p)}`.replace(/\.$/, '');
+    });
+    const text = 'strain [-],stress [MPa]\n' + cells.map((c, i) => `${(i + 1) * 1e-5},${c}`).join('\n') + '\n';
+    const r = parseRecordText(text, { file: 'd.csv' });
+    expect(r.rows).toBe(cells.length);
+    cells.forEach((c, i) => { if (r.stress[i] !== Number(c)) expect(r.stress[i], c).toBe(Number(c)); });
+  });
+
+  it('refuses what the located reader refuses, with the same located message (0x10, empty cell, Infinity, a short row)', () => {
+    const base = 'strain,stress [MPa]\n' + Array.from({ length: 12 }, (_, i) => `${i * 0.001},${i * 10}`).join('\n') + '\n';
+    for (const [bad, re] of [['0x10', /^b\.csv:14:2: .*got "0x10", expected a number$/], ['', /^b\.csv:14:2: .*got "", expected a number$/], ['Infinity', /^b\.csv:14:2: .*expected a finite number$/], [null, /^b\.csv:14:2: .*the row has 1 fields; expected 2/]] as const) {
+      const text = base + (bad === null ? '0.02\n' : `0.02,${bad}\n`);
+      let msg = '';
+      try { parseRecordText(text, { file: 'b.csv', strainUnit: 'fraction' }); } catch (e) { msg = (e as Error).message; }
+      expect(msg, String(bad)).toMatch(re);
+    }
+  });
+
+  it('readRecordFile streams across chunk boundaries (3 MB file) and gives the same arrays as parseRecordText', async () => {
+    let text = 'Record:\tINVENTED\nStrain\tStress\n%\tMPa\n';
+    for (let i = 0; i < 150_000; i++) text += `${(i * 1e-4).toFixed(6)}\t${(200 + 400 * (1 - Math.exp(-i / 4e4))).toFixed(4)}\r\n`;
+    const dir = mkdtempSync(join(tmpdir(), 'sl-scan-'));
+    const file = join(dir, 'big.tsv');
+    writeFileSync(file, text);
+    const a = await readRecordFile(file);
+    const b = parseRecordText(text, { file: 'big.tsv' });
+    expect(a.rows).toBe(150_000);
+    expect(Array.from(a.strain)).toEqual(Array.from(b.strain));
+    expect(Array.from(a.stress)).toEqual(Array.from(b.stress));
+    expect(a.stress[149_999]).toBe(Number((200 + 400 * (1 - Math.exp(-149_999 / 4e4))).toFixed(4)));
+  });
+});

@@ -1,0 +1,73 @@
+import { describe, expect, it } from 'vitest';
+import { describeColumn, parseRecordText, unitFactor } from '../../src/records/index.js';
+import { expectRelClose } from '../helpers.js';
+
+// Column names and units as lab exports write them. Factors: NIST SP 811 (2008), Appendix B.8
+// (1 lbf = 4.448222 N, 1 in = 25.4 mm exactly, 1 ksi = 6.894757 MPa); 1 µε = 1e-6 (SI prefix micro);
+// N/mm² = MPa (SI). Name patterns are common practice of testing-machine exports.
+describe('describeColumn(name) reads the unit from the usual brackets and separators', () => {
+  const cases: [string, string, string][] = [
+    ['Strain [in/in]', 'strain', 'in/in'],
+    ['Strain (mm/mm)', 'strain', 'mm/mm'],
+    ['strain_in_per_in', 'strain', 'in/in'],
+    ['Strain mm per mm', 'strain', 'mm/mm'],
+    ['Strain [µε]', 'strain', 'µε'],
+    ['Strain {%}', 'strain', '%'],
+    ['Stress [MPa]', 'stress', 'MPa'],
+    ['Stress (ksi)', 'stress', 'ksi'],
+    ['Stress <N/mm²>', 'stress', 'N/mm²'],
+    ['Stress, N/mm²', 'stress', 'N/mm²'],
+    ['Load - lbf', 'load', 'lbf'],
+    ['Force_kN', 'force', 'kN'],
+    ['Extension in', 'extension', 'in'],
+    ['Extension: mm', 'extension', 'mm'],
+  ];
+  for (const [name, base, unit] of cases) {
+    it(`describeColumn(${JSON.stringify(name)}) → base ${base}, unit ${unit}`, () => {
+      const c = describeColumn(name, 0);
+      expect(c.base).toBe(base);
+      expect(c.unit).toBe(unit);
+    });
+  }
+});
+
+describe('unitFactor(quantity, unit) for the units labs write', () => {
+  it('strain: in/in, mm/mm = 1; % = 0.01; µε (micro sign or Greek mu), ue, microstrain = 1e-6 (SI prefix)', () => {
+    for (const u of ['in/in', 'mm/mm', '[in/in]', '(mm/mm)', 'in per in', 'in./in.']) expect(unitFactor('strain', u), u).toBe(1);
+    expect(unitFactor('strain', '%')).toBe(0.01);
+    for (const u of ['µε', 'με', 'ue', 'microstrain', '[µε]']) expect(unitFactor('strain', u), u).toBe(1e-6);
+  });
+  it('stress: N/mm² = N/mm2 = MPa; ksi = 6.894757 MPa (NIST SP 811 B.8)', () => {
+    for (const u of ['N/mm²', 'N/mm2', '[MPa]', '(MPa)']) expect(unitFactor('stress', u), u).toBe(1);
+    expectRelClose(unitFactor('stress', '(ksi)')!, 6.894757, 1e-6, 'ksi');
+  });
+  it('force: lbf = 4.448222 N (NIST SP 811 B.8), kN = 1000 N; length: in = 25.4 mm', () => {
+    expectRelClose(unitFactor('force', 'lbf')!, 4.448222, 1e-6, 'lbf');
+    expect(unitFactor('force', '[kN]')).toBe(1000);
+    expect(unitFactor('length', 'in')).toBe(25.4);
+    expect(unitFactor('length', '(mm)')).toBe(1);
+  });
+});
+
+describe('parseRecordText on US-style and microstrain exports (INVENTED rows)', () => {
+  const rows = (f: (e: number, s: number) => string) => Array.from({ length: 20 }, (_, i) => f(i * 1e-4, i * 20)).join('\n');
+  it('a strain column named strain_in_per_in and stress in ksi are read (was: unit "in" is not a strain unit)', () => {
+    const text = 'time_s,strain_in_per_in,stress_ksi\n' + rows((e, s) => `${e * 10},${e},${s / 6.894757293168361}`);
+    const r = parseRecordText(text, { file: 'us.csv' });
+    expect(r.columns.strain!.name).toBe('strain_in_per_in');
+    expectRelClose(r.strain[10]!, 1e-3, 1e-12, 'strain');
+    expectRelClose(r.stress[10]!, 200, 1e-9, 'stress MPa');
+  });
+  it('strain in µε and stress in N/mm² are converted to fraction and MPa', () => {
+    const text = 'Strain [µε];Stress [N/mm²]\n' + rows((e, s) => `${e * 1e6};${s}`);
+    const r = parseRecordText(text, { file: 'micro.csv' });
+    expectRelClose(r.strain[10]!, 1e-3, 1e-12, 'strain');
+    expectRelClose(r.stress[10]!, 200, 1e-12, 'stress');
+  });
+  it('force in lbf and extension in inches with a gauge length and area convert to MPa and strain', () => {
+    const text = 'Load (lbf),Extension (in)\n' + rows((e, s) => `${(s * 20) / 4.4482216152605},${(e * 50) / 25.4}`);
+    const r = parseRecordText(text, { file: 'fe.csv', area: 20, gaugeLength: 50 });
+    expectRelClose(r.strain[10]!, 1e-3, 1e-9, 'strain');
+    expectRelClose(r.stress[10]!, 200, 1e-9, 'stress');
+  });
+});
