@@ -114,7 +114,10 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   if (fm.flat) warnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; Ag is read at the middle of the flat part (±${((fm.span[1] - fm.span[0]) * 50).toFixed(2)} points)` });
 
   const necked = !detected && stress[N - 1]! < 0.9 * Rm;
-  if (!detected && iMax >= N - Math.max(2, Math.ceil(0.01 * N))) {
+  // The test stopped before maximum force: no fracture and the top fit reaches the last samples.
+  let endMean = 0;
+  for (let i = N - 3; i < N; i++) endMean += stress[i]! / 3;
+  if (!detected && (iMax >= N - Math.max(2, Math.ceil(0.01 * N)) || (fm.span[1] >= strain[N - 1]! && endMean >= Rm - Math.max(3 * noise, 0.002 * Rm)))) {
     warnings.push({ code: 'maxAtEnd', message: 'the highest stress is at the end of the record: the test stopped before maximum force, so Rm, Ag and A are lower bounds' });
   }
   else if (!detected && !necked) warnings.push({ code: 'noFractureDrop', message: 'no sudden fall of force after Rm and no necking at the end: the last point is taken as fracture (A assumes the record ends at fracture)' });

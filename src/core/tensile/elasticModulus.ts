@@ -16,7 +16,7 @@ import type { ElasticWindow } from './types.js';
  * - `fewPoints`, `maxRelInterval`: below 8 points in the band, or a 95 % interval wider than ±10 % of E,
  *   the modulus is reported as uncertain.
  * - `toeResidual`: points of the initial rise more than this many noise standard deviations above the
- *   line are the toe (slack) and are kept out of the band.
+ *   line are the toe (slack); the band starts at twice the highest such stress.
  */
 export const ELASTIC_WINDOW = {
   band: [0.1, 0.4] as readonly [number, number],
@@ -30,6 +30,8 @@ export const ELASTIC_WINDOW = {
   fewPoints: 8,
   maxRelInterval: 0.1,
   toeResidual: 3,
+  /** The band starts at this multiple of the toe's top stress: a toe bends into the line gradually, its last points lie within the noise of the line but still pull the slope down. */
+  toeMargin: 2,
 } as const;
 
 export interface ElasticResult {
@@ -69,8 +71,8 @@ function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: numb
  *    band has a lower slope; a band of few noisy points has a large SE: neither wins.
  * 3. Rp0.2 with that line (offset construction, {@link proofStrength}).
  * 4. The final band: 10 %–40 % of that Rp0.2 (ISO 6892-1 Annex G practice, from memory), its lower end
- *    raised above the toe (points more than 3σ̂ above the line), its top raised to 50, 60, 70 % when it
- *    holds fewer than 4 points; Rp0.2 recomputed and the band refitted once if Rp0.2 moved by over 2 %.
+ *    raised to twice the top of the toe (points more than 3σ̂ above the line), its top raised to 50, 60, 70 % until it
+ *    holds 8 points (else 4); Rp0.2 recomputed and the band refitted once if Rp0.2 moved by over 2 %.
  *    When no band holds 4 points, the first line is kept (`elasticBandFallback`).
  * 5. Toe compensation (ISO 6892-1 and ASTM E8 practice): e0 = −intercept/E is subtracted from all strains.
  * The 95 % interval is E ± t(0.975, n − 2)·SE (Student t). Issues are returned, not thrown: E outside
@@ -128,14 +130,18 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     let toeTop = 0;
     const tol = W.toeResidual * Math.max(noise, 1e-9 * top);
     for (let i = 0; i < firstAt(W.band[1] * P); i++) if (stress[i]! - E1 * (strain[i]! - toe1) > tol) toeTop = Math.max(toeTop, stress[i]!);
-    const lo = Math.max(W.band[0] * P, toeTop);
+    const lo = Math.max(W.band[0] * P, W.toeMargin * toeTop);
     let chosen: { f: Line; i0: number; i1: number; hi: number } | null = null;
-    for (const frac of [W.band[1], ...W.widerTops]) {
-      const hi = Math.max(frac * P, lo + 0.1 * P);
-      const j0 = firstAt(lo), j1 = firstAt(hi);
-      if (j1 - j0 < W.minPoints) continue;
-      const f = line(strain, stress, j0, j1);
-      if (f && f.slope > 0) { chosen = { f, i0: j0, i1: j1, hi }; break; }
+    // Widen the top until the band holds `fewPoints`; only if no top does, accept `minPoints`.
+    for (const need of [W.fewPoints, W.minPoints]) {
+      for (const frac of [W.band[1], ...W.widerTops]) {
+        const hi = Math.max(frac * P, lo + 0.1 * P);
+        const j0 = firstAt(lo), j1 = firstAt(hi);
+        if (j1 - j0 < need) continue;
+        const f = line(strain, stress, j0, j1);
+        if (f && f.slope > 0) { chosen = { f, i0: j0, i1: j1, hi }; break; }
+      }
+      if (chosen) break;
     }
     if (!chosen) break;
     fallback = false;
