@@ -47,3 +47,28 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     expect(fails, fails.slice(0, 30).join('\n')).toEqual([]);
   }, 120_000);
 });
+
+describe('an impossible E is never used silently', () => {
+  // Crosshead-style strain: the machine's compliance adds extension, so the elastic slope reads far below any
+  // metal's modulus (40–450 GPa, common practice). Simulated by stretching the elastic rise 8× (INVENTED record).
+  const c = labCase(4);
+  const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(4) });
+  const strain = Float64Array.from(rec.strain, (e, i) => e + 7 * Math.min(rec.stress[i]!, rec.truth.proofStrength) / rec.truth.elasticModulus);
+  it('analyzeRecord refuses a record whose elastic band gives E outside 40–450 GPa, naming elasticModulus and the way out', () => {
+    expect(() => analyzeRecord({ strain, stress: rec.stress }, { fit: false })).toThrow(/elasticModulus.*40–450 GPa.*--modulus/s);
+  });
+  it('with the modulus given, the analysis runs and says the measured one disagrees', () => {
+    const a = analyzeRecord({ strain, stress: rec.stress }, { fit: false, elasticModulus: rec.truth.elasticModulus });
+    expect(a.elasticModulusSource).toBe('given');
+    expect(a.elasticModulus).toBe(rec.truth.elasticModulus);
+    expect(a.measuredModulus).toBeLessThan(40000);
+    expect(a.warnings.some((w) => w.code === 'modulusGiven')).toBe(true);
+  });
+  it('a record with few elastic points is analysed with a warning that names the points and the interval', () => {
+    const few = labCase(9); // 1500 points: about 8 in the elastic rise
+    const r = synthesizeLabRecord({ ...few.spec, points: 600, rng: xoshiro128ss(9) });
+    const a = analyzeRecord(r, { fit: false });
+    const w = a.warnings.find((x) => x.code === 'fewElasticPoints' || x.code === 'elasticBandFallback' || x.code === 'uncertainModulus');
+    expect(w?.message).toMatch(/points|interval/);
+  });
+});
