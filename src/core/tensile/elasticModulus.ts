@@ -23,7 +23,7 @@ export const ELASTIC_WINDOW = {
   /** Upper ends tried, in order, when the 10–40 % band holds too few points. */
   widerTops: [0.5, 0.6, 0.7] as readonly number[],
   starts: [0.02, 0.05, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.5, 0.6] as readonly number[],
-  widths: [0.1, 0.15, 0.2, 0.3, 0.4] as readonly number[],
+  widths: [0.1, 0.15, 0.2, 0.3, 0.4, 0.6, 0.8] as readonly number[],
   maxTop: 0.9,
   minPoints: 4,
   plausible: [40_000, 450_000] as readonly [number, number],
@@ -65,7 +65,7 @@ function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: numb
  * to noise, to a toe and to an elastic rise of few samples.
  *
  * 1. Noise σ̂ of the stress from the data ({@link recordNoise}).
- * 2. A first line: every band [a, a + w]·Smax (a from 0.02 to 0.6, w from 0.1 to 0.4, top ≤ 0.9·Smax)
+ * 2. A first line: every band [a, a + w]·Smax (a from 0.02 to 0.6, w from 0.1 to 0.8, top ≤ 0.9·Smax)
  *    on the first rise (points before the stress first exceeds the band's top); the band with the highest
  *    lower confidence bound E − 2·SE(E), SE from max(σ̂, residual scatter)/√Sxx, wins. A plastic or toe
  *    band has a lower slope; a band of few noisy points has a large SE: neither wins.
@@ -127,10 +127,17 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     const P = p ? p.stress : top;
     if (pass === 1 && Math.abs(P - proofEst) <= 0.02 * proofEst) break;
     proofEst = P;
-    // Toe: highest stress below the band's top lying clearly above the line.
+    // Toe: the run of samples from the start lying clearly above the line (ends at the first two in a row
+    // that do not); a single noisy sample higher up is not a toe.
     let toeTop = 0;
     const tol = W.toeResidual * Math.max(noise, 1e-9 * top);
-    for (let i = 0; i < firstAt(W.band[1] * P); i++) if (stress[i]! - E1 * (strain[i]! - toe1) > tol) toeTop = Math.max(toeTop, stress[i]!);
+    const lim = firstAt(W.band[1] * P);
+    for (let i = 0; i < lim; i++) {
+      const above = stress[i]! - E1 * (strain[i]! - toe1) > tol;
+      const nextAbove = i + 1 < lim && stress[i + 1]! - E1 * (strain[i + 1]! - toe1) > tol;
+      if (!above && !nextAbove && stress[i]! > 0) break;
+      if (above) toeTop = Math.max(toeTop, stress[i]!);
+    }
     const lo = Math.max(W.band[0] * P, W.toeMargin * toeTop);
     let chosen: { f: Line; i0: number; i1: number; hi: number } | null = null;
     // Widen the top until the band holds `fewPoints`; only if no top does, accept `minPoints`.
@@ -144,7 +151,8 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
       }
       if (chosen) break;
     }
-    if (!chosen) break;
+    // A band that reaches past the knee has a far lower slope than the first line: keep the first line then.
+    if (!chosen || chosen.f.slope < 0.5 * best.f.slope) break;
     fallback = false;
     fit = chosen.f; i0 = chosen.i0; i1 = chosen.i1; bandLo = lo; bandHi = chosen.hi;
   }
@@ -158,7 +166,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   }
   const [pLo, pHi] = W.plausible;
   if (!(E >= pLo && E <= pHi)) {
-    issues.push({ code: 'implausibleModulus', message: `E = ${(E / 1000).toFixed(1)} GPa from the elastic band is outside the range of metals (${pLo / 1000}–${pHi / 1000} GPa, common practice): the strain is probably not from an extensometer, or the record has too few elastic points; give the modulus (--modulus, or the record bench's modulus field)` });
+    issues.push({ code: 'implausibleModulus', message: `E = ${(E / 1000).toFixed(1)} GPa from the elastic band (${fit.n} points, ${bandLo.toFixed(0)}–${bandHi.toFixed(0)} MPa) is outside the range of metals (${pLo / 1000}–${pHi / 1000} GPa, common practice): the strain is probably not from an extensometer, or the record has too few elastic points; give the modulus (--modulus, or the record bench's modulus field)` });
   } else if (fit.n < W.fewPoints) {
     issues.push({ code: 'fewElasticPoints', message: `only ${fit.n} points in the elastic band; E = ${(E / 1000).toFixed(1)} GPa, 95 % interval ${(interval[0] / 1000).toFixed(1)}–${(interval[1] / 1000).toFixed(1)} GPa; give the modulus if it is known` });
   } else if ((t * se) / E > W.maxRelInterval) {
