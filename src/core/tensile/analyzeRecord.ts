@@ -76,6 +76,19 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     const { fromIndex: a, toIndex: b } = el.window;
     for (let i = a; i < b; i++) { mx += strain[i]!; my += stress[i]!; }
     toe = (mx - my / E) / (b - a);
+    if (el.issues.some((x) => x.code === 'implausibleModulus' || x.code === 'elasticBandFallback')) {
+      // The band is not elastic: take the toe from the steepest three consecutive samples of the first rise
+      // (the elastic samples, however few), e0 = mean of e − s/E over them.
+      let best = -Infinity, at = -1;
+      for (let i = 0; i + 2 < N && stress[i + 2]! < 0.98 * sMax; i++) {
+        if (stress[i]! < 0.02 * sMax) continue;
+        const de = strain[i + 2]! - strain[i]!;
+        if (!(de > 0)) continue;
+        const slope = (stress[i + 2]! - stress[i]!) / de;
+        if (slope > best) { best = slope; at = i; }
+      }
+      if (at >= 0) toe = (strain[at]! + strain[at + 1]! + strain[at + 2]! - (stress[at]! + stress[at + 1]! + stress[at + 2]!) / E) / 3;
+    }
     const [lo, hi] = el.window.interval95;
     if (!(given >= lo && given <= hi)) warnings.push({ code: 'modulusGiven', message: `the given E ${(given / 1000).toFixed(1)} GPa is outside the 95 % interval of the measured one (${(lo / 1000).toFixed(1)}–${(hi / 1000).toFixed(1)} GPa); the given E is used` });
   } else {
