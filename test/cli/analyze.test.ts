@@ -24,7 +24,14 @@ describe('strainledger analyze RECORD --format json', () => {
     // Reference: header of 46NT9B.csv, "Yield stress at 0.2% plastic strain" 1103.3 and "Ultimate tensile strength" 1192.4 MPa
     // (rounded in SOURCE.md; full values in the file); tolerances as in test/core/tensile/open-data.test.ts.
     expectRelClose(j.proofStrength, 1103.3, 3e-3, 'Rp0.2');
-    expectRelClose(j.tensileStrength, 1192.4, 1e-4, 'Rm');
+    // Rm is now read from a local fit around the top, not the highest raw sample (which the producers report and
+    // which sits 2–3 noise sd high): within 0.1 % (test/core/tensile/open-data.test.ts bounds it by the noise).
+    expectRelClose(j.tensileStrength, 1192.4, 1e-3, 'Rm');
+    expect(j.tensileStrength).toBeLessThan(1192.4);
+    expect(j.noise).toBeGreaterThan(0);
+    expect(j.elasticModulusSource).toBe('measured');
+    expect(j.measuredModulusInterval95[0]).toBeLessThan(j.elasticModulus);
+    expect(j.measuredModulusInterval95[1]).toBeGreaterThan(j.elasticModulus);
     expect(j.fits).toHaveLength(6);
     for (const f of j.fits) for (const k of ['law', 'params', 'standardErrors', 'rmse', 'r2', 'converged']) expect(f, `${f.law}.${k}`).toHaveProperty(k);
     expect(r.stdout).not.toMatch(/NaN|Infinity/);
@@ -33,6 +40,15 @@ describe('strainledger analyze RECORD --format json', () => {
     const j = JSON.parse(run('analyze', 'examples/stamping-strip-loops.csv', '--format', 'json').stdout);
     expect(j.cycles).toHaveLength(4);
     for (const c of j.cycles) for (const k of ['unloadModulus', 'permanentStrain', 'recoveredStrain', 'reloadProofStrength']) expect(Number.isFinite(c[k]), k).toBe(true);
+    // Every cycle states its basis and gives the engineering values beside the true ones (constant volume,
+    // Dowling §4.5: s = σ/exp(ε), e = exp(ε) − 1): checked here from the true values the same cycle reports.
+    for (const c of j.cycles) {
+      expect(c.basis).toBe('true');
+      const eps = c.permanentStrain + c.recoveredStrain; // true strain at the start of unloading
+      expectRelClose(c.engineering.unloadStress, c.unloadStress / Math.exp(eps), 1e-12, 'engineering unload stress');
+      expectRelClose(c.engineering.permanentStrain, Math.expm1(c.permanentStrain), 1e-12, 'engineering permanent strain');
+      expect(c.engineering.reloadProofStrength).toBeLessThan(c.reloadProofStrength);
+    }
     // The file says it was generated with Ea = 175 GPa, ξ = 25 (invented); 0.8 MPa noise → a few per cent.
     expectRelClose(j.modulusDecay.Ea, 175000, 0.03, 'Ea');
   });

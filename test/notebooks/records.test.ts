@@ -69,7 +69,10 @@ describe('record bench', () => {
     // fitted E (1 %), Ag on E and the toe (0.05 percentage points of 5.2 %, i.e. 1 %).
     expectRelClose(await num(page, 'tensileStrength'), 1198.73, 0.0001, 'Rm');
     expectRelClose(await num(page, 'proofStrength'), 1132.33, 0.01, 'Rp0.2');
-    expectRelClose(await num(page, 'uniformElongation'), 5.208, 0.01, 'Ag');
+    // Ag: the producers read it at the highest raw sample; on this flat top (within the noise over ~1.5 % strain)
+    // ours is the top of a local fit (issue 12), checked against the producers' within the fitted span in
+    // test/core/tensile/open-data.test.ts; here 0.2 point of 5.2 % (4 %). Measured 5.36 %.
+    expectRelClose(await num(page, 'uniformElongation'), 5.208, 0.04, 'Ag');
     // E depends on the fit window (a few per cent, CHECKS.md); producer's slope 201876 MPa.
     expectRelClose(await num(page, 'elasticModulus'), 201876, 0.05, 'E');
     expect(await page.locator('#fits-table tbody tr').count()).toBeGreaterThanOrEqual(5);

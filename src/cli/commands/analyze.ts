@@ -42,12 +42,18 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     nValue: a.nValue,
     K: a.K,
     fits: a.fits ? a.fits.fits.map(fit) : [],
-    cycles: a.cycles.map((c) => ({ unloadModulus: c.unloadModulus, permanentStrain: c.permanentStrain, recoveredStrain: c.recoveredStrain, reloadProofStrength: c.reloadProofStrength, unloadStress: c.unloadStress })),
+    // Cycle fields keep their names (true stress, true strain: `basis`); `engineering` gives the test-report basis.
+    cycles: a.cycles.map((c) => ({ basis: c.basis, unloadModulus: c.unloadModulus, permanentStrain: c.permanentStrain, recoveredStrain: c.recoveredStrain, reloadProofStrength: c.reloadProofStrength, unloadStress: c.unloadStress, engineering: c.engineering })),
     warnings: [...rec.warnings.map((message) => ({ code: 'import', message })), ...a.warnings],
     proofOffsetPct: a.proofOffsetPct,
     proofStrengths: a.proofStrengths,
     totalExtensionStrength: a.totalExtensionStrength,
     uniformTotalElongationPct: a.uniformTotalElongationPct,
+    elasticModulusSource: a.elasticModulusSource,
+    measuredModulus: a.measuredModulus,
+    measuredModulusInterval95: a.measuredModulusInterval95,
+    noise: a.noise,
+    forceMaximum: a.forceMaximum,
     elasticWindow: a.elasticWindow,
     toeStrain: a.toeStrain,
     fracture: a.fracture,
@@ -92,7 +98,10 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   const lines: string[] = [];
   lines.push(`${rec.file}  (${rec.rows} rows, ${rec.basis})`);
   const w = a.elasticWindow;
-  lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa   window ${fmt(w.fromStress, 0)}–${fmt(w.toStress, 0)} MPa, ${w.points} points, R² ${w.r2.toFixed(5)}`);
+  const [ci0, ci1] = a.measuredModulusInterval95;
+  if (a.elasticModulusSource === 'given') lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa (given)   measured ${fmt(a.measuredModulus / 1000, 1)} GPa, 95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)}`);
+  else lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa   95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)} GPa, band ${fmt(w.fromStress, 0)}–${fmt(w.toStress, 0)} MPa, ${w.points} points, R² ${w.r2.toFixed(5)}`);
+  lines.push(`  noise        ${a.noise.toPrecision(2)} MPa (estimated from the record)`);
   lines.push(`  Rp${a.proofOffsetPct}        ${fmt(a.proofStrength)} MPa   Rp0.5 ${fmt(a.proofStrengths[1]?.stress)}   Rp1 ${fmt(a.proofStrengths[2]?.stress)}   Rt0.5 ${fmt(a.totalExtensionStrength)}`);
   if (a.upperYield !== null) lines.push(`  ReH / ReL    ${fmt(a.upperYield)} / ${fmt(a.lowerYield)} MPa   Ae ${fmt(a.yieldPointElongationPct, 2)} %`);
   lines.push(`  Rm           ${fmt(a.tensileStrength)} MPa`);
@@ -113,7 +122,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
     }
     for (const e of a.fits.extrapolation) lines.push(`  at εp ${e.strain.toPrecision(3)} (${e.note}): spread ${e.spreadPct.toFixed(1)} % over laws that fit well`);
   }
-  for (const c of a.cycles) lines.push(`  cycle at ${fmt(c.unloadStress)} MPa: chord E ${fmt(c.unloadModulus / 1000, 1)} GPa, permanent ${(c.permanentStrain * 100).toFixed(3)} %, recovered ${(c.recoveredStrain * 100).toFixed(3)} %, reload Rp0.2 ${fmt(c.reloadProofStrength)} MPa`);
+  for (const c of a.cycles) lines.push(`  cycle at ${fmt(c.engineering.unloadStress)} MPa eng. (${fmt(c.unloadStress)} true): chord E ${fmt(c.unloadModulus / 1000, 1)} GPa, permanent ${(c.engineering.permanentStrain * 100).toFixed(3)} % eng. (${(c.permanentStrain * 100).toFixed(3)} % true), recovered ${(c.recoveredStrain * 100).toFixed(3)} % true, reload Rp0.2 ${fmt(c.engineering.reloadProofStrength)} MPa eng. (${fmt(c.reloadProofStrength)} true)`);
   for (const m of rec.warnings) lines.push(`  warning: ${m}`);
   for (const m of a.warnings) lines.push(`  warning: ${m.message}`);
   return lines.join('\n') + '\n';

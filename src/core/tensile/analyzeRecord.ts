@@ -76,6 +76,19 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     const { fromIndex: a, toIndex: b } = el.window;
     for (let i = a; i < b; i++) { mx += strain[i]!; my += stress[i]!; }
     toe = (mx - my / E) / (b - a);
+    if (el.issues.some((x) => x.code === 'implausibleModulus' || x.code === 'elasticBandFallback')) {
+      // The band is not elastic: take the toe from the steepest three consecutive samples of the first rise
+      // (the elastic samples, however few), e0 = mean of e − s/E over them.
+      let best = -Infinity, at = -1;
+      for (let i = 0; i + 2 < N && stress[i + 2]! < 0.98 * sMax; i++) {
+        if (stress[i]! < 0.02 * sMax) continue;
+        const de = strain[i + 2]! - strain[i]!;
+        if (!(de > 0)) continue;
+        const slope = (stress[i + 2]! - stress[i]!) / de;
+        if (slope > best) { best = slope; at = i; }
+      }
+      if (at >= 0) toe = (strain[at]! + strain[at + 1]! + strain[at + 2]! - (stress[at]! + stress[at + 1]! + stress[at + 2]!) / E) / 3;
+    }
     const [lo, hi] = el.window.interval95;
     if (!(given >= lo && given <= hi)) warnings.push({ code: 'modulusGiven', message: `the given E ${(given / 1000).toFixed(1)} GPa is outside the 95 % interval of the measured one (${(lo / 1000).toFixed(1)}–${(hi / 1000).toFixed(1)} GPa); the given E is used` });
   } else {
@@ -114,7 +127,10 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   if (fm.flat) warnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; Ag is read at the middle of the flat part (±${((fm.span[1] - fm.span[0]) * 50).toFixed(2)} points)` });
 
   const necked = !detected && stress[N - 1]! < 0.9 * Rm;
-  if (!detected && iMax >= N - Math.max(2, Math.ceil(0.01 * N))) {
+  // The test stopped before maximum force: no fracture and the top fit reaches the last samples.
+  let endMean = 0;
+  for (let i = N - 3; i < N; i++) endMean += stress[i]! / 3;
+  if (!detected && (iMax >= N - Math.max(2, Math.ceil(0.01 * N)) || (fm.span[1] >= strain[N - 1]! && endMean >= Rm - Math.max(3 * noise, 0.002 * Rm)))) {
     warnings.push({ code: 'maxAtEnd', message: 'the highest stress is at the end of the record: the test stopped before maximum force, so Rm, Ag and A are lower bounds' });
   }
   else if (!detected && !necked) warnings.push({ code: 'noFractureDrop', message: 'no sudden fall of force after Rm and no necking at the end: the last point is taken as fracture (A assumes the record ends at fracture)' });

@@ -16,20 +16,22 @@ import type { ElasticWindow } from './types.js';
  * - `fewPoints`, `maxRelInterval`: below 8 points in the band, or a 95 % interval wider than ±10 % of E,
  *   the modulus is reported as uncertain.
  * - `toeResidual`: points of the initial rise more than this many noise standard deviations above the
- *   line are the toe (slack) and are kept out of the band.
+ *   line are the toe (slack); the band starts at twice the highest such stress.
  */
 export const ELASTIC_WINDOW = {
   band: [0.1, 0.4] as readonly [number, number],
   /** Upper ends tried, in order, when the 10–40 % band holds too few points. */
   widerTops: [0.5, 0.6, 0.7] as readonly number[],
   starts: [0.02, 0.05, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.5, 0.6] as readonly number[],
-  widths: [0.1, 0.15, 0.2, 0.3, 0.4] as readonly number[],
+  widths: [0.1, 0.15, 0.2, 0.3, 0.4, 0.6, 0.8] as readonly number[],
   maxTop: 0.9,
   minPoints: 4,
   plausible: [40_000, 450_000] as readonly [number, number],
   fewPoints: 8,
   maxRelInterval: 0.1,
   toeResidual: 3,
+  /** The band starts at this multiple of the toe's top stress: a toe bends into the line gradually, its last points lie within the noise of the line but still pull the slope down. */
+  toeMargin: 2,
 } as const;
 
 export interface ElasticResult {
@@ -44,14 +46,14 @@ export interface ElasticResult {
 
 interface Line { slope: number; intercept: number; n: number; sxx: number; ssr: number; r2: number }
 
-function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number): Line | null {
-  const n = to - from;
+function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, stride = 1): Line | null {
+  const n = Math.ceil((to - from) / stride);
   if (n < 2) return null;
   let mx = 0, my = 0;
-  for (let i = from; i < to; i++) { mx += x[i]!; my += y[i]!; }
+  for (let i = from; i < to; i += stride) { mx += x[i]!; my += y[i]!; }
   mx /= n; my /= n;
   let sxx = 0, sxy = 0, syy = 0;
-  for (let i = from; i < to; i++) { const dx = x[i]! - mx, dy = y[i]! - my; sxx += dx * dx; sxy += dx * dy; syy += dy * dy; }
+  for (let i = from; i < to; i += stride) { const dx = x[i]! - mx, dy = y[i]! - my; sxx += dx * dx; sxy += dx * dy; syy += dy * dy; }
   if (!(sxx > 0)) return null;
   const slope = sxy / sxx;
   const ssr = Math.max(0, syy - slope * sxy);
@@ -63,14 +65,14 @@ function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: numb
  * to noise, to a toe and to an elastic rise of few samples.
  *
  * 1. Noise σ̂ of the stress from the data ({@link recordNoise}).
- * 2. A first line: every band [a, a + w]·Smax (a from 0.02 to 0.6, w from 0.1 to 0.4, top ≤ 0.9·Smax)
+ * 2. A first line: every band [a, a + w]·Smax (a from 0.02 to 0.6, w from 0.1 to 0.8, top ≤ 0.9·Smax)
  *    on the first rise (points before the stress first exceeds the band's top); the band with the highest
  *    lower confidence bound E − 2·SE(E), SE from max(σ̂, residual scatter)/√Sxx, wins. A plastic or toe
  *    band has a lower slope; a band of few noisy points has a large SE: neither wins.
  * 3. Rp0.2 with that line (offset construction, {@link proofStrength}).
  * 4. The final band: 10 %–40 % of that Rp0.2 (ISO 6892-1 Annex G practice, from memory), its lower end
- *    raised above the toe (points more than 3σ̂ above the line), its top raised to 50, 60, 70 % when it
- *    holds fewer than 4 points; Rp0.2 recomputed and the band refitted once if Rp0.2 moved by over 2 %.
+ *    raised to twice the top of the toe (points more than 3σ̂ above the line), its top raised to 50, 60, 70 % until it
+ *    holds 8 points (else 4); Rp0.2 recomputed and the band refitted once if Rp0.2 moved by over 2 %.
  *    When no band holds 4 points, the first line is kept (`elasticBandFallback`).
  * 5. Toe compensation (ISO 6892-1 and ASTM E8 practice): e0 = −intercept/E is subtracted from all strains.
  * The 95 % interval is E ± t(0.975, n − 2)·SE (Student t). Issues are returned, not thrown: E outside
@@ -107,7 +109,8 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
       if (b > W.maxTop + 1e-12) continue;
       const i0 = firstAt(a * top), i1 = firstAt(b * top);
       if (i1 - i0 < W.minPoints) continue;
-      const f = line(strain, stress, i0, i1);
+      // A first line only: bands of many samples are thinned to about 2000 (keeps the search O(n) overall).
+      const f = line(strain, stress, i0, i1, Math.max(1, Math.floor((i1 - i0) / 2000)));
       if (!f || !(f.slope > 0)) continue;
       const score = f.slope - 2 * seOf(f);
       if (!best || score > best.score) best = { score, f, i0, i1 };
@@ -124,20 +127,32 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     const P = p ? p.stress : top;
     if (pass === 1 && Math.abs(P - proofEst) <= 0.02 * proofEst) break;
     proofEst = P;
-    // Toe: highest stress below the band's top lying clearly above the line.
+    // Toe: the run of samples from the start lying clearly above the line (ends at the first two in a row
+    // that do not); a single noisy sample higher up is not a toe.
     let toeTop = 0;
     const tol = W.toeResidual * Math.max(noise, 1e-9 * top);
-    for (let i = 0; i < firstAt(W.band[1] * P); i++) if (stress[i]! - E1 * (strain[i]! - toe1) > tol) toeTop = Math.max(toeTop, stress[i]!);
-    const lo = Math.max(W.band[0] * P, toeTop);
-    let chosen: { f: Line; i0: number; i1: number; hi: number } | null = null;
-    for (const frac of [W.band[1], ...W.widerTops]) {
-      const hi = Math.max(frac * P, lo + 0.1 * P);
-      const j0 = firstAt(lo), j1 = firstAt(hi);
-      if (j1 - j0 < W.minPoints) continue;
-      const f = line(strain, stress, j0, j1);
-      if (f && f.slope > 0) { chosen = { f, i0: j0, i1: j1, hi }; break; }
+    const lim = firstAt(W.band[1] * P);
+    for (let i = 0; i < lim; i++) {
+      const above = stress[i]! - E1 * (strain[i]! - toe1) > tol;
+      const nextAbove = i + 1 < lim && stress[i + 1]! - E1 * (strain[i + 1]! - toe1) > tol;
+      if (!above && !nextAbove && stress[i]! > 0) break;
+      if (above) toeTop = Math.max(toeTop, stress[i]!);
     }
-    if (!chosen) break;
+    const lo = Math.max(W.band[0] * P, W.toeMargin * toeTop);
+    let chosen: { f: Line; i0: number; i1: number; hi: number } | null = null;
+    // Widen the top until the band holds `fewPoints`; only if no top does, accept `minPoints`.
+    for (const need of [W.fewPoints, W.minPoints]) {
+      for (const frac of [W.band[1], ...W.widerTops]) {
+        const hi = Math.max(frac * P, lo + 0.1 * P);
+        const j0 = firstAt(lo), j1 = firstAt(hi);
+        if (j1 - j0 < need) continue;
+        const f = line(strain, stress, j0, j1);
+        if (f && f.slope > 0) { chosen = { f, i0: j0, i1: j1, hi }; break; }
+      }
+      if (chosen) break;
+    }
+    // A band that reaches past the knee has a far lower slope than the first line: keep the first line then.
+    if (!chosen || chosen.f.slope < 0.5 * best.f.slope) break;
     fallback = false;
     fit = chosen.f; i0 = chosen.i0; i1 = chosen.i1; bandLo = lo; bandHi = chosen.hi;
   }
@@ -151,7 +166,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   }
   const [pLo, pHi] = W.plausible;
   if (!(E >= pLo && E <= pHi)) {
-    issues.push({ code: 'implausibleModulus', message: `E = ${(E / 1000).toFixed(1)} GPa from the elastic band is outside the range of metals (${pLo / 1000}–${pHi / 1000} GPa, common practice): the strain is probably not from an extensometer, or the record has too few elastic points; give the modulus (--modulus, or the record bench's modulus field)` });
+    issues.push({ code: 'implausibleModulus', message: `E = ${(E / 1000).toFixed(1)} GPa from the elastic band (${fit.n} points, ${bandLo.toFixed(0)}–${bandHi.toFixed(0)} MPa) is outside the range of metals (${pLo / 1000}–${pHi / 1000} GPa, common practice): the strain is probably not from an extensometer, or the record has too few elastic points; give the modulus (--modulus, or the record bench's modulus field)` });
   } else if (fit.n < W.fewPoints) {
     issues.push({ code: 'fewElasticPoints', message: `only ${fit.n} points in the elastic band; E = ${(E / 1000).toFixed(1)} GPa, 95 % interval ${(interval[0] / 1000).toFixed(1)}–${(interval[1] / 1000).toFixed(1)} GPa; give the modulus if it is known` });
   } else if ((t * se) / E > W.maxRelInterval) {

@@ -50,17 +50,28 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // Two half-parabolas joined at the vertex xv: s = Rm − aL(x − xv)² left of it, Rm − aR(x − xv)² right of it.
   // For a fixed xv the model is linear in (Rm, aL, aR); xv minimises the residual sum (grid, then golden section).
   const h = Math.max(xb - xa, 1e-300);
+  // Bin the span to at most 2000 groups of consecutive samples (mean strain, mean stress, count): a weighted
+  // least-squares fit to the group means has the same minimiser in xv as the fit to every sample, up to the
+  // few groups the vertex splits, and each trial xv costs O(2000) instead of O(samples).
+  const m = i1 - i0, nb = Math.min(m, 2000);
+  const bx = new Float64Array(nb), by = new Float64Array(nb), bw = new Float64Array(nb);
+  for (let b = 0; b < nb; b++) {
+    const s0 = i0 + Math.floor((b * m) / nb), s1 = i0 + Math.floor(((b + 1) * m) / nb);
+    let sx = 0, sy = 0;
+    for (let i = s0; i < s1; i++) { sx += strain[i]!; sy += stress[i]!; }
+    bx[b] = sx / (s1 - s0); by[b] = sy / (s1 - s0); bw[b] = s1 - s0;
+  }
   const solve = (xv: number) => {
     // Columns: 1, −u² (left), −u² (right), u³ (left): a cubic term lets the long hardening side bend.
-    const S = [0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0], T = [0, 0, 0, 0];
-    let tt = 0;
-    for (let i = i0; i < i1; i++) {
-      const u = (strain[i]! - xv) / h, y = stress[i]!;
-      const c1 = u < 0 ? -u * u : 0, c2 = u < 0 ? 0 : -u * u, c3 = u < 0 ? u * u * u : 0;
-      const col = [1, c1, c2, c3];
-      for (let r = 0; r < 4; r++) { T[r]! += col[r]! * y; for (let c = r; c < 4; c++) S[r * 4 + c]! += col[r]! * col[c]!; }
-      tt += y * y;
+    // Sums of the 4×4 normal equations, accumulated in scalars (no allocation per sample).
+    let s00 = 0, s01 = 0, s02 = 0, s03 = 0, s11 = 0, s13 = 0, s22 = 0, s33 = 0, t0 = 0, t1 = 0, t2 = 0, t3 = 0, tt = 0;
+    for (let b = 0; b < nb; b++) {
+      const u = (bx[b]! - xv) / h, y = by[b]!, wt = bw[b]!, u2 = u * u;
+      s00 += wt; t0 += wt * y; tt += wt * y * y;
+      if (u < 0) { const c1 = -u2, c3 = u2 * u; s01 += wt * c1; s03 += wt * c3; s11 += wt * c1 * c1; s13 += wt * c1 * c3; s33 += wt * c3 * c3; t1 += wt * c1 * y; t3 += wt * c3 * y; }
+      else { const c2 = -u2; s02 += wt * c2; s22 += wt * c2 * c2; t2 += wt * c2 * y; }
     }
+    const S = [s00, s01, s02, s03, 0, s11, 0, s13, 0, 0, s22, 0, 0, 0, 0, s33], T = [t0, t1, t2, t3];
     const idx = [0, 1, 2, 3].filter((k) => k === 0 || S[k * 4 + k]! > 0);
     if (idx.includes(3) && idx.filter((k) => k === 1 || k === 3).length < 2) idx.splice(idx.indexOf(3), 1);
     const M = idx.map((r) => [...idx.map((c) => S[Math.min(r, c) * 4 + Math.max(r, c)]!), T[r]!]);

@@ -87,7 +87,7 @@ function plasticAt(law: FlowLaw, E: number, eps: number, guess: number): number 
  * a serrated plateau, white Gaussian noise on the stress (Box–Muller on the seeded `rng`).
  * Units: MPa, strain fraction. Valid: laws with σ(0) > 0 and a Considère strain in (0, 1); 200 ≤ points ≤ 10⁷.
  * @throws InputError naming the field for a law without initial yield stress, too few points, or a bad drop.
- * @example synthesizeLabRecord({ law: { law: 'voce', sigma0: 250, Q: 200, b: 12 }, elasticModulus: 205000, rng: xoshiro128ss(1), points: 10000 }).truth.tensileStrength // ≈ 370 MPa
+ * @example synthesizeLabRecord({ law: { law: 'voce', sigma0: 250, Q: 200, b: 12 }, elasticModulus: 205000, rng: xoshiro128ss(1), points: 10000 }).truth.tensileStrength // ≈ 358.2 MPa
  */
 export function synthesizeLabRecord(spec: LabRecordSpec): LabRecord {
   const law = makeLaw(spec.law, 'law');

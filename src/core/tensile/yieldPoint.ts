@@ -16,8 +16,8 @@ export interface YieldPointResult {
 
 /** Thresholds of the yield-drop test, stated once. */
 export const YIELD_DROP = {
-  /** The fall must exceed this fraction of ReH (common practice: drops under ~1.5 % are hard to tell from a rounded knee)… */
-  minRelDrop: 0.015,
+  /** The fall must exceed this fraction of ReH (common practice: drops under ~2 % are hard to tell from a rounded knee in a noisy record)… */
+  minRelDrop: 0.02,
   /** …and this many standard errors of (ReH estimate − plateau level). */
   sigmas: 4,
   /** A departure from the elastic line: this many noise sd below it, two samples in a row. */
@@ -38,7 +38,7 @@ export const YIELD_DROP = {
  * - ReH is the value at q of a least-squares line through the rising samples above half the peak stress
  *   (noise of the estimate about σ̂·2/√k for k samples, not the noise of one sample).
  * - The plateau level is the median stress over 0.3 % strain after the departure. A yield drop is
- *   reported only when ReH − level > max(1.5 % of ReH, 4 standard errors of that difference).
+ *   reported only when ReH − level > max(2 % of ReH, 4 standard errors of that difference).
  *   A continuous curve has level ≥ the curve at the knee and never passes.
  * - ReL (ISO 6892-1 §3.10.2.2: the lowest stress during plastic yielding, the initial transient
  *   ignored) is the lowest value of a moving average (window chosen from σ̂ so its noise is about 0.15 %

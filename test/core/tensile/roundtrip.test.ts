@@ -97,7 +97,9 @@ describe('analyzeRecord(synthetic record) reads the standard properties back', (
     // The generator's line is σ = E·ε in true measures; in engineering measures its slope is E·(1 − O(e)),
     // 0.07 % lower over this window.
     expectRelClose(a.elasticModulus, E, 1e-3, 'E (exact line)');
-    expectRelClose(a.tensileStrength, r.truth.tensileStrength, 1e-12, 'Rm');
+    // Rm is the top of a local least-squares fit (two half-parabolas) through samples 2e-4 apart, not the highest
+    // sample: on this noise-free curve it differs from the sampled maximum by 1.9e-6 (measured); 1e-5 allowed.
+    expectRelClose(a.tensileStrength, r.truth.tensileStrength, 1e-5, 'Rm');
     // Ag, A contain Rm/E: the 0.07 % difference in E above moves them by ~1e-4 %.
     expectAbsClose(a.uniformElongationPct, r.truth.uniformElongationPct, 1e-3, 'Ag');
     expectAbsClose(a.totalElongationPct, r.truth.totalElongationPct, 1e-3, 'A');
@@ -109,11 +111,15 @@ describe('analyzeRecord(synthetic record) reads the standard properties back', (
     const s = law.stress(ep);
     expectRelClose(a.proofStrength!, s / Math.exp(ep + s / E), 5e-4, 'Rp0.2');
   });
-  it('with noise and a toe: Rm within 4 × noise, E within 1 %, toe found', () => {
+  it('with noise and a toe: Rm within 4 × noise, E inside its 95 % interval and within 5 %, toe found', () => {
     const r = record(spec, 3, false);
     const a = analyzeRecord(r, { fit: false });
     expectAbsClose(a.tensileStrength, r.truth.tensileStrength, 4 * NOISE, 'Rm');
-    expectRelClose(a.elasticModulus, E, 0.01, 'E');
+    // The band is 10–40 % of Rp0.2 (20–82 MPa here): 11 samples with 1 MPa noise give SE(E) ≈ 2 %, so the
+    // check is the interval (Student t, 95 %) and 5 % (2.5 SE).
+    expect(a.measuredModulusInterval95[0]).toBeLessThanOrEqual(E);
+    expect(a.measuredModulusInterval95[1]).toBeGreaterThanOrEqual(E);
+    expectRelClose(a.elasticModulus, E, 0.05, 'E');
     expectRelClose(a.toeStrain, (0.15 * 200) / E, 0.1, 'toe strain');
   });
   it('a yield-point plateau gives ReH, ReL and the yield-point elongation', () => {
