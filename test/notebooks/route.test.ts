@@ -41,8 +41,9 @@ async function expectParity(page: Page, report: Report, shown: Record<string, st
   for (const t of report.targets) {
     const li = await page.locator(`[data-target="${t.name}"]`).innerText();
     expect(li).toContain(t.met ? 'met' : 'NOT met');
-    const td = t.name === 'maxSpringbackDeg' ? 2 : t.name === 'minRemainingElongationPct' ? 1 : sd;
-    const unit = t.name === 'maxSpringbackDeg' ? '°' : t.name === 'minRemainingElongationPct' ? ' %' : ` ${(report as unknown as { units: { stress: string } }).units.stress}`;
+    const hv = t.name === 'minHardnessHV' || t.name === 'maxHardnessHV';
+    const td = t.name === 'maxSpringbackDeg' ? 2 : t.name === 'minRemainingElongationPct' || hv ? 1 : sd;
+    const unit = t.name === 'maxSpringbackDeg' ? '°' : t.name === 'minRemainingElongationPct' ? ' %' : hv ? ' HV' : ` ${(report as unknown as { units: { stress: string } }).units.stress}`;
     expect(li).toContain(`predicted ${t.predicted.toFixed(td)}${unit}`);
     expect(li).toContain(t.met ? `margin ${t.margin.toFixed(td)}${unit}` : `short by ${(-t.margin).toFixed(td)}${unit}`);
   }
@@ -58,7 +59,7 @@ describe('route planner', () => {
     expect(await page.locator('#ledger-table thead').innerText()).toContain('HV (Tabor estimate)');
     const report = await exportAndRun(page, 'hardness.json');
     await expectParity(page, report, await ledgerCells(page));
-    expect(await page.locator('[data-target="minHardnessHV"]').innerText()).toMatch(/minimum Vickers hardness: predicted [\d.]+ HV, limit 140\.00 HV/);
+    expect(await page.locator('[data-target="minHardnessHV"]').innerText()).toMatch(/minimum Vickers hardness: predicted [\d.]+ HV, limit 140\.0 HV/);
     // The chart draws the 140–170 HV band (a filled rect) and labels both ends.
     const chart = page.locator('#cell-hardness-chart');
     expect(await chart.locator('svg rect').count()).toBeGreaterThan(0);

@@ -48,7 +48,12 @@ describe('targets speak their own unit', () => {
     expect(targetUnit('maxSpringbackDeg', 'MPa')).toBe('°');
   });
   it('an unknown target name throws instead of guessing the stress unit', () => {
-    expect(() => targetUnitKind('minHardnessHV')).toThrow(/no unit known for target "minHardnessHV"/);
+    expect(() => targetUnitKind('minSurfaceGloss')).toThrow(/no unit known for target "minSurfaceGloss"/);
+    // Hardness targets are in HV (issue 15); a temper target in its temper system's basis.
+    expect(targetUnit('minHardnessHV', 'ksi')).toBe('HV');
+    expect(targetUnit('temper', 'MPa', 'tensileStrength')).toBe('MPa');
+    expect(targetUnit('temper', 'MPa', 'hardnessHV')).toBe('HV');
+    expect(targetUnit('temper', 'MPa', 'thicknessReductionPct')).toBe('% thickness reduction');
   });
   it('formatTargetValue: precision of the kind, unit attached', () => {
     expect(formatTargetValue(4.0712, 'maxSpringbackDeg', 'MPa')).toBe('4.07°');
