@@ -1,7 +1,7 @@
 // Prestrain explorer: the cell graph. Every number comes from the core (stateProperties,
 // chordModulus, makeLaw); the page only arranges and formats them.
 import {
-  Notebook, expose, slider, stepSlider, choice, valueStream, h, quantity, fixed, DIGITS, restore, byId,
+  Notebook, expose, slider, stepSlider, choice, valueStream, widthStream, h, quantity, fixed, DIGITS, restore, byId,
 } from '../../src/cells/index.js';
 import {
   makeLaw, fitAllLaws, stateProperties, chordModulus, reductionPctFromStrain, LAW_PARAMETERS, LAW_NAMES, PROOF_OFFSET, InputError,
@@ -159,10 +159,12 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       return s.laws.map(({ label, law }) => ({ label, points: Array.from({ length: N + 1 }, (_, i) => ({ strain: (top * i) / N, stress: law.stress((top * i) / N) })) }));
     },
   })
+  .cell({ name: 'flowWidth', fn: () => widthStream(byId('cell-flow-chart')) })
+  .cell({ name: 'lurWidth', fn: () => widthStream(byId('cell-lur-chart')) })
   .cell({
-    name: 'flowBase', inputs: ['curves', 'lawSet'],
-    fn: (curves: { label: string; points: { strain: number; stress: number }[] }[], s: LawSet) =>
-      flowCurveChart(curves, { stressUnit: 'MPa', testedRange: s.testedRange ?? [0, Math.min(...s.laws.map((x) => x.law.uniformStrain()))] }),
+    name: 'flowBase', inputs: ['curves', 'lawSet', 'flowWidth'],
+    fn: (curves: { label: string; points: { strain: number; stress: number }[] }[], s: LawSet, width: number) =>
+      flowCurveChart(curves, { stressUnit: 'MPa', testedRange: s.testedRange ?? [0, Math.min(...s.laws.map((x) => x.law.uniformStrain()))], width }),
   })
   .cell({
     // A slider move only moves the marker on the chart drawn above (same element, no redraw).
@@ -174,8 +176,8 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
     },
   })
   .cell({
-    name: 'lurChart', inputs: ['lawSet', 'prestrain'], into: 'cell-lur-chart',
-    fn: (s: LawSet, eps: number) => {
+    name: 'lurChart', inputs: ['lawSet', 'prestrain', 'lurWidth'], into: 'cell-lur-chart',
+    fn: (s: LawSet, eps: number, width: number) => {
       const law = s.laws[0]!.law;
       const E = (ep: number) => chordModulus(s.elasticModulus, s.modulusDecay, ep);
       const N = 60;
@@ -188,7 +190,7 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       const extra = Math.max(0.02, eps * 0.25);
       const reloading = [{ strain: eps, stress: 0 }];
       for (let i = 0; i <= N; i++) { const ep = eps + (extra * i) / N; const sg = law.stress(ep); reloading.push({ strain: ep + sg / Eu, stress: sg }); }
-      return loadUnloadChart({ loading, unloading, reloading, recovery: { from: eps, to: eps + top / Eu } }, { stressUnit: 'MPa' });
+      return loadUnloadChart({ loading, unloading, reloading, recovery: { from: eps, to: eps + top / Eu } }, { stressUnit: 'MPa', width });
     },
   })
   .cell({

@@ -48,8 +48,15 @@ export class Notebook {
   private readonly pending = new Set<string>();
   private readonly variables = new Map<string, RuntimeVariable>();
   private waiters: (() => void)[] = [];
+  private readonly tracked = new Set<Promise<unknown>>();
   /** Number of cells currently showing an error. */
   readonly errors = new Set<string>();
+  /**
+   * Milliseconds spent in each cell's function (synchronous part), summed since profiling was
+   * switched on; `null` (the default) records nothing. The latency bench reads it to split a
+   * slider's latency into computation and DOM work.
+   */
+  profile: Map<string, number> | null = null;
 
   constructor() {
     this.runtime = new (Runtime as unknown as new () => RuntimeLike)();
@@ -73,7 +80,18 @@ export class Notebook {
         this.wake();
       },
     });
-    const v = this.module.variable(observer).define(name, spec.inputs ?? [], spec.fn);
+    const fn = spec.fn;
+    const timed = (...args: unknown[]) => {
+      const p = this.profile;
+      if (!p) return fn(...args);
+      const t0 = performance.now();
+      try {
+        return fn(...args);
+      } finally {
+        p.set(name, (p.get(name) ?? 0) + performance.now() - t0);
+      }
+    };
+    const v = this.module.variable(observer).define(name, spec.inputs ?? [], timed);
     this.variables.set(name, v);
     return this;
   }
@@ -96,7 +114,19 @@ export class Notebook {
     for (const f of w) f();
   }
 
-  /** Resolves when no computation is scheduled and no shown cell is pending. */
+  /**
+   * Work a cell goes on with after it has shown a first value (a generator cell that shows a quick
+   * answer and then refines it): {@link idle} waits for it too, so tests see the refined answer.
+   * Returns the promise it was given.
+   */
+  track<T>(work: Promise<T>): Promise<T> {
+    this.tracked.add(work);
+    const done = () => { this.tracked.delete(work); this.wake(); };
+    work.then(done, done);
+    return work;
+  }
+
+  /** Resolves when no computation is scheduled, no shown cell is pending and no tracked work is left. */
   async idle(): Promise<void> {
     // A change reaches the runtime through a chain of promises (input event → generator → runtime
     // schedule → compute → observers); it is quiet once no computation is scheduled and no cell is
@@ -109,6 +139,9 @@ export class Notebook {
       } else if (this.pending.size > 0) {
         quiet = 0;
         await new Promise<void>((r) => this.waiters.push(r));
+      } else if (this.tracked.size > 0) {
+        quiet = 0;
+        await Promise.allSettled([...this.tracked]);
       } else {
         quiet++;
         await Promise.resolve();

@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, PALETTE } from './palette.js';
+import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
 
 /** Most points a chart draws from one series; longer records are thinned by a fixed stride. */
 export const CHART_MAX_POINTS = 2000;
@@ -31,7 +31,8 @@ export function recordCurveChart(
     width: o.width ?? 520,
     height: o.height ?? 300,
     style: CHART_STYLE,
-    x: { label: 'engineering strain (%)', grid: true },
+    marginBottom: MARGIN_BOTTOM,
+    x: { ...X_AXIS, label: 'engineering strain (%)', grid: true },
     y: { label: 'engineering stress (MPa)', grid: true },
     marks: [
       Plot.ruleY([0], { stroke: PALETTE.grid }),
@@ -56,7 +57,8 @@ export function residualChart(
     width: o.width ?? 520,
     height: o.height ?? 300,
     style: CHART_STYLE,
-    x: { label: 'true plastic strain (–)', grid: true },
+    marginBottom: MARGIN_BOTTOM,
+    x: { ...X_AXIS, label: 'true plastic strain (–)', grid: true },
     y: { label: 'residual (MPa)', grid: true },
     color: { domain: fits.map((f) => f.law), range: [...PALETTE.laws], legend: true },
     marks: [Plot.ruleY([0], { stroke: PALETTE.ink }), Plot.line(data, { x: 'eps', y: 'r', stroke: 'law', z: 'law', strokeWidth: 1.2 })],
