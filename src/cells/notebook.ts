@@ -5,6 +5,8 @@ import { cellObserver, type Render } from './observer.js';
 /** Microtask turns without activity after which {@link Notebook.idle} calls the notebook settled. */
 const QUIET_TICKS = 64;
 
+const hidden = (): null => null;
+
 /** A cell: a name, the names of the cells it reads, and a function of their values. */
 export interface CellSpec {
   name: string;
@@ -71,7 +73,10 @@ export class Notebook {
   cell(spec: CellSpec): this {
     const el = typeof spec.into === 'string' ? byId(spec.into) : spec.into;
     const name = spec.name;
-    const observer = cellObserver(el ?? document.createElement('div'), spec.render, {
+    // A hidden cell (no `into`) is never rendered: the default render would JSON.stringify its value
+    // into a detached element on every change (for a path of thousands of points or a scatter
+    // summary, milliseconds per slider move: bench/notebook-profile.mjs).
+    const observer = cellObserver(el ?? document.createElement('div'), el ? spec.render : hidden, {
       onPending: () => this.pending.add(name),
       onSettled: (ok) => {
         this.pending.delete(name);

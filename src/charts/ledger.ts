@@ -33,8 +33,8 @@ export interface LedgerChartOptions {
   document?: Document;
 }
 
-/** Width (px) of the charts in the HTML report: the report's text column (72rem body) less a margin. */
-export const REPORT_CHART_WIDTH = 1080;
+/** Width (px) of the charts in the HTML report: its text column (body max-width 72rem at 16 px). */
+export const REPORT_CHART_WIDTH = 1152;
 /** Width (px) used when none is given (a notebook before it has measured its container). */
 export const DEFAULT_CHART_WIDTH = 640;
 /** Least horizontal room (px) per labelled tick on a step axis. */
@@ -66,9 +66,12 @@ interface Point { index: number; value: number; what: string }
  * so each series is drawn as a staircase (`step-after`: flat while the value holds, a vertical jump
  * at the step that changes it) with a dot at each step; step 0 is the starting stock.
  */
-function stepSeries(data: readonly Point[]): Plot.Markish[] {
+function stepSeries(data: readonly Point[], dashed: string): Plot.Markish[] {
+  // The second series is dashed: where the two coincide (yield ratio near 1, %CW equal to the
+  // remaining elongation) both colours still show.
   return [
-    Plot.line(data, { x: 'index', y: 'value', stroke: 'what', z: 'what', curve: 'step-after', strokeWidth: 2 }),
+    Plot.line(data.filter((d) => d.what !== dashed), { x: 'index', y: 'value', stroke: 'what', z: 'what', curve: 'step-after', strokeWidth: 2 }),
+    Plot.line(data.filter((d) => d.what === dashed), { x: 'index', y: 'value', stroke: 'what', z: 'what', curve: 'step-after', strokeWidth: 2, strokeDasharray: '7,4' }),
     Plot.dot(data, { x: 'index', y: 'value', stroke: 'what', fill: 'white', r: 3.5, strokeWidth: 2 }),
   ];
 }
@@ -100,8 +103,8 @@ function fmt(v: number): string {
 }
 
 /**
- * Reload yield and tensile strength after each step (step 0: the starting stock), drawn as steps,
- * with the yield target as a labelled band. Same code in the notebooks (browser DOM) and in the
+ * Reload yield (solid) and tensile strength (dashed) after each step (step 0: the starting stock),
+ * drawn as steps, with the yield target as a labelled band. Same code in the notebooks (browser DOM) and in the
  * runner's HTML report (linkedom).
  */
 export function strengthByStepChart(steps: readonly LedgerChartStep[], o: LedgerChartOptions): SVGSVGElement | HTMLElement {
@@ -120,7 +123,7 @@ export function strengthByStepChart(steps: readonly LedgerChartStep[], o: Ledger
       : o.minYield !== undefined ? `yield target ≥ ${fmt(o.minYield)} ${o.stressUnit}` : `yield target ≤ ${fmt(o.maxYield!)} ${o.stressUnit}`;
     marks.push(...targetBand(o.minYield, o.maxYield, dataMax * 1.1, 0, label));
   }
-  marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data));
+  marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, RM));
   return Plot.plot(defined({
     document: o.document,
     width,
@@ -136,8 +139,8 @@ export function strengthByStepChart(steps: readonly LedgerChartStep[], o: Ledger
 }
 
 /**
- * Remaining uniform elongation (%) and %CW since the last anneal after each step (step 0: the
- * starting stock), drawn as steps, with the elongation target as a labelled band.
+ * Remaining uniform elongation (%, solid) and %CW since the last anneal (dashed) after each step
+ * (step 0: the starting stock), drawn as steps, with the elongation target as a labelled band.
  */
 export function ductilityByStepChart(steps: readonly LedgerChartStep[], o: Omit<LedgerChartOptions, 'minYield' | 'maxYield'> & { minRemainingElongationPct?: number }): SVGSVGElement | HTMLElement {
   const EL = 'remaining uniform elongation (%)';
@@ -152,7 +155,7 @@ export function ductilityByStepChart(steps: readonly LedgerChartStep[], o: Omit<
   if (o.minRemainingElongationPct !== undefined) {
     marks.push(...targetBand(o.minRemainingElongationPct, undefined, 100, 0, `elongation target ≥ ${fmt(o.minRemainingElongationPct)} %`));
   }
-  marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data));
+  marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, CW));
   return Plot.plot(defined({
     document: o.document,
     width,

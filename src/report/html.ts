@@ -56,8 +56,8 @@ export function htmlReport(r: ReportV1): string {
   parts.push(`<p>Rp0.2 ${r.material.initial.reloadYield.toFixed(1)} ${htmlText(r.units.stress)}, Rm ${r.material.initial.tensileStrength.toFixed(1)} ${htmlText(r.units.stress)}, uniform elongation ${r.material.initial.uniformElongationPct.toFixed(1)} %, Considère uniform true strain ${r.material.uniformStrain.toFixed(4)}.</p>`);
   parts.push('<h2>Ledger</h2>');
   parts.push(table(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
-  parts.push(`<figure>${strength.outerHTML}<figcaption>Reload yield Rp0.2 and tensile strength Rm after each step (step 0: the starting stock). Each value holds until the next step changes it, so it is drawn as a step; the shaded band is the yield target.</figcaption></figure>`);
-  parts.push(`<figure>${ductility.outerHTML}<figcaption>Remaining uniform elongation and %CW since the last anneal after each step (step 0: the starting stock), drawn as steps; the shaded band is the elongation target.</figcaption></figure>`);
+  parts.push(`<figure>${strength.outerHTML}<figcaption>Reload yield Rp0.2 (solid) and tensile strength Rm (dashed) after each step (step 0: the starting stock). Each value holds until the next step changes it, so it is drawn as a step; the shaded band is the yield target.</figcaption></figure>`);
+  parts.push(`<figure>${ductility.outerHTML}<figcaption>Remaining uniform elongation (solid) and %CW since the last anneal (dashed) after each step (step 0: the starting stock), drawn as steps; the shaded band is the elongation target.</figcaption></figure>`);
   parts.push('<h2>Targets</h2>');
   if (r.targets.length === 0) parts.push('<p>No targets given.</p>');
   else {
