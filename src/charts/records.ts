@@ -38,8 +38,12 @@ export function recordCurveChart(
       Plot.ruleY([0], { stroke: PALETTE.grid }),
       Plot.line(pts, { x: 'e', y: 's', stroke: PALETTE.strength, strokeWidth: 1.5 }),
       Plot.line(win, { x: 'e', y: 's', stroke: PALETTE.elastic, strokeWidth: 6, strokeOpacity: 0.7 }),
-      ...(analysis.proofStrength !== null ? [Plot.ruleY([analysis.proofStrength], { stroke: PALETTE.elastic, strokeDasharray: '4,3' })] : []),
+      ...(analysis.proofStrength !== null ? [
+        Plot.ruleY([analysis.proofStrength], { stroke: PALETTE.elastic, strokeDasharray: '4,3' }),
+        Plot.text([analysis.proofStrength], { y: (d: number) => d, text: (d: number) => `Rp0.2 ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: 9, fill: PALETTE.elastic, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
+      ] : []),
       Plot.ruleY([analysis.tensileStrength], { stroke: PALETTE.ductility, strokeDasharray: '4,3' }),
+      Plot.text([analysis.tensileStrength], { y: (d: number) => d, text: (d: number) => `Rm ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: 9, fill: PALETTE.ductility, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
     ],
   });
 }

@@ -142,6 +142,25 @@ describe('every notebook chart fills its container', () => {
   }
 });
 
+describe('the record bench charts fill their container', () => {
+  it('records (INVENTED demo record from examples/)', async () => {
+    const { page, errors, context } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    await page.selectOption('#example-select', { label: 'stamping-strip-loops.csv' });
+    await page.click('#load-example');
+    await expect.poll(() => page.locator('#cell-curve-chart svg').count(), { timeout: 30_000 }).toBeGreaterThan(0);
+    await settled(page, 'records');
+    for (const sel of ['#cell-curve-chart', '#cell-residual-chart']) {
+      const f = await chartFacts(page, sel);
+      expect(f.containerWidth, sel).toBeGreaterThan(300);
+      expect(Math.abs(f.svgWidth - f.containerWidth), `${sel}: ${f.svgWidth} px in ${f.containerWidth} px`).toBeLessThanOrEqual(1);
+    }
+    await page.locator('.sl-charts').screenshot({ path: `${SCREENSHOTS}/records-charts.png` });
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});
+
 describe('step charts in the HTML report', () => {
   it('fill the report column, carry whole-step ticks from 0 and scale down on a narrow screen', async () => {
     const run = runner('run', 'examples/fencing-wire-us.json', '--format', 'html');
