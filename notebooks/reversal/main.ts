@@ -6,6 +6,7 @@ import { integratePath, springback, backstressAfter, chordModulus, fitKinematic,
 import type { KinematicFit, Material, PathResult, SpringbackResult } from '../../src/core/index.js';
 import { parseRecordText } from '../../src/records/index.js';
 import { reversalChart, residualStressChart } from '../../src/charts/reversal.js';
+import { retrace } from '../../src/charts/retrace.js';
 import { demoPlans, pageChrome } from '../shared/page.js';
 
 pageChrome('reversal/', 'Reversal and springback');
@@ -48,6 +49,38 @@ function reverseYield(r: PathResult, topIndex: number): number {
   const top = r.points[topIndex]!;
   return top.backstress - top.yieldSurfaceSize;
 }
+
+/** The charts are redrawn by Plot once a slider has rested this long (ms); moves in between retrace the kept chart. */
+export const REFINE_AFTER_MS = 120;
+const sleep = (ms: number) => new Promise<void>((r) => setTimeout(r, ms));
+type Pts = readonly { x: number; y: number }[];
+/** The last chart drawn by Plot in a cell, with what its frame depends on (width, series). */
+const kept = new Map<string, { el: Element; frame: string }>();
+const latestRun = new Map<string, number>();
+/**
+ * A chart cell's answer to a move: when the chart on screen has the same frame (width and series),
+ * its lines (and dots) are moved to the new values on its present axes at once (`retrace`, marked
+ * `data-resolution="preview"`), and Plot redraws the whole chart (axes fitted to the new values)
+ * once the slider rests; otherwise Plot draws it at once. Fires `strainledger:refine` before the
+ * redraw (the latency bench separates the two by it); `nb.track` makes `idle()` wait for it.
+ */
+async function* chartStream(cell: string, frame: string, lines: Pts[], dots: Pts | undefined, draw: () => Element): AsyncGenerator<Element, void, unknown> {
+  const run = (latestRun.get(cell) ?? 0) + 1;
+  latestRun.set(cell, run);
+  const old = kept.get(cell);
+  if (old && old.frame === frame && retrace(old.el, lines, dots)) {
+    old.el.setAttribute('data-resolution', 'preview');
+    yield old.el;
+    await nb.track(sleep(REFINE_AFTER_MS));
+    if (latestRun.get(cell) !== run) return;
+    window.dispatchEvent(new Event('strainledger:refine'));
+  }
+  const el = draw();
+  el.setAttribute('data-resolution', 'full');
+  kept.set(cell, { el, frame });
+  yield el;
+}
+const xy = (pts: readonly { strain: number; stress: number }[]): Pts => pts.map((p) => ({ x: p.strain, y: p.stress }));
 
 const nb = new Notebook();
 nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
@@ -93,10 +126,14 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   })
   .cell({
     name: 'pathChart', inputs: ['paths', 'pathWidth'], into: 'cell-path-chart',
-    fn: (p: Paths, width: number) => reversalChart([
-      ...(p.kin ? [{ label: 'with backstresses (combined)', points: p.kin.points }] : []),
-      { label: 'isotropic only', points: p.iso.points },
-    ], { stressUnit: 'MPa', width }),
+    fn: (p: Paths, width: number) => {
+      const series = [
+        ...(p.kin ? [{ label: 'with backstresses (combined)', points: p.kin.points }] : []),
+        { label: 'isotropic only', points: p.iso.points },
+      ];
+      return chartStream('pathChart', `${width}|${series.map((s) => s.label).join('|')}`, series.map((s) => xy(s.points)), undefined,
+        () => reversalChart(series, { stressUnit: 'MPa', width }) as Element);
+    },
   })
   .cell({
     name: 'bend', inputs: ['material', 'prestrain', 'thickness', 'radius', 'angle'],
@@ -117,7 +154,11 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   })
   .cell({
     name: 'residualChart', inputs: ['bend', 'residualWidth'], into: 'cell-residual-chart',
-    fn: (b: SpringbackResult, width: number) => residualStressChart(b.residualStress, { stressUnit: 'MPa', lengthUnit: 'mm', width }),
+    fn: (b: SpringbackResult, width: number) => {
+      // Same order as the chart draws them (by position through the thickness).
+      const pts = [...b.residualStress].sort((a, c) => a.y - c.y).map((p) => ({ x: p.stress, y: p.y }));
+      return chartStream('residualChart', String(width), [pts], pts, () => residualStressChart(b.residualStress, { stressUnit: 'MPa', lengthUnit: 'mm', width }) as Element);
+    },
   });
 
 interface KinFitView { fit: KinematicFit; strain: Float64Array; stress: Float64Array; model: PathResult; name: string; material: Material }

@@ -26,7 +26,7 @@ export function reversalChart(series: readonly PathSeries[], o: { stressUnit: st
     marks: [
       Plot.ruleY([0], { stroke: PALETTE.grid }),
       Plot.ruleX([0], { stroke: PALETTE.grid }),
-      Plot.line(data, { x: 'strain', y: 'stress', stroke: 'model', strokeWidth: 2 }),
+      Plot.line(data, { x: 'strain', y: 'stress', stroke: 'model', strokeWidth: 2, clip: true }),
     ],
   });
 }
@@ -49,8 +49,8 @@ export function residualStressChart(profile: readonly { y: number; stress: numbe
     y: { label: `position through the thickness, outer side up (${o.lengthUnit})`, grid: true },
     marks: [
       Plot.ruleX([0], { stroke: PALETTE.grid }),
-      Plot.line(sorted, { x: 'stress', y: 'y', stroke: PALETTE.elastic, strokeWidth: 2, curve: 'linear' }),
-      Plot.dot(sorted, { x: 'stress', y: 'y', fill: PALETTE.elastic, r: 2 }),
+      Plot.line(sorted, { x: 'stress', y: 'y', stroke: PALETTE.elastic, strokeWidth: 2, curve: 'linear', clip: true }),
+      Plot.dot(sorted, { x: 'stress', y: 'y', fill: PALETTE.elastic, r: 2, clip: true }),
     ],
   });
 }
