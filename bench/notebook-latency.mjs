@@ -17,6 +17,7 @@
 // (Notebook.profile), which includes building chart DOM off-page but not layout or paint.
 //
 // Run: npm run build (not needed for the notebooks) && node bench/notebook-latency.mjs [notebook ...]
+// (a notebook name may carry a query, e.g. `reversal?redraw design?sync`: the old behaviour, for an A/B)
 // Options via env: SAMPLES (per kind per slider, default 40).
 import { createServer as netServer } from 'node:net';
 import { loadavg } from 'node:os';
@@ -47,10 +48,13 @@ const rows = [];
 const loads = [loadavg()[0]];
 try {
   for (const name of wanted) {
+    // A name may carry a query for an A/B in the same run: `design?sync` (route search on the
+    // page's thread), `reversal?redraw` (Plot redraws on every move), the old behaviour of each.
+    const [base, query] = name.split('?');
     const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
-    await page.goto(`http://127.0.0.1:${port}/${name}/`);
-    await page.waitForFunction((n) => Boolean(window.strainledger?.[n]), name, { timeout: 60_000 });
-    await page.evaluate((n) => window.strainledger[n].idle(), name);
+    await page.goto(`http://127.0.0.1:${port}/${base}/${query ? `?${query}` : ''}`);
+    await page.waitForFunction((n) => Boolean(window.strainledger?.[n]), base, { timeout: 60_000 });
+    await page.evaluate((n) => window.strainledger[n].idle(), base);
     const sliders = await page.evaluate(() => [...document.querySelectorAll('.sl-slider input[type=range], .sl-step-slider input[type=range]')].map((r) => r.id));
     if (sliders.length === 0) { rows.push({ name, slider: '(no sliders)' }); await page.close(); continue; }
     for (const id of sliders) {
@@ -111,7 +115,7 @@ try {
         window.removeEventListener('strainledger:refine', onRefine);
         await nb.idle();
         return { label, random, drag };
-      }, { n: name, id, samples: SAMPLES, quietMs: QUIET_MS });
+      }, { n: base, id, samples: SAMPLES, quietMs: QUIET_MS });
       loads.push(loadavg()[0]);
       const all = [...r.random, ...r.drag];
       const cellTotals = {};

@@ -52,6 +52,8 @@ function reverseYield(r: PathResult, topIndex: number): number {
 
 /** The charts are redrawn by Plot once a slider has rested this long (ms); moves in between retrace the kept chart. */
 export const REFINE_AFTER_MS = 120;
+/** `?redraw` in the address: Plot redraws on every move, as before (the latency bench compares the two). */
+const REDRAW = new URLSearchParams(location.search).has('redraw');
 const sleep = (ms: number) => new Promise<void>((r) => setTimeout(r, ms));
 type Pts = readonly { x: number; y: number }[];
 /** The last chart drawn by Plot in a cell, with what its frame depends on (width, series). */
@@ -68,7 +70,7 @@ async function* chartStream(cell: string, frame: string, lines: Pts[], dots: Pts
   const run = (latestRun.get(cell) ?? 0) + 1;
   latestRun.set(cell, run);
   const old = kept.get(cell);
-  if (old && old.frame === frame && retrace(old.el, lines, dots)) {
+  if (!REDRAW && old && old.frame === frame && retrace(old.el, lines, dots)) {
     old.el.setAttribute('data-resolution', 'preview');
     yield old.el;
     await nb.track(sleep(REFINE_AFTER_MS));
