@@ -9,6 +9,7 @@ import {
 import type { FlowLaw, LawSpec, Material } from '../../src/core/index.js';
 import { flowCurveChart, loadUnloadChart, markPrestrain } from '../../src/charts/prestrain.js';
 import { BENCH_MATERIAL_KEY, demoPlans, pageChrome } from '../shared/page.js';
+import { chartStreams } from '../shared/chartStream.js';
 
 pageChrome('prestrain/', 'Prestrain explorer');
 
@@ -92,6 +93,7 @@ function companions(law: FlowLaw, range: readonly [number, number]): { label: st
   });
 }
 
+const chartStream = chartStreams(() => nb);
 const nb = new Notebook();
 nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({ name: 'lawText', fn: () => valueStream(lawTextWrap as unknown as HTMLElement & { value: string }) })
@@ -190,7 +192,11 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       const extra = Math.max(0.02, eps * 0.25);
       const reloading = [{ strain: eps, stress: 0 }];
       for (let i = 0; i <= N; i++) { const ep = eps + (extra * i) / N; const sg = law.stress(ep); reloading.push({ strain: ep + sg / Eu, stress: sg }); }
-      return loadUnloadChart({ loading, unloading, reloading, recovery: { from: eps, to: eps + top / Eu } }, { stressUnit: 'MPa', width });
+      // While the slider moves: the three legs retraced on the kept chart (the recovery bracket and its
+      // label hidden until Plot redraws the chart when the slider rests).
+      return chartStream('lurChart', String(width), [loading, unloading, reloading].map((leg) => leg.map((p) => ({ x: p.strain, y: p.stress }))), undefined,
+        () => loadUnloadChart({ loading, unloading, reloading, recovery: { from: eps, to: eps + top / Eu } }, { stressUnit: 'MPa', width }) as Element,
+        ['g[aria-label="line"] ~ g[aria-label="rule"]', 'g[aria-label="text"]']);
     },
   })
   .cell({

@@ -6,7 +6,7 @@ import { integratePath, springback, backstressAfter, chordModulus, fitKinematic,
 import type { KinematicFit, Material, PathResult, SpringbackResult } from '../../src/core/index.js';
 import { parseRecordText } from '../../src/records/index.js';
 import { reversalChart, residualStressChart } from '../../src/charts/reversal.js';
-import { retrace } from '../../src/charts/retrace.js';
+import { chartStreams, type Pts } from '../shared/chartStream.js';
 import { demoPlans, pageChrome } from '../shared/page.js';
 
 pageChrome('reversal/', 'Reversal and springback');
@@ -50,38 +50,7 @@ function reverseYield(r: PathResult, topIndex: number): number {
   return top.backstress - top.yieldSurfaceSize;
 }
 
-/** The charts are redrawn by Plot once a slider has rested this long (ms); moves in between retrace the kept chart. */
-export const REFINE_AFTER_MS = 120;
-/** `?redraw` in the address: Plot redraws on every move, as before (the latency bench compares the two). */
-const REDRAW = new URLSearchParams(location.search).has('redraw');
-const sleep = (ms: number) => new Promise<void>((r) => setTimeout(r, ms));
-type Pts = readonly { x: number; y: number }[];
-/** The last chart drawn by Plot in a cell, with what its frame depends on (width, series). */
-const kept = new Map<string, { el: Element; frame: string }>();
-const latestRun = new Map<string, number>();
-/**
- * A chart cell's answer to a move: when the chart on screen has the same frame (width and series),
- * its lines (and dots) are moved to the new values on its present axes at once (`retrace`, marked
- * `data-resolution="preview"`), and Plot redraws the whole chart (axes fitted to the new values)
- * once the slider rests; otherwise Plot draws it at once. Fires `strainledger:refine` before the
- * redraw (the latency bench separates the two by it); `nb.track` makes `idle()` wait for it.
- */
-async function* chartStream(cell: string, frame: string, lines: Pts[], dots: Pts | undefined, draw: () => Element): AsyncGenerator<Element, void, unknown> {
-  const run = (latestRun.get(cell) ?? 0) + 1;
-  latestRun.set(cell, run);
-  const old = kept.get(cell);
-  if (!REDRAW && old && old.frame === frame && retrace(old.el, lines, dots)) {
-    old.el.setAttribute('data-resolution', 'preview');
-    yield old.el;
-    await nb.track(sleep(REFINE_AFTER_MS));
-    if (latestRun.get(cell) !== run) return;
-    window.dispatchEvent(new Event('strainledger:refine'));
-  }
-  const el = draw();
-  el.setAttribute('data-resolution', 'full');
-  kept.set(cell, { el, frame });
-  yield el;
-}
+const chartStream = chartStreams(() => nb);
 const xy = (pts: readonly { strain: number; stress: number }[]): Pts => pts.map((p) => ({ x: p.strain, y: p.stress }));
 
 const nb = new Notebook();
