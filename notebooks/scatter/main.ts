@@ -86,6 +86,9 @@ const sleep = (ms: number) => new Promise<void>((r) => setTimeout(r, ms));
 interface Shown { summary: ScatterSummary; full: boolean; samples: number; of: number }
 
 let latestRun = 0;
+let keptHistogram: { el: Element; plan: LoadedPlan; width: number } | null = null;
+/** `?redraw` in the address: the preview redraws the histogram, as before (the latency bench compares the two). */
+const REDRAW_HISTOGRAM = new URLSearchParams(location.search).has('redraw');
 /**
  * The summary cell: a preview from {@link PREVIEW_SAMPLES} samples at once, then the full run from
  * the worker when the slider rests. A newer problem makes an older generator stop before it shows
@@ -144,6 +147,14 @@ nb.cell({ name: 'plan', fn: () => valueStream(planInput) })
   .cell({
     name: 'histogram', inputs: ['shown', 'plan', 'histogramWidth'], into: 'cell-histogram',
     fn: (shown: Shown, plan: LoadedPlan, width: number) => {
+      // A preview keeps the last full histogram on screen, dimmed and marked as updating (drawing a
+      // histogram with Plot cost 15–35 ms per move in bench/notebook-latency.mjs); the full answer
+      // redraws it. Only the first answer of the page, or one at a new width, draws a preview histogram.
+      if (!REDRAW_HISTOGRAM && !shown.full && keptHistogram && keptHistogram.plan === plan && keptHistogram.width === width) {
+        keptHistogram.el.setAttribute('data-resolution', 'updating');
+        (keptHistogram.el as HTMLElement).style.opacity = '0.45';
+        return keptHistogram.el;
+      }
       const s = shown.summary;
       const S = plan.units.fromMPa;
       const t = plan.route.targets ?? {};
@@ -157,6 +168,7 @@ nb.cell({ name: 'plan', fn: () => valueStream(planInput) })
       });
       chart.setAttribute('data-resolution', shown.full ? 'full' : 'preview');
       chart.setAttribute('id', 'histogram');
+      if (shown.full) keptHistogram = { el: chart, plan, width };
       return chart;
     },
   })

@@ -66,7 +66,8 @@ describe('scatter notebook', () => {
     });
     expect(preview, 'no preview shown').not.toBeNull();
     expect(preview!.note).toContain('Preview from the first 1,024 of 20,000 samples');
-    expect(preview!.hist).toBe('preview');
+    // The histogram is not redrawn for a preview: the last full one stays, dimmed and marked as updating.
+    expect(preview!.hist).toBe('updating');
     // The preview is the core's runScatter on 1,024 samples of the same problem and seed ...
     const problem = withFinalPass(plan.scatter!, 0.35);
     const small = runScatter({ ...problem, samples: 1024 });
