@@ -1,16 +1,35 @@
-// Notebook latency: from a prestrain-slider `input` event to every dependent cell settled and the
-// result painted, over 100 moves in headless Chromium (Debian's /usr/bin/chromium, --disable-gpu).
-// "Painted" = the first animation frame after the runtime settled has run and its paint has been
-// committed (a message posted from that frame's rAF callback is delivered after the paint).
-// Moves are spaced by a seeded pseudo-random 0–20 ms so events land at every phase of the frame.
-// Run: node bench/notebook-latency.mjs  (starts and stops its own vite server and browser)
+// Notebook latency over every slider of every notebook, headless Chromium (Debian's
+// /usr/bin/chromium, --disable-gpu), in one run so the numbers sit side by side under one load.
+//
+// Per sample: a slider's `input` event is dispatched at t0; a MutationObserver on the whole page
+// records the time of every DOM change; once the notebook has settled (`Notebook.idle()`) and the
+// page has then stayed quiet for QUIET_MS, the sample's latency is (time of the last mutation − t0).
+// Two kinds of samples per slider:
+//   random — a seeded pseudo-random value anywhere in the slider's range, after a random 0–20 ms
+//            pause, so events land at every phase of the frame;
+//   drag   — consecutive small moves (1–3 slider steps), each one animation frame after the page
+//            went quiet from the previous one, as a pointer drag that does not wait for a rest.
+// A notebook that answers a move with a quick preview and refines it later (scatter: the full Monte
+// Carlo once the slider rests) fires `strainledger:refine` before the refined answer: the latency is
+// then the last DOM change before that event, and the refined answer's time is reported beside it
+// ("full answer", random samples only; drags move on before the slider rests).
+// Computation-only time = the time spent inside the notebook's cell functions for that sample
+// (Notebook.profile), which includes building chart DOM off-page but not layout or paint.
+//
+// Run: npm run build (not needed for the notebooks) && node bench/notebook-latency.mjs [notebook ...]
+// (a notebook name may carry a query, e.g. `reversal?redraw design?sync`: the old behaviour, for an A/B)
+// Options via env: SAMPLES (per kind per slider, default 40).
 import { createServer as netServer } from 'node:net';
+import { loadavg } from 'node:os';
 import { join } from 'node:path';
 import { chromium } from 'playwright-core';
 import { createServer } from 'vite';
 
 const repo = join(import.meta.dirname, '..');
-const MOVES = 100;
+const SAMPLES = Number(process.env.SAMPLES ?? 40);
+const QUIET_MS = 40;
+const ALL = ['prestrain', 'route', 'records', 'reversal', 'scatter', 'design'];
+const wanted = process.argv.slice(2).length ? process.argv.slice(2) : ALL;
 
 const port = await new Promise((resolve, reject) => {
   const s = netServer();
@@ -23,56 +42,107 @@ const browser = await chromium.launch({
   executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', headless: true,
   args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
 });
+const q = (xs, p) => { if (!xs.length) return NaN; const s = [...xs].sort((a, b) => a - b); return s[Math.min(s.length - 1, Math.ceil(p * s.length) - 1)]; };
+const f = (x) => (Number.isFinite(x) ? x.toFixed(1) : '–');
+const rows = [];
+const loads = [loadavg()[0]];
 try {
-  const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
-  await page.goto(`http://127.0.0.1:${port}/prestrain/`);
-  await page.waitForFunction(() => Boolean(window.strainledger?.prestrain));
-  await page.evaluate(() => window.strainledger.prestrain.idle());
-  const result = await page.evaluate(async (moves) => {
-    const nb = window.strainledger.prestrain;
-    const range = document.getElementById('prestrain-range');
-    const numbers = document.querySelector('#cell-numbers');
-    let seed = 12345;
-    const rand = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
-    const painted = () => new Promise((resolve) => requestAnimationFrame(() => {
-      const ch = new MessageChannel();
-      ch.port1.onmessage = () => resolve(performance.now());
-      ch.port2.postMessage(0);
-    }));
-    const settle = [];
-    const paint = [];
-    let changed = 0;
-    // Warm-up moves (JIT, chart code paths), not counted.
-    for (let i = 0; i < 10; i++) { range.value = String(0.05 + i * 0.01); range.dispatchEvent(new Event('input', { bubbles: true })); await nb.idle(); await painted(); }
-    for (let i = 0; i < moves; i++) {
-      await new Promise((r) => setTimeout(r, rand() * 20));
-      const before = numbers.textContent;
-      const t0 = performance.now();
-      range.value = String(0.2 + (i % 50) * 0.02);
-      range.dispatchEvent(new Event('input', { bubbles: true }));
-      await nb.idle();
-      const t1 = performance.now();
-      const t2 = await painted();
-      if (numbers.textContent !== before) changed++;
-      settle.push(t1 - t0);
-      paint.push(t2 - t0);
+  for (const name of wanted) {
+    // A name may carry a query for an A/B in the same run: `design?sync` (route search on the
+    // page's thread), `reversal?redraw` (Plot redraws on every move), the old behaviour of each.
+    const [base, query] = name.split('?');
+    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    await page.goto(`http://127.0.0.1:${port}/${base}/${query ? `?${query}` : ''}`);
+    await page.waitForFunction((n) => Boolean(window.strainledger?.[n]), base, { timeout: 60_000 });
+    await page.evaluate((n) => window.strainledger[n].idle(), base);
+    const sliders = await page.evaluate(() => [...document.querySelectorAll('.sl-slider input[type=range], .sl-step-slider input[type=range]')].map((r) => r.id));
+    if (sliders.length === 0) { rows.push({ name, slider: '(no sliders)' }); await page.close(); continue; }
+    for (const id of sliders) {
+      const r = await page.evaluate(async ({ n, id, samples, quietMs }) => {
+        const nb = window.strainledger[n];
+        const range = document.getElementById(id);
+        const min = Number(range.min), max = Number(range.max), step = Number(range.step) || 1;
+        const label = range.getAttribute('aria-label')?.replace(/ \(slider\)$/, '') ?? document.querySelector(`label[for="${id}"]`)?.textContent ?? id;
+        let seed = 12345;
+        const rand = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+        const snap = (v) => Math.min(max, Math.max(min, min + Math.round((v - min) / step) * step));
+        const frame = () => new Promise((res) => requestAnimationFrame(() => res()));
+        let last = 0, first = 0, count = 0, refineAt = null;
+        const mo = new MutationObserver(() => { const t = performance.now(); last = t; if (refineAt === null) first = t; count++; });
+        mo.observe(document.body, { subtree: true, childList: true, attributes: true, characterData: true });
+        const onRefine = () => { refineAt = performance.now(); };
+        window.addEventListener('strainledger:refine', onRefine);
+        const quiet = async () => {
+          for (;;) {
+            const seen = count;
+            await new Promise((res) => setTimeout(res, quietMs));
+            if (count === seen) break;
+          }
+        };
+        // rest = true: wait for everything the move starts (the notebook idle, a refined answer
+        // included); rest = false (drag): wait only until the page is quiet, then move on.
+        const one = async (value, rest) => {
+          nb.profile = new Map();
+          count = 0;
+          refineAt = null;
+          const t0 = performance.now();
+          last = first = t0;
+          range.value = String(value);
+          range.dispatchEvent(new Event('input', { bubbles: true }));
+          if (rest) await nb.idle();
+          await quiet();
+          const compute = [...nb.profile.values()].reduce((a, b) => a + b, 0);
+          const cells = Object.fromEntries(nb.profile);
+          nb.profile = null;
+          return { dom: first - t0, full: refineAt === null ? null : last - t0, compute, cells, changed: count > 0 };
+        };
+        // Warm-up (JIT, chart code paths), not counted.
+        for (let i = 0; i < 8; i++) await one(snap(min + rand() * (max - min)), true);
+        const random = [], drag = [];
+        for (let i = 0; i < samples; i++) {
+          await new Promise((res) => setTimeout(res, rand() * 20));
+          random.push(await one(snap(min + rand() * (max - min)), true));
+        }
+        let v = snap(min + (max - min) * 0.3), dir = 1;
+        for (let i = 0; i < samples; i++) {
+          await frame();
+          let nv = snap(v + dir * step * (1 + Math.floor(rand() * 3)));
+          if (nv >= max || nv <= min) { dir = -dir; nv = snap(v + dir * step); }
+          v = nv;
+          drag.push(await one(v, false));
+        }
+        mo.disconnect();
+        window.removeEventListener('strainledger:refine', onRefine);
+        await nb.idle();
+        return { label, random, drag };
+      }, { n: base, id, samples: SAMPLES, quietMs: QUIET_MS });
+      loads.push(loadavg()[0]);
+      const all = [...r.random, ...r.drag];
+      const cellTotals = {};
+      for (const s of all) for (const [k, v] of Object.entries(s.cells)) cellTotals[k] = (cellTotals[k] ?? 0) + v / all.length;
+      const top = Object.entries(cellTotals).sort((a, b) => b[1] - a[1]).slice(0, 3).map(([k, v]) => `${k} ${v.toFixed(1)}`).join(', ');
+      rows.push({
+        name, slider: r.label,
+        randMed: q(r.random.map((s) => s.dom), 0.5), randP95: q(r.random.map((s) => s.dom), 0.95),
+        dragMed: q(r.drag.map((s) => s.dom), 0.5), dragP95: q(r.drag.map((s) => s.dom), 0.95),
+        p95: q(all.map((s) => s.dom), 0.95), max: Math.max(...all.map((s) => s.dom)), computeMed: q(all.map((s) => s.compute), 0.5), computeP95: q(all.map((s) => s.compute), 0.95),
+        unchanged: all.filter((s) => !s.changed).length, n: all.length, top,
+        fullMed: q(r.random.filter((s) => s.full !== null).map((s) => s.full), 0.5), fullP95: q(r.random.filter((s) => s.full !== null).map((s) => s.full), 0.95),
+      });
+      process.stderr.write(`${name} / ${r.label}: p95 ${f(rows.at(-1).p95)} ms\n`);
     }
-    // Baseline in the same run: the interval between animation frames with nothing to do, i.e.
-    // how often this browser on this machine paints at all (the floor under any paint latency).
-    const frames = [];
-    let last = await painted();
-    for (let i = 0; i < 100; i++) { const t = await painted(); frames.push(t - last); last = t; }
-    return { settle, paint, changed, frames };
-  }, MOVES);
-  const q = (xs, p) => { const s = [...xs].sort((a, b) => a - b); return s[Math.min(s.length - 1, Math.ceil(p * s.length) - 1)]; };
-  const f = (x) => x.toFixed(1);
-  console.log(`notebook latency, prestrain explorer, ${MOVES} slider moves (${result.changed} changed the numbers), headless Chromium --disable-gpu, ${new Date().toISOString()}`);
-  console.log(`  input → all cells settled:          median ${f(q(result.settle, 0.5))} ms, p95 ${f(q(result.settle, 0.95))} ms, max ${f(Math.max(...result.settle))} ms`);
-  console.log(`  input → settled and painted:        median ${f(q(result.paint, 0.5))} ms, p95 ${f(q(result.paint, 0.95))} ms, max ${f(Math.max(...result.paint))} ms`);
-  console.log(`  idle frame interval (baseline):     median ${f(q(result.frames, 0.5))} ms, p95 ${f(q(result.frames, 0.95))} ms`);
-  console.log(`  load average during the run: ${(await import('node:os')).loadavg().map((x) => x.toFixed(1)).join(' ')} (2 cores)`);
-  console.log(`  aim: p95 of settled-and-painted ≤ 16 ms (one frame at 60 Hz): ${q(result.paint, 0.95) <= 16 ? 'met' : 'NOT met'}`);
+    await page.close();
+  }
 } finally {
   await browser.close();
   await server.close();
+}
+console.log(`notebook latency: input event → last DOM change, ${SAMPLES} random + ${SAMPLES} drag samples per slider, headless Chromium --disable-gpu, 1280×800, ${new Date().toISOString()}`);
+console.log(`load average (1 min) during the run: min ${Math.min(...loads).toFixed(1)}, max ${Math.max(...loads).toFixed(1)} (2 cores)`);
+console.log('');
+console.log('| notebook | slider | random median | random p95 | drag median | drag p95 | all p95 | all max | ≤ 16 ms p95 | computation median / p95 | slowest cells (mean ms) | full answer median / p95 |');
+console.log('|---|---|---:|---:|---:|---:|---:|---:|---|---:|---|---:|');
+for (const r of rows) {
+  if (r.p95 === undefined) { console.log(`| ${r.name} | ${r.slider} | | | | | | | | | | |`); continue; }
+  console.log(`| ${r.name} | ${r.slider} | ${f(r.randMed)} | ${f(r.randP95)} | ${f(r.dragMed)} | ${f(r.dragP95)} | ${f(r.p95)} | ${f(r.max)} | ${r.p95 <= 16 ? 'met' : 'NOT met'} | ${f(r.computeMed)} / ${f(r.computeP95)} | ${r.top} | ${Number.isFinite(r.fullMed) ? `${f(r.fullMed)} / ${f(r.fullP95)}` : '–'} |`);
 }

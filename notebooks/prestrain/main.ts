@@ -1,7 +1,7 @@
 // Prestrain explorer: the cell graph. Every number comes from the core (stateProperties,
 // chordModulus, makeLaw); the page only arranges and formats them.
 import {
-  Notebook, expose, slider, stepSlider, choice, valueStream, h, quantity, fixed, formatLaw, DIGITS, restore, byId,
+  Notebook, expose, slider, stepSlider, choice, valueStream, widthStream, h, quantity, fixed, formatLaw, DIGITS, restore, byId,
 } from '../../src/cells/index.js';
 import {
   makeLaw, fitAllLaws, stateProperties, chordModulus, reductionPctFromStrain, LAW_PARAMETERS, LAW_NAMES, PROOF_OFFSET, InputError, defaultHardnessModel,
@@ -9,6 +9,7 @@ import {
 import type { FlowLaw, LawSpec, Material } from '../../src/core/index.js';
 import { flowCurveChart, loadUnloadChart, markPrestrain } from '../../src/charts/prestrain.js';
 import { BENCH_MATERIAL_KEY, demoPlans, pageChrome } from '../shared/page.js';
+import { chartStreams } from '../shared/chartStream.js';
 
 pageChrome('prestrain/', 'Prestrain explorer');
 
@@ -119,6 +120,7 @@ function companions(law: FlowLaw, range: readonly [number, number]): { label: st
   });
 }
 
+const chartStream = chartStreams(() => nb);
 const nb = new Notebook();
 nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({ name: 'lawText', fn: () => valueStream(lawTextWrap as unknown as HTMLElement & { value: string }) })
@@ -199,10 +201,12 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       return s.laws.map(({ label, law }) => ({ label, points: Array.from({ length: N + 1 }, (_, i) => ({ strain: (top * i) / N, stress: law.stress((top * i) / N) })) }));
     },
   })
+  .cell({ name: 'flowWidth', fn: () => widthStream(byId('cell-flow-chart')) })
+  .cell({ name: 'lurWidth', fn: () => widthStream(byId('cell-lur-chart')) })
   .cell({
-    name: 'flowBase', inputs: ['curves', 'lawSet'],
-    fn: (curves: { label: string; points: { strain: number; stress: number }[] }[], s: LawSet) =>
-      flowCurveChart(curves, { stressUnit: 'MPa', testedRange: s.testedRange ?? [0, Math.min(...s.laws.map((x) => x.law.uniformStrain()))] }),
+    name: 'flowBase', inputs: ['curves', 'lawSet', 'flowWidth'],
+    fn: (curves: { label: string; points: { strain: number; stress: number }[] }[], s: LawSet, width: number) =>
+      flowCurveChart(curves, { stressUnit: 'MPa', testedRange: s.testedRange ?? [0, Math.min(...s.laws.map((x) => x.law.uniformStrain()))], width }),
   })
   .cell({
     // A slider move only moves the marker on the chart drawn above (same element, no redraw).
@@ -216,8 +220,8 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
     },
   })
   .cell({
-    name: 'lurChart', inputs: ['lawSet', 'prestrain'], into: 'cell-lur-chart',
-    fn: (s: LawSet, eps: number) => {
+    name: 'lurChart', inputs: ['lawSet', 'prestrain', 'lurWidth'], into: 'cell-lur-chart',
+    fn: (s: LawSet, eps: number, width: number) => {
       const law = s.laws[0]!.law;
       const E = (ep: number) => chordModulus(s.elasticModulus, s.modulusDecay, ep);
       const N = 60;
@@ -230,7 +234,11 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       const extra = Math.max(0.02, eps * 0.25);
       const reloading = [{ strain: eps, stress: 0 }];
       for (let i = 0; i <= N; i++) { const ep = eps + (extra * i) / N; const sg = law.stress(ep); reloading.push({ strain: ep + sg / Eu, stress: sg }); }
-      return loadUnloadChart({ loading, unloading, reloading, recovery: { from: eps, to: eps + top / Eu } }, { stressUnit: 'MPa' });
+      // While the slider moves: the three legs retraced on the kept chart (the recovery bracket and its
+      // label hidden until Plot redraws the chart when the slider rests).
+      return chartStream('lurChart', String(width), [loading, unloading, reloading].map((leg) => leg.map((p) => ({ x: p.strain, y: p.stress }))), undefined,
+        () => loadUnloadChart({ loading, unloading, reloading, recovery: { from: eps, to: eps + top / Eu } }, { stressUnit: 'MPa', width }) as Element,
+        ['g[aria-label="line"] ~ g[aria-label="rule"]', 'g[aria-label="text"]']);
     },
   })
   .cell({

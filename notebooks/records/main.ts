@@ -3,6 +3,7 @@
 // (worker.ts) so that a large record never freezes the page.
 import {
   Notebook, expose, h, fixed, formatLawParam, DIGITS, fileDrop, errorBox, byId, autosave, choice, restore,
+  widthStream,
 } from '../../src/cells/index.js';
 import { InputError, LAW_PARAMETERS } from '../../src/core/index.js';
 import type { LawName, TensileAnalysis } from '../../src/core/index.js';
@@ -200,10 +201,12 @@ nb.cell({ name: 'input', fn: () => null })
         a.warnings.length ? h('ul', { class: 'sl-notice' }, ...a.warnings.map((x) => h('li', {}, x.message))) : null);
     },
   })
-  .cell({ name: 'curveChart', inputs: ['record', 'analysis'], into: 'cell-curve-chart', fn: (r: TensileRecord, a: TensileAnalysis) => recordCurveChart(r, a) })
+  .cell({ name: 'curveWidth', fn: () => widthStream(byId('cell-curve-chart')) })
+  .cell({ name: 'residualWidth', fn: () => widthStream(byId('cell-residual-chart')) })
+  .cell({ name: 'curveChart', inputs: ['record', 'analysis', 'curveWidth'], into: 'cell-curve-chart', fn: (r: TensileRecord, a: TensileAnalysis, width: number) => recordCurveChart(r, a, { width }) })
   .cell({
-    name: 'residualChart', inputs: ['analysis'], into: 'cell-residual-chart',
-    fn: (a: TensileAnalysis) => (a.fits ? residualChart(a.flowCurve.strain, a.fits.fits.filter((f) => f.converged)) : h('p', {}, 'No fits.')),
+    name: 'residualChart', inputs: ['analysis', 'residualWidth'], into: 'cell-residual-chart',
+    fn: (a: TensileAnalysis, width: number) => (a.fits ? residualChart(a.flowCurve.strain, a.fits.fits.filter((f) => f.converged), { width }) : h('p', {}, 'No fits.')),
   })
   .cell({
     name: 'fits', inputs: ['analysis'], into: 'cell-fits',

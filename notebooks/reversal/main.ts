@@ -1,11 +1,12 @@
 // Reversal and springback: a load path with reversal (combined against isotropic hardening) and the
 // springback of a bend, both following the prestrain slider. Every number comes from the core
 // (integratePath, springback, backstressAfter); the page only arranges and formats them.
-import { Notebook, expose, slider, choice, valueStream, h, quantity, DIGITS, byId, fileDrop, errorBox, downloadText } from '../../src/cells/index.js';
+import { Notebook, expose, slider, choice, valueStream, widthStream, h, quantity, DIGITS, byId, fileDrop, errorBox, downloadText } from '../../src/cells/index.js';
 import { integratePath, springback, backstressAfter, chordModulus, fitKinematic, trueCurve } from '../../src/core/index.js';
 import type { KinematicFit, Material, PathResult, SpringbackResult } from '../../src/core/index.js';
 import { parseRecordText } from '../../src/records/index.js';
 import { reversalChart, residualStressChart } from '../../src/charts/reversal.js';
+import { chartStreams, type Pts } from '../shared/chartStream.js';
 import { demoPlans, pageChrome } from '../shared/page.js';
 
 pageChrome('reversal/', 'Reversal and springback');
@@ -49,6 +50,9 @@ function reverseYield(r: PathResult, topIndex: number): number {
   return top.backstress - top.yieldSurfaceSize;
 }
 
+const chartStream = chartStreams(() => nb);
+const xy = (pts: readonly { strain: number; stress: number }[]): Pts => pts.map((p) => ({ x: p.strain, y: p.stress }));
+
 const nb = new Notebook();
 nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({ name: 'prestrain', fn: () => valueStream(prestrainInput) })
@@ -56,6 +60,8 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
   .cell({ name: 'thickness', fn: () => valueStream(thicknessInput) })
   .cell({ name: 'radius', fn: () => valueStream(radiusInput) })
   .cell({ name: 'angle', fn: () => valueStream(angleInput) })
+  .cell({ name: 'pathWidth', fn: () => widthStream(byId('cell-path-chart')) })
+  .cell({ name: 'residualWidth', fn: () => widthStream(byId('cell-residual-chart')) })
   .cell({
     name: 'material', inputs: ['source'], into: 'material-note',
     fn: (i: number): Material => demos[i]!.plan.route.material,
@@ -72,7 +78,10 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       // Total strain at which the plastic strain equals the prestrain on first loading: εp + σ(εp)/E(εp).
       const top = pre + m.law.stress(pre) / chordModulus(m.elasticModulus, m.modulusDecay, pre);
       const back = top - (2 * m.law.stress(pre)) / m.elasticModulus - rev;
-      const opts = { maxIncrement: 1e-4 };
+      // The return mapping is exact for each monotonic leg whatever the increment (core/path/integrate.ts),
+      // so the increment only sets how many points the chart gets: ~400 over the whole path (was a fixed
+      // 1e-4, i.e. up to 10,000 points, which cost a slider move 25–45 ms in bench/notebook-latency.mjs).
+      const opts = { maxIncrement: Math.min(0.05, Math.max(1e-4, (top + (top - back)) / 400)) };
       const base = { elasticModulus: m.elasticModulus, law: m.law, ...(m.modulusDecay ? { modulusDecay: m.modulusDecay } : {}) };
       const iso = integratePath(base, [top, back], opts);
       const kin = m.kinematic ? integratePath({ ...base, kinematic: m.kinematic }, [top, back], opts) : null;
@@ -87,11 +96,15 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       quantity('reverse yield onset, with backstresses (true stress)', p.reverseYieldKin, DIGITS.stress, 'MPa', 'reverseYieldKin')),
   })
   .cell({
-    name: 'pathChart', inputs: ['paths'], into: 'cell-path-chart',
-    fn: (p: Paths) => reversalChart([
-      ...(p.kin ? [{ label: 'with backstresses (combined)', points: p.kin.points }] : []),
-      { label: 'isotropic only', points: p.iso.points },
-    ], { stressUnit: 'MPa' }),
+    name: 'pathChart', inputs: ['paths', 'pathWidth'], into: 'cell-path-chart',
+    fn: (p: Paths, width: number) => {
+      const series = [
+        ...(p.kin ? [{ label: 'with backstresses (combined)', points: p.kin.points }] : []),
+        { label: 'isotropic only', points: p.iso.points },
+      ];
+      return chartStream('pathChart', `${width}|${series.map((s) => s.label).join('|')}`, series.map((s) => xy(s.points)), undefined,
+        () => reversalChart(series, { stressUnit: 'MPa', width }) as Element);
+    },
   })
   .cell({
     name: 'bend', inputs: ['material', 'prestrain', 'thickness', 'radius', 'angle'],
@@ -111,8 +124,12 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       b.reverseYield ? h('p', { class: 'sl-warning' }, 'The residual stress reaches reverse yield: unloading is not purely elastic, springback is somewhat overstated.') : null),
   })
   .cell({
-    name: 'residualChart', inputs: ['bend'], into: 'cell-residual-chart',
-    fn: (b: SpringbackResult) => residualStressChart(b.residualStress, { stressUnit: 'MPa', lengthUnit: 'mm' }),
+    name: 'residualChart', inputs: ['bend', 'residualWidth'], into: 'cell-residual-chart',
+    fn: (b: SpringbackResult, width: number) => {
+      // Same order as the chart draws them (by position through the thickness).
+      const pts = [...b.residualStress].sort((a, c) => a.y - c.y).map((p) => ({ x: p.stress, y: p.y }));
+      return chartStream('residualChart', String(width), [pts], pts, () => residualStressChart(b.residualStress, { stressUnit: 'MPa', lengthUnit: 'mm', width }) as Element);
+    },
   });
 
 interface KinFitView { fit: KinematicFit; strain: Float64Array; stress: Float64Array; model: PathResult; name: string; material: Material }
@@ -156,11 +173,11 @@ nb.cell({ name: 'recordInput', fn: () => null })
     },
   })
   .cell({
-    name: 'kinfitChart', inputs: ['kinfit'], into: 'cell-kinfit-chart',
-    fn: (k: KinFitView | null) => k === null ? h('p', {}, '') : reversalChart([
+    name: 'kinfitChart', inputs: ['kinfit', 'pathWidth'], into: 'cell-kinfit-chart',
+    fn: (k: KinFitView | null, width: number) => k === null ? h('p', {}, '') : reversalChart([
       { label: 'record (true values)', points: Array.from(k.strain, (e, i) => ({ strain: e, stress: k.stress[i]! })) },
       { label: 'fitted model', points: k.model.points },
-    ], { stressUnit: 'MPa' }),
+    ], { stressUnit: 'MPa', width }),
   });
 fileDrop(recDrop, recFile as HTMLInputElement, (name, text) => nb.set('recordInput', { name, text }), (e) => byId('cell-kinfit-numbers').replaceChildren(errorBox(e, 'The file could not be read')));
 expose('reversal', nb);

@@ -4,6 +4,7 @@
 import {
   Notebook, expose, h, fixed, formatNumber, formatTargetValue, flowCurveText, DIGITS, autosave, restore, UndoHistory, planText, planFileName, importPlan,
   downloadText, fileDrop, errorBox, byId, choice,
+  widthStream,
 } from '../../src/cells/index.js';
 import { LAW_PARAMETERS, STEP_KIND_NAMES } from '../../src/core/index.js';
 import type { LawSpec } from '../../src/core/index.js';
@@ -225,6 +226,8 @@ byId('plan-tools').append(
 
 // The cells.
 const S = (r: ReportV1) => r.units.stress;
+/** The starting stock (step 0 of the step charts), in the plan's units like the steps. */
+const startOf = (r: ReportV1) => ({ reloadYield: r.material.initial.reloadYield, tensileStrength: r.material.initial.tensileStrength, remainingUniformElongationPct: r.material.initial.uniformElongationPct });
 nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
   .cell({
     name: 'plan', inputs: ['doc'], into: 'cell-validation',
@@ -295,26 +298,35 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
     },
   })
   .cell({
-    name: 'strengthChart', inputs: ['report'], into: 'cell-strength-chart',
-    fn: (r: ReportV1) => {
+    name: 'strengthWidth', fn: () => widthStream(byId('cell-strength-chart')),
+  })
+  .cell({
+    name: 'ductilityWidth', fn: () => widthStream(byId('cell-ductility-chart')),
+  })
+  .cell({
+    name: 'strengthChart', inputs: ['report', 'strengthWidth'], into: 'cell-strength-chart',
+    fn: (r: ReportV1, width: number) => {
       const t = Object.fromEntries(r.targets.map((x) => [x.name, x.limit]));
-      return strengthByStepChart(r.steps, { stressUnit: S(r), initialYield: r.material.initial.reloadYield, ...(t.minYield !== undefined ? { minYield: t.minYield } : {}), ...(t.maxYield !== undefined ? { maxYield: t.maxYield } : {}), width: 600 });
+      return strengthByStepChart(r.steps, { stressUnit: S(r), start: startOf(r), ...(t.minYield !== undefined ? { minYield: t.minYield } : {}), ...(t.maxYield !== undefined ? { maxYield: t.maxYield } : {}), width });
     },
   })
   .cell({
-    name: 'ductilityChart', inputs: ['report'], into: 'cell-ductility-chart',
-    fn: (r: ReportV1) => {
+    name: 'ductilityChart', inputs: ['report', 'ductilityWidth'], into: 'cell-ductility-chart',
+    fn: (r: ReportV1, width: number) => {
       const t = Object.fromEntries(r.targets.map((x) => [x.name, x.limit]));
-      return ductilityByStepChart(r.steps, { stressUnit: S(r), ...(t.minRemainingElongationPct !== undefined ? { minRemainingElongationPct: t.minRemainingElongationPct } : {}), width: 600 });
+      return ductilityByStepChart(r.steps, { stressUnit: S(r), start: startOf(r), ...(t.minRemainingElongationPct !== undefined ? { minRemainingElongationPct: t.minRemainingElongationPct } : {}), width });
     },
   })
   .cell({
-    name: 'hardnessChart', inputs: ['report'], into: 'cell-hardness-chart',
-    fn: (r: ReportV1) => {
+    name: 'hardnessWidth', fn: () => widthStream(byId('cell-hardness-chart')),
+  })
+  .cell({
+    name: 'hardnessChart', inputs: ['report', 'hardnessWidth'], into: 'cell-hardness-chart',
+    fn: (r: ReportV1, width: number) => {
       const t = Object.fromEntries(r.targets.map((x) => [x.name, x.limit]));
       const hm = r.material.hardness;
       return h('div', {},
-        hardnessByStepChart(r.steps, { ...(hm ? { initialHV: hm.initialHV } : {}), ...(t.minHardnessHV !== undefined ? { minHardnessHV: t.minHardnessHV } : {}), ...(t.maxHardnessHV !== undefined ? { maxHardnessHV: t.maxHardnessHV } : {}), width: 600 }),
+        hardnessByStepChart(r.steps, { ...(hm ? { initialHV: hm.initialHV } : {}), ...(t.minHardnessHV !== undefined ? { minHardnessHV: t.minHardnessHV } : {}), ...(t.maxHardnessHV !== undefined ? { maxHardnessHV: t.maxHardnessHV } : {}), width }),
         hm ? h('p', { id: 'hardness-basis', class: 'sl-note' }, hardnessText(hm)) : null);
     },
   });

@@ -6,6 +6,7 @@ export { cellObserver, defaultRender } from './observer.js';
 export type { CellObserver, Render } from './observer.js';
 export { errorBox, errorLines } from './errors.js';
 export { slider, choice, stepSlider, valueStream } from './inputs.js';
+export { widthStream } from './width.js';
 export type { ValueElement, SliderOptions, ChoiceOptions } from './inputs.js';
 export { autosave, restore, forget, UndoHistory } from './store.js';
 export type { Stored } from './store.js';

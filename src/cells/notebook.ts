@@ -5,6 +5,8 @@ import { cellObserver, type Render } from './observer.js';
 /** Microtask turns without activity after which {@link Notebook.idle} calls the notebook settled. */
 const QUIET_TICKS = 64;
 
+const hidden = (): null => null;
+
 /** A cell: a name, the names of the cells it reads, and a function of their values. */
 export interface CellSpec {
   name: string;
@@ -48,8 +50,15 @@ export class Notebook {
   private readonly pending = new Set<string>();
   private readonly variables = new Map<string, RuntimeVariable>();
   private waiters: (() => void)[] = [];
+  private readonly tracked = new Set<Promise<unknown>>();
   /** Number of cells currently showing an error. */
   readonly errors = new Set<string>();
+  /**
+   * Milliseconds spent in each cell's function (synchronous part), summed since profiling was
+   * switched on; `null` (the default) records nothing. The latency bench reads it to split a
+   * slider's latency into computation and DOM work.
+   */
+  profile: Map<string, number> | null = null;
 
   constructor() {
     this.runtime = new (Runtime as unknown as new () => RuntimeLike)();
@@ -64,9 +73,10 @@ export class Notebook {
   cell(spec: CellSpec): this {
     const el = typeof spec.into === 'string' ? byId(spec.into) : spec.into;
     const name = spec.name;
-    // A hidden cell renders nothing: serialising its value (a record of 100,000 points, say) into a
-    // detached element took a second of the page thread per change (measured, issue 12).
-    const observer = cellObserver(el ?? document.createElement('div'), spec.render ?? (el ? undefined : () => null), {
+    // A hidden cell (no `into`) is never rendered: the default render would JSON.stringify its value
+    // into a detached element on every change (for a path of thousands of points or a scatter
+    // summary, milliseconds per slider move: bench/notebook-profile.mjs).
+    const observer = cellObserver(el ?? document.createElement('div'), el ? spec.render : hidden, {
       onPending: () => this.pending.add(name),
       onSettled: (ok) => {
         this.pending.delete(name);
@@ -75,7 +85,18 @@ export class Notebook {
         this.wake();
       },
     });
-    const v = this.module.variable(observer).define(name, spec.inputs ?? [], spec.fn);
+    const fn = spec.fn;
+    const timed = (...args: unknown[]) => {
+      const p = this.profile;
+      if (!p) return fn(...args);
+      const t0 = performance.now();
+      try {
+        return fn(...args);
+      } finally {
+        p.set(name, (p.get(name) ?? 0) + performance.now() - t0);
+      }
+    };
+    const v = this.module.variable(observer).define(name, spec.inputs ?? [], timed);
     this.variables.set(name, v);
     return this;
   }
@@ -98,7 +119,19 @@ export class Notebook {
     for (const f of w) f();
   }
 
-  /** Resolves when no computation is scheduled and no shown cell is pending. */
+  /**
+   * Work a cell goes on with after it has shown a first value (a generator cell that shows a quick
+   * answer and then refines it): {@link idle} waits for it too, so tests see the refined answer.
+   * Returns the promise it was given.
+   */
+  track<T>(work: Promise<T>): Promise<T> {
+    this.tracked.add(work);
+    const done = () => { this.tracked.delete(work); this.wake(); };
+    work.then(done, done);
+    return work;
+  }
+
+  /** Resolves when no computation is scheduled, no shown cell is pending and no tracked work is left. */
   async idle(): Promise<void> {
     // A change reaches the runtime through a chain of promises (input event → generator → runtime
     // schedule → compute → observers); it is quiet once no computation is scheduled and no cell is
@@ -111,6 +144,9 @@ export class Notebook {
       } else if (this.pending.size > 0) {
         quiet = 0;
         await new Promise<void>((r) => this.waiters.push(r));
+      } else if (this.tracked.size > 0) {
+        quiet = 0;
+        await Promise.allSettled([...this.tracked]);
       } else {
         quiet++;
         await Promise.resolve();

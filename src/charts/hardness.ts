@@ -1,5 +1,6 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, PALETTE } from './palette.js';
+import { CHART_STYLE, MARGIN_BOTTOM, PALETTE } from './palette.js';
+import { DEFAULT_CHART_WIDTH, stepAxis, stepSeries, targetBand, type Point } from './ledger.js';
 
 /** What the hardness chart needs of a step: its number and the Tabor estimate (HV). */
 export interface HardnessChartStep {
@@ -21,37 +22,39 @@ export interface HardnessChartOptions {
 }
 
 /**
- * Vickers hardness (Tabor estimate) against step, with the hardness target drawn as a band.
- * Same code in the route planner (browser DOM) and in the runner's HTML report (linkedom).
+ * Vickers hardness (Tabor estimate) after each step (step 0: the starting stock), drawn as steps like
+ * the other step charts (`ledger.ts`: integer step ticks, a value holds until the next step), with
+ * the hardness target as a labelled band. Same code in the route planner (browser DOM) and in the
+ * runner's HTML report (linkedom).
  */
 export function hardnessByStepChart(steps: readonly HardnessChartStep[], o: HardnessChartOptions = {}): SVGSVGElement | HTMLElement {
-  const data = [
-    ...(o.initialHV !== undefined ? [{ index: 0, hv: o.initialHV }] : []),
-    ...steps.filter((s) => s.hardnessHV !== undefined).map((s) => ({ index: s.index, hv: s.hardnessHV! })),
+  const HV = 'Vickers hardness (Tabor estimate)';
+  const data: Point[] = [
+    ...(o.initialHV !== undefined ? [{ index: 0, value: o.initialHV, what: HV }] : []),
+    ...steps.filter((s) => s.hardnessHV !== undefined).map((s) => ({ index: s.index, value: s.hardnessHV!, what: HV })),
   ];
-  const marks: Plot.Markish[] = [];
+  const last = steps.length ? steps[steps.length - 1]!.index : 0;
+  const width = o.width ?? DEFAULT_CHART_WIDTH;
   const lo = o.minHardnessHV;
   const hi = o.maxHardnessHV;
+  const dataMax = Math.max(0, ...data.map((d) => d.value), lo ?? 0, hi ?? 0);
+  const marks: Plot.Markish[] = [];
   if (lo !== undefined || hi !== undefined) {
-    const top = hi ?? Math.max(lo ?? 0, ...data.map((d) => d.hv)) * 1.1;
-    marks.push(Plot.rectY([{ y1: lo ?? 0, y2: top }], { y1: 'y1', y2: 'y2', fill: PALETTE.band, fillOpacity: 0.25 }));
-    for (const [v, what] of [[lo, 'min'], [hi, 'max']] as const) {
-      // Labelled inside the band at its right end, clear of the axis label and of the line's start.
-      if (v !== undefined) marks.push(Plot.text([{ y: v }], { y: 'y', frameAnchor: 'right', textAnchor: 'end', dx: -4, dy: what === 'min' ? -7 : 8, text: () => `${what} ${v} HV`, fill: PALETTE.ink }));
-    }
+    const f = (v: number) => String(+v.toPrecision(4));
+    const label = lo !== undefined && hi !== undefined ? `hardness target ${f(lo)}–${f(hi)} HV` : lo !== undefined ? `hardness target ≥ ${f(lo)} HV` : `hardness target ≤ ${f(hi!)} HV`;
+    marks.push(...targetBand(lo, hi, dataMax * 1.1, 0, label));
   }
-  marks.push(
-    Plot.ruleY([0], { stroke: PALETTE.grid }),
-    Plot.line(data, { x: 'index', y: 'hv', stroke: PALETTE.strength, marker: 'circle-stroke' }),
-  );
+  marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, ''));
   return Plot.plot({
     ...(o.document ? { document: o.document } : {}),
-    width: o.width ?? 640,
-    height: o.height ?? 240,
+    width,
+    height: o.height ?? 260,
+    marginRight: 24,
+    marginBottom: MARGIN_BOTTOM,
     style: CHART_STYLE,
-    // One tick per step, at whole numbers (a tick count can land between steps and repeat a label).
-    x: { label: 'step', ticks: data.map((d) => d.index), tickFormat: 'd' },
-    y: { label: 'Vickers hardness HV (Tabor estimate)', grid: true },
+    x: stepAxis(last, width),
+    y: { label: 'Vickers hardness HV (Tabor estimate)', grid: true, domain: [0, dataMax * 1.1] },
+    color: { domain: [HV], range: [PALETTE.strength] },
     marks,
   });
 }

@@ -28,3 +28,11 @@ export const CHART_STYLE = {
   color: PALETTE.ink,
   background: 'white',
 } as const;
+
+/**
+ * The x axis every chart shares: its label centred under the axis, below the tick labels (Plot's
+ * default puts it at the right end, where it can run into the last tick), with room kept for it.
+ */
+export const X_AXIS = { labelAnchor: 'center', labelArrow: 'none', labelOffset: 34 } as const;
+/** Bottom margin (px) that leaves room for {@link X_AXIS}'s label. */
+export const MARGIN_BOTTOM = 42;

@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, PALETTE } from './palette.js';
+import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
 
 /** One law's flow curve, sampled: points of true stress against true plastic strain. */
 export interface CurveSeries {
@@ -42,7 +42,8 @@ export function flowCurveChart(series: readonly CurveSeries[], o: FlowChartOptio
     width: o.width ?? 560,
     height: o.height ?? 320,
     style: CHART_STYLE,
-    x: { label: 'true plastic strain ε̄ (–)', grid: true },
+    marginBottom: MARGIN_BOTTOM,
+    x: { ...X_AXIS, label: 'true plastic strain ε̄ (–)', grid: true },
     y: { label: `true stress (${o.stressUnit})`, grid: true },
     color: { domain: series.map((s) => s.label), range: [...PALETTE.laws], legend: true },
     marks,
@@ -68,7 +69,8 @@ export function loadUnloadChart(path: LoadUnloadPath, o: { stressUnit: string; w
     width: o.width ?? 560,
     height: o.height ?? 320,
     style: CHART_STYLE,
-    x: { label: 'total true strain (–)', grid: true },
+    marginBottom: MARGIN_BOTTOM,
+    x: { ...X_AXIS, label: 'total true strain (–)', grid: true },
     y: { label: `true stress (${o.stressUnit})`, grid: true },
     color: { domain: legs, range: [PALETTE.strength, PALETTE.elastic, PALETTE.ductility], legend: true },
     marks: [

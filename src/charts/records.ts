@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, PALETTE } from './palette.js';
+import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
 
 /** Most points a chart draws from one series; longer records are thinned by a fixed stride. */
 export const CHART_MAX_POINTS = 2000;
@@ -31,14 +31,19 @@ export function recordCurveChart(
     width: o.width ?? 520,
     height: o.height ?? 300,
     style: CHART_STYLE,
-    x: { label: 'engineering strain (%)', grid: true },
+    marginBottom: MARGIN_BOTTOM,
+    x: { ...X_AXIS, label: 'engineering strain (%)', grid: true },
     y: { label: 'engineering stress (MPa)', grid: true },
     marks: [
       Plot.ruleY([0], { stroke: PALETTE.grid }),
       Plot.line(pts, { x: 'e', y: 's', stroke: PALETTE.strength, strokeWidth: 1.5 }),
       Plot.line(win, { x: 'e', y: 's', stroke: PALETTE.elastic, strokeWidth: 6, strokeOpacity: 0.7 }),
-      ...(analysis.proofStrength !== null ? [Plot.ruleY([analysis.proofStrength], { stroke: PALETTE.elastic, strokeDasharray: '4,3' })] : []),
+      ...(analysis.proofStrength !== null ? [
+        Plot.ruleY([analysis.proofStrength], { stroke: PALETTE.elastic, strokeDasharray: '4,3' }),
+        Plot.text([analysis.proofStrength], { y: (d: number) => d, text: (d: number) => `Rp0.2 ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: 9, fill: PALETTE.elastic, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
+      ] : []),
       Plot.ruleY([analysis.tensileStrength], { stroke: PALETTE.ductility, strokeDasharray: '4,3' }),
+      Plot.text([analysis.tensileStrength], { y: (d: number) => d, text: (d: number) => `Rm ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: 9, fill: PALETTE.ductility, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
     ],
   });
 }
@@ -56,7 +61,8 @@ export function residualChart(
     width: o.width ?? 520,
     height: o.height ?? 300,
     style: CHART_STYLE,
-    x: { label: 'true plastic strain (–)', grid: true },
+    marginBottom: MARGIN_BOTTOM,
+    x: { ...X_AXIS, label: 'true plastic strain (–)', grid: true },
     y: { label: 'residual (MPa)', grid: true },
     color: { domain: fits.map((f) => f.law), range: [...PALETTE.laws], legend: true },
     marks: [Plot.ruleY([0], { stroke: PALETTE.ink }), Plot.line(data, { x: 'eps', y: 'r', stroke: 'law', z: 'law', strokeWidth: 1.2 })],

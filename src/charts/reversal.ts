@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, PALETTE } from './palette.js';
+import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
 
 /** A stress–strain path to draw: true stress against total true strain. */
 export interface PathSeries {
@@ -19,13 +19,14 @@ export function reversalChart(series: readonly PathSeries[], o: { stressUnit: st
     width: o.width ?? 560,
     height: o.height ?? 320,
     style: CHART_STYLE,
-    x: { label: 'total true strain ε (–)', grid: true },
+    marginBottom: MARGIN_BOTTOM,
+    x: { ...X_AXIS, label: 'total true strain ε (–)', grid: true },
     y: { label: `true stress (${o.stressUnit})`, grid: true },
     color: { domain: series.map((s) => s.label), range: [PALETTE.strength, PALETTE.ductility, PALETTE.coldWork], legend: true },
     marks: [
       Plot.ruleY([0], { stroke: PALETTE.grid }),
       Plot.ruleX([0], { stroke: PALETTE.grid }),
-      Plot.line(data, { x: 'strain', y: 'stress', stroke: 'model', strokeWidth: 2 }),
+      Plot.line(data, { x: 'strain', y: 'stress', stroke: 'model', strokeWidth: 2, clip: true }),
     ],
   });
 }
@@ -35,17 +36,21 @@ export function reversalChart(series: readonly PathSeries[], o: { stressUnit: st
  * −t/2 to outer +t/2) up, as in a through-thickness section.
  */
 export function residualStressChart(profile: readonly { y: number; stress: number }[], o: { stressUnit: string; lengthUnit: string; width?: number; height?: number; document?: Document }): SVGSVGElement | HTMLElement {
+  // Joined in order of position through the thickness (a profile given in any other order would
+  // be drawn as a zigzag across the section).
+  const sorted = [...profile].sort((a, b) => a.y - b.y);
   return Plot.plot({
     ...(o.document ? { document: o.document } : {}),
     width: o.width ?? 360,
     height: o.height ?? 320,
     style: CHART_STYLE,
-    x: { label: `residual stress (${o.stressUnit})`, grid: true },
+    marginBottom: MARGIN_BOTTOM,
+    x: { ...X_AXIS, label: `residual stress (${o.stressUnit})`, grid: true },
     y: { label: `position through the thickness, outer side up (${o.lengthUnit})`, grid: true },
     marks: [
       Plot.ruleX([0], { stroke: PALETTE.grid }),
-      Plot.line(profile, { x: 'stress', y: 'y', stroke: PALETTE.elastic, strokeWidth: 2, curve: 'linear' }),
-      Plot.dot(profile, { x: 'stress', y: 'y', fill: PALETTE.elastic, r: 2 }),
+      Plot.line(sorted, { x: 'stress', y: 'y', stroke: PALETTE.elastic, strokeWidth: 2, curve: 'linear', clip: true }),
+      Plot.dot(sorted, { x: 'stress', y: 'y', fill: PALETTE.elastic, r: 2, clip: true }),
     ],
   });
 }

@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, PALETTE } from './palette.js';
+import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
 
 export interface YieldHistogramOptions {
   stressUnit: string;
@@ -27,16 +27,20 @@ export function yieldHistogram(values: ArrayLike<number>, o: YieldHistogramOptio
     Plot.ruleY([0], { stroke: PALETTE.grid }),
   ];
   const rules = [
-    ...(o.minYield !== undefined ? [{ x: o.minYield, label: `min ${o.minYield}` }] : []),
-    ...(o.maxYield !== undefined ? [{ x: o.maxYield, label: `max ${o.maxYield}` }] : []),
+    // Target labels sit left of their rule, the tolerance bound's label right of its rule and lower,
+    // so a bound just above the minimum does not cover the minimum's label.
+    ...(o.minYield !== undefined ? [{ x: o.minYield, label: `target min ${o.minYield}`, anchor: 'end', dx: -4 }] : []),
+    ...(o.maxYield !== undefined ? [{ x: o.maxYield, label: `target max ${o.maxYield}`, anchor: 'end', dx: -4 }] : []),
   ];
   if (rules.length) {
     marks.push(Plot.ruleX(rules, { x: 'x', stroke: PALETTE.missed, strokeWidth: 2 }));
-    marks.push(Plot.text(rules, { x: 'x', text: 'label', frameAnchor: 'top', dy: 4, dx: 4, textAnchor: 'start', fill: PALETTE.missed }));
+    for (const r of rules) {
+      marks.push(Plot.text([r], { x: 'x', text: 'label', frameAnchor: 'top', dy: 4, dx: r.dx, textAnchor: r.anchor as 'end', fill: PALETTE.missed, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }));
+    }
   }
   if (o.bound !== undefined) {
     marks.push(Plot.ruleX([o.bound], { stroke: PALETTE.ink, strokeDasharray: '5,3' }));
-    marks.push(Plot.text([{ x: o.bound, label: 'lower bound' }], { x: 'x', text: 'label', frameAnchor: 'bottom', dy: -18, dx: -4, textAnchor: 'end', fill: PALETTE.ink }));
+    marks.push(Plot.text([{ x: o.bound, label: 'lower tolerance bound' }], { x: 'x', text: 'label', frameAnchor: 'top', dy: 22, dx: 4, textAnchor: 'start', fill: PALETTE.ink, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }));
   }
   return Plot.plot({
     ...(o.document ? { document: o.document } : {}),
@@ -44,8 +48,9 @@ export function yieldHistogram(values: ArrayLike<number>, o: YieldHistogramOptio
     height: o.height ?? 300,
     marginLeft: 56,
     style: CHART_STYLE,
+    marginBottom: MARGIN_BOTTOM,
     ...(o.probability !== undefined ? { caption: `probability all targets met: ${(o.probability * 100).toFixed(1)} %` } : {}),
-    x: { label: `final reload yield Rp0.2 (${o.stressUnit})`, grid: true },
+    x: { ...X_AXIS, label: `final reload yield Rp0.2 (${o.stressUnit})`, grid: true },
     y: { label: 'samples', grid: true },
     marks,
   });

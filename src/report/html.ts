@@ -1,5 +1,5 @@
 import { parseHTML } from 'linkedom';
-import { ductilityByStepChart, strengthByStepChart } from '../charts/ledger.js';
+import { REPORT_CHART_WIDTH, ductilityByStepChart, strengthByStepChart } from '../charts/ledger.js';
 import { hardnessByStepChart } from '../charts/hardness.js';
 import { PALETTE } from '../charts/palette.js';
 import type { ReportV1 } from './build.js';
@@ -35,8 +35,12 @@ export function htmlReport(r: ReportV1): string {
   const chartSteps = r.steps.map((s) => ({ index: s.index, kind: s.kind, reloadYield: s.reloadYield, tensileStrength: s.tensileStrength, remainingUniformElongationPct: s.remainingUniformElongationPct, coldWorkPct: s.coldWorkPct }));
   const limit = (name: string) => r.targets.find((t) => t.name === name)?.limit;
   const opt = <T extends object>(o: T) => Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as T;
-  const strength = strengthByStepChart(chartSteps, opt({ stressUnit: r.units.stress, initialYield: r.material.initial.reloadYield, minYield: limit('minYield'), maxYield: limit('maxYield'), document: document as unknown as Document }));
-  const ductility = ductilityByStepChart(chartSteps, opt({ stressUnit: r.units.stress, minRemainingElongationPct: limit('minRemainingElongationPct'), document: document as unknown as Document }));
+  const i0 = r.material.initial;
+  const start = { reloadYield: i0.reloadYield, tensileStrength: i0.tensileStrength, remainingUniformElongationPct: i0.uniformElongationPct };
+  // A fixed width (the report has no script to measure its page); the SVG scales down on narrower
+  // screens (Plot's max-width: 100 %).
+  const strength = strengthByStepChart(chartSteps, opt({ stressUnit: r.units.stress, start, minYield: limit('minYield'), maxYield: limit('maxYield'), width: REPORT_CHART_WIDTH, document: document as unknown as Document }));
+  const ductility = ductilityByStepChart(chartSteps, opt({ stressUnit: r.units.stress, start, minRemainingElongationPct: limit('minRemainingElongationPct'), width: REPORT_CHART_WIDTH, document: document as unknown as Document }));
   const cols = stepColumns(r);
   const verdict = r.targets.length === 0 ? '<p>No targets given.</p>'
     : `<p class="${r.allTargetsMet ? 'met' : 'missed'}">${r.allTargetsMet ? 'All targets met.' : 'A target is NOT met.'}</p>`;
@@ -54,11 +58,11 @@ export function htmlReport(r: ReportV1): string {
   parts.push('<h2>Ledger</h2>');
   parts.push(table(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
   parts.push(`<p>${htmlText(ledgerBasisNote(r))}</p>`);
-  parts.push(`<figure>${strength.outerHTML}<figcaption>Reload yield Rp0.2 and tensile strength Rm after each step (step 0: annealed); the band is the yield target.</figcaption></figure>`);
-  parts.push(`<figure>${ductility.outerHTML}<figcaption>Remaining uniform elongation and %CW since the last anneal after each step.</figcaption></figure>`);
+  parts.push(`<figure>${strength.outerHTML}<figcaption>Reload yield Rp0.2 (solid) and tensile strength Rm (dashed) after each step (step 0: the starting stock). Each value holds until the next step changes it, so it is drawn as a step; the shaded band is the yield target.</figcaption></figure>`);
+  parts.push(`<figure>${ductility.outerHTML}<figcaption>Remaining uniform elongation (solid) and %CW since the last anneal (dashed) after each step (step 0: the starting stock), drawn as steps; the shaded band is the elongation target.</figcaption></figure>`);
   if (r.steps.some((s) => s.hardnessHV !== undefined)) {
-    const hv = hardnessByStepChart(r.steps, opt({ initialHV: r.material.hardness?.initialHV, minHardnessHV: limit('minHardnessHV'), maxHardnessHV: limit('maxHardnessHV'), document: document as unknown as Document }));
-    parts.push(`<figure>${hv.outerHTML}<figcaption>Vickers hardness estimated by Tabor's relation after each step (step 0: annealed); the band is the hardness target. An estimate: release parts by measured hardness.</figcaption></figure>`);
+    const hv = hardnessByStepChart(r.steps, opt({ initialHV: r.material.hardness?.initialHV, minHardnessHV: limit('minHardnessHV'), maxHardnessHV: limit('maxHardnessHV'), width: REPORT_CHART_WIDTH, document: document as unknown as Document }));
+    parts.push(`<figure>${hv.outerHTML}<figcaption>Vickers hardness estimated by Tabor's relation after each step (step 0: the starting stock), drawn as steps; the shaded band is the hardness target. An estimate: release parts by measured hardness.</figcaption></figure>`);
   }
   parts.push('<h2>Targets</h2>');
   if (r.targets.length === 0) parts.push('<p>No targets given.</p>');

@@ -5,6 +5,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openPage, settled, startHarness, REPO, SCREENSHOTS, type Harness } from './browser.js';
+import { designRoute } from '../../src/core/index.js';
+import { loadDesignSpecText } from '../../src/plan/designSpec.js';
+import { designInput } from '../../notebooks/design/request.js';
 
 let h: Harness;
 let tmp: string;
@@ -43,6 +46,40 @@ describe('route designer', () => {
     await page.locator('#pass-number').press('Tab');
     await settled(page, 'design');
     expect(await items.first().innerText()).toMatch(/, (8|9|10) passes/);
+    expect(errors).toEqual([]);
+  });
+
+  it("a slider move marks the routes on screen as updating at once; when it rests, the worker's routes are the core's designRoute for those values", async () => {
+    const { page, errors } = await openPage(h, '/design/');
+    await settled(page, 'design');
+    // Catch the state right after the move: the previous routes, marked as updating (the search of
+    // 8 % on the fencing-wire demo takes tens of ms in the worker).
+    const during = await page.evaluate(() => {
+      const r = document.getElementById('pass-range') as HTMLInputElement;
+      r.value = '8';
+      r.dispatchEvent(new Event('input', { bubbles: true }));
+      return new Promise<{ state: string | null; note: string }>((res) => requestAnimationFrame(() => res({
+        state: document.getElementById('routes')?.getAttribute('data-resolution') ?? null,
+        note: document.getElementById('cell-summary')?.textContent ?? '' })));
+    });
+    expect(during.state).toBe('updating');
+    expect(during.note).toContain('Updating: these routes are for the previous slider values');
+    await settled(page, 'design');
+    expect(await page.getAttribute('#routes', 'data-resolution')).toBe('full');
+    expect(await page.locator('#cell-summary').innerText()).not.toContain('Updating');
+    // Reference: the core's search in Node on the same file and values (the runner's function).
+    const spec = loadDesignSpecText(readFileSync(EXAMPLE, 'utf8'), 'design-spec.yaml');
+    const ref = designRoute(designInput(spec, 8, 0.2));
+    const items = page.locator('#routes > li');
+    expect(await items.count()).toBe(ref.routes.length);
+    for (let i = 0; i < ref.routes.length; i++) {
+      const r = ref.routes[i]!;
+      const text = await items.nth(i).innerText();
+      expect(text).toContain(`${r.anneals} anneal${r.anneals === 1 ? '' : 's'}, ${r.passes} passes`);
+      expect(text).toContain(`final reduction ${r.finalReductionPct.toFixed(1)} %`);
+      expect(text).toContain(`final reload yield ${r.ledger.rows.at(-1)!.reloadYield.toFixed(1)} MPa`);
+    }
+    expect(await page.locator('#cell-summary').innerText()).toContain(`${ref.candidatesTried} candidate schedules`);
     expect(errors).toEqual([]);
   });
 

@@ -72,6 +72,39 @@ describe('reversal and springback notebook', () => {
     expect(errors).toEqual([]);
     await context.close();
   });
+  it('a prestrain move retraces the kept charts at once (preview), Plot redraws them when the slider rests; the numbers are the full computation throughout', async () => {
+    const { page, errors } = await openPage(h, '/reversal/');
+    await settled(page, 'reversal');
+    const before = await page.locator('#cell-path-chart [aria-label="line"] path').first().getAttribute('d');
+    const preview = await page.evaluate(async () => {
+      const r = document.getElementById('prestrain-range') as HTMLInputElement;
+      r.value = '0.08';
+      r.dispatchEvent(new Event('input', { bubbles: true }));
+      for (let i = 0; i < 30; i++) {
+        await new Promise((res) => setTimeout(res, 2));
+        const path = document.querySelector('#cell-path-chart [data-resolution]');
+        const res = document.querySelector('#cell-residual-chart [data-resolution]');
+        if (path?.getAttribute('data-resolution') === 'preview' && res?.getAttribute('data-resolution') === 'preview') {
+          return { d: path.querySelector('[aria-label="line"] path')?.getAttribute('d') ?? '', paths: path.querySelectorAll('[aria-label="line"] path').length,
+            iso: Number(document.querySelector('[data-q="reverseYieldIso"] .sl-num')?.textContent) };
+        }
+      }
+      return null;
+    });
+    expect(preview, 'no preview shown').not.toBeNull();
+    expect(preview!.paths).toBe(2);
+    expect(preview!.d).not.toBe(before);
+    // Hollomon K 600 MPa, n 0.21 (Callister, 2nd ed., p. 199): isotropic reverse yield −σ(0.08), shown during the preview.
+    expect(Math.abs(preview!.iso + 600 * 0.08 ** 0.21)).toBeLessThanOrEqual(0.051);
+    await settled(page, 'reversal');
+    expect(await page.getAttribute('#cell-path-chart [data-resolution]', 'data-resolution')).toBe('full');
+    expect(await page.getAttribute('#cell-residual-chart [data-resolution]', 'data-resolution')).toBe('full');
+    expect(Math.abs(await num(page, 'reverseYieldIso') + 600 * 0.08 ** 0.21)).toBeLessThanOrEqual(0.051);
+    // The redraw fits the axes to the new path: it is not the preview's path on the old axes.
+    expect(await page.locator('#cell-path-chart [aria-label="line"] path').first().getAttribute('d')).not.toBe(preview!.d);
+    expect(errors).toEqual([]);
+  });
+
   it('is linked from the index page', async () => {
     const { page } = await openPage(h, '/');
     await expect(page.locator('#notebook-list a', { hasText: 'Reversal and springback' }).count()).resolves.toBe(1);

@@ -2,7 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runScatter } from '../../src/core/index.js';
+import { prepareScatter, runScatter, sampleScatterBlock } from '../../src/core/index.js';
 import { loadPlanText } from '../../src/plan/load.js';
 import { withFinalPass } from '../../notebooks/scatter/problem.js';
 import { openPage, settled, startHarness, REPO, SCREENSHOTS, type Harness } from './browser.js';
@@ -45,6 +45,42 @@ describe('scatter notebook', () => {
     await settled(page, 'scatter');
     expect(Number(await page.inputValue('#prestrain-number'))).toBe(0.399);
     expect(await page.locator('.sl-cautions').first().isVisible()).toBe(true);
+    expect(errors).toEqual([]);
+  });
+  it('a slider move answers at once with a preview from the first 1,024 samples; the full run replaces it when the slider rests', async () => {
+    const { page, errors } = await openPage(h, '/scatter/');
+    await settled(page, 'scatter');
+    // Catch the preview before the full run (which starts 120 ms after the last move).
+    const preview = await page.evaluate(async () => {
+      const r = document.getElementById('prestrain-range') as HTMLInputElement;
+      r.value = '0.35';
+      r.dispatchEvent(new Event('input', { bubbles: true }));
+      for (let i = 0; i < 100; i++) {
+        await new Promise((res) => setTimeout(res, 2));
+        const el = document.querySelector('#cell-numbers [data-resolution]');
+        if (el?.getAttribute('data-resolution') === 'preview') {
+          return { p: el.querySelector('[data-q="probability"] .sl-num')?.textContent ?? '', note: el.textContent ?? '', hist: document.querySelector('#histogram')?.getAttribute('data-resolution') };
+        }
+      }
+      return null;
+    });
+    expect(preview, 'no preview shown').not.toBeNull();
+    expect(preview!.note).toContain('Preview from the first 1,024 of 20,000 samples');
+    // The histogram is not redrawn for a preview: the last full one stays, dimmed and marked as updating.
+    expect(preview!.hist).toBe('updating');
+    // The preview is the core's runScatter on 1,024 samples of the same problem and seed ...
+    const problem = withFinalPass(plan.scatter!, 0.35);
+    const small = runScatter({ ...problem, samples: 1024 });
+    expect(Number(preview!.p)).toBe(Number((small.probabilityAllTargetsMet * 100).toFixed(2)));
+    // ... and those samples are the first 1,024 of the full run (block 0's stream, drawn in order).
+    const head = sampleScatterBlock(prepareScatter({ ...problem, samples: 1024 }), 0).reloadYield;
+    const full0 = sampleScatterBlock(prepareScatter(problem), 0).reloadYield;
+    expect(Array.from(head)).toEqual(Array.from(full0.subarray(0, 1024)));
+    await settled(page, 'scatter');
+    expect(await page.getAttribute('#cell-numbers [data-resolution]', 'data-resolution')).toBe('full');
+    expect(await page.getAttribute('#histogram', 'data-resolution')).toBe('full');
+    const full = runScatter(problem);
+    expect(await num(page, 'probability')).toBe(Number((full.probabilityAllTargetsMet * 100).toFixed(2)));
     expect(errors).toEqual([]);
   });
   it('is listed on the index page', async () => {
