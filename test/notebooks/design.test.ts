@@ -77,7 +77,7 @@ describe('route designer', () => {
       const text = await items.nth(i).innerText();
       expect(text).toContain(`${r.anneals} anneal${r.anneals === 1 ? '' : 's'}, ${r.passes} passes`);
       expect(text).toContain(`final reduction ${r.finalReductionPct.toFixed(1)} %`);
-      expect(text).toContain(`final reload yield ${r.ledger.rows.at(-1)!.reloadYield.toFixed(1)} MPa`);
+      expect(text).toContain(`final reload yield Rp0.2 ${r.ledger.rows.at(-1)!.reloadYield.toFixed(1)} MPa`);
     }
     expect(await page.locator('#cell-summary').innerText()).toContain(`${ref.candidatesTried} candidate schedules`);
     expect(errors).toEqual([]);
