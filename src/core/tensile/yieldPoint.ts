@@ -98,9 +98,13 @@ export function yieldPoint(
   const to = Math.max(d + 1, maxIndex + 1);
   const wNoise = Math.ceil(((noise / (0.0015 * level)) ** 2));
   // Rough plateau length for the cap: points until the raw stress first passes level + 5 %.
-  let rough = d;
+  // It starts where the raw stress first reaches the level (after the fall from ReH, which can take several
+  // samples on a finely sampled record: counting from the departure would stop inside the fall).
+  let r0 = d;
+  while (r0 < maxIndex && stress[r0]! > level + 3 * noise) r0++;
+  let rough = r0;
   while (rough < maxIndex && stress[rough]! < 1.05 * level) rough++;
-  const w = Math.max(1, Math.min(wNoise, Math.floor((rough - d) / 6))) | 1;
+  const w = Math.max(1, Math.min(wNoise, Math.floor((rough - r0) / 6))) | 1;
   const ma = movingAverage(stress, d, to, w);
   const band = Math.max((3 * noise) / Math.sqrt(w), 0.01 * level);
   let s0 = 0;
