@@ -75,12 +75,17 @@ export function yieldPoint(
   while (k0 > fromIndex && stress[k0 - 1]! >= 0.5 * stress[q]! && stress[k0 - 1]! < stress[k0]! + 3 * noise) k0--;
   let reh = stress[q]!;
   let seReh = noise;
-  if (q - k0 + 1 >= 3) {
+  if (q - k0 >= 3) {
     try {
-      const f = linearFit(strain, stress, k0, q + 1);
+      // The line through the rise with the peak sample left out, so a sample already on the fall cannot pull
+      // the line to itself. A peak within the noise of that line is read on the line (precise to σ̂·2/√k); a
+      // peak clearly below it is already on the fall, and the highest noise-free sample is the larger of the
+      // last sample on the line (read on the line) and the peak sample as recorded.
+      const k = q - k0;
+      const f = linearFit(strain, stress, k0, q);
       const v = f.intercept + f.slope * strain[q]!;
-      // Only a peak on the line: a sample already bending away is read as it is.
-      if (Math.abs(v - stress[q]!) <= 3 * noise + 0.002 * v) { reh = v; seReh = noise * Math.sqrt(4 / (q - k0 + 1)); }
+      if (stress[q]! >= v - (2 * noise * Math.sqrt(1 + 4 / k) + 0.002 * v)) { reh = v; seReh = noise * Math.sqrt(4 / k); }
+      else { reh = Math.max(f.intercept + f.slope * strain[q - 1]!, stress[q]!); }
     } catch { /* keep the sample */ }
   }
   // Plateau level after the departure.
