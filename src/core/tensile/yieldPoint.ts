@@ -54,12 +54,31 @@ export function yieldPoint(
   strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, fromIndex: number, maxIndex: number, noise: number,
 ): YieldPointResult | null {
   const Y = YIELD_DROP;
-  const lineAt = (i: number) => E * (strain[i]! - toe);
-  // Departure from the elastic line.
-  let d = -1;
-  for (let i = Math.max(1, fromIndex); i < maxIndex - 1; i++) {
-    const tol = (k: number) => Math.max(Y.departSigmas * noise, 0.005 * lineAt(k));
-    if (stress[i]! < lineAt(i) - tol(i) && stress[i + 1]! < lineAt(i + 1) - tol(i + 1)) { d = i; break; }
+  // Departure from the elastic line. The line starts as σ = E(e − e0); a modulus a few per cent off (few
+  // elastic samples, or a band that reached into the knee) makes the line leave the data early, so the line is
+  // refitted through the rising samples before the departure found (above a fifth of the stress there) and
+  // the search repeated, until the departure stays put (at most 4 rounds).
+  let lineA = -E * toe, lineB = E;
+  const lineAt = (i: number) => lineA + lineB * strain[i]!;
+  const depart = (start: number) => {
+    for (let i = Math.max(1, start); i < maxIndex - 1; i++) {
+      const tol = (k: number) => Math.max(Y.departSigmas * noise, 0.005 * lineAt(k));
+      if (stress[i]! < lineAt(i) - tol(i) && stress[i + 1]! < lineAt(i + 1) - tol(i + 1)) return i;
+    }
+    return -1;
+  };
+  let d = depart(fromIndex);
+  for (let round = 0; round < 4 && d > 0; round++) {
+    let a = d;
+    while (a > fromIndex && stress[a - 1]! >= 0.2 * stress[d - 1]! && stress[a - 1]! <= stress[a]! + 3 * noise) a--;
+    if (d - a < 4) break;
+    let f;
+    try { f = linearFit(strain, stress, a, d); } catch { break; }
+    if (!(f.slope > 0)) break;
+    lineA = f.intercept; lineB = f.slope;
+    const nd = depart(a);
+    if (nd === d || nd < 1) break;
+    d = nd;
   }
   if (d < 1) return null;
   // Maximum force after the departure (ISO 6892-1: Fm after work hardening begins) bounds the plateau.
