@@ -97,13 +97,13 @@ export function yieldPoint(
   if (q - k0 >= 3) {
     try {
       // The line through the rise with the peak sample left out, so a sample already on the fall cannot pull
-      // the line to itself. A peak within the noise of that line is read on the line (precise to σ̂·2/√k); a
-      // peak clearly below it is already on the fall, and the highest noise-free sample is the larger of the
-      // last sample on the line (read on the line) and the peak sample as recorded.
+      // the line to itself. A peak within 1.5 noise sd of that line is read on the line (precise to σ̂·2/√k);
+      // a peak further below it is already on the fall, and the highest noise-free sample is the larger of
+      // the last sample on the line (read on the line) and the peak sample as recorded.
       const k = q - k0;
       const f = linearFit(strain, stress, k0, q);
       const v = f.intercept + f.slope * strain[q]!;
-      if (stress[q]! >= v - (2 * noise * Math.sqrt(1 + 4 / k) + 0.002 * v)) { reh = v; seReh = noise * Math.sqrt(4 / k); }
+      if (stress[q]! >= v - 1.5 * noise * Math.sqrt(1 + 4 / k)) { reh = v; seReh = noise * Math.sqrt(4 / k); }
       else { reh = Math.max(f.intercept + f.slope * strain[q - 1]!, stress[q]!); }
     } catch { /* keep the sample */ }
   }
