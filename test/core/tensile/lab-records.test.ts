@@ -78,18 +78,21 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // Measured: 125 of 240 seeds warned (mostly coarse records with noise above 0.5 % of Rm, where the top is
     // flat within the noise over several points of strain); held as a ceiling so a regression fails.
     expect(agWarned, list).toBeLessThanOrEqual(130);
-    // NOT met on every seed (measured on this generator, written down as floors so a regression fails; see
-    // docs/records-and-fits.md): continuous curves with a false ReH, Rp0.2 within 1 %, Ag within 0.4 point,
-    // and the yield-drop properties. Floors are the measured pass counts at the time of writing.
-    expect(count.falseYield ?? 0, `false ReH/ReL on ${continuous} continuous records\n${list}`).toBeLessThanOrEqual(3);
+    // ReH and ReL, when reported for a real drop, are within 1.5 % on every seed.
+    for (const k of ['ReH', 'ReL']) expect(count[k] ?? 0, `${k}\n${list}`).toBe(0);
+    // NOT met on every seed (measured on this generator, held as ceilings at today's counts so a regression
+    // fails; see docs/records-and-fits.md): a false ReH on 1 continuous record, Rp0.2 within 1 % on 3 seeds,
+    // E off and unflagged on 2, Ae within 0.4 point on 3, and 12 recorded drops not found (mostly drops under
+    // 4 % or ≤ 12 elastic samples with noise ≥ 0.5 % of Rm; before this change: 3 false, 35 drop misses).
+    expect(count.falseYield ?? 0, `false ReH/ReL on ${continuous} continuous records\n${list}`).toBeLessThanOrEqual(1);
     expect(count.quietE ?? 0, list).toBeLessThanOrEqual(2);
     expect(refused, list).toBeLessThanOrEqual(6);
-    expect(count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(Math.ceil(0.03 * n));
+    expect(count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(3);
     // Ag off by more than 0.4 point with no honest uncertainty: was 41; now 3, the truth just outside a 95 %
     // interval that is itself wider than ±0.4 point (the expected 5 % non-coverage; all 3 are warned).
     expect(count.Ag ?? 0, list).toBeLessThanOrEqual(3);
-    const dropFails = (count.missedYield ?? 0) + (count.ReH ?? 0) + (count.ReL ?? 0) + (count.Ae ?? 0);
-    expect(dropFails, `${drops} records with a recorded drop\n${list}`).toBeLessThanOrEqual(Math.ceil(0.5 * drops));
+    expect(count.Ae ?? 0, list).toBeLessThanOrEqual(3);
+    expect(count.missedYield ?? 0, `${drops} records with a recorded drop\n${list}`).toBeLessThanOrEqual(12);
   }, 120_000);
 });
 
