@@ -60,9 +60,13 @@ export function yieldPoint(
   // the search repeated, until the departure stays put (at most 4 rounds).
   let lineA = -E * toe, lineB = E;
   const lineAt = (i: number) => lineA + lineB * strain[i]!;
+  // The line is known only to about σ̂·√(4/k) at the end of the k samples it rests on (prediction error just
+  // past a least-squares line's range): the departure tolerance includes it, so a good sample at the peak of
+  // a short rise is not taken for the fall.
+  let lineFrom = fromIndex;
   const depart = (start: number) => {
     for (let i = Math.max(1, start); i < maxIndex - 1; i++) {
-      const tol = (k: number) => Math.max(Y.departSigmas * noise, 0.005 * lineAt(k));
+      const tol = (k: number) => Math.max(Y.departSigmas * noise * Math.sqrt(1 + 4 / Math.max(2, k - lineFrom)), 0.005 * lineAt(k));
       if (stress[i]! < lineAt(i) - tol(i) && stress[i + 1]! < lineAt(i + 1) - tol(i + 1)) return i;
     }
     return -1;
@@ -71,11 +75,11 @@ export function yieldPoint(
   for (let round = 0; round < 4 && d > 0; round++) {
     let a = d;
     while (a > fromIndex && stress[a - 1]! >= 0.2 * stress[d - 1]! && stress[a - 1]! <= stress[a]! + 3 * noise) a--;
-    if (d - a < 4) break;
+    if (d - a < 3) break;
     let f;
     try { f = linearFit(strain, stress, a, d); } catch { break; }
     if (!(f.slope > 0)) break;
-    lineA = f.intercept; lineB = f.slope;
+    lineA = f.intercept; lineB = f.slope; lineFrom = a;
     const nd = depart(a);
     if (nd === d || nd < 1) break;
     d = nd;

@@ -82,7 +82,7 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     for (const k of ['ReH', 'ReL']) expect(count[k] ?? 0, `${k}\n${list}`).toBe(0);
     // NOT met on every seed (measured on this generator, held as ceilings at today's counts so a regression
     // fails; see docs/records-and-fits.md): a false ReH on 1 continuous record, Rp0.2 within 1 % on 3 seeds,
-    // E off and unflagged on 2, Ae within 0.4 point on 3, and 12 recorded drops not found (mostly drops under
+    // E off and unflagged on 2, Ae within 0.4 point on 3, and 11 recorded drops not found (mostly drops under
     // 4 % or ≤ 12 elastic samples with noise ≥ 0.5 % of Rm; before this change: 3 false, 35 drop misses).
     expect(count.falseYield ?? 0, `false ReH/ReL on ${continuous} continuous records\n${list}`).toBeLessThanOrEqual(1);
     expect(count.quietE ?? 0, list).toBeLessThanOrEqual(2);
@@ -92,7 +92,7 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // interval that is itself wider than ±0.4 point (the expected 5 % non-coverage; all 3 are warned).
     expect(count.Ag ?? 0, list).toBeLessThanOrEqual(3);
     expect(count.Ae ?? 0, list).toBeLessThanOrEqual(3);
-    expect(count.missedYield ?? 0, `${drops} records with a recorded drop\n${list}`).toBeLessThanOrEqual(12);
+    expect(count.missedYield ?? 0, `${drops} records with a recorded drop\n${list}`).toBeLessThanOrEqual(11);
   }, 120_000);
 });
 
