@@ -13,6 +13,13 @@ export interface ForceMaximum {
   span: [number, number];
   /** True when the top is flat within the noise, so Ag is read at the middle of the flat part. */
   flat: boolean;
+  /**
+   * 95 % interval of the strain at maximum force (as `strain`, toe not removed), from the profile of the
+   * residual sum over the vertex position: every xv whose best fit has ssr ≤ ssr_min + 3.84·s², with
+   * s² = max(σ̂², ssr_min/(bins − 4)) (profile-likelihood interval for one parameter, χ²₁(0.95) = 3.84;
+   * Bates & Watts, *Nonlinear Regression Analysis and Its Applications*, §6.1, from memory).
+   */
+  strainInterval95: [number, number];
 }
 
 /**
@@ -112,7 +119,20 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   const fm = solve(xm);
   if (fm && bestF && fm.ssr <= bestF.ssr) { bestF = fm; bestX = xm; }
   let best = from + j;
-  if (!bestF) return { stress: ma[j]!, strain: strain[best]!, index: best, points: i1 - i0, span: [xa, xb], flat: false };
+  if (!bestF) return { stress: ma[j]!, strain: strain[best]!, index: best, points: i1 - i0, span: [xa, xb], flat: false, strainInterval95: [xa, xb] };
+  // Profile interval of the vertex: scan xv over the span (G2 steps), keep the outermost xv still within the
+  // χ²₁(0.95) band of the minimum; an end of the span still inside the band is reported as the span's end.
+  const s2 = Math.max(noise * noise, bestF.ssr / Math.max(1, nb - 4));
+  const limit = bestF.ssr + 3.84 * s2;
+  let ciLo = bestX, ciHi = bestX;
+  const G2 = 200;
+  for (let g = 0; g <= G2; g++) {
+    const xv = xa + ((xb - xa) * g) / G2;
+    const f = solve(xv);
+    if (f && f.ssr <= limit) { if (xv < ciLo) ciLo = xv; if (xv > ciHi) ciHi = xv; }
+  }
+  // Widen by one grid step on each side that the scan left unresolved.
+  ciLo = Math.max(xa, ciLo - (xb - xa) / G2); ciHi = Math.min(xb, ciHi + (xb - xa) / G2);
   // Flat top: neither side falls by more than the fit's noise over the span.
   const fallL = bestF.aL * ((bestX - xa) / h) ** 2, fallR = bestF.aR * ((xb - bestX) / h) ** 2;
   const tolFit = (4 * noise) / Math.sqrt(i1 - i0);
@@ -122,5 +142,5 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // Nearest sample (strain rises through the top; scan the span).
   let bd = Infinity;
   for (let i = i0; i < i1; i++) { const dd = Math.abs(strain[i]! - xAg); if (dd < bd) { bd = dd; best = i; } }
-  return { stress: topStress, strain: xAg, index: best, points: i1 - i0, span: [xa, xb], flat };
+  return { stress: topStress, strain: xAg, index: best, points: i1 - i0, span: [xa, xb], flat, strainInterval95: [Math.min(ciLo, xAg), Math.max(ciHi, xAg)] };
 }

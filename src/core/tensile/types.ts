@@ -8,7 +8,7 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'modulusGiven' | 'flatTop';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'modulusGiven' | 'flatTop' | 'uncertainAg';
   message: string;
 }
 
@@ -96,7 +96,11 @@ export interface TensileAnalysis {
   /** Noise of the stress estimated from the data (second differences, robust scale), MPa. */
   noise: number;
   /** How Rm and Ag were read: the local parabola around the top (samples, strain span, flat top). */
-  forceMaximum: { points: number; span: [number, number]; flat: boolean; method: string };
+  forceMaximum: {
+    points: number; span: [number, number]; flat: boolean; method: string;
+    /** 95 % interval of Ag, % (profile of the top fit over the position of maximum force; see `forceMaximum`). */
+    uniformElongationInterval95: [number, number];
+  };
   elasticWindow: ElasticWindow;
   /** Toe correction: strain where the elastic line meets zero stress (subtracted from all strains). */
   toeStrain: number;

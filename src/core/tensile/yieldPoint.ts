@@ -54,12 +54,35 @@ export function yieldPoint(
   strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, fromIndex: number, maxIndex: number, noise: number,
 ): YieldPointResult | null {
   const Y = YIELD_DROP;
-  const lineAt = (i: number) => E * (strain[i]! - toe);
-  // Departure from the elastic line.
-  let d = -1;
-  for (let i = Math.max(1, fromIndex); i < maxIndex - 1; i++) {
-    const tol = (k: number) => Math.max(Y.departSigmas * noise, 0.005 * lineAt(k));
-    if (stress[i]! < lineAt(i) - tol(i) && stress[i + 1]! < lineAt(i + 1) - tol(i + 1)) { d = i; break; }
+  // Departure from the elastic line. The line starts as σ = E(e − e0); a modulus a few per cent off (few
+  // elastic samples, or a band that reached into the knee) makes the line leave the data early, so the line is
+  // refitted through the rising samples before the departure found (above a fifth of the stress there) and
+  // the search repeated, until the departure stays put (at most 4 rounds).
+  let lineA = -E * toe, lineB = E;
+  const lineAt = (i: number) => lineA + lineB * strain[i]!;
+  // The line is known only to about σ̂·√(4/k) at the end of the k samples it rests on (prediction error just
+  // past a least-squares line's range): the departure tolerance includes it, so a good sample at the peak of
+  // a short rise is not taken for the fall.
+  let lineFrom = fromIndex;
+  const depart = (start: number) => {
+    for (let i = Math.max(1, start); i < maxIndex - 1; i++) {
+      const tol = (k: number) => Math.max(Y.departSigmas * noise * Math.sqrt(1 + 4 / Math.max(2, k - lineFrom)), 0.005 * lineAt(k));
+      if (stress[i]! < lineAt(i) - tol(i) && stress[i + 1]! < lineAt(i + 1) - tol(i + 1)) return i;
+    }
+    return -1;
+  };
+  let d = depart(fromIndex);
+  for (let round = 0; round < 4 && d > 0; round++) {
+    let a = d;
+    while (a > fromIndex && stress[a - 1]! >= 0.2 * stress[d - 1]! && stress[a - 1]! <= stress[a]! + 3 * noise) a--;
+    if (d - a < 3) break;
+    let f;
+    try { f = linearFit(strain, stress, a, d); } catch { break; }
+    if (!(f.slope > 0)) break;
+    lineA = f.intercept; lineB = f.slope; lineFrom = a;
+    const nd = depart(a);
+    if (nd === d || nd < 1) break;
+    d = nd;
   }
   if (d < 1) return null;
   // Maximum force after the departure (ISO 6892-1: Fm after work hardening begins) bounds the plateau.
@@ -75,12 +98,17 @@ export function yieldPoint(
   while (k0 > fromIndex && stress[k0 - 1]! >= 0.5 * stress[q]! && stress[k0 - 1]! < stress[k0]! + 3 * noise) k0--;
   let reh = stress[q]!;
   let seReh = noise;
-  if (q - k0 + 1 >= 3) {
+  if (q - k0 >= 3) {
     try {
-      const f = linearFit(strain, stress, k0, q + 1);
+      // The line through the rise with the peak sample left out, so a sample already on the fall cannot pull
+      // the line to itself. A peak within 1.5 noise sd of that line is read on the line (precise to σ̂·2/√k);
+      // a peak further below it is already on the fall, and the highest noise-free sample is the larger of
+      // the last sample on the line (read on the line) and the peak sample as recorded.
+      const k = q - k0;
+      const f = linearFit(strain, stress, k0, q);
       const v = f.intercept + f.slope * strain[q]!;
-      // Only a peak on the line: a sample already bending away is read as it is.
-      if (Math.abs(v - stress[q]!) <= 3 * noise + 0.002 * v) { reh = v; seReh = noise * Math.sqrt(4 / (q - k0 + 1)); }
+      if (stress[q]! >= v - 1.5 * noise * Math.sqrt(1 + 4 / k)) { reh = v; seReh = noise * Math.sqrt(4 / k); }
+      else { reh = Math.max(f.intercept + f.slope * strain[q - 1]!, stress[q]!); }
     } catch { /* keep the sample */ }
   }
   // Plateau level after the departure.
@@ -98,9 +126,13 @@ export function yieldPoint(
   const to = Math.max(d + 1, maxIndex + 1);
   const wNoise = Math.ceil(((noise / (0.0015 * level)) ** 2));
   // Rough plateau length for the cap: points until the raw stress first passes level + 5 %.
-  let rough = d;
+  // It starts where the raw stress first reaches the level (after the fall from ReH, which can take several
+  // samples on a finely sampled record: counting from the departure would stop inside the fall).
+  let r0 = d;
+  while (r0 < maxIndex && stress[r0]! > level + 3 * noise) r0++;
+  let rough = r0;
   while (rough < maxIndex && stress[rough]! < 1.05 * level) rough++;
-  const w = Math.max(1, Math.min(wNoise, Math.floor((rough - d) / 6))) | 1;
+  const w = Math.max(1, Math.min(wNoise, Math.floor((rough - r0) / 6))) | 1;
   const ma = movingAverage(stress, d, to, w);
   const band = Math.max((3 * noise) / Math.sqrt(w), 0.01 * level);
   let s0 = 0;
