@@ -144,43 +144,50 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   }
   const A = (strain[fi]! - toe - sF / E) * 100;
 
-  // True curve to maximum force.
-  const tStrain: number[] = [], tStress: number[] = [], tPlastic: number[] = [];
-  for (let i = 0; i <= iMax; i++) {
-    const e = strain[i]! - toe;
-    if (e <= -1) continue;
-    const s = stress[i]! * (1 + e);
-    const eps = Math.log1p(e);
-    tStrain.push(eps);
-    tStress.push(s);
-    tPlastic.push(eps - s / E);
-  }
   // Flow curve: monotone envelope (cycles left out), from the end of yield effects to Fm.
   const cycles = findCycles(strain, stress, E, toe, el.window.toIndex, noise);
   const fromTrue = yp ? Math.log1p(strain[yp.endIndex]! - toe) - (stress[yp.endIndex]! * (1 + strain[yp.endIndex]! - toe)) / E : ANALYZE_DEFAULTS.flowCurveFrom;
-  const fStrain: number[] = [], fStress: number[] = [];
+  // True curve to maximum force and the flow curve in ONE pass (each point's ln(1 + e) once), into
+  // arrays sized once: on a 1,000,000-row record the two former loops with pushes and a second
+  // log1p per point were a tenth of `analyze` (bench/RESULTS.md, issue 12 D).
+  const m = iMax + 1;
+  const tStrain = new Array<number>(m), tStress = new Array<number>(m), tPlastic = new Array<number>(m);
+  const fStrain = new Array<number>(m), fStress = new Array<number>(m);
+  let nt = 0, nf = 0;
+  const fromIndex = proof ? proof.index : 0;
   let runMax = -Infinity;
   for (let i = 0; i <= iMax; i++) {
     const e = strain[i]! - toe;
+    if (e <= -1) { if (e > runMax) runMax = e; continue; } // no true strain; never on the flow curve
+    const s = stress[i]! * (1 + e);
+    const eps = Math.log1p(e);
+    const ep = eps - s / E;
+    tStrain[nt] = eps;
+    tStress[nt] = s;
+    tPlastic[nt++] = ep;
     if (e <= runMax) continue;
     runMax = e;
-    const s = stress[i]! * (1 + e);
-    const ep = Math.log1p(e) - s / E;
-    if (ep >= fromTrue && ep > 0 && (!proof || i >= proof.index)) {
-      fStrain.push(ep);
-      fStress.push(s);
+    if (ep >= fromTrue && ep > 0 && i >= fromIndex) {
+      fStrain[nf] = ep;
+      fStress[nf++] = s;
     }
   }
+  tStrain.length = tStress.length = tPlastic.length = nt;
+  fStrain.length = fStress.length = nf;
 
   // n-value (ISO 10275).
   let nFit = null;
   {
-    const xs: number[] = [], ys: number[] = [];
-    const [a, b] = opts.nRange ?? [-Infinity, Infinity];
-    if (opts.nRange && !(a >= 0 && b > a)) throw new InputError('nRange', opts.nRange, 'a pair [from, to] of engineering strains with 0 ≤ from < to');
-    for (let i = 0; i < fStrain.length; i++) {
-      const eEng = Math.expm1(fStrain[i]! + fStress[i]! / E);
-      if (eEng >= a && eEng <= b) { xs.push(fStrain[i]!); ys.push(fStress[i]!); }
+    let xs: ArrayLike<number> = fStrain, ys: ArrayLike<number> = fStress;
+    if (opts.nRange) {
+      const [a, b] = opts.nRange;
+      if (!(a >= 0 && b > a)) throw new InputError('nRange', opts.nRange, 'a pair [from, to] of engineering strains with 0 ≤ from < to');
+      const xr: number[] = [], yr: number[] = [];
+      for (let i = 0; i < nf; i++) {
+        const eEng = Math.expm1(fStrain[i]! + fStress[i]! / E);
+        if (eEng >= a && eEng <= b) { xr.push(fStrain[i]!); yr.push(fStress[i]!); }
+      }
+      xs = xr; ys = yr;
     }
     if (xs.length >= 3) nFit = nValueFit(xs, ys);
     else warnings.push({ code: 'nRange', message: `only ${xs.length} points in the n-value range; no n-value` });
