@@ -146,6 +146,14 @@ export function lawNormalProblem(law: LawName, d: LawData, lower: readonly numbe
  * sum Σ rᵢrᵢ₋₁ (for the residuals' autocorrelation). Units MPa, MPa².
  */
 export function lawResidualPass(law: LawName, d: LawData, p: Float64Array): { residuals: number[]; ssr: number; sst: number; lag1: number; ok: boolean } {
+  return { residuals: lawResiduals(law, d, p), ...lawResidualStats(law, d, p) };
+}
+
+/**
+ * SSR, SST and the lag-1 sum of the fitted law on the full curve, without keeping the residuals
+ * (fitLaw makes those only when they are read). Units MPa².
+ */
+export function lawResidualStats(law: LawName, d: LawData, p: Float64Array): { ssr: number; sst: number; lag1: number; ok: boolean } {
   const { x, y, lx } = d;
   const n = x.length;
   // The model values first, in one tight loop per law (value only, no gradient; the same operations as
@@ -153,21 +161,29 @@ export function lawResidualPass(law: LawName, d: LawData, p: Float64Array): { re
   // through POINT's shared call site, which V8 cannot inline across six laws (bench/RESULTS.md, issue 12 D).
   const m = new Float64Array(n);
   lawValues(law, x, lx, p, m);
-  const residuals = new Array<number>(n);
   let my = 0;
   for (let i = 0; i < n; i++) my += y[i]!;
   my /= n;
   let ssr = 0, sst = 0, lag1 = 0, prev = 0;
   for (let i = 0; i < n; i++) {
     const r = m[i]! - y[i]!;
-    residuals[i] = r;
     ssr += r * r;
     if (i > 0) lag1 += r * prev;
     prev = r;
     const dy = y[i]! - my;
     sst += dy * dy;
   }
-  return { residuals, ssr, sst, lag1, ok: Number.isFinite(ssr) };
+  return { ssr, sst, lag1, ok: Number.isFinite(ssr) };
+}
+
+/** Residuals (model − data) of the law at `p` on every point of `d`, MPa. */
+export function lawResiduals(law: LawName, d: LawData, p: Float64Array): number[] {
+  const n = d.x.length, y = d.y;
+  const m = new Float64Array(n);
+  lawValues(law, d.x, d.lx, p, m);
+  const residuals = new Array<number>(n);
+  for (let i = 0; i < n; i++) residuals[i] = m[i]! - y[i]!;
+  return residuals;
 }
 
 /** σ(xᵢ; p) of `law` into `out` (formulas of POINT, value only). `lx` is ln x. */
