@@ -66,6 +66,8 @@ export interface LawData {
   bad: number;
   /** Block averages of these data for a given block size, made once (see fitLaw). */
   blocks?: { size: number; data: LawData };
+  /** Scratch column for model values, reused by every law fitted to these data (see lawResidualStats). */
+  scratch?: Float64Array;
 }
 
 /** Packs strain/stress (and weights) for {@link lawNormalProblem}; ln x is computed once here. */
@@ -159,7 +161,7 @@ export function lawResidualStats(law: LawName, d: LawData, p: Float64Array): { s
   // The model values first, in one tight loop per law (value only, no gradient; the same operations as
   // POINT, so the same numbers bit for bit). Measured on a 766,736-point curve: 7 passes took 480 ms
   // through POINT's shared call site, which V8 cannot inline across six laws (bench/RESULTS.md, issue 12 D).
-  const m = new Float64Array(n);
+  const m = (d.scratch ??= new Float64Array(n));
   lawValues(law, x, lx, p, m);
   let my = 0;
   for (let i = 0; i < n; i++) my += y[i]!;
@@ -179,7 +181,7 @@ export function lawResidualStats(law: LawName, d: LawData, p: Float64Array): { s
 /** Residuals (model − data) of the law at `p` on every point of `d`, MPa. */
 export function lawResiduals(law: LawName, d: LawData, p: Float64Array): number[] {
   const n = d.x.length, y = d.y;
-  const m = new Float64Array(n);
+  const m = (d.scratch ??= new Float64Array(n));
   lawValues(law, d.x, d.lx, p, m);
   const residuals = new Array<number>(n);
   for (let i = 0; i < n; i++) residuals[i] = m[i]! - y[i]!;

@@ -147,32 +147,26 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   // Flow curve: monotone envelope (cycles left out), from the end of yield effects to Fm.
   const cycles = findCycles(strain, stress, E, toe, el.window.toIndex, noise);
   const fromTrue = yp ? Math.log1p(strain[yp.endIndex]! - toe) - (stress[yp.endIndex]! * (1 + strain[yp.endIndex]! - toe)) / E : ANALYZE_DEFAULTS.flowCurveFrom;
-  // True curve to maximum force and the flow curve in ONE pass (each point's ln(1 + e) once), into
-  // arrays sized once: on a 1,000,000-row record the two former loops with pushes and a second
-  // log1p per point were a tenth of `analyze` (bench/RESULTS.md, issue 12 D).
+  // The flow curve in one pass (ln(1 + e) only for the points of the envelope), into arrays sized
+  // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
+  // true curve that `analyze` never prints were a tenth of the command (bench/RESULTS.md, issue 12 D).
   const m = iMax + 1;
-  const tStrain = new Array<number>(m), tStress = new Array<number>(m), tPlastic = new Array<number>(m);
   const fStrain = new Array<number>(m), fStress = new Array<number>(m);
-  let nt = 0, nf = 0;
+  let nf = 0;
   const fromIndex = proof ? proof.index : 0;
   let runMax = -Infinity;
   for (let i = 0; i <= iMax; i++) {
     const e = strain[i]! - toe;
-    if (e <= -1) { if (e > runMax) runMax = e; continue; } // no true strain; never on the flow curve
-    const s = stress[i]! * (1 + e);
-    const eps = Math.log1p(e);
-    const ep = eps - s / E;
-    tStrain[nt] = eps;
-    tStress[nt] = s;
-    tPlastic[nt++] = ep;
     if (e <= runMax) continue;
     runMax = e;
-    if (ep >= fromTrue && ep > 0 && i >= fromIndex) {
+    if (e <= -1 || i < fromIndex) continue; // no true strain, or before the proof point: not on the flow curve
+    const s = stress[i]! * (1 + e);
+    const ep = Math.log1p(e) - s / E;
+    if (ep >= fromTrue && ep > 0) {
       fStrain[nf] = ep;
       fStress[nf++] = s;
     }
   }
-  tStrain.length = tStress.length = tPlastic.length = nt;
   fStrain.length = fStress.length = nf;
 
   // n-value (ISO 10275).
@@ -210,7 +204,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     if (cycles.length < 3) warnings.push({ code: 'cycles', message: `${cycles.length} unload–reload cycle(s); at least 3 are needed to fit the fall of the chord modulus` });
   }
 
-  return {
+  const analysis: TensileAnalysis = {
     elasticModulus: E,
     elasticModulusSource: given !== undefined ? 'given' : 'measured',
     measuredModulus: el.modulus,
@@ -240,11 +234,38 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     nValue: nFit?.n ?? null,
     K: nFit?.K ?? null,
     nFit,
-    trueCurve: { strain: tStrain, stress: tStress, plasticStrain: tPlastic },
+    trueCurve: { strain: [], stress: [], plasticStrain: [] },
     flowCurve: { strain: fStrain, stress: fStress },
     cycles,
     modulusDecay,
     fits,
     warnings,
   };
+  // The true curve to maximum force is made when first read: `analyze` prints only properties and
+  // fits, and on a 1,000,000-row record the three arrays cost 18 MB and a pass with ln(1 + e).
+  let tc: TensileAnalysis['trueCurve'] | null = null;
+  Object.defineProperty(analysis, 'trueCurve', {
+    enumerable: true, configurable: true,
+    get: () => (tc ??= trueCurveTo(strain, stress, toe, E, iMax)),
+    set: (v: TensileAnalysis['trueCurve']) => { tc = v; },
+  });
+  return analysis;
+}
+
+/**
+ * True strain, true stress and true plastic strain of samples 0…iMax (toe-compensated, e > −1 only):
+ * ε = ln(1 + e), σ = s(1 + e), εp = ε − σ/E (Dowling, *Mechanical Behavior of Materials*, §4.5).
+ */
+function trueCurveTo(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: number, E: number, iMax: number): TensileAnalysis['trueCurve'] {
+  const tStrain: number[] = [], tStress: number[] = [], tPlastic: number[] = [];
+  for (let i = 0; i <= iMax; i++) {
+    const e = strain[i]! - toe;
+    if (e <= -1) continue;
+    const s = stress[i]! * (1 + e);
+    const eps = Math.log1p(e);
+    tStrain.push(eps);
+    tStress.push(s);
+    tPlastic.push(eps - s / E);
+  }
+  return { strain: tStrain, stress: tStress, plasticStrain: tPlastic };
 }
