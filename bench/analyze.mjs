@@ -7,7 +7,8 @@
 //     curve (fit time only, Python start-up and reading excluded). Aim: ≥ 10× faster.
 //  3. each law's RMSE on the FULL flow curve, ours (block averages above 4000 points) against
 //     SciPy's point-by-point fit of the full curve. Aim: no worse than SciPy's by more than 1 %.
-// Run after `npm run build`: node bench/analyze.mjs   (SKIP_1M_SCIPY=1 skips SciPy on the 1M curve)
+// Run after `npm run build`: node bench/analyze.mjs   (SKIP_1M_SCIPY=1 skips SciPy on the 1M curve;
+// BEFORE=/path/to/older/bin/strainledger.js also times an older build on the 1M record, interleaved)
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
@@ -23,8 +24,8 @@ const med = (xs) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 console.log(`node ${process.version}, ${new Date().toISOString()}; load average ${la()} (2 cores)`);
 
 /** Wall seconds and peak RSS (MB) of `analyze FILE --format json`, and its JSON. */
-function ours(file) {
-  const r = spawnSync('/usr/bin/time', ['-v', process.execPath, join(repo, 'bin', 'strainledger.js'), 'analyze', file, '--format', 'json'], { encoding: 'utf8', maxBuffer: 1 << 28 });
+function ours(file, bin = join(repo, 'bin', 'strainledger.js')) {
+  const r = spawnSync('/usr/bin/time', ['-v', process.execPath, bin, 'analyze', file, '--format', 'json'], { encoding: 'utf8', maxBuffer: 1 << 28 });
   if (r.status !== 0) throw new Error(r.stderr);
   const wall = r.stderr.match(/Elapsed \(wall clock\) time \(h:mm:ss or m:ss\): (\d+):([\d.]+)/);
   const rss = Number(r.stderr.match(/Maximum resident set size \(kbytes\): (\d+)/)[1]);
@@ -71,11 +72,17 @@ function rmseTable(o, sp) {
 // 1. 1,000,000 rows.
 const big = join(dir, 'r1m.csv');
 const bigRows = await writeInventedRecord(big, 1_000_000);
-const runsO = [], runsN = [];
-for (let k = 0; k < 3; k++) { runsO.push(ours(big)); runsN.push(numpyRead(big)); }
+const runsO = [], runsN = [], runsB = [];
+const before = process.env.BEFORE;
+for (let k = 0; k < 3; k++) { runsO.push(ours(big)); runsN.push(numpyRead(big)); if (before) runsB.push(ours(big, before)); }
 const o1 = med(runsO.map((r) => r.s)), n1 = med(runsN), m1 = Math.max(...runsO.map((r) => r.mb));
 console.log(`\n1. analyze of ${bigRows.toLocaleString('en')} rows (flow curve ${runsO[0].json.fits[0].points.toLocaleString('en')} points): ${o1.toFixed(2)} s (${runsO.map((r) => r.s.toFixed(2)).join(', ')}), peak RSS ${m1.toFixed(0)} MB`);
 console.log(`   numpy.loadtxt reading it: ${n1.toFixed(2)} s (${runsN.map((x) => x.toFixed(2)).join(', ')}); ratio ours/numpy ${(o1 / n1).toFixed(2)}`);
+if (before) {
+  const b1 = med(runsB.map((r) => r.s));
+  const same = runsB.every((r) => JSON.stringify(r.json.fits) === JSON.stringify(runsO[0].json.fits) && r.json.tensileStrength === runsO[0].json.tensileStrength);
+  console.log(`   older build (${before}): ${b1.toFixed(2)} s (${runsB.map((r) => r.s.toFixed(2)).join(', ')}), peak RSS ${Math.max(...runsB.map((r) => r.mb)).toFixed(0)} MB; older/this ${(b1 / o1).toFixed(2)}; same fits and Rm: ${same}`);
+}
 console.log(`   aims: ≤ 2× numpy's read — ${o1 <= 2 * n1 ? 'met' : 'NOT met'}; peak RSS < 300 MB — ${m1 < 300 ? 'met' : 'NOT met'}   (load average ${la()})`);
 
 // 2. 100,000 points.

@@ -6,7 +6,7 @@ import { blockAverage, reductionBlockSize } from './blockAverage.js';
 import { effectivePoints } from './effectivePoints.js';
 import { parameterErrors } from './fitStatistics.js';
 import { lawJacobian } from './lawJacobian.js';
-import { lawData, lawNormalProblem, lawResidualPass, type LawData } from './lawNormalEquations.js';
+import { lawData, lawNormalProblem, lawResidualStats, lawResiduals, type LawData } from './lawNormalEquations.js';
 import { levenbergMarquardtNormal } from './levenbergMarquardt.js';
 import { startValues } from './startValues.js';
 import type { FitWarning, LawFit } from './types.js';
@@ -126,7 +126,7 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   }
   const res = levenbergMarquardtNormal(lawNormalProblem(law, fitted, lower, upper), start, {
     lower, upper, ...(opts.maxIterations !== undefined ? { maxIterations: opts.maxIterations } : {}) });
-  const pass = lawResidualPass(law, full, res.params);
+  const pass = lawResidualStats(law, full, res.params);
   const ssr = pass.ssr;
   const ssrN = Math.max(ssr / n, 1e-300);
   const eff = effectivePoints(n, ssr, pass.lag1);
@@ -148,12 +148,23 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
     if (res.atBound[j]) warnings.push({ code: 'atBound', message: `${law}: ${p.name} ended on its bound (${res.params[j]}); its standard error is not given` });
   });
   if (honest.singular) warnings.push({ code: 'notIdentifiable', message: `${law}: the data do not determine all ${k} parameters (singular information matrix); standard errors are not given` });
-  return {
+  const fit: LawFit = {
     law, params, standardErrors, intervals95,
     rmse: Math.sqrt(ssr / n), r2: pass.sst > 0 ? 1 - ssr / pass.sst : ssr === 0 ? 1 : 0,
     aic: n * Math.log(ssrN) + 2 * k, bic: n * Math.log(ssrN) + k * Math.log(n),
-    residuals: pass.residuals, converged: res.converged, iterations: res.iterations,
+    residuals: [], converged: res.converged, iterations: res.iterations,
     strainRange: [lo, hi], points: n, warnings, standardErrorsIndependent,
     basis: { fittedPoints: fitted.x.length, blockSize, lag1Autocorrelation: eff.lag1, effectivePoints: eff.effectiveN, inflation: eff.inflation },
   };
+  // The residuals are made when first read (one value pass, then kept): `analyze` without
+  // --residuals never reads them, and on a 766,736-point curve six laws' residual arrays cost
+  // 35 MB and a tenth of the command's time (bench/RESULTS.md, issue 12 D). Same values as before.
+  let residuals: number[] | null = null;
+  const p = res.params;
+  Object.defineProperty(fit, 'residuals', {
+    enumerable: true, configurable: true,
+    get: () => (residuals ??= lawResiduals(law, full, p)),
+    set: (v: number[]) => { residuals = v; },
+  });
+  return fit;
 }

@@ -66,6 +66,8 @@ export interface LawData {
   bad: number;
   /** Block averages of these data for a given block size, made once (see fitLaw). */
   blocks?: { size: number; data: LawData };
+  /** Scratch column for model values, reused by every law fitted to these data (see lawResidualStats). */
+  scratch?: Float64Array;
 }
 
 /** Packs strain/stress (and weights) for {@link lawNormalProblem}; ln x is computed once here. */
@@ -146,23 +148,84 @@ export function lawNormalProblem(law: LawName, d: LawData, lower: readonly numbe
  * sum Σ rᵢrᵢ₋₁ (for the residuals' autocorrelation). Units MPa, MPa².
  */
 export function lawResidualPass(law: LawName, d: LawData, p: Float64Array): { residuals: number[]; ssr: number; sst: number; lag1: number; ok: boolean } {
-  const pt = POINT[law];
-  const gr = new Float64Array(p.length);
+  return { residuals: lawResiduals(law, d, p), ...lawResidualStats(law, d, p) };
+}
+
+/**
+ * SSR, SST and the lag-1 sum of the fitted law on the full curve, without keeping the residuals
+ * (fitLaw makes those only when they are read). Units MPa².
+ */
+export function lawResidualStats(law: LawName, d: LawData, p: Float64Array): { ssr: number; sst: number; lag1: number; ok: boolean } {
   const { x, y, lx } = d;
   const n = x.length;
-  const residuals = new Array<number>(n);
+  // The model values first, in one tight loop per law (value only, no gradient; the same operations as
+  // POINT, so the same numbers bit for bit). Measured on a 766,736-point curve: 7 passes took 480 ms
+  // through POINT's shared call site, which V8 cannot inline across six laws (bench/RESULTS.md, issue 12 D).
+  const m = (d.scratch ??= new Float64Array(n));
+  lawValues(law, x, lx, p, m);
   let my = 0;
   for (let i = 0; i < n; i++) my += y[i]!;
   my /= n;
   let ssr = 0, sst = 0, lag1 = 0, prev = 0;
   for (let i = 0; i < n; i++) {
-    const r = pt(x[i]!, lx[i]!, p, gr) - y[i]!;
-    residuals[i] = r;
+    const r = m[i]! - y[i]!;
     ssr += r * r;
     if (i > 0) lag1 += r * prev;
     prev = r;
     const dy = y[i]! - my;
     sst += dy * dy;
   }
-  return { residuals, ssr, sst, lag1, ok: Number.isFinite(ssr) };
+  return { ssr, sst, lag1, ok: Number.isFinite(ssr) };
+}
+
+/** Residuals (model − data) of the law at `p` on every point of `d`, MPa. */
+export function lawResiduals(law: LawName, d: LawData, p: Float64Array): number[] {
+  const n = d.x.length, y = d.y;
+  const m = (d.scratch ??= new Float64Array(n));
+  lawValues(law, d.x, d.lx, p, m);
+  const residuals = new Array<number>(n);
+  for (let i = 0; i < n; i++) residuals[i] = m[i]! - y[i]!;
+  return residuals;
+}
+
+/** σ(xᵢ; p) of `law` into `out` (formulas of POINT, value only). `lx` is ln x. */
+function lawValues(law: LawName, x: Float64Array, lx: Float64Array, p: Float64Array, out: Float64Array): void {
+  const n = x.length;
+  switch (law) {
+    case 'hollomon': {
+      const K = p[0]!, e = p[1]!;
+      for (let i = 0; i < n; i++) out[i] = K * Math.exp(e * lx[i]!);
+      return;
+    }
+    case 'ludwik': {
+      const s0 = p[0]!, K = p[1]!, e = p[2]!;
+      for (let i = 0; i < n; i++) out[i] = s0 + K * Math.exp(e * lx[i]!);
+      return;
+    }
+    case 'swift': {
+      const K = p[0]!, e0 = p[1]!, e = p[2]!;
+      for (let i = 0; i < n; i++) out[i] = K * Math.exp(e * Math.log(e0 + x[i]!));
+      return;
+    }
+    case 'voce': {
+      const s0 = p[0]!, Q = p[1]!, b = p[2]!;
+      for (let i = 0; i < n; i++) out[i] = s0 + Q * -Math.expm1(-b * x[i]!);
+      return;
+    }
+    case 'hockettSherby': {
+      const sat = p[0]!, s0 = p[1]!, a = p[2]!, e = p[3]!;
+      const dd = sat - s0;
+      if (!(dd > 0)) { out.fill(NaN); return; }
+      for (let i = 0; i < n; i++) out[i] = sat - dd * Math.exp(-a * Math.exp(e * lx[i]!));
+      return;
+    }
+    case 'swiftVoce': {
+      const al = p[0]!, K = p[1]!, e0 = p[2]!, e = p[3]!, s0 = p[4]!, Q = p[5]!, b = p[6]!;
+      for (let i = 0; i < n; i++) {
+        const xi = x[i]!;
+        out[i] = al * (K * Math.exp(e * Math.log(e0 + xi))) + (1 - al) * (s0 + Q * -Math.expm1(-b * xi));
+      }
+      return;
+    }
+  }
 }

@@ -149,43 +149,44 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   }
   const A = (strain[fi]! - toe - sF / E) * 100;
 
-  // True curve to maximum force.
-  const tStrain: number[] = [], tStress: number[] = [], tPlastic: number[] = [];
-  for (let i = 0; i <= iMax; i++) {
-    const e = strain[i]! - toe;
-    if (e <= -1) continue;
-    const s = stress[i]! * (1 + e);
-    const eps = Math.log1p(e);
-    tStrain.push(eps);
-    tStress.push(s);
-    tPlastic.push(eps - s / E);
-  }
   // Flow curve: monotone envelope (cycles left out), from the end of yield effects to Fm.
   const cycles = findCycles(strain, stress, E, toe, el.window.toIndex, noise);
   const fromTrue = yp ? Math.log1p(strain[yp.endIndex]! - toe) - (stress[yp.endIndex]! * (1 + strain[yp.endIndex]! - toe)) / E : ANALYZE_DEFAULTS.flowCurveFrom;
-  const fStrain: number[] = [], fStress: number[] = [];
+  // The flow curve in one pass (ln(1 + e) only for the points of the envelope), into arrays sized
+  // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
+  // true curve that `analyze` never prints were a tenth of the command (bench/RESULTS.md, issue 12 D).
+  const m = iMax + 1;
+  const fStrain = new Array<number>(m), fStress = new Array<number>(m);
+  let nf = 0;
+  const fromIndex = proof ? proof.index : 0;
   let runMax = -Infinity;
   for (let i = 0; i <= iMax; i++) {
     const e = strain[i]! - toe;
     if (e <= runMax) continue;
     runMax = e;
+    if (e <= -1 || i < fromIndex) continue; // no true strain, or before the proof point: not on the flow curve
     const s = stress[i]! * (1 + e);
     const ep = Math.log1p(e) - s / E;
-    if (ep >= fromTrue && ep > 0 && (!proof || i >= proof.index)) {
-      fStrain.push(ep);
-      fStress.push(s);
+    if (ep >= fromTrue && ep > 0) {
+      fStrain[nf] = ep;
+      fStress[nf++] = s;
     }
   }
+  fStrain.length = fStress.length = nf;
 
   // n-value (ISO 10275).
   let nFit = null;
   {
-    const xs: number[] = [], ys: number[] = [];
-    const [a, b] = opts.nRange ?? [-Infinity, Infinity];
-    if (opts.nRange && !(a >= 0 && b > a)) throw new InputError('nRange', opts.nRange, 'a pair [from, to] of engineering strains with 0 ≤ from < to');
-    for (let i = 0; i < fStrain.length; i++) {
-      const eEng = Math.expm1(fStrain[i]! + fStress[i]! / E);
-      if (eEng >= a && eEng <= b) { xs.push(fStrain[i]!); ys.push(fStress[i]!); }
+    let xs: ArrayLike<number> = fStrain, ys: ArrayLike<number> = fStress;
+    if (opts.nRange) {
+      const [a, b] = opts.nRange;
+      if (!(a >= 0 && b > a)) throw new InputError('nRange', opts.nRange, 'a pair [from, to] of engineering strains with 0 ≤ from < to');
+      const xr: number[] = [], yr: number[] = [];
+      for (let i = 0; i < nf; i++) {
+        const eEng = Math.expm1(fStrain[i]! + fStress[i]! / E);
+        if (eEng >= a && eEng <= b) { xr.push(fStrain[i]!); yr.push(fStress[i]!); }
+      }
+      xs = xr; ys = yr;
     }
     if (xs.length >= 3) nFit = nValueFit(xs, ys);
     else warnings.push({ code: 'nRange', message: `only ${xs.length} points in the n-value range; no n-value` });
@@ -208,7 +209,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     if (cycles.length < 3) warnings.push({ code: 'cycles', message: `${cycles.length} unload–reload cycle(s); at least 3 are needed to fit the fall of the chord modulus` });
   }
 
-  return {
+  const analysis: TensileAnalysis = {
     elasticModulus: E,
     elasticModulusSource: given !== undefined ? 'given' : 'measured',
     measuredModulus: el.modulus,
@@ -238,11 +239,38 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     nValue: nFit?.n ?? null,
     K: nFit?.K ?? null,
     nFit,
-    trueCurve: { strain: tStrain, stress: tStress, plasticStrain: tPlastic },
+    trueCurve: { strain: [], stress: [], plasticStrain: [] },
     flowCurve: { strain: fStrain, stress: fStress },
     cycles,
     modulusDecay,
     fits,
     warnings,
   };
+  // The true curve to maximum force is made when first read: `analyze` prints only properties and
+  // fits, and on a 1,000,000-row record the three arrays cost 18 MB and a pass with ln(1 + e).
+  let tc: TensileAnalysis['trueCurve'] | null = null;
+  Object.defineProperty(analysis, 'trueCurve', {
+    enumerable: true, configurable: true,
+    get: () => (tc ??= trueCurveTo(strain, stress, toe, E, iMax)),
+    set: (v: TensileAnalysis['trueCurve']) => { tc = v; },
+  });
+  return analysis;
+}
+
+/**
+ * True strain, true stress and true plastic strain of samples 0…iMax (toe-compensated, e > −1 only):
+ * ε = ln(1 + e), σ = s(1 + e), εp = ε − σ/E (Dowling, *Mechanical Behavior of Materials*, §4.5).
+ */
+function trueCurveTo(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: number, E: number, iMax: number): TensileAnalysis['trueCurve'] {
+  const tStrain: number[] = [], tStress: number[] = [], tPlastic: number[] = [];
+  for (let i = 0; i <= iMax; i++) {
+    const e = strain[i]! - toe;
+    if (e <= -1) continue;
+    const s = stress[i]! * (1 + e);
+    const eps = Math.log1p(e);
+    tStrain.push(eps);
+    tStress.push(s);
+    tPlastic.push(eps - s / E);
+  }
+  return { strain: tStrain, stress: tStress, plasticStrain: tPlastic };
 }

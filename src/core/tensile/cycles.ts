@@ -20,12 +20,11 @@ export const UNLOAD_MIN_DROP = 0.3;
 export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<number>, E: number, toe: number, fromIndex: number, noise: number): UnloadCycle[] {
   const n = engStress.length;
   // Work in true stress and true strain: at 10 % strain the engineering chord would read (1 + e)² ≈ 21 % low.
-  const strain = new Float64Array(n), stress = new Float64Array(n);
-  for (let q = 0; q < n; q++) {
-    const e = Math.max(engStrain[q]! - toe, -0.5);
-    strain[q] = Math.log1p(e);
-    stress[q] = engStress[q]! * (1 + e);
-  }
+  // True strain only where a candidate cycle is examined (a few thousand samples, not every one:
+  // the full pass of ln(1 + e) was most of this function on a 1,000,000-row record, issue 12 D).
+  const stress = new Float64Array(n);
+  for (let q = 0; q < n; q++) stress[q] = engStress[q]! * (1 + Math.max(engStrain[q]! - toe, -0.5));
+  const ts = (q: number) => Math.log1p(Math.max(engStrain[q]! - toe, -0.5));
   const out: UnloadCycle[] = [];
   const tol = 3 * noise;
   let i = Math.max(1, fromIndex);
@@ -38,48 +37,48 @@ export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<nu
       k++;
     }
     const drop = stress[i]! - stress[r]!;
-    if (!(drop >= UNLOAD_MIN_DROP * stress[i]!) || !(strain[r]! < strain[i]! - (0.3 * drop) / E)) { i++; continue; }
+    if (!(drop >= UNLOAD_MIN_DROP * stress[i]!) || !(ts(r) < ts(i) - (0.3 * drop) / E)) { i++; continue; }
     // Unloading starts where the strain turns back: the largest strain between the peak and the reversal.
     let u = i;
-    for (let q = i; q <= r; q++) if (strain[q]! > strain[u]!) u = q;
-    if (!(strain[u]! > strain[r]!)) { i = r + 1; continue; }
-    const Eu = (stress[u]! - stress[r]!) / (strain[u]! - strain[r]!);
+    for (let q = i; q <= r; q++) if (ts(q) > ts(u)) u = q;
+    if (!(ts(u) > ts(r))) { i = r + 1; continue; }
+    const Eu = (stress[u]! - stress[r]!) / (ts(u) - ts(r));
     const su = stress[u]!;
     // Reload: from the reversal until the strain passes the start of unloading by 0.5 % or the next unloading.
     let reload: number | null = null;
     let reloadStrain = 0;
-    let prev = stress[r]! - Eu * (strain[r]! - strain[r]! - 0.002);
+    let prev = stress[r]! - Eu * (ts(r) - ts(r) - 0.002);
     let j = r + 1;
     for (; j < n; j++) {
-      const g = stress[j]! - (stress[r]! + Eu * (strain[j]! - strain[r]! - 0.002));
+      const g = stress[j]! - (stress[r]! + Eu * (ts(j) - ts(r) - 0.002));
       if (prev > 0 && g <= 0) {
         const t = prev / (prev - g);
         reload = stress[j - 1]! + t * (stress[j]! - stress[j - 1]!);
-        reloadStrain = strain[j - 1]! + t * (strain[j]! - strain[j - 1]!);
+        reloadStrain = ts(j - 1) + t * (ts(j) - ts(j - 1));
         break;
       }
       prev = g;
       if (stress[j]! < stress[j - 1]! - Math.max(tol, 0.05 * stress[j - 1]!)) break;
     }
-    const ep = strain[u]! - su / Eu;
+    const ep = ts(u) - su / Eu;
     out.push({
       basis: 'true',
       unloadIndex: u,
       reversalIndex: r,
       unloadStress: su,
       unloadModulus: Eu,
-      permanentStrain: strain[u]! - su / Eu,
+      permanentStrain: ts(u) - su / Eu,
       recoveredStrain: su / Eu,
       reloadProofStrength: reload,
       engineering: {
-        unloadStress: su / Math.exp(strain[u]!),
+        unloadStress: su / Math.exp(ts(u)),
         permanentStrain: Math.expm1(ep),
         reloadProofStrength: reload === null ? null : reload / Math.exp(reloadStrain),
       },
     });
     // Resume once the reload is back above the unloading stress or past its strain.
     let next = r + 1;
-    while (next < n && stress[next]! < su && strain[next]! <= strain[u]!) next++;
+    while (next < n && stress[next]! < su && ts(next) <= ts(u)) next++;
     i = Math.max(next, r + 1);
   }
   return out;
