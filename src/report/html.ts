@@ -34,6 +34,9 @@ export function htmlReport(r: ReportV1): string {
   const { document } = parseHTML('<!DOCTYPE html><html><head></head><body></body></html>');
   const chartSteps = r.steps.map((s) => ({ index: s.index, kind: s.kind, reloadYield: s.reloadYield, tensileStrength: s.tensileStrength, remainingUniformElongationPct: s.remainingUniformElongationPct, coldWorkPct: s.coldWorkPct }));
   const limit = (name: string) => r.targets.find((t) => t.name === name)?.limit;
+  // A caption names the shaded band only when the plan has that target (and so the chart draws one).
+  const band = (lo: string, hi: string | undefined, what: string) =>
+    (limit(lo) !== undefined || (hi !== undefined && limit(hi) !== undefined) ? `; the shaded band is the ${what} target` : '');
   const opt = <T extends object>(o: T) => Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as T;
   const i0 = r.material.initial;
   const start = { reloadYield: i0.reloadYield, tensileStrength: i0.tensileStrength, remainingUniformElongationPct: i0.uniformElongationPct };
@@ -58,11 +61,11 @@ export function htmlReport(r: ReportV1): string {
   parts.push('<h2>Ledger</h2>');
   parts.push(table(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
   parts.push(`<p>${htmlText(ledgerBasisNote(r))}</p>`);
-  parts.push(`<figure>${strength.outerHTML}<figcaption>Reload yield Rp0.2 (solid) and tensile strength Rm (dashed) after each step (step 0: the starting stock). Each value holds until the next step changes it, so it is drawn as a step; the shaded band is the yield target.</figcaption></figure>`);
-  parts.push(`<figure>${ductility.outerHTML}<figcaption>Remaining uniform elongation (solid) and %CW since the last anneal (dashed) after each step (step 0: the starting stock), drawn as steps; the shaded band is the elongation target.</figcaption></figure>`);
+  parts.push(`<figure>${strength.outerHTML}<figcaption>Reload yield Rp0.2 (solid) and tensile strength Rm (dashed) after each step (step 0: the starting stock). Each value holds until the next step changes it, so it is drawn as a step${band('minYield', 'maxYield', 'yield')}.</figcaption></figure>`);
+  parts.push(`<figure>${ductility.outerHTML}<figcaption>Remaining uniform elongation (solid) and %CW since the last anneal (dashed) after each step (step 0: the starting stock), drawn as steps${band('minRemainingElongationPct', undefined, 'elongation')}.</figcaption></figure>`);
   if (r.steps.some((s) => s.hardnessHV !== undefined)) {
     const hv = hardnessByStepChart(r.steps, opt({ initialHV: r.material.hardness?.initialHV, minHardnessHV: limit('minHardnessHV'), maxHardnessHV: limit('maxHardnessHV'), width: REPORT_CHART_WIDTH, document: document as unknown as Document }));
-    parts.push(`<figure>${hv.outerHTML}<figcaption>Vickers hardness estimated by Tabor's relation after each step (step 0: the starting stock), drawn as steps; the shaded band is the hardness target. An estimate: release parts by measured hardness.</figcaption></figure>`);
+    parts.push(`<figure>${hv.outerHTML}<figcaption>Vickers hardness estimated by Tabor's relation after each step (step 0: the starting stock), drawn as steps${band('minHardnessHV', 'maxHardnessHV', 'hardness')}. An estimate: release parts by measured hardness.</figcaption></figure>`);
   }
   parts.push('<h2>Targets</h2>');
   if (r.targets.length === 0) parts.push('<p>No targets given.</p>');
