@@ -31,6 +31,7 @@ export { STEP_KINDS, STEP_KIND_NAMES, stockOf, reductionPctFromStrain, MAX_STEP_
 export type { StepKindDef, StepContext, StepEffect, ReductionBasis } from './route/steps.js';
 export { stateProperties } from './route/state.js';
 export { reloadYield, strainForReloadYield, PROOF_OFFSET, PROOF_SECTION_FACTOR } from './route/reloadYield.js';
+export { strainForTensile } from './route/strainForTensile.js';
 export { evaluateRoute } from './route/ledger.js';
 export type { LedgerOptions } from './route/ledger.js';
 export { checkTargets, checkSpringbackTarget, validateTargets, TARGET_DEFS, TARGET_NAMES } from './route/targets.js';

@@ -23,8 +23,10 @@ export interface EffectivePoints {
  * @example effectivePoints(1000, 100, 90) // lag1 0.9, effectiveN ≈ 52.6, inflation ≈ 4.36
  */
 export function effectivePoints(n: number, ssr: number, lag1Sum: number): EffectivePoints {
-  const r1 = ssr > 0 && n > 1 ? lag1Sum / ssr : 0;
+  const q = ssr > 0 && n > 1 ? lag1Sum / ssr : 0;
+  // A non-finite ratio (residuals that overflowed) is taken as no correlation, never passed on as NaN.
+  const r1 = Number.isFinite(q) ? q : 0;
   const rho = Math.min(0.9999, Math.max(0, r1));
   const effectiveN = Math.min(n, Math.max(1, (n * (1 - rho)) / (1 + rho)));
-  return { lag1: Number.isFinite(r1) ? r1 : 0, effectiveN, inflation: Math.sqrt(n / effectiveN) };
+  return { lag1: r1, effectiveN, inflation: Math.sqrt(n / effectiveN) };
 }

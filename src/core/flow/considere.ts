@@ -33,7 +33,7 @@ export function considereNumeric(stress: (e: number) => number, slope: (e: numbe
  * Engineering tensile strength of the unstrained material from its law: Rm = σ(εu)·exp(−εu)
  * (force at the Considère point over the original area, constant volume). For Hollomon this is
  * K·(n/e)ⁿ (Dieter, *Mechanical Metallurgy*, §8-3; CHECKS.md). Units: MPa.
- * @example tensileStrengthOf(hollomon({K: 530, n: 0.44})) // 530·(0.44/e)^0.44 ≈ 237.6
+ * @example tensileStrengthOf(hollomon({K: 530, n: 0.44})) // 530·(0.44/e)^0.44 ≈ 237.9
  */
 export function tensileStrengthOf(law: { stress(e: number): number; uniformStrain(): number }): number {
   const eu = law.uniformStrain();

@@ -39,7 +39,7 @@ export function defaultHardnessModel(): HardnessModel {
  */
 export function taborHardness(law: FlowLaw, strain: number, model: Pick<HardnessModel, 'taborFactor' | 'representativeStrain'> = HARDNESS_DEFAULTS): number {
   const hv = (model.taborFactor * law.stress(strain + model.representativeStrain)) / STANDARD_GRAVITY;
-  if (!Number.isFinite(hv)) throw new ComputationError('hardnessHV', `not a finite number (${hv}); check the law and material.hardness`);
+  if (!Number.isFinite(hv)) throw new ComputationError('hardnessHV', `not a finite number (${hv}) at accumulated strain ${strain} (allowed ε̄ ≥ 0) with taborFactor ${model.taborFactor} and representativeStrain ${model.representativeStrain}; check the law and material.hardness`);
   return hv;
 }
 

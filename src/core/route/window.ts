@@ -1,10 +1,10 @@
-import { forcePeaks, hasLaterForcePeaks } from '../flow/considere.js';
 import type { FlowLaw } from '../flow/types.js';
 import { HARDNESS_DEFAULTS } from '../hardness/defaults.js';
 import { strainForHardness } from '../hardness/taborHardness.js';
 import type { HardnessModel } from '../hardness/types.js';
 import { PROOF_OFFSET } from './state.js';
 import { strainForReloadYield } from './reloadYield.js';
+import { strainForTensile } from './strainForTensile.js';
 import { reductionPctFromStrain, type ReductionBasis } from './steps.js';
 import type { ColdWorkWindow, TargetName, Targets } from './types.js';
 
@@ -44,15 +44,6 @@ export function coldWorkWindow(
     const s = eps - base;
     if (s < hi) { hi = s; hiBy = by; }
   };
-  const inverse = (sigma: number): number | null => {
-    // A stress at or above saturation is reached by no strain (checked first: throwing is slow).
-    if (law.saturationStress !== undefined && sigma >= law.saturationStress) return null;
-    try {
-      return law.strainAt(sigma);
-    } catch {
-      return null;
-    }
-  };
   if (targets.minYield !== undefined) {
     const e = strainForReloadYield(law, targets.minYield);
     if (e === null) unreachable.push(`minYield ${targets.minYield} is above the law's saturation stress (as a reload yield)`);
@@ -64,25 +55,9 @@ export function coldWorkWindow(
   }
   if (targets.minTensile !== undefined) {
     const T = targets.minTensile;
-    if (!hasLaterForcePeaks(law)) {
-      const su = law.stress(eu);
-      if (T <= su) raise(eu + Math.log(T / su), 'minTensile');
-      else {
-        const e = inverse(T);
-        if (e === null) unreachable.push(`minTensile ${T} is above the law's saturation stress`);
-        else raise(e, 'minTensile');
-      }
-    } else {
-      // S-shaped law (see forcePeaks): Rm(ε) ≥ T where σ(ε) ≥ T or, before a peak p, where
-      // σ(p)·e^(ε−p) ≥ T; Rm is monotone, so the bound is the smallest of these.
-      let e = inverse(T);
-      for (const pk of forcePeaks(law)) {
-        const sp = law.stress(pk);
-        if (T <= sp) e = Math.min(e ?? Infinity, pk + Math.log(T / sp));
-      }
-      if (e === null) unreachable.push(`minTensile ${T} is above the law's saturation stress`);
-      else raise(e, 'minTensile');
-    }
+    const e = strainForTensile(law, T);
+    if (e === null) unreachable.push(`minTensile ${T} is above the law's saturation stress`);
+    else raise(e, 'minTensile');
   }
   if (targets.minRemainingElongationPct !== undefined) {
     lower(eu - Math.log1p(targets.minRemainingElongationPct / 100), 'minRemainingElongationPct');

@@ -5,6 +5,7 @@ import { strainForHardness } from '../hardness/taborHardness.js';
 import type { HardnessModel } from '../hardness/types.js';
 import type { FlowLaw } from '../flow/types.js';
 import { PLANE_STRAIN_FACTOR } from '../route/strain.js';
+import { strainForTensile } from '../route/strainForTensile.js';
 import type { StateProperties } from '../route/types.js';
 import { aluminiumH1xBoundaries } from './aluminiumH1x.js';
 import { bsReductionPct } from './bsNumbers.js';
@@ -50,7 +51,7 @@ export function hvOfRockwellB(hrb: number): number {
     if (a === null || a === undefined || b === null || b === undefined) continue;
     if (hrb >= a && hrb <= b) return hv[i]! + ((hv[i + 1]! - hv[i]!) * (hrb - a)) / (b - a);
   }
-  throw new InputError('hrb', hrb, 'a Rockwell B number inside the steel conversion table');
+  throw new InputError('hrb', hrb, `a Rockwell B number inside the steel conversion table, HRB ${Math.min(...col.filter((v): v is number => typeof v === 'number'))} to ${Math.max(...col.filter((v): v is number => typeof v === 'number'))}`);
 }
 
 /** Relative tolerance at a temper boundary: a value this close below a boundary counts as on it (round-off of sizes). */
@@ -162,13 +163,6 @@ function strainOfBasis(scale: TemperScale, law: FlowLaw, x: number, hardness: Pi
     const e = strainForHardness(law, x, hardness);
     return e === null ? null : Math.max(0, e);
   }
-  const eu = law.uniformStrain();
-  const su = law.stress(eu);
-  if (x <= su) return Math.max(0, eu + Math.log(x / su));
-  if (law.saturationStress !== undefined && x >= law.saturationStress) return null;
-  try {
-    return law.strainAt(x);
-  } catch {
-    return null;
-  }
+  const e = strainForTensile(law, x);
+  return e === null ? null : Math.max(0, e);
 }

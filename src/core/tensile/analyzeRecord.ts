@@ -120,7 +120,8 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   }
   const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
-  const topFrom = yp ? yp.endIndex : Math.min(el.window.toIndex, fi);
+  // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
+  const topFrom = Math.max(0, Math.min(yp ? yp.endIndex : el.window.toIndex, fi - 2));
   const fm = forceMaximum(strain, stress, noise, topFrom, fi + 1);
   const Rm = fm.stress;
   const iMax = fm.index;

@@ -1,3 +1,4 @@
+import { ComputationError } from '../errors.js';
 import { movingAverage } from './localFit.js';
 
 /** Where the maximum of force is and how it was read. */
@@ -26,18 +27,22 @@ export interface ForceMaximum {
  * Maximum force from a local smooth fit around the top, not the highest raw sample (the highest of
  * many noisy samples is biased high by 2–3 noise standard deviations).
  *
- * A centred moving average (window n/200, 5 to 2001 samples) finds the top; the samples whose average
- * lies within max(2σ̂, 0.1 % of the top) of it, contiguous around it (at least 7), get a least-squares
- * parabola; Rm is the parabola's maximum on that span. Ag is read at the middle of the part of the span
- * where the parabola lies within 2σ̂/√m of Rm (m samples in the fit): for a curved top that is the
- * vertex; where the top is flat within the noise it is the middle of the flat part (ASTM E8/E8M
- * practice for flat tops, from memory). ISO 6892-1 §3.10.1: for a record with a yield drop, Fm is the
- * highest force after work hardening begins — the caller passes `from` after the yield plateau.
+ * A centred moving average (window n/50, odd, 5 to 20001 samples) finds the top. The outermost samples
+ * whose average lies within δ = max(3σ̂/√w, 1 % of the top) of it, widened by w/4 samples on each side
+ * (the average blunts the top) and to at least 9 samples, form the span. On the span (binned to at most
+ * 2000 groups of consecutive samples) a model of two half-parabolas joined at the vertex is fitted by
+ * least squares, the vertex position found by a grid and golden-section search: the necking side bends
+ * much more sharply than the hardening side. Rm is the model's maximum. Ag is read at the middle of the
+ * part of the span where the model lies within 4σ̂/√m of Rm (m samples in the fit): for a curved top
+ * that is the vertex; where the top is flat within the noise it is the middle of the flat part (ASTM
+ * E8/E8M practice for flat tops, from memory). ISO 6892-1 §3.10.1: for a record with a yield drop, Fm is
+ * the highest force after work hardening begins — the caller passes `from` after the yield plateau.
  * Units: strain fraction, stress MPa, σ̂ = `noise` MPa. Valid: `to − from` ≥ 3. Cost: O(to − from).
  * @example forceMaximum([0, 1, 2, 3, 4], [0, 3, 4, 3, 0], 0, 0, 5).stress // 4.0
  */
 export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number>, noise: number, from: number, to: number): ForceMaximum {
   const n = to - from;
+  if (!(n >= 3)) throw new ComputationError('record.maximumForce', `${n} samples between index ${from} and ${to}; at least 3 are needed to fit the top of the record`);
   let w = Math.max(5, Math.min(20001, Math.round(n / 50))) | 1;
   if (w > n) w = Math.max(1, n) | 1;
   const ma = movingAverage(stress, from, to, w);
@@ -49,7 +54,7 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   let a = 0, b = n - 1;
   while (a < j && ma[a]! < ma[j]! - delta) a++;
   while (b > j && ma[b]! < ma[j]! - delta) b--;
-  // The averaging window blunts the top by about w/2 samples on each side: widen by that.
+  // The averaging window blunts the top: widen the span by w/4 samples on each side.
   a = Math.max(0, a - (w >> 2)); b = Math.min(n - 1, b + (w >> 2));
   while (b - a + 1 < 9 && (a > 0 || b < n - 1)) { if (a > 0) a--; if (b < n - 1) b++; }
   const i0 = from + a, i1 = from + b + 1;
