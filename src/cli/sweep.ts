@@ -18,7 +18,7 @@ export interface SweepRow {
   reloadYield: number | null;
   tensileStrength: number | null;
   remainingUniformElongationPct: number | null;
-  targets: { name: string; margin: number; met: boolean }[];
+  targets: { name: string; margin: number; met: boolean; temperBasis?: string }[];
   problem?: string;
 }
 
@@ -47,7 +47,7 @@ export async function runSweep(src: PlanSource, sweep: Sweep, overrides: readonl
         reloadYield: last?.reloadYield ?? r.material.initial.reloadYield,
         tensileStrength: last?.tensileStrength ?? r.material.initial.tensileStrength,
         remainingUniformElongationPct: last?.remainingUniformElongationPct ?? r.material.initial.uniformElongationPct,
-        targets: r.targets.map((t) => ({ name: t.name, margin: t.margin, met: t.met })),
+        targets: r.targets.map((t) => ({ name: t.name, margin: t.margin, met: t.met, ...(t.temper ? { temperBasis: t.temper.basis } : {}) })),
       });
     } catch (e) {
       if (!(e instanceof PlanError)) throw e;
@@ -66,15 +66,21 @@ function targetNames(res: SweepResult): string[] {
   return names;
 }
 
+/** The basis of a temper target's margin (its unit), from the first row that has it. */
+function temperBasisOf(rows: readonly SweepRow[], name: string): string | undefined {
+  for (const r of rows) for (const t of r.targets) if (t.name === name && t.temperBasis !== undefined) return t.temperBasis;
+  return undefined;
+}
+
 function header(res: SweepResult): string[] {
   const S = res.report?.units.stress ?? '';
-  return [res.path, `Rp0.2 ${S}`, `Rm ${S}`, 'Ag left %', ...targetNames(res).map((n) => `margin ${n} ${targetUnit(n, S)}`), 'verdict'];
+  return [res.path, `Rp0.2 ${S}`, `Rm ${S}`, 'Ag left %', ...targetNames(res).map((n) => `margin ${n} ${targetUnit(n, S, temperBasisOf(res.rows, n))}`), 'verdict'];
 }
 
 function cells(res: SweepRow, names: string[], S: string): string[] {
   return [
     String(res.value), formatNumber(res.reloadYield, 'stress', S), formatNumber(res.tensileStrength, 'stress', S), formatNumber(res.remainingUniformElongationPct, 'percent'),
-    ...names.map((n) => { const t = res.targets.find((x) => x.name === n); return t ? formatNumber(t.margin, targetUnitKind(n), S) : '—'; }),
+    ...names.map((n) => { const t = res.targets.find((x) => x.name === n); return t ? formatNumber(t.margin, targetUnitKind(n, t.temperBasis), S) : '—'; }),
     res.exit === 2 ? `invalid: ${res.problem}` : res.allTargetsMet ? 'met' : 'NOT MET',
   ];
 }

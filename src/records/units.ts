@@ -7,7 +7,7 @@ export const STRESS_UNITS: Readonly<Record<string, number>> = {
 export const FORCE_UNITS: Readonly<Record<string, number>> = {
   // 1 lbf = 4.4482216152605 N, 1 kgf = 9.80665 N (NIST SP 811, Appendix B.8); 'lb'/'lbs' as US exports
   // write pound-force (common practice).
-  n: 1, kn: 1000, mn: 1e6, lbf: 4.4482216152605, lb: 4.4482216152605, lbs: 4.4482216152605,
+  n: 1, kn: 1000, lbf: 4.4482216152605, lb: 4.4482216152605, lbs: 4.4482216152605,
   kip: 4448.2216152605, kips: 4448.2216152605, klbf: 4448.2216152605, kgf: 9.80665,
 };
 export const LENGTH_UNITS: Readonly<Record<string, number>> = {
@@ -45,6 +45,12 @@ export function normUnit(u: string): string {
 export function unitFactor(q: Exclude<Quantity, 'time'>, unit: string): number | undefined {
   const t = TABLES[q];
   const k = normUnit(unit);
+  // MN and mN differ only in case (10⁹ apart; mN is the force unit of small-specimen tests): read them
+  // case-sensitively, never through the lower-cased table.
+  if (q === 'force' && k === 'mn') {
+    const raw = unit.trim().replace(/^[[({<]\s*(.*?)\s*[\])}>]$/, '$1').trim();
+    return raw === 'MN' ? 1e6 : raw === 'mN' ? 1e-3 : undefined;
+  }
   return Object.prototype.hasOwnProperty.call(t, k) ? t[k] : undefined;
 }
 

@@ -112,3 +112,12 @@ describe('strainledger design with a temper window', () => {
     }
   });
 });
+
+describe('a sweep of a plan with a temper target', () => {
+  it('labels the temper margin in its basis: MPa for aluminium H1x (tempers by Rm, EN 515), not % reduction', () => {
+    const r = run('run', 'examples/fin-stock-h14.json', '--sweep', 'start.thickness=1.0:1.2:0.1', '--format', 'table');
+    expect(r.status === 0 || r.status === 1, r.stderr).toBe(true);
+    expect(r.stdout).toMatch(/margin temper MPa/);
+    expect(r.stdout).not.toMatch(/margin temper % thickness reduction/);
+  });
+});

@@ -49,6 +49,15 @@ describe('unitFactor(quantity, unit) for the units labs write', () => {
   });
 });
 
+describe('unitFactor: SI prefixes that differ only in case', () => {
+  it('mN = 1e-3 N and MN = 1e6 N (SI prefixes milli and mega, SI Brochure Table 7); a lower-case "mn" is refused as ambiguous', () => {
+    expect(unitFactor('force', 'mN')).toBe(1e-3);
+    expect(unitFactor('force', '[mN]')).toBe(1e-3);
+    expect(unitFactor('force', 'MN')).toBe(1e6);
+    expect(unitFactor('force', 'mn')).toBeUndefined();
+  });
+});
+
 describe('parseRecordText on US-style and microstrain exports (INVENTED rows)', () => {
   const rows = (f: (e: number, s: number) => string) => Array.from({ length: 20 }, (_, i) => f(i * 1e-4, i * 20)).join('\n');
   it('a strain column named strain_in_per_in and stress in ksi are read (was: unit "in" is not a strain unit)', () => {

@@ -26,7 +26,7 @@ export const run = defineCommand({
     shard: { type: 'string', value: 'K/N', help: 'run only the K-th of N shares of the sorted plan list (1-based; one CI matrix job each; combine the reports with merge)' },
     'no-progress': { type: 'boolean', default: false, help: 'no progress bar (it shows only on a terminal, never under CI)' },
   },
-  details: 'exit codes: 0 all targets met, 1 a target is not met, 2 invalid input (the worst over all plans)',
+  details: 'exit codes: 0 all targets met, 1 a target is not met, 2 invalid input, 3 internal error (the worst over all plans)',
   async run({ values, positionals }, io) {
     const format = values.format as Format;
     if (!FORMATS.includes(format)) throw cliError('--format', `got ${JSON.stringify(values.format)}, allowed one of ${FORMATS.join(', ')}`);
