@@ -1,3 +1,4 @@
+import { formatNumber } from './numbers.js';
 import { parseHTML } from 'linkedom';
 import { REPORT_CHART_WIDTH, ductilityByStepChart, strengthByStepChart } from '../charts/ledger.js';
 import { hardnessByStepChart } from '../charts/hardness.js';
@@ -57,7 +58,7 @@ export function htmlReport(r: ReportV1): string {
   for (const p of provenance(r)) parts.push(`<dt>${htmlText(p.label)}</dt><dd>${htmlText(p.value)}</dd>`);
   parts.push('</dl>');
   parts.push('<h2>Annealed state</h2>');
-  parts.push(`<p>Rp0.2 ${r.material.initial.reloadYield.toFixed(1)} ${htmlText(r.units.stress)}, Rm ${r.material.initial.tensileStrength.toFixed(1)} ${htmlText(r.units.stress)}, uniform elongation ${r.material.initial.uniformElongationPct.toFixed(1)} %, Considère uniform true strain ${r.material.uniformStrain.toFixed(4)}.</p>`);
+  parts.push(`<p>Rp0.2 ${formatNumber(r.material.initial.reloadYield, 'stress', r.units.stress)} ${htmlText(r.units.stress)}, Rm ${formatNumber(r.material.initial.tensileStrength, 'stress', r.units.stress)} ${htmlText(r.units.stress)}, uniform elongation ${r.material.initial.uniformElongationPct.toFixed(1)} %, Considère uniform true strain ${r.material.uniformStrain.toFixed(4)}.</p>`);
   parts.push('<h2>Ledger</h2>');
   parts.push(table(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
   parts.push(`<p>${htmlText(ledgerBasisNote(r))}</p>`);

@@ -1,7 +1,7 @@
 import type { ReportV1 } from './build.js';
 import { conversionHeader, extraStepFields, hardnessText, sig4, stepNumber } from './fields.js';
 import { ledgerBasisNote } from './columns.js';
-import { extraFieldHeader, flowCurveText, formatTargetValue } from './numbers.js';
+import { extraFieldHeader, flowCurveText, formatNumber, formatTargetValue } from './numbers.js';
 import { scatterLines } from './scatter.js';
 import { hasTemper, targetUnit, temperTargetNote, temperText } from './columns.js';
 
@@ -31,7 +31,7 @@ export function tableReport(r: ReportV1, color = false): string {
   if (overrides?.length) out.push(`overrides (--set): ${overrides.join('; ')}`);
   out.push(`material: ${r.material.name}; E = ${fixed(r.material.elasticModulus, 0)} ${S}; ${fc} (true stress vs true plastic strain; ${r.material.source})`);
   if (r.material.hardness) out.push(`hardness: ${hardnessText(r.material.hardness)}`);
-  out.push(`annealed: Rp0.2 ${fixed(r.material.initial.reloadYield, 1)} ${S}, Rm ${fixed(r.material.initial.tensileStrength, 1)} ${S}, uniform elongation ${fixed(r.material.initial.uniformElongationPct, 1)} %`);
+  out.push(`annealed: Rp0.2 ${formatNumber(r.material.initial.reloadYield, 'stress', S)} ${S}, Rm ${formatNumber(r.material.initial.tensileStrength, 'stress', S)} ${S}, uniform elongation ${fixed(r.material.initial.uniformElongationPct, 1)} %`);
   out.push('');
   const size = (s: Record<string, number | undefined>) => s.thickness !== undefined ? `t ${fixed(s.thickness, 3)}` : s.diameter !== undefined ? `d ${fixed(s.diameter, 3)}` : s.height !== undefined ? `h ${fixed(s.height, 3)}` : '—';
   // Extra numeric step fields added after report v1 (4 significant figures), blank where absent.
@@ -41,7 +41,7 @@ export function tableReport(r: ReportV1, color = false): string {
   const hv = r.steps.some((s) => s.hardnessHV !== undefined) ? ['HV'] : [];
   const rows = r.steps.map((s) => [
     String(s.index), s.label ? `${s.kind} (${s.label})` : s.kind, size(s.size as Record<string, number | undefined>), fixed(s.strainIncrement, 4), fixed(s.accumulatedStrain, 4),
-    fixed(s.coldWorkPct, 1), fixed(s.reloadYield, 1), fixed(s.tensileStrength, 1), fixed(s.yieldRatio, 3),
+    fixed(s.coldWorkPct, 1), formatNumber(s.reloadYield, 'stress', S), formatNumber(s.tensileStrength, 'stress', S), fixed(s.yieldRatio, 3),
     fixed(s.remainingUniformElongationPct, 1), fixed(s.elasticRecoveryStrain * 100, 3), ...hv.map(() => fixed(s.hardnessHV, 1)), ...extras.map((k) => sig4(stepNumber(s, k))),
     ...(tempers ? [temperText(s)] : []), s.warnings.map((w) => w.code).join(','),
   ]);
