@@ -120,7 +120,7 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       quantity('springback', b.springbackDeg, 2, '°', 'springbackDeg'),
       quantity('final angle', b.finalAngleDeg, 2, '°', 'finalAngleDeg'),
       quantity('final inner radius', b.finalRadius, DIGITS.size, b.finalRadius === null ? '(springs back flat)' : 'mm', 'finalRadius'),
-      quantity('outer-fibre strain t/(2ρ)', b.outerFibreStrain, DIGITS.strain, '', 'outerFibreStrain'),
+      quantity('outer-fibre strain (from the neutral surface)', b.outerFibreStrain, DIGITS.strain, '', 'outerFibreStrain'),
       b.reverseYield ? h('p', { class: 'sl-warning' }, 'The residual stress reaches reverse yield: unloading is not purely elastic, springback is somewhat overstated.') : null),
   })
   .cell({

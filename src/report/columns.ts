@@ -23,7 +23,7 @@ export function stepColumns(r: ReportV1): StepColumn[] {
     { header: 'kind', numeric: false, cell: (s) => (s.label ? `${s.kind} (${s.label})` : s.kind) },
     { header: `size ${r.units.length}`, numeric: false, cell: (s) => sizeText(s.size) },
     { header: 'Δε', numeric: true, cell: (s) => fx(s.strainIncrement, 4) },
-    { header: 'ε total', numeric: true, cell: (s) => fx(s.accumulatedStrain, 4) },
+    { header: 'ε̄ since anneal', numeric: true, cell: (s) => fx(s.accumulatedStrain, 4) },
     { header: '%CW', numeric: true, cell: (s) => fx(s.coldWorkPct, 1) },
     { header: `Rp0.2 ${S}`, numeric: true, cell: (s) => formatNumber(s.reloadYield, 'stress', S) },
     { header: `Rm ${S}`, numeric: true, cell: (s) => formatNumber(s.tensileStrength, 'stress', S) },
@@ -42,7 +42,7 @@ export function stepColumns(r: ReportV1): StepColumn[] {
 /** One sentence under every ledger table: the basis of its stresses and strains (docs/bases-and-units.md). */
 export function ledgerBasisNote(r: ReportV1): string {
   const kin = extraStepFields(r.steps).some((k) => /ReloadYield$/.test(k));
-  return `Rp0.2, Rm${kin ? ' and the reload yields' : ''}: engineering stresses on the part's own section after the step; Δε, ε total: true equivalent plastic strain.`;
+  return `Rp0.2, Rm${kin ? ' and the reload yields' : ''}: engineering stresses on the part's own section after the step; Δε, ε̄ since anneal: true equivalent plastic strain (a full anneal resets ε̄ to 0).`;
 }
 
 /** The cold-work window in one sentence. */
@@ -67,7 +67,7 @@ export function hasTemper(r: ReportV1): boolean {
 export function temperText(s: ReportStep): string {
   const t = s.temper;
   if (!t) return '—';
-  return t.next === null || t.towardNext === null ? t.designation : `${t.designation} (${Math.floor(t.towardNext * 100)} % to ${t.next})`;
+  return t.next === null || t.towardNext === null ? t.designation : `${t.designation} (${Math.floor(t.towardNext * 100)} % of the way to ${t.next})`;
 }
 
 /** For a temper target, the tempers wanted and reached in words (` — H04 wanted, H02 reached`); '' for other targets. */

@@ -45,7 +45,7 @@ export function tableReport(r: ReportV1, color = false): string {
     fixed(s.remainingUniformElongationPct, 1), fixed(s.elasticRecoveryStrain * 100, 3), ...hv.map(() => fixed(s.hardnessHV, 1)), ...extras.map((k) => sig4(stepNumber(s, k))),
     ...(tempers ? [temperText(s)] : []), s.warnings.map((w) => w.code).join(','),
   ]);
-  out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε total', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', ...hv, ...extras.map((k) => conversionHeader(k, S) ?? extraFieldHeader(k, r.units)), ...(tempers ? ['temper'] : []), 'warnings'], rows));
+  out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε̄ since anneal', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', ...hv, ...extras.map((k) => conversionHeader(k, S) ?? extraFieldHeader(k, r.units)), ...(tempers ? ['temper'] : []), 'warnings'], rows));
   out.push(ledgerBasisNote(r));
   out.push('');
   if (r.targets.length === 0) out.push('targets: none given');

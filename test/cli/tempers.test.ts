@@ -85,7 +85,7 @@ describe('CSV and Markdown carry the temper', () => {
   it('Markdown shows a temper column and the temper target line', () => {
     const md = run('run', PLAN, '--format', 'md').stdout;
     expect(md).toMatch(/\| temper \|/);
-    expect(md).toMatch(/H02 \(13 % to H03\)/);
+    expect(md).toMatch(/H02 \(13 % of the way to H03\)/);
     expect(md).toMatch(/temper — H02 wanted, H02 reached/);
   });
 });
