@@ -34,7 +34,7 @@ describe('route planner: tempers', () => {
     expect(status).toBe(0);
     const shown = await column(page, 'temper');
     // The runner's JSON through the report's own wording: designation and whole per cent toward the next temper.
-    expect(shown).toEqual(report.steps.map((s: any) => (s.temper ? `${s.temper.designation} (${Math.floor(s.temper.towardNext * 100)} % to ${s.temper.next})` : '—')));
+    expect(shown).toEqual(report.steps.map((s: any) => (s.temper ? `${s.temper.designation} (${Math.floor(s.temper.towardNext * 100)} % of the way to ${s.temper.next})` : '—')));
     expect(shown.at(-1)).toMatch(/^H02 /);
     expect(await page.locator('[data-target="temper"]').innerText()).toMatch(/met — temper H02 \(reached: H02\)/);
     expect((await column(page, 'warnings'))[1]).toMatch(/grain growth/);
