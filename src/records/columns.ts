@@ -43,13 +43,16 @@ export function describeColumn(name: string, index: number): ColumnInfo {
     unit = (sep[2] ?? sep[4])!;
   } else {
     const inU = /^(.*?)\s+in\s+(\S+)$/i.exec(base);
+    // `Stress/MPa`, `Strain/µε`, `Force / kN`: quantity/unit (ISO 80000-1 §7.1 notation for a value divided by
+    // its unit, as table headings write it). The text after the last slash must be a known unit, so `mm/mm`
+    // stays a strain unit and a name such as `Stress/Strain` stays a name.
+    const slash = /^(.*?)\s*\/\s*([^/\s]+)$/.exec(base);
     const suf = UNIT_SUFFIX.exec(base);
+    // A compound unit at the end (`Strain mm/mm`, `Stress N/mm2`) is one unit, not quantity/unit.
+    const compound = suf !== null && suf[1]!.includes('/');
     if (inU) { base = inU[1]!; unit = inU[2]!; }
+    else if (!compound && slash && slash[1] && knownUnit(slash[2]!)) { base = slash[1]; unit = slash[2]!; }
     else if (suf) { unit = suf[1]!; base = base.slice(0, base.length - suf[0].length); }
-    else {
-      const slash = /^(.*?)\s*\/\s*(\S+)$/.exec(base);
-      if (slash && /^(mpa|gpa|ksi|psi|n|kn|lbf|mm|in|%|s)$/i.test(slash[2]!)) { base = slash[1]!; unit = slash[2]!; }
-    }
   }
   const b = base.toLowerCase().replace(/[_\-.]+/g, ' ').replace(/\s+/g, ' ').trim();
   return { index, name, base: b, unit: normUnit(unit) === 'pct' ? '%' : unit.trim(), isTrue: /\btrue\b|\blog(arithmic)?\b/.test(b) };

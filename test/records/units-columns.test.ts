@@ -21,6 +21,16 @@ describe('describeColumn(name) reads the unit from the usual brackets and separa
     ['Force_kN', 'force', 'kN'],
     ['Extension in', 'extension', 'in'],
     ['Extension: mm', 'extension', 'mm'],
+    // quantity/unit, the ISO 80000-1 heading notation
+    ['Strain/µε', 'strain', 'µε'],
+    ['Stress / MPa', 'stress', 'MPa'],
+    ['Force/kN', 'force', 'kN'],
+    ['Stress/kPa', 'stress', 'kPa'],
+    ['Load/kgf', 'load', 'kgf'],
+    ['Stress/Strain', 'stress/strain', ''],
+    ['Strain mm/mm', 'strain', 'mm/mm'],
+    ['Stress N/mm2', 'stress', 'N/mm2'],
+    ['Strain in/in', 'strain', 'in/in'],
   ];
   for (const [name, base, unit] of cases) {
     it(`describeColumn(${JSON.stringify(name)}) → base ${base}, unit ${unit}`, () => {
