@@ -1,5 +1,6 @@
 import * as Plot from '@observablehq/plot';
 import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
+import { sig4 } from '../core/numeric/sig4.js';
 
 /** The numbers a ledger chart needs, in the plan's units (what the JSON report's steps hold). */
 export interface LedgerChartStep {
@@ -99,10 +100,6 @@ function stepAxis(last: number, width: number): Plot.ScaleOptions {
   return { label: 'step (0 = starting stock)', domain: [0, Math.max(1, last)], ticks: stepTicks(last, width), tickFormat: 'd', inset: 14, ...X_AXIS };
 }
 
-function fmt(v: number): string {
-  return String(+v.toPrecision(4));
-}
-
 /**
  * Reload yield (solid) and tensile strength (dashed) after each step (step 0: the starting stock),
  * drawn as steps, with the yield target as a labelled band. Same code in the notebooks (browser DOM) and in the
@@ -120,8 +117,8 @@ export function strengthByStepChart(steps: readonly LedgerChartStep[], o: Ledger
   const dataMax = Math.max(0, ...data.map((d) => d.value), o.minYield ?? 0, o.maxYield ?? 0);
   const marks: Plot.Markish[] = [];
   if (o.minYield !== undefined || o.maxYield !== undefined) {
-    const label = o.minYield !== undefined && o.maxYield !== undefined ? `yield target ${fmt(o.minYield)}–${fmt(o.maxYield)} ${o.stressUnit}`
-      : o.minYield !== undefined ? `yield target ≥ ${fmt(o.minYield)} ${o.stressUnit}` : `yield target ≤ ${fmt(o.maxYield!)} ${o.stressUnit}`;
+    const label = o.minYield !== undefined && o.maxYield !== undefined ? `yield target ${sig4(o.minYield)}–${sig4(o.maxYield)} ${o.stressUnit}`
+      : o.minYield !== undefined ? `yield target ≥ ${sig4(o.minYield)} ${o.stressUnit}` : `yield target ≤ ${sig4(o.maxYield!)} ${o.stressUnit}`;
     marks.push(...targetBand(o.minYield, o.maxYield, dataMax * 1.1, 0, label));
   }
   marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, RM));
@@ -154,7 +151,7 @@ export function ductilityByStepChart(steps: readonly LedgerChartStep[], o: Omit<
   const width = o.width ?? DEFAULT_CHART_WIDTH;
   const marks: Plot.Markish[] = [];
   if (o.minRemainingElongationPct !== undefined) {
-    marks.push(...targetBand(o.minRemainingElongationPct, undefined, 100, 0, `elongation target ≥ ${fmt(o.minRemainingElongationPct)} %`));
+    marks.push(...targetBand(o.minRemainingElongationPct, undefined, 100, 0, `elongation target ≥ ${sig4(o.minRemainingElongationPct)} %`));
   }
   marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, CW));
   return Plot.plot(defined({
@@ -209,8 +206,7 @@ export function hardnessByStepChart(steps: readonly HardnessChartStep[], o: Hard
   const dataMax = Math.max(0, ...data.map((d) => d.value), lo ?? 0, hi ?? 0);
   const marks: Plot.Markish[] = [];
   if (lo !== undefined || hi !== undefined) {
-    const f = (v: number) => String(+v.toPrecision(4));
-    const label = lo !== undefined && hi !== undefined ? `hardness target ${f(lo)}–${f(hi)} HV` : lo !== undefined ? `hardness target ≥ ${f(lo)} HV` : `hardness target ≤ ${f(hi!)} HV`;
+    const label = lo !== undefined && hi !== undefined ? `hardness target ${sig4(lo)}–${sig4(hi)} HV` : lo !== undefined ? `hardness target ≥ ${sig4(lo)} HV` : `hardness target ≤ ${sig4(hi)} HV`;
     marks.push(...targetBand(lo, hi, dataMax * 1.1, 0, label));
   }
   marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, ''));

@@ -1,6 +1,7 @@
 import { extraFieldHeader, formatNumber, targetUnit as unitOfTarget, targetUnitKind } from './numbers.js';
 import type { ReportStep, ReportV1 } from './build.js';
-import { conversionHeader, extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
+import { conversionHeader, extraStepFields, sizeText, stepNumber } from './fields.js';
+import { sig4 } from '../core/numeric/sig4.js';
 
 const fx = (x: number, d: number) => x.toFixed(d);
 
@@ -12,11 +13,12 @@ export interface StepColumn {
 }
 
 /**
- * The step columns of the human-readable reports, in the plan's units: strains to 4 decimals,
- * stresses to 0.1, percentages to 0.1, elastic recovery in percent to 3 decimals; then every extra
- * numeric step field (4 significant figures), then the warning codes.
+ * The step columns of every human-readable report (text table, Markdown, HTML), in the plan's units:
+ * strains to 4 decimals, stresses to 0.1, percentages to 0.1, elastic recovery in percent to 3
+ * decimals; then every extra numeric step field (4 significant figures), then the warning codes
+ * joined by `warningSeparator`.
  */
-export function stepColumns(r: ReportV1): StepColumn[] {
+export function stepColumns(r: ReportV1, warningSeparator = ', '): StepColumn[] {
   const S = r.units.stress;
   const cols: StepColumn[] = [
     { header: 'step', numeric: true, cell: (s) => String(s.index) },
@@ -35,7 +37,7 @@ export function stepColumns(r: ReportV1): StepColumn[] {
   if (r.steps.some((s) => s.hardnessHV !== undefined)) cols.push({ header: 'HV', numeric: true, cell: (s) => (s.hardnessHV === undefined ? '—' : fx(s.hardnessHV, 1)) });
   for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: conversionHeader(key, S) ?? extraFieldHeader(key, r.units), numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
   if (hasTemper(r)) cols.push({ header: 'temper', numeric: false, cell: temperText });
-  cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
+  cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(warningSeparator) });
   return cols;
 }
 

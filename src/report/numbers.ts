@@ -1,5 +1,6 @@
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { LawName, ParamInfo } from '../core/flow/types.js';
+import { sig4 } from '../core/numeric/sig4.js';
 
 /**
  * Numbers as an engineer writes them (issue 14): one table of displayed precision per kind of
@@ -98,7 +99,7 @@ export function formatLawParam(info: ParamInfo, value: number): string {
   if (value === 0) return '0';
   const a = Math.abs(value);
   // 4 significant figures; numbers from 1e-4 up to 1e6 without an exponent.
-  if (a >= 1e-4 && a < 1e6) return String(+value.toPrecision(4));
+  if (a >= 1e-4 && a < 1e6) return sig4(value);
   return value.toExponential(3).replace('e+', 'e');
 }
 
