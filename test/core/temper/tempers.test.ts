@@ -71,11 +71,25 @@ describe('temper target: the window is that temper\'s range, exact at both ends'
       const w = l.coldWorkWindow;
       expect(w.empty).toBe(false);
       expect(w.limitedBy).toEqual({ from: 'temper', to: 'temper' });
+      // The temper's boundaries, computed here from the B&S gauge ratio 92^(1/39) (ASTM B258) and the
+      // B601 numbers of COPPER_ROLLED_TEMPERS, not read from the scale: H01 = 1 number, H02 = 2, H04 = 4, H08 = 8.
+      const k = COPPER_ROLLED_TEMPERS.findIndex(([x]) => x === d);
+      const boundary = (N: number) => (1 - 92 ** (-N / 39)) * 100;
+      const lo = boundary(COPPER_ROLLED_TEMPERS[k]![2]);
+      const hi = boundary(COPPER_ROLLED_TEMPERS[k + 1]![2]);
+      // The window runs from one boundary to the next (the upper end 2e-9 relative inside, by design).
+      expectRelClose(w.reductionPctFrom!, lo, 1e-9, `${d} window from`);
+      expectRelClose(w.reductionPctTo!, hi, 1e-8, `${d} window to`);
       for (const pct of [w.reductionPctFrom!, w.reductionPctTo!]) {
         const at = evaluateRoute({ material: copper, start: { thickness: 1 }, steps: [{ kind: 'roll', reductionPct: pct }], targets: { temper: d } });
         expect(at.rows[0]!.temper!.designation, `${d} at ${pct} %`).toBe(d);
         expect(at.allTargetsMet).toBe(true);
-        expect(at.targets[0]!.margin).toBeGreaterThanOrEqual(0);
+        // margin = distance to the nearer boundary of the wanted temper, in % thickness reduction:
+        // at either end of the window that is 0 to within the window's 2e-9 inset and round-off.
+        const t = at.targets[0]!;
+        expectRelClose(t.limit, lo, 1e-12, `${d} limit`);
+        expect(Math.abs(t.margin - Math.max(0, Math.min(pct - lo, hi - pct))), `${d} margin ${t.margin} at ${pct} %`).toBeLessThan(1e-6);
+        expect(Math.abs(t.margin)).toBeLessThan(1e-6);
       }
       // Just outside either end the target fails, with a negative margin.
       for (const pct of [w.reductionPctFrom! - 0.01, w.reductionPctTo! + 0.01]) {
