@@ -45,7 +45,7 @@ export { h18Increase, aluminiumH1xBoundaries, H18_INCREASE, H19_ABOVE_H18 } from
 export {
   TEMPER_SYSTEMS, COPPER_ROLLED_TEMPERS, STEEL_STRIP_TEMPERS, hvOfRockwellB, TEMPER_BOUNDARY_TOL, temperScale, temperBandIndex, temperBasisValue, temperOf, temperStrainBand,
 } from './temper/scale.js';
-export { materialTemperScale } from './temper/materialScale.js';
+export { materialTemperScale, COPPER_WIRE_REFUSAL } from './temper/materialScale.js';
 export type * from './temper/types.js';
 export type * from './route/types.js';
 

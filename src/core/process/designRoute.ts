@@ -186,7 +186,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
   const grainRange = validateGrainGrowthStrain(spec.material.grainGrowthStrain);
   let band: { from: number; to: number | null } | null | undefined;
   if (spec.window.temper !== undefined) {
-    const scale = materialTemperScale(spec.material, { designation: spec.window.temper, path: 'window.temper' })!;
+    const scale = materialTemperScale(spec.material, draw ? 'wire' : 'strip', { designation: spec.window.temper, path: 'window.temper' })!;
     band = temperStrainBand(scale, spec.material.law, spec.window.temper, 'window.temper', spec.material.hardness);
   }
   const win = coldWorkWindow(spec.material.law, 0, spec.window, basis, spec.material.hardness, band);

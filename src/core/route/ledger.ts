@@ -7,7 +7,6 @@ import { checkSpringbackTarget, checkTargets, checkTemperTarget, validateTargets
 import { inGrainGrowthRange, validateGrainGrowthStrain } from './grainGrowth.js';
 import { temperBasisValue, temperOf, temperStrainBand } from '../temper/scale.js';
 import { materialTemperScale } from '../temper/materialScale.js';
-import { InputError } from '../errors.js';
 import { backstressAfter, isotropicPart } from '../path/hardening.js';
 import type { Ledger, LedgerRow, RouteInput, Size, StockKind, Warning } from './types.js';
 import { coldWorkWindow } from './window.js';
@@ -56,10 +55,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   const fitted = material.fittedStrainRange;
   const grainRange = validateGrainGrowthStrain(material.grainGrowthStrain);
   // Temper scale (core/temper): thickness-reduction systems name strip tempers and refuse wire and bar.
-  const scale = materialTemperScale(material, targets.temper === undefined ? undefined : { designation: targets.temper, path: 'targets.temper' }, eu);
-  if (scale && scale.basis === 'thicknessReductionPct' && stock === 'wire') {
-    throw new InputError('material.temperSystem', material.temperSystem, 'aluminiumH1x or steelStrip for wire or bar (copperRolled names tempers of rolled strip by thickness reduction)');
-  }
+  const scale = materialTemperScale(material, stock, targets.temper === undefined ? undefined : { designation: targets.temper, path: 'targets.temper' }, eu);
 
   let size: Size = { ...start };
   let eps = 0;

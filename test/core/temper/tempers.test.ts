@@ -58,9 +58,18 @@ describe('copperRolled: every boundary from B&S numbers, through the ledger', ()
     expect(l.rows[1]!.temper!.designation).toBe('H01');
     expect(l.rows[2]!.temper).toBeNull();
   });
-  it('refuses wire: copper tempers are counted in thickness reduction of strip', () => {
+  it('refuses wire: copper tempers are counted in thickness reduction of strip; the message says what is supported and what to use instead', () => {
     expect(() => evaluateRoute({ material: copper, start: { diameter: 2 }, steps: [{ kind: 'draw', areaReductionPct: 20 }] })).toThrow(InputError);
     expect(() => evaluateRoute({ material: copper, start: { diameter: 2 }, steps: [] })).toThrow(/material\.temperSystem/);
+    let msg = '';
+    try { evaluateRoute({ material: copper, start: { diameter: 2 }, steps: [] }); } catch (e) { msg = (e as Error).message; }
+    for (const want of [/got "copperRolled"/, /ASTM B601/, /thickness reduction/, /ASTM B1, B2, B3/, /minTensile and minRemainingElongationPct/, /allowed copperRolled for strip.*aluminiumH1x or steelStrip for wire or bar/]) expect(msg).toMatch(want);
+  });
+  it('the route designer refuses a copperRolled temper window for drawing with the same message, before searching', () => {
+    const spec: DesignSpec = { material: copper, process: 'draw', startSize: 5, finalSize: 2, maxPassReductionPct: 30, maxStrainBeforeAnneal: 1.3, window: { temper: 'H02' }, dieHalfAngleDeg: 6, friction: 0.05, maxRoutes: 5 };
+    expect(() => designRoute(spec)).toThrow(/material\.temperSystem: copperRolled names rolled-strip tempers/);
+    // Rolling strip with the same window is designed.
+    expect(designRoute({ ...spec, process: 'roll', startSize: 3, finalSize: 2, rollRadius: 100, width: 30 } as DesignSpec).window.empty).toBe(false);
   });
 });
 
