@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
+import { chartFrame, PALETTE, X_AXIS } from './palette.js';
 import { sig4 } from '../core/numeric/sig4.js';
 
 /** The numbers a ledger chart needs, in the plan's units (what the JSON report's steps hold). */
@@ -57,8 +57,6 @@ export function stepTicks(last: number, width: number): number[] {
   return ticks;
 }
 
-/** Keeps the given numbers (no NaN/undefined) and the options that were set. */
-const defined = <T extends object>(o: T): T => Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as T;
 
 /** One value of one series at one step (step 0: the starting stock). */
 interface Point { index: number; value: number; what: string }
@@ -122,18 +120,14 @@ export function strengthByStepChart(steps: readonly LedgerChartStep[], o: Ledger
     marks.push(...targetBand(o.minYield, o.maxYield, dataMax * 1.1, 0, label));
   }
   marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, RM));
-  return Plot.plot(defined({
-    document: o.document,
-    width,
-    height: o.height ?? 320,
+  return Plot.plot({
+    ...chartFrame(o, DEFAULT_CHART_WIDTH, 320),
     marginRight: 24,
-    marginBottom: MARGIN_BOTTOM,
-    style: CHART_STYLE,
     x: stepAxis(last, width),
     y: { label: `stress (${o.stressUnit})`, grid: true, domain: [0, dataMax * 1.1] },
     color: { domain: [RP, RM], range: [PALETTE.strength, PALETTE.ductility], legend: true },
     marks,
-  }));
+  });
 }
 
 /**
@@ -154,18 +148,14 @@ export function ductilityByStepChart(steps: readonly LedgerChartStep[], o: Omit<
     marks.push(...targetBand(o.minRemainingElongationPct, undefined, 100, 0, `elongation target ≥ ${sig4(o.minRemainingElongationPct)} %`));
   }
   marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, CW));
-  return Plot.plot(defined({
-    document: o.document,
-    width,
-    height: o.height ?? 280,
+  return Plot.plot({
+    ...chartFrame(o, DEFAULT_CHART_WIDTH, 280),
     marginRight: 24,
-    marginBottom: MARGIN_BOTTOM,
-    style: CHART_STYLE,
     x: stepAxis(last, width),
     y: { label: 'percent (%)', grid: true, domain: [0, 100] },
     color: { domain: [EL, CW], range: [PALETTE.ductility, PALETTE.coldWork], legend: true },
     marks,
-  }));
+  });
 }
 
 /** What the hardness chart needs of a step: its number and the Tabor estimate (HV). */
@@ -211,12 +201,8 @@ export function hardnessByStepChart(steps: readonly HardnessChartStep[], o: Hard
   }
   marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, ''));
   return Plot.plot({
-    ...(o.document ? { document: o.document } : {}),
-    width,
-    height: o.height ?? 260,
+    ...chartFrame(o, DEFAULT_CHART_WIDTH, 260),
     marginRight: 24,
-    marginBottom: MARGIN_BOTTOM,
-    style: CHART_STYLE,
     x: stepAxis(last, width),
     y: { label: 'Vickers hardness HV (Tabor estimate)', grid: true, domain: [0, dataMax * 1.1] },
     color: { domain: [HV], range: [PALETTE.strength] },
