@@ -35,6 +35,16 @@ export function digitsOf(kind: QuantityKind, stressUnit: string = 'MPa'): number
   return DISPLAY_DIGITS[kind];
 }
 
+/**
+ * Fixed decimals given by the caller, `—` for a missing value. For a quantity of a known kind use
+ * {@link formatNumber}, whose digits come from {@link DISPLAY_DIGITS}.
+ * @example fixed(2.345, 1) // "2.3"
+ */
+export function fixed(x: number | null | undefined, digits: number): string {
+  if (x === null || x === undefined) return '—';
+  return x.toFixed(digits);
+}
+
 /** Fixed decimals for a kind, `—` for a missing value; `-0.0` is written `0.0`. */
 export function formatNumber(x: number | null | undefined, kind: QuantityKind, stressUnit: string = 'MPa'): string {
   if (x === null || x === undefined) return '—';

@@ -1,14 +1,9 @@
 import type { ReportV1 } from './build.js';
 import { hardnessText } from './fields.js';
 import { ledgerBasisNote, stepColumns, temperTargetNote, windowText } from './columns.js';
-import { flowCurveText, formatNumber, formatTargetValue } from './numbers.js';
+import { fixed, flowCurveText, formatNumber, formatTargetValue } from './numbers.js';
 import { scatterLines } from './scatter.js';
 
-/** Fixed-decimal formatting used by all human-readable reports. */
-export function fixed(x: number | null | undefined, digits: number): string {
-  if (x === null || x === undefined) return '—';
-  return x.toFixed(digits);
-}
 
 /**
  * Pads cells into aligned columns: numbers right, text left. `numeric` says which columns hold
