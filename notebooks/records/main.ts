@@ -13,6 +13,7 @@ import type { WorkerError, WorkerReply, WorkerRequest } from './worker.js';
 import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
 import { recordCurveChart, residualChart } from '../../src/charts/records.js';
 import { BENCH_MATERIAL_KEY, pageChrome } from '../shared/page.js';
+import { sig4 } from '../../src/core/numeric/sig4.js';
 
 pageChrome('records/', 'Record bench');
 
@@ -226,7 +227,7 @@ nb.cell({ name: 'input', fn: () => null })
       const param = (f: (typeof c.fits)[number], p: string) => {
         const iv = f.intervals95[p];
         const v = f.params[p]!;
-        return `${p} ${formatLawParam(LAW_PARAMETERS[f.law].find((x) => x.name === p)!, v)}${iv ? ` (95 %: ${+iv[0].toPrecision(4)} to ${+iv[1].toPrecision(4)})` : ' (interval not identifiable)'}`;
+        return `${p} ${formatLawParam(LAW_PARAMETERS[f.law].find((x) => x.name === p)!, v)}${iv ? ` (95 %: ${sig4(iv[0])} to ${sig4(iv[1])})` : ' (interval not identifiable)'}`;
       };
       const basis = c.fits.find((f) => f.law === c.best)?.basis ?? c.fits[0]?.basis;
       const n = c.fits[0]?.points ?? 0;
