@@ -3,7 +3,7 @@ import { conversionHeader, extraStepFields, hardnessText, sig4, stepNumber } fro
 import { ledgerBasisNote } from './columns.js';
 import { extraFieldHeader, flowCurveText, formatNumber, formatTargetValue } from './numbers.js';
 import { scatterLines } from './scatter.js';
-import { hasTemper, targetUnit, temperTargetNote, temperText } from './columns.js';
+import { hasTemper, targetUnit, targetName, targetNote, temperText, windowText } from './columns.js';
 
 /** Fixed-decimal formatting used by all human-readable reports. */
 export function fixed(x: number | null | undefined, digits: number): string {
@@ -51,10 +51,9 @@ export function tableReport(r: ReportV1, color = false): string {
   if (r.targets.length === 0) out.push('targets: none given');
   for (const t of r.targets) {
     const v = (x: number) => formatTargetValue(x, t.name, S, t.temper?.basis);
-    out.push(paint(t.met, `${t.met ? 'MET    ' : 'NOT MET'} ${t.name}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, margin ${v(t.margin)}${temperTargetNote(t)}`));
+    out.push(paint(t.met, `${t.met ? (t.caution ? 'MET?   ' : 'MET    ') : 'NOT MET'} ${targetName(t)}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, margin ${v(t.margin)}${targetNote(r, t)}`));
   }
-  const w = r.coldWorkWindow;
-  out.push(`cold-work window: ${w.empty ? 'empty — ' + w.note : w.note}${!w.empty && w.reductionBasis && w.reductionPctFrom !== null ? `; ${w.reductionBasis} reduction ${fixed(w.reductionPctFrom, 1)} % to ${w.reductionPctTo === null ? 'no limit' : fixed(w.reductionPctTo, 1) + ' %'}` : ''}`);
+  out.push(`cold-work window: ${windowText(r)}`);
   const warned = r.steps.flatMap((s) => s.warnings.map((x) => `step ${s.index}: ${x.message}`));
   if (warned.length) {
     out.push('');

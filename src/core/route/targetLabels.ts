@@ -1,0 +1,29 @@
+import type { TargetName } from './types.js';
+
+/**
+ * What each target is called where a person reads it (reports, notebooks, window notes, design
+ * messages). The plan keys (`minYield`, ...) are field names for files and JSON; people read these
+ * words. One table: notebooks and every report format use it through `src/report/labels.ts`.
+ * A new target must add its words here (the type makes the table exhaustive).
+ */
+export const TARGET_LABELS: Readonly<Record<TargetName, string>> = {
+  minYield: 'minimum reload yield (Rp0.2)',
+  maxYield: 'maximum reload yield (Rp0.2)',
+  minTensile: 'minimum tensile strength (Rm)',
+  minRemainingElongationPct: 'minimum remaining uniform elongation',
+  minHardnessHV: 'minimum hardness (HV)',
+  maxHardnessHV: 'maximum hardness (HV)',
+  maxSpringbackDeg: 'maximum springback',
+  temper: 'temper',
+};
+
+/**
+ * A target's name in words; a temper target with its designation (`temper H04`).
+ * @example targetLabel('maxYield') // 'maximum reload yield (Rp0.2)'
+ */
+export function targetLabel(name: string, temper?: string): string {
+  if (name === 'temper') return temper ? `temper ${temper}` : 'temper';
+  const l = (TARGET_LABELS as Readonly<Record<string, string>>)[name];
+  if (l === undefined) throw new Error(`targetLabel: no words known for target "${name}"; add it to TARGET_LABELS in src/core/route/targetLabels.ts`);
+  return l;
+}
