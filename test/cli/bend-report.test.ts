@@ -28,7 +28,7 @@ describe('strainledger run examples/hinge-tab-bend.json --format json (bend step
     expect(junit).toContain(`maximum springback: predicted ${t.predicted.toFixed(2)}°, limit 6.00°, margin ${t.margin.toFixed(2)}°`);
     const table = run('run', 'examples/hinge-tab-bend.json', '--format', 'table').stdout;
     expect(table).toContain(`maximum springback: predicted ${t.predicted.toFixed(2)}°, limit 6.00°, margin ${t.margin.toFixed(2)}°`);
-    expect(table).toMatch(/minYield: predicted [\d.]+ MPa, limit 300\.0 MPa, margin [\d.]+ MPa/);
+    expect(table).toMatch(/minimum reload yield \(Rp0\.2\): predicted [\d.]+ MPa, limit 300\.0 MPa, margin [\d.]+ MPa/);
   });
   it('has the bend fields on the bend step only, and reverseReloadYield on every step', () => {
     const [roll, bend] = rep.steps;
