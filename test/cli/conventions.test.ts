@@ -67,6 +67,24 @@ describe('every command answers --help, -h and help COMMAND from its declared op
         expect(r.stderr).not.toMatch(/\n\s+at |internal error/);
       }
     });
+    it(`${entry.name} with a mistyped short option (wrong case) or a long one written with one dash: "did you mean", exit 2`, async () => {
+      const cmd = (await entry.load()) as Command<OptionSpecs>;
+      const shorts = Object.values(cmd.options).flatMap((o) => (o.short ? [o.short] : []));
+      for (const [name, o] of Object.entries(cmd.options)) {
+        const other = o.short?.toUpperCase() === o.short ? o.short?.toLowerCase() : o.short?.toUpperCase();
+        if (o.short && other && !shorts.includes(other) && other !== 'h' && other !== 'V') {
+          const r = cli([entry.name, `-${other}`, 'x']);
+          expect(r.status, `${name}: ${r.stderr}`).toBe(2);
+          expect(r.stderr.split('\n')[0]).toMatch(new RegExp(`unknown option '-${other}'; did you mean [^?]*'-${o.short}'`));
+        }
+        if (name.length >= 3) {
+          const r = cli([entry.name, `-${name}`, 'x']);
+          expect(r.status, `-${name}: ${r.stderr}`).toBe(2);
+          expect(r.stderr.split('\n')[0]).toMatch(new RegExp(`unknown option '-${name}'; did you mean [^?]*'--${name}'[^?]*\\(two dashes\\)\\?`));
+          expect(r.stderr).not.toMatch(/\n\s+at |internal error/);
+        }
+      }
+    });
     it(`${entry.name}: a required option shows in the synopsis and its absence is refused by name (exit 2)`, async () => {
       const cmd = (await entry.load()) as Command<OptionSpecs>;
       const help = cli([entry.name, '--help']).stdout.split('\n')[0]!;
