@@ -2,7 +2,7 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { editDistance, suggest } from '../../src/cli/args.js';
+import { editDistance, suggest, synopsis } from '../../src/cli/args.js';
 import { colorEnabled } from '../../src/cli/color.js';
 import type { Command, OptionSpecs } from '../../src/cli/command.js';
 import { COMMANDS } from '../../src/cli/commands/index.js';
@@ -44,6 +44,9 @@ describe('every command answers --help, -h and help COMMAND from its declared op
         expect(o.short === 'h' || o.short === 'V', `${entry.name} --${name} takes a reserved short name`).toBe(false);
       }
       expect(cli([entry.name, '-h']).stdout).toBe(r.stdout);
+      // The overview prints COMMANDS' own copy of the synopsis and summary (it loads no command module).
+      expect(entry.usage).toBe(synopsis(cmd));
+      expect(entry.summary).toBe(cmd.summary);
       expect(cli(['help', entry.name]).stdout).toBe(r.stdout);
       // --help wins over other arguments, even invalid ones (nothing runs, nothing is written).
       const mixed = cli([entry.name, '--no-such-option', 'missing-file.json', '--help']);
