@@ -30,6 +30,9 @@ if (step === 'prepack') {
   const pkg = JSON.parse(text);
   delete pkg.scripts.prepare;
   writeAtomic(PKG, JSON.stringify(pkg, null, 2) + '\n');
+  // STRAINLEDGER_PACK_PREBUILT=1: dist/ was just built by this checkout (the install test packs the tree
+  // test/globalSetup.ts built, while other tests read it); keep it instead of emptying and rebuilding.
+  if (process.env.STRAINLEDGER_PACK_PREBUILT === '1') process.exit(0);
   rmSync(join(ROOT, 'dist'), { recursive: true, force: true });
   const build = spawnSync('npm', ['run', 'build'], { cwd: ROOT, stdio: 'inherit' });
   if (build.status !== 0) {
