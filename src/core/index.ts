@@ -37,7 +37,7 @@ export type { LedgerOptions } from './route/ledger.js';
 export { checkTargets, checkSpringbackTarget, validateTargets, TARGET_DEFS, TARGET_NAMES } from './route/targets.js';
 export { coldWorkWindow } from './route/window.js';
 export { checkTemperTarget, hardnessCaution } from './route/targets.js';
-export { TARGET_LABELS, targetLabel } from './route/targetLabels.js';
+export { TARGET_LABELS, targetLabel, WARNING_LABELS } from './route/targetLabels.js';
 export { DEFAULT_GRAIN_GROWTH_STRAIN, validateGrainGrowthStrain, inGrainGrowthRange } from './route/grainGrowth.js';
 
 // Standard tempers: copper strip by B&S numbers, strain-hardened aluminium, carbon steel strip

@@ -1,6 +1,6 @@
 import { extraFieldHeader, formatNumber, targetUnit as unitOfTarget, targetUnitKind } from './numbers.js';
 import type { ReportStep, ReportV1 } from './build.js';
-import { targetLabel } from './labels.js';
+import { targetLabel, WARNING_LABELS } from './labels.js';
 import { conversionHeader, extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
 
 const fx = (x: number, d: number) => x.toFixed(d);
@@ -36,7 +36,7 @@ export function stepColumns(r: ReportV1): StepColumn[] {
   if (r.steps.some((s) => s.hardnessHV !== undefined)) cols.push({ header: 'HV', numeric: true, cell: (s) => (s.hardnessHV === undefined ? '—' : fx(s.hardnessHV, 1)) });
   for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: conversionHeader(key, S) ?? extraFieldHeader(key, r.units), numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
   if (hasTemper(r)) cols.push({ header: 'temper', numeric: false, cell: temperText });
-  cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
+  cols.push({ header: 'warnings', numeric: false, cell: (s) => [...new Set(s.warnings.map((w) => WARNING_LABELS[w.code]))].join(', ') });
   return cols;
 }
 

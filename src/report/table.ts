@@ -3,6 +3,7 @@ import { conversionHeader, extraStepFields, hardnessText, sig4, stepNumber } fro
 import { ledgerBasisNote } from './columns.js';
 import { extraFieldHeader, flowCurveText, formatNumber, formatTargetValue } from './numbers.js';
 import { scatterLines } from './scatter.js';
+import { WARNING_LABELS } from './labels.js';
 import { hasTemper, targetUnit, targetName, targetNote, temperText, windowText } from './columns.js';
 
 /** Fixed-decimal formatting used by all human-readable reports. */
@@ -43,7 +44,7 @@ export function tableReport(r: ReportV1, color = false): string {
     String(s.index), s.label ? `${s.kind} (${s.label})` : s.kind, size(s.size as Record<string, number | undefined>), fixed(s.strainIncrement, 4), fixed(s.accumulatedStrain, 4),
     fixed(s.coldWorkPct, 1), formatNumber(s.reloadYield, 'stress', S), formatNumber(s.tensileStrength, 'stress', S), fixed(s.yieldRatio, 3),
     fixed(s.remainingUniformElongationPct, 1), fixed(s.elasticRecoveryStrain * 100, 3), ...hv.map(() => fixed(s.hardnessHV, 1)), ...extras.map((k) => sig4(stepNumber(s, k))),
-    ...(tempers ? [temperText(s)] : []), s.warnings.map((w) => w.code).join(','),
+    ...(tempers ? [temperText(s)] : []), [...new Set(s.warnings.map((w) => WARNING_LABELS[w.code]))].join(', '),
   ]);
   out.push(alignTable(['step', 'kind', `size ${L}`, 'Δε', 'ε̄ since anneal', '%CW', `Rp0.2 ${S}`, `Rm ${S}`, 'Rp/Rm', 'Ag left %', 'recovery %', ...hv, ...extras.map((k) => conversionHeader(k, S) ?? extraFieldHeader(k, r.units)), ...(tempers ? ['temper'] : []), 'warnings'], rows));
   out.push(ledgerBasisNote(r));

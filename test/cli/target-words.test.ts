@@ -4,7 +4,7 @@ import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { DOMParser } from 'linkedom';
 import { describe, expect, it } from 'vitest';
-import { hardnessCaution, HARDNESS_MODEL_REL_ERROR, TARGET_LABELS } from '../../src/core/index.js';
+import { hardnessCaution, HARDNESS_MODEL_REL_ERROR, TARGET_LABELS, WARNING_LABELS } from '../../src/core/index.js';
 import { expectRelClose } from '../helpers.js';
 
 // Runs the shipped runner (bin/ → dist/) as a user would; test/globalSetup.ts builds dist/ first.
@@ -15,7 +15,8 @@ const HARD = 'examples/hardness-steel-strip.json';
 const TEMPER = 'examples/terminal-strip-temper.json';
 // B&S numbers: thickness ratio 92^(1/39) per number (ASTM B248 gauge rule; H0N = N numbers hard, common practice).
 const bs = (N: number) => (1 - 92 ** (-N / 39)) * 100;
-const KEYS = new RegExp(`\\b(${Object.keys(TARGET_LABELS).filter((k) => k !== 'temper').join('|')})\\b`);
+// Plan keys of the targets and the camelCase warning codes (JSON and CSV keep both; people read words).
+const KEYS = new RegExp(`\\b(${[...Object.keys(TARGET_LABELS).filter((k) => k !== 'temper'), ...Object.keys(WARNING_LABELS).filter((k) => /[A-Z]/.test(k))].join('|')})\\b`);
 const HUMAN = ['table', 'md', 'html', 'junit'] as const;
 
 describe('targets in words in every human format', () => {
@@ -35,6 +36,12 @@ describe('targets in words in every human format', () => {
       }
     });
   }
+  it('the warnings column names each warning in words once (grain growth, not grainGrowth)', () => {
+    const t = run('run', TEMPER).stdout;
+    const row = t.split('\n').find((l) => /bell anneal/.test(l))!;
+    expect(row).toMatch(/ grain growth$/);
+    expect(run('run', TEMPER, '--format', 'md').stdout).toMatch(/\| grain growth \|\n/);
+  });
   it('the cold-work window names the targets that set its ends in words, in JSON too', () => {
     const w = JSON.parse(run('run', HARD, '--format', 'json').stdout).coldWorkWindow;
     expect(w.limitedBy).toEqual({ from: 'minHardnessHV', to: 'maxHardnessHV' });

@@ -1,4 +1,4 @@
-import type { TargetName } from './types.js';
+import type { TargetName, Warning } from './types.js';
 
 /**
  * What each target is called where a person reads it (reports, notebooks, window notes, design
@@ -27,3 +27,21 @@ export function targetLabel(name: string, temper?: string): string {
   if (l === undefined) throw new Error(`targetLabel: no words known for target "${name}"; add it to TARGET_LABELS in src/core/route/targetLabels.ts`);
   return l;
 }
+
+/**
+ * A ledger warning's code in words, for the warnings column of human reports (the message says the
+ * rest; CSV and JSON keep the codes). Exhaustive over `Warning['code']`.
+ */
+export const WARNING_LABELS: Readonly<Record<Warning['code'], string>> = {
+  necking: 'necking',
+  extrapolated: 'extrapolated',
+  yieldRatio: 'yield ratio',
+  drawability: 'drawability',
+  capacity: 'capacity',
+  heating: 'heating',
+  bite: 'bite',
+  sheetLimit: 'sheet limit',
+  reversal: 'reversal',
+  bend: 'bend',
+  grainGrowth: 'grain growth',
+};
