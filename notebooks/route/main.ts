@@ -283,7 +283,7 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
         const limit = t.temper ? '' : `limit ${v(t.limit)}, `;
         return h('li', { 'data-target': t.name },
           h('span', { class: t.met && !t.caution ? 'sl-met' : 'sl-missed' }, t.met ? (t.caution ? 'met, within the model\'s error' : 'met') : 'NOT met'),
-          ` — ${targetLabel(t.name, t.temper?.wanted)}: predicted ${v(t.predicted)}, ${limit}`,
+          ` — ${targetLabel(t.name, t.temper?.wanted, t.temper?.wantedName)}: predicted ${v(t.predicted)}, ${limit}`,
           t.met ? `margin ${v(t.margin)} to spare` : `short by ${v(-t.margin)}`,
           ...(t.temper ? [temperTargetNote(r, t).replace(/^ — /, '; ')] : []),
           ...(t.caution ? [h('span', { class: 'sl-notice sl-target-caution', 'data-caution': t.caution.code }, ` Caution: ${t.caution.message}.`)] : []));

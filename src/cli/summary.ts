@@ -16,7 +16,7 @@ export function tightest(o: Outcome): string {
   if (!r || r.targets.length === 0) return '—';
   const rel = (t: { margin: number; limit: number }) => (t.limit !== 0 ? t.margin / Math.abs(t.limit) : t.margin);
   const t = r.targets.reduce((a, b) => (rel(b) < rel(a) ? b : a));
-  return `${formatTargetValue(t.margin, t.name, r.units.stress, t.temper?.basis)}, ${targetLabel(t.name, t.temper?.wanted)}`;
+  return `${formatTargetValue(t.margin, t.name, r.units.stress, t.temper?.basis)}, ${targetLabel(t.name, t.temper?.wanted, t.temper?.wantedName)}`;
 }
 
 /**

@@ -100,7 +100,7 @@ export function targetStatus(t: ReportV1['targets'][number]): string {
 
 /** A target's name in words (`minimum reload yield (Rp0.2)`, `temper H04`), from the one table in `labels.ts`. */
 export function targetName(t: ReportV1['targets'][number]): string {
-  return targetLabel(t.name, t.temper?.wanted);
+  return targetLabel(t.name, t.temper?.wanted, t.temper?.wantedName);
 }
 
 /** Everything a reader must know beside a target's numbers: the temper note and the caution, if any. */

@@ -129,6 +129,7 @@ export const ReportSchema = z.looseObject({
     met: z.boolean(),
     temper: z.strictObject({
       wanted: z.string(), got: z.string().nullable(), basis: z.enum(['thicknessReductionPct', 'tensileStrength', 'hardnessHV']),
+      wantedName: z.string().describe('the wanted temper\'s name in its system, e.g. "half hard"'),
       from: z.number().describe('the wanted temper\'s lower boundary (inclusive), in the basis; equals limit'),
       to: z.number().nullable().describe('the wanted temper\'s upper boundary (the next temper\'s lower one, exclusive), in the basis; null at the top of the scale'),
       marginTo: z.enum(['lower', 'upper']).describe('the boundary the margin is measured to (the nearer one)'),

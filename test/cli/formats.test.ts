@@ -9,7 +9,7 @@ import { expectRelClose } from '../helpers.js';
 import { targetLabel } from '../../src/core/index.js';
 
 // JUnit test cases are named in words, as the reports show the targets.
-const caseName = (t: { name: string; temper?: { wanted: string } }) => targetLabel(t.name, t.temper?.wanted);
+const caseName = (t: { name: string; temper?: { wanted: string; wantedName: string } }) => targetLabel(t.name, t.temper?.wanted, t.temper?.wantedName);
 
 // Golden tests of every report format on the invented demo plans in examples/, run through the
 // shipped runner. Goldens live in test/cli/golden/ (review a change there like code). Beside the

@@ -92,8 +92,9 @@ describe('a temper target shows both boundaries and the one its margin is measur
     expectRelClose(t.temper.to, bs(3), 1e-9);
     expect(t.limit).toBe(t.temper.from);
     expect(t.temper.marginTo).toBe('lower');
+    expect(t.temper.wantedName).toBe('half hard'); // ASTM B601 temper name of H02 (from memory, as the temper table)
     expectRelClose(t.margin, t.predicted - bs(2), 1e-9);
-    expect(run('run', TEMPER).stdout).toMatch(/temper H02: predicted 21\.9 % thickness reduction, limit 20\.7 % thickness reduction, margin 1\.2 % thickness reduction — H02 wanted, H02 reached; H02 runs from 20\.7 to 29\.4 % thickness reduction; margin to its lower boundary/);
+    expect(run('run', TEMPER).stdout).toMatch(/temper H02 \(half hard\): predicted 21\.9 % thickness reduction, limit 20\.7 % thickness reduction, margin 1\.2 % thickness reduction — H02 wanted, H02 reached; H02 runs from 20\.7 to 29\.4 % thickness reduction; margin to its lower boundary/);
   });
   it('rolled on to 0.83 mm (27.9 % since the anneal) the margin is to the upper boundary, and says so', () => {
     const r = JSON.parse(run('run', TEMPER, '--format', 'json', '--set', 'steps[3].thickness=0.83').stdout);

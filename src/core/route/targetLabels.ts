@@ -18,11 +18,12 @@ export const TARGET_LABELS: Readonly<Record<TargetName, string>> = {
 };
 
 /**
- * A target's name in words; a temper target with its designation (`temper H04`).
+ * A target's name in words; a temper target with its designation and, when given, its name
+ * (`temper H04 (hard)`).
  * @example targetLabel('maxYield') // 'maximum reload yield (Rp0.2)'
  */
-export function targetLabel(name: string, temper?: string): string {
-  if (name === 'temper') return temper ? `temper ${temper}` : 'temper';
+export function targetLabel(name: string, temper?: string, temperName?: string): string {
+  if (name === 'temper') return temper ? `temper ${temper}${temperName ? ` (${temperName})` : ''}` : 'temper';
   const l = (TARGET_LABELS as Readonly<Record<string, string>>)[name];
   if (l === undefined) throw new Error(`targetLabel: no words known for target "${name}"; add it to TARGET_LABELS in src/core/route/targetLabels.ts`);
   return l;

@@ -115,5 +115,5 @@ export function checkTemperTarget(scale: TemperScale, x: number, wanted: string,
   // Inside the temper within the boundary tolerance: a margin of round-off size reads as 0, never negative.
   if (met && margin < 0) margin = 0;
   else if (!met && margin >= 0) margin = -Math.max(Math.abs(margin), TEMPER_BOUNDARY_TOL * Math.max(1, Math.abs(lo)));
-  return { name: 'temper', limit: lo, predicted: x, margin, met, temper: { wanted, got, basis: scale.basis, from: lo, to: hi ?? null, marginTo } };
+  return { name: 'temper', limit: lo, predicted: x, margin, met, temper: { wanted, wantedName: scale.bands[k]!.name, got, basis: scale.basis, from: lo, to: hi ?? null, marginTo } };
 }

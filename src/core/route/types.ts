@@ -96,6 +96,8 @@ export interface TargetResult {
    */
   temper?: {
     wanted: string; got: string | null; basis: 'thicknessReductionPct' | 'tensileStrength' | 'hardnessHV';
+    /** The wanted temper's name in its system (e.g. "half hard"). */
+    wantedName: string;
     /** The wanted temper's lower boundary (inclusive; equals `limit`) and upper boundary (the next temper's, exclusive; null at the top of the scale), in the basis. */
     from: number; to: number | null;
     /** Which boundary `margin` is measured to: the nearer one ('lower' at the top of the scale). */
