@@ -68,7 +68,7 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
     render: (v) => {
       const m = v as Material;
       return h('p', {}, `E = ${m.elasticModulus} MPa, ν = ${m.poissonRatio}; `,
-        m.kinematic ? `${m.kinematic.backstresses.length} backstress(es): ${m.kinematic.backstresses.map((b) => `C ${b.C} MPa, γ ${b.gamma}`).join('; ')}. ` : 'no kinematic parameters: only the isotropic path is drawn, and the reversed yield it shows is overstated. ',
+        m.kinematic ? `${m.kinematic.backstresses.length} backstress${m.kinematic.backstresses.length === 1 ? '' : 'es'}: ${m.kinematic.backstresses.map((b) => `C ${b.C} MPa, γ ${b.gamma}`).join('; ')}. ` : 'no kinematic parameters: only the isotropic path is drawn, and the reversed yield it shows is overstated. ',
         h('span', { class: 'sl-invented' }, 'INVENTED demo data'));
     },
   })
@@ -104,6 +104,24 @@ nb.cell({ name: 'source', fn: () => valueStream(sourceInput) })
       ];
       return chartStream('pathChart', `${width}|${series.map((s) => s.label).join('|')}`, series.map((s) => xy(s.points)), undefined,
         () => reversalChart(series, { stressUnit: 'MPa', width }) as Element);
+    },
+  })
+  .cell({
+    // The push-back in detail: on the whole path it is a short stretch drawn over the loading branch (a
+    // prestrain of 0.3 and a push-back of 0.01 leave it 3 % of the width), so it gets its own axis:
+    // strain pushed back from the turning point, from 0 to the end of the push-back.
+    name: 'pushChart', inputs: ['paths', 'pathWidth'], into: 'cell-push-chart',
+    fn: (p: Paths, width: number) => {
+      const back = (pts: readonly { strain: number; stress: number }[]) => {
+        const i = pts.findIndex((q) => q.strain === p.top);
+        return pts.slice(i).map((q) => ({ strain: p.top - q.strain, stress: q.stress }));
+      };
+      const series = [
+        ...(p.kin ? [{ label: 'with backstresses (combined)', points: back(p.kin.points) }] : []),
+        { label: 'isotropic only', points: back(p.iso.points) },
+      ];
+      return chartStream('pushChart', `${width}|${series.map((s) => s.label).join('|')}`, series.map((s) => xy(s.points)), undefined,
+        () => reversalChart(series, { stressUnit: 'MPa', width, height: 260, xLabel: 'strain pushed back from the turning point (true, –)' }) as Element);
     },
   })
   .cell({
@@ -174,10 +192,12 @@ nb.cell({ name: 'recordInput', fn: () => null })
   })
   .cell({
     name: 'kinfitChart', inputs: ['kinfit', 'pathWidth'], into: 'cell-kinfit-chart',
-    fn: (k: KinFitView | null, width: number) => k === null ? h('p', {}, '') : reversalChart([
+    // Chart and caption only with a record (the numbers cell above says how to open one).
+    fn: (k: KinFitView | null, width: number) => k === null ? h('span', { hidden: '' }) : h('figure', { id: 'kinfit-figure' }, reversalChart([
       { label: 'record (true values)', points: Array.from(k.strain, (e, i) => ({ strain: e, stress: k.stress[i]! })) },
       { label: 'fitted model', points: k.model.points },
-    ], { stressUnit: 'MPa', width }),
+    ], { stressUnit: 'MPa', width }) as Element,
+    h('figcaption', {}, `${k.name} (true values) and the fitted model driven through the same strains on the material's flow curve (true stress, total true strain).`)),
   });
 fileDrop(recDrop, recFile as HTMLInputElement, (name, text) => nb.set('recordInput', { name, text }), (e) => byId('cell-kinfit-numbers').replaceChildren(errorBox(e, 'The file could not be read')));
 expose('reversal', nb);

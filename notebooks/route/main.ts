@@ -12,7 +12,8 @@ import { loadPlanText, runPlan, type LoadedPlan } from '../../src/plan/load.js';
 import { convertLaw } from '../../src/plan/resolve.js';
 import { unitsOf } from '../../src/plan/units.js';
 import { buildReport, type ReportV1 } from '../../src/report/build.js';
-import { hasTemper, targetUnit, temperText } from '../../src/report/columns.js';
+import { hasTemper, targetUnit, temperTargetNote, temperText } from '../../src/report/columns.js';
+import { TARGET_LABELS, targetLabel } from '../../src/report/labels.js';
 import { TEMPER_CAUTION } from '../../src/report/cautions.js';
 import { strengthByStepChart, ductilityByStepChart } from '../../src/charts/ledger.js';
 import { hardnessByStepChart } from '../../src/charts/hardness.js';
@@ -119,8 +120,8 @@ function drawEditors(): void {
   byId('start-editor').replaceChildren(...(['thickness', 'width', 'diameter', 'height'] as const).map((k) =>
     numberField(k, `start-${k}`, () => s[k], (v) => { doc.start ??= {}; if (v === undefined) delete doc.start[k]; else doc.start[k] = v; }, lengthUnit())));
   const t = doc.targets ?? {};
-  const tdefs: [string, string, string][] = [['minYield', 'minimum reload yield', stressUnit()], ['maxYield', 'maximum reload yield', stressUnit()], ['minTensile', 'minimum tensile strength', stressUnit()], ['minRemainingElongationPct', 'minimum remaining uniform elongation', '%'],
-    ['minHardnessHV', 'minimum Vickers hardness', 'HV'], ['maxHardnessHV', 'maximum Vickers hardness', 'HV']];
+  const tdefs = ([['minYield', stressUnit()], ['maxYield', stressUnit()], ['minTensile', stressUnit()], ['minRemainingElongationPct', '%'],
+    ['minHardnessHV', 'HV'], ['maxHardnessHV', 'HV']] as const).map(([k, unit]) => [k, TARGET_LABELS[k], unit] as const);
   byId('targets-editor').replaceChildren(...tdefs.map(([k, text, unit]) =>
     numberField(text, `target-${k}`, () => t[k], (v) => { doc.targets ??= {}; if (v === undefined) delete doc.targets[k]; else doc.targets[k] = v; }, unit)),
     textField('temper (e.g. H04; needs a temper system)', 'target-temper', () => String(t.temper ?? ''), (v) => { doc.targets ??= {}; if (v.trim() === '') delete doc.targets.temper; else doc.targets.temper = v.trim(); }));
@@ -276,14 +277,16 @@ nb.cell({ name: 'doc', fn: () => JSON.parse(JSON.stringify(doc)) })
     name: 'targets', inputs: ['report'], into: 'cell-targets',
     fn: (r: ReportV1) => {
       if (r.targets.length === 0) return h('p', {}, 'No targets given.');
-      const words: Record<string, string> = { minYield: 'minimum reload yield', maxYield: 'maximum reload yield', minTensile: 'minimum tensile strength', minRemainingElongationPct: 'minimum remaining uniform elongation', maxSpringbackDeg: 'largest springback',
-        minHardnessHV: 'minimum Vickers hardness', maxHardnessHV: 'maximum Vickers hardness' };
-      const name = (t: ReportV1['targets'][number]) => (t.temper ? `temper ${t.temper.wanted} (reached: ${t.temper.got ?? 'none of the system'})` : words[t.name] ?? t.name);
       return h('ul', { id: 'target-list' }, ...r.targets.map((t) => {
         const v = (x: number) => formatTargetValue(x, t.name, S(r), t.temper?.basis);
+        // A temper target names both boundaries of the wanted temper and the one its margin is measured to.
+        const limit = t.temper ? '' : `limit ${v(t.limit)}, `;
         return h('li', { 'data-target': t.name },
-          h('span', { class: t.met ? 'sl-met' : 'sl-missed' }, t.met ? 'met' : 'NOT met'), ` — ${name(t)}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, `,
-          t.met ? `margin ${v(t.margin)} to spare` : `short by ${v(-t.margin)}`);
+          h('span', { class: t.met && !t.caution ? 'sl-met' : 'sl-missed' }, t.met ? (t.caution ? 'met, within the model\'s error' : 'met') : 'NOT met'),
+          ` — ${targetLabel(t.name, t.temper?.wanted, t.temper?.wantedName)}: predicted ${v(t.predicted)}, ${limit}`,
+          t.met ? `margin ${v(t.margin)} to spare` : `short by ${v(-t.margin)}`,
+          ...(t.temper ? [temperTargetNote(r, t).replace(/^ — /, '; ')] : []),
+          ...(t.caution ? [h('span', { class: 'sl-notice sl-target-caution', 'data-caution': t.caution.code }, ` Caution: ${t.caution.message}.`)] : []));
       }),
         h('li', {}, h('strong', {}, r.allTargetsMet ? 'All targets met.' : 'Not every target is met.')));
     },

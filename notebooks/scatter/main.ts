@@ -2,7 +2,7 @@
 // meeting it, following the final-pass slider. The Monte Carlo is the core's `runScatter` (the same
 // function, seed and blocks as `strainledger run`): a quick preview from the first samples on every
 // slider move, and the full run in a web worker once the slider rests.
-import { Notebook, expose, slider, choice, valueStream, widthStream, h, quantity, fixed, formatNumber, DIGITS, byId } from '../../src/cells/index.js';
+import { Notebook, expose, slider, choice, valueStream, widthStream, h, quantity, fixed, formatNumber, DIGITS, byId, targetLabel } from '../../src/cells/index.js';
 import { InputError, evaluateRoute, runScatter, type ScatterProblem, type ScatterSummary } from '../../src/core/index.js';
 import { yieldHistogram } from '../../src/charts/scatter.js';
 import { SCATTER_CAUTIONS } from '../../src/report/scatter.js';
@@ -134,7 +134,7 @@ nb.cell({ name: 'plan', fn: () => valueStream(planInput) })
         : h('p', { class: 'sl-notice sl-resolution' }, `Preview from the first ${shown.samples.toLocaleString('en')} of ${shown.of.toLocaleString('en')} samples; the full run follows when the slider rests.`);
       return h('div', { 'data-resolution': shown.full ? 'full' : 'preview' }, note, h('dl', { class: 'sl-quantities', id: 'numbers' },
         quantity('probability all targets met', s.probabilityAllTargetsMet * 100, 2, `% (± ${fixed(s.probabilityStdError * 100, 2)} % sampling error)`, 'probability'),
-        ...s.targets.map((t) => quantity(`probability ${t.name} met`, t.probabilityMet * 100, 2, '%', `p-${t.name}`)),
+        ...s.targets.map((t) => quantity(`probability the ${targetLabel(t.name)} target is met`, t.probabilityMet * 100, 2, '%', `p-${t.name}`)),
         quantity('final Rp0.2, mean', S(y.mean), DIGITS.stress, u, 'mean'),
         quantity('final Rp0.2, sd', S(y.sd), DIGITS.stress, u, 'sd'),
         quantity('final Rp0.2, 5 % point', S(y.p05), DIGITS.stress, u, 'p05'),

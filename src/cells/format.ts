@@ -8,6 +8,7 @@ import { h } from './dom.js';
  */
 export { fixed };
 export { formatNumber, formatTargetValue, formatLaw, formatLawParam, flowCurveText, targetUnit } from '../report/numbers.js';
+export { targetLabel, TARGET_LABELS } from '../report/labels.js';
 
 /**
  * Displayed precision, one table for all notebooks (digits after the point), taken from the reports'

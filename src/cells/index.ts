@@ -12,4 +12,4 @@ export { autosave, restore, forget, UndoHistory } from './store.js';
 export type { Stored } from './store.js';
 export { planText, planFileName, importPlan, downloadText, readFileText, fileDrop, MAX_FILE_BYTES } from './planio.js';
 export { h, append, escapeHtml, byId } from './dom.js';
-export { fixed, DIGITS, quantity, cautionsPanel, formatNumber, formatTargetValue, formatLaw, formatLawParam, flowCurveText, targetUnit } from './format.js';
+export { fixed, DIGITS, quantity, cautionsPanel, formatNumber, formatTargetValue, formatLaw, formatLawParam, flowCurveText, targetUnit, targetLabel, TARGET_LABELS } from './format.js';

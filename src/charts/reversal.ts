@@ -12,11 +12,11 @@ export interface PathSeries {
  * against isotropic only), true stress against total true strain, zero stress ruled. Same code in the
  * notebooks (browser DOM) and reports (linkedom via `document`).
  */
-export function reversalChart(series: readonly PathSeries[], o: { stressUnit: string; width?: number; height?: number; document?: Document }): SVGSVGElement | HTMLElement {
+export function reversalChart(series: readonly PathSeries[], o: { stressUnit: string; width?: number; height?: number; document?: Document; /** x-axis label; default 'total true strain ε (–)' (the points' `strain` may be any strain the caller names here). */ xLabel?: string }): SVGSVGElement | HTMLElement {
   const data = series.flatMap((s) => s.points.map((p) => ({ ...p, model: s.label })));
   return Plot.plot({
     ...chartFrame(o, 560, 320),
-    x: { ...X_AXIS, label: 'total true strain ε (–)', grid: true },
+    x: { ...X_AXIS, label: o.xLabel ?? 'total true strain ε (–)', grid: true },
     y: { label: `true stress (${o.stressUnit})`, grid: true },
     color: { domain: series.map((s) => s.label), range: [PALETTE.strength, PALETTE.ductility, PALETTE.coldWork], legend: true },
     marks: [

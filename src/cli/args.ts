@@ -45,6 +45,32 @@ export function didYouMean(given: string, allowed: readonly string[], quote = (s
   return s.length === 0 ? '' : `did you mean ${s.map(quote).join(' or ')}? `;
 }
 
+/**
+ * "did you mean" for an unknown short option `-x` (an edit distance means nothing between single
+ * letters): a long option written with one dash (`-format` → `--format`), the same letter in the other
+ * case (`-F` → `-f`), or the long options that start with the letter (`-s` → `--set`, `--shard`,
+ * `--sweep`); at most three, '' when none fits.
+ */
+export function shortOptionHint(given: string, args: readonly string[], options: Readonly<Record<string, OptionSpec>>): string {
+  const letter = given.replace(/^-/, '');
+  const longs = Object.keys(options);
+  const end = args.indexOf('--');
+  // parseArgs reads `-format` as the group -f -o -r -m -a -t; the word itself says what was meant.
+  for (const a of end < 0 ? args : args.slice(0, end)) {
+    const m = /^-([a-zA-Z][\w-]+?)(=.*)?$/.exec(a);
+    if (m && m[1]!.includes(letter)) {
+      const near = suggest(m[1]!, longs);
+      if (near.length > 0) return `did you mean ${near.map((n) => `'--${n}'`).join(' or ')} (two dashes)? `;
+    }
+  }
+  const out: string[] = [];
+  for (const [name, o] of Object.entries(options)) {
+    if (o.short && o.short !== letter && o.short.toLowerCase() === letter.toLowerCase()) out.push(`-${o.short}`);
+  }
+  for (const name of longs) if (name.toLowerCase().startsWith(letter.toLowerCase()) && !out.includes(`--${name}`)) out.push(`--${name}`);
+  return out.length === 0 ? '' : `did you mean ${out.slice(0, 3).map((n) => `'${n}'`).join(' or ')}? `;
+}
+
 function optionLabel(name: string, o: OptionSpec): string {
   const flag = `${o.short ? `-${o.short}, ` : '    '}--${name}`;
   return o.type === 'string' ? `${flag} ${o.value ?? 'VALUE'}` : flag;
@@ -94,13 +120,21 @@ export function parseCommandArgs<O extends OptionSpecs>(cmd: Command<O>, args: s
   // Parser config: only the keys parseArgs knows (help texts stay out of it).
   const config = Object.fromEntries(Object.entries(options).map(([k, o]) => [k, { type: o.type, ...(o.short ? { short: o.short } : {}), ...(o.multiple ? { multiple: true } : {}), ...(o.default !== undefined ? { default: o.default } : {}) }]));
   const loose = parseArgs({ args, options: config, strict: false, allowPositionals: true, tokens: true });
+  // A long option written with one dash (`-format json`) parses as `-f` with the value "ormat" (and
+  // `-shard` as a group holding -h): say what was meant, before --help is honoured.
+  const end = args.indexOf('--');
+  for (const a of end < 0 ? args : args.slice(0, end)) {
+    const m = /^-([a-zA-Z][\w-]{2,})(=.*)?$/.exec(a);
+    const near = m ? suggest(m[1]!, Object.keys(options)) : [];
+    if (near.length > 0) throw new UsageError(`unknown option '${a.replace(/=.*$/, '')}'; did you mean ${near.map((n) => `'--${n}'`).join(' or ')} (two dashes)? allowed ${optionNames(cmd).join(', ')}`);
+  }
   if (loose.tokens.some((t) => t.kind === 'option' && t.name === 'help')) return 'help';
   for (const t of loose.tokens) {
     if (t.kind !== 'option' || t.name in options) continue;
     const given = t.rawName;
     const long = t.rawName.startsWith('--');
     const allowed = long ? optionNames(cmd) : [...Object.values(options).flatMap((o) => (o.short ? [`-${o.short}`] : []))];
-    const hint = long ? didYouMean(given, allowed) : '';
+    const hint = long ? didYouMean(given, allowed) : shortOptionHint(given, args, options);
     throw new UsageError(`unknown option '${given}'; ${hint}allowed ${optionNames(cmd).join(', ')}`);
   }
   try {

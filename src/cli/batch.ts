@@ -4,7 +4,7 @@ import type { ReportV1 } from '../report/build.js';
 import { evaluatePlanFile } from './evaluate.js';
 import type { Override } from './overrides.js';
 import type { Progress } from './progress.js';
-import { render, type Format } from './render.js';
+import { render, renderInvalid, type Format } from './render.js';
 
 /** One plan to evaluate; `render` asks for the formatted output too (done where the work runs). */
 export interface Task {
@@ -31,8 +31,14 @@ export async function processTask(t: Task): Promise<Outcome> {
     const output = t.render ? await render(report, t.format) : undefined;
     return { file: t.file, exit: report.allTargetsMet ? 0 : 1, report, ...(output !== undefined ? { output } : {}) };
   } catch (e) {
-    if (e instanceof PlanError) return { file: t.file, exit: 2, problems: e.problems };
-    return { file: t.file, exit: 3, internal: e instanceof Error ? e.message : String(e) };
+    // With --out an invalid plan gets its file too where merge reads it (JSON, JUnit): a shard's
+    // per-plan files must carry it, or merge would drop the plan and its exit code.
+    const invalid = async (o: Outcome): Promise<Outcome> => {
+      const output = t.render ? await renderInvalid(t.file, t.format, o.problems, o.internal) : undefined;
+      return output !== undefined ? { ...o, output } : o;
+    };
+    if (e instanceof PlanError) return invalid({ file: t.file, exit: 2, problems: e.problems });
+    return invalid({ file: t.file, exit: 3, internal: e instanceof Error ? e.message : String(e) });
   }
 }
 

@@ -13,14 +13,13 @@ export const EXIT = { ok: 0, targetMissed: 1, invalid: 2, internal: 3 } as const
 const NAMES = [...COMMANDS.map((c) => c.name), 'help'];
 const GLOBAL_OPTIONS = ['--help', '-h', '--version', '-V'];
 
-/** The overview: every command's synopsis and summary (loads every command module; only for `help`). */
+/** The overview: every command's synopsis and summary, from `COMMANDS` (no command module is loaded). */
 export async function usage(): Promise<string> {
-  const cmds = (await Promise.all(COMMANDS.map((c) => c.load()))) as Command<OptionSpecs>[];
   return [
     `usage: strainledger COMMAND [options]   (${TOOL})`,
     '',
     'commands:',
-    ...cmds.flatMap((c) => [`  ${synopsis(c)}`, `      ${c.summary}`]),
+    ...COMMANDS.flatMap((c) => [`  ${c.usage}`, `      ${c.summary}`]),
     '  strainledger help [COMMAND]',
     '      this text, or one command\'s options (same as strainledger COMMAND --help)',
     '',

@@ -77,3 +77,24 @@ export function checkOutFile(file: string): void {
     if (e instanceof PlanError) throw e;
   }
 }
+
+/** The same file on disk: same resolved real path (a symlink or `./` spelling of an input is caught). */
+function sameFile(a: string, b: string): boolean {
+  const real = (p: string) => { try { return realpathSync(resolve(p)); } catch { return resolve(p); } };
+  return real(a) === real(b);
+}
+
+/**
+ * Refuses an output file that is one of the command's inputs, before any work (never lose a user's
+ * data): PlanError naming the option, the path and what is allowed. `replaceable` inputs may be replaced
+ * when the user asks with `allowFlag` (`allowed` true); the others never (a record, or a plan whose
+ * route the output would drop).
+ */
+export function refuseInputAsOutput(option: string, out: string, inputs: readonly { file: string; what: string; replaceable?: boolean }[], allowFlag?: { name: string; allowed: boolean }): void {
+  for (const i of inputs) {
+    if (!sameFile(out, i.file)) continue;
+    if (i.replaceable && allowFlag?.allowed) continue;
+    const how = i.replaceable && allowFlag ? `a new file, or ${allowFlag.name} to replace the ${i.what} on purpose` : 'a new file';
+    throw new PlanError([{ file: '(command line)', path: option, message: `got ${JSON.stringify(out)}, which is the ${i.what} read by this command; allowed ${how}` }]);
+  }
+}

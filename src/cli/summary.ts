@@ -1,5 +1,6 @@
 import { formatProblem } from '../plan/problems.js';
 import { formatTargetValue } from '../report/numbers.js';
+import { targetLabel } from '../report/labels.js';
 import { alignTable } from '../report/table.js';
 import type { Outcome } from './batch.js';
 
@@ -15,7 +16,7 @@ export function tightest(o: Outcome): string {
   if (!r || r.targets.length === 0) return '—';
   const rel = (t: { margin: number; limit: number }) => (t.limit !== 0 ? t.margin / Math.abs(t.limit) : t.margin);
   const t = r.targets.reduce((a, b) => (rel(b) < rel(a) ? b : a));
-  return `${formatTargetValue(t.margin, t.name, r.units.stress, t.temper?.basis)} (${t.name})`;
+  return `${formatTargetValue(t.margin, t.name, r.units.stress, t.temper?.basis)}, ${targetLabel(t.name, t.temper?.wanted, t.temper?.wantedName)}`;
 }
 
 /**

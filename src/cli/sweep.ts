@@ -9,6 +9,7 @@ import { evaluateSource, type PlanSource } from './evaluate.js';
 import { showPath, type Override, type Sweep } from './overrides.js';
 import type { Progress } from './progress.js';
 import { formatNumber, targetUnit, targetUnitKind } from '../report/numbers.js';
+import { targetLabel } from '../report/labels.js';
 
 /** One value of a sweep: the final state's strengths and each target's margin, or why it is invalid. */
 export interface SweepRow {
@@ -74,7 +75,7 @@ function temperBasisOf(rows: readonly SweepRow[], name: string): string | undefi
 
 function header(res: SweepResult): string[] {
   const S = res.report?.units.stress ?? '';
-  return [res.path, `Rp0.2 ${S}`, `Rm ${S}`, 'Ag left %', ...targetNames(res).map((n) => `margin ${n} ${targetUnit(n, S, temperBasisOf(res.rows, n))}`), 'verdict'];
+  return [res.path, `Rp0.2 ${S}`, `Rm ${S}`, 'Ag left %', ...targetNames(res).map((n) => `margin ${targetLabel(n)} ${targetUnit(n, S, temperBasisOf(res.rows, n))}`), 'verdict'];
 }
 
 function cells(res: SweepRow, names: string[], S: string): string[] {

@@ -36,7 +36,8 @@ export { evaluateRoute } from './route/ledger.js';
 export type { LedgerOptions } from './route/ledger.js';
 export { checkTargets, checkSpringbackTarget, validateTargets, TARGET_DEFS, TARGET_NAMES } from './route/targets.js';
 export { coldWorkWindow } from './route/window.js';
-export { checkTemperTarget } from './route/targets.js';
+export { checkTemperTarget, hardnessCaution } from './route/targets.js';
+export { TARGET_LABELS, targetLabel, WARNING_LABELS } from './route/targetLabels.js';
 export { DEFAULT_GRAIN_GROWTH_STRAIN, validateGrainGrowthStrain, inGrainGrowthRange } from './route/grainGrowth.js';
 
 // Standard tempers: copper strip by B&S numbers, strain-hardened aluminium, carbon steel strip
@@ -50,7 +51,7 @@ export type * from './temper/types.js';
 export type * from './route/types.js';
 
 // Hardness: Tabor's relation, the Tabor-factor fit from readings, conversion tables (issue 15)
-export { STANDARD_GRAVITY, VICKERS_CONTACT_RATIO, HARDNESS_DEFAULTS, HARDNESS_RANGES } from './hardness/defaults.js';
+export { STANDARD_GRAVITY, VICKERS_CONTACT_RATIO, HARDNESS_DEFAULTS, HARDNESS_RANGES, HARDNESS_MODEL_REL_ERROR } from './hardness/defaults.js';
 export { taborHardness, strainForHardness, validateHardnessModel, defaultHardnessModel } from './hardness/taborHardness.js';
 export { fitTaborFactor } from './hardness/fitTaborFactor.js';
 export type { TaborFit } from './hardness/fitTaborFactor.js';

@@ -194,7 +194,7 @@ export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: stri
     },
     steps: ledger.rows.map(step),
     targets: ledger.targets.map((t) => stressTargets.has(t.name) || t.temper?.basis === 'tensileStrength'
-      ? { ...t, limit: S(t.limit), predicted: S(t.predicted), margin: S(t.margin) }
+      ? { ...t, limit: S(t.limit), predicted: S(t.predicted), margin: S(t.margin), ...(t.temper ? { temper: { ...t.temper, from: S(t.temper.from), to: t.temper.to === null ? null : S(t.temper.to) } } : {}) }
       : { ...t }),
     allTargetsMet: ledger.allTargetsMet,
     coldWorkWindow: ledger.coldWorkWindow,

@@ -1,5 +1,6 @@
 import { extraFieldHeader, formatNumber, targetUnit as unitOfTarget, targetUnitKind } from './numbers.js';
 import type { ReportStep, ReportV1 } from './build.js';
+import { targetLabel, WARNING_LABELS } from './labels.js';
 import { conversionHeader, extraStepFields, sizeText, stepNumber } from './fields.js';
 import { sig4 } from '../core/numeric/sig4.js';
 
@@ -35,7 +36,7 @@ export function stepColumns(r: ReportV1, warningSeparator = ', '): StepColumn[] 
   if (r.steps.some((s) => s.hardnessHV !== undefined)) cols.push({ header: 'HV', numeric: true, cell: (s) => formatNumber(s.hardnessHV, 'hardness') });
   for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: conversionHeader(key, S) ?? extraFieldHeader(key, r.units), numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
   if (hasTemper(r)) cols.push({ header: 'temper', numeric: false, cell: temperText });
-  cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(warningSeparator) });
+  cols.push({ header: 'warnings', numeric: false, cell: (s) => [...new Set(s.warnings.map((w) => WARNING_LABELS[w.code]))].join(warningSeparator) });
   return cols;
 }
 
@@ -70,9 +71,41 @@ export function temperText(s: ReportStep): string {
   return t.next === null || t.towardNext === null ? t.designation : `${t.designation} (${Math.floor(t.towardNext * 100)} % of the way to ${t.next})`;
 }
 
-/** For a temper target, the tempers wanted and reached in words (` — H04 wanted, H02 reached`); '' for other targets. */
-export function temperTargetNote(t: ReportV1['targets'][number]): string {
-  return t.temper ? ` — ${t.temper.wanted} wanted, ${t.temper.got ?? 'none of the system'} reached` : '';
+/**
+ * For a temper target, the tempers wanted and reached, both boundaries of the wanted temper and the
+ * one the margin is measured to (` — H02 wanted, H01 reached; H02 runs from 20.7 to 37.1 % thickness
+ * reduction (top open at the end of the scale); margin to the lower boundary`); '' for other targets.
+ */
+export function temperTargetNote(r: ReportV1, t: ReportV1['targets'][number]): string {
+  const tp = t.temper;
+  if (!tp) return '';
+  const v = (x: number) => targetNumber(r, 'temper', x);
+  const band = tp.to === null ? `from ${v(tp.from)} ${targetUnit(r, 'temper')} up (the top of the scale)` : `from ${v(tp.from)} to ${v(tp.to)} ${targetUnit(r, 'temper')}`;
+  return ` — ${tp.wanted} wanted, ${tp.got ?? 'none of the system'} reached; ${tp.wanted} runs ${band}; margin to its ${tp.marginTo} boundary`;
+}
+
+/**
+ * What the verdict adds when met targets carry a caution: ` — 2 of them only within the model's
+ * error (see the targets)`; '' when none does.
+ */
+export function cautionedVerdict(r: ReportV1): string {
+  const n = r.targets.filter((t) => t.met && t.caution).length;
+  return n === 0 ? '' : ` — ${n === 1 ? 'one of them' : `${n} of them`} only within the model's error: see the targets`;
+}
+
+/** A target's status in words: `met`, `met, within the model's error` (a caution), or `NOT MET`. */
+export function targetStatus(t: ReportV1['targets'][number]): string {
+  return !t.met ? 'NOT MET' : t.caution ? 'met, within the model\'s error' : 'met';
+}
+
+/** A target's name in words (`minimum reload yield (Rp0.2)`, `temper H04`), from the one table in `labels.ts`. */
+export function targetName(t: ReportV1['targets'][number]): string {
+  return targetLabel(t.name, t.temper?.wanted, t.temper?.wantedName);
+}
+
+/** Everything a reader must know beside a target's numbers: the temper note and the caution, if any. */
+export function targetNote(r: ReportV1, t: ReportV1['targets'][number]): string {
+  return temperTargetNote(r, t) + (t.caution ? `; caution: ${t.caution.message}` : '');
 }
 
 /** The basis of a report's temper target (what its limit and margin measure), if it has one. */

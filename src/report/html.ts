@@ -4,7 +4,7 @@ import { REPORT_CHART_WIDTH, ductilityByStepChart, strengthByStepChart } from '.
 import { hardnessByStepChart } from '../charts/hardness.js';
 import { PALETTE } from '../charts/palette.js';
 import type { ReportV1 } from './build.js';
-import { ledgerBasisNote, stepColumns, targetNumber, targetUnit, temperTargetNote, windowText } from './columns.js';
+import { ledgerBasisNote, stepColumns, targetNumber, targetUnit, cautionedVerdict, targetName, targetNote, targetStatus, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
 import { scatterView } from './scatter.js';
 
@@ -47,7 +47,7 @@ export function htmlReport(r: ReportV1): string {
   const ductility = ductilityByStepChart(chartSteps, opt({ stressUnit: r.units.stress, start, minRemainingElongationPct: limit('minRemainingElongationPct'), width: REPORT_CHART_WIDTH, document: document as unknown as Document }));
   const cols = stepColumns(r);
   const verdict = r.targets.length === 0 ? '<p>No targets given.</p>'
-    : `<p class="${r.allTargetsMet ? 'met' : 'missed'}">${r.allTargetsMet ? 'All targets met.' : 'A target is NOT met.'}</p>`;
+    : `<p class="${r.allTargetsMet ? 'met' : 'missed'}">${r.allTargetsMet ? htmlText(`All targets met${cautionedVerdict(r)}.`) : 'A target is NOT met.'}</p>`;
   const parts: string[] = [];
   parts.push(`<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n<meta name="viewport" content="width=device-width, initial-scale=1">`);
   parts.push(`<title>${htmlText(r.plan.name)} — strainledger report</title>\n<style>\n${STYLE}\n</style>\n</head>\n<body>`);
@@ -72,7 +72,7 @@ export function htmlReport(r: ReportV1): string {
   if (r.targets.length === 0) parts.push('<p>No targets given.</p>');
   else {
     parts.push(table(['target', 'status', 'limit', 'predicted', 'margin', 'unit'],
-      r.targets.map((t) => [t.name + temperTargetNote(t), t.met ? 'met' : 'NOT MET', targetNumber(r, t.name, t.limit), targetNumber(r, t.name, t.predicted), targetNumber(r, t.name, t.margin), targetUnit(r, t.name)]),
+      r.targets.map((t) => [targetName(t) + targetNote(r, t), targetStatus(t), targetNumber(r, t.name, t.limit), targetNumber(r, t.name, t.predicted), targetNumber(r, t.name, t.margin), targetUnit(r, t.name)]),
       [false, false, true, true, true, false]));
   }
   parts.push(`<p><strong>Cold-work window:</strong> ${htmlText(windowText(r))}</p>`);

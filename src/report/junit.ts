@@ -1,5 +1,5 @@
 import type { ReportV1 } from './build.js';
-import { temperTargetNote } from './columns.js';
+import { targetName, targetNote } from './columns.js';
 import { formatTargetValue } from './numbers.js';
 
 /** Escapes text for XML 1.0 content and attributes; drops characters XML 1.0 forbids. */
@@ -12,17 +12,20 @@ export function xmlText(s: string): string {
 /** What a plan contributes to a JUnit document: one suite, one test case per target. */
 export interface JunitSuite {
   name: string;
-  /** The report, or the problems that made the plan invalid (one error case). */
+  /** The report, or the problems that made the plan invalid, or the message of an internal error (one error case each). */
   report?: ReportV1;
   invalid?: string;
+  /** An internal error (runner exit 3): the error case has type `internal`, which `merge` maps back to exit 3. */
+  internal?: string;
 }
 
 function suiteXml(s: JunitSuite): string {
   const name = xmlText(s.name);
   if (!s.report) {
+    const [message, type, text] = s.internal !== undefined ? ['internal error', 'internal', s.internal] : ['invalid input', 'invalid', s.invalid ?? 'invalid input'];
     return `  <testsuite name="${name}" tests="1" failures="0" errors="1" skipped="0">\n`
       + `    <testcase classname="${name}" name="plan is valid input">\n`
-      + `      <error message="invalid input" type="invalid">${xmlText(s.invalid ?? 'invalid input')}</error>\n    </testcase>\n  </testsuite>\n`;
+      + `      <error message="${message}" type="${type}">${xmlText(text)}</error>\n    </testcase>\n  </testsuite>\n`;
   }
   const r = s.report;
   const failures = r.targets.filter((t) => !t.met).length;
@@ -49,8 +52,8 @@ function suiteXml(s: JunitSuite): string {
   x += '    </properties>\n';
   for (const t of r.targets) {
     const v = (x: number) => formatTargetValue(x, t.name, r.units.stress, t.temper?.basis);
-    const text = `${t.name}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, margin ${v(t.margin)}${temperTargetNote(t)}`;
-    x += `    <testcase classname="${name}" name="${xmlText(t.name)}">\n`;
+    const text = `${targetName(t)}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, margin ${v(t.margin)}${targetNote(r, t)}`;
+    x += `    <testcase classname="${name}" name="${xmlText(targetName(t))}">\n`;
     if (!t.met) x += `      <failure message="${xmlText(text)}" type="targetMissed">${xmlText(text)}</failure>\n`;
     else x += `      <system-out>${xmlText(text)}</system-out>\n`;
     x += '    </testcase>\n';

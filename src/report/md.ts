@@ -1,5 +1,5 @@
 import type { ReportV1 } from './build.js';
-import { ledgerBasisNote, stepColumns, targetNumber, targetUnit, temperTargetNote, windowText } from './columns.js';
+import { ledgerBasisNote, stepColumns, targetNumber, targetUnit, cautionedVerdict, targetName, targetNote, targetStatus, windowText } from './columns.js';
 import { extraSections, provenance } from './fields.js';
 import { scatterView } from './scatter.js';
 
@@ -24,7 +24,7 @@ export function mdReport(r: ReportV1): string {
   const S = r.units.stress;
   const out: string[] = [];
   out.push(`# ${mdText(r.plan.name)}`, '');
-  out.push(`**Verdict:** ${r.targets.length === 0 ? 'no targets given' : r.allTargetsMet ? 'all targets met' : 'a target is NOT met'}`, '');
+  out.push(`**Verdict:** ${r.targets.length === 0 ? 'no targets given' : r.allTargetsMet ? `all targets met${cautionedVerdict(r)}` : 'a target is NOT met'}`, '');
   out.push('## Provenance', '');
   for (const p of provenance(r)) out.push(`- ${p.label}: ${mdText(p.value)}`);
   out.push('', '## Annealed state', '');
@@ -37,7 +37,7 @@ export function mdReport(r: ReportV1): string {
   if (r.targets.length === 0) out.push('No targets given.');
   else {
     out.push(mdTable(['target', 'status', 'limit', 'predicted', 'margin', 'unit'],
-      r.targets.map((t) => [t.name + temperTargetNote(t), t.met ? 'met' : 'NOT MET', targetNumber(r, t.name, t.limit), targetNumber(r, t.name, t.predicted), targetNumber(r, t.name, t.margin), targetUnit(r, t.name)]),
+      r.targets.map((t) => [targetName(t) + targetNote(r, t), targetStatus(t), targetNumber(r, t.name, t.limit), targetNumber(r, t.name, t.predicted), targetNumber(r, t.name, t.margin), targetUnit(r, t.name)]),
       [false, false, true, true, true, false]));
   }
   out.push('', `**Cold-work window:** ${mdText(windowText(r))}`);

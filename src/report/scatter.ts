@@ -1,4 +1,5 @@
 import { TARGET_DEFS } from '../core/route/targets.js';
+import { targetLabel } from './labels.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { ScatterProblem } from '../core/scatter/problem.js';
 import type { Distribution, ScatterSummary } from '../core/scatter/summarize.js';
@@ -95,7 +96,7 @@ export function scatterLines(s: ReportScatter, stress: string): string[] {
     `scatter: ${s.samples} samples, seed ${s.seed}; inputs ${s.inputs.length === 0 ? 'none (no spread given)' : ''}${s.inputs.map((i) => `${i.name} ${+i.mean.toPrecision(6)} ± ${+i.sd.toPrecision(3)} ${i.unit === '1' ? '' : i.unit}`.trim()).join(', ')}` +
       (Object.keys(s.correlation).length ? `; correlation ${Object.entries(s.correlation).map(([k, v]) => `${k} ${v}`).join(', ')}` : ''),
     `  probability all targets met: ${pct(s.probabilityAllTargetsMet)} (± ${pct(s.probabilityStdError)} sampling error)` +
-      (s.targets.length ? `; ${s.targets.map((t) => `${t.name} ${pct(t.probabilityMet)}`).join(', ')}` : ''),
+      (s.targets.length ? `; ${s.targets.map((t) => `${targetLabel(t.name)} ${pct(t.probabilityMet)}`).join(', ')}` : ''),
     `  final Rp0.2 ${stress}: mean ${f(y.mean)}, sd ${f(y.sd)}, 5 % ${f(y.p05)}, 50 % ${f(y.p50)}, 95 % ${f(y.p95)} (first-order: mean ${f(s.deltaMethod.finalReloadYield.mean)}, sd ${f(s.deltaMethod.finalReloadYield.sd)})`,
     `  lower bound on Rp0.2, ${pct(tb.coverage)} coverage at ${pct(tb.confidence)} confidence: ${f(tb.value)} ${stress} (${tb.method}); normal theory ${f(tb.normalValue)} (k = ${tb.normalK.toFixed(4)})`,
     top.length ? `  spread driven by: ${top.map((i) => `${i.input} (SRC ${i.src.toFixed(2)})`).join(', ')}; linear R² ${s.sensitivity.linearR2.toFixed(3)}` : '  spread driven by: nothing scatters',
@@ -129,7 +130,7 @@ export function scatterView(s: ReportScatter, stress: string): ScatterView {
     { title: 'Inputs that scatter', header: ['input', 'mean', 'sd', 'cv', 'unit'], numeric: [false, true, true, true, false],
       rows: s.inputs.map((i) => [i.name, String(+i.mean.toPrecision(6)), String(+i.sd.toPrecision(3)), i.cv.toFixed(3), i.unit === '1' ? '—' : i.unit]) },
     { title: 'Probability of meeting each target', header: ['target', 'limit', 'probability met'], numeric: [false, true, true],
-      rows: s.targets.map((t) => [t.name, f(t.limit, 2), pct(t.probabilityMet)]) },
+      rows: s.targets.map((t) => [targetLabel(t.name), f(t.limit, 2), pct(t.probabilityMet)]) },
     { title: 'Final state across the samples (first-order estimate beside)', header: ['quantity', 'unit', 'mean', 'sd', '5 %', '50 %', '95 %', 'first-order mean', 'first-order sd'],
       numeric: [false, false, true, true, true, true, true, true, true],
       rows: [

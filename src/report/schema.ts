@@ -129,7 +129,13 @@ export const ReportSchema = z.looseObject({
     met: z.boolean(),
     temper: z.strictObject({
       wanted: z.string(), got: z.string().nullable(), basis: z.enum(['thicknessReductionPct', 'tensileStrength', 'hardnessHV']),
+      wantedName: z.string().describe('the wanted temper\'s name in its system, e.g. "half hard"'),
+      from: z.number().describe('the wanted temper\'s lower boundary (inclusive), in the basis; equals limit'),
+      to: z.number().nullable().describe('the wanted temper\'s upper boundary (the next temper\'s lower one, exclusive), in the basis; null at the top of the scale'),
+      marginTo: z.enum(['lower', 'upper']).describe('the boundary the margin is measured to (the nearer one)'),
     }).optional().describe('temper target only: limit is the temper\'s lower boundary, predicted the state\'s value, margin the distance to the nearer boundary, in the basis (% thickness reduction, stress unit, or HV)'),
+    caution: z.strictObject({ code: z.enum(['withinModelError']), message: z.string() }).optional()
+      .describe('a met target whose margin is smaller than the model\'s own error (hardness by Tabor\'s relation, ±15 %): the part may miss it; confirm by measurement'),
   })),
   allTargetsMet: z.boolean(),
   coldWorkWindow: z.strictObject({

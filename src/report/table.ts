@@ -1,9 +1,8 @@
 import type { ReportV1 } from './build.js';
 import { hardnessText } from './fields.js';
-import { ledgerBasisNote, stepColumns, temperTargetNote, windowText } from './columns.js';
+import { ledgerBasisNote, stepColumns, targetName, targetNote, windowText } from './columns.js';
 import { fixed, flowCurveText, formatNumber, formatTargetValue } from './numbers.js';
 import { scatterLines } from './scatter.js';
-
 
 /**
  * Pads cells into aligned columns: numbers right, text left. `numeric` says which columns hold
@@ -28,15 +27,15 @@ export function tableReport(r: ReportV1, color = false): string {
   if (r.material.hardness) out.push(`hardness: ${hardnessText(r.material.hardness)}`);
   out.push(`annealed: Rp0.2 ${formatNumber(r.material.initial.reloadYield, 'stress', S)} ${S}, Rm ${formatNumber(r.material.initial.tensileStrength, 'stress', S)} ${S}, uniform elongation ${fixed(r.material.initial.uniformElongationPct, 1)} %`);
   out.push('');
-  // The same columns as the Markdown and HTML ledgers (columns.ts); codes comma-joined without a space to keep the terminal table narrow.
-  const cols = stepColumns(r, ',');
+  // The same columns as the Markdown and HTML ledgers (columns.ts).
+  const cols = stepColumns(r);
   out.push(alignTable(cols.map((c) => c.header), r.steps.map((s) => cols.map((c) => c.cell(s))), cols.map((c) => c.numeric)));
   out.push(ledgerBasisNote(r));
   out.push('');
   if (r.targets.length === 0) out.push('targets: none given');
   for (const t of r.targets) {
     const v = (x: number) => formatTargetValue(x, t.name, S, t.temper?.basis);
-    out.push(paint(t.met, `${t.met ? 'MET    ' : 'NOT MET'} ${t.name}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, margin ${v(t.margin)}${temperTargetNote(t)}`));
+    out.push(paint(t.met, `${t.met ? (t.caution ? 'MET?   ' : 'MET    ') : 'NOT MET'} ${targetName(t)}: predicted ${v(t.predicted)}, limit ${v(t.limit)}, margin ${v(t.margin)}${targetNote(r, t)}`));
   }
   out.push(`cold-work window: ${windowText(r)}`);
   const warned = r.steps.flatMap((s) => s.warnings.map((x) => `step ${s.index}: ${x.message}`));

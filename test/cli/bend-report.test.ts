@@ -22,13 +22,13 @@ describe('strainledger run examples/hinge-tab-bend.json --format json (bend step
     const md = run('run', 'examples/hinge-tab-bend.json', '--format', 'md').stdout;
     const t = rep.targets.find((x: { name: string }) => x.name === 'maxSpringbackDeg');
     // Angles to 0.01°, stresses to 0.1 MPa (src/report/numbers.ts DISPLAY_DIGITS).
-    expect(md).toContain(`| maxSpringbackDeg | met | ${t.limit.toFixed(2)} | ${t.predicted.toFixed(2)} | ${t.margin.toFixed(2)} | ° |`);
-    expect(md).toMatch(/\| minYield \| met \| 300\.0 \| [\d.]+ \| [\d.]+ \| MPa \|/);
+    expect(md).toContain(`| maximum springback | met | ${t.limit.toFixed(2)} | ${t.predicted.toFixed(2)} | ${t.margin.toFixed(2)} | ° |`);
+    expect(md).toMatch(/\| minimum reload yield \(Rp0\.2\) \| met \| 300\.0 \| [\d.]+ \| [\d.]+ \| MPa \|/);
     const junit = run('run', 'examples/hinge-tab-bend.json', '--format', 'junit').stdout;
-    expect(junit).toContain(`maxSpringbackDeg: predicted ${t.predicted.toFixed(2)}°, limit 6.00°, margin ${t.margin.toFixed(2)}°`);
+    expect(junit).toContain(`maximum springback: predicted ${t.predicted.toFixed(2)}°, limit 6.00°, margin ${t.margin.toFixed(2)}°`);
     const table = run('run', 'examples/hinge-tab-bend.json', '--format', 'table').stdout;
-    expect(table).toContain(`maxSpringbackDeg: predicted ${t.predicted.toFixed(2)}°, limit 6.00°, margin ${t.margin.toFixed(2)}°`);
-    expect(table).toMatch(/minYield: predicted [\d.]+ MPa, limit 300\.0 MPa, margin [\d.]+ MPa/);
+    expect(table).toContain(`maximum springback: predicted ${t.predicted.toFixed(2)}°, limit 6.00°, margin ${t.margin.toFixed(2)}°`);
+    expect(table).toMatch(/minimum reload yield \(Rp0\.2\): predicted [\d.]+ MPa, limit 300\.0 MPa, margin [\d.]+ MPa/);
   });
   it('has the bend fields on the bend step only, and reverseReloadYield on every step', () => {
     const [roll, bend] = rep.steps;

@@ -2,7 +2,7 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { editDistance, suggest } from '../../src/cli/args.js';
+import { editDistance, suggest, synopsis } from '../../src/cli/args.js';
 import { colorEnabled } from '../../src/cli/color.js';
 import type { Command, OptionSpecs } from '../../src/cli/command.js';
 import { COMMANDS } from '../../src/cli/commands/index.js';
@@ -44,6 +44,9 @@ describe('every command answers --help, -h and help COMMAND from its declared op
         expect(o.short === 'h' || o.short === 'V', `${entry.name} --${name} takes a reserved short name`).toBe(false);
       }
       expect(cli([entry.name, '-h']).stdout).toBe(r.stdout);
+      // The overview prints COMMANDS' own copy of the synopsis and summary (it loads no command module).
+      expect(entry.usage).toBe(synopsis(cmd));
+      expect(entry.summary).toBe(cmd.summary);
       expect(cli(['help', entry.name]).stdout).toBe(r.stdout);
       // --help wins over other arguments, even invalid ones (nothing runs, nothing is written).
       const mixed = cli([entry.name, '--no-such-option', 'missing-file.json', '--help']);
@@ -65,6 +68,24 @@ describe('every command answers --help, -h and help COMMAND from its declared op
         expect(first).toMatch(new RegExp(`did you mean [^?]*'--${name}'`));
         expect(first).toContain(`allowed ${names.map((n) => `--${n}`).join(', ')}, --help`);
         expect(r.stderr).not.toMatch(/\n\s+at |internal error/);
+      }
+    });
+    it(`${entry.name} with a mistyped short option (wrong case) or a long one written with one dash: "did you mean", exit 2`, async () => {
+      const cmd = (await entry.load()) as Command<OptionSpecs>;
+      const shorts = Object.values(cmd.options).flatMap((o) => (o.short ? [o.short] : []));
+      for (const [name, o] of Object.entries(cmd.options)) {
+        const other = o.short?.toUpperCase() === o.short ? o.short?.toLowerCase() : o.short?.toUpperCase();
+        if (o.short && other && !shorts.includes(other) && other !== 'h' && other !== 'V') {
+          const r = cli([entry.name, `-${other}`, 'x']);
+          expect(r.status, `${name}: ${r.stderr}`).toBe(2);
+          expect(r.stderr.split('\n')[0]).toMatch(new RegExp(`unknown option '-${other}'; did you mean [^?]*'-${o.short}'`));
+        }
+        if (name.length >= 3) {
+          const r = cli([entry.name, `-${name}`, 'x']);
+          expect(r.status, `-${name}: ${r.stderr}`).toBe(2);
+          expect(r.stderr.split('\n')[0]).toMatch(new RegExp(`unknown option '-${name}'; did you mean [^?]*'--${name}'[^?]*\\(two dashes\\)\\?`));
+          expect(r.stderr).not.toMatch(/\n\s+at |internal error/);
+        }
       }
     });
     it(`${entry.name}: a required option shows in the synopsis and its absence is refused by name (exit 2)`, async () => {

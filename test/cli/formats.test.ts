@@ -6,6 +6,10 @@ import { parse as parseCsv } from 'csv-parse/sync';
 import { DOMParser } from 'linkedom';
 import { afterAll, describe, expect, it } from 'vitest';
 import { expectRelClose } from '../helpers.js';
+import { targetLabel } from '../../src/core/index.js';
+
+// JUnit test cases are named in words, as the reports show the targets.
+const caseName = (t: { name: string; temper?: { wanted: string; wantedName: string } }) => targetLabel(t.name, t.temper?.wanted, t.temper?.wantedName);
 
 // Golden tests of every report format on the invented demo plans in examples/, run through the
 // shipped runner. Goldens live in test/cli/golden/ (review a change there like code). Beside the
@@ -82,9 +86,9 @@ describe('every format carries the same numbers as the JSON report', () => {
       const rj = json(file);
       const doc = new DOMParser().parseFromString(run('run', file, '--format', 'junit').stdout, 'text/xml');
       const cases = [...doc.querySelectorAll('testcase')];
-      expect(cases.map((c) => c.getAttribute('name'))).toEqual(rj.targets.map((t: { name: string }) => t.name));
+      expect(cases.map((c) => c.getAttribute('name'))).toEqual(rj.targets.map(caseName));
       const failed = cases.filter((c) => c.querySelector('failure')).map((c) => c.getAttribute('name'));
-      expect(failed).toEqual(rj.targets.filter((t: { met: boolean }) => !t.met).map((t: { name: string }) => t.name));
+      expect(failed).toEqual(rj.targets.filter((t: { met: boolean }) => !t.met).map(caseName));
       expect(doc.querySelector('testsuites')!.getAttribute('failures')).toBe(String(failed.length));
     }
   });

@@ -92,3 +92,40 @@ describe('strainledger kinematic MATERIAL RECORD', () => {
     for (const x of [a, b, c]) expect(x.stderr).not.toMatch(/\n\s+at /); // no stack trace
   });
 });
+
+describe('kinematic --material-out never replaces an input by accident (a user\'s data is kept)', () => {
+  const rec = closedFormRecord();
+  const csv = join(TMP, 'guard.csv');
+  writeFileSync(csv, 'strain,stress [MPa]\n' + rec.strain.map((e, i) => `${e},${rec.stress[i]}`).join('\n') + '\n');
+  const planFile = join(TMP, 'guard-plan.json');
+  const { units: _u, ...planMaterial } = material();
+  const planText = JSON.stringify({ name: 'guard plan (INVENTED)', units: 'SI', material: planMaterial, start: { thickness: 1 }, steps: [{ kind: 'roll', thickness: 0.9 }], targets: { minYield: 100 } }, null, 2);
+  it('refuses the plan it read as --material-out (exit 2, naming the option and the path), even with --replace-input', () => {
+    writeFileSync(planFile, planText);
+    for (const extra of [[], ['--replace-input']]) {
+      const r = run('kinematic', planFile, csv, '--values', 'true', '--material-out', planFile, ...extra);
+      expect(r.status).toBe(2);
+      expect(r.stderr).toContain('--material-out');
+      expect(r.stderr).toContain(JSON.stringify(planFile));
+      expect(r.stderr).toMatch(/plan \(its route and targets would be lost\)/);
+      expect(readFileSync(planFile, 'utf8')).toBe(planText); // untouched
+    }
+  });
+  it('refuses the record it read, and the material file unless --replace-input is given', () => {
+    const matFile = join(TMP, 'guard-material.json');
+    const matText = JSON.stringify(material(), null, 2);
+    writeFileSync(matFile, matText);
+    const onRecord = run('kinematic', matFile, csv, '--values', 'true', '--material-out', csv);
+    expect(onRecord.status).toBe(2);
+    expect(onRecord.stderr).toMatch(/--material-out.*which is the record read by this command; allowed a new file/);
+    const onMaterial = run('kinematic', matFile, csv, '--values', 'true', '--material-out', join(TMP, '.', 'guard-material.json'));
+    expect(onMaterial.status).toBe(2);
+    expect(onMaterial.stderr).toMatch(/allowed a new file, or --replace-input to replace the material file on purpose/);
+    expect(readFileSync(matFile, 'utf8')).toBe(matText);
+    const asked = run('kinematic', matFile, csv, '--values', 'true', '--material-out', matFile, '--replace-input');
+    expect(asked.status, asked.stderr).toBe(0);
+    const written = JSON.parse(readFileSync(matFile, 'utf8'));
+    expectRelClose(written.kinematic.backstresses[0].C, C, 1e-5, 'C written in place');
+    expect(written.flowCurve).toEqual(material().flowCurve);
+  });
+});

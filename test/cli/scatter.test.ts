@@ -59,7 +59,7 @@ describe('strainledger run PLAN with a scatter section', () => {
     const section = md.slice(md.indexOf('## Scatter'), md.indexOf('## Cautions'));
     expect(section).toContain(`Probability that all targets are met: ${pct(s.probabilityAllTargetsMet)}`);
     expect(section).toContain(`: ${s.toleranceBound.value.toFixed(1)} MPa`);
-    expect(section).toContain(`| minYield | 330.00 | ${pct(s.targets[0].probabilityMet)} |`);
+    expect(section).toContain(`| minimum reload yield (Rp0.2) | 330.00 | ${pct(s.targets[0].probabilityMet)} |`);
     expect(section).toContain(`| Rp0.2 | MPa | ${s.finalReloadYield.mean.toFixed(1)} | ${s.finalReloadYield.sd.toFixed(1)} | ${s.finalReloadYield.p05.toFixed(1)} |`);
     expect(section).toContain('**Caution:** A lower bound is not a guaranteed minimum');
     expect(md).not.toContain('```json'); // no raw JSON dump
@@ -70,7 +70,7 @@ describe('strainledger run PLAN with a scatter section', () => {
     expect(h2).toBeDefined();
     const rows = [...doc.querySelectorAll('table')].flatMap((t) => [...t.querySelectorAll('tr')].map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent)));
     expect(rows).toContainEqual(['K', '530', '21.2', '0.040', 'MPa']);
-    expect(rows).toContainEqual(['minRemainingElongationPct', '2.00', pct(s.targets[2].probabilityMet)]);
+    expect(rows).toContainEqual(['minimum remaining uniform elongation', '2.00', pct(s.targets[2].probabilityMet)]);
     expect(doc.querySelector('pre')).toBeNull();
   });
   it('the JUnit report carries the probability and the lower bound as suite properties (read back by an XML parser)', async () => {

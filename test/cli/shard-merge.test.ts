@@ -120,7 +120,7 @@ describe('run PLANS --shard K/N, then merge', () => {
     expect(m.out).toBe('[]\n');
   });
 
-  it('per-plan JUnit files written with --out by two shards merge into the whole run\'s JUnit (valid plans: an invalid plan writes no file)', () => {
+  it('per-plan JUnit files written with --out by two shards merge into the whole run\'s JUnit (valid plans)', () => {
     const dir = join(TMP, 'per-plan');
     const valid = `${PLANS.replace(/\\/g, '/')}/{a*,b/*,d5,z7}.json`;
     for (const k of [1, 2]) expect([0, 1]).toContain(cli('run', valid, '--shard', `${k}/2`, '--format', 'junit', '--out', dir).code);
@@ -128,6 +128,35 @@ describe('run PLANS --shard K/N, then merge', () => {
     expect(m.code).toBe(1); // d5 misses its target
     expect(m.out).toBe(cli('run', valid, '--format', 'junit').out);
     expect(m.err).toMatch(/^merged 6 plans from 6 files/);
+  });
+
+  it('per-plan files of an invalid plan (JSON and JUnit) are written with --out, so merge keeps the plan and exit 2', () => {
+    for (const [format, ext] of [['json', 'json'], ['junit', 'junit.xml']] as const) {
+      const dir = join(TMP, `per-plan-all-${format}`);
+      const codes = [1, 2].map((k) => cli('run', glob(), '--shard', `${k}/2`, '--format', format, '--out', dir));
+      // Shard 2 of 2 holds b/c4, d5, e6 and z7 (sorted, ⌊7/2⌋ = 3 plans in shard 1): e6 is the invalid one.
+      expect([0, 1]).toContain(codes[0]!.code);
+      expect(codes[1]!.code).toBe(2);
+      expect(codes[1]!.out).toMatch(/wrote 4 \S+ reports/);
+      expect(readFileSync(join(dir, `e6.${ext}`), 'utf8')).toMatch(format === 'json' ? /"invalid": \[/ : /<error message="invalid input" type="invalid">/);
+      const m = cli('merge', `${dir.replace(/\\/g, '/')}/*.${ext}`);
+      expect(m.code, format).toBe(2);
+      expect(m.out, format).toBe(format === 'json' ? wholeJson : wholeJunit);
+      expect(m.err).toMatch(/^merged 7 plans from 7 files: \d met, \d not met, 1 invalid; exit 2$/m);
+    }
+  });
+
+  it('an internal error in a JUnit file keeps exit 3 through merge (as it does in a JSON file)', async () => {
+    const { junitReport } = await import('../../src/report/junit.js');
+    const f = join(TMP, 'internal.junit.xml');
+    writeFileSync(f, junitReport([{ name: 'plans/broken.json', internal: 'RangeError: something the runner did not expect' }]));
+    const m = cli('merge', f);
+    expect(m.code).toBe(3);
+    expect(m.err).toBe('merged 1 plan from 1 file: 0 met, 0 not met, 0 invalid, 1 internal errors; exit 3\n');
+    expect(m.out).toContain('<error message="internal error" type="internal">RangeError: something the runner did not expect</error>');
+    const j = join(TMP, 'internal.json');
+    writeFileSync(j, JSON.stringify([{ file: 'plans/broken.json', invalid: 'RangeError: something the runner did not expect' }]));
+    expect(cli('merge', j).code).toBe(3);
   });
 
   it('merge --out writes the merged file atomically and never over an input', () => {

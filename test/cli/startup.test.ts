@@ -37,3 +37,24 @@ describe('what a run loads', () => {
     expect(bad.packages.has('zod')).toBe(true);
   });
 });
+
+describe('what `help` loads', () => {
+  /** The runner files a command line read (through the same module hook). */
+  const filesRead = (...args: string[]) => {
+    const r = spawnSync(process.execPath, ['--import', HOOK, join(ROOT, 'bin/strainledger.js'), ...args], { cwd: ROOT, encoding: 'utf8', env: { ...process.env, CI: 'true' } });
+    expect(r.status).toBe(0);
+    return [...r.stderr.matchAll(/^LOADED file:\/\/(.*)$/gm)].map((m) => decodeURIComponent(m[1]!)).filter((f) => f.includes('/dist/runner/')).sort();
+  };
+  it('the overview loads no command module: the same files as --version', () => {
+    const base = filesRead('--version');
+    expect(filesRead('help')).toEqual(base);
+    expect(filesRead('--help')).toEqual(base);
+  });
+  it('help COMMAND loads that command only (fewer files than loading every command)', () => {
+    const base = filesRead('--version');
+    const one = filesRead('help', 'tolerance-factor');
+    expect(one.length).toBeGreaterThan(base.length);
+    expect(filesRead('help', 'analyze').length).toBeGreaterThan(base.length);
+    expect(one).not.toEqual(filesRead('help', 'analyze'));
+  });
+});

@@ -47,7 +47,7 @@ describe('a missed temper target', () => {
     expect(r.status).toBe(1);
     const doc = new DOMParser().parseFromString(r.stdout, 'text/xml');
     const cases = [...doc.querySelectorAll('testcase')];
-    const temper = cases.find((c) => c.getAttribute('name') === 'temper')!;
+    const temper = cases.find((c) => c.getAttribute('name') === 'temper H04 (hard)')!;
     const failure = temper.querySelector('failure')!;
     expect(failure).not.toBeNull();
     expect(failure.getAttribute('message')).toMatch(/H04 wanted, H02 reached/);
@@ -86,7 +86,7 @@ describe('CSV and Markdown carry the temper', () => {
     const md = run('run', PLAN, '--format', 'md').stdout;
     expect(md).toMatch(/\| temper \|/);
     expect(md).toMatch(/H02 \(13 % of the way to H03\)/);
-    expect(md).toMatch(/temper — H02 wanted, H02 reached/);
+    expect(md).toMatch(/temper H02 \(half hard\) — H02 wanted, H02 reached; H02 runs from 20\.7 to 29\.4 % thickness reduction; margin to its lower boundary/);
   });
 });
 

@@ -41,8 +41,11 @@ let entries: string[] = [];
 let installLog: SpawnSyncReturns<string> | undefined;
 
 beforeAll(() => {
-  // Pack the tree as it stands (`prepack` would build it; the global setup already did).
-  const packed = JSON.parse(npm(['pack', '--ignore-scripts', '--json', '--pack-destination', TMP], ROOT).stdout) as { filename: string }[];
+  // Pack the tree as it stands, through the package's own prepack/postpack (they keep `prepare` out of
+  // the tarball's package.json); STRAINLEDGER_PACK_PREBUILT keeps the dist/ the global setup built.
+  const packRun = sh('npm', ['pack', '--json', '--pack-destination', TMP], ROOT, userEnv({ STRAINLEDGER_PACK_PREBUILT: '1' }));
+  if (packRun.status !== 0) throw new Error(`npm pack failed (${packRun.status}):\n${packRun.stderr}`);
+  const packed = JSON.parse(packRun.stdout.slice(packRun.stdout.indexOf('['))) as { filename: string }[];
   tarball = join(TMP, packed[0]!.filename);
   entries = execFileSync('tar', ['-tzf', tarball], { encoding: 'utf8' }).split('\n').filter(Boolean);
 
@@ -243,4 +246,37 @@ describe('npm i -g of the tarball (into a temporary prefix)', () => {
     expect(r.status, r.stderr).toBe(0);
     expect(JSON.parse(r.stdout).allTargetsMet).toBe(true);
   });
+});
+
+describe('npm install from git (a local bare clone of this repository\'s HEAD)', () => {
+  // A git dependency has no dist/ (it is git-ignored): npm builds it in its clone only when the package
+  // has a `prepare` script (npm then installs the devDependencies there and runs it). The tarball must
+  // not carry `prepare` (npm 11 warns about it in the user's project), so `prepack` strips it from the
+  // packed package.json and `postpack` restores it (scripts/pack-manifest.mjs).
+  it('the repository has `prepare` (git) and the tarball has not (registry)', () => {
+    const repo = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as { scripts: Record<string, string> };
+    expect(repo.scripts.prepare).toBe('npm run build');
+    const packed = JSON.parse(execFileSync('tar', ['-xzOf', tarball, 'package/package.json'], { encoding: 'utf8' })) as { scripts?: Record<string, string> };
+    expect(packed.scripts?.prepare).toBeUndefined();
+  });
+  it('installs, builds dist/ in npm\'s clone, and the runner and the library work', () => {
+    const bare = join(TMP, 'strainledger.git');
+    execFileSync('git', ['clone', '--quiet', '--bare', ROOT, bare]);
+    const app = join(TMP, 'from-git');
+    mkdirSync(app);
+    writeFileSync(join(app, 'package.json'), JSON.stringify({ name: 'from-git', version: '1.0.0', private: true, type: 'module' }, null, 2));
+    const r = sh('npm', ['install', '--prefer-offline', '--no-audit', '--no-fund', `git+file://${bare}`], app);
+    expect(r.status, r.stderr).toBe(0);
+    const pkgDir = join(app, 'node_modules', 'strainledger');
+    for (const f of ['dist/runner/main.js', 'dist/core/index.js', 'dist/core/index.d.ts', 'bin/strainledger.js']) expect(existsSync(join(pkgDir, f)), f).toBe(true);
+    const v = sh('npx', ['--no-install', 'strainledger', '--version'], app);
+    expect(v.stdout).toBe(`strainledger ${PKG.version}\n`);
+    cpSync(join(ROOT, 'examples', 'contact-spring-strip.json'), join(app, 'plan.json'));
+    const run = sh('npx', ['--no-install', 'strainledger', 'run', 'plan.json', '--format', 'json'], app);
+    expect(run.status, run.stderr).toBe(0);
+    const mine = JSON.parse(spawnSync(process.execPath, [join(ROOT, 'bin', 'strainledger.js'), 'run', 'examples/contact-spring-strip.json', '--format', 'json'], { cwd: ROOT, encoding: 'utf8' }).stdout);
+    expect(JSON.parse(run.stdout).steps.map((s: { reloadYield: number }) => s.reloadYield)).toEqual(mine.steps.map((s: { reloadYield: number }) => s.reloadYield));
+    const lib = sh(process.execPath, ['--input-type=module', '-e', "import { hollomon } from 'strainledger'; console.log(hollomon({ K: 530, n: 0.44 }).stress(0.2).toFixed(3));"], app);
+    expect(lib.stdout.trim(), lib.stderr).toBe((530 * 0.2 ** 0.44).toFixed(3)); // σ = Kε^n (Hollomon 1945)
+  }, 300_000);
 });

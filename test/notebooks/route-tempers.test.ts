@@ -36,7 +36,7 @@ describe('route planner: tempers', () => {
     // The runner's JSON through the report's own wording: designation and whole per cent toward the next temper.
     expect(shown).toEqual(report.steps.map((s: any) => (s.temper ? `${s.temper.designation} (${Math.floor(s.temper.towardNext * 100)} % of the way to ${s.temper.next})` : '—')));
     expect(shown.at(-1)).toMatch(/^H02 /);
-    expect(await page.locator('[data-target="temper"]').innerText()).toMatch(/met — temper H02 \(reached: H02\)/);
+    expect(await page.locator('[data-target="temper"]').innerText()).toMatch(/^met — temper H02 \(half hard\): .*; H02 wanted, H02 reached; H02 runs from 20\.7 to 29\.4 % thickness reduction; margin to its lower boundary/);
     expect((await column(page, 'warnings'))[1]).toMatch(/grain growth/);
     expect(await page.locator('#temper-caution').innerText()).toMatch(/Tempers are named from the predicted state/);
     await page.screenshot({ path: join(SCREENSHOTS, 'route-tempers.png'), fullPage: true });
@@ -44,7 +44,7 @@ describe('route planner: tempers', () => {
     // Ask for H04: the page and the runner both say it is missed.
     await page.fill('#target-temper', 'H04');
     await settled(page, 'route');
-    expect(await page.locator('[data-target="temper"]').innerText()).toMatch(/NOT met — temper H04 \(reached: H02\)/);
+    expect(await page.locator('[data-target="temper"]').innerText()).toMatch(/^NOT met — temper H04 \(hard\): .*; H04 wanted, H02 reached; H04 runs from 37\.1 /);
     const missed = await exportAndRun(page, 'temper-h04.json');
     expect(missed.status).toBe(1);
     expect(missed.report.targets.find((t: any) => t.name === 'temper').met).toBe(false);

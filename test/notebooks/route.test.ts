@@ -59,7 +59,7 @@ describe('route planner', () => {
     expect(await page.locator('#ledger-table thead').innerText()).toContain('HV (Tabor estimate)');
     const report = await exportAndRun(page, 'hardness.json');
     await expectParity(page, report, await ledgerCells(page));
-    expect(await page.locator('[data-target="minHardnessHV"]').innerText()).toMatch(/minimum Vickers hardness: predicted [\d.]+ HV, limit 140\.0 HV/);
+    expect(await page.locator('[data-target="minHardnessHV"]').innerText()).toMatch(/minimum hardness \(HV\): predicted [\d.]+ HV, limit 140\.0 HV/);
     // The chart draws the 140–170 HV band (a filled rect) and labels it with both ends.
     const chart = page.locator('#cell-hardness-chart');
     expect(await chart.locator('svg rect').count()).toBeGreaterThan(0);

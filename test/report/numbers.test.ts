@@ -69,8 +69,8 @@ describe('targets speak their own unit', () => {
       { name: 'maxSpringbackDeg', limit: 6, predicted: 1.93, margin: 4.07, met: true },
       { name: 'maxYield', limit: 470, predicted: 443.3, margin: 26.7, met: true },
     ] } } as unknown as Outcome;
-    expect(tightest(o)).toBe('26.7 MPa (maxYield)');
+    expect(tightest(o)).toBe('26.7 MPa, maximum reload yield (Rp0.2)');
     const only = { report: { units: { stress: 'MPa' }, targets: [{ name: 'maxSpringbackDeg', limit: 6, predicted: 1.93, margin: 4.07, met: true }] } } as unknown as Outcome;
-    expect(tightest(only)).toBe('4.07° (maxSpringbackDeg)');
+    expect(tightest(only)).toBe('4.07°, maximum springback');
   });
 });

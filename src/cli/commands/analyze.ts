@@ -248,6 +248,7 @@ export const analyze = defineCommand({
       }
     }
     if (values['material-out'] !== undefined) {
+      (await import('../out.js')).refuseInputAsOutput('--material-out', values['material-out'], positionals.map((f) => ({ file: f, what: 'record' })));
       const { writeFileAtomic } = await import('../io.js');
       writeFileAtomic(values['material-out'], JSON.stringify(block, null, 2) + '\n');
     }

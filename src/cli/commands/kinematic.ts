@@ -29,7 +29,8 @@ export const kinematic = defineCommand({
     backstresses: { type: 'string', default: '1', value: '1|2|3', help: 'number of Armstrong–Frederick backstresses to fit' },
     values: { type: 'string', default: 'engineering', value: 'engineering|true', help: 'how the record gives stress and strain (engineering values are converted at constant volume)' },
     format: { type: 'string', default: 'table', value: 'FORMAT', help: 'output, one of table, json' },
-    'material-out': { type: 'string', value: 'FILE', help: 'write the material with its fitted kinematic block to FILE (atomically)' },
+    'material-out': { type: 'string', value: 'FILE', help: 'write the material with its fitted kinematic block to FILE (atomically); never the record or a plan read, nor the material file unless --replace-input' },
+    'replace-input': { type: 'boolean', default: false, help: 'let --material-out replace the material file it read (a material file only: a plan would lose its route)' },
   },
   async run({ values, positionals }, io) {
     if (positionals.length !== 2) throw new PlanError([{ file: CLI, path: 'PLAN_OR_MATERIAL RECORD', message: `got ${positionals.length} files, allowed exactly two: the material (or a plan) and the record` }]);
@@ -41,6 +42,14 @@ export const kinematic = defineCommand({
     if (format !== 'table' && format !== 'json') throw new PlanError([{ file: CLI, path: '--format', message: `got ${JSON.stringify(format)}, allowed one of table, json` }]);
     const [materialFile, recordFile] = positionals as [string, string];
     const plan = loadPlanOrMaterial(readText(materialFile), materialFile);
+    const isPlan = plan.doc.name !== `material from ${materialFile}`; // loadPlanOrMaterial names a bare material so
+    if (values['material-out'] !== undefined) {
+      const { refuseInputAsOutput } = await import('../out.js');
+      refuseInputAsOutput('--material-out', values['material-out'], [
+        { file: materialFile, what: isPlan ? 'plan (its route and targets would be lost)' : 'material file', replaceable: !isPlan },
+        { file: recordFile, what: 'record' },
+      ], { name: '--replace-input', allowed: values['replace-input']! });
+    }
     const u = plan.units;
     const rec = await readRecordFile(recordFile, { stressUnit: u.stress });
     if (kind === 'engineering') {

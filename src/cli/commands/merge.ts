@@ -70,6 +70,8 @@ async function jsonEntries(file: string, text: string): Promise<Entry[]> {
   });
 }
 
+/** The error case `report/junit.ts` writes for an internal error (exit 3). */
+const INTERNAL_ERROR = /^ {6}<error message="internal error" type="internal">/m;
 const XML_HEAD = /^<\?xml version="1\.0" encoding="UTF-8"\?>\n<testsuites name="strainledger" tests="(\d+)" failures="(\d+)" errors="(\d+)">\n/;
 const SUITE_OPEN = /^ {2}<testsuite name="([^"]*)" tests="(\d+)" failures="(\d+)" errors="(\d+)" skipped="0">$/;
 const FILE_PROPERTY = /^ {6}<property name="plan\.file" value="([^"]*)"\/>$/m;
@@ -101,7 +103,9 @@ function junitEntries(file: string, text: string): Entry[] {
     const prop = FILE_PROPERTY.exec(xml);
     // A valid plan's suite names its file in a property; an invalid plan's suite is named by its file.
     const key = unescapeXml(prop ? prop[1]! : open[1]!);
-    out.push({ key, exit: errors > 0 ? 2 : failures > 0 ? 1 : 0, from: file, xml, tests, failures, errors });
+    // An internal error (run's exit 3) is written as an <error type="internal">; any other error is invalid input (exit 2).
+    const exit = INTERNAL_ERROR.test(xml) ? 3 : errors > 0 ? 2 : failures > 0 ? 1 : 0;
+    out.push({ key, exit, from: file, xml, tests, failures, errors });
   }
   if (lines[i] !== '</testsuites>' || lines.slice(i + 1).join('') !== '') {
     throw fileError(file, 'does not end with </testsuites> and a line break; allowed a complete JUnit file');

@@ -139,7 +139,7 @@ export const run = defineCommand({
     } else if (format === 'junit') {
       const { junitReport } = await import('../../report/junit.js');
       const { formatProblem } = await import('../../plan/problems.js');
-      io.stdout(junitReport(outcomes.map((o) => (o.report ? { name: o.report.plan.name, report: o.report } : { name: o.file, invalid: o.problems?.map(formatProblem).join('\n') ?? o.internal ?? 'invalid' }))));
+      io.stdout(junitReport(outcomes.map((o) => (o.report ? { name: o.report.plan.name, report: o.report } : o.problems ? { name: o.file, invalid: o.problems.map(formatProblem).join('\n') } : { name: o.file, internal: o.internal ?? 'internal error' }))));
     } else io.stdout(summary.summaryTable(outcomes, color));
     return summary.worstExit(outcomes);
   },

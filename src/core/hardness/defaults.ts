@@ -42,3 +42,13 @@ export const HARDNESS_RANGES = Object.freeze({
   /** εr: 0 to 0.3 (Tabor's 0.08 for a Vickers pyramid; sharper indenters give more). */
   representativeStrain: [0, 0.3] as const,
 });
+
+/**
+ * Relative error of a Vickers hardness estimated from the flow curve by Tabor's relation: ±10–15 %
+ * against a measured value (common practice, from memory; not looked up in a printed source). The
+ * upper end, 0.15, is used so that more close calls are flagged: a met hardness target whose margin is
+ * smaller than 0.15 × the predicted HV gets a caution (`checkTargets`), never a clean pass.
+ * Dimensionless.
+ * @example HARDNESS_MODEL_REL_ERROR * 200 // 30 HV of doubt on a predicted 200 HV
+ */
+export const HARDNESS_MODEL_REL_ERROR = 0.15;

@@ -9,6 +9,7 @@ import { temperBasisValue, temperOf, temperStrainBand } from '../temper/scale.js
 import { materialTemperScale } from '../temper/materialScale.js';
 import { backstressAfter, isotropicPart } from '../path/hardening.js';
 import type { Ledger, LedgerRow, RouteInput, Size, StockKind, Warning } from './types.js';
+import { targetLabel } from './targetLabels.js';
 import { coldWorkWindow } from './window.js';
 
 /** Options of {@link evaluateRoute}. */
@@ -201,7 +202,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   let window = coldWorkWindow(law, epsAfterAnneal, targets, basis, material.hardness, band);
   if (targets.maxSpringbackDeg !== undefined) {
     results.push(checkSpringbackTarget(rows, targets.maxSpringbackDeg));
-    window = { ...window, note: `${window.note}; maxSpringbackDeg is checked on the route's bend steps but sets no bound here (springback is not monotone in cold work)` };
+    window = { ...window, note: `${window.note}; the ${targetLabel('maxSpringbackDeg')} target is checked on the route's bend steps but sets no bound here (springback is not monotone in cold work)` };
   }
   return {
     stock,

@@ -1,7 +1,8 @@
 import { checkRange, InputError } from '../errors.js';
 import { TEMPER_BOUNDARY_TOL, temperBandIndex, temperOf } from '../temper/scale.js';
 import type { TemperScale } from '../temper/types.js';
-import type { LedgerRow, StateProperties, StateTargetName, TargetResult, Targets } from './types.js';
+import { HARDNESS_MODEL_REL_ERROR } from '../hardness/defaults.js';
+import type { LedgerRow, StateProperties, StateTargetName, TargetCaution, TargetResult, Targets } from './types.js';
 
 /** Each target: the state property it limits and whether it is a lower (min) or upper (max) limit. */
 export const TARGET_DEFS: Readonly<Record<StateTargetName, { property: keyof StateProperties; sense: 'min' | 'max'; unit: 'stress' | 'percent' | 'hardness' }>> = {
@@ -56,9 +57,25 @@ export function checkTargets(state: StateProperties, targets: Targets): TargetRe
     const def = TARGET_DEFS[name];
     const predicted = state[def.property];
     const margin = def.sense === 'min' ? predicted - limit : limit - predicted;
-    out.push({ name, limit, predicted, margin, met: margin >= 0 });
+    const caution = def.unit === 'hardness' ? hardnessCaution(predicted, margin) : undefined;
+    out.push({ name, limit, predicted, margin, met: margin >= 0, ...(caution ? { caution } : {}) });
   }
   return out;
+}
+
+/**
+ * The caution on a met hardness target whose margin is smaller than the Tabor estimate's own error,
+ * |HV_pred| × {@link HARDNESS_MODEL_REL_ERROR} (±15 %, common practice, from memory); undefined when the
+ * margin is larger or the target is missed (a missed target is already reported as such). Units: HV.
+ * @example hardnessCaution(200, 10)?.code // 'withinModelError' (10 HV < 30 HV)
+ */
+export function hardnessCaution(predicted: number, margin: number): TargetCaution | undefined {
+  const err = Math.abs(predicted) * HARDNESS_MODEL_REL_ERROR;
+  if (margin < 0 || margin >= err) return undefined;
+  return {
+    code: 'withinModelError',
+    message: `margin ${margin.toFixed(1)} HV is smaller than the hardness estimate's own error (±${(HARDNESS_MODEL_REL_ERROR * 100).toFixed(0)} % ≈ ${err.toFixed(1)} HV, Tabor's relation): the part may miss this target; confirm by measured hardness`,
+  };
 }
 
 /**
@@ -92,9 +109,10 @@ export function checkTemperTarget(scale: TemperScale, x: number, wanted: string,
   const hi = scale.bands[k + 1]?.from;
   const got = temperOf(scale, x)?.designation ?? null;
   const met = got === wanted;
+  const marginTo: 'lower' | 'upper' = hi !== undefined && hi - x < x - lo ? 'upper' : 'lower';
   let margin = hi === undefined ? x - lo : Math.min(x - lo, hi - x);
   // Inside the temper within the boundary tolerance: a margin of round-off size reads as 0, never negative.
   if (met && margin < 0) margin = 0;
   else if (!met && margin >= 0) margin = -Math.max(Math.abs(margin), TEMPER_BOUNDARY_TOL * Math.max(1, Math.abs(lo)));
-  return { name: 'temper', limit: lo, predicted: x, margin, met, temper: { wanted, got, basis: scale.basis } };
+  return { name: 'temper', limit: lo, predicted: x, margin, met, temper: { wanted, wantedName: scale.bands[k]!.name, got, basis: scale.basis, from: lo, to: hi ?? null, marginTo } };
 }

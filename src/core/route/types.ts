@@ -94,7 +94,26 @@ export interface TargetResult {
    * `limit` is then the temper's lower boundary, `predicted` the state's value and `margin` the
    * distance to the nearer boundary of the temper, all in the system's basis (% reduction or stress).
    */
-  temper?: { wanted: string; got: string | null; basis: 'thicknessReductionPct' | 'tensileStrength' | 'hardnessHV' };
+  temper?: {
+    wanted: string; got: string | null; basis: 'thicknessReductionPct' | 'tensileStrength' | 'hardnessHV';
+    /** The wanted temper's name in its system (e.g. "half hard"). */
+    wantedName: string;
+    /** The wanted temper's lower boundary (inclusive; equals `limit`) and upper boundary (the next temper's, exclusive; null at the top of the scale), in the basis. */
+    from: number; to: number | null;
+    /** Which boundary `margin` is measured to: the nearer one ('lower' at the top of the scale). */
+    marginTo: 'lower' | 'upper';
+  };
+  /**
+   * A caution on a met target whose margin is smaller than the model's own error (hardness by Tabor's
+   * relation, {@link HARDNESS_MODEL_REL_ERROR}): the part may well miss it. Absent otherwise.
+   */
+  caution?: TargetCaution;
+}
+
+/** A caution attached to one checked target. */
+export interface TargetCaution {
+  code: 'withinModelError';
+  message: string;
 }
 
 export interface Warning {

@@ -7,6 +7,7 @@ import { strainForReloadYield } from './reloadYield.js';
 import { strainForTensile } from './strainForTensile.js';
 import { reductionPctFromStrain, type ReductionBasis } from './steps.js';
 import type { ColdWorkWindow, TargetName, Targets } from './types.js';
+import { targetLabel } from './targetLabels.js';
 
 /**
  * Cold-work window: the range of equivalent strain s added since the last anneal (on top of the
@@ -46,7 +47,7 @@ export function coldWorkWindow(
   };
   if (targets.minYield !== undefined) {
     const e = strainForReloadYield(law, targets.minYield);
-    if (e === null) unreachable.push(`minYield ${targets.minYield} is above the law's saturation stress (as a reload yield)`);
+    if (e === null) unreachable.push(`the ${targetLabel('minYield')} target is above the law's saturation stress (as a reload yield)`);
     else raise(e, 'minYield');
   }
   if (targets.maxYield !== undefined) {
@@ -56,14 +57,14 @@ export function coldWorkWindow(
   if (targets.minTensile !== undefined) {
     const T = targets.minTensile;
     const e = strainForTensile(law, T);
-    if (e === null) unreachable.push(`minTensile ${T} is above the law's saturation stress`);
+    if (e === null) unreachable.push(`the ${targetLabel('minTensile')} target is above the law's saturation stress`);
     else raise(e, 'minTensile');
   }
   if (targets.minRemainingElongationPct !== undefined) {
     lower(eu - Math.log1p(targets.minRemainingElongationPct / 100), 'minRemainingElongationPct');
   }
   if (targets.temper !== undefined && temper !== undefined) {
-    if (temper === null) unreachable.push(`temper ${targets.temper} is above the law's saturation stress`);
+    if (temper === null) unreachable.push(`${targetLabel('temper', targets.temper)} is above the law's saturation stress`);
     else {
       raise(temper.from, 'temper');
       if (temper.to !== null) lower(temper.to, 'temper');
@@ -71,20 +72,21 @@ export function coldWorkWindow(
   }
   if (targets.minHardnessHV !== undefined) {
     const e = strainForHardness(law, targets.minHardnessHV, hardness);
-    if (e === null) unreachable.push(`minHardnessHV ${targets.minHardnessHV} is above the hardness of the law's saturation stress`);
+    if (e === null) unreachable.push(`the ${targetLabel('minHardnessHV')} target ${targets.minHardnessHV} HV is above the hardness of the law's saturation stress`);
     else raise(e, 'minHardnessHV');
   }
   if (targets.maxHardnessHV !== undefined) {
     const e = strainForHardness(law, targets.maxHardnessHV, hardness);
     if (e !== null) lower(e, 'maxHardnessHV');
   }
+  const label = (n: TargetName | null) => (n === null ? 'unknown' : targetLabel(n, targets.temper));
   const emptyWindow = (note: string): ColdWorkWindow => ({
     empty: true, strainFrom: null, strainTo: null, reductionBasis: basis, reductionPctFrom: null, reductionPctTo: null,
     limitedBy: { from: loBy, to: hiBy }, note,
   });
   if (unreachable.length > 0) return emptyWindow(`no cold work reaches the targets: ${unreachable.join('; ')}`);
-  if (hi < 0) return emptyWindow(`${hiBy} is already exceeded before any cold work since the last anneal`);
-  if (lo > hi) return emptyWindow(`${loBy} needs at least ${fmt(lo)} strain but ${hiBy} allows at most ${fmt(hi)}`);
+  if (hi < 0) return emptyWindow(`the ${label(hiBy)} target is already exceeded before any cold work since the last anneal`);
+  if (lo > hi) return emptyWindow(`the ${label(loBy)} target needs at least ${fmt(lo)} strain but the ${label(hiBy)} target allows at most ${fmt(hi)}`);
   const to = Number.isFinite(hi) ? hi : null;
   const pctOf = (s: number | null) => (s === null || basis === null ? null : reductionPctFromStrain(basis, s));
   return {
@@ -95,7 +97,7 @@ export function coldWorkWindow(
     reductionPctFrom: pctOf(lo),
     reductionPctTo: pctOf(to),
     limitedBy: { from: loBy, to: hiBy },
-    note: `strain since the last anneal from ${fmt(lo)}${loBy ? ` (${loBy})` : ''} to ${to === null ? 'no upper limit' : fmt(to) + ` (${hiBy})`}`,
+    note: `strain since the last anneal from ${fmt(lo)}${loBy ? ` (set by the ${label(loBy)} target)` : ''} to ${to === null ? 'no upper limit' : fmt(to) + ` (set by the ${label(hiBy)} target)`}`,
   };
 }
 

@@ -202,7 +202,7 @@ describe('hardness targets and the cold-work window', () => {
   it('a hardness above the saturation of a Voce law is unreachable; contradictory limits are refused', () => {
     const w = coldWorkWindow(voce({ sigma0: 100, Q: 100, b: 10 }), 0, { minHardnessHV: 80 }, null);
     expect(w.empty).toBe(true);
-    expect(w.note).toMatch(/minHardnessHV 80/);
+    expect(w.note).toMatch(/the minimum hardness \(HV\) target 80 HV is above/);
     expect(() => evaluateRoute({ material: copper(), start: {}, steps: [], targets: { minHardnessHV: 120, maxHardnessHV: 100 } })).toThrow(/targets\.maxHardnessHV/);
   });
   it('margins are in HV: predicted − limit for the minimum, limit − predicted for the maximum', () => {

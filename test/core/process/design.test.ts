@@ -58,7 +58,7 @@ describe('designRoute(spec): infeasible specifications name the binding limit', 
   it('a window no temper reaches (minYield above maxYield\'s strain via the elongation target)', () => {
     const r = designRoute({ ...wire, window: { minYield: 560, minRemainingElongationPct: 15 } });
     expect(r.binding!.limit).toMatch(/window/);
-    expect(r.binding!.explanation).toMatch(/minYield needs at least/);
+    expect(r.binding!.explanation).toMatch(/the minimum reload yield \(Rp0\.2\) target needs at least/);
   });
   it('a force capacity below even the smallest pass', () => {
     const r = designRoute({ ...wire, forceCapacity: 50 });

@@ -121,7 +121,7 @@ describe('targets and the cold-work window', () => {
   it('the window is empty, with the reason, when the targets cannot hold together', () => {
     const l = evaluateRoute({ material: copper, start: {}, steps: [{ kind: 'strain', strain: 0.1 }], targets: { minYield: 450, minRemainingElongationPct: 20 } });
     expect(l.coldWorkWindow.empty).toBe(true);
-    expect(l.coldWorkWindow.note).toMatch(/minYield needs at least .* but minRemainingElongationPct allows at most/);
+    expect(l.coldWorkWindow.note).toMatch(/the minimum reload yield \(Rp0\.2\) target needs at least .* but the minimum remaining uniform elongation target allows at most/);
   });
   it('a minYield above a Voce saturation stress gives an empty window, not an error', () => {
     const m: Material = { ...copper, law: voce({ sigma0: 200, Q: 100, b: 5 }) };
