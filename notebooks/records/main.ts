@@ -5,7 +5,7 @@ import {
   Notebook, expose, h, fixed, formatLawParam, DIGITS, fileDrop, errorBox, byId, autosave, choice, restore,
   widthStream,
 } from '../../src/cells/index.js';
-import { InputError, LAW_PARAMETERS } from '../../src/core/index.js';
+import { InputError, LAW_PARAMETERS, LAW_TITLES } from '../../src/core/index.js';
 import type { LawName, TensileAnalysis } from '../../src/core/index.js';
 import { PlanError } from '../../src/plan/problems.js';
 import { detectLayout, STRESS_UNITS, FORCE_UNITS, LENGTH_UNITS } from '../../src/records/index.js';
@@ -227,18 +227,19 @@ nb.cell({ name: 'input', fn: () => null })
       const param = (f: (typeof c.fits)[number], p: string) => {
         const iv = f.intervals95[p];
         const v = f.params[p]!;
-        return `${p} ${formatLawParam(LAW_PARAMETERS[f.law].find((x) => x.name === p)!, v)}${iv ? ` (95 %: ${sig4(iv[0])} to ${sig4(iv[1])})` : ' (interval not identifiable)'}`;
+        const info = LAW_PARAMETERS[f.law].find((x) => x.name === p)!;
+        return `${info.symbol} ${formatLawParam(info, v)}${iv ? ` (95 %: ${sig4(iv[0])} to ${sig4(iv[1])})` : ' (interval not identifiable)'}`;
       };
       const basis = c.fits.find((f) => f.law === c.best)?.basis ?? c.fits[0]?.basis;
       const n = c.fits[0]?.points ?? 0;
       const how = h('p', { id: 'fit-basis' },
         basis && basis.blockSize > 1 ? `Fitted on ${basis.fittedPoints} averages of ${basis.blockSize} consecutive points (the flow curve has ${n}); RMSE, R² and AIC are those of the full curve. ` : `Fitted on all ${n} points of the flow curve. `,
         `95 % intervals allow for residuals that are not independent: each standard error is widened by √(n/n_eff), with n_eff = n(1 − ρ)/(1 + ρ) from the residuals' lag-1 autocorrelation ρ`,
-        basis ? ` (${c.best ?? c.fits[0]!.law}: ρ ${fixed(basis.lag1Autocorrelation, 3)}, n_eff ${fixed(basis.effectivePoints, 0)}, ×${fixed(basis.inflation, 1)}).` : '.');
+        basis ? ` (${LAW_TITLES[c.best ?? c.fits[0]!.law]}: ρ ${fixed(basis.lag1Autocorrelation, 3)}, n_eff ${fixed(basis.effectivePoints, 0)}, ×${fixed(basis.inflation, 1)}).` : '.');
       const table = h('table', { class: 'sl-table', id: 'fits-table' },
         h('thead', {}, h('tr', {}, ...['law', 'parameters (MPa for stresses)', 'RMSE MPa', 'R²', 'AIC', 'state'].map((x) => h('th', { scope: 'col' }, x)))),
         h('tbody', {}, ...c.fits.map((f) => h('tr', { 'data-law': f.law },
-          h('td', { class: 'text' }, f.law + (c.best === f.law ? ' (best AIC)' : '')),
+          h('td', { class: 'text' }, LAW_TITLES[f.law] + (c.best === f.law ? ' (best AIC)' : '')),
           h('td', { class: 'text' }, LAW_PARAMETERS[f.law].map((p) => param(f, p.name)).join('; ')),
           h('td', {}, fixed(f.rmse, 2)), h('td', {}, fixed(f.r2, 5)), h('td', {}, fixed(f.aic, 1)),
           h('td', { class: 'text' }, !f.converged ? 'did not converge' : c.goodLaws.includes(f.law) ? 'fits well' : 'fits worse')))));
@@ -252,7 +253,7 @@ nb.cell({ name: 'input', fn: () => null })
       const laws = a.fits.fits.filter((f) => f.converged).map((f) => f.law);
       return h('div', {},
         h('table', { class: 'sl-table', id: 'spread-table' },
-          h('thead', {}, h('tr', {}, h('th', { scope: 'col' }, 'true plastic strain'), ...laws.map((l) => h('th', { scope: 'col' }, `${l} MPa`)), h('th', { scope: 'col' }, 'spread of the laws that fit well %'), h('th', { scope: 'col' }, 'spread of all converged laws %'))),
+          h('thead', {}, h('tr', {}, h('th', { scope: 'col' }, 'true plastic strain'), ...laws.map((l) => h('th', { scope: 'col' }, `${LAW_TITLES[l]} MPa`)), h('th', { scope: 'col' }, 'spread of the laws that fit well %'), h('th', { scope: 'col' }, 'spread of all converged laws %'))),
           h('tbody', {}, ...a.fits.extrapolation.map((x) => h('tr', {},
             h('td', { class: 'text' }, `${fixed(x.strain, 3)} (${x.note})`), ...laws.map((l) => h('td', {}, fixed(x.stress[l] ?? null, DIGITS.stress))), h('td', {}, fixed(x.spreadPct, 1)), h('td', {}, spreadAll(laws.map((l) => x.stress[l]))))))),
         h('p', {}, `Fitted on true plastic strain ${fixed(a.flowCurve.strain[0] ?? null, 4)} to ${fixed(a.flowCurve.strain[a.flowCurve.strain.length - 1] ?? null, 4)}. Beyond that every law is an extrapolation: test the formed material.`));
@@ -263,7 +264,7 @@ nb.cell({ name: 'input', fn: () => null })
     fn: (a: TensileAnalysis, r: TensileRecord) => {
       const fits = a.fits?.fits.filter((f) => f.converged) ?? [];
       if (!fits.length) return h('p', {}, 'No converged fit to send.');
-      const pick = choice<LawName>({ label: 'Law', id: 'save-law', options: fits.map((f) => ({ value: f.law, text: f.law })), value: a.fits!.best ?? fits[0]!.law });
+      const pick = choice<LawName>({ label: 'Law', id: 'save-law', options: fits.map((f) => ({ value: f.law, text: LAW_TITLES[f.law] })), value: a.fits!.best ?? fits[0]!.law });
       const out = h('p', { id: 'save-state', role: 'status' });
       const prev = restore(BENCH_MATERIAL_KEY, (x) => x as { name: string });
       if (prev.value) out.textContent = `The other notebooks currently have "${prev.value.name}".`;
@@ -271,11 +272,11 @@ nb.cell({ name: 'input', fn: () => null })
         const f = fits.find((x) => x.law === pick.value)!;
         const spec = { law: f.law, ...f.params };
         const ok = autosave(BENCH_MATERIAL_KEY, {
-          name: `${r.name} (${f.law} fit)`, elasticModulus: a.elasticModulus, flowCurve: spec,
+          name: `${r.name} (${LAW_TITLES[f.law]} fit)`, elasticModulus: a.elasticModulus, flowCurve: spec,
           alternatives: fits.map((x) => ({ law: x.law, ...x.params })), fittedStrainRange: f.strainRange, source: `fitted from ${r.file}`,
           ...(a.modulusDecay?.converged && a.modulusDecay.Ea <= a.elasticModulus ? { modulusDecay: { Ea: a.modulusDecay.Ea, xi: a.modulusDecay.xi } } : {}),
         });
-        out.textContent = ok ? `Saved "${r.name} (${f.law} fit)": the route planner ("use the law saved from the record bench") and the prestrain explorer can use it now.` : 'The browser refused to save; nothing was sent.';
+        out.textContent = ok ? `Saved "${r.name} (${LAW_TITLES[f.law]} fit)": the route planner ("use the law saved from the record bench") and the prestrain explorer can use it now.` : 'The browser refused to save; nothing was sent.';
       };
       return h('div', {}, pick, h('button', { type: 'button', id: 'save-material', onclick: send }, 'use in the other notebooks'), out);
     },

@@ -1,5 +1,6 @@
 import * as Plot from '@observablehq/plot';
 import { chartFrame, PALETTE, X_AXIS } from './palette.js';
+import { LAW_TITLES } from '../core/flow/params.js';
 
 /** Most points a chart draws from one series; longer records are thinned by a fixed stride. */
 export const CHART_MAX_POINTS = 2000;
@@ -51,12 +52,14 @@ export function residualChart(
   o: { width?: number; height?: number; document?: Document } = {},
 ): SVGSVGElement | HTMLElement {
   const idx = thin(strain.length);
-  const data = fits.flatMap((f) => idx.filter((i) => f.residuals[i] !== undefined).map((i) => ({ eps: strain[i]!, r: f.residuals[i]!, law: f.law })));
+  // Laws by their names as people write them (Hockett–Sherby); any other label as given.
+  const title = (law: string) => (Object.prototype.hasOwnProperty.call(LAW_TITLES, law) ? LAW_TITLES[law as keyof typeof LAW_TITLES] : law);
+  const data = fits.flatMap((f) => idx.filter((i) => f.residuals[i] !== undefined).map((i) => ({ eps: strain[i]!, r: f.residuals[i]!, law: title(f.law) })));
   return Plot.plot({
     ...chartFrame(o, 520, 300),
     x: { ...X_AXIS, label: 'true plastic strain (–)', grid: true },
     y: { label: 'residual (MPa)', grid: true },
-    color: { domain: fits.map((f) => f.law), range: [...PALETTE.laws], legend: true },
+    color: { domain: fits.map((f) => title(f.law)), range: [...PALETTE.laws], legend: true },
     marks: [Plot.ruleY([0], { stroke: PALETTE.ink }), Plot.line(data, { x: 'eps', y: 'r', stroke: 'law', z: 'law', strokeWidth: 1.2 })],
   });
 }

@@ -15,7 +15,7 @@ export { voce } from './flow/voce.js';
 export { hockettSherby } from './flow/hockettSherby.js';
 export { swiftVoce } from './flow/swiftVoce.js';
 export { makeLaw, lawSpec } from './flow/makeLaw.js';
-export { LAW_PARAMETERS, LAW_NAMES } from './flow/params.js';
+export { LAW_PARAMETERS, LAW_NAMES, LAW_TITLES } from './flow/params.js';
 export { considereNumeric, forcePeaks, tensileStrengthOf, uniformElongationOf, CONSIDERE_SEARCH_LIMIT } from './flow/considere.js';
 export type * from './flow/types.js';
 

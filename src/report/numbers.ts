@@ -1,4 +1,4 @@
-import { LAW_PARAMETERS } from '../core/flow/params.js';
+import { LAW_PARAMETERS, LAW_TITLES } from '../core/flow/params.js';
 import type { LawName, ParamInfo } from '../core/flow/types.js';
 import { sig4 } from '../core/numeric/sig4.js';
 
@@ -114,14 +114,15 @@ export function formatLawParam(info: ParamInfo, value: number): string {
 }
 
 /**
- * A law in one line, `swift: K 612.3 MPa, eps0 0 (at bound), n 0.2100`, each parameter through
- * {@link formatLawParam}, stresses followed by the stress unit.
+ * A law in one line as people read it, `Swift: K 612.3 MPa, ε0 0 (at bound), n 0.21`: the law's name
+ * ({@link LAW_TITLES}) and each parameter's symbol through {@link formatLawParam}, stresses followed by the
+ * stress unit. Plan files and JSON keep the identifiers (`swift`, `eps0`).
  */
 export function formatLaw(law: LawName, params: Readonly<Record<string, number>>, stressUnit: string, sep = ' '): string {
   const parts = LAW_PARAMETERS[law]
     .filter((p) => params[p.name] !== undefined)
-    .map((p) => `${p.name}${sep}${formatLawParam(p, params[p.name]!)}${p.kind === 'stress' ? ` ${stressUnit}` : ''}`);
-  return `${law}: ${parts.join(', ')}`;
+    .map((p) => `${p.symbol}${sep}${formatLawParam(p, params[p.name]!)}${p.kind === 'stress' ? ` ${stressUnit}` : ''}`);
+  return `${LAW_TITLES[law]}: ${parts.join(', ')}`;
 }
 
 /**

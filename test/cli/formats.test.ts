@@ -99,7 +99,7 @@ describe('every format carries the same numbers as the JSON report', () => {
       const plain = text.replace(/&quot;/g, '"').replace(/&#39;|&apos;/g, "'");
       for (const s of [r.plan.name, r.plan.tool, r.material.source, ...r.cautions]) expect(plain, `${format}: ${s}`).toContain(s);
       expect(plain).toContain(format === 'table' ? r.plan.hash.slice(0, 12) : r.plan.hash);
-      expect(plain).toMatch(/hollomon/);
+      expect(plain).toMatch(/Hollomon: K/);
     }
   });
   it('html is one self-contained file: three Plot charts (strength, ductility, hardness) as inline SVG, no script, no external request', () => {

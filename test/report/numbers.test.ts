@@ -30,12 +30,12 @@ describe('formatLawParam(info, value): law parameters as an engineer writes them
     const eps = Array.from({ length: 60 }, (_, i) => 0.002 + (0.438 * i) / 59);
     const fit = fitAllLaws(eps, eps.map((e) => law.stress(e)), { laws: ['swift'] }).fits[0]!;
     const text = formatLaw('swift', fit.params, 'MPa');
-    expect(text).toMatch(/^swift: K 530 MPa, eps0 0( \(at bound\))?, n 0\.44$/);
+    expect(text).toMatch(/^Swift: K 530 MPa, ε0 0( \(at bound\))?, n 0\.44$/);
     expect(text).not.toMatch(/e-\d/);
   });
   it('formatLaw writes stresses with their unit; flowCurveText reads a report\'s flowCurve object', () => {
-    expect(formatLaw('voce', { sigma0: 120, Q: 160, b: 12 }, 'ksi')).toBe('voce: sigma0 120 ksi, Q 160 ksi, b 12');
-    expect(flowCurveText({ law: 'hollomon', K: 87.02, n: 0.21 }, 'ksi')).toBe('hollomon: K 87.02 ksi, n 0.21');
+    expect(formatLaw('voce', { sigma0: 120, Q: 160, b: 12 }, 'ksi')).toBe('Voce: σ0 120 ksi, Q 160 ksi, b 12');
+    expect(flowCurveText({ law: 'hollomon', K: 87.02, n: 0.21 }, 'ksi')).toBe('Hollomon: K 87.02 ksi, n 0.21');
   });
 });
 

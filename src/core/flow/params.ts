@@ -1,7 +1,10 @@
 import type { LawName, ParamInfo } from './types.js';
 
+/** Symbols of the parameters as the literature writes them (plan files and JSON keep the ASCII names). */
+const SYMBOLS: Readonly<Record<string, string>> = { sigma0: 'σ0', sigmaSat: 'σsat', eps0: 'ε0', alpha: 'α' };
+
 const p = (name: string, kind: ParamInfo['kind'], lo: number, hi: number, loOpen: boolean, hiOpen: boolean, meaning: string): ParamInfo =>
-  ({ name, kind, lo, hi, loOpen, hiOpen, meaning });
+  ({ name, kind, lo, hi, loOpen, hiOpen, meaning, symbol: SYMBOLS[name] ?? name });
 
 /**
  * The parameters of every law, their kinds and allowed ranges: one table used by validation, the
@@ -46,3 +49,11 @@ export const LAW_PARAMETERS: Readonly<Record<LawName, readonly ParamInfo[]>> = {
 };
 
 export const LAW_NAMES = Object.keys(LAW_PARAMETERS) as LawName[];
+
+/**
+ * The laws' names as people write them (the authors' names; Swift–Voce is the weighted blend of the two).
+ * Plan files, options and JSON keep the identifiers (`hockettSherby`); text for people uses these.
+ */
+export const LAW_TITLES: Readonly<Record<LawName, string>> = {
+  hollomon: 'Hollomon', ludwik: 'Ludwik', swift: 'Swift', voce: 'Voce', hockettSherby: 'Hockett–Sherby', swiftVoce: 'Swift–Voce',
+};

@@ -13,6 +13,8 @@ export interface ParamInfo {
   loOpen: boolean;
   hiOpen: boolean;
   meaning: string;
+  /** How a person reads the parameter (σ0, ε0, σsat, α); plan files and JSON keep `name`. */
+  symbol: string;
 }
 
 export type HollomonParams = { K: number; n: number };
