@@ -2,7 +2,7 @@ import { makeLaw } from '../flow/makeLaw.js';
 import { LAW_NAMES } from '../flow/params.js';
 import type { LawName, LawSpec } from '../flow/types.js';
 import { fitLaw } from './fitLaw.js';
-import { lawData } from './lawNormalEquations.js';
+import { lawData, type LawData } from './lawNormalEquations.js';
 import type { FitWarning, LawFit } from './types.js';
 
 /** Defaults of the law comparison, stated once. */
@@ -47,6 +47,8 @@ export interface FitAllOptions {
   /** Extra strains to check, e.g. the largest accumulated strain of a route. */
   checkStrains?: readonly number[];
   disagreementPct?: number;
+  /** The same strain and stress already packed by {@link lawData} (analyzeRecord shares its ln ε with the n-value). */
+  packed?: LawData;
 }
 
 /**
@@ -62,7 +64,7 @@ export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const fits: LawFit[] = [];
   const warnings: FitWarning[] = [];
   const byLaw = new Map<LawName, LawFit>();
-  const packed = lawData(strain, stress); // ln ε once for every law
+  const packed = opts.packed && opts.packed.x.length === strain.length ? opts.packed : lawData(strain, stress); // ln ε once for every law
   const fit = (law: LawName, o: { start?: Record<string, number> } = {}) => fitLaw(law, strain, stress, { ...o, packed });
   const order = [...laws].sort((a, b) => (a === 'swiftVoce' ? 1 : 0) - (b === 'swiftVoce' ? 1 : 0));
   for (const law of order) {

@@ -6,7 +6,8 @@ import { linearFit } from '../fit/linearFit.js';
 import { ELASTIC_WINDOW, elasticModulus } from './elasticModulus.js';
 import { forceMaximum } from './forceMaximum.js';
 import { recordNoise } from './recordNoise.js';
-import { nValueFit } from './nValue.js';
+import { nValueFit, nValueFitLogs } from './nValue.js';
+import { lawData } from '../fit/lawNormalEquations.js';
 import { proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { TensileAnalysis, TensileData, TensileWarning } from './types.js';
 import { yieldPoint } from './yieldPoint.js';
@@ -157,7 +158,8 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
   // true curve that `analyze` never prints were a tenth of the command (bench/RESULTS.md, issue 12 D).
   const m = iMax + 1;
-  const fStrain = new Array<number>(m), fStress = new Array<number>(m);
+  // Typed columns (the public `flowCurve` arrays are made from them only when read, below).
+  const fStrainAll = new Float64Array(m), fStressAll = new Float64Array(m);
   let nf = 0;
   const fromIndex = proof ? proof.index : 0;
   let runMax = -Infinity;
@@ -169,17 +171,21 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     const s = stress[i]! * (1 + e);
     const ep = Math.log1p(e) - s / E;
     if (ep >= fromTrue && ep > 0) {
-      fStrain[nf] = ep;
-      fStress[nf++] = s;
+      fStrainAll[nf] = ep;
+      fStressAll[nf++] = s;
     }
   }
-  fStrain.length = fStress.length = nf;
+  const fStrain = fStrainAll.subarray(0, nf), fStress = fStressAll.subarray(0, nf);
+  // ln εp once, for the n-value and every law fit (lawData: the same Math.log of the same values).
+  const packed = nf > 0 ? lawData(fStrain, fStress) : null;
 
   // n-value (ISO 10275).
   let nFit = null;
   {
     let xs: ArrayLike<number> = fStrain, ys: ArrayLike<number> = fStress;
+    let lx: Float64Array | undefined = packed?.lx;
     if (opts.nRange) {
+      lx = undefined;
       const [a, b] = opts.nRange;
       if (!(a >= 0 && b > a)) throw new InputError('nRange', opts.nRange, 'a pair [from, to] of engineering strains with 0 ≤ from < to');
       const xr: number[] = [], yr: number[] = [];
@@ -189,14 +195,14 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
       }
       xs = xr; ys = yr;
     }
-    if (xs.length >= 3) nFit = nValueFit(xs, ys);
+    if (xs.length >= 3) nFit = lx ? nValueFitLogs(xs, ys, lx) : nValueFit(xs, ys);
     else warnings.push({ code: 'nRange', message: `only ${xs.length} points in the n-value range; no n-value` });
   }
 
   let fits = null;
   if (opts.fit !== false) {
     if (fStrain.length >= 9) {
-      fits = fitAllLaws(fStrain, fStress, { ...(opts.laws ? { laws: opts.laws } : {}), ...(opts.checkStrains ? { checkStrains: opts.checkStrains } : {}), ...(opts.disagreementPct !== undefined ? { disagreementPct: opts.disagreementPct } : {}) });
+      fits = fitAllLaws(fStrain, fStress, { packed: packed!, ...(opts.laws ? { laws: opts.laws } : {}), ...(opts.checkStrains ? { checkStrains: opts.checkStrains } : {}), ...(opts.disagreementPct !== undefined ? { disagreementPct: opts.disagreementPct } : {}) });
       warnings.push(...fits.warnings);
     } else {
       warnings.push({ code: 'fewFlowPoints', message: `only ${fStrain.length} points on the plastic flow curve up to maximum force; no law fitted` });
@@ -241,7 +247,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     K: nFit?.K ?? null,
     nFit,
     trueCurve: { strain: [], stress: [], plasticStrain: [] },
-    flowCurve: { strain: fStrain, stress: fStress },
+    flowCurve: { strain: [], stress: [] },
     cycles,
     modulusDecay,
     fits,
@@ -254,6 +260,13 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     enumerable: true, configurable: true,
     get: () => (tc ??= trueCurveTo(strain, stress, toe, E, iMax)),
     set: (v: TensileAnalysis['trueCurve']) => { tc = v; },
+  });
+  // The flow curve as plain arrays when first read (analyze prints only the fits made from it).
+  let fcArrays: TensileAnalysis['flowCurve'] | null = null;
+  Object.defineProperty(analysis, 'flowCurve', {
+    enumerable: true, configurable: true,
+    get: () => (fcArrays ??= { strain: Array.from(fStrain), stress: Array.from(fStress) }),
+    set: (v: TensileAnalysis['flowCurve']) => { fcArrays = v; },
   });
   return analysis;
 }
