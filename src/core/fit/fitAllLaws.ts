@@ -1,3 +1,4 @@
+import { InputError } from '../errors.js';
 import { makeLaw } from '../flow/makeLaw.js';
 import { LAW_NAMES } from '../flow/params.js';
 import type { LawName, LawSpec } from '../flow/types.js';
@@ -61,10 +62,20 @@ export interface FitAllOptions {
  */
 export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>, opts: FitAllOptions = {}): LawComparison {
   const laws = opts.laws ?? LAW_NAMES;
-  const fits: LawFit[] = [];
-  const warnings: FitWarning[] = [];
-  const byLaw = new Map<LawName, LawFit>();
   const packed = opts.packed && opts.packed.x.length === strain.length ? opts.packed : lawData(strain, stress); // ln ε once for every law
+  return compareLawFits(fitLawGroup(laws, strain, stress, packed), stress, opts);
+}
+
+/**
+ * The fits of {@link fitAllLaws} without the comparison: each of `laws` fitted by {@link fitLaw} to the
+ * packed curve, in the order fitAllLaws uses (the Swift–Voce blend last, started from the Swift and
+ * Voce fits, or from Swift alone when that start ends lower). A law's fit depends only on the data
+ * and its start, so groups of laws may be fitted apart (the runner fits two groups on two threads)
+ * and give the same fits. Units as fitAllLaws.
+ * @example fitLawGroup(['hollomon'], eps, sigma, lawData(eps, sigma)).get('hollomon')!.params.n
+ */
+export function fitLawGroup(laws: readonly LawName[], strain: ArrayLike<number>, stress: ArrayLike<number>, packed: LawData): Map<LawName, LawFit> {
+  const byLaw = new Map<LawName, LawFit>();
   const fit = (law: LawName, o: { start?: Record<string, number> } = {}) => fitLaw(law, strain, stress, { ...o, packed });
   const order = [...laws].sort((a, b) => (a === 'swiftVoce' ? 1 : 0) - (b === 'swiftVoce' ? 1 : 0));
   for (const law of order) {
@@ -85,8 +96,22 @@ export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>,
     }
     byLaw.set(law, f);
   }
+  return byLaw;
+}
+
+/**
+ * The comparison part of {@link fitAllLaws}: fits in the order of `opts.laws` (default LAW_NAMES)
+ * from `byLaw`, best by AIC, laws that fit well, extrapolation spreads and `lawsDisagree` warnings.
+ * `stress` is the fitted curve's stress (its mean sets the 1 % rule). Units as fitAllLaws.
+ * @example compareLawFits(fitLawGroup(LAW_NAMES, eps, sigma, lawData(eps, sigma)), sigma).best
+ */
+export function compareLawFits(byLaw: ReadonlyMap<LawName, LawFit>, stress: ArrayLike<number>, opts: FitAllOptions = {}): LawComparison {
+  const laws = opts.laws ?? LAW_NAMES;
+  const fits: LawFit[] = [];
+  const warnings: FitWarning[] = [];
   for (const law of laws) {
-    const f = byLaw.get(law)!;
+    const f = byLaw.get(law);
+    if (!f) throw new InputError('laws', law, `a law fitted in the group (${[...byLaw.keys()].join(', ')})`);
     fits.push(f);
     warnings.push(...f.warnings);
   }

@@ -1,5 +1,5 @@
 import { InputError } from '../errors.js';
-import { fitAllLaws } from '../fit/fitAllLaws.js';
+import { fitAllLaws, type FitAllOptions, type LawComparison } from '../fit/fitAllLaws.js';
 import type { LawName } from '../flow/types.js';
 import { fitModulusDecay, findCycles } from './cycles.js';
 import { linearFit } from '../fit/linearFit.js';
@@ -7,7 +7,7 @@ import { ELASTIC_WINDOW, elasticModulus } from './elasticModulus.js';
 import { forceMaximum } from './forceMaximum.js';
 import { recordNoise } from './recordNoise.js';
 import { nValueFit, nValueFitLogs } from './nValue.js';
-import { lawData } from '../fit/lawNormalEquations.js';
+import { lawData, type LawData } from '../fit/lawNormalEquations.js';
 import { proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { TensileAnalysis, TensileData, TensileWarning } from './types.js';
 import { yieldPoint } from './yieldPoint.js';
@@ -25,6 +25,11 @@ export interface AnalyzeOptions {
   disagreementPct?: number;
   /** Young's modulus to use instead of the fitted one (MPa). */
   elasticModulus?: number;
+  /**
+   * The law fitter, default {@link fitAllLaws}. Any replacement must return what fitAllLaws returns
+   * for the same arguments (the runner passes one that fits two groups of laws on two threads).
+   */
+  fitLaws?: (strain: Float64Array, stress: Float64Array, opts: FitAllOptions & { packed: LawData }) => LawComparison;
 }
 
 /** Half-width of Ag's 95 % interval, points, above which Ag is reported as uncertain (the issue's 0.4-point target). */
@@ -202,7 +207,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   let fits = null;
   if (opts.fit !== false) {
     if (fStrain.length >= 9) {
-      fits = fitAllLaws(fStrain, fStress, { packed: packed!, ...(opts.laws ? { laws: opts.laws } : {}), ...(opts.checkStrains ? { checkStrains: opts.checkStrains } : {}), ...(opts.disagreementPct !== undefined ? { disagreementPct: opts.disagreementPct } : {}) });
+      fits = (opts.fitLaws ?? fitAllLaws)(fStrain, fStress, { packed: packed!, ...(opts.laws ? { laws: opts.laws } : {}), ...(opts.checkStrains ? { checkStrains: opts.checkStrains } : {}), ...(opts.disagreementPct !== undefined ? { disagreementPct: opts.disagreementPct } : {}) });
       warnings.push(...fits.warnings);
     } else {
       warnings.push({ code: 'fewFlowPoints', message: `only ${fStrain.length} points on the plastic flow curve up to maximum force; no law fitted` });
