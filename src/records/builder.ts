@@ -250,21 +250,7 @@ export class RecordBuilder {
     const n = this.n;
     const strain = new Float64Array(n);
     const stress = new Float64Array(n);
-    let maxS = 0;
-    for (let i = 0; i < n; i++) {
-      let e: number, s: number;
-      if (p.mode === 'ss') {
-        e = this.xs[i]! * fa;
-        s = this.ys[i]! * p.fb;
-        if (p.trueValues) { s = s / Math.exp(e); e = Math.expm1(e); }
-      } else {
-        e = (this.xs[i]! * fa) / p.gauge;
-        s = (this.ys[i]! * p.fb) / p.area;
-      }
-      strain[i] = e;
-      stress[i] = s;
-      maxS = Math.max(maxS, Math.abs(s));
-    }
+    const maxS = convertColumns(this.xs, this.ys, n, p, fa, strain, stress);
     const maxE = this.maxA * fa / (p.mode === 'fe' ? p.gauge : 1);
     if (maxE > MAX_STRAIN) {
       this.fail(this.maxALine, p.a.index + 1, p.a.name, `reaches ${this.maxA} — not a ${p.mode === 'ss' ? 'strain' : 'extension'} of a tensile test (expected at most ${MAX_STRAIN * 100} %); are the ${p.mode === 'ss' ? 'strain and stress' : 'extension and force'} columns swapped, or is the unit wrong?`);
@@ -280,4 +266,40 @@ export class RecordBuilder {
       layout: { delimiter: L.delimiter, decimalComma: L.decimalComma, headerLine: L.headerLine, unitsLine: L.unitsLine, dataLine: L.dataLine },
     };
   }
+}
+
+/**
+ * Engineering strain (fraction) and stress (MPa) of n read rows into `strain` and `stress`: ×fa and
+ * ×fb for a stress–strain record (true values converted, s = σ/exp(ε), e = exp(ε) − 1), extension
+ * ×fa / gauge length and force ×fb / area for a force–extension record. Returns the largest |stress|.
+ * A function of its own (not a loop in `finish`, which runs once per record) so the engine
+ * optimises the loop at once (bench/RESULTS.md, issue 12 E).
+ */
+function convertColumns(xs: Float64Array, ys: Float64Array, n: number, p: Plan, fa: number, strain: Float64Array, stress: Float64Array): number {
+  let maxS = 0;
+  const fb = p.fb, gauge = p.gauge, area = p.area;
+  if (p.mode === 'ss' && !p.trueValues) {
+    for (let i = 0; i < n; i++) {
+      const s = ys[i]! * fb;
+      strain[i] = xs[i]! * fa;
+      stress[i] = s;
+      maxS = Math.max(maxS, Math.abs(s));
+    }
+    return maxS;
+  }
+  for (let i = 0; i < n; i++) {
+    let e: number, s: number;
+    if (p.mode === 'ss') {
+      e = xs[i]! * fa;
+      s = ys[i]! * fb;
+      if (p.trueValues) { s = s / Math.exp(e); e = Math.expm1(e); }
+    } else {
+      e = (xs[i]! * fa) / gauge;
+      s = (ys[i]! * fb) / area;
+    }
+    strain[i] = e;
+    stress[i] = s;
+    maxS = Math.max(maxS, Math.abs(s));
+  }
+  return maxS;
 }

@@ -118,8 +118,7 @@ export function compareLawFits(byLaw: ReadonlyMap<LawName, LawFit>, stress: Arra
   const conv = fits.filter((f) => f.converged);
   const best = conv.length ? conv.reduce((a, b) => (b.aic < a.aic ? b : a)).law : null;
   const bestRmse = conv.length ? Math.min(...conv.map((f) => f.rmse)) : Infinity;
-  let meanStress = 0;
-  for (let i = 0; i < stress.length; i++) meanStress += stress[i]! / stress.length;
+  const meanStress = meanOf(stress);
   const goodRmse = Math.max(FIT_DEFAULTS.goodFitRmseFactor * bestRmse, FIT_DEFAULTS.goodFitRelRmse * Math.abs(meanStress)) + 1e-12;
   const good = conv.filter((f) => f.rmse <= goodRmse);
   const top = fits.length ? Math.max(...fits.map((f) => f.strainRange[1])) : 0;
@@ -147,4 +146,12 @@ export function compareLawFits(byLaw: ReadonlyMap<LawName, LawFit>, stress: Arra
     }
   }
   return { fits, best, goodLaws: good.map((f) => f.law), extrapolation, warnings };
+}
+
+/** Σ yᵢ/n in index order (the comparison's mean flow stress), in a function of its own so the loop is optimised at once. */
+function meanOf(y: ArrayLike<number>): number {
+  const n = y.length;
+  let m = 0;
+  for (let i = 0; i < n; i++) m += y[i]! / n;
+  return m;
 }
