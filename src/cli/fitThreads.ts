@@ -12,11 +12,16 @@ const ROLE = 'strainledger-fit-helper';
 /** Flow curves shorter than this are fitted on the calling thread only (a second thread would not pay). */
 export const FIT_THREAD_MIN_POINTS = 50_000;
 
-/** The laws fitted on the main thread: the Swift–Voce blend starts from the Swift and Voce fits, so the three stay together. */
-const MAIN_GROUP: readonly LawName[] = ['swift', 'voce', 'swiftVoce'];
+/**
+ * The laws fitted on the main thread: Swift, then the Swift–Voce blend, which starts from the Swift
+ * and Voce fits. The helper fits Voce first and answers it at once (EARLY), then the others; so the
+ * blend, the longest fit, starts as soon as both parts are known and the threads finish together.
+ */
+const MAIN_GROUP: readonly LawName[] = ['swift', 'swiftVoce'];
+const EARLY: LawName = 'voce';
 
 /** What crosses between the threads: a job (the packed curve in shared memory, the helper's laws) and its answer. */
-interface Job { x: Float64Array; y: Float64Array; lx: Float64Array; lo: number; hi: number; laws: LawName[] }
+interface Job { x: Float64Array; y: Float64Array; lx: Float64Array; lo: number; hi: number; early: LawName; laws: LawName[] }
 type FitData = Omit<LawFit, 'residuals'>;
 type Answer = { fits: FitData[] } | { error: string };
 
@@ -25,18 +30,18 @@ type Answer = { fits: FitData[] } | { error: string };
 // waits on with Atomics.wait.
 if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE) {
   const { port, ctl } = workerData as { role: string; port: MessagePort; ctl: Int32Array };
+  // ctl[1] counts the answers posted for the current job: 1 after the early law, 2 after the rest.
+  const answer = (a: Answer) => { port.postMessage(a); Atomics.add(ctl, 1, 1); Atomics.notify(ctl, 1); };
   port.on('message', (job: Job) => {
-    let answer: Answer;
     try {
       const packed: LawData = { x: job.x, y: job.y, w: null, lx: job.lx, lo: job.lo, hi: job.hi, bad: -1 };
+      answer({ fits: [plainFit(fitLawGroup([job.early], job.x, job.y, packed).get(job.early)!)] });
       const byLaw = fitLawGroup(job.laws, job.x, job.y, packed);
-      answer = { fits: job.laws.map((l) => plainFit(byLaw.get(l)!)) };
+      answer({ fits: job.laws.map((l) => plainFit(byLaw.get(l)!)) });
     } catch (e) {
-      answer = { error: String((e as Error)?.message ?? e) };
+      const error = { error: String((e as Error)?.message ?? e) };
+      while (Atomics.load(ctl, 1) < 2) answer(error);
     }
-    port.postMessage(answer);
-    Atomics.store(ctl, 1, 1);
-    Atomics.notify(ctl, 1);
   });
   Atomics.store(ctl, 0, 1);
   Atomics.notify(ctl, 0);
@@ -71,8 +76,9 @@ export interface FitHelper {
 
 /**
  * Starts one helper thread for the law fits (started early, e.g. while the record is read, so it is
- * ready when the fits begin). `fitLaws` fits Swift, Voce and the Swift–Voce blend on the calling
- * thread and the other laws on the helper, at the same time, then compares them as fitAllLaws does:
+ * ready when the fits begin). `fitLaws` fits Swift and the Swift–Voce blend on the calling thread and
+ * Voce (answered first: the blend starts from it), Hollomon, Ludwik and Hockett–Sherby on the helper,
+ * at the same time, then compares them as fitAllLaws does:
  * the same fits (each fit depends only on the data and its start; JavaScript arithmetic is the same
  * on every thread), so `analyze` prints the same bytes with or without the helper
  * (test/cli/analyze.test.ts). It falls back to {@link fitAllLaws} on the calling thread when the
@@ -89,35 +95,46 @@ export function startFitHelper(timeoutMs = 60_000, waitReady = false): FitHelper
   let shared = 0;
   worker.on('error', () => { broken = true; });
   worker.on('exit', () => { broken = true; });
+  /** Waits (Atomics.wait) until the helper has posted `count` answers for this job, then takes the next one; undefined on timeout. */
+  const next = (count: number, until: number): Answer | undefined => {
+    while (Atomics.load(ctl, 1) < count) {
+      const left = until - Date.now();
+      if (left <= 0) return undefined;
+      Atomics.wait(ctl, 1, Atomics.load(ctl, 1), Math.min(left, 1000));
+    }
+    return receiveMessageOnPort(port1)?.message as Answer | undefined;
+  };
   const fitLaws: FitHelper['fitLaws'] = (strain, stress, opts) => {
     const laws = opts.laws ?? LAW_NAMES;
-    const helperLaws = laws.filter((l) => !MAIN_GROUP.includes(l));
-    const mainLaws = laws.filter((l) => MAIN_GROUP.includes(l));
-    if (waitReady && !broken && strain.length >= FIT_THREAD_MIN_POINTS) Atomics.wait(ctl, 0, 0, 5000); // asked for two threads: let it start
-    if (broken || Atomics.load(ctl, 0) !== 1 || strain.length < FIT_THREAD_MIN_POINTS || !laws.includes('swiftVoce') || helperLaws.length === 0) return fitAllLaws(strain, stress, opts);
+    const helperLaws = laws.filter((l) => !MAIN_GROUP.includes(l) && l !== EARLY);
+    const usable = laws.includes('swiftVoce') && laws.includes('swift') && laws.includes(EARLY) && helperLaws.length > 0;
+    if (waitReady && usable && !broken && strain.length >= FIT_THREAD_MIN_POINTS) Atomics.wait(ctl, 0, 0, 5000); // asked for two threads: let it start
+    if (broken || !usable || Atomics.load(ctl, 0) !== 1 || strain.length < FIT_THREAD_MIN_POINTS) return fitAllLaws(strain, stress, opts);
     const p = opts.packed;
     const share = (a: Float64Array) => { const s = new Float64Array(new SharedArrayBuffer(a.byteLength)); s.set(a); return s; };
     Atomics.store(ctl, 1, 0);
-    port1.postMessage({ x: share(p.x), y: share(p.y), lx: share(p.lx), lo: p.lo, hi: p.hi, laws: helperLaws } satisfies Job);
+    port1.postMessage({ x: share(p.x), y: share(p.y), lx: share(p.lx), lo: p.lo, hi: p.hi, early: EARLY, laws: helperLaws } satisfies Job);
+    const started = Date.now();
+    // On any failure, the whole fit again on this thread: it words an error exactly as the one-thread fit.
+    const fallback = () => { broken = true; return fitAllLaws(strain, stress, opts); };
     let mine: Map<LawName, LawFit>;
     try {
-      mine = fitLawGroup(mainLaws, strain, stress, p);
+      mine = fitLawGroup(['swift'], strain, stress, p);
     } catch {
-      return fitAllLaws(strain, stress, opts); // words the error exactly as the one-thread fit does
+      return fallback();
     }
-    // Wait for the helper's answer (a clock is fine here: this is the runner, not the core).
-    const until = Date.now() + timeoutMs;
-    while (Atomics.load(ctl, 1) !== 1) {
-      const left = until - Date.now();
-      if (left <= 0 || Atomics.wait(ctl, 1, 0, Math.min(left, 1000)) === 'timed-out' && Date.now() >= until) break;
+    // A clock is fine here: this is the runner, not the core.
+    const early = next(1, started + timeoutMs);
+    if (!early || 'error' in early) return fallback();
+    mine.set(EARLY, rebuiltFit(early.fits[0]!, p));
+    try {
+      mine = fitLawGroup(['swiftVoce'], strain, stress, p, mine);
+    } catch {
+      return fallback();
     }
-    const msg = Atomics.load(ctl, 1) === 1 ? receiveMessageOnPort(port1) : undefined;
-    const answer = msg?.message as Answer | undefined;
-    if (!answer || 'error' in answer) {
-      broken = true;
-      return fitAllLaws(strain, stress, opts);
-    }
-    for (const d of answer.fits) mine.set(d.law, rebuiltFit(d, p));
+    const rest = next(2, started + timeoutMs);
+    if (!rest || 'error' in rest) return fallback();
+    for (const d of rest.fits) mine.set(d.law, rebuiltFit(d, p));
     shared++;
     return compareLawFits(mine, stress, opts);
   };

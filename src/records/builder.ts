@@ -222,6 +222,23 @@ export class RecordBuilder {
     return { a: this.plan.a.index, b: this.plan.b.index, width: this.width, decimalComma: this.layout.decimalComma, delimiter: this.layout.delimiter, dataLine: this.layout.dataLine };
   }
 
+  /**
+   * Makes room for `rows` rows in all (a reader that can estimate the count from the file size calls
+   * it once, so the columns are not grown by doubling and copying: less garbage on large records).
+   * Never more than MAX_ROWS; never shrinks.
+   */
+  reserve(rows: number): void {
+    const want = Math.min(MAX_ROWS, Math.floor(rows));
+    if (!(want > this.xs.length)) return;
+    const nx = new Float64Array(want); nx.set(this.xs.subarray(0, this.n)); this.xs = nx;
+    const ny = new Float64Array(want); ny.set(this.ys.subarray(0, this.n)); this.ys = ny;
+  }
+
+  /** Rows added so far. */
+  get rowCount(): number {
+    return this.n;
+  }
+
   /** Adds the two numbers of one data row found at 1-based `line` (already checked as {@link push} checks cells). */
   pushValues(x: number, y: number, line: number): void {
     if (this.n === this.xs.length) {

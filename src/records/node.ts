@@ -1,4 +1,4 @@
-import { createReadStream, openSync, readSync, closeSync } from 'node:fs';
+import { createReadStream, openSync, readSync, closeSync, fstatSync } from 'node:fs';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { parse } from 'csv-parse';
@@ -94,13 +94,20 @@ export function scanBytes(path: string, layout: Layout, opts: RecordOptions, chu
   const buf = Buffer.allocUnsafe(CHUNK + 1); // one spare byte: the scanner's end mark
   const fd = openSync(path, 'r');
   try {
-    let have = 0;
+    const size = fstatSync(fd).size;
+    let have = 0, consumed = 0, first = true;
     for (;;) {
       const got = readSync(fd, buf, have, CHUNK - have, null);
       const end = have + got;
       const final = got === 0;
       const used = sc.scan(buf, 0, end, final);
       if (used < 0) return null;
+      consumed += used;
+      if (first && !final && b.rowCount > 0) {
+        // Rows expected from the first piece's bytes per row (+2 %): the columns are sized once.
+        b.reserve((b.rowCount * size / consumed) * 1.02 + 1024);
+        first = false;
+      }
       if (final) return used === end ? b : null;
       if (used === 0 && end === CHUNK) return null; // one line longer than the buffer: the text reader takes it
       buf.copy(buf, 0, used, end);

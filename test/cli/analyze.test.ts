@@ -81,7 +81,7 @@ describe('strainledger analyze RECORD --format json', () => {
 });
 
 describe('strainledger analyze of a large record on two threads (--threads 2)', () => {
-  it('gives the same bytes as one thread, residuals included, on an INVENTED 80,000-row record (the helper thread fits Hollomon, Ludwik and Hockett–Sherby)', async () => {
+  it('gives the same bytes as one thread, residuals included, on an INVENTED 80,000-row record (the helper thread fits Voce, Hollomon, Ludwik and Hockett–Sherby)', async () => {
     const { synthesizeRecord, xoshiro128ss } = await import('../../src/core/index.js');
     // INVENTED: Swift K 600 MPa, ε0 0.01, n 0.22, E 200 GPa, 1 MPa noise (as bench/records-gen.mjs).
     const rec = synthesizeRecord({ law: { law: 'swift', K: 600, eps0: 0.01, n: 0.22 }, elasticModulus: 200000, rng: xoshiro128ss(5), noise: 1, toe: 1e-4, step: 2.712e-6 * 100_000 / 80_000, necking: { extraStrain: 0.06, dropTo: 0.7 } });

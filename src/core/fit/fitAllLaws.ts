@@ -74,8 +74,9 @@ export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>,
  * and give the same fits. Units as fitAllLaws.
  * @example fitLawGroup(['hollomon'], eps, sigma, lawData(eps, sigma)).get('hollomon')!.params.n
  */
-export function fitLawGroup(laws: readonly LawName[], strain: ArrayLike<number>, stress: ArrayLike<number>, packed: LawData): Map<LawName, LawFit> {
-  const byLaw = new Map<LawName, LawFit>();
+export function fitLawGroup(laws: readonly LawName[], strain: ArrayLike<number>, stress: ArrayLike<number>, packed: LawData, prior?: ReadonlyMap<LawName, LawFit>): Map<LawName, LawFit> {
+  // `prior`: fits already made (e.g. Voce on the other thread), used as the blend's start like fits made here.
+  const byLaw = new Map<LawName, LawFit>(prior ?? []);
   const fit = (law: LawName, o: { start?: Record<string, number> } = {}) => fitLaw(law, strain, stress, { ...o, packed });
   const order = [...laws].sort((a, b) => (a === 'swiftVoce' ? 1 : 0) - (b === 'swiftVoce' ? 1 : 0));
   for (const law of order) {
