@@ -341,18 +341,28 @@ export class ByteRowScanner {
         const s = i;
         let neg = false;
         if (c === 45 || c === 43) { neg = c === 45; c = bytes[++i]!; }
-        let m = 0, sig = 0, scale = 0, digits = 0, point = false, general = false;
-        for (;;) {
-          if (c >= 48 && c <= 57) {
+        let m = 0, sig = 0, scale = 0, digits = 0, general = false;
+        // Integer digits, then the fraction's (leading zeros are not significant; past 15 significant
+        // digits generalDecimal reads the cell). Two loops: no "after the point?" test per digit.
+        while (c >= 48 && c <= 57) {
+          digits++;
+          if (m !== 0 || c !== 48) {
+            if (sig === EXACT_DIGITS) general = true;
+            else { m = m * 10 + (c - 48); sig++; }
+          }
+          c = bytes[++i]!;
+        }
+        if (c === 46 || (comma && c === 44)) {
+          c = bytes[++i]!;
+          while (c >= 48 && c <= 57) {
             digits++;
-            if (point) scale--;
+            scale--;
             if (m !== 0 || c !== 48) {
               if (sig === EXACT_DIGITS) general = true;
               else { m = m * 10 + (c - 48); sig++; }
             }
-          } else if ((c === 46 || (comma && c === 44)) && !point) point = true;
-          else break;
-          c = bytes[++i]!;
+            c = bytes[++i]!;
+          }
         }
         let v: number;
         if (general || scale < -22 || (c !== d && c !== 32 && c !== 9 && c !== 10 && c !== 13)) {
