@@ -1,4 +1,3 @@
-import { availableParallelism } from 'node:os';
 import { isMainThread, MessageChannel, parentPort, receiveMessageOnPort, Worker, workerData, type MessagePort } from 'node:worker_threads';
 import { compareLawFits, fitAllLaws, fitLawGroup, type FitAllOptions, type LawComparison } from '../core/fit/fitAllLaws.js';
 import { withLazyResiduals } from '../core/fit/fitLaw.js';
@@ -146,10 +145,4 @@ export function startFitHelper(timeoutMs = 60_000, waitReady = false): FitHelper
       await worker.terminate();
     },
   };
-}
-
-/** Whether a second thread may help: at least two cores and records large enough to be worth it. */
-export function fitHelperWanted(threads: number | undefined, recordBytes: number): boolean {
-  if (threads !== undefined) return threads >= 2;
-  return availableParallelism() >= 2 && recordBytes >= 4 * 1024 * 1024;
 }

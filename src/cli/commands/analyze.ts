@@ -5,6 +5,7 @@ import type { LawComparison } from '../../core/fit/fitAllLaws.js';
 import type { TensileAnalysis } from '../../core/tensile/types.js';
 import type { AnalyzeOptions } from '../../core/tensile/analyzeRecord.js';
 import { statSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { PlanError } from '../../plan/problems.js';
 import { unitsOf } from '../../plan/units.js';
 import { CAUTIONS } from '../../report/cautions.js';
@@ -220,8 +221,9 @@ export const analyze = defineCommand({
     // A second thread for the law fits of large records, started now so it is ready when the fits begin.
     let recordBytes = 0;
     for (const f of positionals) { try { recordBytes += statSync(f).size; } catch { /* the reader words it */ } }
-    const threadsMod = threads !== 1 ? await import('../fitThreads.js') : null;
-    const helper = threadsMod && threadsMod.fitHelperWanted(threads, recordBytes) ? threadsMod.startFitHelper(60_000, threads === 2) : null;
+    // Default: two threads on a machine with two or more cores for records of 4 MB or more (about 200,000 rows).
+    const wanted = threads !== undefined ? threads === 2 : availableParallelism() >= 2 && recordBytes >= 4 * 1024 * 1024;
+    const helper = wanted ? (await import('../fitThreads.js')).startFitHelper(60_000, threads === 2) : null;
     try {
       return await analyzeWith(helper?.fitLaws);
     } finally {
