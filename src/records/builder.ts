@@ -253,6 +253,30 @@ export class RecordBuilder {
     this.lastLine = line;
   }
 
+  /**
+   * Adds `count` rows at once: values xs[j], ys[j] found at 1-based line lines[j] (checked as
+   * {@link push} checks cells). The same as `count` calls of {@link pushValues}, without a call per
+   * row (the byte scanner batches its rows).
+   */
+  pushBatch(xs: Float64Array, ys: Float64Array, lines: Float64Array, count: number): void {
+    if (this.n + count > this.xs.length) {
+      if (this.n + count > MAX_ROWS) { for (let j = 0; j < count; j++) this.pushValues(xs[j]!, ys[j]!, lines[j]!); return; }
+      this.reserve(Math.max(this.xs.length * 2, this.n + count));
+    }
+    const X = this.xs, Y = this.ys;
+    let n = this.n, maxA = this.maxA, maxALine = this.maxALine;
+    for (let j = 0; j < count; j++) {
+      const x = xs[j]!;
+      X[n] = x;
+      Y[n++] = ys[j]!;
+      if (Math.abs(x) > maxA) { maxA = Math.abs(x); maxALine = lines[j]!; }
+    }
+    this.n = n;
+    this.maxA = maxA;
+    this.maxALine = maxALine;
+    if (count > 0) this.lastLine = lines[count - 1]!;
+  }
+
   /** The record: converted, checked for swapped columns and too few rows. */
   finish(name: string): TensileRecord {
     const L = this.layout;
