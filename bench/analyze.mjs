@@ -1,14 +1,21 @@
 // `analyze` speed and fit quality (issue 12), side by side in one run:
-//  1. `node bin/strainledger.js analyze` of an INVENTED 1,000,000-row record (bench/records-gen.mjs)
-//     under /usr/bin/time -v (wall time and peak RSS of the whole command, Node start-up included),
-//     beside numpy.loadtxt only READING the same file. Aims: ≤ 2× numpy's read, peak < 300 MB.
+//  1. an INVENTED 1,000,000-row record (bench/records-gen.mjs) against numpy.loadtxt only READING the
+//     same file, measured two ways (both ratios are printed):
+//     a. whole processes: `node bin/strainledger.js analyze FILE --format json` against
+//        `python3 -c "import numpy; numpy.loadtxt(FILE, delimiter=',', skiprows=1)"`, wall time and
+//        peak RSS from /usr/bin/time -v (start-up, module loading and interpreter exit included);
+//     b. in-process, start-up excluded: numpy.loadtxt alone (perf_counter) against our analysis called
+//        as a library on the file (readRecordFile + analyzeRecord, modules loaded first), one thread
+//        and with the runner's fit helper thread; median of 5 after one warm-up.
+//     Aims: ≤ 2× numpy's read, peak < 300 MB.
 //  2. the same command on a 100,000-point record beside the SciPy six-law script (bench/fit_scipy.py:
 //     bounded curve_fit, method trf, the same bounds and start values) fitting that record's flow
 //     curve (fit time only, Python start-up and reading excluded). Aim: ≥ 10× faster.
 //  3. each law's RMSE on the FULL flow curve, ours (block averages above 4000 points) against
 //     SciPy's point-by-point fit of the full curve. Aim: no worse than SciPy's by more than 1 %.
 // Run after `npm run build`: node bench/analyze.mjs   (SKIP_1M_SCIPY=1 skips SciPy on the 1M curve;
-// BEFORE=/path/to/older/bin/strainledger.js also times an older build on the 1M record, interleaved)
+// BEFORE=/path/to/older/bin/strainledger.js also times an older build on the 1M record, interleaved;
+// ONLY_1M=1 stops after part 1)
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
@@ -72,18 +79,51 @@ function rmseTable(o, sp) {
 // 1. 1,000,000 rows.
 const big = join(dir, 'r1m.csv');
 const bigRows = await writeInventedRecord(big, 1_000_000);
-const runsO = [], runsN = [], runsB = [];
+/** Wall seconds and peak RSS (MB) of python3 importing numpy and reading the file (the whole process). */
+function numpyProcess(file) {
+  const r = spawnSync('/usr/bin/time', ['-v', 'python3', '-c', `import numpy; numpy.loadtxt(${JSON.stringify(file)}, delimiter=',', skiprows=1)`], { encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(r.stderr);
+  const wall = r.stderr.match(/Elapsed \(wall clock\) time \(h:mm:ss or m:ss\): (\d+):([\d.]+)/);
+  return { s: Number(wall[1]) * 60 + Number(wall[2]), mb: Number(r.stderr.match(/Maximum resident set size \(kbytes\): (\d+)/)[1]) / 1024 };
+}
+/** In-process times (s): numpy's read alone, and our analysis as a library (one thread, then with the fit helper). */
+const pyLoop = join(dir, 'read5.py');
+writeFileSync(pyLoop, `import sys, time\nimport numpy as np\nts = []\nfor k in range(6):\n    t0 = time.perf_counter()\n    np.loadtxt(sys.argv[1], delimiter=',', skiprows=1)\n    ts.append(time.perf_counter() - t0)\nprint(' '.join(str(t) for t in ts[1:]))\n`);
+const jsLoop = join(dir, 'analyze5.mjs');
+writeFileSync(jsLoop, `import { readRecordFile } from ${JSON.stringify(join(repo, 'dist', 'records', 'node.js'))};
+import { analyzeRecord } from ${JSON.stringify(join(repo, 'dist', 'core', 'index.js'))};
+import { startFitHelper } from ${JSON.stringify(join(repo, 'dist', 'cli', 'fitThreads.js'))};
+const helper = process.argv[3] === 'two' ? startFitHelper(60_000, true) : null;
+const ts = [];
+for (let k = 0; k < 6; k++) {
+  const t0 = performance.now();
+  const a = analyzeRecord(await readRecordFile(process.argv[2]), helper ? { fitLaws: helper.fitLaws } : {});
+  ts.push((performance.now() - t0) / 1000);
+  if (!a.fits) throw new Error('no fits');
+}
+await helper?.close();
+console.log(ts.slice(1).join(' '));
+`);
+const inproc = (cmd, args) => med(spawnSync(cmd, args, { encoding: 'utf8' }).stdout.trim().split(' ').map(Number));
+const runsO = [], runsN = [], runsB = [], runsP = [];
 const before = process.env.BEFORE;
-for (let k = 0; k < 3; k++) { runsO.push(ours(big)); runsN.push(numpyRead(big)); if (before) runsB.push(ours(big, before)); }
-const o1 = med(runsO.map((r) => r.s)), n1 = med(runsN), m1 = Math.max(...runsO.map((r) => r.mb));
-console.log(`\n1. analyze of ${bigRows.toLocaleString('en')} rows (flow curve ${runsO[0].json.fits[0].points.toLocaleString('en')} points): ${o1.toFixed(2)} s (${runsO.map((r) => r.s.toFixed(2)).join(', ')}), peak RSS ${m1.toFixed(0)} MB`);
-console.log(`   numpy.loadtxt reading it: ${n1.toFixed(2)} s (${runsN.map((x) => x.toFixed(2)).join(', ')}); ratio ours/numpy ${(o1 / n1).toFixed(2)}`);
+for (let k = 0; k < 3; k++) { runsO.push(ours(big)); runsP.push(numpyProcess(big)); runsN.push(numpyRead(big)); if (before) runsB.push(ours(big, before)); }
+const inNumpy = inproc('python3', [pyLoop, big]), inOne = inproc(process.execPath, [jsLoop, big, 'one']), inTwo = inproc(process.execPath, [jsLoop, big, 'two']);
+const o1 = med(runsO.map((r) => r.s)), n1 = med(runsN), p1 = med(runsP.map((r) => r.s)), m1 = Math.max(...runsO.map((r) => r.mb));
+console.log(`\n1. analyze of ${bigRows.toLocaleString('en')} rows (flow curve ${runsO[0].json.fits[0].points.toLocaleString('en')} points)`);
+console.log(`   a. whole processes: ours ${o1.toFixed(2)} s (${runsO.map((r) => r.s.toFixed(2)).join(', ')}), peak RSS ${m1.toFixed(0)} MB`);
+console.log(`      python3 -c "import numpy; numpy.loadtxt(...)": ${p1.toFixed(2)} s (${runsP.map((r) => r.s.toFixed(2)).join(', ')}), peak RSS ${Math.max(...runsP.map((r) => r.mb)).toFixed(0)} MB`);
+console.log(`      ratio ours/numpy (whole processes) ${(o1 / p1).toFixed(2)} — aim ≤ 2: ${o1 <= 2 * p1 ? 'met' : 'NOT met'}`);
+console.log(`   b. in-process, start-up excluded (median of 5 after a warm-up): numpy.loadtxt read ${inNumpy.toFixed(3)} s (first-run read in a fresh process ${n1.toFixed(3)} s)`);
+console.log(`      ours as a library, read + analyze: one thread ${inOne.toFixed(3)} s, with the fit helper ${inTwo.toFixed(3)} s`);
+console.log(`      ratio ours/numpy (in-process) ${(inOne / inNumpy).toFixed(2)} one thread, ${(inTwo / inNumpy).toFixed(2)} two — aim ≤ 2: ${Math.min(inOne, inTwo) <= 2 * inNumpy ? 'met' : 'NOT met'}`);
 if (before) {
   const b1 = med(runsB.map((r) => r.s));
-  const same = runsB.every((r) => JSON.stringify(r.json.fits) === JSON.stringify(runsO[0].json.fits) && r.json.tensileStrength === runsO[0].json.tensileStrength);
-  console.log(`   older build (${before}): ${b1.toFixed(2)} s (${runsB.map((r) => r.s.toFixed(2)).join(', ')}), peak RSS ${Math.max(...runsB.map((r) => r.mb)).toFixed(0)} MB; older/this ${(b1 / o1).toFixed(2)}; same fits and Rm: ${same}`);
+  const same = runsB.every((r) => JSON.stringify(r.json) === JSON.stringify(runsO[0].json));
+  console.log(`   older build (${before}): ${b1.toFixed(2)} s (${runsB.map((r) => r.s.toFixed(2)).join(', ')}), peak RSS ${Math.max(...runsB.map((r) => r.mb)).toFixed(0)} MB; older/this ${(b1 / o1).toFixed(2)}; same JSON: ${same}`);
 }
-console.log(`   aims: ≤ 2× numpy's read — ${o1 <= 2 * n1 ? 'met' : 'NOT met'}; peak RSS < 300 MB — ${m1 < 300 ? 'met' : 'NOT met'}   (load average ${la()})`);
+console.log(`   peak RSS < 300 MB — ${m1 < 300 ? 'met' : 'NOT met'}   (load average ${la()})`);
+if (process.env.ONLY_1M) { rmSync(dir, { recursive: true, force: true }); process.exit(0); }
 
 // 2. 100,000 points.
 const mid = join(dir, 'r100k.csv');

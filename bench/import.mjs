@@ -1,7 +1,7 @@
 // Import speed (issue 12): a 1,000,000-row two-column CSV (INVENTED record, bench/records-gen.mjs,
 // about 19 MB) read side by side in one run, each reader in its own child process (time of the read
 // inside the process; peak RSS of the process):
-//   ours      readRecordFile (dist/records/node.js): streams 1 MiB chunks through the row scanner
+//   ours      readRecordFile (dist/records/node.js): 1 MiB pieces of the file's bytes through the byte row scanner
 //   udsv      udsv 0.7.3 typedCols on the whole file read as one string (the fastest general CSV
 //             parser measured on this machine class, ../shared/DESIGN.md §8)
 //   csv-parse csv-parse 7.0.3 with per-record `info`, the reader before issue 12 (set OLD=1; ~10 s)

@@ -245,6 +245,23 @@ export class RecordBuilder {
     return { a: this.plan.a.index, b: this.plan.b.index, width: this.width, decimalComma: this.layout.decimalComma, delimiter: this.layout.delimiter, dataLine: this.layout.dataLine };
   }
 
+  /**
+   * Makes room for `rows` rows in all (a reader that can estimate the count from the file size calls
+   * it once, so the columns are not grown by doubling and copying: less garbage on large records).
+   * Never more than MAX_ROWS; never shrinks.
+   */
+  reserve(rows: number): void {
+    const want = Math.min(MAX_ROWS, Math.floor(rows));
+    if (!(want > this.xs.length)) return;
+    const nx = new Float64Array(want); nx.set(this.xs.subarray(0, this.n)); this.xs = nx;
+    const ny = new Float64Array(want); ny.set(this.ys.subarray(0, this.n)); this.ys = ny;
+  }
+
+  /** Rows added so far. */
+  get rowCount(): number {
+    return this.n;
+  }
+
   /** Adds the two numbers of one data row found at 1-based `line` (already checked as {@link push} checks cells). */
   pushValues(x: number, y: number, line: number): void {
     if (this.n === this.xs.length) {
@@ -257,6 +274,30 @@ export class RecordBuilder {
     if (Math.abs(x) > this.maxA) { this.maxA = Math.abs(x); this.maxALine = line; }
     this.n++;
     this.lastLine = line;
+  }
+
+  /**
+   * Adds `count` rows at once: values xs[j], ys[j] found at 1-based line lines[j] (checked as
+   * {@link push} checks cells). The same as `count` calls of {@link pushValues}, without a call per
+   * row (the byte scanner batches its rows).
+   */
+  pushBatch(xs: Float64Array, ys: Float64Array, lines: Float64Array, count: number): void {
+    if (this.n + count > this.xs.length) {
+      if (this.n + count > MAX_ROWS) { for (let j = 0; j < count; j++) this.pushValues(xs[j]!, ys[j]!, lines[j]!); return; }
+      this.reserve(Math.max(this.xs.length * 2, this.n + count));
+    }
+    const X = this.xs, Y = this.ys;
+    let n = this.n, maxA = this.maxA, maxALine = this.maxALine;
+    for (let j = 0; j < count; j++) {
+      const x = xs[j]!;
+      X[n] = x;
+      Y[n++] = ys[j]!;
+      if (Math.abs(x) > maxA) { maxA = Math.abs(x); maxALine = lines[j]!; }
+    }
+    this.n = n;
+    this.maxA = maxA;
+    this.maxALine = maxALine;
+    if (count > 0) this.lastLine = lines[count - 1]!;
   }
 
   /** The record: converted, checked for swapped columns and too few rows. */
@@ -281,21 +322,7 @@ export class RecordBuilder {
     const n = this.n;
     const strain = new Float64Array(n);
     const stress = new Float64Array(n);
-    let maxS = 0;
-    for (let i = 0; i < n; i++) {
-      let e: number, s: number;
-      if (p.mode === 'ss') {
-        e = this.xs[i]! * fa;
-        s = this.ys[i]! * p.fb;
-        if (p.trueValues) { s = s / Math.exp(e); e = Math.expm1(e); }
-      } else {
-        e = (this.xs[i]! * fa) / p.gauge;
-        s = (this.ys[i]! * p.fb) / p.area;
-      }
-      strain[i] = e;
-      stress[i] = s;
-      maxS = Math.max(maxS, Math.abs(s));
-    }
+    const maxS = convertColumns(this.xs, this.ys, n, p, fa, strain, stress);
     const maxE = this.maxA * fa / (p.mode === 'fe' ? p.gauge : 1);
     if (maxE > MAX_STRAIN) {
       this.fail(this.maxALine, p.a.index + 1, p.a.name, `reaches ${this.maxA} — not a ${p.mode === 'ss' ? 'strain' : 'extension'} of a tensile test (expected at most ${MAX_STRAIN * 100} %); are the ${p.mode === 'ss' ? 'strain and stress' : 'extension and force'} columns swapped, or is the unit wrong?`);
@@ -311,4 +338,40 @@ export class RecordBuilder {
       layout: { delimiter: L.delimiter, decimalComma: L.decimalComma, headerLine: L.headerLine, unitsLine: L.unitsLine, dataLine: L.dataLine },
     };
   }
+}
+
+/**
+ * Engineering strain (fraction) and stress (MPa) of n read rows into `strain` and `stress`: ×fa and
+ * ×fb for a stress–strain record (true values converted, s = σ/exp(ε), e = exp(ε) − 1), extension
+ * ×fa / gauge length and force ×fb / area for a force–extension record. Returns the largest |stress|.
+ * A function of its own (not a loop in `finish`, which runs once per record) so the engine
+ * optimises the loop at once (bench/RESULTS.md, issue 12 E).
+ */
+function convertColumns(xs: Float64Array, ys: Float64Array, n: number, p: Plan, fa: number, strain: Float64Array, stress: Float64Array): number {
+  let maxS = 0;
+  const fb = p.fb, gauge = p.gauge, area = p.area;
+  if (p.mode === 'ss' && !p.trueValues) {
+    for (let i = 0; i < n; i++) {
+      const s = ys[i]! * fb;
+      strain[i] = xs[i]! * fa;
+      stress[i] = s;
+      maxS = Math.max(maxS, Math.abs(s));
+    }
+    return maxS;
+  }
+  for (let i = 0; i < n; i++) {
+    let e: number, s: number;
+    if (p.mode === 'ss') {
+      e = xs[i]! * fa;
+      s = ys[i]! * fb;
+      if (p.trueValues) { s = s / Math.exp(e); e = Math.expm1(e); }
+    } else {
+      e = (xs[i]! * fa) / gauge;
+      s = (ys[i]! * fb) / area;
+    }
+    strain[i] = e;
+    stress[i] = s;
+    maxS = Math.max(maxS, Math.abs(s));
+  }
+  return maxS;
 }

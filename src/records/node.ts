@@ -1,11 +1,11 @@
-import { createReadStream, openSync, readSync, closeSync } from 'node:fs';
+import { createReadStream, openSync, readSync, closeSync, fstatSync } from 'node:fs';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { parse } from 'csv-parse';
 import { RecordBuilder, type RecordOptions, type TensileRecord } from './builder.js';
 import { recordError } from './errors.js';
 import { detectLayout, type Layout } from './layout.js';
-import { RowScanner } from './scan.js';
+import { ByteRowScanner, RowScanner } from './scan.js';
 import { checkText, csvProblem, headLines } from './parse.js';
 
 /** Bytes read to find the layout (metadata, header, units row). */
@@ -48,7 +48,9 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
   checkText(text, file);
   const layout = detectLayout(headLines(text), file, opts);
   const name = path.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '');
-  const fast = await scanFile(path, layout, { ...opts, file });
+  // Fast paths: the file's bytes, else (non-ASCII text after the header) its decoded text; any doubt,
+  // and any error from finish, goes to the located reader below, which words every message.
+  const fast = scanBytes(path, layout, { ...opts, file }) ?? await scanFile(path, layout, { ...opts, file });
   if (fast) {
     try {
       return fast.finish(name);
@@ -78,7 +80,46 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
 export const CHUNK_BYTES = 1 << 20;
 
 /**
- * The fast path of {@link readRecordFile}: streams the file in CHUNK_BYTES pieces through
+ * The first fast path of {@link readRecordFile}: reads the file in CHUNK_BYTES pieces into one
+ * buffer and scans the bytes with {@link ByteRowScanner} (no UTF-8 decoding; a line cut by the end
+ * of a piece is moved to the front of the buffer and completed by the next read). Returns the
+ * filled builder, or null on doubt (then {@link scanFile} reads the decoded text). Synchronous
+ * reads: one 1 MiB read at a time, the event loop is not needed between them. `chunkBytes` is for
+ * tests (lines cut at every place).
+ */
+export function scanBytes(path: string, layout: Layout, opts: RecordOptions, chunkBytes = CHUNK_BYTES): RecordBuilder | null {
+  const b = new RecordBuilder(layout, opts);
+  const sc = new ByteRowScanner(b);
+  const CHUNK = Math.max(1, Math.floor(chunkBytes));
+  const buf = Buffer.allocUnsafe(CHUNK + 1); // one spare byte: the scanner's end mark
+  const fd = openSync(path, 'r');
+  try {
+    const size = fstatSync(fd).size;
+    let have = 0, consumed = 0, first = true;
+    for (;;) {
+      const got = readSync(fd, buf, have, CHUNK - have, null);
+      const end = have + got;
+      const final = got === 0;
+      const used = sc.scan(buf, 0, end, final);
+      if (used < 0) return null;
+      consumed += used;
+      if (first && !final && b.rowCount > 0) {
+        // Rows expected from the first piece's bytes per row (+2 %): the columns are sized once.
+        b.reserve((b.rowCount * size / consumed) * 1.02 + 1024);
+        first = false;
+      }
+      if (final) return used === end ? b : null;
+      if (used === 0 && end === CHUNK) return null; // one line longer than the buffer: the text reader takes it
+      buf.copy(buf, 0, used, end);
+      have = end - used;
+    }
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/**
+ * The second fast path of {@link readRecordFile}: streams the file in CHUNK_BYTES pieces through
  * {@link RowScanner}. Returns the filled builder, or null when a line needs the located reader.
  */
 async function scanFile(path: string, layout: Layout, opts: RecordOptions): Promise<RecordBuilder | null> {

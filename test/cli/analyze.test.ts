@@ -80,6 +80,30 @@ describe('strainledger analyze RECORD --format json', () => {
   });
 });
 
+describe('strainledger analyze of a large record on two threads (--threads 2)', () => {
+  it('gives the same bytes as one thread, residuals included, on an INVENTED 80,000-row record (the helper thread fits Voce, Hollomon, Ludwik and Hockett–Sherby)', async () => {
+    const { synthesizeRecord, xoshiro128ss } = await import('../../src/core/index.js');
+    // INVENTED: Swift K 600 MPa, ε0 0.01, n 0.22, E 200 GPa, 1 MPa noise (as bench/records-gen.mjs).
+    const rec = synthesizeRecord({ law: { law: 'swift', K: 600, eps0: 0.01, n: 0.22 }, elasticModulus: 200000, rng: xoshiro128ss(5), noise: 1, toe: 1e-4, step: 2.712e-6 * 100_000 / 80_000, necking: { extraStrain: 0.06, dropTo: 0.7 } });
+    let text = 'Strain [%],Stress [MPa]\n';
+    for (let i = 0; i < rec.strain.length; i++) text += `${(rec.strain[i]! * 100).toFixed(6)},${rec.stress[i]!.toFixed(4)}\n`;
+    const file = join(dir, 'large.csv');
+    writeFileSync(file, text);
+    const big = (...args: string[]) => spawnSync(process.execPath, [BIN, ...args], { cwd: ROOT, encoding: 'utf8', maxBuffer: 1 << 28 });
+    const one = big('analyze', file, '--format', 'json', '--residuals', '--threads', '1');
+    const two = big('analyze', file, '--format', 'json', '--residuals', '--threads', '2');
+    expect(one.status, one.stderr).toBe(0);
+    expect(two.status, two.stderr).toBe(0);
+    const j = JSON.parse(two.stdout);
+    expect(j.fits[0].points).toBeGreaterThan(50_000); // above FIT_THREAD_MIN_POINTS: the helper thread was asked
+    expect(j.fits[0].residuals).toHaveLength(j.fits[0].points);
+    expect(two.stdout === one.stdout).toBe(true);
+    const bad = run('analyze', file, '--threads', '3');
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/--threads.*got "3", allowed a number in \[1, 2\]/);
+  });
+});
+
 describe('strainledger analyze --material-block and a plan that names a record', () => {
   it('prints a material block the plan schema accepts, and writes it atomically with --material-out', () => {
     const r = run('analyze', 'examples/stamping-strip-loops.csv', '--material-block', '--law', 'swift');
@@ -158,5 +182,26 @@ describe('strainledger analyze with invalid input exits 2 with a clear message a
     expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/swapped\.csv:13:1: Strain \[%\]: reaches 550 — not a strain/);
     expect(existsSync(out)).toBe(false);
+  });
+});
+
+describe('startFitHelper (src/cli/fitThreads.ts): law fits on two threads', () => {
+  it('analyzeRecord with the helper\'s fitLaws gives the same fits, residuals included, as fitAllLaws on one thread, and the helper did fit its laws', async () => {
+    // The built module (the helper thread runs compiled JavaScript, as in the runner).
+    const { startFitHelper } = await import(join(ROOT, 'dist', 'cli', 'fitThreads.js')) as typeof import('../../src/cli/fitThreads.js');
+    const { analyzeRecord, synthesizeRecord, xoshiro128ss } = await import('../../src/core/index.js');
+    // INVENTED: Voce-hardening record, about 140,000 rows, 2 MPa noise.
+    const rec = synthesizeRecord({ law: { law: 'voce', sigma0: 250, Q: 180, b: 12 }, elasticModulus: 70000, rng: xoshiro128ss(11), noise: 2, toe: 0, step: 2e-6, necking: { extraStrain: 0.04, dropTo: 0.8 } });
+    const helper = startFitHelper(60_000, true);
+    try {
+      const one = analyzeRecord(rec);
+      const two = analyzeRecord(rec, { fitLaws: helper.fitLaws });
+      expect(one.fits!.fits[0]!.points).toBeGreaterThan(50_000);
+      expect(helper.shared).toBe(1);
+      expect(JSON.stringify(two.fits)).toBe(JSON.stringify(one.fits));
+      expect(JSON.stringify(two.warnings)).toBe(JSON.stringify(one.warnings));
+    } finally {
+      await helper.close();
+    }
   });
 });

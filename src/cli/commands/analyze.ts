@@ -3,6 +3,9 @@ import type { LawName } from '../../core/flow/types.js';
 import type { LawFit } from '../../core/fit/types.js';
 import type { LawComparison } from '../../core/fit/fitAllLaws.js';
 import type { TensileAnalysis } from '../../core/tensile/types.js';
+import type { AnalyzeOptions } from '../../core/tensile/analyzeRecord.js';
+import { statSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { PlanError } from '../../plan/problems.js';
 import { unitsOf } from '../../plan/units.js';
 import { CAUTIONS } from '../../report/cautions.js';
@@ -146,6 +149,7 @@ export const analyze = defineCommand({
     disagreement: { type: 'string', value: 'PCT', help: 'spread between good laws, in percent, above which they are reported as disagreeing (default 10)' },
     modulus: { type: 'string', value: 'MPA', help: "Young's modulus in MPa to use instead of the one fitted to the record" },
     residuals: { type: 'boolean', default: false, help: 'include each fit\'s residuals in the JSON output' },
+    threads: { type: 'string', value: 'N', help: 'threads for the law fits of a large record, 1 or 2 (default: 2 on a machine with two or more cores when the records hold 4 MB or more); the results are the same either way' },
     column: { type: 'string', multiple: true, default: [], value: 'ROLE=NAME', help: 'which column holds a role (strain, stress, force, extension, time), by header name or number' },
     delimiter: { type: 'string', value: ', ; tab', help: 'field separator of the record (default: detected)' },
     decimal: { type: 'string', value: '. ,', help: 'decimal mark of the record (default: detected)' },
@@ -163,8 +167,9 @@ export const analyze = defineCommand({
     if (positionals.length === 0) throw cliError('RECORD', 'got no record file, allowed one or more tensile record files (CSV or tab-separated)');
     const format = values.format!;
     if (format !== 'json' && format !== 'table') throw cliError('--format', `got ${JSON.stringify(format)}, allowed one of json, table`);
-    const units = values.units!;
-    if (units !== 'SI' && units !== 'US') throw cliError('--units', `got ${JSON.stringify(units)}, allowed SI or US`);
+    const unitsText = values.units!;
+    if (unitsText !== 'SI' && unitsText !== 'US') throw cliError('--units', `got ${JSON.stringify(unitsText)}, allowed SI or US`);
+    const units: 'SI' | 'US' = unitsText;
     let law: LawName | undefined;
     if (values.law !== undefined) {
       if (!(LAW_NAMES as string[]).includes(values.law)) throw cliError('--law', `got ${JSON.stringify(values.law)}, allowed one of ${LAW_NAMES.join(', ')}`);
@@ -212,12 +217,28 @@ export const analyze = defineCommand({
       nRange = [a, b];
     }
 
+    const threads = num('threads', values.threads, 1, 2);
+    if (threads !== undefined && !Number.isInteger(threads)) throw cliError('--threads', `got ${JSON.stringify(values.threads)}, allowed 1 or 2`);
+    // A second thread for the law fits of large records, started now so it is ready when the fits begin.
+    let recordBytes = 0;
+    for (const f of positionals) { try { recordBytes += statSync(f).size; } catch { /* the reader words it */ } }
+    // Default: two threads on a machine with two or more cores for records of 4 MB or more (about 200,000 rows).
+    const wanted = threads !== undefined ? threads === 2 : availableParallelism() >= 2 && recordBytes >= 4 * 1024 * 1024;
+    const helper = wanted ? (await import('../fitThreads.js')).startFitHelper(60_000, threads === 2) : null;
+    try {
+      return await analyzeWith(helper?.fitLaws);
+    } finally {
+      await helper?.close();
+    }
+
+    async function analyzeWith(fitLaws: AnalyzeOptions['fitLaws'] | undefined): Promise<number> {
     const [{ readRecordFile }, { analyzeRecord }, { analyzeSpecimens }, { withRecordLocation }] = await Promise.all([
       import('../../records/node.js'), import('../../core/tensile/analyzeRecord.js'), import('../../core/tensile/analyzeSpecimens.js'), import('../recordErrors.js'),
     ]);
     const records: TensileRecord[] = [];
     for (const f of positionals) records.push(await readRecordFile(f, { ...ropts, file: f }));
     const aopts = {
+      ...(fitLaws ? { fitLaws } : {}),
       ...(offset !== undefined ? { proofOffsetPct: offset } : {}),
       ...(nRange ? { nRange } : {}),
       ...(checkStrains.length ? { checkStrains } : {}),
@@ -268,5 +289,6 @@ export const analyze = defineCommand({
       io.stdout(text);
     }
     return 0;
+    }
   },
 });

@@ -1,8 +1,9 @@
+import { InputError } from '../errors.js';
 import { makeLaw } from '../flow/makeLaw.js';
 import { LAW_NAMES } from '../flow/params.js';
 import type { LawName, LawSpec } from '../flow/types.js';
 import { fitLaw } from './fitLaw.js';
-import { lawData } from './lawNormalEquations.js';
+import { lawData, type LawData } from './lawNormalEquations.js';
 import type { FitWarning, LawFit } from './types.js';
 
 /** Defaults of the law comparison, stated once. */
@@ -47,6 +48,8 @@ export interface FitAllOptions {
   /** Extra strains to check, e.g. the largest accumulated strain of a route. */
   checkStrains?: readonly number[];
   disagreementPct?: number;
+  /** The same strain and stress already packed by {@link lawData} (analyzeRecord shares its ln ε with the n-value). */
+  packed?: LawData;
 }
 
 /**
@@ -59,10 +62,21 @@ export interface FitAllOptions {
  */
 export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>, opts: FitAllOptions = {}): LawComparison {
   const laws = opts.laws ?? LAW_NAMES;
-  const fits: LawFit[] = [];
-  const warnings: FitWarning[] = [];
-  const byLaw = new Map<LawName, LawFit>();
-  const packed = lawData(strain, stress); // ln ε once for every law
+  const packed = opts.packed && opts.packed.x.length === strain.length ? opts.packed : lawData(strain, stress); // ln ε once for every law
+  return compareLawFits(fitLawGroup(laws, strain, stress, packed), stress, opts);
+}
+
+/**
+ * The fits of {@link fitAllLaws} without the comparison: each of `laws` fitted by {@link fitLaw} to the
+ * packed curve, in the order fitAllLaws uses (the Swift–Voce blend last, started from the Swift and
+ * Voce fits, or from Swift alone when that start ends lower). A law's fit depends only on the data
+ * and its start, so groups of laws may be fitted apart (the runner fits two groups on two threads)
+ * and give the same fits. Units as fitAllLaws.
+ * @example fitLawGroup(['hollomon'], eps, sigma, lawData(eps, sigma)).get('hollomon')!.params.n
+ */
+export function fitLawGroup(laws: readonly LawName[], strain: ArrayLike<number>, stress: ArrayLike<number>, packed: LawData, prior?: ReadonlyMap<LawName, LawFit>): Map<LawName, LawFit> {
+  // `prior`: fits already made (e.g. Voce on the other thread), used as the blend's start like fits made here.
+  const byLaw = new Map<LawName, LawFit>(prior ?? []);
   const fit = (law: LawName, o: { start?: Record<string, number> } = {}) => fitLaw(law, strain, stress, { ...o, packed });
   const order = [...laws].sort((a, b) => (a === 'swiftVoce' ? 1 : 0) - (b === 'swiftVoce' ? 1 : 0));
   for (const law of order) {
@@ -83,16 +97,29 @@ export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>,
     }
     byLaw.set(law, f);
   }
+  return byLaw;
+}
+
+/**
+ * The comparison part of {@link fitAllLaws}: fits in the order of `opts.laws` (default LAW_NAMES)
+ * from `byLaw`, best by AIC, laws that fit well, extrapolation spreads and `lawsDisagree` warnings.
+ * `stress` is the fitted curve's stress (its mean sets the 1 % rule). Units as fitAllLaws.
+ * @example compareLawFits(fitLawGroup(LAW_NAMES, eps, sigma, lawData(eps, sigma)), sigma).best
+ */
+export function compareLawFits(byLaw: ReadonlyMap<LawName, LawFit>, stress: ArrayLike<number>, opts: FitAllOptions = {}): LawComparison {
+  const laws = opts.laws ?? LAW_NAMES;
+  const fits: LawFit[] = [];
+  const warnings: FitWarning[] = [];
   for (const law of laws) {
-    const f = byLaw.get(law)!;
+    const f = byLaw.get(law);
+    if (!f) throw new InputError('laws', law, `a law fitted in the group (${[...byLaw.keys()].join(', ')})`);
     fits.push(f);
     warnings.push(...f.warnings);
   }
   const conv = fits.filter((f) => f.converged);
   const best = conv.length ? conv.reduce((a, b) => (b.aic < a.aic ? b : a)).law : null;
   const bestRmse = conv.length ? Math.min(...conv.map((f) => f.rmse)) : Infinity;
-  let meanStress = 0;
-  for (let i = 0; i < stress.length; i++) meanStress += stress[i]! / stress.length;
+  const meanStress = meanOf(stress);
   const goodRmse = Math.max(FIT_DEFAULTS.goodFitRmseFactor * bestRmse, FIT_DEFAULTS.goodFitRelRmse * Math.abs(meanStress)) + 1e-12;
   const good = conv.filter((f) => f.rmse <= goodRmse);
   const top = fits.length ? Math.max(...fits.map((f) => f.strainRange[1])) : 0;
@@ -120,4 +147,12 @@ export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>,
     }
   }
   return { fits, best, goodLaws: good.map((f) => f.law), extrapolation, warnings };
+}
+
+/** Σ yᵢ/n in index order (the comparison's mean flow stress), in a function of its own so the loop is optimised at once. */
+function meanOf(y: ArrayLike<number>): number {
+  const n = y.length;
+  let m = 0;
+  for (let i = 0; i < n; i++) m += y[i]! / n;
+  return m;
 }

@@ -156,14 +156,22 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
     strainRange: [lo, hi], points: n, warnings, standardErrorsIndependent,
     basis: { fittedPoints: fitted.x.length, blockSize, lag1Autocorrelation: eff.lag1, effectivePoints: eff.effectiveN, inflation: eff.inflation },
   };
-  // The residuals are made when first read (one value pass, then kept): `analyze` without
-  // --residuals never reads them, and on a 766,736-point curve six laws' residual arrays cost
-  // 35 MB and a tenth of the command's time (bench/RESULTS.md, issue 12 D). Same values as before.
+  return withLazyResiduals(fit, full, res.params);
+}
+
+/**
+ * Gives `fit` its `residuals` as an accessor: made when first read (one value pass of the law at
+ * `params` over `data`, then kept) and assignable. `analyze` without --residuals never reads them,
+ * and on a 766,736-point curve six laws' residual arrays cost 35 MB and a tenth of the command's
+ * time (bench/RESULTS.md, issue 12 D). The runner uses it to rebuild fits made on another thread.
+ * Units MPa (model − data). Returns `fit`.
+ */
+export function withLazyResiduals(fit: LawFit, data: LawData, params: Float64Array): LawFit {
   let residuals: number[] | null = null;
-  const p = res.params;
+  const law = fit.law;
   Object.defineProperty(fit, 'residuals', {
     enumerable: true, configurable: true,
-    get: () => (residuals ??= lawResiduals(law, full, p)),
+    get: () => (residuals ??= lawResiduals(law, data, params)),
     set: (v: number[]) => { residuals = v; },
   });
   return fit;

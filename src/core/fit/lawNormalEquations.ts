@@ -101,6 +101,16 @@ function packed(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Array | nu
  * @example levenbergMarquardtNormal(lawNormalProblem('voce', lawData(x, y), lower, upper), start, { lower, upper })
  */
 export function lawNormalProblem(law: LawName, d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
+  if (law === 'swiftVoce') return swiftVoceProblem(d, lower, upper);
+  if (law === 'hockettSherby') return hockettSherbyProblem(d, lower, upper);
+  return pointProblem(law, d, lower, upper);
+}
+
+/**
+ * {@link lawNormalProblem} through POINT's shared call site, for every law (the written-out forms of
+ * the blend and Hockett–Sherby are checked against it bit for bit in test/core/fit/normal.test.ts).
+ */
+export function pointProblem(law: LawName, d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
   const pt = POINT[law];
   const m = lower.length;
   const gr = new Float64Array(m);
@@ -138,6 +148,126 @@ export function lawNormalProblem(law: LawName, d: LawData, lower: readonly numbe
         }
       }
       for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) A[b * m + a] = A[a * m + b]!;
+      return Number.isFinite(s) ? s : Infinity;
+    },
+  };
+}
+
+/**
+ * {@link lawNormalProblem} for the Swift–Voce blend with POINT.swiftVoce written out in the loops: the
+ * same operations in the same order (so the same sums, bit for bit; test/core/fit checks the fits),
+ * but a call the engine can inline. The blend's fit is the longest of the six (≈140 steps on a
+ * 1,000,000-row record) and on the runner's critical path; through POINT's shared call site its
+ * steps took twice as long (bench/RESULTS.md, issue 12 E).
+ */
+function swiftVoceProblem(d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
+  const m = 7;
+  const gr = new Float64Array(m);
+  const { x, y, w } = d;
+  const n = x.length;
+  const inBox = (p: Float64Array) => {
+    for (let j = 0; j < m; j++) if (!(p[j]! >= lower[j]! && p[j]! <= upper[j]!)) return false;
+    return true;
+  };
+  return {
+    m,
+    cost(p) {
+      if (!inBox(p)) return Infinity;
+      const al = p[0]!, K = p[1]!, e0 = p[2]!, k = p[3]!, s0 = p[4]!, Q = p[5]!, b = p[6]!;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const xi = x[i]!;
+        const S = K * Math.exp(k * Math.log(e0 + xi));
+        const om = -Math.expm1(-b * xi);
+        const V = s0 + Q * om;
+        const r = al * S + (1 - al) * V - y[i]!;
+        s += w ? w[i]! * r * r : r * r;
+      }
+      return Number.isFinite(s) ? s : Infinity;
+    },
+    normal(p, A, g) {
+      A.fill(0);
+      g.fill(0);
+      if (!inBox(p)) return Infinity;
+      const al = p[0]!, K = p[1]!, e0 = p[2]!, k = p[3]!, s0 = p[4]!, Q = p[5]!, b = p[6]!;
+      const c = 1 - al;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const xi = x[i]!;
+        // swiftAt(x, p, 1, al, gr, 1)
+        const u = e0 + xi, lu = Math.log(u), P = Math.exp(k * lu), S = K * P;
+        gr[1] = al * P; gr[2] = (al * k * S) / u; gr[3] = al * S * lu;
+        // voceAt(x, p, 4, 1 − al, gr, 4)
+        const E = Math.exp(-b * xi), om = -Math.expm1(-b * xi);
+        gr[4] = c; gr[5] = c * om; gr[6] = c * Q * xi * E;
+        const V = s0 + Q * om;
+        gr[0] = S - V;
+        const r = al * S + (1 - al) * V - y[i]!;
+        const wi = w ? w[i]! : 1;
+        s += wi * r * r;
+        for (let a = 0; a < m; a++) {
+          const ga = wi * gr[a]!;
+          g[a] = g[a]! + ga * r;
+          const row = a * m;
+          for (let bb = 0; bb <= a; bb++) A[row + bb] = A[row + bb]! + ga * gr[bb]!;
+        }
+      }
+      for (let a = 0; a < m; a++) for (let bb = 0; bb < a; bb++) A[bb * m + a] = A[a * m + bb]!;
+      return Number.isFinite(s) ? s : Infinity;
+    },
+  };
+}
+
+/**
+ * {@link lawNormalProblem} for Hockett–Sherby with POINT.hockettSherby written out in the loops (the
+ * same operations in the same order, as {@link swiftVoceProblem}): its fit is the second longest
+ * (≈75 steps on a 1,000,000-row record) and the longest on the runner's helper thread.
+ */
+function hockettSherbyProblem(d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
+  const m = 4;
+  const gr = new Float64Array(m);
+  const { y, w, lx } = d;
+  const n = d.x.length;
+  const inBox = (p: Float64Array) => {
+    for (let j = 0; j < m; j++) if (!(p[j]! >= lower[j]! && p[j]! <= upper[j]!)) return false;
+    return true;
+  };
+  return {
+    m,
+    cost(p) {
+      if (!inBox(p)) return Infinity;
+      const sat = p[0]!, s0 = p[1]!, a = p[2]!, e = p[3]!;
+      const dd = sat - s0;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const dE = dd * Math.exp(-a * Math.exp(e * lx[i]!));
+        const r = (dd > 0 ? sat - dE : NaN) - y[i]!;
+        s += w ? w[i]! * r * r : r * r;
+      }
+      return Number.isFinite(s) ? s : Infinity;
+    },
+    normal(p, A, g) {
+      A.fill(0);
+      g.fill(0);
+      if (!inBox(p)) return Infinity;
+      const sat = p[0]!, s0 = p[1]!, a = p[2]!, e = p[3]!;
+      const dd = sat - s0;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const li = lx[i]!;
+        const X = Math.exp(e * li), E = Math.exp(-a * X), dE = dd * E;
+        gr[0] = 1 - E; gr[1] = E; gr[2] = dE * X; gr[3] = dE * a * X * li;
+        const r = (dd > 0 ? sat - dE : NaN) - y[i]!;
+        const wi = w ? w[i]! : 1;
+        s += wi * r * r;
+        for (let q = 0; q < m; q++) {
+          const ga = wi * gr[q]!;
+          g[q] = g[q]! + ga * r;
+          const row = q * m;
+          for (let bb = 0; bb <= q; bb++) A[row + bb] = A[row + bb]! + ga * gr[bb]!;
+        }
+      }
+      for (let q = 0; q < m; q++) for (let bb = 0; bb < q; bb++) A[bb * m + q] = A[q * m + bb]!;
       return Number.isFinite(s) ? s : Infinity;
     },
   };

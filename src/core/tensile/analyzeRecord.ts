@@ -1,12 +1,13 @@
 import { InputError } from '../errors.js';
-import { fitAllLaws } from '../fit/fitAllLaws.js';
+import { fitAllLaws, type FitAllOptions, type LawComparison } from '../fit/fitAllLaws.js';
 import type { LawName } from '../flow/types.js';
 import { fitModulusDecay, findCycles } from './cycles.js';
 import { linearFit } from '../fit/linearFit.js';
 import { ELASTIC_WINDOW, elasticModulus } from './elasticModulus.js';
 import { forceMaximum } from './forceMaximum.js';
 import { recordNoise } from './recordNoise.js';
-import { nValueFit } from './nValue.js';
+import { nValueFit, nValueFitLogs } from './nValue.js';
+import { lawData, type LawData } from '../fit/lawNormalEquations.js';
 import { proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { TensileAnalysis, TensileData, TensileWarning } from './types.js';
 import { yieldPoint } from './yieldPoint.js';
@@ -24,6 +25,11 @@ export interface AnalyzeOptions {
   disagreementPct?: number;
   /** Young's modulus to use instead of the fitted one (MPa). */
   elasticModulus?: number;
+  /**
+   * The law fitter, default {@link fitAllLaws}. Any replacement must return what fitAllLaws returns
+   * for the same arguments (the runner passes one that fits two groups of laws on two threads).
+   */
+  fitLaws?: (strain: Float64Array, stress: Float64Array, opts: FitAllOptions & { packed: LawData }) => LawComparison;
 }
 
 /** Half-width of Ag's 95 % interval, points, above which Ag is reported as uncertain (the issue's 0.4-point target). */
@@ -58,13 +64,8 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const N = strain.length;
   if (stress.length !== N) throw new InputError('stress', stress.length, `as many values as strain (${N})`);
   if (N < 10) throw new InputError('points', N, 'at least 10 points in a tensile record');
-  for (let i = 0; i < N; i++) {
-    if (!Number.isFinite(strain[i]!)) throw new InputError(`strain[${i}]`, strain[i], 'a finite number');
-    if (!Number.isFinite(stress[i]!)) throw new InputError(`stress[${i}]`, stress[i], 'a finite number');
-  }
+  const iRaw = finiteArgMax(strain, stress);
   const warnings: TensileWarning[] = [];
-  let iRaw = 0;
-  for (let i = 1; i < N; i++) if (stress[i]! > stress[iRaw]!) iRaw = i;
   const sMax = stress[iRaw]!;
   if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
   const noise = recordNoise(stress);
@@ -109,15 +110,9 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);
 
   // Fracture: first sudden fall after the highest stress, else the end of the record.
-  let fi = N - 1;
-  let detected = false;
-  for (let i = iRaw; i < N - 1; i++) {
-    if (stress[i + 1]! < (1 - ANALYZE_DEFAULTS.fractureDrop) * stress[i]! || stress[i + 1]! < ANALYZE_DEFAULTS.fractureFloor * sMax) {
-      fi = i;
-      detected = true;
-      break;
-    }
-  }
+  const fall = firstFall(stress, iRaw, sMax);
+  const detected = fall >= 0;
+  const fi = detected ? fall : N - 1;
   const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
@@ -156,30 +151,18 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   // The flow curve in one pass (ln(1 + e) only for the points of the envelope), into arrays sized
   // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
   // true curve that `analyze` never prints were a tenth of the command (bench/RESULTS.md, issue 12 D).
-  const m = iMax + 1;
-  const fStrain = new Array<number>(m), fStress = new Array<number>(m);
-  let nf = 0;
-  const fromIndex = proof ? proof.index : 0;
-  let runMax = -Infinity;
-  for (let i = 0; i <= iMax; i++) {
-    const e = strain[i]! - toe;
-    if (e <= runMax) continue;
-    runMax = e;
-    if (e <= -1 || i < fromIndex) continue; // no true strain, or before the proof point: not on the flow curve
-    const s = stress[i]! * (1 + e);
-    const ep = Math.log1p(e) - s / E;
-    if (ep >= fromTrue && ep > 0) {
-      fStrain[nf] = ep;
-      fStress[nf++] = s;
-    }
-  }
-  fStrain.length = fStress.length = nf;
+  const { strain: fStrain, stress: fStress } = flowColumns(strain, stress, toe, E, iMax, proof ? proof.index : 0, fromTrue);
+  const nf = fStrain.length;
+  // ln εp once, for the n-value and every law fit (lawData: the same Math.log of the same values).
+  const packed = nf > 0 ? lawData(fStrain, fStress) : null;
 
   // n-value (ISO 10275).
   let nFit = null;
   {
     let xs: ArrayLike<number> = fStrain, ys: ArrayLike<number> = fStress;
+    let lx: Float64Array | undefined = packed?.lx;
     if (opts.nRange) {
+      lx = undefined;
       const [a, b] = opts.nRange;
       if (!(a >= 0 && b > a)) throw new InputError('nRange', opts.nRange, 'a pair [from, to] of engineering strains with 0 ≤ from < to');
       const xr: number[] = [], yr: number[] = [];
@@ -189,14 +172,14 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
       }
       xs = xr; ys = yr;
     }
-    if (xs.length >= 3) nFit = nValueFit(xs, ys);
+    if (xs.length >= 3) nFit = lx ? nValueFitLogs(xs, ys, lx) : nValueFit(xs, ys);
     else warnings.push({ code: 'nRange', message: `only ${xs.length} points in the n-value range; no n-value` });
   }
 
   let fits = null;
   if (opts.fit !== false) {
     if (fStrain.length >= 9) {
-      fits = fitAllLaws(fStrain, fStress, { ...(opts.laws ? { laws: opts.laws } : {}), ...(opts.checkStrains ? { checkStrains: opts.checkStrains } : {}), ...(opts.disagreementPct !== undefined ? { disagreementPct: opts.disagreementPct } : {}) });
+      fits = (opts.fitLaws ?? fitAllLaws)(fStrain, fStress, { packed: packed!, ...(opts.laws ? { laws: opts.laws } : {}), ...(opts.checkStrains ? { checkStrains: opts.checkStrains } : {}), ...(opts.disagreementPct !== undefined ? { disagreementPct: opts.disagreementPct } : {}) });
       warnings.push(...fits.warnings);
     } else {
       warnings.push({ code: 'fewFlowPoints', message: `only ${fStrain.length} points on the plastic flow curve up to maximum force; no law fitted` });
@@ -241,7 +224,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     K: nFit?.K ?? null,
     nFit,
     trueCurve: { strain: [], stress: [], plasticStrain: [] },
-    flowCurve: { strain: fStrain, stress: fStress },
+    flowCurve: { strain: [], stress: [] },
     cycles,
     modulusDecay,
     fits,
@@ -255,7 +238,64 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     get: () => (tc ??= trueCurveTo(strain, stress, toe, E, iMax)),
     set: (v: TensileAnalysis['trueCurve']) => { tc = v; },
   });
+  // The flow curve as plain arrays when first read (analyze prints only the fits made from it).
+  let fcArrays: TensileAnalysis['flowCurve'] | null = null;
+  Object.defineProperty(analysis, 'flowCurve', {
+    enumerable: true, configurable: true,
+    get: () => (fcArrays ??= { strain: Array.from(fStrain), stress: Array.from(fStress) }),
+    set: (v: TensileAnalysis['flowCurve']) => { fcArrays = v; },
+  });
   return analysis;
+}
+
+// The record-long loops of analyzeRecord live in small functions of their own: analyzeRecord runs
+// once per record and is long, so the engine would run its loops unoptimised until it had compiled
+// the whole function (measured: the finite check and the search for the highest stress took 16 and
+// 11 ms of a 1,000,000-row analysis inside analyzeRecord, bench/RESULTS.md issue 12 E).
+
+/** Index of the first highest stress; throws naming the first non-finite value (strain before stress at each index). */
+function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>): number {
+  const N = strain.length;
+  let iRaw = 0, top = -Infinity;
+  for (let i = 0; i < N; i++) {
+    const e = strain[i]!, s = stress[i]!;
+    if (!Number.isFinite(e)) throw new InputError(`strain[${i}]`, e, 'a finite number');
+    if (!Number.isFinite(s)) throw new InputError(`stress[${i}]`, s, 'a finite number');
+    if (i === 0 || s > top) { top = s; iRaw = i; }
+  }
+  return iRaw;
+}
+
+/** Fracture: the first i ≥ iRaw after which the stress falls by more than fractureDrop or below fractureFloor·sMax; −1 if none. */
+function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number): number {
+  const keep = 1 - ANALYZE_DEFAULTS.fractureDrop, floor = ANALYZE_DEFAULTS.fractureFloor * sMax;
+  for (let i = iRaw; i < stress.length - 1; i++) if (stress[i + 1]! < keep * stress[i]! || stress[i + 1]! < floor) return i;
+  return -1;
+}
+
+/**
+ * The flow curve in one pass: the monotone envelope of samples fromIndex…iMax (cycles left out),
+ * toe-compensated, as true plastic strain εp = ln(1 + e) − σ/E and true stress σ = s(1 + e)
+ * (Dowling §4.5), keeping εp ≥ fromTrue and > 0; ln(1 + e) only for envelope points.
+ */
+function flowColumns(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: number, E: number, iMax: number, fromIndex: number, fromTrue: number): { strain: Float64Array; stress: Float64Array } {
+  const m = iMax + 1;
+  const xs = new Float64Array(m), ys = new Float64Array(m);
+  let nf = 0;
+  let runMax = -Infinity;
+  for (let i = 0; i <= iMax; i++) {
+    const e = strain[i]! - toe;
+    if (e <= runMax) continue;
+    runMax = e;
+    if (e <= -1 || i < fromIndex) continue; // no true strain, or before the proof point: not on the flow curve
+    const s = stress[i]! * (1 + e);
+    const ep = Math.log1p(e) - s / E;
+    if (ep >= fromTrue && ep > 0) {
+      xs[nf] = ep;
+      ys[nf++] = s;
+    }
+  }
+  return { strain: xs.subarray(0, nf), stress: ys.subarray(0, nf) };
 }
 
 /**

@@ -19,6 +19,7 @@ export const UNLOAD_MIN_DROP = 0.3;
  */
 export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<number>, E: number, toe: number, fromIndex: number, noise: number): UnloadCycle[] {
   const n = engStress.length;
+  if (!mayHoldCycle(engStrain, engStress, toe, Math.max(1, fromIndex), n)) return [];
   // Work in true stress and true strain: at 10 % strain the engineering chord would read (1 + e)² ≈ 21 % low.
   // True strain only where a candidate cycle is examined (a few thousand samples, not every one:
   // the full pass of ln(1 + e) was most of this function on a 1,000,000-row record, issue 12 D).
@@ -82,6 +83,29 @@ export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<nu
     i = Math.max(next, r + 1);
   }
   return out;
+}
+
+/**
+ * A necessary condition for {@link findCycles} to find a cycle, in one pass without logarithms: some
+ * sample r whose true stress is at most UNLOAD_MIN_DROP below an earlier peak's (σ_r ≤ 0.7·max σ
+ * before r) while its strain lies below an earlier strain (a cycle's reversal has ε_r < ε_i − 0.3·drop/E
+ * < ε_i; ln(1 + e) is increasing, so the engineering strains compare the same way). A record without
+ * such a sample (no unloading: strain never falls back while the stress is 30 % down) has no cycle,
+ * and findCycles skips its candidate walk, which on a noisy 1,000,000-row record visited every
+ * noise peak of the flat top (bench/RESULTS.md, issue 12 E). A record with one runs the full search,
+ * so the cycles found are the same either way.
+ */
+function mayHoldCycle(engStrain: ArrayLike<number>, engStress: ArrayLike<number>, toe: number, from: number, n: number): boolean {
+  let maxS = -Infinity, maxE = -Infinity;
+  for (let q = from - 1; q < n; q++) {
+    const e = Math.max(engStrain[q]! - toe, -0.5);
+    const s = engStress[q]! * (1 + e);
+    // Slack of 1e-9 on the stress bound: findCycles compares drop ≥ 0.3·σ_i in its own rounding.
+    if (e < maxE && s <= 0.7 * maxS + 1e-9 * Math.abs(maxS)) return true;
+    if (s > maxS) maxS = s;
+    if (e > maxE) maxE = e;
+  }
+  return false;
 }
 
 /**

@@ -28,6 +28,35 @@ export function nValueFit(plasticStrain: ArrayLike<number>, trueStress: ArrayLik
       if (e > hi) hi = e;
     }
   }
+  return nResult(lx, ly, k, lo, hi);
+}
+
+/**
+ * {@link nValueFit} when ln εp of every point is already known (`logStrain[i]` = Math.log(plasticStrain[i]),
+ * as `lawData` packs it for the law fits): the same regression and the same numbers, one logarithm
+ * pass fewer on a long flow curve. Units and range as nValueFit.
+ * @throws InputError when fewer than 3 usable points.
+ * @example nValueFitLogs([0.01, 0.1, 0.2], [530 * 0.01 ** 0.44, 530 * 0.1 ** 0.44, 530 * 0.2 ** 0.44], [Math.log(0.01), Math.log(0.1), Math.log(0.2)]).n // 0.44
+ */
+export function nValueFitLogs(plasticStrain: ArrayLike<number>, trueStress: ArrayLike<number>, logStrain: ArrayLike<number>): NValueResult {
+  const n = plasticStrain.length;
+  const lx = new Float64Array(n), ly = new Float64Array(n);
+  let k = 0;
+  let lo = Infinity, hi = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const e = plasticStrain[i]!, s = trueStress[i]!;
+    if (e > 0 && s > 0) {
+      lx[k] = logStrain[i]!;
+      ly[k] = Math.log(s);
+      k++;
+      if (e < lo) lo = e;
+      if (e > hi) hi = e;
+    }
+  }
+  return nResult(lx, ly, k, lo, hi);
+}
+
+function nResult(lx: Float64Array, ly: Float64Array, k: number, lo: number, hi: number): NValueResult {
   if (k < 3) throw new InputError('nRange', k, 'at least 3 points with true plastic strain > 0 in the n-value range');
   const f = linearFit(lx, ly, 0, k);
   return { n: f.slope, K: Math.exp(f.intercept), r2: f.r2, range: [lo, hi], points: k, method: 'ISO 10275: regression of ln(true stress) on ln(true plastic strain)' };
