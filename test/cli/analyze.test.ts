@@ -36,6 +36,22 @@ describe('strainledger analyze RECORD --format json', () => {
     for (const f of j.fits) for (const k of ['law', 'params', 'standardErrors', 'rmse', 'r2', 'converged']) expect(f, `${f.law}.${k}`).toHaveProperty(k);
     expect(r.stdout).not.toMatch(/NaN|Infinity/);
   });
+  it('table: a continuous record says "none (continuous yielding)"; a record cut before maximum force marks Rm, Ag and A as lower bounds', () => {
+    const full = run('analyze', join(FIX, '46NT9B.csv'));
+    expect(full.status).toBe(0);
+    expect(full.stdout).toMatch(/^ {2}ReH {10}none \(continuous yielding\)$/m);
+    expect(full.stdout).toMatch(/^ {2}Rm {11}\d/m);
+    // The same record cut at 2 % strain, before its maximum force (about 5 %): header and units rows kept.
+    const lines = readFileSync(join(FIX, '46NT9B.csv'), 'utf8').split('\n');
+    const head = lines.findIndex((l) => l.startsWith('Time'));
+    const cut = lines.slice(0, head + 2).concat(lines.slice(head + 2).filter((l) => l.trim() !== '' && Number(l.split('\t')[4]) < 0.02));
+    const file = join(dir, 'cut-46NT9B.csv');
+    writeFileSync(file, cut.join('\n') + '\n');
+    const r = run('analyze', file);
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/^ {2}Rm {11}≥ \d/m);
+    expect(r.stdout).toMatch(/^ {2}Ag \/ Agt \/ A ≥ [\d.]+ \/ ≥ [\d.]+ \/ ≥ [\d.]+ % {3}\(the record ends before maximum force\)$/m);
+  });
   it('the invented record with unload–reload loops reports every cycle and the chord-modulus decay', () => {
     const j = JSON.parse(run('analyze', 'examples/stamping-strip-loops.csv', '--format', 'json').stdout);
     expect(j.cycles).toHaveLength(4);

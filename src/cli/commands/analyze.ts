@@ -108,8 +108,11 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   lines.push(`  noise        ${a.noise.toPrecision(2)} MPa (estimated from the record)`);
   lines.push(`  Rp${a.proofOffsetPct}        ${fmt(a.proofStrength)} MPa   Rp0.5 ${fmt(a.proofStrengths[1]?.stress)}   Rp1 ${fmt(a.proofStrengths[2]?.stress)}   Rt0.5 ${fmt(a.totalExtensionStrength)}`);
   if (a.upperYield !== null) lines.push(`  ReH / ReL    ${fmt(a.upperYield)} / ${fmt(a.lowerYield)} MPa   Ae ${fmt(a.yieldPointElongationPct, 2)} %`);
-  lines.push(`  Rm           ${fmt(a.tensileStrength)} MPa`);
-  lines.push(`  Ag / Agt / A ${fmt(a.uniformElongationPct, 2)} / ${fmt(a.uniformTotalElongationPct, 2)} / ${fmt(a.totalElongationPct, 2)} %`);
+  else lines.push('  ReH          none (continuous yielding)');
+  // A record that stops before maximum force gives lower bounds, marked ≥ (the warning below says why).
+  const ge = a.warnings.some((x) => x.code === 'maxAtEnd') ? '≥ ' : '';
+  lines.push(`  Rm           ${ge}${fmt(a.tensileStrength)} MPa`);
+  lines.push(`  Ag / Agt / A ${ge}${fmt(a.uniformElongationPct, 2)} / ${ge}${fmt(a.uniformTotalElongationPct, 2)} / ${ge}${fmt(a.totalElongationPct, 2)} %${ge ? '   (the record ends before maximum force)' : ''}`);
   lines.push(`  n, K         ${fmt(a.nValue, 4)}, ${fmt(a.K, 0)} MPa (ISO 10275)`);
   if (a.fits) {
     lines.push('  law             RMSE MPa   R²        AIC      converged  parameters');
