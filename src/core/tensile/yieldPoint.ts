@@ -1,5 +1,6 @@
+import { blockAverage } from '../fit/blockAverage.js';
 import { linearFit } from '../fit/linearFit.js';
-import { movingAverage } from './localFit.js';
+import { movingAverage, polynomialFit } from './localFit.js';
 
 export interface YieldPointResult {
   upperYield: number;
@@ -26,6 +27,12 @@ export const YIELD_DROP = {
   plateauStrain: 0.003,
   /** The peak must lie within this plastic strain of the elastic line. */
   maxPeakPlastic: 0.005,
+  /** The plateau ends at the last point where the smoothed stress is within this fraction of its median (or 3 sd of the smooth, if more). */
+  plateauBand: 0.003,
+  /** Strain of the hardening branch past the plateau's end taken into the plateau–hardening fit. */
+  hardeningStrain: 0.005,
+  /** A fall of at least this many samples is located as a change point; fewer are read as recorded. */
+  fallPoints: 3,
 } as const;
 
 /**
@@ -98,6 +105,7 @@ export function yieldPoint(
   while (k0 > fromIndex && stress[k0 - 1]! >= 0.5 * stress[q]! && stress[k0 - 1]! < stress[k0]! + 3 * noise) k0--;
   let reh = stress[q]!;
   let seReh = noise;
+  let rise: { a: number; b: number } | null = null;
   if (q - k0 >= 3) {
     try {
       // The line through the rise with the peak sample left out, so a sample already on the fall cannot pull
@@ -106,18 +114,36 @@ export function yieldPoint(
       // the last sample on the line (read on the line) and the peak sample as recorded.
       const k = q - k0;
       const f = linearFit(strain, stress, k0, q);
+      rise = { a: f.intercept, b: f.slope };
       const v = f.intercept + f.slope * strain[q]!;
       if (stress[q]! >= v - 1.5 * noise * Math.sqrt(1 + 4 / k)) { reh = v; seReh = noise * Math.sqrt(4 / k); }
       else { reh = Math.max(f.intercept + f.slope * strain[q - 1]!, stress[q]!); }
     } catch { /* keep the sample */ }
   }
-  // Plateau level after the departure.
+  // Plateau level after the departure: median over 0.3 % strain (robust to the fall's samples at its start).
   let pEnd = d;
   while (pEnd < maxIndex && (strain[pEnd]! - strain[d]! < Y.plateauStrain || pEnd - d < 5)) pEnd++;
   const nLevel = pEnd - d;
   if (nLevel < 3) return null;
   const lv = Float64Array.from({ length: nLevel }, (_, k) => stress[d + k]!).sort();
   const level = lv[nLevel >> 1]!;
+  // The fall: samples from the departure until the stress first comes within 3 noise sd of the level.
+  // (three samples in a row, so one noisy sample part-way down the fall does not end it).
+  const below = (i: number, v: number) => stress[i]! <= v && (i + 1 > maxIndex || stress[i + 1]! <= v) && (i + 2 > maxIndex || stress[i + 2]! <= v);
+  let r0 = d;
+  while (r0 < maxIndex && !below(r0, level + 3 * noise)) r0++;
+  if (r0 - d >= Y.fallPoints && rise) {
+    // Finely sampled fall: the peak is where the rise line turns into the fall, found as a change point —
+    // least squares of "rise line, then a straight fall from it" over the break position (grid over the
+    // samples from the last few on the rise to the end of the fall). ReH is the rise line at the break.
+    const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - (r0 - d)), r0);
+    if (cp !== null) { reh = rise.a + rise.b * cp; seReh = noise * Math.sqrt(4 / Math.max(2, q - k0)); }
+  } else {
+    // Coarse: at most a couple of samples on the fall. The highest noise-free sample may be one of them (caught
+    // part-way down): read them as recorded (noise σ̂ each).
+    for (let i = d; i < r0; i++) if (stress[i]! > reh) { reh = stress[i]!; seReh = noise; }
+  }
+  // The plateau's lower level (its troughs): see plateauTroughs.
   const seDiff = Math.sqrt(seReh * seReh + (1.57 * noise * noise) / nLevel);
   const threshold = Math.max(Y.minRelDrop * reh, Y.sigmas * seDiff);
   const drop = reh - level;
@@ -126,39 +152,164 @@ export function yieldPoint(
   const to = Math.max(d + 1, maxIndex + 1);
   const wNoise = Math.ceil(((noise / (0.0015 * level)) ** 2));
   // Rough plateau length for the cap: points until the raw stress first passes level + 5 %.
-  // It starts where the raw stress first reaches the level (after the fall from ReH, which can take several
-  // samples on a finely sampled record: counting from the departure would stop inside the fall).
-  let r0 = d;
-  while (r0 < maxIndex && stress[r0]! > level + 3 * noise) r0++;
   let rough = r0;
-  while (rough < maxIndex && stress[rough]! < 1.05 * level) rough++;
-  const w = Math.max(1, Math.min(wNoise, Math.floor((rough - r0) / 6))) | 1;
+  while (rough < maxIndex && !(stress[rough]! >= 1.05 * level && (rough + 1 > maxIndex || stress[rough + 1]! >= 1.05 * level) && (rough + 2 > maxIndex || stress[rough + 2]! >= 1.05 * level))) rough++;
+  const cap = Math.max(1, Math.floor((rough - r0) / 6));
+  const w1 = Math.max(1, Math.min(wNoise, cap)) | 1;
+  // The window is sized from the scatter of the plateau about a first smooth (noise and serrations too fast
+  // for that smooth), so the smoothed plateau's own scatter is about 0.15 % of the level.
+  let scatter = noise;
+  if (w1 > 1 && rough - r0 >= 10) {
+    const ma1 = movingAverage(stress, r0, rough, w1);
+    let v = 0;
+    for (let i = r0; i < rough; i++) v += (stress[i]! - ma1[i - r0]!) ** 2;
+    scatter = Math.max(noise, Math.sqrt((v / (rough - r0)) * (w1 / (w1 - 1))));
+  }
+  const w = Math.max(1, Math.min(Math.ceil((scatter / (0.0015 * level)) ** 2), cap)) | 1;
   const ma = movingAverage(stress, d, to, w);
-  const band = Math.max((3 * noise) / Math.sqrt(w), 0.01 * level);
+  const band = Math.max((3 * scatter) / Math.sqrt(w), Y.plateauBand * level);
   let s0 = 0;
   while (s0 < ma.length - 1 && ma[s0]! > level + band) s0++;
   let endRel = s0;
   for (let k = s0; k < ma.length; k++) if (ma[k]! <= level + band) endRel = k;
   const end = d + endRel;
-  let rel = Infinity;
-  const from = Math.min(s0 + (w >> 1), endRel);
-  for (let k = from; k <= Math.max(from, endRel - (w >> 1)); k++) rel = Math.min(rel, ma[k]!);
-  if (!Number.isFinite(rel)) rel = level;
-  // Ae ends where work hardening starts: plateau mean level meets a line through the first 0.5 % strain of hardening.
-  let endStrain = strain[end]!;
-  {
-    let mean = 0;
-    for (let k = s0; k <= endRel; k++) mean += ma[k]!;
-    mean /= endRel - s0 + 1;
-    let j = end;
-    while (j < maxIndex && strain[j]! - strain[end]! < 0.005) j++;
-    if (j - end >= 3) {
-      try {
-        const h = linearFit(strain, stress, end, j + 1);
-        const x = (mean - h.intercept) / h.slope;
-        if (h.slope > 0 && x >= strain[d]! && x <= strain[j]!) endStrain = x;
-      } catch { /* keep the last plateau point */ }
+  // ReL (ISO 6892-1 §3.10.2.2: the lowest stress during yielding, the initial transient ignored). The initial
+  // transient is the fall and the first trough after it: it ends where the smoothed plateau first rises back
+  // above its median after reaching it (ISO 6892-1 practice, from memory: the first minimum is ignored).
+  const r0Rel = Math.max(0, r0 - d);
+  let up = Math.max(r0Rel, s0);
+  while (up < endRel && ma[up]! <= level) up++;
+  let pa = d + up;
+  if (end + 1 - pa < 10) pa = d + Math.max(r0Rel, s0);
+  let ib = end;
+  while (ib < maxIndex && strain[ib]! - strain[end]! < Y.hardeningStrain) ib++;
+  const h = plateauHinge(strain, stress, pa, ib + 1, noise);
+  let rel = level, endStrain = strain[end]!;
+  if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
+  return { upperYield: reh, lowerYield: Math.min(rel, reh), peakIndex: q, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
+}
+
+/**
+ * Break of "rise line, then a straight fall": for each break x_b at a sample strain in [from, to), the samples
+ * up to x_b are compared with the rise line r(x) = a + b·x and the later ones with r(x_b) + m·(x − x_b), m by
+ * least squares; the x_b with the least residual sum wins (a change-point fit, common practice). O(k²) in the
+ * k samples of the window (a few hundred at most on a fall of 2·10⁻⁴ strain).
+ * @returns the break strain, or null for a window of fewer than 3 samples or a break that is not a fall (m ≥ 0).
+ */
+function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number): number | null {
+  if (to - from < 3) return null;
+  const stride = Math.max(1, Math.floor((to - from) / 400));
+  let best = Infinity, at: number | null = null;
+  for (let c = from; c < to - 1; c += stride) {
+    const xb = x[c]!, yb = a + b * xb;
+    let ssr = 0, szz = 0, szy = 0, syy = 0;
+    for (let i = from; i < to; i++) {
+      if (i <= c) { const r = y[i]! - (a + b * x[i]!); ssr += r * r; }
+      else { const z = x[i]! - xb, v = y[i]! - yb; szz += z * z; szy += z * v; syy += v * v; }
+    }
+    if (szz > 0) { const m = szy / szz; if (!(m < 0)) continue; ssr += syy - m * szy; }
+    if (ssr < best) { best = ssr; at = xb; }
+  }
+  return at;
+}
+
+/**
+ * The yield plateau and the start of work hardening, fitted together: a level plateau (ISO 6892-1: yielding at
+ * about constant force) that turns into a hardening branch at x_k, continuously — y = m + b₁·z + b₂·z²,
+ * z = max(0, x − x_k) (a hinge or
+ * segmented regression, common practice; J. D. Toms and M. L. Lesperance, "Piecewise regression", Ecology 84
+ * (2003), from memory). For a fixed x_k the model is linear; x_k is found by a grid and golden-section search on
+ * the residual sum, over block averages (≤ 1000, {@link blockAverage}) of the samples [from, to).
+ *
+ * A serrated plateau spends equal time at every level between its troughs and crests, so its samples about the
+ * plateau line are uniform over a width A plus the noise: variance A²/12 + σ̂². Hence A = √(12·excess) (the
+ * excess of the variance over σ̂² of the raw samples up to x_k, used only when it is clear of a variance's sampling
+ * error, 2·σ̂²·√(2/m)), and the troughs lie A/2 below the line (method of moments).
+ * ReL = the lowest point of the trough line over the plateau (ISO 6892-1 §3.10.2.2: the lowest stress during
+ * yielding). Work hardening starts where the hardening branch leaves the trough line: x_k − (A/2)/slope, the
+ * slope p + b₁ of the branch at x_k.
+ * @returns null when the samples cannot hold the model (fewer than 12 blocks, or no plateau point before x_k).
+ */
+function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from: number, to: number, noise: number): { lowerYield: number; hardeningStart: number; level: number; slope: number; spread: number } | null {
+  const n = to - from;
+  if (n < 12) return null;
+  const xs = new Float64Array(n), ys = new Float64Array(n);
+  for (let k = 0; k < n; k++) { xs[k] = strain[from + k]!; ys[k] = stress[from + k]!; }
+  const bl = blockAverage(xs, ys, Math.ceil(n / 1000));
+  const nb = bl.x.length;
+  if (nb < 12) return null;
+  const x0 = bl.x[0]!, span = bl.x[nb - 1]! - x0;
+  if (!(span > 0)) return null;
+  const K = 3, S = new Float64Array(K * K), T = new Float64Array(K), c = new Float64Array(K);
+  const solve = (xk: number) => {
+    // Normal equations of the columns [1, z, z²] (z = max(0, x − xk)/span), weighted by block size.
+    S.fill(0); T.fill(0);
+    let yy = 0;
+    for (let b = 0; b < nb; b++) {
+      const u = (bl.x[b]! - xk) / span, z = u > 0 ? u : 0, wt = bl.w[b]!, y = bl.y[b]!;
+      c[0] = 1; c[1] = z; c[2] = z * z;
+      for (let r = 0; r < K; r++) { T[r]! += wt * c[r]! * y; for (let q = r; q < K; q++) S[r * K + q]! += wt * c[r]! * c[q]!; }
+      yy += wt * y * y;
+    }
+    for (let r = 0; r < K; r++) for (let q = 0; q < r; q++) S[r * K + q] = S[q * K + r]!;
+    const coef = solveSmall(S, T, K);
+    if (!coef) return null;
+    let ssr = yy;
+    for (let r = 0; r < K; r++) ssr -= coef[r]! * T[r]!;
+    return { m: coef[0]!, p: 0, b1: coef[1]! / span, ssr };
+  };
+  const lo0 = bl.x[3]!, hi0 = bl.x[nb - 4]!;
+  const G = 60;
+  let best: { xk: number; f: NonNullable<ReturnType<typeof solve>> } | null = null;
+  for (let g = 0; g <= G; g++) {
+    const xk = lo0 + ((hi0 - lo0) * g) / G;
+    const f = solve(xk);
+    if (f && (!best || f.ssr < best.f.ssr)) best = { xk, f };
+  }
+  if (!best) return null;
+  let a = Math.max(lo0, best.xk - (hi0 - lo0) / G), b = Math.min(hi0, best.xk + (hi0 - lo0) / G);
+  const gr = (Math.sqrt(5) - 1) / 2;
+  for (let k = 0; k < 40 && b - a > 1e-12; k++) {
+    const x1 = b - gr * (b - a), x2 = a + gr * (b - a);
+    const f1 = solve(x1), f2 = solve(x2);
+    if (!f1 || !f2) break;
+    if (f1.ssr < f2.ssr) b = x2; else a = x1;
+  }
+  const xm = 0.5 * (a + b), fm = solve(xm);
+  if (fm && fm.ssr <= best.f.ssr) best = { xk: xm, f: fm };
+  const { xk, f } = best;
+  // Spread of the raw plateau samples about the plateau line.
+  let m = 0, v = 0;
+  for (let i = from; i < to && strain[i]! <= xk; i++) { const r = stress[i]! - (f.m + f.p * (strain[i]! - xk)); v += r * r; m++; }
+  if (m < 3) return null;
+  v /= m - 1;
+  const excess = v - noise * noise;
+  const A = excess > 2 * noise * noise * Math.sqrt(2 / m) ? Math.sqrt(12 * excess) : 0;
+  const atStart = f.m + f.p * (strain[from]! - xk);
+  const lowerYield = Math.min(atStart, f.m) - A / 2;
+  const slope = f.p + f.b1;
+  const back = slope > 0 ? A / 2 / slope : 0;
+  return { lowerYield, hardeningStart: Math.max(strain[from]!, xk - back), level: f.m, slope, spread: A };
+}
+
+/** Solves the k×k system S·c = T (row-major S) by Gaussian elimination with partial pivoting; null when singular. */
+function solveSmall(S: Float64Array, T: Float64Array, k: number): Float64Array | null {
+  const W = k + 1;
+  const M = new Float64Array(k * W);
+  for (let r = 0; r < k; r++) { for (let q = 0; q < k; q++) M[r * W + q] = S[r * k + q]!; M[r * W + k] = T[r]!; }
+  const scale = Math.abs(M[0]!) || 1;
+  for (let col = 0; col < k; col++) {
+    let piv = col;
+    for (let r = col + 1; r < k; r++) if (Math.abs(M[r * W + col]!) > Math.abs(M[piv * W + col]!)) piv = r;
+    if (!(Math.abs(M[piv * W + col]!) > 1e-14 * scale)) return null;
+    if (piv !== col) for (let q = 0; q < W; q++) { const t = M[col * W + q]!; M[col * W + q] = M[piv * W + q]!; M[piv * W + q] = t; }
+    for (let r = 0; r < k; r++) {
+      if (r === col) continue;
+      const fct = M[r * W + col]! / M[col * W + col]!;
+      if (fct !== 0) for (let q = col; q < W; q++) M[r * W + q]! -= fct * M[col * W + q]!;
     }
   }
-  return { upperYield: reh, lowerYield: Math.min(rel, reh), peakIndex: q, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
+  const out = new Float64Array(k);
+  for (let r = 0; r < k; r++) out[r] = M[r * W + k]! / M[r * W + r]!;
+  return out;
 }
