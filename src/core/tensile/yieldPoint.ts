@@ -31,6 +31,8 @@ export const YIELD_DROP = {
   plateauBand: 0.003,
   /** Strain of the hardening branch past the plateau's end taken into the plateau–hardening fit. */
   hardeningStrain: 0.005,
+  /** The last quarter of the rise this many standard errors below the line through the rest: a rounded knee, not a sharp peak. */
+  kneeSigmas: 2.5,
   /** A fall of at least this many samples is located as a change point; fewer are read as recorded. */
   fallPoints: 3,
 } as const;
@@ -118,6 +120,24 @@ export function yieldPoint(
       const v = f.intercept + f.slope * strain[q]!;
       if (stress[q]! >= v - 1.5 * noise * Math.sqrt(1 + 4 / k)) { reh = v; seReh = noise * Math.sqrt(4 / k); }
       else { reh = Math.max(f.intercept + f.slope * strain[q - 1]!, stress[q]!); }
+      // A rounded knee is not a sharp peak: when the last quarter of the rise (2 to 20 samples up to the peak)
+      // lies below the line through the rest by more than 2.5 standard errors, the rise bends before the peak
+      // and reading the line at the peak would put ReH above every sample. The peak is then read from the
+      // samples: the highest moving average (over those m samples) around it.
+      const m = Math.min(20, Math.max(2, Math.round(k / 4)));
+      if (k - m >= 3) {
+        const g = linearFit(strain, stress, k0, q - m + 1);
+        let res = 0;
+        for (let i = q - m + 1; i <= q; i++) res += stress[i]! - (g.intercept + g.slope * strain[i]!);
+        res /= m;
+        if (res < -Y.kneeSigmas * noise * Math.sqrt(1 / m + 4 / (k - m + 1))) {
+          rise = null;
+          const ma = movingAverage(stress, q - m + 1, Math.min(maxIndex, q + m) + 1, m | 1);
+          reh = -Infinity;
+          for (let i = 0; i < ma.length; i++) reh = Math.max(reh, ma[i]!);
+          seReh = noise / Math.sqrt(m);
+        }
+      }
     } catch { /* keep the sample */ }
   }
   // Plateau level after the departure: median over 0.3 % strain (robust to the fall's samples at its start).
@@ -132,16 +152,24 @@ export function yieldPoint(
   const below = (i: number, v: number) => stress[i]! <= v && (i + 1 > maxIndex || stress[i + 1]! <= v) && (i + 2 > maxIndex || stress[i + 2]! <= v);
   let r0 = d;
   while (r0 < maxIndex && !below(r0, level + 3 * noise)) r0++;
-  if (r0 - d >= Y.fallPoints && rise) {
+  // Samples on the upper half of the fall (above the middle between the line at the peak and the level), in a
+  // run after the peak: several of them mean a finely sampled fall, one or two a coarse one.
+  let fallTop = rise ? rise.a + rise.b * strain[q]! : reh;
+  for (let i = q + 1; i < r0; i++) fallTop = Math.max(fallTop, stress[i]!);
+  const mid = level + 0.5 * (fallTop - level);
+  let lastUpper = q, nUpper = 0;
+  for (let i = q + 1; i < r0; i++) { if (stress[i]! > mid) { nUpper++; lastUpper = i; } else if (stress[i]! < mid - 3 * noise) break; }
+  if (nUpper >= Y.fallPoints && rise) {
     // Finely sampled fall: the peak is where the rise line turns into the fall, found as a change point —
     // least squares of "rise line, then a straight fall from it" over the break position (grid over the
-    // samples from the last few on the rise to the end of the fall). ReH is the rise line at the break.
-    const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - (r0 - d)), r0);
+    // samples from the last few on the rise to the last on the upper half of the fall). ReH is the rise line at
+    // the break.
+    const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - Math.max(3, lastUpper - q)), lastUpper + 1);
     if (cp !== null) { reh = rise.a + rise.b * cp; seReh = noise * Math.sqrt(4 / Math.max(2, q - k0)); }
   } else {
     // Coarse: at most a couple of samples on the fall. The highest noise-free sample may be one of them (caught
     // part-way down): read them as recorded (noise σ̂ each).
-    for (let i = d; i < r0; i++) if (stress[i]! > reh) { reh = stress[i]!; seReh = noise; }
+    for (let i = q + 1; i <= lastUpper; i++) if (stress[i]! > reh) { reh = stress[i]!; seReh = noise; }
   }
   // The plateau's lower level (its troughs): see plateauTroughs.
   const seDiff = Math.sqrt(seReh * seReh + (1.57 * noise * noise) / nLevel);
@@ -186,6 +214,7 @@ export function yieldPoint(
   const h = plateauHinge(strain, stress, pa, ib + 1, noise);
   let rel = level, endStrain = strain[end]!;
   if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
+  if ((globalThis as any).DBG) console.log('DBG', { d, q, k0, r0, reh, seReh, level, drop, threshold, rise, eq: strain[q], ed: strain[d] });
   return { upperYield: reh, lowerYield: Math.min(rel, reh), peakIndex: q, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
 }
 
