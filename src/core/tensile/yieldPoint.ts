@@ -18,7 +18,7 @@ export interface YieldPointResult {
 /** Thresholds of the yield-drop test, stated once. */
 export const YIELD_DROP = {
   /** The fall must exceed this fraction of ReH (common practice: drops under ~2 % are hard to tell from a rounded knee in a noisy record)… */
-  minRelDrop: 0.02,
+  minRelDrop: 0.01,
   /** …and this many standard errors of (ReH estimate − plateau level). */
   sigmas: 4,
   /** A departure from the elastic line: this many noise sd below it, two samples in a row. */
@@ -154,6 +154,7 @@ export function yieldPoint(
   while (r0 < maxIndex && !below(r0, level + 3 * noise)) r0++;
   // Samples on the upper half of the fall (above the middle between the line at the peak and the level), in a
   // run after the peak: several of them mean a finely sampled fall, one or two a coarse one.
+  let testReh = reh, testSe = seReh;
   let fallTop = rise ? rise.a + rise.b * strain[q]! : reh;
   for (let i = q + 1; i < r0; i++) fallTop = Math.max(fallTop, stress[i]!);
   const mid = level + 0.5 * (fallTop - level);
@@ -165,16 +166,24 @@ export function yieldPoint(
     // samples from the last few on the rise to the last on the upper half of the fall). ReH is the rise line at
     // the break.
     const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - Math.max(3, lastUpper - q)), lastUpper + 1);
-    if (cp !== null) { reh = rise.a + rise.b * cp; seReh = noise * Math.sqrt(4 / Math.max(2, q - k0)); }
+    if (cp !== null) { reh = testReh = rise.a + rise.b * cp; seReh = testSe = noise * Math.sqrt(4 / Math.max(2, q - k0)); }
   } else {
     // Coarse: at most a couple of samples on the fall. The highest noise-free sample may be one of them (caught
     // part-way down): read them as recorded (noise σ̂ each).
-    for (let i = q + 1; i <= lastUpper; i++) if (stress[i]! > reh) { reh = stress[i]!; seReh = noise; }
+    // The test below keeps the more precise of the two (the line's value when a sample on the fall is not
+    // clearly higher).
+    for (let i = q + 1; i <= lastUpper; i++) {
+      if (stress[i]! > reh) {
+        if (stress[i]! > reh + 2 * noise) { testReh = stress[i]!; testSe = noise; }
+        reh = stress[i]!;
+      }
+    }
   }
   // The plateau's lower level (its troughs): see plateauTroughs.
-  const seDiff = Math.sqrt(seReh * seReh + (1.57 * noise * noise) / nLevel);
-  const threshold = Math.max(Y.minRelDrop * reh, Y.sigmas * seDiff);
-  const drop = reh - level;
+  const seDiff = Math.sqrt(testSe * testSe + (1.57 * noise * noise) / nLevel);
+  const threshold = Math.max(Y.minRelDrop * testReh, Y.sigmas * seDiff);
+  const drop = testReh - level;
+  if ((globalThis as any).DBG) console.log('DBGT', { d, q, k0, reh, seReh, level, drop, threshold, rise: rise && rise.b, eq: strain[q], nLevel });
   if (!(drop > threshold)) return null;
   // Smoothed plateau from the departure to maximum force.
   const to = Math.max(d + 1, maxIndex + 1);
