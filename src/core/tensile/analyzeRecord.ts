@@ -29,6 +29,9 @@ export interface AnalyzeOptions {
 /** Half-width of Ag's 95 % interval, points, above which Ag is reported as uncertain (the issue's 0.4-point target). */
 export const AG_SHARP_PCT = 0.4;
 
+/** Half-width of the ReH range, as a fraction of ReH, above which ReH is reported as uncertain (the issue's 1.5 % target). */
+export const UNCERTAIN_REH = 0.015;
+
 /** Defaults, stated once. */
 export const ANALYZE_DEFAULTS = {
   proofOffsetPct: 0.2,
@@ -119,6 +122,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     }
   }
   const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
+  if (yp && (yp.upperYieldRange[1] - yp.upperYieldRange[0]) / 2 > UNCERTAIN_REH * yp.upperYield) warnings.push({ code: 'uncertainReH', message: `ReH ${yp.upperYield.toFixed(1)} MPa is uncertain: the peak falls between samples ${((yp.upperYieldRange[1] - yp.upperYieldRange[0]) / 2 / yp.upperYield * 100).toFixed(1)} % apart in stress, or within the noise, so the record supports ReH anywhere from ${yp.upperYieldRange[0].toFixed(1)} to ${yp.upperYieldRange[1].toFixed(1)} MPa` });
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
   const topFrom = Math.max(0, Math.min(yp ? yp.endIndex : el.window.toIndex, fi - 2));
@@ -224,6 +228,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     proofStrengths,
     totalExtensionStrength: rt,
     upperYield: yp?.upperYield ?? null,
+    upperYieldRange: yp?.upperYieldRange ?? null,
     lowerYield: yp?.lowerYield ?? null,
     yieldPointElongationPct: yp?.elongationPct ?? null,
     tensileStrength: Rm,

@@ -8,7 +8,7 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'modulusGiven' | 'flatTop' | 'uncertainAg';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'modulusGiven' | 'flatTop' | 'uncertainAg' | 'uncertainReH';
   message: string;
 }
 
@@ -112,6 +112,8 @@ export interface TensileAnalysis {
   /** Rt0.5: stress at 0.5 % total extension, MPa. */
   totalExtensionStrength: number | null;
   upperYield: number | null;
+  /** Bounds on ReH the record supports (±3 noise sd; on a coarse record, line or part-way down the fall), MPa; null without a yield drop. */
+  upperYieldRange: [number, number] | null;
   lowerYield: number | null;
   yieldPointElongationPct: number | null;
   tensileStrength: number;

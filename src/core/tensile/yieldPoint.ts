@@ -4,6 +4,12 @@ import { movingAverage, polynomialFit } from './localFit.js';
 
 export interface YieldPointResult {
   upperYield: number;
+  /**
+   * Bounds on ReH as the record can show it (the highest noise-free sample), MPa: ±3 noise sd of the reading, and
+   * on a coarse record from the line's value down to where the peak sample would be if it were already part-way
+   * down the fall. Wider than ±1.5 % of ReH: the record cannot place ReH that closely (`uncertainReH`).
+   */
+  upperYieldRange: [number, number];
   lowerYield: number;
   /** Index of the upper yield point and of the end of the yield-point plateau. */
   peakIndex: number;
@@ -18,7 +24,7 @@ export interface YieldPointResult {
 /** Thresholds of the yield-drop test, stated once. */
 export const YIELD_DROP = {
   /** The fall must exceed this fraction of ReH (common practice: drops under ~2 % are hard to tell from a rounded knee in a noisy record)… */
-  minRelDrop: 0.01,
+  minRelDrop: 0.02,
   /** …and this many standard errors of (ReH estimate − plateau level). */
   sigmas: 4,
   /** A departure from the elastic line: this many noise sd below it, two samples in a row. */
@@ -31,8 +37,8 @@ export const YIELD_DROP = {
   plateauBand: 0.003,
   /** Strain of the hardening branch past the plateau's end taken into the plateau–hardening fit. */
   hardeningStrain: 0.005,
-  /** The last quarter of the rise this many standard errors below the line through the rest: a rounded knee, not a sharp peak. */
-  kneeSigmas: 2.5,
+  /** The last samples of the rise this many standard errors below the line through the rest: a rounded knee, not a sharp peak. */
+  kneeSigmas: 3,
   /** A fall of at least this many samples is located as a change point; fewer are read as recorded. */
   fallPoints: 3,
 } as const;
@@ -108,6 +114,9 @@ export function yieldPoint(
   let reh = stress[q]!;
   let seReh = noise;
   let rise: { a: number; b: number } | null = null;
+  // Bounds on the highest noise-free sample (ReH as the record shows it), ±3 sd of each reading. On a coarse
+  // record the peak sample may sit on the line or already part-way down the fall: one noisy sample cannot tell.
+  let lo = reh - 3 * noise, hi = reh + 3 * noise;
   if (q - k0 >= 3) {
     try {
       // The line through the rise with the peak sample left out, so a sample already on the fall cannot pull
@@ -118,14 +127,20 @@ export function yieldPoint(
       const f = linearFit(strain, stress, k0, q);
       rise = { a: f.intercept, b: f.slope };
       const v = f.intercept + f.slope * strain[q]!;
-      if (stress[q]! >= v - 1.5 * noise * Math.sqrt(1 + 4 / k)) { reh = v; seReh = noise * Math.sqrt(4 / k); }
-      else { reh = Math.max(f.intercept + f.slope * strain[q - 1]!, stress[q]!); }
-      // A rounded knee is not a sharp peak: when the last quarter of the rise (2 to 20 samples up to the peak)
-      // lies below the line through the rest by more than 2.5 standard errors, the rise bends before the peak
-      // and reading the line at the peak would put ReH above every sample. The peak is then read from the
-      // samples: the highest moving average (over those m samples) around it.
-      const m = Math.min(20, Math.max(2, Math.round(k / 4)));
-      if (k - m >= 3) {
+      const before = f.intercept + f.slope * strain[q - 1]!;
+      if (stress[q]! >= v - 1.5 * noise * Math.sqrt(1 + 4 / k)) {
+        reh = v; seReh = noise * Math.sqrt(4 / k);
+        lo = Math.max(before, v - Math.max(0, v - stress[q]!) - 3 * noise); hi = v + 3 * seReh;
+      } else {
+        reh = Math.max(before, stress[q]!);
+        lo = Math.max(before, stress[q]! - 3 * noise); hi = stress[q]! + 3 * noise;
+      }
+      // A rounded knee is not a sharp peak: when the last m samples of the rise (m = 4, 8, 16 and a quarter of
+      // the rise, each tried) lie below the line through the samples before them by more than 3 standard errors,
+      // the rise bends before the peak and reading the line at the peak would put ReH above every sample. The
+      // peak is then read from the samples: the highest moving average (over m samples) around it.
+      for (const m of new Set([4, 8, 16, Math.min(20, Math.round(k / 4))])) {
+        if (!(m >= 2 && k - m >= 3)) continue;
         const g = linearFit(strain, stress, k0, q - m + 1);
         let res = 0;
         for (let i = q - m + 1; i <= q; i++) res += stress[i]! - (g.intercept + g.slope * strain[i]!);
@@ -136,6 +151,8 @@ export function yieldPoint(
           reh = -Infinity;
           for (let i = 0; i < ma.length; i++) reh = Math.max(reh, ma[i]!);
           seReh = noise / Math.sqrt(m);
+          lo = reh - 3 * seReh; hi = reh + 3 * noise;
+          break;
         }
       }
     } catch { /* keep the sample */ }
@@ -166,7 +183,12 @@ export function yieldPoint(
     // samples from the last few on the rise to the last on the upper half of the fall). ReH is the rise line at
     // the break.
     const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - Math.max(3, lastUpper - q)), lastUpper + 1);
-    if (cp !== null) { reh = testReh = rise.a + rise.b * cp; seReh = testSe = noise * Math.sqrt(4 / Math.max(2, q - k0)); }
+    if (cp !== null) {
+      reh = testReh = rise.a + rise.b * cp; seReh = testSe = noise * Math.sqrt(4 / Math.max(2, q - k0));
+      // The highest sample lies within one sample spacing of the break on the line.
+      const dx = (strain[lastUpper]! - strain[q]!) / Math.max(1, lastUpper - q);
+      lo = reh - 3 * seReh - rise.b * dx; hi = reh + 3 * seReh;
+    }
   } else {
     // Coarse: at most a couple of samples on the fall. The highest noise-free sample may be one of them (caught
     // part-way down): read them as recorded (noise σ̂ each).
@@ -176,6 +198,7 @@ export function yieldPoint(
       if (stress[i]! > reh) {
         if (stress[i]! > reh + 2 * noise) { testReh = stress[i]!; testSe = noise; }
         reh = stress[i]!;
+        lo = Math.max(lo, reh - 3 * noise); hi = Math.max(hi, reh + 3 * noise);
       }
     }
   }
@@ -224,7 +247,7 @@ export function yieldPoint(
   let rel = level, endStrain = strain[end]!;
   if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
   if ((globalThis as any).DBG) console.log('DBG', { d, q, k0, r0, reh, seReh, level, drop, threshold, rise, eq: strain[q], ed: strain[d] });
-  return { upperYield: reh, lowerYield: Math.min(rel, reh), peakIndex: q, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
+  return { upperYield: reh, upperYieldRange: [Math.min(lo, reh), Math.max(hi, reh)], lowerYield: Math.min(rel, reh), peakIndex: q, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
 }
 
 /**
