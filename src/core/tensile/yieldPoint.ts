@@ -24,7 +24,7 @@ export interface YieldPointResult {
 /** Thresholds of the yield-drop test, stated once. */
 export const YIELD_DROP = {
   /** The fall must exceed this fraction of ReH (common practice: drops under ~2 % are hard to tell from a rounded knee in a noisy record)… */
-  minRelDrop: 0.02,
+  minRelDrop: 0.01,
   /** …and this many standard errors of (ReH estimate − plateau level). */
   sigmas: 4,
   /** A departure from the elastic line: this many noise sd below it, two samples in a row. */
@@ -171,7 +171,10 @@ export function yieldPoint(
   while (r0 < maxIndex && !below(r0, level + 3 * noise)) r0++;
   // Samples on the upper half of the fall (above the middle between the line at the peak and the level), in a
   // run after the peak: several of them mean a finely sampled fall, one or two a coarse one.
+  // The drop test reads the peak on the line only when the peak sample agrees with it within one noise sd: a
+  // sample further below may be just past a sharp knee (a continuous curve), where the line overshoots every sample.
   let testReh = reh, testSe = seReh;
+  if (rise && reh === rise.a + rise.b * strain[q]! && stress[q]! < reh - noise) { testReh = stress[q]! + noise; testSe = noise; }
   let fallTop = rise ? rise.a + rise.b * strain[q]! : reh;
   for (let i = q + 1; i < r0; i++) fallTop = Math.max(fallTop, stress[i]!);
   const mid = level + 0.5 * (fallTop - level);
