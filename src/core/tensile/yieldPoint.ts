@@ -211,6 +211,10 @@ export function yieldPoint(
   const drop = testReh - level;
   if ((globalThis as any).DBG) console.log('DBGT', { d, q, k0, reh, seReh, level, drop, threshold, rise: rise && rise.b, eq: strain[q], nLevel });
   if (!(drop > threshold)) return null;
+  // A drop is a step down, not a bend: after the rise line ends, a segment that starts lower than the line (a
+  // step) must fit the samples clearly better than one that starts on it (a hinge, as a continuous curve bends at
+  // its knee) — by more than 5² noise variances of the residual sum (common practice for a change-point test).
+  if (rise && !isStepDown(strain, stress, rise.a, rise.b, Math.max(k0, q - 50), pEnd, Math.max(k0 + 1, q - 10), Math.min(pEnd - 3, Math.max(d, lastUpper) + 10), noise, q, lastUpper)) return null;
   // Smoothed plateau from the departure to maximum force.
   const to = Math.max(d + 1, maxIndex + 1);
   const wNoise = Math.ceil(((noise / (0.0015 * level)) ** 2));
@@ -251,6 +255,42 @@ export function yieldPoint(
   if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
   if ((globalThis as any).DBG) console.log('DBG', { d, q, k0, r0, reh, seReh, level, drop, threshold, rise, eq: strain[q], ed: strain[d] });
   return { upperYield: reh, upperYieldRange: [Math.min(lo, reh), Math.max(hi, reh)], lowerYield: Math.min(rel, reh), peakIndex: q, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
+}
+
+/**
+ * Step or bend at the end of a rise: over the break positions x_b (samples cFrom…cTo), the samples of [from, to)
+ * up to x_b are compared with the rise line r(x) = a + b·x, the later ones (x ≤ x_b + 0.3 % strain) with a
+ * straight segment that either starts anywhere (step: c + s·(x − x_b)) or on the line (hinge: r(x_b) + s·(x − x_b)).
+ * Samples in (skipFrom, skipTo] after the break (the upper half of a fall, caught part-way down) belong to neither.
+ * @returns true when the best step beats the best hinge by more than 25·σ̂² in the residual sum and lies below the
+ * line carried on to its first sample.
+ */
+/** The step must beat the hinge by this many noise sd (√ of the residual-sum difference over σ̂²). */
+const STEP_SIGMAS = 3;
+
+function isStepDown(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number, cFrom: number, cTo: number, noise: number, skipFrom: number, skipTo: number): boolean {
+  let bestS = Infinity, bestH = Infinity, stepDown = false;
+  for (let c = cFrom; c <= cTo; c++) {
+    const xb = x[c]!, yb = a + b * xb;
+    let left = 0, n = 0, sz = 0, sy = 0, szz = 0, szy = 0, syy = 0, sh = 0, shz = 0, z1 = NaN;
+    for (let i = from; i < to; i++) {
+      if (i <= c) { const r = y[i]! - (a + b * x[i]!); left += r * r; continue; }
+      if (i > skipFrom && i <= skipTo) continue;
+      const z = x[i]! - xb, v = y[i]!, h = v - yb;
+      if (n === 0) z1 = z;
+      n++; sz += z; sy += v; szz += z * z; szy += z * v; syy += v * v; sh += h * h; shz += h * z;
+    }
+    if (n < 3) continue;
+    const den = n * szz - sz * sz;
+    if (!(den > 0) || !(szz > 0)) continue;
+    const sl = (n * szy - sz * sy) / den, c0 = (sy - sl * sz) / n;
+    const ssrStep = left + Math.max(0, syy - c0 * sy - sl * szy);
+    const ssrHinge = left + Math.max(0, sh - (shz * shz) / szz);
+    // Down: the segment starts below the line carried on to the segment's first sample.
+    if (ssrStep < bestS) { bestS = ssrStep; stepDown = c0 + sl * z1 < yb + b * z1; }
+    if (ssrHinge < bestH) bestH = ssrHinge;
+  }
+  return stepDown && bestH - bestS > STEP_SIGMAS ** 2 * noise * noise;
 }
 
 /**
