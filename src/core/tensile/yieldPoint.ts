@@ -11,8 +11,9 @@ export interface YieldPointResult {
    */
   upperYieldRange: [number, number];
   lowerYield: number;
-  /** Index of the upper yield point and of the end of the yield-point plateau. */
+  /** Index of the upper yield point, of the first plateau sample after the initial transient, and of the end of the yield-point plateau. */
   peakIndex: number;
+  plateauFrom: number;
   endIndex: number;
   /** Ae, engineering strain from ReH to the start of uniform work hardening, %. */
   elongationPct: number;
@@ -209,7 +210,6 @@ export function yieldPoint(
   const seDiff = Math.sqrt(testSe * testSe + (1.57 * noise * noise) / nLevel);
   const threshold = Math.max(Y.minRelDrop * testReh, Y.sigmas * seDiff);
   const drop = testReh - level;
-  if ((globalThis as any).DBG) console.log('DBGT', { d, q, k0, reh, seReh, level, drop, threshold, rise: rise && rise.b, eq: strain[q], nLevel });
   if (!(drop > threshold)) return null;
   // A drop is a step down, not a bend: after the rise line ends, a segment that starts lower than the line (a
   // step) must fit the samples clearly better than one that starts on it (a hinge, as a continuous curve bends at
@@ -253,8 +253,7 @@ export function yieldPoint(
   const h = plateauHinge(strain, stress, pa, ib + 1, noise);
   let rel = level, endStrain = strain[end]!;
   if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
-  if ((globalThis as any).DBG) console.log('DBG', { d, q, k0, r0, reh, seReh, level, drop, threshold, rise, eq: strain[q], ed: strain[d] });
-  return { upperYield: reh, upperYieldRange: [Math.min(lo, reh), Math.max(hi, reh)], lowerYield: Math.min(rel, reh), peakIndex: q, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
+  return { upperYield: reh, upperYieldRange: [Math.min(lo, reh), Math.max(hi, reh)], lowerYield: Math.min(rel, reh), peakIndex: q, plateauFrom: pa, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
 }
 
 /**
