@@ -12,6 +12,9 @@ export default defineConfig(({ mode }) => ({
     include: ['test/**/*.test.ts'],
     environment: 'node',
     globalSetup: ['test/globalSetup.ts'],
+    // Goldens (test/cli/golden/) are written only on request (`-u`): a missing golden fails
+    // instead of being written by the run that compares against it.
+    update: 'none',
     testTimeout: 60_000,
     hookTimeout: 120_000,
   },

@@ -19,29 +19,15 @@
 // Run: npm run build (not needed for the notebooks) && node bench/notebook-latency.mjs [notebook ...]
 // (a notebook name may carry a query, e.g. `reversal?redraw design?sync`: the old behaviour, for an A/B)
 // Options via env: SAMPLES (per kind per slider, default 40).
-import { createServer as netServer } from 'node:net';
 import { loadavg } from 'node:os';
-import { join } from 'node:path';
-import { chromium } from 'playwright-core';
-import { createServer } from 'vite';
+import { openNotebook, startNotebooks } from './browser.mjs';
 
-const repo = join(import.meta.dirname, '..');
 const SAMPLES = Number(process.env.SAMPLES ?? 40);
 const QUIET_MS = 40;
 const ALL = ['prestrain', 'route', 'records', 'reversal', 'scatter', 'design'];
 const wanted = process.argv.slice(2).length ? process.argv.slice(2) : ALL;
 
-const port = await new Promise((resolve, reject) => {
-  const s = netServer();
-  s.once('error', reject);
-  s.listen(0, '127.0.0.1', () => { const p = s.address().port; s.close(() => resolve(p)); });
-});
-const server = await createServer({ configFile: join(repo, 'vite.config.ts'), mode: 'development', logLevel: 'error', server: { port, strictPort: true, host: '127.0.0.1', hmr: false } });
-await server.listen();
-const browser = await chromium.launch({
-  executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', headless: true,
-  args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
-});
+const nb = await startNotebooks();
 const q = (xs, p) => { if (!xs.length) return NaN; const s = [...xs].sort((a, b) => a - b); return s[Math.min(s.length - 1, Math.ceil(p * s.length) - 1)]; };
 const f = (x) => (Number.isFinite(x) ? x.toFixed(1) : '–');
 const rows = [];
@@ -51,10 +37,7 @@ try {
     // A name may carry a query for an A/B in the same run: `design?sync` (route search on the
     // page's thread), `reversal?redraw` (Plot redraws on every move), the old behaviour of each.
     const [base, query] = name.split('?');
-    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
-    await page.goto(`http://127.0.0.1:${port}/${base}/${query ? `?${query}` : ''}`);
-    await page.waitForFunction((n) => Boolean(window.strainledger?.[n]), base, { timeout: 60_000 });
-    await page.evaluate((n) => window.strainledger[n].idle(), base);
+    const page = await openNotebook(nb, base, query);
     const sliders = await page.evaluate(() => [...document.querySelectorAll('.sl-slider input[type=range], .sl-step-slider input[type=range]')].map((r) => r.id));
     if (sliders.length === 0) { rows.push({ name, slider: '(no sliders)' }); await page.close(); continue; }
     for (const id of sliders) {
@@ -134,8 +117,7 @@ try {
     await page.close();
   }
 } finally {
-  await browser.close();
-  await server.close();
+  await nb.close();
 }
 console.log(`notebook latency: input event → last DOM change, ${SAMPLES} random + ${SAMPLES} drag samples per slider, headless Chromium --disable-gpu, 1280×800, ${new Date().toISOString()}`);
 console.log(`load average (1 min) during the run: min ${Math.min(...loads).toFixed(1)}, max ${Math.max(...loads).toFixed(1)} (2 cores)`);

@@ -3,31 +3,14 @@
 // core, our charts, the notebook kit) and by function. Companion of bench/notebook-latency.mjs
 // for a slider that misses its aim.
 // Run: node bench/notebook-profile.mjs reversal prestrain-range [moves=200]
-import { createServer as netServer } from 'node:net';
 import { loadavg } from 'node:os';
-import { join } from 'node:path';
-import { chromium } from 'playwright-core';
-import { createServer } from 'vite';
+import { openNotebook, startNotebooks } from './browser.mjs';
 
-const repo = join(import.meta.dirname, '..');
 const [name = 'reversal', sliderId = 'prestrain-range', movesArg = '200'] = process.argv.slice(2);
 const MOVES = Number(movesArg);
-const port = await new Promise((resolve, reject) => {
-  const s = netServer();
-  s.once('error', reject);
-  s.listen(0, '127.0.0.1', () => { const p = s.address().port; s.close(() => resolve(p)); });
-});
-const server = await createServer({ configFile: join(repo, 'vite.config.ts'), mode: 'development', logLevel: 'error', server: { port, strictPort: true, host: '127.0.0.1', hmr: false } });
-await server.listen();
-const browser = await chromium.launch({
-  executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', headless: true,
-  args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
-});
+const nb = await startNotebooks();
 try {
-  const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
-  await page.goto(`http://127.0.0.1:${port}/${name}/`);
-  await page.waitForFunction((n) => Boolean(window.strainledger?.[n]), name, { timeout: 60_000 });
-  await page.evaluate((n) => window.strainledger[n].idle(), name);
+  const page = await openNotebook(nb, name);
   const cdp = await page.context().newCDPSession(page);
   await cdp.send('Profiler.enable');
   await cdp.send('Profiler.setSamplingInterval', { interval: 100 });
@@ -73,6 +56,5 @@ try {
   console.log('\nself time per move by function (ms), top 15:');
   for (const [k, v] of [...byFunction].filter(([k]) => !k.startsWith('(idle)')).sort((a, b) => b[1] - a[1]).slice(0, 15)) console.log(`  ${(v / MOVES).toFixed(2).padStart(6)}  ${k}`);
 } finally {
-  await browser.close();
-  await server.close();
+  await nb.close();
 }

@@ -5,35 +5,18 @@
 // (PerformanceObserver 'longtask') and the longest gap between animation frames say whether the
 // page froze. 1 warm-up drop, then 5 timed drops alternating two file names (each is recomputed).
 // Run after `npm run build`: node bench/notebook-records.mjs
-import { createServer as netServer } from 'node:net';
 import { loadavg } from 'node:os';
-import { join } from 'node:path';
-import { chromium } from 'playwright-core';
-import { createServer } from 'vite';
+import { openNotebook, startNotebooks } from './browser.mjs';
 import { inventedRecord } from './records-gen.mjs';
 
-const repo = join(import.meta.dirname, '..');
 const ROWS = Number(process.env.ROWS ?? 100_000);
 const rec = inventedRecord(ROWS);
 let text = 'Strain [%],Stress [MPa]\n';
 for (let i = 0; i < rec.strain.length; i++) text += `${(rec.strain[i] * 100).toFixed(6)},${rec.stress[i].toFixed(4)}\n`;
 
-const port = await new Promise((resolve, reject) => {
-  const s = netServer();
-  s.once('error', reject);
-  s.listen(0, '127.0.0.1', () => { const p = s.address().port; s.close(() => resolve(p)); });
-});
-const server = await createServer({ configFile: join(repo, 'vite.config.ts'), mode: 'development', logLevel: 'error', server: { port, strictPort: true, host: '127.0.0.1', hmr: false } });
-await server.listen();
-const browser = await chromium.launch({
-  executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', headless: true,
-  args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
-});
+const nb = await startNotebooks();
 try {
-  const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
-  await page.goto(`http://127.0.0.1:${port}/records/`);
-  await page.waitForFunction(() => Boolean(window.strainledger?.records));
-  await page.evaluate(() => window.strainledger.records.idle());
+  const page = await openNotebook(nb, 'records');
   const result = await page.evaluate(async ({ text, drops }) => {
     const nb = window.strainledger.records;
     const painted = () => new Promise((resolve) => requestAnimationFrame(() => {
@@ -79,6 +62,5 @@ try {
   console.log(`  load average ${loadavg().map((x) => x.toFixed(1)).join(' ')} (2 cores)`);
   console.log(`  aim: drop → settled ≤ 1000 ms: ${med(result.out.map((r) => r.ms)) <= 1000 ? 'met' : 'NOT met'}`);
 } finally {
-  await browser.close();
-  await server.close();
+  await nb.close();
 }

@@ -30,3 +30,17 @@ export function paths(x: unknown, at: Path = [], out: Path[] = []): Path[] {
   else if (x !== null && typeof x === 'object') for (const [k, v] of Object.entries(x)) paths(v, [...at, k], out);
   return out;
 }
+
+/** Every point of an SVG path's d attribute (Plot writes M/L/H/V with absolute coordinates). */
+export function pathPoints(d: string): [number, number][] {
+  const pts: [number, number][] = [];
+  let x = 0, y = 0;
+  for (const m of d.matchAll(/([MLHV])([^MLHVZ]*)/g)) {
+    const n = m[2]!.split(/[ ,]+/).filter(Boolean).map(Number);
+    if (m[1] === 'H') x = n[0]!;
+    else if (m[1] === 'V') y = n[0]!;
+    else { x = n[0]!; y = n[1]!; }
+    pts.push([x, y]);
+  }
+  return pts;
+}

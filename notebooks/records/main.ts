@@ -13,6 +13,7 @@ import type { WorkerError, WorkerReply, WorkerRequest } from './worker.js';
 import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
 import { recordCurveChart, residualChart } from '../../src/charts/records.js';
 import { BENCH_MATERIAL_KEY, pageChrome } from '../shared/page.js';
+import { sig4 } from '../../src/core/numeric/sig4.js';
 
 pageChrome('records/', 'Record bench');
 
@@ -182,19 +183,29 @@ nb.cell({ name: 'input', fn: () => null })
   .cell({
     name: 'properties', inputs: ['analysis'], into: 'cell-properties',
     fn: (a: TensileAnalysis) => {
-      const q = (label: string, v: number | null, d: number, unit: string, id: string) =>
-        h('div', { class: 'sl-quantity' }, h('dt', {}, label), h('dd', { 'data-q': id }, h('span', { class: 'sl-num' }, fixed(v, d)), unit ? ` ${unit}` : ''));
+      // `prefix` marks a lower bound (the record stopped before maximum force or fracture); `none` is the words
+      // shown instead of a number that does not exist for this record (e.g. no yield drop).
+      const q = (label: string, v: number | null, d: number, unit: string, id: string, opt: { prefix?: string; none?: string } = {}) =>
+        h('div', { class: 'sl-quantity' }, h('dt', {}, label), v === null && opt.none
+          ? h('dd', { 'data-q': id }, h('span', { class: 'sl-none' }, opt.none))
+          : h('dd', { 'data-q': id }, opt.prefix ? `${opt.prefix} ` : '', h('span', { class: 'sl-num' }, fixed(v, d)), unit ? ` ${unit}` : ''));
       const w = a.elasticWindow;
+      const stopped = a.warnings.some((x) => x.code === 'maxAtEnd');
+      const lower = stopped ? { prefix: '≥' } : {};
+      const continuous = 'none (continuous yielding)';
       return h('div', {},
         h('dl', { class: 'sl-quantities', id: 'properties' },
-          q(`Rp${a.proofOffsetPct}`, a.proofStrength, DIGITS.stress, 'MPa', 'proofStrength'),
-          q('Rm', a.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength'),
-          q('Ag (uniform elongation)', a.uniformElongationPct, 2, '%', 'uniformElongation'),
-          q('A (after fracture)', a.totalElongationPct, 2, '%', 'totalElongation'),
-          q('E (elastic window)', a.elasticModulus, 0, 'MPa', 'elasticModulus'),
-          q('n-value', a.nValue, 3, '', 'nValue'),
-          q('ReH (upper yield)', a.upperYield, DIGITS.stress, 'MPa', 'upperYield'),
-          q('yield ratio Rp/Rm', a.proofStrength === null ? null : a.proofStrength / a.tensileStrength, DIGITS.ratio, '', 'yieldRatio')),
+          q(`Rp${a.proofOffsetPct}`, a.proofStrength, DIGITS.stress, 'MPa', 'proofStrength', { none: 'not reached' }),
+          q('Rm', a.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength', lower),
+          q('Ag (uniform elongation)', a.uniformElongationPct, 2, '%', 'uniformElongation', lower),
+          q(stopped ? 'A (record ends before fracture)' : 'A (after fracture)', a.totalElongationPct, 2, '%', 'totalElongation', lower),
+          q(a.elasticModulusSource === 'given' ? 'E (given)' : 'E (elastic window)', a.elasticModulus / 1000, 1, 'GPa', 'elasticModulus'),
+          q('n-value', a.nValue, 3, '', 'nValue', { none: 'not determined' }),
+          q('ReH (upper yield)', a.upperYield, DIGITS.stress, 'MPa', 'upperYield', { none: continuous }),
+          ...(a.upperYield !== null ? [
+            q('ReL (lower yield)', a.lowerYield, DIGITS.stress, 'MPa', 'lowerYield'),
+            q('Ae (yield point extension)', a.yieldPointElongationPct, 2, '%', 'yieldPointElongation')] : []),
+          q('yield ratio Rp/Rm', a.proofStrength === null ? null : a.proofStrength / a.tensileStrength, DIGITS.ratio, '', 'yieldRatio', { none: 'not determined' })),
         h('p', { id: 'elastic-window' }, `Elastic window: ${fixed(w.fromStress, 0)} to ${fixed(w.toStress, 0)} MPa, ${w.points} points, R² ${fixed(w.r2, 5)}, standard error of E ${fixed(w.standardError, 0)} MPa (${w.method}).`),
         a.cycles.length ? h('p', { id: 'modulus-decay' }, `${a.cycles.length} unload–reload loops; unloading chord modulus ${a.cycles.map((c) => fixed(c.unloadModulus, 0)).join(', ')} MPa`,
           a.modulusDecay?.converged ? `; fitted E(ε̄) = E0 − (E0 − Ea)(1 − exp(−ξ·ε̄)) with Ea ${fixed(a.modulusDecay.Ea, 0)} MPa, ξ ${fixed(a.modulusDecay.xi, 1)} (sent with the law).` : '.') : null,
@@ -216,7 +227,7 @@ nb.cell({ name: 'input', fn: () => null })
       const param = (f: (typeof c.fits)[number], p: string) => {
         const iv = f.intervals95[p];
         const v = f.params[p]!;
-        return `${p} ${formatLawParam(LAW_PARAMETERS[f.law].find((x) => x.name === p)!, v)}${iv ? ` (95 %: ${+iv[0].toPrecision(4)} to ${+iv[1].toPrecision(4)})` : ' (interval not identifiable)'}`;
+        return `${p} ${formatLawParam(LAW_PARAMETERS[f.law].find((x) => x.name === p)!, v)}${iv ? ` (95 %: ${sig4(iv[0])} to ${sig4(iv[1])})` : ' (interval not identifiable)'}`;
       };
       const basis = c.fits.find((f) => f.law === c.best)?.basis ?? c.fits[0]?.basis;
       const n = c.fits[0]?.points ?? 0;

@@ -1,5 +1,4 @@
-import { fixed } from '../report/table.js';
-import { DISPLAY_DIGITS } from '../report/numbers.js';
+import { DISPLAY_DIGITS, fixed } from '../report/numbers.js';
 import { CAUTIONS } from '../report/cautions.js';
 import { h } from './dom.js';
 

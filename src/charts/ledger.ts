@@ -1,5 +1,6 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
+import { chartFrame, PALETTE, X_AXIS } from './palette.js';
+import { sig4 } from '../core/numeric/sig4.js';
 
 /** The numbers a ledger chart needs, in the plan's units (what the JSON report's steps hold). */
 export interface LedgerChartStep {
@@ -56,8 +57,6 @@ export function stepTicks(last: number, width: number): number[] {
   return ticks;
 }
 
-/** Keeps the given numbers (no NaN/undefined) and the options that were set. */
-const defined = <T extends object>(o: T): T => Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as T;
 
 /** One value of one series at one step (step 0: the starting stock). */
 interface Point { index: number; value: number; what: string }
@@ -99,10 +98,6 @@ function stepAxis(last: number, width: number): Plot.ScaleOptions {
   return { label: 'step (0 = starting stock)', domain: [0, Math.max(1, last)], ticks: stepTicks(last, width), tickFormat: 'd', inset: 14, ...X_AXIS };
 }
 
-function fmt(v: number): string {
-  return String(+v.toPrecision(4));
-}
-
 /**
  * Reload yield (solid) and tensile strength (dashed) after each step (step 0: the starting stock),
  * drawn as steps, with the yield target as a labelled band. Same code in the notebooks (browser DOM) and in the
@@ -120,23 +115,19 @@ export function strengthByStepChart(steps: readonly LedgerChartStep[], o: Ledger
   const dataMax = Math.max(0, ...data.map((d) => d.value), o.minYield ?? 0, o.maxYield ?? 0);
   const marks: Plot.Markish[] = [];
   if (o.minYield !== undefined || o.maxYield !== undefined) {
-    const label = o.minYield !== undefined && o.maxYield !== undefined ? `yield target ${fmt(o.minYield)}–${fmt(o.maxYield)} ${o.stressUnit}`
-      : o.minYield !== undefined ? `yield target ≥ ${fmt(o.minYield)} ${o.stressUnit}` : `yield target ≤ ${fmt(o.maxYield!)} ${o.stressUnit}`;
+    const label = o.minYield !== undefined && o.maxYield !== undefined ? `yield target ${sig4(o.minYield)}–${sig4(o.maxYield)} ${o.stressUnit}`
+      : o.minYield !== undefined ? `yield target ≥ ${sig4(o.minYield)} ${o.stressUnit}` : `yield target ≤ ${sig4(o.maxYield!)} ${o.stressUnit}`;
     marks.push(...targetBand(o.minYield, o.maxYield, dataMax * 1.1, 0, label));
   }
   marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, RM));
-  return Plot.plot(defined({
-    document: o.document,
-    width,
-    height: o.height ?? 320,
+  return Plot.plot({
+    ...chartFrame(o, DEFAULT_CHART_WIDTH, 320),
     marginRight: 24,
-    marginBottom: MARGIN_BOTTOM,
-    style: CHART_STYLE,
     x: stepAxis(last, width),
     y: { label: `stress (${o.stressUnit})`, grid: true, domain: [0, dataMax * 1.1] },
     color: { domain: [RP, RM], range: [PALETTE.strength, PALETTE.ductility], legend: true },
     marks,
-  }));
+  });
 }
 
 /**
@@ -154,21 +145,17 @@ export function ductilityByStepChart(steps: readonly LedgerChartStep[], o: Omit<
   const width = o.width ?? DEFAULT_CHART_WIDTH;
   const marks: Plot.Markish[] = [];
   if (o.minRemainingElongationPct !== undefined) {
-    marks.push(...targetBand(o.minRemainingElongationPct, undefined, 100, 0, `elongation target ≥ ${fmt(o.minRemainingElongationPct)} %`));
+    marks.push(...targetBand(o.minRemainingElongationPct, undefined, 100, 0, `elongation target ≥ ${sig4(o.minRemainingElongationPct)} %`));
   }
   marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, CW));
-  return Plot.plot(defined({
-    document: o.document,
-    width,
-    height: o.height ?? 280,
+  return Plot.plot({
+    ...chartFrame(o, DEFAULT_CHART_WIDTH, 280),
     marginRight: 24,
-    marginBottom: MARGIN_BOTTOM,
-    style: CHART_STYLE,
     x: stepAxis(last, width),
     y: { label: 'percent (%)', grid: true, domain: [0, 100] },
     color: { domain: [EL, CW], range: [PALETTE.ductility, PALETTE.coldWork], legend: true },
     marks,
-  }));
+  });
 }
 
 /** What the hardness chart needs of a step: its number and the Tabor estimate (HV). */
@@ -209,18 +196,13 @@ export function hardnessByStepChart(steps: readonly HardnessChartStep[], o: Hard
   const dataMax = Math.max(0, ...data.map((d) => d.value), lo ?? 0, hi ?? 0);
   const marks: Plot.Markish[] = [];
   if (lo !== undefined || hi !== undefined) {
-    const f = (v: number) => String(+v.toPrecision(4));
-    const label = lo !== undefined && hi !== undefined ? `hardness target ${f(lo)}–${f(hi)} HV` : lo !== undefined ? `hardness target ≥ ${f(lo)} HV` : `hardness target ≤ ${f(hi!)} HV`;
+    const label = lo !== undefined && hi !== undefined ? `hardness target ${sig4(lo)}–${sig4(hi)} HV` : lo !== undefined ? `hardness target ≥ ${sig4(lo)} HV` : `hardness target ≤ ${sig4(hi)} HV`;
     marks.push(...targetBand(lo, hi, dataMax * 1.1, 0, label));
   }
   marks.push(Plot.ruleY([0], { stroke: PALETTE.grid }), ...stepSeries(data, ''));
   return Plot.plot({
-    ...(o.document ? { document: o.document } : {}),
-    width,
-    height: o.height ?? 260,
+    ...chartFrame(o, DEFAULT_CHART_WIDTH, 260),
     marginRight: 24,
-    marginBottom: MARGIN_BOTTOM,
-    style: CHART_STYLE,
     x: stepAxis(last, width),
     y: { label: 'Vickers hardness HV (Tabor estimate)', grid: true, domain: [0, dataMax * 1.1] },
     color: { domain: [HV], range: [PALETTE.strength] },

@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
+import { chartFrame, PALETTE, X_AXIS } from './palette.js';
 
 /** One law's flow curve, sampled: points of true stress against true plastic strain. */
 export interface CurveSeries {
@@ -38,11 +38,7 @@ export function flowCurveChart(series: readonly CurveSeries[], o: FlowChartOptio
   if (o.prestrain !== undefined) marks.push(Plot.ruleX([o.prestrain], { stroke: PALETTE.ink, strokeDasharray: '5,4' }));
   if (o.reloadYields) marks.push(Plot.dot(o.reloadYields, { x: 'strain', y: 'stress', stroke: 'label', fill: 'white', r: 4, strokeWidth: 2 }));
   return Plot.plot({
-    ...(o.document ? { document: o.document } : {}),
-    width: o.width ?? 560,
-    height: o.height ?? 320,
-    style: CHART_STYLE,
-    marginBottom: MARGIN_BOTTOM,
+    ...chartFrame(o, 560, 320),
     x: { ...X_AXIS, label: 'true plastic strain ε̄ (–)', grid: true },
     y: { label: `true stress (${o.stressUnit})`, grid: true },
     color: { domain: series.map((s) => s.label), range: [...PALETTE.laws], legend: true },
@@ -65,11 +61,7 @@ export function loadUnloadChart(path: LoadUnloadPath, o: { stressUnit: string; w
   const legs = ['loading', 'unloading along E(ε̄)', 'reloading'];
   const data = [...tag(path.loading, legs[0]!), ...tag(path.unloading, legs[1]!), ...tag(path.reloading, legs[2]!)];
   return Plot.plot({
-    ...(o.document ? { document: o.document } : {}),
-    width: o.width ?? 560,
-    height: o.height ?? 320,
-    style: CHART_STYLE,
-    marginBottom: MARGIN_BOTTOM,
+    ...chartFrame(o, 560, 320),
     x: { ...X_AXIS, label: 'total true strain (–)', grid: true },
     y: { label: `true stress (${o.stressUnit})`, grid: true },
     color: { domain: legs, range: [PALETTE.strength, PALETTE.elastic, PALETTE.ductility], legend: true },

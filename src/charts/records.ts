@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
+import { chartFrame, PALETTE, X_AXIS } from './palette.js';
 
 /** Most points a chart draws from one series; longer records are thinned by a fixed stride. */
 export const CHART_MAX_POINTS = 2000;
@@ -27,11 +27,7 @@ export function recordCurveChart(
   const win: { e: number; s: number }[] = [];
   for (let i = w.fromIndex; i < w.toIndex; i++) win.push({ e: record.strain[i]! * 100, s: record.stress[i]! });
   return Plot.plot({
-    ...(o.document ? { document: o.document } : {}),
-    width: o.width ?? 520,
-    height: o.height ?? 300,
-    style: CHART_STYLE,
-    marginBottom: MARGIN_BOTTOM,
+    ...chartFrame(o, 520, 300),
     x: { ...X_AXIS, label: 'engineering strain (%)', grid: true },
     y: { label: 'engineering stress (MPa)', grid: true },
     marks: [
@@ -57,11 +53,7 @@ export function residualChart(
   const idx = thin(strain.length);
   const data = fits.flatMap((f) => idx.filter((i) => f.residuals[i] !== undefined).map((i) => ({ eps: strain[i]!, r: f.residuals[i]!, law: f.law })));
   return Plot.plot({
-    ...(o.document ? { document: o.document } : {}),
-    width: o.width ?? 520,
-    height: o.height ?? 300,
-    style: CHART_STYLE,
-    marginBottom: MARGIN_BOTTOM,
+    ...chartFrame(o, 520, 300),
     x: { ...X_AXIS, label: 'true plastic strain (–)', grid: true },
     y: { label: 'residual (MPa)', grid: true },
     color: { domain: fits.map((f) => f.law), range: [...PALETTE.laws], legend: true },

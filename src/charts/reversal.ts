@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
+import { chartFrame, PALETTE, X_AXIS } from './palette.js';
 
 /** A stress–strain path to draw: true stress against total true strain. */
 export interface PathSeries {
@@ -15,11 +15,7 @@ export interface PathSeries {
 export function reversalChart(series: readonly PathSeries[], o: { stressUnit: string; width?: number; height?: number; document?: Document }): SVGSVGElement | HTMLElement {
   const data = series.flatMap((s) => s.points.map((p) => ({ ...p, model: s.label })));
   return Plot.plot({
-    ...(o.document ? { document: o.document } : {}),
-    width: o.width ?? 560,
-    height: o.height ?? 320,
-    style: CHART_STYLE,
-    marginBottom: MARGIN_BOTTOM,
+    ...chartFrame(o, 560, 320),
     x: { ...X_AXIS, label: 'total true strain ε (–)', grid: true },
     y: { label: `true stress (${o.stressUnit})`, grid: true },
     color: { domain: series.map((s) => s.label), range: [PALETTE.strength, PALETTE.ductility, PALETTE.coldWork], legend: true },
@@ -40,11 +36,7 @@ export function residualStressChart(profile: readonly { y: number; stress: numbe
   // be drawn as a zigzag across the section).
   const sorted = [...profile].sort((a, b) => a.y - b.y);
   return Plot.plot({
-    ...(o.document ? { document: o.document } : {}),
-    width: o.width ?? 360,
-    height: o.height ?? 320,
-    style: CHART_STYLE,
-    marginBottom: MARGIN_BOTTOM,
+    ...chartFrame(o, 360, 320),
     x: { ...X_AXIS, label: `residual stress (${o.stressUnit})`, grid: true },
     y: { label: `position through the thickness, outer side up (${o.lengthUnit})`, grid: true },
     marks: [

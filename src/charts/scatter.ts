@@ -1,5 +1,5 @@
 import * as Plot from '@observablehq/plot';
-import { CHART_STYLE, MARGIN_BOTTOM, PALETTE, X_AXIS } from './palette.js';
+import { chartFrame, PALETTE, X_AXIS } from './palette.js';
 
 export interface YieldHistogramOptions {
   stressUnit: string;
@@ -43,12 +43,8 @@ export function yieldHistogram(values: ArrayLike<number>, o: YieldHistogramOptio
     marks.push(Plot.text([{ x: o.bound, label: 'lower tolerance bound' }], { x: 'x', text: 'label', frameAnchor: 'top', dy: 22, dx: 4, textAnchor: 'start', fill: PALETTE.ink, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }));
   }
   return Plot.plot({
-    ...(o.document ? { document: o.document } : {}),
-    width: o.width ?? 640,
-    height: o.height ?? 300,
+    ...chartFrame(o, 640, 300),
     marginLeft: 56,
-    style: CHART_STYLE,
-    marginBottom: MARGIN_BOTTOM,
     ...(o.probability !== undefined ? { caption: `probability all targets met: ${(o.probability * 100).toFixed(1)} %` } : {}),
     x: { ...X_AXIS, label: `final reload yield Rp0.2 (${o.stressUnit})`, grid: true },
     y: { label: 'samples', grid: true },

@@ -43,8 +43,9 @@ export { DEFAULT_GRAIN_GROWTH_STRAIN, validateGrainGrowthStrain, inGrainGrowthRa
 export { BS_NUMBER_RATIO, bsReductionPct } from './temper/bsNumbers.js';
 export { h18Increase, aluminiumH1xBoundaries, H18_INCREASE, H19_ABOVE_H18 } from './temper/aluminiumH1x.js';
 export {
-  TEMPER_SYSTEMS, COPPER_ROLLED_TEMPERS, STEEL_STRIP_TEMPERS, hvOfRockwellB, TEMPER_BOUNDARY_TOL, temperScale, temperBasisValue, temperOf, temperStrainBand,
+  TEMPER_SYSTEMS, COPPER_ROLLED_TEMPERS, STEEL_STRIP_TEMPERS, hvOfRockwellB, TEMPER_BOUNDARY_TOL, temperScale, temperBandIndex, temperBasisValue, temperOf, temperStrainBand,
 } from './temper/scale.js';
+export { materialTemperScale, COPPER_WIRE_REFUSAL } from './temper/materialScale.js';
 export type * from './temper/types.js';
 export type * from './route/types.js';
 

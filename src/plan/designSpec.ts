@@ -9,6 +9,7 @@ import { resolvePlan, withLocation } from './resolve.js';
 import { MaterialSchema, TargetsSchema, type PlanInput } from './schema.js';
 import { unitsOf, type Units } from './units.js';
 import { formatOf } from './load.js';
+import { sig4 } from '../core/numeric/sig4.js';
 
 /**
  * The design specification file (JSON or YAML), our own format: what a route must do, from which the
@@ -117,7 +118,7 @@ export function loadDesignSpecText(text: string, file = 'spec.json', format = fo
       sizeResolution: units.toMm(doc.units === 'US' ? 1e-4 : 1e-3),
       maxRoutes: doc.routes,
       length: (mm) => `${+units.fromMm(mm).toPrecision(5)} ${units.length}`,
-      force: (n) => `${+units.fromN(n).toPrecision(4)} ${units.force}`,
+      force: (n) => `${sig4(units.fromN(n))} ${units.force}`,
     };
     if (p.kind === 'draw') s.dieHalfAngleDeg = p.dieHalfAngleDeg;
     else {

@@ -61,6 +61,11 @@ interface Plan {
 }
 
 /** Collects rows into growable typed arrays; validates every used cell with its line and column. */
+/** Fewest rows of a tensile record. */
+const MIN_ROWS = 10;
+/** Most non-number rows read as a footer at the end of a record (more is not a footer: the file is not one record); rows with only the strain cell empty (extensometer taken off) are not limited. */
+const MAX_FOOTER_ROWS = 1000;
+
 export class RecordBuilder {
   private xs = new Float64Array(1024);
   private ys = new Float64Array(1024);
@@ -74,6 +79,12 @@ export class RecordBuilder {
   private readonly width: number;
   private maxA = -Infinity;
   private maxALine = 0;
+  /**
+   * The first row after the data that is not two numbers, kept while only such rows follow: a footer
+   * ("Maximum;358.2", "End of test") or an extensometer taken off (the strain cells empty to the end). A row of
+   * numbers after it makes it the error it is.
+   */
+  private footer: { error: unknown; line: number; lastLine: number; rows: number; strainEmpty: boolean } | null = null;
 
   constructor(layout: Layout, opts: RecordOptions) {
     this.file = opts.file ?? 'record';
@@ -207,10 +218,22 @@ export class RecordBuilder {
 
   /** Adds one data row (fields as split by the CSV reader) found at 1-based `line`. */
   push(f: string[], line: number): void {
-    if (f.length === 1 && f[0]!.trim() === '') return;
+    // An empty line, or a row of empty cells (only delimiters, as spreadsheets export blank rows), is no row.
+    if (f.every((c) => c.trim() === '')) return;
     const { a, b } = this.plan;
-    const x = this.cell(f, a, line);
-    const y = this.cell(f, b, line);
+    let x: number, y: number;
+    try {
+      x = this.cell(f, a, line);
+      y = this.cell(f, b, line);
+    } catch (e) {
+      // Before a record of at least MIN_ROWS rows the row is an error; after it, a footer candidate.
+      if (this.n < MIN_ROWS || (this.footer && !this.footer.strainEmpty && this.footer.rows === MAX_FOOTER_ROWS)) throw this.footer?.error ?? e;
+      this.footer ??= { error: e, line, lastLine: line, rows: 0, strainEmpty: (f[a.index] ?? '').trim() === '' && (f[b.index] ?? '').trim() !== '' };
+      this.footer.rows++;
+      this.footer.lastLine = line;
+      return;
+    }
+    if (this.footer) throw this.footer.error;
     this.pushValues(x, y, line);
   }
 
@@ -241,7 +264,15 @@ export class RecordBuilder {
     const L = this.layout;
     const p = this.plan;
     if (this.n === 0) this.fail(L.dataLine, 1, '', 'no data rows; expected rows of numbers after the header');
-    if (this.n < 10) this.fail(this.lastLine, 1, '', `${this.n === 1 ? 'a single data row' : `only ${this.n} data rows`}; expected a tensile record of at least 10 rows`);
+    if (this.n < MIN_ROWS) this.fail(this.lastLine, 1, '', `${this.n === 1 ? 'a single data row' : `only ${this.n} data rows`}; expected a tensile record of at least ${MIN_ROWS} rows`);
+    const ft = this.footer;
+    if (ft) {
+      const why = (ft.error as { problems?: { message: string }[] }).problems?.[0]?.message ?? String(ft.error);
+      const span = ft.rows === 1 ? `line ${ft.line}` : `lines ${ft.line}–${ft.lastLine}`;
+      this.warnings.push(ft.strainEmpty
+        ? `the ${p.mode === 'ss' ? 'strain' : 'extension'} column ${show(p.a.name)} is empty from line ${ft.line} to the end (${ft.rows} rows; extensometer taken off?): the record is read to line ${this.lastLine}; Rm, Ag and A past that point are not in it`
+        : `${span} after the data ${ft.rows === 1 ? 'is not a row' : 'are not rows'} of numbers (first: ${why}): read as a footer and left out; the record ends at line ${this.lastLine}`);
+    }
     let fa = p.fa;
     if (Number.isNaN(fa)) {
       fa = this.maxA > 1 ? 0.01 : 1;

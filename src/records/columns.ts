@@ -43,21 +43,38 @@ export function describeColumn(name: string, index: number): ColumnInfo {
     unit = (sep[2] ?? sep[4])!;
   } else {
     const inU = /^(.*?)\s+in\s+(\S+)$/i.exec(base);
+    // `Stress/MPa`, `Strain/µε`, `Force / kN`: quantity/unit (ISO 80000-1 §7.1 notation for a value divided by
+    // its unit, as table headings write it). The text after the last slash must be a known unit, so `mm/mm`
+    // stays a strain unit and a name such as `Stress/Strain` stays a name.
+    const slash = /^(.*?)\s*\/\s*([^/\s]+)$/.exec(base);
     const suf = UNIT_SUFFIX.exec(base);
+    // A compound unit at the end (`Strain mm/mm`, `Stress N/mm2`) is one unit, not quantity/unit.
+    const compound = suf !== null && suf[1]!.includes('/');
     if (inU) { base = inU[1]!; unit = inU[2]!; }
+    else if (!compound && slash && slash[1] && knownUnit(slash[2]!)) { base = slash[1]; unit = slash[2]!; }
     else if (suf) { unit = suf[1]!; base = base.slice(0, base.length - suf[0].length); }
-    else {
-      const slash = /^(.*?)\s*\/\s*(\S+)$/.exec(base);
-      if (slash && /^(mpa|gpa|ksi|psi|n|kn|lbf|mm|in|%|s)$/i.test(slash[2]!)) { base = slash[1]!; unit = slash[2]!; }
-    }
   }
   const b = base.toLowerCase().replace(/[_\-.]+/g, ' ').replace(/\s+/g, ' ').trim();
-  return { index, name, base: b, unit: normUnit(unit) === 'pct' ? '%' : unit.trim(), isTrue: /\btrue\b|\blog(arithmic)?\b/.test(b) };
+  return { index, name, base: b, unit: normUnit(unit) === 'pct' ? '%' : unit.trim(), isTrue: /\btrue\b|\blog(arithmic)?\b/.test(toEnglish(b)) };
 }
+
+/**
+ * Column words of other languages read as their English role words (German, French, Spanish, Italian test
+ * reports; plain dictionary words, common practice): a German export's `Dehnung [%]` and `Spannung [MPa]` are
+ * strain and stress. Only whole words are mapped.
+ */
+const FOREIGN_WORDS: Readonly<Record<string, string>> = {
+  spannung: 'stress', zugspannung: 'stress', dehnung: 'strain', kraft: 'force', zugkraft: 'force', 'verlängerung': 'extension',
+  'längenänderung': 'extension', weg: 'displacement', traverse: 'crosshead', zeit: 'time', wahre: 'true', technische: 'engineering',
+  contrainte: 'stress', 'déformation': 'strain', allongement: 'extension', effort: 'force', charge: 'load', 'déplacement': 'displacement', temps: 'time', vraie: 'true',
+  'tensión': 'stress', esfuerzo: 'stress', 'deformación': 'strain', fuerza: 'force', carga: 'load', alargamiento: 'extension', tiempo: 'time', verdadera: 'true',
+  tensione: 'stress', sollecitazione: 'stress', deformazione: 'strain', forza: 'force', carico: 'load', allungamento: 'extension', tempo: 'time', vera: 'true',
+};
+const toEnglish = (b: string) => b.split(' ').map((w) => (Object.prototype.hasOwnProperty.call(FOREIGN_WORDS, w) ? FOREIGN_WORDS[w]! : w)).join(' ');
 
 /** Score of a column for a role (0 = not this role). Higher wins; engineering values beat true ones. */
 export function roleScore(c: ColumnInfo, role: Role, unitHint: string): number {
-  const b = c.base;
+  const b = toEnglish(c.base);
   const lengthUnit = /^(mm|in|inch|m|cm|µm|um)$/i.test(normUnit(unitHint));
   const eng = c.isTrue ? 0 : 1;
   switch (role) {

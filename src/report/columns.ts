@@ -1,8 +1,7 @@
 import { extraFieldHeader, formatNumber, targetUnit as unitOfTarget, targetUnitKind } from './numbers.js';
 import type { ReportStep, ReportV1 } from './build.js';
-import { conversionHeader, extraStepFields, sig4, sizeText, stepNumber } from './fields.js';
-
-const fx = (x: number, d: number) => x.toFixed(d);
+import { conversionHeader, extraStepFields, sizeText, stepNumber } from './fields.js';
+import { sig4 } from '../core/numeric/sig4.js';
 
 /** One column of the human-readable step tables (Markdown, HTML), rounded as a reader needs it. */
 export interface StepColumn {
@@ -12,30 +11,31 @@ export interface StepColumn {
 }
 
 /**
- * The step columns of the human-readable reports, in the plan's units: strains to 4 decimals,
- * stresses to 0.1, percentages to 0.1, elastic recovery in percent to 3 decimals; then every extra
- * numeric step field (4 significant figures), then the warning codes.
+ * The step columns of every human-readable report (text table, Markdown, HTML), in the plan's units,
+ * each at its kind's precision in `DISPLAY_DIGITS` (numbers.ts: strains 4 decimals, stresses 0.1 MPa
+ * or 0.01 ksi, percentages 0.1, elastic recovery in percent 3 decimals, HV 0.1); then every extra numeric step field (4 significant figures), then the warning codes
+ * joined by `warningSeparator`.
  */
-export function stepColumns(r: ReportV1): StepColumn[] {
+export function stepColumns(r: ReportV1, warningSeparator = ', '): StepColumn[] {
   const S = r.units.stress;
   const cols: StepColumn[] = [
     { header: 'step', numeric: true, cell: (s) => String(s.index) },
     { header: 'kind', numeric: false, cell: (s) => (s.label ? `${s.kind} (${s.label})` : s.kind) },
     { header: `size ${r.units.length}`, numeric: false, cell: (s) => sizeText(s.size) },
-    { header: 'Δε', numeric: true, cell: (s) => fx(s.strainIncrement, 4) },
-    { header: 'ε̄ since anneal', numeric: true, cell: (s) => fx(s.accumulatedStrain, 4) },
-    { header: '%CW', numeric: true, cell: (s) => fx(s.coldWorkPct, 1) },
+    { header: 'Δε', numeric: true, cell: (s) => formatNumber(s.strainIncrement, 'strain') },
+    { header: 'ε̄ since anneal', numeric: true, cell: (s) => formatNumber(s.accumulatedStrain, 'strain') },
+    { header: '%CW', numeric: true, cell: (s) => formatNumber(s.coldWorkPct, 'percent') },
     { header: `Rp0.2 ${S}`, numeric: true, cell: (s) => formatNumber(s.reloadYield, 'stress', S) },
     { header: `Rm ${S}`, numeric: true, cell: (s) => formatNumber(s.tensileStrength, 'stress', S) },
-    { header: 'Rp/Rm', numeric: true, cell: (s) => fx(s.yieldRatio, 3) },
-    { header: 'Ag left %', numeric: true, cell: (s) => fx(s.remainingUniformElongationPct, 1) },
-    { header: 'recovery %', numeric: true, cell: (s) => fx(s.elasticRecoveryStrain * 100, 3) },
+    { header: 'Rp/Rm', numeric: true, cell: (s) => formatNumber(s.yieldRatio, 'ratio') },
+    { header: 'Ag left %', numeric: true, cell: (s) => formatNumber(s.remainingUniformElongationPct, 'percent') },
+    { header: 'recovery %', numeric: true, cell: (s) => formatNumber(s.elasticRecoveryStrain * 100, 'recoveryPct') },
   ];
   // Vickers hardness (Tabor estimate) to 0.1 HV, in its own column when the report has it.
-  if (r.steps.some((s) => s.hardnessHV !== undefined)) cols.push({ header: 'HV', numeric: true, cell: (s) => (s.hardnessHV === undefined ? '—' : fx(s.hardnessHV, 1)) });
+  if (r.steps.some((s) => s.hardnessHV !== undefined)) cols.push({ header: 'HV', numeric: true, cell: (s) => formatNumber(s.hardnessHV, 'hardness') });
   for (const key of extraStepFields(r.steps).filter((k) => k !== 'hardnessHV')) cols.push({ header: conversionHeader(key, S) ?? extraFieldHeader(key, r.units), numeric: true, cell: (s) => sig4(stepNumber(s, key)) });
   if (hasTemper(r)) cols.push({ header: 'temper', numeric: false, cell: temperText });
-  cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(', ') });
+  cols.push({ header: 'warnings', numeric: false, cell: (s) => s.warnings.map((w) => w.code).join(warningSeparator) });
   return cols;
 }
 

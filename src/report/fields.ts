@@ -44,13 +44,6 @@ export function stepNumber(s: ReportStep, key: string): number | undefined {
   return typeof v === 'number' ? v : undefined;
 }
 
-/** Four significant figures for an extra field whose scale is not known in advance. */
-export function sig4(x: number | undefined): string {
-  if (x === undefined) return '—';
-  if (x === 0) return '0';
-  return String(+x.toPrecision(4));
-}
-
 /** The size of a step in words for a human report: `t 1.600`, `d 0.218`, `h 10.000`. */
 export function sizeText(s: ReportStep['size']): string {
   if (s.thickness !== undefined) return `t ${s.thickness.toFixed(3)}`;

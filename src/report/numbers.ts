@@ -1,5 +1,6 @@
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { LawName, ParamInfo } from '../core/flow/types.js';
+import { sig4 } from '../core/numeric/sig4.js';
 
 /**
  * Numbers as an engineer writes them (issue 14): one table of displayed precision per kind of
@@ -32,6 +33,16 @@ export const DISPLAY_DIGITS = {
 export function digitsOf(kind: QuantityKind, stressUnit: string = 'MPa'): number {
   if (kind === 'stress') return stressUnit === 'ksi' ? DISPLAY_DIGITS.stress.ksi : DISPLAY_DIGITS.stress.MPa;
   return DISPLAY_DIGITS[kind];
+}
+
+/**
+ * Fixed decimals given by the caller, `—` for a missing value. For a quantity of a known kind use
+ * {@link formatNumber}, whose digits come from {@link DISPLAY_DIGITS}.
+ * @example fixed(2.345, 1) // "2.3"
+ */
+export function fixed(x: number | null | undefined, digits: number): string {
+  if (x === null || x === undefined) return '—';
+  return x.toFixed(digits);
 }
 
 /** Fixed decimals for a kind, `—` for a missing value; `-0.0` is written `0.0`. */
@@ -98,7 +109,7 @@ export function formatLawParam(info: ParamInfo, value: number): string {
   if (value === 0) return '0';
   const a = Math.abs(value);
   // 4 significant figures; numbers from 1e-4 up to 1e6 without an exponent.
-  if (a >= 1e-4 && a < 1e6) return String(+value.toPrecision(4));
+  if (a >= 1e-4 && a < 1e6) return sig4(value);
   return value.toExponential(3).replace('e+', 'e');
 }
 

@@ -5,6 +5,7 @@
 import { parseHTML } from 'linkedom';
 import { describe, expect, it } from 'vitest';
 import { ductilityByStepChart, stepTicks, strengthByStepChart, type LedgerChartStep } from '../../src/charts/ledger.js';
+import { pathPoints } from '../helpers.js';
 
 const doc = () => parseHTML('<!DOCTYPE html><html><body></body></html>').document as unknown as Document;
 
@@ -21,20 +22,6 @@ const steps: LedgerChartStep[] = Array.from({ length: 12 }, (_, i) => {
 const start = { reloadYield: 120, tensileStrength: 260, remainingUniformElongationPct: 40 };
 
 const tickLabels = (svg: Element) => [...svg.querySelectorAll('g[aria-label="x-axis tick label"] text')].map((t) => t.textContent ?? '');
-/** Every point of an SVG path's d attribute (Plot writes M/L/H/V with absolute coordinates). */
-function pathPoints(d: string): [number, number][] {
-  const pts: [number, number][] = [];
-  let x = 0, y = 0;
-  for (const m of d.matchAll(/([MLHV])([^MLHVZ]*)/g)) {
-    const n = m[2]!.split(/[ ,]+/).filter(Boolean).map(Number);
-    if (m[1] === 'H') x = n[0]!;
-    else if (m[1] === 'V') y = n[0]!;
-    else { x = n[0]!; y = n[1]!; }
-    pts.push([x, y]);
-  }
-  return pts;
-}
-
 describe('stepTicks', () => {
   it('gives whole steps from 0, every step when they fit, else a round stride', () => {
     expect(stepTicks(5, 600)).toEqual([0, 1, 2, 3, 4, 5]);

@@ -6,6 +6,7 @@ import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openPage, settled, startHarness, REPO, SCREENSHOTS, type Harness } from './browser.js';
+import { pathPoints } from '../helpers.js';
 
 let h: Harness;
 beforeAll(async () => { h = await startHarness(); });
@@ -44,20 +45,6 @@ function chartFacts(page: Page, sel: string, values: number[] = []): Promise<Cha
       yOf: values.map((v) => box.top + (y ? y.apply(v) : NaN) * sy),
     };
   }, values);
-}
-
-/** The vertices of a path Plot wrote (absolute M/L/H/V commands). */
-function pathPoints(d: string): [number, number][] {
-  const pts: [number, number][] = [];
-  let x = 0, y = 0;
-  for (const m of d.matchAll(/([MLHV])([^MLHVZ]*)/g)) {
-    const n = m[2]!.split(/[ ,]+/).filter(Boolean).map(Number);
-    if (m[1] === 'H') x = n[0]!;
-    else if (m[1] === 'V') y = n[0]!;
-    else { x = n[0]!; y = n[1]!; }
-    pts.push([x, y]);
-  }
-  return pts;
 }
 
 /** A line is a staircase when each run is flat or vertical (a sloping join moves x and y at once). */

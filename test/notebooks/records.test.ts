@@ -74,7 +74,10 @@ describe('record bench', () => {
     // test/core/tensile/open-data.test.ts; here 0.2 point of 5.2 % (4 %). Measured 5.36 %.
     expectRelClose(await num(page, 'uniformElongation'), 5.208, 0.04, 'Ag');
     // E depends on the fit window (a few per cent, CHECKS.md); producer's slope 201876 MPa.
-    expectRelClose(await num(page, 'elasticModulus'), 201876, 0.05, 'E');
+    expectRelClose(await num(page, 'elasticModulus'), 201.876, 0.05, 'E (GPa)');
+    expect(await page.locator('[data-q="elasticModulus"]').innerText()).toMatch(/^\d+\.\d GPa$/);
+    // A continuous curve has no upper yield point: it says so in words, not a dash.
+    expect(await page.locator('[data-q="upperYield"]').innerText()).toBe('none (continuous yielding)');
     expect(await page.locator('#fits-table tbody tr').count()).toBeGreaterThanOrEqual(5);
     expect(await page.locator('#spread-table tbody tr').count()).toBeGreaterThanOrEqual(2);
     expect(await page.locator('#elastic-window').innerText()).toContain('points');
@@ -143,11 +146,11 @@ describe('record bench', () => {
     expect(await page.locator('#record-input').innerText()).toContain('INVENTED');
     // The file says it was generated from a Swift law with E 207 GPa (invented); the elastic
     // window must find that modulus within the few per cent a fit window allows (CHECKS.md).
-    expectRelClose(await num(page, 'elasticModulus'), 207000, 0.05, 'E of the invented record');
+    expectRelClose(await num(page, 'elasticModulus'), 207, 0.05, 'E of the invented record (GPa)');
     // Its four unload–reload loops give the fall of the chord modulus, which travels with the law
     // to the prestrain explorer: the unloading modulus there falls below E after prestrain.
     expect(await page.locator('#modulus-decay').innerText()).toContain('4 unload–reload loops');
-    const E0 = await num(page, 'elasticModulus');
+    const E0 = (await num(page, 'elasticModulus')) * 1000;
     await page.click('#save-material');
     await page.goto(h.base + '/prestrain/');
     await settled(page, 'prestrain');
@@ -158,6 +161,35 @@ describe('record bench', () => {
     expect(E1).toBeLessThan(E0 * 0.97);
     expect(E1).toBeGreaterThan(150000);
     await page.screenshot({ path: `${SCREENSHOTS}/prestrain-bench-law.png`, fullPage: true });
+    expect(errors).toEqual([]);
+  });
+
+  it('a record that stops before maximum force shows Rm, Ag and A as lower bounds, and a yield drop shows ReL and Ae', async () => {
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    // INVENTED: a Swift-law record cut at 60 % of its samples (before maximum force), as a test stopped early.
+    const rec = synthesizeRecord({ law: { law: 'swift', K: 600, eps0: 0.01, n: 0.22 }, elasticModulus: 200000, rng: xoshiro128ss(7), noise: 0.2, step: 2e-4, necking: { extraStrain: 0.06, dropTo: 0.7 } });
+    const cut = Math.round(rec.strain.length * 0.6);
+    let text = 'Strain [%],Stress [MPa]\n';
+    for (let i = 0; i < cut; i++) text += `${(rec.strain[i]! * 100).toFixed(6)},${rec.stress[i]!.toFixed(4)}\n`;
+    await dropFile(page, 'stopped-early.csv', text);
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('stopped-early'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expect(await page.locator('[data-q="tensileStrength"]').innerText()).toMatch(/^≥ \d/);
+    expect(await page.locator('[data-q="totalElongation"]').innerText()).toMatch(/^≥ \d/);
+    expect(await page.locator('#properties').innerText()).toContain('A (record ends before fracture)');
+    // INVENTED: a clear 8 % yield drop with a 2 % Lüders plateau and little noise.
+    const { synthesizeLabRecord } = await import('../../src/core/index.js');
+    const lab = synthesizeLabRecord({ law: { law: 'voce', sigma0: 280, Q: 200, b: 12 }, elasticModulus: 205000, rng: xoshiro128ss(3), points: 8000, noise: 0.5, yieldDrop: { drop: 0.08, luedersStrain: 0.02 } });
+    let t2 = 'Strain [%],Stress [MPa]\n';
+    for (let i = 0; i < lab.strain.length; i++) t2 += `${(lab.strain[i]! * 100).toFixed(6)},${lab.stress[i]!.toFixed(4)}\n`;
+    await dropFile(page, 'yield-drop.csv', t2);
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('yield-drop'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expectRelClose(await num(page, 'upperYield'), lab.truth.upperYield!, 0.015, 'ReH');
+    expectRelClose(await num(page, 'lowerYield'), lab.truth.lowerYield!, 0.015, 'ReL');
+    expect(Math.abs(await num(page, 'yieldPointElongation') - lab.truth.yieldPointElongationPct!)).toBeLessThan(0.4);
+    expect(await page.locator('[data-q="tensileStrength"]').innerText()).not.toContain('≥');
     expect(errors).toEqual([]);
   });
 });

@@ -97,11 +97,29 @@ describe('parseRecordText through the fast scanner gives what an independent par
   it('refuses what the located reader refuses, with the same located message (0x10, empty cell, Infinity, a short row)', () => {
     const base = 'strain,stress [MPa]\n' + Array.from({ length: 12 }, (_, i) => `${i * 0.001},${i * 10}`).join('\n') + '\n';
     for (const [bad, re] of [['0x10', /^b\.csv:14:2: .*got "0x10", expected a number$/], ['', /^b\.csv:14:2: .*got "", expected a number$/], ['Infinity', /^b\.csv:14:2: .*expected a finite number$/], [null, /^b\.csv:14:2: .*the row has 1 fields; expected 2/]] as const) {
-      const text = base + (bad === null ? '0.02\n' : `0.02,${bad}\n`);
+      // A row of numbers follows the bad one, so it is an error (a bad row only at the end is a footer: below).
+      const text = base + (bad === null ? '0.02\n' : `0.02,${bad}\n`) + '0.03,130\n';
       let msg = '';
       try { parseRecordText(text, { file: 'b.csv', strainUnit: 'fraction' }); } catch (e) { msg = (e as Error).message; }
       expect(msg, String(bad)).toMatch(re);
     }
+  });
+
+  it('rows after the data that are not numbers are a footer (a warning naming the lines), unless numbers follow them', () => {
+    const base = 'strain,stress [MPa]\n' + Array.from({ length: 12 }, (_, i) => `${i * 0.001},${i * 10}`).join('\n') + '\n';
+    const r = parseRecordText(base + '\nMaximum,110\nEnd of test,\n', { file: 'f.csv', strainUnit: 'fraction' });
+    expect(r.rows).toBe(12);
+    expect(r.warnings.join('\n')).toMatch(/lines 15–16 after the data are not rows of numbers \(first: got "Maximum", expected a number\): read as a footer and left out; the record ends at line 13/);
+    // Extensometer taken off: the strain cells are empty to the end while the stress goes on.
+    const off = parseRecordText(base + ',130\n,140\n,135\n', { file: 'x.csv', strainUnit: 'fraction' });
+    expect(off.rows).toBe(12);
+    expect(off.warnings.join('\n')).toMatch(/strain column "strain" is empty from line 14 to the end \(3 rows; extensometer taken off\?\)/);
+    // Numbers after a non-number row: the first bad row is the error, located.
+    expect(() => parseRecordText(base + 'Maximum,110\n0.5,120\n', { file: 'g.csv', strainUnit: 'fraction' })).toThrow(/^g\.csv:14:1: strain: got "Maximum", expected a number$/);
+    // A bad row among the first ten is an error, never a footer.
+    expect(() => parseRecordText('strain,stress [MPa]\n0,0\n0.001,abc\n', { file: 'h.csv', strainUnit: 'fraction' })).toThrow(/h\.csv:3:2: .*got "abc"/);
+    // Rows of empty cells (spreadsheet blank rows) are skipped like empty lines.
+    expect(parseRecordText(base.replace('\n0.005', '\n,\n0.005'), { file: 'e.csv', strainUnit: 'fraction' }).rows).toBe(12);
   });
 
   it('readRecordFile streams across chunk boundaries (3 MB file) and gives the same arrays as parseRecordText', async () => {

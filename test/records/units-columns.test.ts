@@ -21,6 +21,16 @@ describe('describeColumn(name) reads the unit from the usual brackets and separa
     ['Force_kN', 'force', 'kN'],
     ['Extension in', 'extension', 'in'],
     ['Extension: mm', 'extension', 'mm'],
+    // quantity/unit, the ISO 80000-1 heading notation
+    ['Strain/µε', 'strain', 'µε'],
+    ['Stress / MPa', 'stress', 'MPa'],
+    ['Force/kN', 'force', 'kN'],
+    ['Stress/kPa', 'stress', 'kPa'],
+    ['Load/kgf', 'load', 'kgf'],
+    ['Stress/Strain', 'stress/strain', ''],
+    ['Strain mm/mm', 'strain', 'mm/mm'],
+    ['Stress N/mm2', 'stress', 'N/mm2'],
+    ['Strain in/in', 'strain', 'in/in'],
   ];
   for (const [name, base, unit] of cases) {
     it(`describeColumn(${JSON.stringify(name)}) → base ${base}, unit ${unit}`, () => {
@@ -78,5 +88,26 @@ describe('parseRecordText on US-style and microstrain exports (INVENTED rows)', 
     const r = parseRecordText(text, { file: 'fe.csv', area: 20, gaugeLength: 50 });
     expectRelClose(r.strain[10]!, 1e-3, 1e-9, 'strain');
     expectRelClose(r.stress[10]!, 200, 1e-9, 'stress');
+  });
+  it('a German export (decimal comma, semicolons, a preamble, Dehnung/Spannung) reads as strain and stress', () => {
+    const text = 'Prüfbericht;Probe 7\nDatum;02.12.2026\n\nZeit [s];Dehnung [%];Spannung [MPa]\n' + rows((e, s) => `${(e * 1e3).toFixed(1).replace('.', ',')};${(e * 100).toFixed(4).replace('.', ',')};${s.toFixed(1).replace('.', ',')}`);
+    const r = parseRecordText(text, { file: 'de.csv' });
+    expect(r.columns.strain!.name).toBe('Dehnung [%]');
+    expect(r.columns.stress!.name).toBe('Spannung [MPa]');
+    expectRelClose(r.strain[10]!, 1e-3, 1e-9, 'strain');
+    expectRelClose(r.stress[10]!, 200, 1e-12, 'stress');
+  });
+  it('French and Spanish force–extension headings (Effort/Allongement, Fuerza/Alargamiento) read as force and extension; "true" words mark true values', () => {
+    for (const head of ['Effort [kN],Allongement [mm]', 'Fuerza (kN),Alargamiento (mm)']) {
+      const text = head + '\n' + rows((e, s) => `${(s * 20) / 1000},${e * 50}`);
+      const r = parseRecordText(text, { file: 'fr.csv', area: 20, gaugeLength: 50 });
+      expectRelClose(r.stress[10]!, 200, 1e-9, `stress from ${head}`);
+      expectRelClose(r.strain[10]!, 1e-3, 1e-9, `strain from ${head}`);
+    }
+    expect(describeColumn('wahre Spannung [MPa]', 0).isTrue).toBe(true);
+    expect(describeColumn('contrainte vraie (MPa)', 0).isTrue).toBe(true);
+    expect(describeColumn('Spannung [MPa]', 0).isTrue).toBe(false);
+    // Words that are object keys in JavaScript are names, not roles.
+    expect(describeColumn('constructor', 0).isTrue).toBe(false);
   });
 });

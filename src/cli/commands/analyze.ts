@@ -7,6 +7,7 @@ import { PlanError } from '../../plan/problems.js';
 import { unitsOf } from '../../plan/units.js';
 import { CAUTIONS } from '../../report/cautions.js';
 import { formatLawParam } from '../../report/numbers.js';
+import { sig4 } from '../../core/numeric/sig4.js';
 import type { RecordOptions, TensileRecord } from '../../records/builder.js';
 import type { Role } from '../../records/columns.js';
 import { defineCommand } from '../command.js';
@@ -91,7 +92,7 @@ const fmt = (x: number | null | undefined, d = 1) => (x === null || x === undefi
 /** A fitted parameter as an engineer writes it (report/numbers.ts): `0 (at bound)` for a collapsed one. */
 function paramText(law: LawName, name: string, v: number): string {
   const info = LAW_PARAMETERS[law].find((p) => p.name === name);
-  return info ? formatLawParam(info, v) : String(+v.toPrecision(4));
+  return info ? formatLawParam(info, v) : sig4(v);
 }
 
 function tableText(rec: TensileRecord, a: TensileAnalysis): string {

@@ -7,6 +7,7 @@ import { readRecordFile } from '../../records/node.js';
 import { CAUTIONS } from '../../report/cautions.js';
 import { defineCommand } from '../command.js';
 import { readText, writeFileAtomic } from '../io.js';
+import { sig4 } from '../../core/numeric/sig4.js';
 
 const CLI = '(command line)';
 
@@ -80,7 +81,7 @@ export const kinematic = defineCommand({
     } else {
       const lines = [
         `kinematic fit of ${m.name} to ${recordFile} (${fit.points} points, ${kind === 'engineering' ? 'engineering values converted to true' : 'true values'})`,
-        ...backstresses.map((b, i) => `  backstress ${i + 1}: C = ${+b.C.toPrecision(5)} ${u.stress}${b.standardError.C === null ? '' : ` ± ${+b.standardError.C.toPrecision(2)}`}, γ = ${+b.gamma.toPrecision(5)}${b.standardError.gamma === null ? '' : ` ± ${+b.standardError.gamma.toPrecision(2)}`}, saturation C/γ = ${+b.saturation.toPrecision(4)} ${u.stress}`),
+        ...backstresses.map((b, i) => `  backstress ${i + 1}: C = ${+b.C.toPrecision(5)} ${u.stress}${b.standardError.C === null ? '' : ` ± ${+b.standardError.C.toPrecision(2)}`}, γ = ${+b.gamma.toPrecision(5)}${b.standardError.gamma === null ? '' : ` ± ${+b.standardError.gamma.toPrecision(2)}`}, saturation C/γ = ${sig4(b.saturation)} ${u.stress}`),
         `  RMSE ${+S(fit.rmse).toPrecision(3)} ${u.stress}, R² ${fit.r2.toFixed(5)}, ${fit.iterations} iterations${fit.converged ? '' : ', NOT converged'}`,
         ...fit.warnings.map((w) => `  warning: ${w.message}`),
         ...(values['material-out'] !== undefined ? [`wrote ${values['material-out']}`] : []),

@@ -1,6 +1,7 @@
 import { InputError } from '../errors.js';
 import type { FlowLaw } from '../flow/types.js';
 import type { KinematicSpec } from './types.js';
+import { sig4 } from '../numeric/sig4.js';
 
 /** Largest accumulated plastic strain at which the isotropic part is checked to stay positive. */
 export const SPLIT_CHECK_STRAIN = 5;
@@ -54,7 +55,7 @@ export function isotropicPart(law: FlowLaw, kin: KinematicSpec | undefined, path
     const r = size(p);
     if (!(r > 0)) {
       throw new InputError(path, kin, `backstresses whose sum stays below the flow curve (ΣC/γ·(1 − e^(−γp)) < σ(p) for all p ≤ ${SPLIT_CHECK_STRAIN})`,
-        `the yield surface size σ(p) − ΣX(p) is ${r.toPrecision(4)} MPa at p = ${p.toPrecision(3)}`);
+        `the yield surface size σ(p) − ΣX(p) is ${sig4(r)} MPa at p = ${p.toPrecision(3)}`);
     }
   }
   return { size, slope };

@@ -4,8 +4,8 @@ import { PLANE_STRAIN_FACTOR } from '../route/strain.js';
 import type { ColdWorkWindow, Ledger, Material, Size, Step, Targets } from '../route/types.js';
 import { coldWorkWindow } from '../route/window.js';
 import { inGrainGrowthRange, validateGrainGrowthStrain } from '../route/grainGrowth.js';
-import { stateProperties } from '../route/state.js';
-import { temperScale, temperStrainBand } from '../temper/scale.js';
+import { temperStrainBand } from '../temper/scale.js';
+import { materialTemperScale } from '../temper/materialScale.js';
 import { PROCESS_DEFAULTS } from './defaults.js';
 
 /**
@@ -186,8 +186,7 @@ export function designRoute(spec: DesignSpec): DesignResult {
   const grainRange = validateGrainGrowthStrain(spec.material.grainGrowthStrain);
   let band: { from: number; to: number | null } | null | undefined;
   if (spec.window.temper !== undefined) {
-    if (spec.material.temperSystem === undefined) throw new InputError('window.temper', spec.window.temper, 'a temper target only with material.temperSystem set');
-    const scale = temperScale(spec.material.temperSystem, spec.material.temperSystem === 'aluminiumH1x' ? stateProperties(spec.material, 0).tensileStrength : 0);
+    const scale = materialTemperScale(spec.material, draw ? 'wire' : 'strip', { designation: spec.window.temper, path: 'window.temper' })!;
     band = temperStrainBand(scale, spec.material.law, spec.window.temper, 'window.temper', spec.material.hardness);
   }
   const win = coldWorkWindow(spec.material.law, 0, spec.window, basis, spec.material.hardness, band);

@@ -7,6 +7,7 @@ import { maxDrawReduction } from './maxDrawReduction.js';
 import { rollingLoad } from './rollingLoad.js';
 import { sheetFormability } from './sheetFormability.js';
 import { temperatureRise } from './temperatureRise.js';
+import { sig4 } from '../numeric/sig4.js';
 
 /** Strain ratio β = ε2/ε1 of the sheet (strip) step kinds that stretch the sheet; others have none. */
 export const SHEET_STRAIN_RATIO: Readonly<Record<string, number>> = {
@@ -45,7 +46,7 @@ export interface PassLoads extends PassLoadFields {
   warnings: { code: 'drawability' | 'capacity' | 'heating' | 'bite' | 'sheetLimit'; message: string }[];
 }
 
-const fmtN = (n: number) => `${+n.toPrecision(4)} N`;
+const fmtN = (n: number) => `${sig4(n)} N`;
 
 /** The optional numeric fields {@link passLoads} may set, in report order. */
 export const PASS_LOAD_FIELDS = [
@@ -121,7 +122,7 @@ export function passLoads(p: PassInput): PassLoads {
         out.warnings.push({ code: 'capacity', message: `roll force ${force(r.force)} exceeds the stated mill capacity ${force(s.forceCapacity)}` });
       }
       if (h0 - h1 > r.maxBiteDraft) {
-        out.warnings.push({ code: 'bite', message: `draft ${+(h0 - h1).toPrecision(4)} mm is above μ²·R = ${+r.maxBiteDraft.toPrecision(4)} mm: the rolls may not bite the strip unaided` });
+        out.warnings.push({ code: 'bite', message: `draft ${sig4(h0 - h1)} mm is above μ²·R = ${sig4(r.maxBiteDraft)} mm: the rolls may not bite the strip unaided` });
       }
     }
   }

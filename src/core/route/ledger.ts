@@ -5,8 +5,8 @@ import { stateProperties } from './state.js';
 import { STEP_KINDS, stockOf, type ReductionBasis } from './steps.js';
 import { checkSpringbackTarget, checkTargets, checkTemperTarget, validateTargets } from './targets.js';
 import { inGrainGrowthRange, validateGrainGrowthStrain } from './grainGrowth.js';
-import { temperBasisValue, temperOf, temperScale, temperStrainBand } from '../temper/scale.js';
-import { InputError } from '../errors.js';
+import { temperBasisValue, temperOf, temperStrainBand } from '../temper/scale.js';
+import { materialTemperScale } from '../temper/materialScale.js';
 import { backstressAfter, isotropicPart } from '../path/hardening.js';
 import type { Ledger, LedgerRow, RouteInput, Size, StockKind, Warning } from './types.js';
 import { coldWorkWindow } from './window.js';
@@ -55,11 +55,7 @@ export function evaluateRoute(input: RouteInput, opts: LedgerOptions = {}): Ledg
   const fitted = material.fittedStrainRange;
   const grainRange = validateGrainGrowthStrain(material.grainGrowthStrain);
   // Temper scale (core/temper): thickness-reduction systems name strip tempers and refuse wire and bar.
-  const scale = material.temperSystem === undefined ? undefined : temperScale(material.temperSystem, material.temperSystem === 'aluminiumH1x' ? stateProperties(material, 0, eu).tensileStrength : 0);
-  if (scale && scale.basis === 'thicknessReductionPct' && stock === 'wire') {
-    throw new InputError('material.temperSystem', material.temperSystem, 'aluminiumH1x or steelStrip for wire or bar (copperRolled names tempers of rolled strip by thickness reduction)');
-  }
-  if (targets.temper !== undefined && !scale) throw new InputError('targets.temper', targets.temper, 'a temper target only with material.temperSystem set');
+  const scale = materialTemperScale(material, stock, targets.temper === undefined ? undefined : { designation: targets.temper, path: 'targets.temper' }, eu);
 
   let size: Size = { ...start };
   let eps = 0;

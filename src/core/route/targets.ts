@@ -1,5 +1,5 @@
 import { checkRange, InputError } from '../errors.js';
-import { TEMPER_BOUNDARY_TOL, temperOf } from '../temper/scale.js';
+import { TEMPER_BOUNDARY_TOL, temperBandIndex, temperOf } from '../temper/scale.js';
 import type { TemperScale } from '../temper/types.js';
 import type { LedgerRow, StateProperties, StateTargetName, TargetResult, Targets } from './types.js';
 
@@ -87,8 +87,7 @@ export function checkSpringbackTarget(rows: readonly LedgerRow[], limit: number,
  * @example checkTemperTarget(temperScale('copperRolled', 0), 25, 'H02').margin // 4.30 (to the H02 boundary 20.70 %)
  */
 export function checkTemperTarget(scale: TemperScale, x: number, wanted: string, path = 'targets.temper'): TargetResult {
-  const k = scale.bands.findIndex((b) => b.designation === wanted);
-  if (k < 0) throw new InputError(path, wanted, `a temper of ${scale.system}: ${scale.bands.map((b) => b.designation).join(', ')}`);
+  const k = temperBandIndex(scale, wanted, path);
   const lo = scale.bands[k]!.from;
   const hi = scale.bands[k + 1]?.from;
   const got = temperOf(scale, x)?.designation ?? null;

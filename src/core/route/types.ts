@@ -139,25 +139,13 @@ export interface PassLoadFields {
 }
 
 /** The state after one step: one row of the ledger (MPa, mm, strains true and dimensionless). */
-export interface LedgerRow extends KinematicFields, BendFields, PassLoadFields {
+export interface LedgerRow extends StateProperties, KinematicFields, BendFields, PassLoadFields {
   index: number;
   kind: StepKind;
   size: Size;
   strainIncrement: number;
   accumulatedStrain: number;
   coldWorkPct: number;
-  flowStress: number;
-  reloadYield: number;
-  tensileStrength: number;
-  yieldRatio: number;
-  remainingUniformStrain: number;
-  remainingUniformElongationPct: number;
-  elasticModulus: number;
-  elasticRecoveryStrain: number;
-  /** Elastic energy recovered on unloading per unit volume, σ²/(2E), MJ/m³ (numerically MPa). */
-  recoveredElasticEnergy: number;
-  /** Vickers hardness estimate by Tabor's relation, HV (kgf/mm²); see core/hardness/taborHardness.ts. */
-  hardnessHV: number;
   meanFlowStress: number;
   plasticWork: number;
   /** The state's temper in the material's `temperSystem`; null outside the system; absent without a system. */
@@ -179,8 +167,9 @@ export interface StateProperties {
   remainingUniformElongationPct: number;
   elasticModulus: number;
   elasticRecoveryStrain: number;
+  /** Elastic energy recovered on unloading per unit volume, σ²/(2E), MJ/m³ (numerically MPa). */
   recoveredElasticEnergy: number;
-  /** Vickers hardness estimate by Tabor's relation, HV (kgf/mm²). */
+  /** Vickers hardness estimate by Tabor's relation, HV (kgf/mm²); see core/hardness/taborHardness.ts. */
   hardnessHV: number;
 }
 

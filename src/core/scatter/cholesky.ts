@@ -1,4 +1,5 @@
 import { InputError } from '../errors.js';
+import { sig4 } from '../numeric/sig4.js';
 
 /**
  * Cholesky factor L (lower triangular, R = L·Lᵀ) of a symmetric positive-definite matrix, by the
@@ -29,7 +30,7 @@ export function cholesky(a: readonly (readonly number[])[], path = 'correlation'
       if (i === j) {
         if (!(s > 1e-12)) {
           throw new InputError(path, a.map((r) => [...r]), 'a positive-definite matrix (every leading minor > 0)',
-            `not positive definite at pivot ${i + 1} (remaining variance ${s.toPrecision(4)}); the correlations contradict each other`);
+            `not positive definite at pivot ${i + 1} (remaining variance ${sig4(s)}); the correlations contradict each other`);
         }
         L[i]![i] = Math.sqrt(s);
       } else {

@@ -134,6 +134,18 @@ export function temperOf(scale: TemperScale, x: number): TemperState | null {
 }
 
 /**
+ * Where a designation stands in a scale: the index of its band (tempers in increasing order).
+ * The one lookup of a temper by name (the temper target, its strain band).
+ * @throws InputError (`path`) naming the designation and the scale's tempers when it is not one of them.
+ * @example temperBandIndex(temperScale('copperRolled', 0), 'H04') // 3
+ */
+export function temperBandIndex(scale: TemperScale, designation: string, path = 'targets.temper'): number {
+  const k = scale.bands.findIndex((b) => b.designation === designation);
+  if (k < 0) throw new InputError(path, designation, `a temper of ${scale.system}: ${scale.bands.map((b) => b.designation).join(', ')}`);
+  return k;
+}
+
+/**
  * The accumulated-strain interval [from, to] whose states have temper `designation`: each boundary
  * of the scale mapped to a strain by the basis' inverse (thickness reduction r: ε̄ = −(2/√3)·ln(1 − r/100);
  * tensile strength T: ε̄ = εu + ln(T/σ(εu)) for T ≤ σ(εu), else σ⁻¹(T), as in {@link coldWorkWindow};
@@ -147,8 +159,7 @@ export function temperStrainBand(
   scale: TemperScale, law: FlowLaw, designation: string, path = 'targets.temper',
   hardness: Pick<HardnessModel, 'taborFactor' | 'representativeStrain'> = HARDNESS_DEFAULTS,
 ): { from: number; to: number | null } | null {
-  const k = scale.bands.findIndex((b) => b.designation === designation);
-  if (k < 0) throw new InputError(path, designation, `a temper of ${scale.system}: ${scale.bands.map((b) => b.designation).join(', ')}`);
+  const k = temperBandIndex(scale, designation, path);
   const lo = strainOfBasis(scale, law, scale.bands[k]!.from, hardness);
   if (lo === null) return null;
   const next = scale.bands[k + 1];

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { coldWorkWindow, makeLaw, strainForHardness, taborHardness, type LawSpec } from '../../../src/core/index.js';
 import { expectRelClose } from '../../helpers.js';
 
-// One law of each kind (parameters from the flow-law tests' samples; illustrative, not a material).
+// One law of each kind (illustrative parameters chosen for this test, near the flow-law tests' samples; not a material).
 const LAWS: LawSpec[] = [
   { law: 'hollomon', K: 530, n: 0.44 },
   { law: 'ludwik', sigma0: 200, K: 400, n: 0.5 },

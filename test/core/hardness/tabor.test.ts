@@ -81,6 +81,28 @@ describe('published hardness against the ledger with a handbook law (default c a
     expect(r.accumulatedStrain + 0.08).toBeGreaterThan(0.44);
     expect(r.hardnessHV).toBeGreaterThan(115);
   });
+  it('why H04 reads high: the law\'s strength there is too high, not Tabor\'s factor nor the temper boundary', () => {
+    // Published tensile strength of C11000 strip, ASTM B152 (values FROM MEMORY, not looked up):
+    // H02 half hard 255–315 MPa (37–46 ksi), H04 hard 295–360 MPa (43–52 ksi).
+    const h02 = rolled(2);
+    const h04 = rolled(4);
+    // At H02 the state is inside the law's uniform strain and its Rm lies in the published range ...
+    expect(h02.accumulatedStrain).toBeLessThan(copperLaw.uniformStrain());
+    expect(h02.tensileStrength).toBeGreaterThanOrEqual(255);
+    expect(h02.tensileStrength).toBeLessThanOrEqual(315);
+    // ... at H04 it is past it (the ledger warns 'necking'), and the extrapolated Hollomon Rm overshoots
+    // the published top by more than 10 %: the law keeps rising where copper's hardening levels off.
+    expect(h04.warnings.map((w) => w.code)).toContain('necking');
+    expect(h04.tensileStrength / 360).toBeGreaterThan(1.1);
+    // Scale the flow stress down by that overshoot and the same Tabor relation (default c, εr) gives a
+    // hardness inside the typical hard-copper range (90–115 HV): the factor is not the cause.
+    // (Strictly inside, without the 10 % widening of `within`: 121.4 × 360/402.7 ≈ 108.5 HV, while the
+    // unscaled 121.4 HV is above 115.)
+    const scaled = h04.hardnessHV * (360 / h04.tensileStrength);
+    expect(scaled).toBeGreaterThanOrEqual(90);
+    expect(scaled).toBeLessThanOrEqual(115);
+    expect(h04.hardnessHV).toBeGreaterThan(115);
+  });
   it('annealed low-carbon steel strip: 100–130 HV', () => {
     const m: Material = { name: 'steel', elasticModulus: 207000, poissonRatio: 0.3, law: steelLaw };
     within(stateProperties(m, 0).hardnessHV, 100, 130, 'annealed low-carbon steel');

@@ -58,9 +58,18 @@ describe('copperRolled: every boundary from B&S numbers, through the ledger', ()
     expect(l.rows[1]!.temper!.designation).toBe('H01');
     expect(l.rows[2]!.temper).toBeNull();
   });
-  it('refuses wire: copper tempers are counted in thickness reduction of strip', () => {
+  it('refuses wire: copper tempers are counted in thickness reduction of strip; the message says what is supported and what to use instead', () => {
     expect(() => evaluateRoute({ material: copper, start: { diameter: 2 }, steps: [{ kind: 'draw', areaReductionPct: 20 }] })).toThrow(InputError);
     expect(() => evaluateRoute({ material: copper, start: { diameter: 2 }, steps: [] })).toThrow(/material\.temperSystem/);
+    let msg = '';
+    try { evaluateRoute({ material: copper, start: { diameter: 2 }, steps: [] }); } catch (e) { msg = (e as Error).message; }
+    for (const want of [/got "copperRolled"/, /ASTM B601/, /thickness reduction/, /ASTM B1, B2, B3/, /minTensile and minRemainingElongationPct/, /allowed copperRolled for strip.*aluminiumH1x or steelStrip for wire or bar/]) expect(msg).toMatch(want);
+  });
+  it('the route designer refuses a copperRolled temper window for drawing with the same message, before searching', () => {
+    const spec: DesignSpec = { material: copper, process: 'draw', startSize: 5, finalSize: 2, maxPassReductionPct: 30, maxStrainBeforeAnneal: 1.3, window: { temper: 'H02' }, dieHalfAngleDeg: 6, friction: 0.05, maxRoutes: 5 };
+    expect(() => designRoute(spec)).toThrow(/material\.temperSystem: copperRolled names rolled-strip tempers/);
+    // Rolling strip with the same window is designed.
+    expect(designRoute({ ...spec, process: 'roll', startSize: 3, finalSize: 2, rollRadius: 100, width: 30 } as DesignSpec).window.empty).toBe(false);
   });
 });
 
@@ -71,11 +80,25 @@ describe('temper target: the window is that temper\'s range, exact at both ends'
       const w = l.coldWorkWindow;
       expect(w.empty).toBe(false);
       expect(w.limitedBy).toEqual({ from: 'temper', to: 'temper' });
+      // The temper's boundaries, computed here from the B&S gauge ratio 92^(1/39) (ASTM B258) and the
+      // B601 numbers of COPPER_ROLLED_TEMPERS, not read from the scale: H01 = 1 number, H02 = 2, H04 = 4, H08 = 8.
+      const k = COPPER_ROLLED_TEMPERS.findIndex(([x]) => x === d);
+      const boundary = (N: number) => (1 - 92 ** (-N / 39)) * 100;
+      const lo = boundary(COPPER_ROLLED_TEMPERS[k]![2]);
+      const hi = boundary(COPPER_ROLLED_TEMPERS[k + 1]![2]);
+      // The window runs from one boundary to the next (the upper end 2e-9 relative inside, by design).
+      expectRelClose(w.reductionPctFrom!, lo, 1e-9, `${d} window from`);
+      expectRelClose(w.reductionPctTo!, hi, 1e-8, `${d} window to`);
       for (const pct of [w.reductionPctFrom!, w.reductionPctTo!]) {
         const at = evaluateRoute({ material: copper, start: { thickness: 1 }, steps: [{ kind: 'roll', reductionPct: pct }], targets: { temper: d } });
         expect(at.rows[0]!.temper!.designation, `${d} at ${pct} %`).toBe(d);
         expect(at.allTargetsMet).toBe(true);
-        expect(at.targets[0]!.margin).toBeGreaterThanOrEqual(0);
+        // margin = distance to the nearer boundary of the wanted temper, in % thickness reduction:
+        // at either end of the window that is 0 to within the window's 2e-9 inset and round-off.
+        const t = at.targets[0]!;
+        expectRelClose(t.limit, lo, 1e-12, `${d} limit`);
+        expect(Math.abs(t.margin - Math.max(0, Math.min(pct - lo, hi - pct))), `${d} margin ${t.margin} at ${pct} %`).toBeLessThan(1e-6);
+        expect(Math.abs(t.margin)).toBeLessThan(1e-6);
       }
       // Just outside either end the target fails, with a negative margin.
       for (const pct of [w.reductionPctFrom! - 0.01, w.reductionPctTo! + 0.01]) {

@@ -103,7 +103,8 @@ describe('fitting every law to a 42CrMoS4 flow curve (46NT99)', () => {
       if (f.law === 'swiftVoce') expect(f.converged || f.warnings.some((w) => w.code === 'notConverged')).toBe(true);
       else expect(f.converged, f.law).toBe(true);
       for (const v of [f.rmse, f.r2, f.aic, f.bic]) expect(Number.isFinite(v), f.law).toBe(true);
-      for (const se of Object.values(f.standardErrors)) if (se !== null) expect(se).toBeGreaterThanOrEqual(0);
+      // A standard error is a square root, so ≥ 0 alone could only catch NaN: require it finite as the title says.
+      for (const se of Object.values(f.standardErrors)) if (se !== null) expect(Number.isFinite(se) && se >= 0, `${f.law} SE ${se}`).toBe(true);
     }
   });
   it('a saturating law fits this low-hardening steel better than Hollomon (lower AIC)', () => {
