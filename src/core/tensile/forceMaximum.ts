@@ -113,6 +113,12 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
     idx.forEach((k, r) => { coef[k] = M[r * W + m]! / M[r * W + r]!; });
     let ssr = tt;
     for (let k = 0; k < K; k++) ssr -= coef[k]! * T[k]!;
+    // A top must fall away from its vertex over the whole span: slope ≥ 0 on the left, ≤ 0 on the right
+    // (the slope of −a·u² + b·u³ is monotone in u on each side from the vertex, so the span's ends decide).
+    // A cubic that turns back up inside the span would put a second top there: such a vertex is refused.
+    const uL = (xa - xv) / h, uR = (xb - xv) / h;
+    if (uL < 0 && -2 * coef[1]! * uL + 3 * coef[2]! * uL * uL < 0) return null;
+    if (uR > 0 && -2 * coef[3]! * uR + 3 * coef[4]! * uR * uR > 0) return null;
     return { Rm: coef[0]!, aL: coef[1]!, aR: coef[3]!, ssr };
   };
   // Vertex by the least residual sum: grid over the span, then golden section around the best grid point.
