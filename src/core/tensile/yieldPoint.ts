@@ -251,6 +251,7 @@ export function yieldPoint(
   let ib = end;
   while (ib < maxIndex && strain[ib]! - strain[end]! < Y.hardeningStrain) ib++;
   const h = plateauHinge(strain, stress, pa, ib + 1, noise);
+  if ((globalThis as any).DBG) console.log('HINGE', { d, q, pa, end, ib, xend: strain[end], xpa: strain[pa], h });
   let rel = level, endStrain = strain[end]!;
   if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
   return { upperYield: reh, upperYieldRange: [Math.min(lo, reh), Math.max(hi, reh)], lowerYield: Math.min(rel, reh), peakIndex: q, plateauFrom: pa, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
@@ -359,6 +360,8 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
     if (!coef) return null;
     let ssr = yy;
     for (let r = 0; r < K; r++) ssr -= coef[r]! * T[r]!;
+    // Work hardening rises from the plateau: a branch that leaves it downwards is a serration, not hardening.
+    if (!(coef[1]! > 0)) return null;
     return { m: coef[0]!, p: 0, b1: coef[1]! / span, ssr };
   };
   const lo0 = bl.x[3]!, hi0 = bl.x[nb - 4]!;
