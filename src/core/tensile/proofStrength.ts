@@ -31,20 +31,28 @@ export function proofStrength(
 /**
  * The offset-line crossing read from a local least-squares parabola s(e) instead of two noisy samples:
  * the samples around the crossing whose plastic strain e − e0 − s/E lies in [offset/2, 2·offset] (at
- * least 7, contiguous), so the estimate's noise is about σ̂·√(3/m) instead of σ̂. Null when the fit
+ * least 7; the run ends at three samples in a row outside), so the estimate's noise is about σ̂·√(3/m) instead
+ * of σ̂, and the first sign change of a noisy record (early by the noise) only picks the neighbourhood. Null when the fit
  * does not cross the line inside its own span (the raw crossing is used then).
  */
 function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number): { stress: number; index: number } | null {
   const pl = (i: number) => strain[i]! - toe - stress[i]! / E;
   const lo = 0.5 * offset, hi = 2 * offset;
+  // The window ends where three samples in a row leave [lo, hi]: one noisy sample (in load or extension, the
+  // strain of a dense record is not even monotone under extensometer noise) does not cut it short.
+  const out = (i: number, dir: number) => {
+    for (let k = 0; k < 3; k++) { const j = i + k * dir; if (j < 0 || j >= toIndex) return true; const v = pl(j); if (v >= lo && v <= hi) return false; }
+    return true;
+  };
   let a = c, b = c;
-  while (a - 1 >= 0 && pl(a - 1) >= lo && strain[a - 1]! < strain[a]!) a--;
-  while (b + 1 < toIndex && pl(b + 1) <= hi && strain[b + 1]! > strain[b]!) b++;
+  while (a - 1 >= 0 && !out(a - 1, -1)) a--;
+  while (b + 1 < toIndex && !out(b + 1, 1)) b++;
   if (b - a + 1 < 7) return null;
   const f = polynomialFit(strain, stress, a, b + 1, 2);
   if (!f) return null;
   const G = (e: number) => f.at(e) - E * (e - toe - offset);
-  let x0 = strain[a]!, x1 = strain[b]!;
+  let x0 = Infinity, x1 = -Infinity;
+  for (let i = a; i <= b; i++) { x0 = Math.min(x0, strain[i]!); x1 = Math.max(x1, strain[i]!); }
   if (!(G(x0) > 0 && G(x1) <= 0)) return null;
   for (let k = 0; k < 80 && x1 - x0 > 1e-14; k++) { const m = 0.5 * (x0 + x1); if (G(m) > 0) x0 = m; else x1 = m; }
   const e = 0.5 * (x0 + x1);
