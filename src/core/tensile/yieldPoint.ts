@@ -188,10 +188,18 @@ export function yieldPoint(
     // the break.
     const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - Math.max(3, lastUpper - q)), lastUpper + 1);
     if (cp !== null) {
-      reh = testReh = rise.a + rise.b * cp; seReh = testSe = noise * Math.sqrt(4 / Math.max(2, q - k0));
-      // The highest sample lies within one sample spacing of the break on the line.
-      const dx = (strain[lastUpper]! - strain[q]!) / Math.max(1, lastUpper - q);
-      lo = reh - 3 * seReh - rise.b * dx; hi = reh + 3 * seReh;
+      // ReH as the record shows it: the highest modelled sample — the last on the rise line before the break
+      // or the first on the fall after it.
+      const top = rise.a + rise.b * cp.xb;
+      let before = -Infinity, after = -Infinity;
+      for (let i = Math.max(k0, q - Math.max(3, lastUpper - q)); i <= lastUpper + 1 && i < maxIndex; i++) {
+        const xi = strain[i]!;
+        if (xi <= cp.xb) before = Math.max(before, rise.a + rise.b * xi);
+        else if (after === -Infinity) after = top + cp.slope * (xi - cp.xb);
+      }
+      reh = testReh = Math.max(before, after, -Infinity) > -Infinity ? Math.max(before, after) : top;
+      seReh = testSe = noise * Math.sqrt(4 / Math.max(2, q - k0));
+      lo = reh - 3 * seReh; hi = reh + 3 * seReh;
     }
   } else {
     // Coarse: at most a couple of samples on the fall. The highest noise-free sample may be one of them (caught
@@ -298,23 +306,31 @@ function isStepDown(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: nu
  * up to x_b are compared with the rise line r(x) = a + b·x and the later ones with r(x_b) + m·(x − x_b), m by
  * least squares; the x_b with the least residual sum wins (a change-point fit, common practice). O(k²) in the
  * k samples of the window (a few hundred at most on a fall of 2·10⁻⁴ strain).
- * @returns the break strain, or null for a window of fewer than 3 samples or a break that is not a fall (m ≥ 0).
+ * The break is refined between samples (the peak need not be a sample).
+ * @returns the break strain and the fall's slope, or null for a window of fewer than 3 samples or no falling break.
  */
-function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number): number | null {
+function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number): { xb: number; slope: number } | null {
   if (to - from < 3) return null;
-  const stride = Math.max(1, Math.floor((to - from) / 400));
-  let best = Infinity, at: number | null = null;
-  for (let c = from; c < to - 1; c += stride) {
-    const xb = x[c]!, yb = a + b * xb;
+  const ssrAt = (xb: number) => {
+    const yb = a + b * xb;
     let ssr = 0, szz = 0, szy = 0, syy = 0;
     for (let i = from; i < to; i++) {
-      if (i <= c) { const r = y[i]! - (a + b * x[i]!); ssr += r * r; }
+      if (x[i]! <= xb) { const r = y[i]! - (a + b * x[i]!); ssr += r * r; }
       else { const z = x[i]! - xb, v = y[i]! - yb; szz += z * z; szy += z * v; syy += v * v; }
     }
-    if (szz > 0) { const m = szy / szz; if (!(m < 0)) continue; ssr += syy - m * szy; }
-    if (ssr < best) { best = ssr; at = xb; }
-  }
-  return at;
+    if (!(szz > 0)) return { ssr: Infinity, m: 0 };
+    const m = szy / szz;
+    return m < 0 ? { ssr: ssr + syy - m * szy, m } : { ssr: Infinity, m };
+  };
+  const stride = Math.max(1, Math.floor((to - from) / 400));
+  let best = Infinity, at = -1;
+  for (let c = from; c < to - 1; c += stride) { const r = ssrAt(x[c]!); if (r.ssr < best) { best = r.ssr; at = c; } }
+  if (at < 0) return null;
+  // The peak lies between samples: refine the break over the two sample gaps around the best sample.
+  const lo = x[Math.max(from, at - stride)]!, hi = x[Math.min(to - 1, at + stride)]!;
+  let xb = x[at]!, m = ssrAt(xb).m;
+  for (let k = 0; k <= 40; k++) { const t = lo + ((hi - lo) * k) / 40; const r = ssrAt(t); if (r.ssr < best) { best = r.ssr; xb = t; m = r.m; } }
+  return { xb, slope: m };
 }
 
 /**
