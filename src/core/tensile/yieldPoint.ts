@@ -258,7 +258,8 @@ export function yieldPoint(
   if (end + 1 - pa < 10) pa = d + Math.max(r0Rel, s0);
   let ib = end;
   while (ib < maxIndex && strain[ib]! - strain[end]! < Y.hardeningStrain) ib++;
-  const h = plateauHinge(strain, stress, pa, ib + 1, noise);
+  // The hinge is sought in the second half of the plateau found by the smooth (its first half is plateau).
+  const h = plateauHinge(strain, stress, pa, ib + 1, noise, 0.5 * (strain[pa]! + strain[end]!));
   if ((globalThis as any).DBG) console.log('HINGE', { d, q, pa, end, ib, xend: strain[end], xpa: strain[pa], h });
   let rel = level, endStrain = strain[end]!;
   if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
@@ -347,10 +348,10 @@ function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b:
  * error, 2·σ̂²·√(2/m)), and the troughs lie A/2 below the line (method of moments).
  * ReL = the lowest point of the trough line over the plateau (ISO 6892-1 §3.10.2.2: the lowest stress during
  * yielding). Work hardening starts where the hardening branch leaves the trough line: x_k − (A/2)/slope, the
- * slope p + b₁ of the branch at x_k.
+ * slope p + b₁ of the branch at x_k (at most half-way back to the plateau's start). x_k is sought from `earliest` on.
  * @returns null when the samples cannot hold the model (fewer than 12 blocks, or no plateau point before x_k).
  */
-function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from: number, to: number, noise: number): { lowerYield: number; hardeningStart: number; level: number; slope: number; spread: number } | null {
+function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from: number, to: number, noise: number, earliest = -Infinity): { lowerYield: number; hardeningStart: number; level: number; slope: number; spread: number } | null {
   const n = to - from;
   if (n < 12) return null;
   const xs = new Float64Array(n), ys = new Float64Array(n);
@@ -380,7 +381,7 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
     if (!(coef[1]! > 0)) return null;
     return { m: coef[0]!, p: 0, b1: coef[1]! / span, ssr };
   };
-  const lo0 = bl.x[3]!, hi0 = bl.x[nb - 4]!;
+  const lo0 = Math.max(bl.x[3]!, Math.min(earliest, bl.x[nb - 5]!)), hi0 = bl.x[nb - 4]!;
   const G = 60;
   let best: { xk: number; f: NonNullable<ReturnType<typeof solve>> } | null = null;
   for (let g = 0; g <= G; g++) {
@@ -410,7 +411,7 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
   const atStart = f.m + f.p * (strain[from]! - xk);
   const lowerYield = Math.min(atStart, f.m) - A / 2;
   const slope = f.p + f.b1;
-  const back = slope > 0 ? A / 2 / slope : 0;
+  const back = slope > 0 ? Math.min(A / 2 / slope, 0.5 * (xk - strain[from]!)) : 0;
   return { lowerYield, hardeningStart: Math.max(strain[from]!, xk - back), level: f.m, slope, spread: A };
 }
 
