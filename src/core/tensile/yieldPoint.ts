@@ -344,8 +344,9 @@ function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b:
  *
  * A serrated plateau spends equal time at every level between its troughs and crests, so its samples about the
  * plateau line are uniform over a width A plus the noise: variance A²/12 + σ̂². Hence A = √(12·excess) (the
- * excess of the variance over σ̂² of the raw samples up to x_k, used only when it is clear of a variance's sampling
- * error, 2·σ̂²·√(2/m)), and the troughs lie A/2 below the line (method of moments).
+ * excess of the variance of the raw samples up to x_k over the noise — the larger of σ̂² and the mean square of the
+ * raw samples about the hardening branch — used only when it is clear of a variance's sampling error, 2·σ̂²·√(2/m)),
+ * and the troughs lie A/2 below the line (method of moments).
  * ReL = the lowest point of the trough line over the plateau (ISO 6892-1 §3.10.2.2: the lowest stress during
  * yielding). Work hardening starts where the hardening branch leaves the trough line: x_k − (A/2)/slope, the
  * slope p + b₁ of the branch at x_k (at most half-way back to the plateau's start). x_k is sought from `earliest` on.
@@ -379,7 +380,7 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
     for (let r = 0; r < K; r++) ssr -= coef[r]! * T[r]!;
     // Work hardening rises from the plateau: a branch that leaves it downwards is a serration, not hardening.
     if (!(coef[1]! > 0)) return null;
-    return { m: coef[0]!, p: 0, b1: coef[1]! / span, ssr };
+    return { m: coef[0]!, p: 0, b1: coef[1]! / span, c1: coef[1]!, c2: coef[2]!, ssr };
   };
   const lo0 = Math.max(bl.x[3]!, Math.min(earliest, bl.x[nb - 5]!)), hi0 = bl.x[nb - 4]!;
   const G = 60;
@@ -406,8 +407,19 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
   for (let i = from; i < to && strain[i]! <= xk; i++) { const r = stress[i]! - (f.m + f.p * (strain[i]! - xk)); v += r * r; m++; }
   if (m < 3) return null;
   v /= m - 1;
-  const excess = v - noise * noise;
-  const A = excess > 2 * noise * noise * Math.sqrt(2 / m) ? Math.sqrt(12 * excess) : 0;
+  // The noise as the hardening branch shows it (the same record, no serrations there): the mean square of the
+  // raw samples about the fitted branch. It also holds what σ̂ from second differences misses (noise correlated
+  // from sample to sample, a quantised load).
+  let vh = 0, mh = 0;
+  for (let i = from; i < to; i++) {
+    const z = (strain[i]! - xk) / span;
+    if (z <= 0) continue;
+    const r = stress[i]! - (f.m + f.c1 * z + f.c2 * z * z);
+    vh += r * r; mh++;
+  }
+  const n2 = mh >= 10 ? Math.max(noise * noise, vh / (mh - 3)) : noise * noise;
+  const excess = v - n2;
+  const A = excess > 2 * n2 * Math.sqrt(2 / m) ? Math.sqrt(12 * excess) : 0;
   const atStart = f.m + f.p * (strain[from]! - xk);
   const lowerYield = Math.min(atStart, f.m) - A / 2;
   const slope = f.p + f.b1;
