@@ -148,20 +148,27 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // parameter fewer halves the scatter of Rm on noisy coarse records, measured on the property test).
   const full = vertex(true);
   let bestX = full.x, bestF = full.f;
-  const rmFit = vertex(false).f;
+  const rmVertex = vertex(false), rmFit = rmVertex.f;
   let best = from + j;
   if (!bestF) return { stress: ma[j]!, strain: strain[best]!, index: best, points: i1 - i0, span: [xa, xb], flat: false, strainInterval95: [xa, xb] };
   // Profile interval of the vertex: scan xv over the span (G2 steps), keep the outermost xv still within the
   // χ²₁(0.95) band of the minimum; an end of the span still inside the band is reported as the span's end.
-  const s2 = Math.max(noise * noise, bestF.ssr / Math.max(1, nb - 6));
-  const limit = bestF.ssr + 3.84 * s2;
+  // Both top models are scanned and the interval is their union with both vertices: where the necking side's
+  // shape is in doubt, so is the vertex (model uncertainty joins the noise).
   let ciLo = bestX, ciHi = bestX;
   const G2 = 200;
-  for (let g = 0; g <= G2; g++) {
-    const xv = xa + ((xb - xa) * g) / G2;
-    const f = solve(xv);
-    if (f && f.ssr <= limit) { if (xv < ciLo) ciLo = xv; if (xv > ciHi) ciHi = xv; }
+  const simple = rmFit ? rmVertex : null;
+  for (const [rightCubic, ref] of [[true, bestF], [false, simple?.f ?? null]] as const) {
+    if (!ref) continue;
+    const s2 = Math.max(noise * noise, ref.ssr / Math.max(1, nb - (rightCubic ? 6 : 5)));
+    const limit = ref.ssr + 3.84 * s2;
+    for (let g = 0; g <= G2; g++) {
+      const xv = xa + ((xb - xa) * g) / G2;
+      const f = solve(xv, rightCubic);
+      if (f && f.ssr <= limit) { if (xv < ciLo) ciLo = xv; if (xv > ciHi) ciHi = xv; }
+    }
   }
+  if (simple) { ciLo = Math.min(ciLo, simple.x); ciHi = Math.max(ciHi, simple.x); }
   // Widen by one grid step on each side that the scan left unresolved.
   ciLo = Math.max(xa, ciLo - (xb - xa) / G2); ciHi = Math.min(xb, ciHi + (xb - xa) / G2);
   // Flat top: neither side falls by more than the fit's noise over the span.
