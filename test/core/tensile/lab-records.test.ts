@@ -103,12 +103,13 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // NOT met on every seed (measured, held as ceilings so a regression fails; see docs/records-and-fits.md):
     // Rp0.2 off by 1.2–1.6 % on 2 coarse, noisy records with 4 and 7 elastic samples (seeds 57, 147; the local
     // parabola through ~12 samples has a standard error near 0.6 %), and Ag off by more than 0.4 point with no
-    // 95 % interval holding the truth on 6 (seeds 4, 113, 122, 138, 168, 187: flat tops, coarse and noisy — the
-    // expected few percent of a 95 % interval's non-coverage, but not yet zero).
+    // 95 % interval holding the truth on 3 (seeds 113, 122, 187: coarse, noisy tops — the expected few percent of
+    // a 95 % interval's non-coverage, but not zero).
     expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(2);
-    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(6);
-    // Ag is uncertain (warned, interval wider than ±0.4 point) on 104 of 240 records: coarse records whose top is
-    // flat within the noise over several points of strain. Held so that it cannot quietly become the rule.
+    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(3);
+    // Ag is uncertain (warned, interval wider than ±0.4 point, holding the truth) on 107 of 240 records: coarse
+    // records whose top is flat within the noise over several points of strain. Held so that it cannot quietly
+    // become the rule.
     expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(110);
     // The acceptances stay the exception, and each kind is exercised (so the conditions above can fail).
     expect(r.accepted['E refused']?.length ?? 0).toBeLessThanOrEqual(6);
