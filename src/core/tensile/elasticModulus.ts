@@ -10,7 +10,8 @@ import type { ElasticWindow } from './types.js';
  * How E is found, stated once.
  * - `band`: the final least-squares band, fractions of the record's own Rp0.2 estimate. ISO 6892-1:2016
  *   Annex G practice is a band between about 10 % and 40 % (some editions and ASTM E111 practice go to
- *   50 %) of the proof strength — from memory, not checked against the printed standard; we use 10–40 %.
+ *   50 %) of the proof strength — from memory, not checked against the printed standard; we start at 10–40 % and
+ *   widen the top to 70 % where the band stays straight (curvature test), for more points and leverage.
  * - `starts`/`widths`: the coarse bands (fractions of the highest stress) searched for a first line.
  * - `minPoints`: fewest points in a band for a line with a residual check (4: two degrees of freedom).
  * - `plausible`: Young's moduli of engineering metals lie between about 40 GPa (magnesium alloys about
@@ -109,9 +110,11 @@ function trimCurvature(x: ArrayLike<number>, y: ArrayLike<number>, from: number,
  *    lower confidence bound E − 2·SE(E), SE from max(σ̂, residual scatter)/√Sxx, wins. A plastic or toe
  *    band has a lower slope; a band of few noisy points has a large SE: neither wins.
  * 3. Rp0.2 with that line (offset construction, {@link proofStrength}).
- * 4. The final band: 10 %–40 % of that Rp0.2 (ISO 6892-1 Annex G practice, from memory), its lower end
- *    raised to twice the top of the toe (points more than 3σ̂ above the line), its top raised to 50, 60, 70 % until it
- *    holds 8 points (else 4); Rp0.2 recomputed and the band refitted once if Rp0.2 moved by over 2 %.
+ * 4. The final band: from 10 % of that Rp0.2 (ISO 6892-1 Annex G practice, from memory), its lower end
+ *    raised to twice the top of the toe (points more than 3σ̂ above the line), up to 40, 50, 60 or 70 %; each
+ *    band trimmed while a parabola beats its line by more than 3σ̂ (convex: toe, lower end cut; concave: plastic
+ *    flow, top cut; {@link trimCurvature}); of the bands with 8 points (else 4) the one with the smallest
+ *    standard error of the slope wins; Rp0.2 recomputed and the band refitted once if it moved by over 2 %.
  *    When no band holds 4 points, the first line is kept (`elasticBandFallback`).
  * 5. Toe compensation (ISO 6892-1 and ASTM E8 practice): e0 = −intercept/E is subtracted from all strains.
  * The 95 % interval is E ± t(0.975, n − 2)·SE (Student t). Issues are returned, not thrown: E outside

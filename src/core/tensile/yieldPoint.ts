@@ -24,7 +24,7 @@ export interface YieldPointResult {
 
 /** Thresholds of the yield-drop test, stated once. */
 export const YIELD_DROP = {
-  /** The fall must exceed this fraction of ReH (common practice: drops under ~2 % are hard to tell from a rounded knee in a noisy record)… */
+  /** The fall must exceed this fraction of ReH (a floor only: rounded knees are told apart by the knee and step tests, so the floor sits below the smallest drops of interest, common practice)… */
   minRelDrop: 0.01,
   /** …and this many standard errors of (ReH estimate − plateau level). */
   sigmas: 4,
@@ -50,18 +50,23 @@ export const YIELD_DROP = {
  * stands clear of the record's noise and is followed by a plateau.
  *
  * - The elastic rise ends at the first of two samples in a row lying more than 4σ̂ (and 0.5 %) below the
- *   elastic line σ = E(e − e0); the peak q is the last sample before it still within 2σ̂ of the line.
- * - ReH is the value at q of a least-squares line through the rising samples above half the peak stress
- *   (noise of the estimate about σ̂·2/√k for k samples, not the noise of one sample).
- * - The plateau level is the median stress over 0.3 % strain after the departure. A yield drop is
- *   reported only when ReH − level > max(2 % of ReH, 4 standard errors of that difference).
- *   A continuous curve has level ≥ the curve at the knee and never passes.
- * - ReL (ISO 6892-1 §3.10.2.2: the lowest stress during plastic yielding, the initial transient
- *   ignored) is the lowest value of a moving average (window chosen from σ̂ so its noise is about 0.15 %
- *   of the level, at most a sixth of the plateau) from where the average first reaches the plateau level
- *   to the end of the plateau. The plateau ends at the last averaged point within max(3 noise sd of the
- *   average, 1 %) of the level before Rm; Ae ends where the level meets a line fitted to the first 0.5 %
- *   strain of the hardening branch (the ASTM E8 construction for YPE, from memory).
+ *   elastic line σ = E(e − e0), refitted through the rise; the peak q is the highest sample before it.
+ * - ReH is read on a least-squares line through the rise (precise to σ̂·2/√k), unless the rise bends before q
+ *   (its last 4, 8 or 16 samples over 3 standard errors below the line through the rest: a rounded knee), when
+ *   the highest moving average of the samples is used. On a finely sampled fall (three or more samples on its
+ *   upper half) ReH is the highest modelled sample of "rise line, then a straight fall" with the break located
+ *   between samples (change point); on a coarse one the line's value or a sample caught part-way down.
+ *   `upperYieldRange` bounds it (±3 σ̂; on a coarse record down to where a falling peak sample would be).
+ * - The plateau level is the median stress over 0.3 % strain after the departure. A yield drop is reported
+ *   only when ReH − level > max(1 % of ReH, 4 standard errors) — the peak read on the line only when the
+ *   peak sample agrees with it within σ̂ — and a step down beats a hinge at the end of the rise by 3² σ̂²
+ *   ({@link isStepDown}): a continuous curve bends, a drop steps.
+ * - ReL (ISO 6892-1 §3.10.2.2: the lowest stress during plastic yielding, the initial transient ignored): the
+ *   transient is the fall and the first trough, ending where a moving average of the plateau first rises back
+ *   above its median (ISO 6892-1 practice, from memory: the first minimum is not counted unless it is the only
+ *   one). The plateau after it and the start of hardening are fitted together ({@link plateauHinge}); ReL is the
+ *   plateau's trough level, Ae ends where the hardening branch leaves it (the ASTM E8 YPE construction takes the
+ *   hardening branch's meeting with the plateau, from memory).
  * Units: strain fraction (toe-compensated by `toe`), stress MPa; σ̂ = `noise` in MPa. `maxIndex`: the
  * last index to look at (fracture); the plateau ends before the highest stress after the departure.
  * Cost: O(n). @returns null for continuous yielding.
