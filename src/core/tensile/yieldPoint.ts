@@ -265,7 +265,6 @@ export function yieldPoint(
   while (ib < maxIndex && strain[ib]! - strain[end]! < Y.hardeningStrain) ib++;
   // The hinge is sought in the second half of the plateau found by the smooth (its first half is plateau).
   const h = plateauHinge(strain, stress, pa, ib + 1, noise, 0.5 * (strain[pa]! + strain[end]!));
-  if ((globalThis as any).DBG) console.log('HINGE', { d, q, pa, end, ib, xend: strain[end], xpa: strain[pa], h });
   let rel = level, endStrain = strain[end]!;
   if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
   return { upperYield: reh, upperYieldRange: [Math.min(lo, reh), Math.max(hi, reh)], lowerYield: Math.min(rel, reh), peakIndex: q, plateauFrom: pa, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
@@ -427,7 +426,11 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
   const A = excess > 2 * n2 * Math.sqrt(2 / m) ? Math.sqrt(12 * excess) : 0;
   const atStart = f.m + f.p * (strain[from]! - xk);
   const lowerYield = Math.min(atStart, f.m) - A / 2;
-  const slope = f.p + f.b1;
+  // The branch's slope where it leaves the plateau: the larger of its tangent at x_k and its secant over the first
+  // 0.3 % strain (a branch fitted flat at x_k and curving up later would otherwise send the back-step far back).
+  const zs = Math.min(0.003, strain[to - 1]! - xk) / span;
+  const secant = zs > 0 ? (f.c1 * zs + f.c2 * zs * zs) / (zs * span) : 0;
+  const slope = Math.max(f.p + f.b1, secant);
   const back = slope > 0 ? Math.min(A / 2 / slope, 0.5 * (xk - strain[from]!)) : 0;
   return { lowerYield, hardeningStart: Math.max(strain[from]!, xk - back), level: f.m, slope, spread: A };
 }
