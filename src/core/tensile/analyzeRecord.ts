@@ -8,7 +8,7 @@ import { forceMaximum } from './forceMaximum.js';
 import { recordNoise } from './recordNoise.js';
 import { nValueFit, nValueFitLogs } from './nValue.js';
 import { lawData, type LawData } from '../fit/lawNormalEquations.js';
-import { proofStrength, totalExtensionStrength } from './proofStrength.js';
+import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { TensileAnalysis, TensileData, TensileWarning } from './types.js';
 import { yieldPoint } from './yieldPoint.js';
 
@@ -34,6 +34,12 @@ export interface AnalyzeOptions {
 
 /** Half-width of Ag's 95 % interval, points, above which Ag is reported as uncertain (the issue's 0.4-point target). */
 export const AG_SHARP_PCT = 0.4;
+
+/** Half-width of the ReH range, as a fraction of ReH, above which ReH is reported as uncertain (the issue's 1.5 % target). */
+export const UNCERTAIN_REH = 0.015;
+
+/** Half-width of a plateau proof strength's range, as a fraction of it, above which it is reported as uncertain (the issue's 1 % target). */
+export const UNCERTAIN_RP = 0.01;
 
 /** Defaults, stated once. */
 export const ANALYZE_DEFAULTS = {
@@ -104,9 +110,9 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const offPct = opts.proofOffsetPct ?? ANALYZE_DEFAULTS.proofOffsetPct;
   if (!(offPct > 0 && offPct <= 5)) throw new InputError('proofOffsetPct', offPct, 'a number in (0, 5] %');
   const rp = (pct: number) => proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise);
-  const proof = rp(offPct);
+  let proof = rp(offPct);
   if (!proof) warnings.push({ code: 'noProofPoint', message: `the curve never meets the ${offPct} % offset line; no proof strength` });
-  const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null }));
+  const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null, index: rp(p)?.index ?? -1 }));
   const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);
 
   // Fracture: first sudden fall after the highest stress, else the end of the record.
@@ -114,6 +120,21 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const detected = fall >= 0;
   const fi = detected ? fall : N - 1;
   const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
+  if (yp && (yp.upperYieldRange[1] - yp.upperYieldRange[0]) / 2 > UNCERTAIN_REH * yp.upperYield) warnings.push({ code: 'uncertainReH', message: `ReH ${yp.upperYield.toFixed(1)} MPa is uncertain: the peak falls between samples or within the noise, so the record supports ReH anywhere from ${yp.upperYieldRange[0].toFixed(1)} to ${yp.upperYieldRange[1].toFixed(1)} MPa` });
+  // A proof point on a yield plateau is read from the plateau (serrations handled: plateauProofStrength).
+  let proofRange: [number, number] | null = null;
+  if (yp) {
+    const onPlateau = (index: number) => (index >= yp.plateauFrom && index < yp.endIndex ? plateauProofStrength(strain, stress, Math.round(index), yp.plateauFrom, yp.endIndex, noise) : null);
+    if (proof) {
+      const pp = onPlateau(proof.index);
+      if (pp) {
+        proof = { ...proof, stress: pp.stress };
+        proofRange = pp.range;
+        if ((pp.range[1] - pp.range[0]) / 2 > UNCERTAIN_RP * pp.stress) warnings.push({ code: 'uncertainRp', message: `Rp${offPct} ${pp.stress.toFixed(1)} MPa lies on a serrated yield plateau: the offset line meets the serrations anywhere from ${pp.range[0].toFixed(1)} to ${pp.range[1].toFixed(1)} MPa, depending on where they are when it crosses` });
+      }
+    }
+    for (const p of proofStrengths) if (p.stress !== null) p.stress = onPlateau(p.index)?.stress ?? p.stress;
+  }
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
   const topFrom = Math.max(0, Math.min(yp ? yp.endIndex : el.window.toIndex, fi - 2));
@@ -203,10 +224,12 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     elasticWindow: el.window,
     toeStrain: toe,
     proofStrength: proof?.stress ?? null,
+    proofStrengthRange: proofRange,
     proofOffsetPct: offPct,
-    proofStrengths,
+    proofStrengths: proofStrengths.map(({ offsetPct, stress: s }) => ({ offsetPct, stress: s })),
     totalExtensionStrength: rt,
     upperYield: yp?.upperYield ?? null,
+    upperYieldRange: yp?.upperYieldRange ?? null,
     lowerYield: yp?.lowerYield ?? null,
     yieldPointElongationPct: yp?.elongationPct ?? null,
     tensileStrength: Rm,

@@ -1,5 +1,7 @@
 import { InputError } from '../errors.js';
+import { linearFit } from '../fit/linearFit.js';
 import { studentTQuantile } from '../fit/studentT.js';
+import { polynomialFit } from './localFit.js';
 import { proofStrength } from './proofStrength.js';
 import { recordNoise } from './recordNoise.js';
 import type { ElasticWindow } from './types.js';
@@ -8,7 +10,8 @@ import type { ElasticWindow } from './types.js';
  * How E is found, stated once.
  * - `band`: the final least-squares band, fractions of the record's own Rp0.2 estimate. ISO 6892-1:2016
  *   Annex G practice is a band between about 10 % and 40 % (some editions and ASTM E111 practice go to
- *   50 %) of the proof strength — from memory, not checked against the printed standard; we use 10–40 %.
+ *   50 %) of the proof strength — from memory, not checked against the printed standard; we start at 10–40 % and
+ *   widen the top to 70 % where the band stays straight (curvature test), for more points and leverage.
  * - `starts`/`widths`: the coarse bands (fractions of the highest stress) searched for a first line.
  * - `minPoints`: fewest points in a band for a line with a residual check (4: two degrees of freedom).
  * - `plausible`: Young's moduli of engineering metals lie between about 40 GPa (magnesium alloys about
@@ -32,6 +35,8 @@ export const ELASTIC_WINDOW = {
   toeResidual: 3,
   /** The band starts at this multiple of the toe's top stress: a toe bends into the line gradually, its last points lie within the noise of the line but still pull the slope down. */
   toeMargin: 2,
+  /** A band whose parabola beats its line by more than this many noise sd (√ of the drop of the residual sum over σ̂²) is bent: trimmed at the bent end. */
+  curvatureSigmas: 3,
 } as const;
 
 export interface ElasticResult {
@@ -44,20 +49,55 @@ export interface ElasticResult {
   issues: { code: 'implausibleModulus' | 'fewElasticPoints' | 'uncertainModulus' | 'elasticBandFallback'; message: string }[];
 }
 
-interface Line { slope: number; intercept: number; n: number; sxx: number; ssr: number; r2: number }
+interface Line { slope: number; intercept: number; n: number; se: number; ssr: number; r2: number }
 
-function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, stride = 1): Line | null {
-  const n = Math.ceil((to - from) / stride);
-  if (n < 2) return null;
-  let mx = 0, my = 0;
-  for (let i = from; i < to; i += stride) { mx += x[i]!; my += y[i]!; }
-  mx /= n; my /= n;
-  let sxx = 0, sxy = 0, syy = 0;
-  for (let i = from; i < to; i += stride) { const dx = x[i]! - mx, dy = y[i]! - my; sxx += dx * dx; sxy += dx * dy; syy += dy * dy; }
-  if (!(sxx > 0)) return null;
-  const slope = sxy / sxx;
-  const ssr = Math.max(0, syy - slope * sxy);
-  return { slope, intercept: my - slope * mx, n, sxx, ssr, r2: syy > 0 ? 1 - ssr / syy : 1 };
+/**
+ * Least-squares line over [from, to) by the shared {@link linearFit}; a band of many samples is thinned to
+ * every `stride`-th sample first (copied into a small scratch array: the coarse band search stays O(n) on a
+ * 1,000,000-row record). `se` is the slope's standard error with the residual scale floored at the record's
+ * noise: max(σ̂, s)/√Sxx, so 4 points that happen to lie on a line do not claim a tiny interval.
+ */
+function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, noise: number, stride = 1): Line | null {
+  let xs: ArrayLike<number> = x, ys: ArrayLike<number> = y, a = from, b = to;
+  if (stride > 1) {
+    const m = Math.ceil((to - from) / stride);
+    const tx = new Float64Array(m), ty = new Float64Array(m);
+    for (let k = 0, i = from; k < m; k++, i += stride) { tx[k] = x[i]!; ty[k] = y[i]!; }
+    xs = tx; ys = ty; a = 0; b = m;
+  }
+  if (b - a < 2) return null;
+  let f;
+  try { f = linearFit(xs, ys, a, b); } catch { return null; }
+  const s = f.n > 2 ? Math.sqrt(f.ssr / (f.n - 2)) : 0;
+  // SE = s/√Sxx, so 1/√Sxx = SE/s; with s = 0 (an exact line) only the noise floor is left, and it needs Sxx.
+  let invRootSxx = s > 0 ? f.slopeStandardError / s : NaN;
+  if (!(invRootSxx >= 0)) {
+    let mx = 0, sxx = 0;
+    for (let i = a; i < b; i++) mx += xs[i]!;
+    mx /= b - a;
+    for (let i = a; i < b; i++) sxx += (xs[i]! - mx) ** 2;
+    invRootSxx = 1 / Math.sqrt(sxx);
+  }
+  return { slope: f.slope, intercept: f.intercept, n: f.n, ssr: f.ssr, r2: f.r2, se: Math.max(noise, s) * invRootSxx };
+}
+
+/**
+ * Trims a band until the line fits it: a parabola that lowers the residual sum by more than 3² noise
+ * variances (a 3-sigma curvature, F-test form with σ̂ known) shows a bent band; convex means the toe's
+ * slack still in its lower end (its lower end is raised), concave means plastic flow at its top (its top is
+ * lowered), by 15 % of the band's points each time, down to 8 points.
+ */
+function trimCurvature(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, noise: number): [number, number] {
+  for (let round = 0; round < 12 && to - from > ELASTIC_WINDOW.fewPoints; round++) {
+    const q = polynomialFit(x, y, from, to, 2);
+    const l = line(x, y, from, to, noise);
+    if (!q || !l) break;
+    const s2 = Math.max(noise * noise, q.ssr / Math.max(1, q.n - 3));
+    if (!(l.ssr - q.ssr > ELASTIC_WINDOW.curvatureSigmas ** 2 * s2)) break;
+    const cut = Math.max(1, Math.round(0.15 * (to - from)));
+    if (q.c[2]! > 0) from += cut; else to -= cut;
+  }
+  return [from, to];
 }
 
 /**
@@ -70,9 +110,11 @@ function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: numb
  *    lower confidence bound E − 2·SE(E), SE from max(σ̂, residual scatter)/√Sxx, wins. A plastic or toe
  *    band has a lower slope; a band of few noisy points has a large SE: neither wins.
  * 3. Rp0.2 with that line (offset construction, {@link proofStrength}).
- * 4. The final band: 10 %–40 % of that Rp0.2 (ISO 6892-1 Annex G practice, from memory), its lower end
- *    raised to twice the top of the toe (points more than 3σ̂ above the line), its top raised to 50, 60, 70 % until it
- *    holds 8 points (else 4); Rp0.2 recomputed and the band refitted once if Rp0.2 moved by over 2 %.
+ * 4. The final band: from 10 % of that Rp0.2 (ISO 6892-1 Annex G practice, from memory), its lower end
+ *    raised to twice the top of the toe (points more than 3σ̂ above the line), up to 40, 50, 60 or 70 %; each
+ *    band trimmed while a parabola beats its line by more than 3σ̂ (convex: toe, lower end cut; concave: plastic
+ *    flow, top cut; {@link trimCurvature}); of the bands with 8 points (else 4) the one with the smallest
+ *    standard error of the slope wins; Rp0.2 recomputed and the band refitted once if it moved by over 2 %.
  *    When no band holds 4 points, the first line is kept (`elasticBandFallback`).
  * 5. Toe compensation (ISO 6892-1 and ASTM E8 practice): e0 = −intercept/E is subtracted from all strains.
  * The 95 % interval is E ± t(0.975, n − 2)·SE (Student t). Issues are returned, not thrown: E outside
@@ -99,7 +141,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     while (lo < hi) { const mid = (lo + hi) >> 1; if (runMax[mid]! >= level) hi = mid; else lo = mid + 1; }
     return lo;
   };
-  const seOf = (f: Line) => Math.max(noise, Math.sqrt(f.ssr / Math.max(1, f.n - 2))) / Math.sqrt(f.sxx);
+  const seOf = (f: Line) => f.se;
   const W = ELASTIC_WINDOW;
   // 2. First line.
   let best: { score: number; f: Line; i0: number; i1: number } | null = null;
@@ -110,7 +152,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
       const i0 = firstAt(a * top), i1 = firstAt(b * top);
       if (i1 - i0 < W.minPoints) continue;
       // A first line only: bands of many samples are thinned to about 2000 (keeps the search O(n) overall).
-      const f = line(strain, stress, i0, i1, Math.max(1, Math.floor((i1 - i0) / 2000)));
+      const f = line(strain, stress, i0, i1, noise, Math.max(1, Math.floor((i1 - i0) / 2000)));
       if (!f || !(f.slope > 0)) continue;
       const score = f.slope - 2 * seOf(f);
       if (!best || score > best.score) best = { score, f, i0, i1 };
@@ -140,14 +182,16 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     }
     const lo = Math.max(W.band[0] * P, W.toeMargin * toeTop);
     let chosen: { f: Line; i0: number; i1: number; hi: number } | null = null;
-    // Widen the top until the band holds `fewPoints`; only if no top does, accept `minPoints`.
+    // Tops from 40 % to 70 % of Rp0.2, each band trimmed while it is measurably bent (toe below, plastic flow
+    // above); the straight band with the smallest standard error of the slope wins. Bands of `fewPoints` first;
+    // only if none holds that many, `minPoints`.
     for (const need of [W.fewPoints, W.minPoints]) {
       for (const frac of [W.band[1], ...W.widerTops]) {
         const hi = Math.max(frac * P, lo + 0.1 * P);
-        const j0 = firstAt(lo), j1 = firstAt(hi);
+        const [j0, j1] = trimCurvature(strain, stress, firstAt(lo), firstAt(hi), noise);
         if (j1 - j0 < need) continue;
-        const f = line(strain, stress, j0, j1);
-        if (f && f.slope > 0) { chosen = { f, i0: j0, i1: j1, hi }; break; }
+        const f = line(strain, stress, j0, j1, noise);
+        if (f && f.slope > 0 && (!chosen || f.se < chosen.f.se)) chosen = { f, i0: j0, i1: j1, hi: stress[j1 - 1]! };
       }
       if (chosen) break;
     }

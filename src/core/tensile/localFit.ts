@@ -1,8 +1,7 @@
 /**
  * Least-squares parabola y = c0 + c1·u + c2·u² in the centred, scaled variable u = (x − x̄)/h over
- * indices [from, to), by the normal equations of the three monomials (Draper & Smith, *Applied
- * Regression Analysis*, ch. 5; centring and scaling keep them well conditioned). Written here because
- * it is one 3×3 solve in one pass over typed arrays, with no allocation per point.
+ * indices [from, to): {@link polynomialFit} of degree 2 (Draper & Smith, *Applied Regression Analysis*,
+ * ch. 5), kept as its own entry because it is public (`quadraticFit`, `QuadraticFit.vertex`).
  * Units: those of x and y. Valid: at least 3 points with distinct x.
  * @returns null when the system is singular.
  * @example quadraticFit([0, 1, 2, 3], [0, 1, 4, 9], 0, 4)!.at(2) // 4
@@ -10,31 +9,8 @@
 export function quadraticFit(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number): QuadraticFit | null {
   const n = to - from;
   if (n < 3) return null;
-  let xm = 0;
-  for (let i = from; i < to; i++) xm += x[i]!;
-  xm /= n;
-  let h = 0;
-  for (let i = from; i < to; i++) h = Math.max(h, Math.abs(x[i]! - xm));
-  if (!(h > 0)) return null;
-  let s1 = 0, s2 = 0, s3 = 0, s4 = 0, t0 = 0, t1 = 0, t2 = 0;
-  for (let i = from; i < to; i++) {
-    const u = (x[i]! - xm) / h, u2 = u * u, v = y[i]!;
-    s1 += u; s2 += u2; s3 += u2 * u; s4 += u2 * u2;
-    t0 += v; t1 += v * u; t2 += v * u2;
-  }
-  // Solve [[n s1 s2][s1 s2 s3][s2 s3 s4]] c = t by Cramer's rule.
-  const det = n * (s2 * s4 - s3 * s3) - s1 * (s1 * s4 - s3 * s2) + s2 * (s1 * s3 - s2 * s2);
-  if (!(Math.abs(det) > 1e-12 * n * n * n)) return null;
-  const c0 = (t0 * (s2 * s4 - s3 * s3) - s1 * (t1 * s4 - s3 * t2) + s2 * (t1 * s3 - s2 * t2)) / det;
-  const c1 = (n * (t1 * s4 - t2 * s3) - t0 * (s1 * s4 - s3 * s2) + s2 * (s1 * t2 - t1 * s2)) / det;
-  const c2 = (n * (s2 * t2 - s3 * t1) - s1 * (s1 * t2 - s2 * t1) + t0 * (s1 * s3 - s2 * s2)) / det;
-  let ssr = 0;
-  for (let i = from; i < to; i++) {
-    const u = (x[i]! - xm) / h;
-    const r = y[i]! - (c0 + c1 * u + c2 * u * u);
-    ssr += r * r;
-  }
-  return new QuadraticFit(c0, c1, c2, xm, h, n, ssr);
+  const f = polynomialFit(x, y, from, to, 2, n === 3);
+  return f ? new QuadraticFit(f.c[0]!, f.c[1]!, f.c[2]!, f.xm, f.h, n, f.ssr) : null;
 }
 
 export class QuadraticFit {
@@ -72,12 +48,13 @@ export function movingAverage(y: ArrayLike<number>, from: number, to: number, w:
  * Least-squares polynomial of degree `deg` (1–3) in u = (x − x̄)/h over [from, to), by the normal
  * equations solved with partial pivoting (Draper & Smith, *Applied Regression Analysis*, ch. 5; centring
  * and scaling keep a cubic's 4×4 system well conditioned). Written here: one pass, no allocation per point.
- * @returns the coefficients c[0..deg] in u, x̄ and h, or null when singular or fewer than deg + 2 points.
+ * `exact`: allow deg + 1 points (an interpolating polynomial); otherwise at least deg + 2.
+ * @returns the coefficients c[0..deg] in u, x̄, h, the point count and the residual sum of squares, or null when singular or too few points.
  * @example polynomialFit([0, 1, 2, 3, 4], [0, 1, 8, 27, 64], 0, 5, 3)!.at(2) // 8
  */
-export function polynomialFit(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, deg: number): PolyFit | null {
+export function polynomialFit(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, deg: number, exact = false): PolyFit | null {
   const n = to - from, m = deg + 1;
-  if (n < deg + 2) return null;
+  if (n < deg + (exact ? 1 : 2)) return null;
   let xm = 0;
   for (let i = from; i < to; i++) xm += x[i]!;
   xm /= n;
@@ -104,11 +81,19 @@ export function polynomialFit(x: ArrayLike<number>, y: ArrayLike<number>, from: 
     }
   }
   const c = A.map((row, r) => row[m]! / row[r]!);
-  return new PolyFit(c, xm, h);
+  let ssr = 0;
+  for (let i = from; i < to; i++) {
+    const u = (x[i]! - xm) / h;
+    let v = 0;
+    for (let k = m - 1; k >= 0; k--) v = v * u + c[k]!;
+    ssr += (y[i]! - v) ** 2;
+  }
+  return new PolyFit(c, xm, h, n, ssr);
 }
 
 export class PolyFit {
-  constructor(readonly c: readonly number[], readonly xm: number, readonly h: number) {}
+  /** Coefficients in u = (x − xm)/h, the centre and scale, the number of points and the residual sum of squares. */
+  constructor(readonly c: readonly number[], readonly xm: number, readonly h: number, readonly n = 0, readonly ssr = 0) {}
   at(x: number): number {
     const u = (x - this.xm) / this.h;
     let v = 0;

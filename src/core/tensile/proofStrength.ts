@@ -1,4 +1,4 @@
-import { polynomialFit } from './localFit.js';
+import { movingAverage, polynomialFit } from './localFit.js';
 
 /**
  * Proof strength, plastic extension: the stress where the line parallel to the elastic line, offset by
@@ -21,7 +21,7 @@ export function proofStrength(
     if (prev > 0 && cur <= 0) {
       const t = prev / (prev - cur);
       const raw = { stress: stress[i - 1]! + t * (stress[i]! - stress[i - 1]!), index: i - 1 + t };
-      return noise > 0 ? smoothCrossing(strain, stress, E, toe, offset, i, toIndex, noise) ?? raw : raw;
+      return noise > 0 ? smoothCrossing(strain, stress, E, toe, offset, i, toIndex) ?? raw : raw;
     }
     prev = cur;
   }
@@ -31,20 +31,28 @@ export function proofStrength(
 /**
  * The offset-line crossing read from a local least-squares parabola s(e) instead of two noisy samples:
  * the samples around the crossing whose plastic strain e − e0 − s/E lies in [offset/2, 2·offset] (at
- * least 7, contiguous), so the estimate's noise is about σ̂·√(3/m) instead of σ̂. Null when the fit
+ * least 7; the run ends at three samples in a row outside), so the estimate's noise is about σ̂·√(3/m) instead
+ * of σ̂, and the first sign change of a noisy record (early by the noise) only picks the neighbourhood. Null when the fit
  * does not cross the line inside its own span (the raw crossing is used then).
  */
-function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number, noise: number): { stress: number; index: number } | null {
+function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number): { stress: number; index: number } | null {
   const pl = (i: number) => strain[i]! - toe - stress[i]! / E;
   const lo = 0.5 * offset, hi = 2 * offset;
+  // The window ends where three samples in a row leave [lo, hi]: one noisy sample (in load or extension, the
+  // strain of a dense record is not even monotone under extensometer noise) does not cut it short.
+  const out = (i: number, dir: number) => {
+    for (let k = 0; k < 3; k++) { const j = i + k * dir; if (j < 0 || j >= toIndex) return true; const v = pl(j); if (v >= lo && v <= hi) return false; }
+    return true;
+  };
   let a = c, b = c;
-  while (a - 1 >= 0 && pl(a - 1) >= lo && strain[a - 1]! < strain[a]!) a--;
-  while (b + 1 < toIndex && pl(b + 1) <= hi && strain[b + 1]! > strain[b]!) b++;
+  while (a - 1 >= 0 && !out(a - 1, -1)) a--;
+  while (b + 1 < toIndex && !out(b + 1, 1)) b++;
   if (b - a + 1 < 7) return null;
   const f = polynomialFit(strain, stress, a, b + 1, 2);
   if (!f) return null;
   const G = (e: number) => f.at(e) - E * (e - toe - offset);
-  let x0 = strain[a]!, x1 = strain[b]!;
+  let x0 = Infinity, x1 = -Infinity;
+  for (let i = a; i <= b; i++) { x0 = Math.min(x0, strain[i]!); x1 = Math.max(x1, strain[i]!); }
   if (!(G(x0) > 0 && G(x1) <= 0)) return null;
   for (let k = 0; k < 80 && x1 - x0 > 1e-14; k++) { const m = 0.5 * (x0 + x1); if (G(m) > 0) x0 = m; else x1 = m; }
   const e = 0.5 * (x0 + x1);
@@ -52,7 +60,6 @@ function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E:
   let i = a;
   while (i < b && strain[i + 1]! < e) i++;
   const t = strain[i + 1]! > strain[i]! ? (e - strain[i]!) / (strain[i + 1]! - strain[i]!) : 0;
-  void noise;
   return { stress: f.at(e), index: i + Math.min(1, Math.max(0, t)) };
 }
 
@@ -68,4 +75,36 @@ export function totalExtensionStrength(strain: ArrayLike<number>, stress: ArrayL
     if (a < total && b >= total) return stress[i - 1]! + ((total - a) / (b - a)) * (stress[i]! - stress[i - 1]!);
   }
   return null;
+}
+
+/**
+ * Proof strength where the offset line meets a yield plateau (discontinuous yielding, ISO 6892-1 §3.10.3.1
+ * construction). On a serrated plateau the offset line, far steeper than the serrations, first meets the curve
+ * where the curve is lowest near the crossing: at the local level when the serrations are slow (a smooth of the
+ * samples follows them), at the troughs when they are too fast for the smooth. So: a moving average over w
+ * samples (w from the noise, so its sd is about 0.15 % of the level, at most a quarter of the plateau) read at the
+ * crossing, minus half the spread of the serrations the average cannot follow — √(3·excess) with excess the mean
+ * square of the samples about the average beyond the noise's share σ̂²·(1 − 1/w), used when it is clear of a
+ * variance's sampling error 2·σ̂²·√(2/m) and of a quarter of σ̂² (the noise estimate's own error; a spread under
+ * 1.7σ̂ is not corrected) (a sawtooth or triangle caught at scattered phases is uniform over its
+ * width A: variance A²/12). Units: MPa. Valid: a plateau [from, to) of at least 10 samples holding `at`.
+ * @returns MPa, or null when the plateau is too short.
+ * @example plateauProofStrength(strain, stress, 120, 80, 400, 1.5)?.stress // the plateau's level at sample 120, MPa
+ */
+export function plateauProofStrength(strain: ArrayLike<number>, stress: ArrayLike<number>, at: number, from: number, to: number, noise: number): { stress: number; range: [number, number] } | null {
+  const m = to - from;
+  if (m < 10 || at < from || at >= to) return null;
+  void strain;
+  let mean = 0;
+  for (let i = from; i < to; i++) mean += stress[i]!;
+  mean /= m;
+  const w = Math.max(3, Math.min(Math.ceil((noise / (0.0015 * Math.abs(mean))) ** 2), Math.floor(m / 4))) | 1;
+  const ma = movingAverage(stress, from, to, w);
+  let v = 0;
+  for (let i = from; i < to; i++) v += (stress[i]! - ma[i - from]!) ** 2;
+  v /= m;
+  const excess = v - noise * noise * (1 - 1 / w);
+  const half = excess > Math.max(2 * Math.sqrt(2 / m), 0.25) * noise * noise ? Math.sqrt(3 * excess) : 0;
+  const c = ma[at - from]!, se = noise / Math.sqrt(w);
+  return { stress: c - half, range: [c - half - 3 * se, c + half + 3 * se] };
 }

@@ -18,12 +18,17 @@ export interface LabRecordSpec {
   /** Slack at the start, strain: the first 2·toe rise as E·x²/(4·toe), then the elastic line shifted by toe. */
   toe?: number;
   /**
-   * Discontinuous yielding: the elastic line rises to ReH = (1 + drop)·ReL, the engineering stress falls
-   * to ReL over `dropStrain` (default 2e-4) and stays on a serrated plateau ReL + serration (a sawtooth
-   * from ReL up by `serration`·ReL, period `serrationPeriod` strain, default 0.002) up to engineering
-   * strain eL, where work hardening starts on the law; ReL = σ(εL)/(1 + eL) so the curve is continuous.
+   * Discontinuous yielding: the elastic line rises to ReH = (1 + drop)·ReL; the engineering stress falls
+   * over `dropStrain` (default 2e-4) to the first trough ReL·(1 − `undershoot`) (default 0), comes back to
+   * ReL over another `dropStrain` (this fall and first trough are the initial transient of ISO 6892-1), and
+   * stays on a serrated plateau ReL + serration up to engineering strain eL, where work hardening starts on
+   * the law. The serration rises from ReL by up to `serration`·ReL with period `serrationPeriod` strain
+   * (default 0.002): `triangle` (rise and fall alike, default) or `sawtooth` (slow rise, sudden fall, as
+   * serrated yielding records show, common practice). ReL = σ(εL)/(1 + eL), so the plateau's troughs meet
+   * the hardening curve. A period shorter than the sample spacing is allowed (the samples then catch the
+   * serration at scattered phases).
    */
-  yieldDrop?: { drop: number; luedersStrain: number; serration?: number; serrationPeriod?: number; dropStrain?: number };
+  yieldDrop?: { drop: number; luedersStrain: number; serration?: number; serrationPeriod?: number; serrationShape?: 'triangle' | 'sawtooth'; dropStrain?: number; undershoot?: number };
   /** After maximum force: engineering strain added while the stress falls to `dropTo`·Rm, then fracture. Default { extraStrain: 0.4·eu, dropTo: 0.75 }. */
   necking?: { extraStrain: number; dropTo: number };
 }
@@ -31,7 +36,7 @@ export interface LabRecordSpec {
 /** The known truth of a lab record (noise-free), engineering values. */
 export interface LabRecordTruth {
   elasticModulus: number;
-  /** Rp0.2 of the noise-free curve (offset line construction, solved to 1e-9 strain), MPa. */
+  /** Rp0.2 of the noise-free curve: the first crossing of the 0.2 % offset line (ISO 6892-1 construction, solved to 1e-9 strain; on a serrated plateau the first crossing, near a trough), MPa. */
   proofStrength: number;
   /** Rm: the highest engineering stress after work hardening begins (continuous curve), MPa. */
   tensileStrength: number;
@@ -40,7 +45,14 @@ export interface LabRecordTruth {
   uniformTotalElongationPct: number;
   /** A: plastic elongation at the last sample before fracture, %. */
   totalElongationPct: number;
-  /** ReH: highest recorded noise-free sample at the yield drop (null also when no sample caught the peak, `yieldDropRecorded` false); ReL: lowest recorded noise-free sample on the plateau after the drop; Ae: strain from ReH to the start of hardening, %. Null for continuous yielding. */
+  /**
+   * ReH: highest recorded noise-free sample at the yield drop (null also when no sample caught the peak,
+   * `yieldDropRecorded` false). ReL (ISO 6892-1 §3.10.2.2: the lowest stress during plastic yielding, the
+   * initial transient ignored): the lowest recorded noise-free sample on the plateau after the transient,
+   * where the transient is the fall from ReH and the first trough after it (ISO 6892-1 practice, from memory:
+   * the first minimum is ignored unless it is the only one). Ae: strain from ReH to the start of work
+   * hardening (the last plateau trough meets the hardening curve at eL), %. Null for continuous yielding.
+   */
   upperYield: number | null;
   lowerYield: number | null;
   yieldPointElongationPct: number | null;
@@ -48,6 +60,13 @@ export interface LabRecordTruth {
   yieldDropRecorded: boolean | null;
   /** Samples in the elastic rise (below 0.9·Rp0.2 or ReH). */
   elasticPoints: number;
+  /**
+   * How clearly the samples show the drop: √Σ (sᵢ − ReL)² over the recorded noise-free samples of the elastic
+   * rise above ReL, divided by the noise sd — the signal-to-noise ratio of the best test that knows the shape
+   * (matched filter, common practice). Below about 5 no test that keeps continuous curves free of false yield
+   * points can find the drop reliably. Null without a drop or without noise.
+   */
+  yieldDropEvidence: number | null;
 }
 
 export interface LabRecord {
@@ -102,6 +121,7 @@ export function synthesizeLabRecord(spec: LabRecordSpec): LabRecord {
   const toe = spec.toe ?? 0;
   const yd = spec.yieldDrop;
   if (yd && !(yd.drop > 0 && yd.drop < 0.5 && yd.luedersStrain > 0 && yd.luedersStrain < 0.2)) throw new InputError('yieldDrop', yd, 'drop in (0, 0.5) and luedersStrain in (0, 0.2)');
+  if (yd && !((yd.serration ?? 0) >= 0 && (yd.serration ?? 0) < 0.2 && (yd.undershoot ?? 0) >= 0 && (yd.undershoot ?? 0) < 0.2 && (yd.serrationPeriod ?? 0.002) > 0)) throw new InputError('yieldDrop', yd, 'serration and undershoot in [0, 0.2), serrationPeriod > 0');
   // Hardening starts at true plastic strain εL (0 without a yield drop).
   const epL = yd ? yd.luedersStrain : 0;
   const sigL = law.stress(epL);
@@ -111,6 +131,8 @@ export function synthesizeLabRecord(spec: LabRecordSpec): LabRecord {
   const dropStrain = yd?.dropStrain ?? 2e-4;
   const serr = (yd?.serration ?? 0) * reL;
   const period = yd?.serrationPeriod ?? 0.002;
+  const saw = yd?.serrationShape === 'sawtooth';
+  const trough = reL * (1 - (yd?.undershoot ?? 0));
   const eH = reH !== null ? reH / E : sigL / E; // end of the elastic line
   const eUeng = Math.expm1(eu + law.stress(eu) / E);
   const Rm = law.stress(eu) / (1 + eUeng);
@@ -123,9 +145,10 @@ export function synthesizeLabRecord(spec: LabRecordSpec): LabRecord {
   const curve = (e: number): number => {
     if (e <= eH) return E * e;
     if (reH !== null && e < eL) {
-      if (e < eH + dropStrain) return reH - ((reH - reL) * (e - eH)) / dropStrain;
-      const ph = ((e - eH - dropStrain) % period) / period;
-      return reL + serr * (ph < 0.5 ? 2 * ph : 2 - 2 * ph);
+      if (e < eH + dropStrain) return reH - ((reH - trough) * (e - eH)) / dropStrain;
+      if (e < eH + 2 * dropStrain) return trough + ((reL - trough) * (e - eH - dropStrain)) / dropStrain;
+      const ph = ((e - eH - 2 * dropStrain) % period) / period;
+      return reL + serr * (saw ? ph : ph < 0.5 ? 2 * ph : 2 - 2 * ph);
     }
     if (e <= eUeng) {
       const ep = plasticAt(law, E, Math.log1p(e), guess);
@@ -160,22 +183,32 @@ export function synthesizeLabRecord(spec: LabRecordSpec): LabRecord {
     else s = curve(x - toe);
     const e = x - toe;
     if (reH !== null && e <= eH + dropStrain / 2 && e > 0.5 * eH) reHrec = Math.max(reHrec, s);
-    if (reH !== null && e >= eH + dropStrain && e < eL) reLrec = Math.min(reLrec, s);
+    if (reH !== null && e >= eH + 2 * dropStrain && e < eL) reLrec = Math.min(reLrec, s);
     if (i === iFrac) sFrac = s;
     strain[i] = x;
     stress[i] = s + (noise > 0 ? noise * gauss() : 0);
   }
   // Truth Rp0.2: first crossing of s(e) − E(e − 0.002) from above, by bisection on the noise-free curve.
+  // On a serrated plateau g is not monotone: step at a sixteenth of the serration period (each step then lies on
+  // one linear piece of the serration) so the bracket holds the first crossing, not any crossing.
   const g = (e: number) => curve(e) - E * (e - 0.002);
-  let a = eH, b = eH + 0.002;
-  while (g(b) > 0) { a = b; b += 0.002; }
+  const step = reH !== null && serr > 0 ? Math.min(0.002, period / 16, dropStrain / 4) : 0.002;
+  let a = eH, b = eH + step;
+  while (g(b) > 0) { a = b; b += step; }
   for (let k = 0; k < 100 && b - a > 1e-12; k++) { const m = 0.5 * (a + b); if (g(m) > 0) a = m; else b = m; }
-  const rp = curve(0.5 * (a + b));
+  // The stress where the offset line meets the curve: read on the line (equal to the curve at a continuous
+  // crossing; at a sudden serration fall the curve is vertical and the line gives the meeting point).
+  const rp = E * (0.5 * (a + b) - 0.002);
   const yieldTop = reH ?? rp;
   // A drop is in the record only when a sample caught the peak at least half-way up the drop (with coarse
   // sampling the last elastic sample can sit below the plateau: no machine could show that drop).
   const recorded = reH !== null && reHrec > reLrec + 0.5 * (reH - reL);
-  for (let i = 0; i < N; i++) if (strain[i]! - toe > 0 && (strain[i]! - toe) * E < 0.9 * yieldTop) elasticPoints++;
+  let ev = 0;
+  for (let i = 0; i < N; i++) {
+    const e = strain[i]! - toe;
+    if (e > 0 && e * E < 0.9 * yieldTop) elasticPoints++;
+    if (reH !== null && e > 0 && e <= eH + dropStrain) { const s = curve(e) - reL; if (s > 0) ev += s * s; }
+  }
   return {
     strain, stress,
     truth: {
@@ -190,6 +223,7 @@ export function synthesizeLabRecord(spec: LabRecordSpec): LabRecord {
       yieldPointElongationPct: recorded ? (eL - eH) * 100 : null,
       yieldDropRecorded: reH === null ? null : recorded,
       elasticPoints,
+      yieldDropEvidence: reH !== null && noise > 0 ? Math.sqrt(ev) / noise : null,
     },
   };
 }

@@ -8,7 +8,7 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'modulusGiven' | 'flatTop' | 'uncertainAg';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'modulusGiven' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
   message: string;
 }
 
@@ -106,12 +106,16 @@ export interface TensileAnalysis {
   toeStrain: number;
   /** Rp at the requested offset (default 0.2 %), MPa. */
   proofStrength: number | null;
+  /** On a yield plateau: the band of stresses where the offset line can meet the serrations, MPa (see plateauProofStrength); null elsewhere. */
+  proofStrengthRange: [number, number] | null;
   proofOffsetPct: number;
   /** Rp0.2, Rp0.5, Rp1, MPa (null where not reached). */
   proofStrengths: { offsetPct: number; stress: number | null }[];
   /** Rt0.5: stress at 0.5 % total extension, MPa. */
   totalExtensionStrength: number | null;
   upperYield: number | null;
+  /** Bounds on ReH the record supports (±3 noise sd; on a coarse record, line or part-way down the fall), MPa; null without a yield drop. */
+  upperYieldRange: [number, number] | null;
   lowerYield: number | null;
   yieldPointElongationPct: number | null;
   tensileStrength: number;

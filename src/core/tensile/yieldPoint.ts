@@ -1,11 +1,19 @@
+import { blockAverage } from '../fit/blockAverage.js';
 import { linearFit } from '../fit/linearFit.js';
-import { movingAverage } from './localFit.js';
+import { movingAverage, polynomialFit } from './localFit.js';
 
 export interface YieldPointResult {
   upperYield: number;
+  /**
+   * Bounds on ReH as the record can show it (the highest noise-free sample), MPa: ±3 noise sd of the reading, and
+   * on a coarse record from the line's value down to where the peak sample would be if it were already part-way
+   * down the fall. Wider than ±1.5 % of ReH: the record cannot place ReH that closely (`uncertainReH`).
+   */
+  upperYieldRange: [number, number];
   lowerYield: number;
-  /** Index of the upper yield point and of the end of the yield-point plateau. */
+  /** Index of the upper yield point, of the first plateau sample after the initial transient, and of the end of the yield-point plateau. */
   peakIndex: number;
+  plateauFrom: number;
   endIndex: number;
   /** Ae, engineering strain from ReH to the start of uniform work hardening, %. */
   elongationPct: number;
@@ -16,8 +24,8 @@ export interface YieldPointResult {
 
 /** Thresholds of the yield-drop test, stated once. */
 export const YIELD_DROP = {
-  /** The fall must exceed this fraction of ReH (common practice: drops under ~2 % are hard to tell from a rounded knee in a noisy record)… */
-  minRelDrop: 0.02,
+  /** The fall must exceed this fraction of ReH (a floor only: rounded knees are told apart by the knee and step tests, so the floor sits below the smallest drops of interest, common practice)… */
+  minRelDrop: 0.01,
   /** …and this many standard errors of (ReH estimate − plateau level). */
   sigmas: 4,
   /** A departure from the elastic line: this many noise sd below it, two samples in a row. */
@@ -26,6 +34,14 @@ export const YIELD_DROP = {
   plateauStrain: 0.003,
   /** The peak must lie within this plastic strain of the elastic line. */
   maxPeakPlastic: 0.005,
+  /** The plateau ends at the last point where the smoothed stress is within this fraction of its median (or 3 sd of the smooth, if more). */
+  plateauBand: 0.003,
+  /** Strain of the hardening branch past the plateau's end taken into the plateau–hardening fit. */
+  hardeningStrain: 0.005,
+  /** The last samples of the rise this many standard errors below the line through the rest: a rounded knee, not a sharp peak. */
+  kneeSigmas: 3,
+  /** A fall of at least this many samples is located as a change point; fewer are read as recorded. */
+  fallPoints: 3,
 } as const;
 
 /**
@@ -34,18 +50,23 @@ export const YIELD_DROP = {
  * stands clear of the record's noise and is followed by a plateau.
  *
  * - The elastic rise ends at the first of two samples in a row lying more than 4σ̂ (and 0.5 %) below the
- *   elastic line σ = E(e − e0); the peak q is the last sample before it still within 2σ̂ of the line.
- * - ReH is the value at q of a least-squares line through the rising samples above half the peak stress
- *   (noise of the estimate about σ̂·2/√k for k samples, not the noise of one sample).
- * - The plateau level is the median stress over 0.3 % strain after the departure. A yield drop is
- *   reported only when ReH − level > max(2 % of ReH, 4 standard errors of that difference).
- *   A continuous curve has level ≥ the curve at the knee and never passes.
- * - ReL (ISO 6892-1 §3.10.2.2: the lowest stress during plastic yielding, the initial transient
- *   ignored) is the lowest value of a moving average (window chosen from σ̂ so its noise is about 0.15 %
- *   of the level, at most a sixth of the plateau) from where the average first reaches the plateau level
- *   to the end of the plateau. The plateau ends at the last averaged point within max(3 noise sd of the
- *   average, 1 %) of the level before Rm; Ae ends where the level meets a line fitted to the first 0.5 %
- *   strain of the hardening branch (the ASTM E8 construction for YPE, from memory).
+ *   elastic line σ = E(e − e0), refitted through the rise; the peak q is the highest sample before it.
+ * - ReH is read on a least-squares line through the rise (precise to σ̂·2/√k), unless the rise bends before q
+ *   (its last 4, 8 or 16 samples over 3 standard errors below the line through the rest: a rounded knee), when
+ *   the highest moving average of the samples is used. On a finely sampled fall (three or more samples on its
+ *   upper half) ReH is the highest modelled sample of "rise line, then a straight fall" with the break located
+ *   between samples (change point); on a coarse one the line's value or a sample caught part-way down.
+ *   `upperYieldRange` bounds it (±3 σ̂; on a coarse record down to where a falling peak sample would be).
+ * - The plateau level is the median stress over 0.3 % strain after the departure. A yield drop is reported
+ *   only when ReH − level > max(1 % of ReH, 4 standard errors) — the peak read on the line only when the
+ *   peak sample agrees with it within σ̂ — and a step down beats a hinge at the end of the rise by 3² σ̂²
+ *   ({@link isStepDown}): a continuous curve bends, a drop steps.
+ * - ReL (ISO 6892-1 §3.10.2.2: the lowest stress during plastic yielding, the initial transient ignored): the
+ *   transient is the fall and the first trough, ending where a moving average of the plateau first rises back
+ *   above its median (ISO 6892-1 practice, from memory: the first minimum is not counted unless it is the only
+ *   one). The plateau after it and the start of hardening are fitted together ({@link plateauHinge}); ReL is the
+ *   plateau's trough level, Ae ends where the hardening branch leaves it (the ASTM E8 YPE construction takes the
+ *   hardening branch's meeting with the plateau, from memory).
  * Units: strain fraction (toe-compensated by `toe`), stress MPa; σ̂ = `noise` in MPa. `maxIndex`: the
  * last index to look at (fracture); the plateau ends before the highest stress after the departure.
  * Cost: O(n). @returns null for continuous yielding.
@@ -98,6 +119,10 @@ export function yieldPoint(
   while (k0 > fromIndex && stress[k0 - 1]! >= 0.5 * stress[q]! && stress[k0 - 1]! < stress[k0]! + 3 * noise) k0--;
   let reh = stress[q]!;
   let seReh = noise;
+  let rise: { a: number; b: number } | null = null;
+  // Bounds on the highest noise-free sample (ReH as the record shows it), ±3 sd of each reading. On a coarse
+  // record the peak sample may sit on the line or already part-way down the fall: one noisy sample cannot tell.
+  let lo = reh - 3 * noise, hi = reh + 3 * noise;
   if (q - k0 >= 3) {
     try {
       // The line through the rise with the peak sample left out, so a sample already on the fall cannot pull
@@ -106,59 +131,328 @@ export function yieldPoint(
       // the last sample on the line (read on the line) and the peak sample as recorded.
       const k = q - k0;
       const f = linearFit(strain, stress, k0, q);
+      rise = { a: f.intercept, b: f.slope };
       const v = f.intercept + f.slope * strain[q]!;
-      if (stress[q]! >= v - 1.5 * noise * Math.sqrt(1 + 4 / k)) { reh = v; seReh = noise * Math.sqrt(4 / k); }
-      else { reh = Math.max(f.intercept + f.slope * strain[q - 1]!, stress[q]!); }
+      const before = f.intercept + f.slope * strain[q - 1]!;
+      if (stress[q]! >= v - 1.5 * noise * Math.sqrt(1 + 4 / k)) {
+        reh = v; seReh = noise * Math.sqrt(4 / k);
+        lo = Math.max(before, v - Math.max(0, v - stress[q]!) - 3 * noise); hi = v + 3 * seReh;
+      } else {
+        reh = Math.max(before, stress[q]!);
+        lo = Math.max(before, stress[q]! - 3 * noise); hi = stress[q]! + 3 * noise;
+      }
+      // A rounded knee is not a sharp peak: when the last m samples of the rise (m = 4, 8, 16 and a quarter of
+      // the rise, each tried) lie below the line through the samples before them by more than 3 standard errors,
+      // the rise bends before the peak and reading the line at the peak would put ReH above every sample. The
+      // peak is then read from the samples: the highest moving average (over m samples) around it.
+      for (const m of new Set([4, 8, 16, Math.min(20, Math.round(k / 4))])) {
+        if (!(m >= 2 && k - m >= 3)) continue;
+        const g = linearFit(strain, stress, k0, q - m + 1);
+        let res = 0;
+        for (let i = q - m + 1; i <= q; i++) res += stress[i]! - (g.intercept + g.slope * strain[i]!);
+        res /= m;
+        if (res < -Y.kneeSigmas * noise * Math.sqrt(1 / m + 4 / (k - m + 1))) {
+          rise = null;
+          const ma = movingAverage(stress, q - m + 1, Math.min(maxIndex, q + m) + 1, m | 1);
+          reh = -Infinity;
+          for (let i = 0; i < ma.length; i++) reh = Math.max(reh, ma[i]!);
+          seReh = noise / Math.sqrt(m);
+          lo = reh - 3 * seReh; hi = reh + 3 * noise;
+          break;
+        }
+      }
     } catch { /* keep the sample */ }
   }
-  // Plateau level after the departure.
+  // Plateau level after the departure: median over 0.3 % strain (robust to the fall's samples at its start).
   let pEnd = d;
   while (pEnd < maxIndex && (strain[pEnd]! - strain[d]! < Y.plateauStrain || pEnd - d < 5)) pEnd++;
   const nLevel = pEnd - d;
   if (nLevel < 3) return null;
   const lv = Float64Array.from({ length: nLevel }, (_, k) => stress[d + k]!).sort();
   const level = lv[nLevel >> 1]!;
-  const seDiff = Math.sqrt(seReh * seReh + (1.57 * noise * noise) / nLevel);
-  const threshold = Math.max(Y.minRelDrop * reh, Y.sigmas * seDiff);
-  const drop = reh - level;
+  // The fall: samples from the departure until the stress first comes within 3 noise sd of the level.
+  // (three samples in a row, so one noisy sample part-way down the fall does not end it).
+  const below = (i: number, v: number) => stress[i]! <= v && (i + 1 > maxIndex || stress[i + 1]! <= v) && (i + 2 > maxIndex || stress[i + 2]! <= v);
+  let r0 = d;
+  while (r0 < maxIndex && !below(r0, level + 3 * noise)) r0++;
+  // Samples on the upper half of the fall (above the middle between the line at the peak and the level), in a
+  // run after the peak: several of them mean a finely sampled fall, one or two a coarse one.
+  // The drop test reads the peak on the line only when the peak sample agrees with it within one noise sd: a
+  // sample further below may be just past a sharp knee (a continuous curve), where the line overshoots every sample.
+  let testReh = reh, testSe = seReh;
+  if (rise && reh === rise.a + rise.b * strain[q]! && stress[q]! < reh - noise) { testReh = stress[q]! + noise; testSe = noise; }
+  let fallTop = rise ? rise.a + rise.b * strain[q]! : reh;
+  for (let i = q + 1; i < r0; i++) fallTop = Math.max(fallTop, stress[i]!);
+  const mid = level + 0.5 * (fallTop - level);
+  let lastUpper = q, nUpper = 0;
+  for (let i = q + 1; i < r0; i++) { if (stress[i]! > mid) { nUpper++; lastUpper = i; } else if (stress[i]! < mid - 3 * noise) break; }
+  if (nUpper >= Y.fallPoints && rise) {
+    // Finely sampled fall: the peak is where the rise line turns into the fall, found as a change point —
+    // least squares of "rise line, then a straight fall from it" over the break position (grid over the
+    // samples from the last few on the rise to the last on the upper half of the fall). ReH is the rise line at
+    // the break.
+    const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - Math.max(3, lastUpper - q)), lastUpper + 1);
+    if (cp !== null) {
+      // ReH as the record shows it: the highest modelled sample — the last on the rise line before the break
+      // or the first on the fall after it.
+      const top = rise.a + rise.b * cp.xb;
+      let before = -Infinity, after = -Infinity;
+      for (let i = Math.max(k0, q - Math.max(3, lastUpper - q)); i <= lastUpper + 1 && i < maxIndex; i++) {
+        const xi = strain[i]!;
+        if (xi <= cp.xb) before = Math.max(before, rise.a + rise.b * xi);
+        else if (after === -Infinity) after = top + cp.slope * (xi - cp.xb);
+      }
+      reh = testReh = Math.max(before, after, -Infinity) > -Infinity ? Math.max(before, after) : top;
+      seReh = testSe = noise * Math.sqrt(4 / Math.max(2, q - k0));
+      lo = reh - 3 * seReh; hi = reh + 3 * seReh;
+    }
+  } else {
+    // Coarse: at most a couple of samples on the fall. The highest noise-free sample may be one of them (caught
+    // part-way down): read them as recorded (noise σ̂ each).
+    // The test below keeps the more precise of the two (the line's value when a sample on the fall is not
+    // clearly higher).
+    for (let i = q + 1; i <= lastUpper; i++) {
+      if (stress[i]! > reh) {
+        if (stress[i]! > reh + 2 * noise) { testReh = stress[i]!; testSe = noise; }
+        reh = stress[i]!;
+        lo = Math.max(lo, reh - 3 * noise); hi = Math.max(hi, reh + 3 * noise);
+      }
+    }
+  }
+  // The plateau's lower level (its troughs): see plateauTroughs.
+  const seDiff = Math.sqrt(testSe * testSe + (1.57 * noise * noise) / nLevel);
+  const threshold = Math.max(Y.minRelDrop * testReh, Y.sigmas * seDiff);
+  const drop = testReh - level;
   if (!(drop > threshold)) return null;
+  // A drop is a step down, not a bend: after the rise line ends, a segment that starts lower than the line (a
+  // step) must fit the samples clearly better than one that starts on it (a hinge, as a continuous curve bends at
+  // its knee) — by more than 5² noise variances of the residual sum (common practice for a change-point test).
+  if (rise && !isStepDown(strain, stress, rise.a, rise.b, Math.max(k0, q - 50), pEnd, Math.max(k0 + 1, q - 10), Math.min(pEnd - 3, Math.max(d, lastUpper) + 10), noise, q, lastUpper)) return null;
   // Smoothed plateau from the departure to maximum force.
   const to = Math.max(d + 1, maxIndex + 1);
   const wNoise = Math.ceil(((noise / (0.0015 * level)) ** 2));
   // Rough plateau length for the cap: points until the raw stress first passes level + 5 %.
-  // It starts where the raw stress first reaches the level (after the fall from ReH, which can take several
-  // samples on a finely sampled record: counting from the departure would stop inside the fall).
-  let r0 = d;
-  while (r0 < maxIndex && stress[r0]! > level + 3 * noise) r0++;
   let rough = r0;
-  while (rough < maxIndex && stress[rough]! < 1.05 * level) rough++;
-  const w = Math.max(1, Math.min(wNoise, Math.floor((rough - r0) / 6))) | 1;
+  while (rough < maxIndex && !(stress[rough]! >= 1.05 * level && (rough + 1 > maxIndex || stress[rough + 1]! >= 1.05 * level) && (rough + 2 > maxIndex || stress[rough + 2]! >= 1.05 * level))) rough++;
+  const cap = Math.max(1, Math.floor((rough - r0) / 6));
+  const w1 = Math.max(1, Math.min(wNoise, cap)) | 1;
+  // The window is sized from the scatter of the plateau about a first smooth (noise and serrations too fast
+  // for that smooth), so the smoothed plateau's own scatter is about 0.15 % of the level.
+  let scatter = noise;
+  if (w1 > 1 && rough - r0 >= 10) {
+    const ma1 = movingAverage(stress, r0, rough, w1);
+    let v = 0;
+    for (let i = r0; i < rough; i++) v += (stress[i]! - ma1[i - r0]!) ** 2;
+    scatter = Math.max(noise, Math.sqrt((v / (rough - r0)) * (w1 / (w1 - 1))));
+  }
+  const w = Math.max(1, Math.min(Math.ceil((scatter / (0.0015 * level)) ** 2), cap)) | 1;
   const ma = movingAverage(stress, d, to, w);
-  const band = Math.max((3 * noise) / Math.sqrt(w), 0.01 * level);
+  const band = Math.max((3 * scatter) / Math.sqrt(w), Y.plateauBand * level);
   let s0 = 0;
   while (s0 < ma.length - 1 && ma[s0]! > level + band) s0++;
   let endRel = s0;
   for (let k = s0; k < ma.length; k++) if (ma[k]! <= level + band) endRel = k;
   const end = d + endRel;
-  let rel = Infinity;
-  const from = Math.min(s0 + (w >> 1), endRel);
-  for (let k = from; k <= Math.max(from, endRel - (w >> 1)); k++) rel = Math.min(rel, ma[k]!);
-  if (!Number.isFinite(rel)) rel = level;
-  // Ae ends where work hardening starts: plateau mean level meets a line through the first 0.5 % strain of hardening.
-  let endStrain = strain[end]!;
-  {
-    let mean = 0;
-    for (let k = s0; k <= endRel; k++) mean += ma[k]!;
-    mean /= endRel - s0 + 1;
-    let j = end;
-    while (j < maxIndex && strain[j]! - strain[end]! < 0.005) j++;
-    if (j - end >= 3) {
-      try {
-        const h = linearFit(strain, stress, end, j + 1);
-        const x = (mean - h.intercept) / h.slope;
-        if (h.slope > 0 && x >= strain[d]! && x <= strain[j]!) endStrain = x;
-      } catch { /* keep the last plateau point */ }
+  // ReL (ISO 6892-1 §3.10.2.2: the lowest stress during yielding, the initial transient ignored). The initial
+  // transient is the fall and the first trough after it: it ends where the smoothed plateau first rises back
+  // above its median after reaching it (ISO 6892-1 practice, from memory: the first minimum is ignored).
+  const r0Rel = Math.max(0, r0 - d);
+  let up = Math.max(r0Rel, s0);
+  while (up < endRel && ma[up]! <= level) up++;
+  let pa = d + up;
+  if (end + 1 - pa < 10) pa = d + Math.max(r0Rel, s0);
+  let ib = end;
+  while (ib < maxIndex && strain[ib]! - strain[end]! < Y.hardeningStrain) ib++;
+  // The hinge is sought in the second half of the plateau found by the smooth (its first half is plateau).
+  const h = plateauHinge(strain, stress, pa, ib + 1, noise, 0.5 * (strain[pa]! + strain[end]!));
+  let rel = level, endStrain = strain[end]!;
+  if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
+  return { upperYield: reh, upperYieldRange: [Math.min(lo, reh), Math.max(hi, reh)], lowerYield: Math.min(rel, reh), peakIndex: q, plateauFrom: pa, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
+}
+
+/**
+ * Step or bend at the end of a rise: over the break positions x_b (samples cFrom…cTo), the samples of [from, to)
+ * up to x_b are compared with the rise line r(x) = a + b·x, the later ones (x ≤ x_b + 0.3 % strain) with a
+ * straight segment that either starts anywhere (step: c + s·(x − x_b)) or on the line (hinge: r(x_b) + s·(x − x_b)).
+ * Samples in (skipFrom, skipTo] after the break (the upper half of a fall, caught part-way down) belong to neither.
+ * @returns true when the best step beats the best hinge by more than 25·σ̂² in the residual sum and lies below the
+ * line carried on to its first sample.
+ */
+/** The step must beat the hinge by this many noise sd (√ of the residual-sum difference over σ̂²). */
+const STEP_SIGMAS = 3;
+
+function isStepDown(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number, cFrom: number, cTo: number, noise: number, skipFrom: number, skipTo: number): boolean {
+  let bestS = Infinity, bestH = Infinity, stepDown = false;
+  for (let c = cFrom; c <= cTo; c++) {
+    const xb = x[c]!, yb = a + b * xb;
+    let left = 0, n = 0, sz = 0, sy = 0, szz = 0, szy = 0, syy = 0, sh = 0, shz = 0, z1 = NaN;
+    for (let i = from; i < to; i++) {
+      if (i <= c) { const r = y[i]! - (a + b * x[i]!); left += r * r; continue; }
+      if (i > skipFrom && i <= skipTo) continue;
+      const z = x[i]! - xb, v = y[i]!, h = v - yb;
+      if (n === 0) z1 = z;
+      n++; sz += z; sy += v; szz += z * z; szy += z * v; syy += v * v; sh += h * h; shz += h * z;
+    }
+    if (n < 3) continue;
+    const den = n * szz - sz * sz;
+    if (!(den > 0) || !(szz > 0)) continue;
+    const sl = (n * szy - sz * sy) / den, c0 = (sy - sl * sz) / n;
+    const ssrStep = left + Math.max(0, syy - c0 * sy - sl * szy);
+    const ssrHinge = left + Math.max(0, sh - (shz * shz) / szz);
+    // Down: the segment starts below the line carried on to the segment's first sample.
+    if (ssrStep < bestS) { bestS = ssrStep; stepDown = c0 + sl * z1 < yb + b * z1; }
+    if (ssrHinge < bestH) bestH = ssrHinge;
+  }
+  return stepDown && bestH - bestS > STEP_SIGMAS ** 2 * noise * noise;
+}
+
+/**
+ * Break of "rise line, then a straight fall": for each break x_b at a sample strain in [from, to), the samples
+ * up to x_b are compared with the rise line r(x) = a + b·x and the later ones with r(x_b) + m·(x − x_b), m by
+ * least squares; the x_b with the least residual sum wins (a change-point fit, common practice). O(k²) in the
+ * k samples of the window (a few hundred at most on a fall of 2·10⁻⁴ strain).
+ * The break is refined between samples (the peak need not be a sample).
+ * @returns the break strain and the fall's slope, or null for a window of fewer than 3 samples or no falling break.
+ */
+function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number): { xb: number; slope: number } | null {
+  if (to - from < 3) return null;
+  const ssrAt = (xb: number) => {
+    const yb = a + b * xb;
+    let ssr = 0, szz = 0, szy = 0, syy = 0;
+    for (let i = from; i < to; i++) {
+      if (x[i]! <= xb) { const r = y[i]! - (a + b * x[i]!); ssr += r * r; }
+      else { const z = x[i]! - xb, v = y[i]! - yb; szz += z * z; szy += z * v; syy += v * v; }
+    }
+    if (!(szz > 0)) return { ssr: Infinity, m: 0 };
+    const m = szy / szz;
+    return m < 0 ? { ssr: ssr + syy - m * szy, m } : { ssr: Infinity, m };
+  };
+  const stride = Math.max(1, Math.floor((to - from) / 400));
+  let best = Infinity, at = -1;
+  for (let c = from; c < to - 1; c += stride) { const r = ssrAt(x[c]!); if (r.ssr < best) { best = r.ssr; at = c; } }
+  if (at < 0) return null;
+  // The peak lies between samples: refine the break over the two sample gaps around the best sample.
+  const lo = x[Math.max(from, at - stride)]!, hi = x[Math.min(to - 1, at + stride)]!;
+  let xb = x[at]!, m = ssrAt(xb).m;
+  for (let k = 0; k <= 40; k++) { const t = lo + ((hi - lo) * k) / 40; const r = ssrAt(t); if (r.ssr < best) { best = r.ssr; xb = t; m = r.m; } }
+  return { xb, slope: m };
+}
+
+/**
+ * The yield plateau and the start of work hardening, fitted together: a level plateau (ISO 6892-1: yielding at
+ * about constant force) that turns into a hardening branch at x_k, continuously — y = m + b₁·z + b₂·z²,
+ * z = max(0, x − x_k) (a hinge or
+ * segmented regression, common practice; J. D. Toms and M. L. Lesperance, "Piecewise regression", Ecology 84
+ * (2003), from memory). For a fixed x_k the model is linear; x_k is found by a grid and golden-section search on
+ * the residual sum, over block averages (≤ 1000, {@link blockAverage}) of the samples [from, to).
+ *
+ * A serrated plateau spends equal time at every level between its troughs and crests, so its samples about the
+ * plateau line are uniform over a width A plus the noise: variance A²/12 + σ̂². Hence A = √(12·excess) (the
+ * excess of the variance of the raw samples up to x_k over the noise — the larger of σ̂² and the mean square of the
+ * raw samples about the hardening branch — used only when it is clear of a variance's sampling error, 2·σ̂²·√(2/m)),
+ * and the troughs lie A/2 below the line (method of moments).
+ * ReL = the lowest point of the trough line over the plateau (ISO 6892-1 §3.10.2.2: the lowest stress during
+ * yielding). Work hardening starts where the hardening branch leaves the trough line: x_k − (A/2)/slope, the
+ * slope p + b₁ of the branch at x_k (at most half-way back to the plateau's start). x_k is sought from `earliest` on.
+ * @returns null when the samples cannot hold the model (fewer than 12 blocks, or no plateau point before x_k).
+ */
+function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from: number, to: number, noise: number, earliest = -Infinity): { lowerYield: number; hardeningStart: number; level: number; slope: number; spread: number } | null {
+  const n = to - from;
+  if (n < 12) return null;
+  const xs = new Float64Array(n), ys = new Float64Array(n);
+  for (let k = 0; k < n; k++) { xs[k] = strain[from + k]!; ys[k] = stress[from + k]!; }
+  const bl = blockAverage(xs, ys, Math.ceil(n / 1000));
+  const nb = bl.x.length;
+  if (nb < 12) return null;
+  const x0 = bl.x[0]!, span = bl.x[nb - 1]! - x0;
+  if (!(span > 0)) return null;
+  const K = 3, S = new Float64Array(K * K), T = new Float64Array(K), c = new Float64Array(K);
+  const solve = (xk: number) => {
+    // Normal equations of the columns [1, z, z²] (z = max(0, x − xk)/span), weighted by block size.
+    S.fill(0); T.fill(0);
+    let yy = 0;
+    for (let b = 0; b < nb; b++) {
+      const u = (bl.x[b]! - xk) / span, z = u > 0 ? u : 0, wt = bl.w[b]!, y = bl.y[b]!;
+      c[0] = 1; c[1] = z; c[2] = z * z;
+      for (let r = 0; r < K; r++) { T[r]! += wt * c[r]! * y; for (let q = r; q < K; q++) S[r * K + q]! += wt * c[r]! * c[q]!; }
+      yy += wt * y * y;
+    }
+    for (let r = 0; r < K; r++) for (let q = 0; q < r; q++) S[r * K + q] = S[q * K + r]!;
+    const coef = solveSmall(S, T, K);
+    if (!coef) return null;
+    let ssr = yy;
+    for (let r = 0; r < K; r++) ssr -= coef[r]! * T[r]!;
+    // Work hardening rises from the plateau: a branch that leaves it downwards is a serration, not hardening.
+    if (!(coef[1]! > 0)) return null;
+    return { m: coef[0]!, p: 0, b1: coef[1]! / span, c1: coef[1]!, c2: coef[2]!, ssr };
+  };
+  const lo0 = Math.max(bl.x[3]!, Math.min(earliest, bl.x[nb - 5]!)), hi0 = bl.x[nb - 4]!;
+  const G = 60;
+  let best: { xk: number; f: NonNullable<ReturnType<typeof solve>> } | null = null;
+  for (let g = 0; g <= G; g++) {
+    const xk = lo0 + ((hi0 - lo0) * g) / G;
+    const f = solve(xk);
+    if (f && (!best || f.ssr < best.f.ssr)) best = { xk, f };
+  }
+  if (!best) return null;
+  let a = Math.max(lo0, best.xk - (hi0 - lo0) / G), b = Math.min(hi0, best.xk + (hi0 - lo0) / G);
+  const gr = (Math.sqrt(5) - 1) / 2;
+  for (let k = 0; k < 40 && b - a > 1e-12; k++) {
+    const x1 = b - gr * (b - a), x2 = a + gr * (b - a);
+    const f1 = solve(x1), f2 = solve(x2);
+    if (!f1 || !f2) break;
+    if (f1.ssr < f2.ssr) b = x2; else a = x1;
+  }
+  const xm = 0.5 * (a + b), fm = solve(xm);
+  if (fm && fm.ssr <= best.f.ssr) best = { xk: xm, f: fm };
+  const { xk, f } = best;
+  // Spread of the raw plateau samples about the plateau line.
+  let m = 0, v = 0;
+  for (let i = from; i < to && strain[i]! <= xk; i++) { const r = stress[i]! - (f.m + f.p * (strain[i]! - xk)); v += r * r; m++; }
+  if (m < 3) return null;
+  v /= m - 1;
+  // The noise as the hardening branch shows it (the same record, no serrations there): the mean square of the
+  // raw samples about the fitted branch. It also holds what σ̂ from second differences misses (noise correlated
+  // from sample to sample, a quantised load).
+  let vh = 0, mh = 0;
+  for (let i = from; i < to; i++) {
+    const z = (strain[i]! - xk) / span;
+    if (z <= 0) continue;
+    const r = stress[i]! - (f.m + f.c1 * z + f.c2 * z * z);
+    vh += r * r; mh++;
+  }
+  const n2 = mh >= 10 ? Math.max(noise * noise, vh / (mh - 3)) : noise * noise;
+  const excess = v - n2;
+  const A = excess > 2 * n2 * Math.sqrt(2 / m) ? Math.sqrt(12 * excess) : 0;
+  const atStart = f.m + f.p * (strain[from]! - xk);
+  const lowerYield = Math.min(atStart, f.m) - A / 2;
+  // The branch's slope where it leaves the plateau: the larger of its tangent at x_k and its secant over the first
+  // 0.3 % strain (a branch fitted flat at x_k and curving up later would otherwise send the back-step far back).
+  const zs = Math.min(0.003, strain[to - 1]! - xk) / span;
+  const secant = zs > 0 ? (f.c1 * zs + f.c2 * zs * zs) / (zs * span) : 0;
+  const slope = Math.max(f.p + f.b1, secant);
+  const back = slope > 0 ? Math.min(A / 2 / slope, 0.5 * (xk - strain[from]!)) : 0;
+  return { lowerYield, hardeningStart: Math.max(strain[from]!, xk - back), level: f.m, slope, spread: A };
+}
+
+/** Solves the k×k system S·c = T (row-major S) by Gaussian elimination with partial pivoting; null when singular. */
+function solveSmall(S: Float64Array, T: Float64Array, k: number): Float64Array | null {
+  const W = k + 1;
+  const M = new Float64Array(k * W);
+  for (let r = 0; r < k; r++) { for (let q = 0; q < k; q++) M[r * W + q] = S[r * k + q]!; M[r * W + k] = T[r]!; }
+  const scale = Math.abs(M[0]!) || 1;
+  for (let col = 0; col < k; col++) {
+    let piv = col;
+    for (let r = col + 1; r < k; r++) if (Math.abs(M[r * W + col]!) > Math.abs(M[piv * W + col]!)) piv = r;
+    if (!(Math.abs(M[piv * W + col]!) > 1e-14 * scale)) return null;
+    if (piv !== col) for (let q = 0; q < W; q++) { const t = M[col * W + q]!; M[col * W + q] = M[piv * W + q]!; M[piv * W + q] = t; }
+    for (let r = 0; r < k; r++) {
+      if (r === col) continue;
+      const fct = M[r * W + col]! / M[col * W + col]!;
+      if (fct !== 0) for (let q = col; q < W; q++) M[r * W + q]! -= fct * M[col * W + q]!;
     }
   }
-  return { upperYield: reh, lowerYield: Math.min(rel, reh), peakIndex: q, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
+  const out = new Float64Array(k);
+  for (let r = 0; r < k; r++) out[r] = M[r * W + k]! / M[r * W + r]!;
+  return out;
 }

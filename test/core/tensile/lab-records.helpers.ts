@@ -21,15 +21,32 @@ export function labCase(seed: number): Case {
   const L = makeLaw(law);
   const eu = L.uniformStrain();
   const Rm = L.stress(eu) / Math.exp(eu + L.stress(eu) / E);
-  const big = seed % 50 === 7;
-  const points = big ? 100000 : Math.round(1000 * 10 ** u(0, 1));
+  // Points log-uniform over 1,000–100,000 (the issue's range), uniform in time.
+  const points = Math.round(10 ** u(3, 5));
   const noise = Rm * u(0.001, 0.01);
   const toe = seed % 3 === 1 ? (u(0.05, 0.25) * sy) / E : 0;
-  const drop = seed % 3 === 2 && eu > 0.08 ? { drop: u(0.03, 0.1), luedersStrain: u(0.005, Math.min(0.03, eu / 3)), serration: u(0, 0.005) } : undefined;
+  // Yield drops of 3–10 % with a Lüders plateau of 0.5–3 % strain; on half of them serrations of 0.5–3 % of ReL
+  // (the other half up to 0.5 %), with periods from a fifth of the sample spacing to 50 spacings, triangle or
+  // sawtooth, and on a third an undershoot of the first trough (the initial transient) of up to 2 %.
+  let drop: NonNullable<LabRecordSpec['yieldDrop']> | undefined;
+  if (seed % 3 === 2 && eu > 0.08) {
+    const eUeng = Math.expm1(eu + L.stress(eu) / E);
+    const spacing = (eUeng + 0.4 * eu) / points;
+    const big = r.nextFloat() < 0.5;
+    drop = {
+      drop: u(0.03, 0.1),
+      luedersStrain: u(0.005, Math.min(0.03, eu / 3)),
+      serration: big ? u(0.005, 0.03) : u(0, 0.005),
+      serrationPeriod: spacing * 10 ** u(-0.7, 1.7),
+      serrationShape: r.nextFloat() < 0.5 ? 'sawtooth' : 'triangle',
+      undershoot: r.nextFloat() < 1 / 3 ? u(0, 0.02) : 0,
+    };
+  }
+  const d = drop;
   return {
     seed,
-    spec: { law, elasticModulus: E, points, noise, toe, ...(drop ? { yieldDrop: drop } : {}) },
-    what: `seed ${seed}: ${JSON.stringify(law)}, E ${E}, ${points} points, noise ${(noise / Rm * 100).toFixed(2)} % Rm, toe ${toe.toExponential(1)}${drop ? `, drop ${(drop.drop * 100).toFixed(1)} % Lüders ${(drop.luedersStrain * 100).toFixed(2)} %` : ''}`,
+    spec: { law, elasticModulus: E, points, noise, toe, ...(d ? { yieldDrop: d } : {}) },
+    what: `seed ${seed}: ${JSON.stringify(law)}, E ${E}, ${points} points, noise ${(noise / Rm * 100).toFixed(2)} % Rm, toe ${toe.toExponential(1)}${d ? `, drop ${(d.drop * 100).toFixed(1)} % Lüders ${(d.luedersStrain * 100).toFixed(2)} % serration ${(d.serration! * 100).toFixed(2)} % ${d.serrationShape} period ${d.serrationPeriod!.toExponential(1)} undershoot ${(d.undershoot! * 100).toFixed(2)} %` : ''}`,
   };
 }
 

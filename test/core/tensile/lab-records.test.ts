@@ -1,99 +1,122 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeRecord, synthesizeLabRecord, xoshiro128ss } from '../../../src/core/index.js';
-
-// Property test over seeded INVENTED lab-style records (synthesizeLabRecord: samples uniform in time, so the
-// elastic rise holds only a handful to a few dozen samples; white noise on the stress; toes; yield drops with
-// serrated plateaus). The truth is the noise-free curve's own Rp0.2, Rm, Ag, A, ReH, ReL and Ae by the
-// ISO 6892-1 definitions (computed by the generator). The tolerances are the ones the issue sets for a
-// record analysis (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point).
+import { expectRelClose } from '../../helpers.js';
 import { labCase } from './lab-records.helpers.js';
 
+// Property test over seeded INVENTED lab-style records (synthesizeLabRecord, cases from labCase: Swift — that is
+// Hollomon with a strain offset —, Voce, Ludwik and Hockett–Sherby laws; 1,000–100,000 points log-uniform,
+// uniform in time, so the elastic rise holds only a handful to a few hundred samples; white noise of 0.1–1 % of
+// Rm; toes; yield drops of 3–10 % with Lüders plateaus of 0.5–3 % strain, serrations up to 3 % of ReL at periods
+// from a fifth of the sample spacing to 50 spacings, and undershoot transients). The truth is the noise-free
+// curve's own Rp0.2, Rm, Ag, A, ReH, ReL and Ae by the ISO 6892-1 definitions (computed by the generator). The
+// tolerances are the ones issue 12 sets (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4
+// point).
+//
+// A miss is accepted only where the record itself cannot support the property within its tolerance and the
+// analysis says so — each acceptance below states what shows that the information is not in the data:
+// - E refused (exit 2, naming elasticModulus and --modulus) only with ≤ 8 samples on the elastic rise; rerun with
+//   the modulus given, as a user would.
+// - ReH off by more than 1.5 % only with the `uncertainReH` warning, a range wider than ±1.5 % that holds the truth
+//   (the peak fell between two samples whose line values differ by more than the tolerance, or within the noise).
+// - Rp0.2 off by more than 1 % only with the `uncertainRp` warning and a range holding the truth: the offset line
+//   meets a serrated plateau wherever the serrations are when it crosses (the band they sweep is wider than ±1 %).
+// - Ag off by more than 0.4 point only with `uncertainAg` and a 95 % interval wider than ±0.4 point that holds it.
+// - A recorded yield drop may go unreported only when its evidence — √Σ(sᵢ − ReL)²/σ over the noise-free samples of
+//   the rise above ReL, the signal-to-noise ratio of the best test that knows the drop's shape (matched filter) —
+//   is below 6: a test that keeps continuous curves free of false yield points (threshold about 3.7σ at a false-
+//   alarm rate of 10⁻⁴ per record) finds a drop of evidence 6 with probability ≥ 99 % and one of evidence 4 only
+//   about half the time.
 const SEEDS = Array.from({ length: 240 }, (_, i) => i);
+const MIN_EVIDENCE = 6;
+
+interface Tally { fails: string[]; count: Record<string, number>; accepted: Record<string, string[]>; drops: number; continuous: number }
+
+function tally(seeds: number[]): Tally {
+  const fails: string[] = [];
+  const count: Record<string, number> = {};
+  const accepted: Record<string, string[]> = {};
+  let drops = 0, continuous = 0;
+  const miss = (k: string, msg: string) => { fails.push(`${k}: ${msg}`); count[k] = (count[k] ?? 0) + 1; };
+  const accept = (k: string, seed: number) => { (accepted[k] ??= []).push(String(seed)); };
+  for (const seed of seeds) {
+    const c = labCase(seed);
+    const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(seed) });
+    const t = rec.truth;
+    let a;
+    try { a = analyzeRecord(rec, { fit: false }); } catch (e) {
+      const msg = (e as Error).message;
+      if (!(t.elasticPoints <= 8 && /elasticModulus/.test(msg) && /--modulus/.test(msg))) { miss('threw', `${c.what}: ${msg}`); continue; }
+      accept('E refused', seed);
+      a = analyzeRecord(rec, { fit: false, elasticModulus: t.elasticModulus });
+    }
+    const has = (code: string) => a.warnings.some((w) => w.code === code);
+    // Rp0.2
+    const rpErr = Math.abs(a.proofStrength! - t.proofStrength) / t.proofStrength;
+    const pr = a.proofStrengthRange;
+    if (!(rpErr <= 0.01)) {
+      if (has('uncertainRp') && pr && (pr[1] - pr[0]) / 2 > 0.01 * a.proofStrength! && pr[0] <= t.proofStrength && t.proofStrength <= pr[1]) accept('Rp0.2 (serrated plateau, warned, inside its range)', seed);
+      else miss('Rp0.2', `${c.what}: ${a.proofStrength} vs ${t.proofStrength}`);
+    }
+    if (!(Math.abs(a.tensileStrength - t.tensileStrength) / t.tensileStrength <= 0.004)) miss('Rm', `${c.what}: ${a.tensileStrength} vs ${t.tensileStrength}`);
+    const agErr = Math.abs(a.uniformElongationPct - t.uniformElongationPct);
+    const [agLo, agHi] = a.forceMaximum.uniformElongationInterval95;
+    if (!(agErr <= 0.4)) {
+      if (has('uncertainAg') && (agHi - agLo) / 2 > 0.4 && agLo <= t.uniformElongationPct && t.uniformElongationPct <= agHi) accept('Ag (warned, inside its 95 % interval)', seed);
+      else miss('Ag', `${c.what}: ${a.uniformElongationPct} vs ${t.uniformElongationPct} (interval ${agLo.toFixed(2)}–${agHi.toFixed(2)})`);
+    }
+    if (!(Math.abs(a.totalElongationPct - t.totalElongationPct) <= 0.5)) miss('A', `${c.what}: ${a.totalElongationPct} vs ${t.totalElongationPct}`);
+    if (t.yieldDropRecorded === false) {
+      // Made with a drop, but no sample caught the peak: either answer is acceptable.
+    } else if (t.upperYield === null) {
+      continuous++;
+      if (a.upperYield !== null) miss('falseYield', `${c.what}: continuous curve reported ReH ${a.upperYield}`);
+    } else {
+      drops++;
+      if (a.upperYield === null) {
+        if (t.yieldDropEvidence! < MIN_EVIDENCE) accept(`drop not reported (evidence < ${MIN_EVIDENCE})`, seed);
+        else miss('missedYield', `${c.what}: drop ${t.upperYield}/${t.lowerYield} (evidence ${t.yieldDropEvidence!.toFixed(1)}) not found`);
+      } else {
+        const rr = a.upperYieldRange!;
+        if (!(Math.abs(a.upperYield - t.upperYield) / t.upperYield <= 0.015)) {
+          if (has('uncertainReH') && (rr[1] - rr[0]) / 2 > 0.015 * a.upperYield && rr[0] <= t.upperYield && t.upperYield <= rr[1]) accept('ReH (warned, inside its range)', seed);
+          else miss('ReH', `${c.what}: ${a.upperYield} vs ${t.upperYield} (range ${rr[0].toFixed(1)}–${rr[1].toFixed(1)})`);
+        }
+        if (!(Math.abs(a.lowerYield! - t.lowerYield!) / t.lowerYield! <= 0.015)) miss('ReL', `${c.what}: ${a.lowerYield} vs ${t.lowerYield}`);
+        if (!(Math.abs(a.yieldPointElongationPct! - t.yieldPointElongationPct!) <= 0.4)) miss('Ae', `${c.what}: ${a.yieldPointElongationPct} vs ${t.yieldPointElongationPct}`);
+      }
+    }
+    if (a.elasticModulus < 40000 || a.elasticModulus > 450000) miss('silentE', `${c.what}: E ${a.elasticModulus} used silently`);
+    const [lo, hi] = a.measuredModulusInterval95;
+    const warned = has('fewElasticPoints') || has('uncertainModulus') || has('elasticBandFallback');
+    if (!(lo <= t.elasticModulus && t.elasticModulus <= hi) && !warned && Math.abs(a.elasticModulus / t.elasticModulus - 1) > 0.05) miss('quietE', `${c.what}: E ${a.elasticModulus} off by more than 5 % outside its interval, no warning`);
+  }
+  return { fails, count, accepted, drops, continuous };
+}
 
 describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of Rm, 1,000–100,000 points uniform in time)', () => {
-  const fails: string[] = [];
-  const worst: Record<string, number> = {};
-  const count: Record<string, number> = {};
-  let refused = 0, drops = 0, continuous = 0, agCovered = 0, agWarned = 0, agUncertainOk = 0;
-  const note = (k: string, v: number) => { worst[k] = Math.max(worst[k] ?? 0, v); };
   it('Rp0.2 within 1 %, Rm within 0.4 %, Ag within 0.4 point, A within 0.5 point; ReH/ReL only with a real drop, within 1.5 %, Ae within 0.4 point', () => {
-    for (const seed of SEEDS) {
-      const c = labCase(seed);
-      const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(seed) });
-      const t = rec.truth;
-      let a;
-      let wasRefused = false;
-      try { a = analyzeRecord(rec, { fit: false }); } catch (e) {
-        // Refusing E is right only when the elastic rise really holds too few samples; then the user gives the
-        // modulus (--modulus), as here.
-        const msg = (e as Error).message;
-        if (!(t.elasticPoints <= 8 && /elasticModulus/.test(msg) && /--modulus/.test(msg))) { fails.push(`${c.what}: threw ${msg}`); count.threw = (count.threw ?? 0) + 1; continue; }
-        refused++;
-        wasRefused = true;
-        a = analyzeRecord(rec, { fit: false, elasticModulus: t.elasticModulus });
-      }
-      // After a refused E (≤ 8 elastic samples) the toe is taken from too few samples even with the modulus given:
-      // those misses are counted apart (`afterRefusal`), not hidden.
-      const chk = (k: string, err: number, tol: number, msg: string) => { note(k, err / tol); if (!(err <= tol)) { fails.push(`${c.what}: ${k} ${msg}${wasRefused ? ' (after refusal)' : ''}`); const key = wasRefused ? 'afterRefusal' : k; count[key] = (count[key] ?? 0) + 1; } };
-      chk('Rp0.2', Math.abs(a.proofStrength! - t.proofStrength) / t.proofStrength, 0.01, `${a.proofStrength} vs ${t.proofStrength}`);
-      chk('Rm', Math.abs(a.tensileStrength - t.tensileStrength) / t.tensileStrength, 0.004, `${a.tensileStrength} vs ${t.tensileStrength}`);
-      // Ag: within 0.4 point, or reported as uncertain. "Uncertain" is accepted only when the data cannot tell
-      // Ag to 0.4 point: the 95 % profile interval of the position of maximum force (from the record alone) is
-      // wider than ±0.4 point, the truth lies inside it, and the warning says so.
-      const agErr = Math.abs(a.uniformElongationPct - t.uniformElongationPct);
-      const [agLo, agHi] = a.forceMaximum.uniformElongationInterval95;
-      const agInside = agLo <= t.uniformElongationPct && t.uniformElongationPct <= agHi;
-      agCovered += agInside ? 1 : 0;
-      const agUncertain = a.warnings.some((w) => w.code === 'uncertainAg') && (agHi - agLo) / 2 > 0.4;
-      if (agUncertain) { agWarned++; expect(agLo).toBeLessThanOrEqual(a.uniformElongationPct); expect(agHi).toBeGreaterThanOrEqual(a.uniformElongationPct); }
-      if (agErr > 0.4 && agUncertain && agInside) { agUncertainOk++; note('Ag', 0); }
-      else chk('Ag', agErr, 0.4, `${a.uniformElongationPct} vs ${t.uniformElongationPct} (95 % interval ${agLo.toFixed(2)}–${agHi.toFixed(2)}${agUncertain ? ', warned' : ''})`);
-      chk('A', Math.abs(a.totalElongationPct - t.totalElongationPct), 0.5, `${a.totalElongationPct} vs ${t.totalElongationPct}`);
-      if (t.yieldDropRecorded === false) {
-        // Made with a drop, but no sample caught the peak: either answer is acceptable; a reported ReL must be the plateau's.
-      } else if (t.upperYield === null) {
-        if (a.upperYield !== null) { fails.push(`${c.what}: continuous curve reported ReH ${a.upperYield}`); count.falseYield = (count.falseYield ?? 0) + 1; }
-      } else if (a.upperYield === null) { fails.push(`${c.what}: yield drop of ${t.upperYield}/${t.lowerYield} not found`); count.missedYield = (count.missedYield ?? 0) + 1; }
-      else {
-        chk('ReH', Math.abs(a.upperYield - t.upperYield) / t.upperYield, 0.015, `${a.upperYield} vs ${t.upperYield}`);
-        chk('ReL', Math.abs(a.lowerYield! - t.lowerYield!) / t.lowerYield!, 0.015, `${a.lowerYield} vs ${t.lowerYield}`);
-        chk('Ae', Math.abs(a.yieldPointElongationPct! - t.yieldPointElongationPct!), 0.4, `${a.yieldPointElongationPct} vs ${t.yieldPointElongationPct}`);
-      }
-      // E: the measured modulus is always a metal's, and when few points make it uncertain the analysis says so.
-      if (a.elasticModulus < 40000 || a.elasticModulus > 450000) { fails.push(`${c.what}: E ${a.elasticModulus} used silently`); count.silentE = (count.silentE ?? 0) + 1; }
-      const [lo, hi] = a.measuredModulusInterval95;
-      const warned = a.warnings.some((w) => w.code === 'fewElasticPoints' || w.code === 'uncertainModulus' || w.code === 'elasticBandFallback');
-      if (!(lo <= t.elasticModulus && t.elasticModulus <= hi) && !warned && Math.abs(a.elasticModulus / t.elasticModulus - 1) > 0.05) { fails.push(`${c.what}: E ${a.elasticModulus} off by more than 5 % outside its interval, no warning`); count.quietE = (count.quietE ?? 0) + 1; }
-      if (t.upperYield !== null) drops++; else if (t.yieldDropRecorded !== false) continuous++;
-    }
-    console.log('worst error / tolerance:', JSON.stringify(worst), `${fails.length} failures`, JSON.stringify(count), `E refused (≤ 8 elastic samples, rerun with the modulus): ${refused}`, `Ag: 95 % interval covers the truth on ${agCovered}/${SEEDS.length}; warned uncertain ${agWarned}; off by > 0.4 point but warned and inside the interval ${agUncertainOk}`);
-    const list = fails.slice(0, 40).join('\n');
-    const n = SEEDS.length;
-    // Met on every seed: Rm within 0.4 %, A within 0.5 point, E never used outside 40–450 GPa nor refused
-    // with enough elastic samples.
-    for (const k of ['Rm', 'A', 'silentE', 'threw']) expect(count[k] ?? 0, `${k}\n${list}`).toBe(0);
-    // Ag's 95 % interval is calibrated: it covers the truth on at least 90 % of the seeds (binomial, 240 draws
-    // at p = 0.95: fewer than 216 covered has probability < 0.1 %), and the uncertain-Ag warning is not the norm.
-    expect(agCovered, list).toBeGreaterThanOrEqual(Math.ceil(0.9 * n));
-    // Measured: 125 of 240 seeds warned (mostly coarse records with noise above 0.5 % of Rm, where the top is
-    // flat within the noise over several points of strain); held as a ceiling so a regression fails.
-    expect(agWarned, list).toBeLessThanOrEqual(130);
-    // ReH and ReL, when reported for a real drop, are within 1.5 % on every seed.
-    for (const k of ['ReH', 'ReL']) expect(count[k] ?? 0, `${k}\n${list}`).toBe(0);
-    // NOT met on every seed (measured on this generator, held as ceilings at today's counts so a regression
-    // fails; see docs/records-and-fits.md): a false ReH on 1 continuous record, Rp0.2 within 1 % on 3 seeds,
-    // E off and unflagged on 2, Ae within 0.4 point on 3, and 11 recorded drops not found (mostly drops under
-    // 4 % or ≤ 12 elastic samples with noise ≥ 0.5 % of Rm; before this change: 3 false, 35 drop misses).
-    expect(count.falseYield ?? 0, `false ReH/ReL on ${continuous} continuous records\n${list}`).toBeLessThanOrEqual(1);
-    expect(count.quietE ?? 0, list).toBeLessThanOrEqual(2);
-    expect(refused, list).toBeLessThanOrEqual(6);
-    expect(count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(3);
-    // Ag off by more than 0.4 point with no honest uncertainty: was 41; now 3, the truth just outside a 95 %
-    // interval that is itself wider than ±0.4 point (the expected 5 % non-coverage; all 3 are warned).
-    expect(count.Ag ?? 0, list).toBeLessThanOrEqual(3);
-    expect(count.Ae ?? 0, list).toBeLessThanOrEqual(3);
-    expect(count.missedYield ?? 0, `${drops} records with a recorded drop\n${list}`).toBeLessThanOrEqual(11);
-  }, 120_000);
+    const r = tally(SEEDS);
+    const list = r.fails.join('\n');
+    console.log(`${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous; accepted (the record cannot support the tolerance, the analysis says so): ${JSON.stringify(r.accepted)}\n${list}`);
+    // Met on every seed.
+    for (const k of ['threw', 'Rm', 'A', 'falseYield', 'silentE', 'quietE', 'ReH', 'ReL', 'Ae', 'missedYield']) expect(r.count[k] ?? 0, `${k}\n${list}`).toBe(0);
+    // NOT met on every seed (measured, held as ceilings so a regression fails; see docs/records-and-fits.md):
+    // Rp0.2 off by 1.2–1.6 % on 2 coarse, noisy records with 4 and 7 elastic samples (seeds 57, 147; the local
+    // parabola through ~12 samples has a standard error near 0.6 %), and Ag off by more than 0.4 point with no
+    // 95 % interval holding the truth on 3 (seeds 113, 122, 187: coarse, noisy tops — the expected few percent of
+    // a 95 % interval's non-coverage, but not zero).
+    expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(2);
+    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(3);
+    // Ag is uncertain (warned, interval wider than ±0.4 point, holding the truth) on 107 of 240 records: coarse
+    // records whose top is flat within the noise over several points of strain. Held so that it cannot quietly
+    // become the rule.
+    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(110);
+    // The acceptances stay the exception, and each kind is exercised (so the conditions above can fail).
+    expect(r.accepted['E refused']?.length ?? 0).toBeLessThanOrEqual(6);
+    expect(r.accepted[`drop not reported (evidence < ${MIN_EVIDENCE})`]?.length ?? 0).toBeLessThanOrEqual(8);
+    expect(r.drops).toBeGreaterThanOrEqual(60);
+    expect(r.continuous).toBeGreaterThanOrEqual(150);
+  }, 180_000);
 });
 
 describe('an impossible E is never used silently', () => {
@@ -113,10 +136,42 @@ describe('an impossible E is never used silently', () => {
     expect(a.warnings.some((w) => w.code === 'modulusGiven')).toBe(true);
   });
   it('a record with few elastic points is analysed with a warning that names the points and the interval', () => {
-    const few = labCase(9); // 1500 points: about 8 in the elastic rise
+    const few = labCase(9);
     const r = synthesizeLabRecord({ ...few.spec, points: 600, rng: xoshiro128ss(9) });
     const a = analyzeRecord(r, { fit: false });
     const w = a.warnings.find((x) => x.code === 'fewElasticPoints' || x.code === 'elasticBandFallback' || x.code === 'uncertainModulus');
     expect(w?.message).toMatch(/points|interval/);
+  });
+});
+
+describe('the generator follows the issue and its own truth definitions', () => {
+  it('covers the issue: 1,000–100,000 points, noise 0.1–1 % of Rm, drops 3–10 %, Lüders 0.5–3 %, serrations up to 3 % at periods both sides of the sample spacing', () => {
+    let minN = Infinity, maxN = 0, bigSerr = 0, fast = 0, slow = 0, under = 0;
+    for (const seed of SEEDS) {
+      const { spec } = labCase(seed);
+      minN = Math.min(minN, spec.points); maxN = Math.max(maxN, spec.points);
+      const d = spec.yieldDrop;
+      if (!d) continue;
+      expect(d.drop).toBeGreaterThanOrEqual(0.03); expect(d.drop).toBeLessThanOrEqual(0.1);
+      expect(d.luedersStrain).toBeGreaterThanOrEqual(0.005); expect(d.luedersStrain).toBeLessThanOrEqual(0.03);
+      if ((d.serration ?? 0) >= 0.02) bigSerr++;
+      const r = synthesizeLabRecord({ ...spec, noise: 0, rng: xoshiro128ss(seed) });
+      const spacing = r.strain[1]! - r.strain[0]!;
+      if (d.serrationPeriod! < spacing) fast++; else slow++;
+      if ((d.undershoot ?? 0) > 0) under++;
+    }
+    expect(minN).toBeLessThan(1300); expect(maxN).toBeGreaterThan(70000);
+    expect(bigSerr).toBeGreaterThan(5); expect(fast).toBeGreaterThan(5); expect(slow).toBeGreaterThan(5); expect(under).toBeGreaterThan(5);
+  });
+  it('ReL ignores the undershoot of the first trough (the initial transient) and Rp0.2 is the first crossing of the offset line', () => {
+    // Flat plateau, undershoot 2 %: the lowest stress during yielding after the transient is ReL itself.
+    const law = { law: 'voce' as const, sigma0: 250, Q: 200, b: 12 };
+    const r = synthesizeLabRecord({ law, elasticModulus: 205000, points: 20000, rng: xoshiro128ss(1), yieldDrop: { drop: 0.06, luedersStrain: 0.015, undershoot: 0.02 } });
+    const sigL = 250 + 200 * (1 - Math.exp(-12 * 0.015));
+    const eL = Math.expm1(0.015 + sigL / 205000);
+    // Voce σ(εL) at εL = 0.015, engineering ReL = σ/(1 + eL) (Dowling §4.5); 1e-9 relative: the generator's own arithmetic.
+    expectRelClose(r.truth.lowerYield!, sigL / (1 + eL), 1e-9);
+    // On a flat plateau the offset line first meets the curve at the plateau level.
+    expect(Math.abs(r.truth.proofStrength - sigL / (1 + eL))).toBeLessThan(1e-6 * sigL);
   });
 });
