@@ -80,12 +80,13 @@ function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
 //   autocorrelation, as the law fits do); a long seating toe reaches into 10–40 % of Rp0.2 (the linear part is
 //   the steepest straight stretch of the rise).
 // - Rp0.2: misses follow the E misses and sharp knees (Hockett–Sherby with p < 1).
-// Misses measured on main at 19:55 UTC 2026-12-02, held as CEILINGS so that a regression fails; the aim is 0
-// everywhere (issue 12). Noise-free, the Ag misses are a bias of the two-half-parabola top model on a top that
-// is smooth to its second derivative (every seed, +0.3 to +1 point); the ReL misses are the undershoot
-// transient after the drop taken as ReL (ISO 6892-1 ignores it) and random serrations.
-const CEILINGS_NOISY: Record<string, number> = { Ag: 73, ReH: 10, Ae: 4, missedYield: 6, 'Rp0.2': 19, ReL: 13, quietE: 4 };
-const CEILINGS_CLEAN: Record<string, number> = { Ag: 200, Ae: 11, ReL: 34, ReH: 9, missedYield: 5 };
+// Misses held as CEILINGS so that a regression fails; the aim is 0 everywhere (issue 12). When this test was
+// written (main, 19:55 UTC 2026-12-02): noisy Ag 73, Rp0.2 19, ReL 13, ReH 10, missed drops 6, Ae 4, E off
+// unwarned 4; noise-free Ag 200, ReL 34, Ae 11, ReH 9, missed drops 5. After the estimator work (21:05 UTC), the
+// counts below: NOT zero. The noisy misses are mostly correlated load noise (ρ 0.4–0.65), which the white-noise
+// estimate of the record reads low; see docs/records-and-fits.md.
+const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 4, missedYield: 6, ReH: 3, 'Rp0.2': 8, quietE: 2 };
+const CEILINGS_CLEAN: Record<string, number> = { missedYield: 2, ReH: 3 };
 
 function holdCeilings(r: HoldoutTally, ceilings: Record<string, number>): void {
   const list = r.fails.slice(0, 40).join('\n');
