@@ -107,8 +107,13 @@ export function yieldPoint(
   }
   if (d < 1) return null;
   // Maximum force after the departure (ISO 6892-1: Fm after work hardening begins) bounds the plateau.
-  let top = d;
-  for (let i = d + 1; i <= maxIndex; i++) if (stress[i]! > stress[top]!) top = i;
+  // The search starts where the fall after the departure ends (the first sample that does not fall further
+  // by more than the noise): a departure sample still high on the fall may stand above Rm itself when ReH ≥ Rm
+  // (low-hardening steels), which would leave no plateau to read.
+  let r = d;
+  while (r < maxIndex && stress[r + 1]! < stress[r]! + noise) r++;
+  let top = r;
+  for (let i = r + 1; i <= maxIndex; i++) if (stress[i]! > stress[top]!) top = i;
   maxIndex = top;
   // The peak: the highest sample from the elastic band to the departure (still on the elastic line).
   let q = Math.max(fromIndex, d - 1);
