@@ -88,7 +88,14 @@ export function yieldPoint(
   const depart = (start: number) => {
     for (let i = Math.max(1, start); i < maxIndex - 1; i++) {
       const tol = (k: number) => Math.max(Y.departSigmas * noise * Math.sqrt(1 + 4 / Math.max(2, k - lineFrom)), 0.005 * lineAt(k));
-      if (stress[i]! < lineAt(i) - tol(i) && stress[i + 1]! < lineAt(i + 1) - tol(i + 1)) return i;
+      if (stress[i]! < lineAt(i) - tol(i) && stress[i + 1]! < lineAt(i + 1) - tol(i + 1)) {
+        // A departure lasts: past a real one the line rises away from the samples for good. Correlated load
+        // noise (which the white-noise estimate reads low) can put two samples below the line in mid-rise; when
+        // a sample of the next ten comes back to the line, it was such an excursion.
+        let back = false;
+        for (let j = i + 2; j <= Math.min(i + 11, maxIndex - 1) && !back; j++) back = stress[j]! >= lineAt(j) - 0.5 * tol(j);
+        if (!back) return i;
+      }
     }
     return -1;
   };
