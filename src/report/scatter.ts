@@ -1,5 +1,6 @@
 import { TARGET_DEFS } from '../core/route/targets.js';
 import { targetLabel } from './labels.js';
+import { formatTargetValue } from './numbers.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { ScatterProblem } from '../core/scatter/problem.js';
 import type { Distribution, ScatterSummary } from '../core/scatter/summarize.js';
@@ -130,7 +131,7 @@ export function scatterView(s: ReportScatter, stress: string): ScatterView {
     { title: 'Inputs that scatter', header: ['input', 'mean', 'sd', 'cv', 'unit'], numeric: [false, true, true, true, false],
       rows: s.inputs.map((i) => [i.name, String(+i.mean.toPrecision(6)), String(+i.sd.toPrecision(3)), i.cv.toFixed(3), i.unit === '1' ? '—' : i.unit]) },
     { title: 'Probability of meeting each target', header: ['target', 'limit', 'probability met'], numeric: [false, true, true],
-      rows: s.targets.map((t) => [targetLabel(t.name), f(t.limit, 2), pct(t.probabilityMet)]) },
+      rows: s.targets.map((t) => [targetLabel(t.name), t.name === 'temper' ? f(t.limit, 2) : formatTargetValue(t.limit, t.name, stress), pct(t.probabilityMet)]) },
     { title: 'Final state across the samples (first-order estimate beside)', header: ['quantity', 'unit', 'mean', 'sd', '5 %', '50 %', '95 %', 'first-order mean', 'first-order sd'],
       numeric: [false, false, true, true, true, true, true, true, true],
       rows: [
