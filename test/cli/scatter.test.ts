@@ -59,7 +59,7 @@ describe('strainledger run PLAN with a scatter section', () => {
     const section = md.slice(md.indexOf('## Scatter'), md.indexOf('## Cautions'));
     expect(section).toContain(`Probability that all targets are met: ${pct(s.probabilityAllTargetsMet)}`);
     expect(section).toContain(`: ${s.toleranceBound.value.toFixed(1)} MPa`);
-    expect(section).toContain(`| minimum reload yield (Rp0.2) | 330.00 | ${pct(s.targets[0].probabilityMet)} |`);
+    expect(section).toContain(`| minimum reload yield (Rp0.2) | 330.0 MPa | ${pct(s.targets[0].probabilityMet)} |`);
     expect(section).toContain(`| Rp0.2 | MPa | ${s.finalReloadYield.mean.toFixed(1)} | ${s.finalReloadYield.sd.toFixed(1)} | ${s.finalReloadYield.p05.toFixed(1)} |`);
     expect(section).toContain('**Caution:** A lower bound is not a guaranteed minimum');
     expect(md).not.toContain('```json'); // no raw JSON dump
