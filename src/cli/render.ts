@@ -1,12 +1,8 @@
 import type { ReportV1 } from '../report/build.js';
 import type { Problem } from '../plan/problems.js';
 
-/** Report formats of `run`. */
-export const FORMATS = ['table', 'json', 'csv', 'md', 'html', 'junit'] as const;
-export type Format = (typeof FORMATS)[number];
-
-/** File extension of each format when written with `--out`. */
-export const EXTENSION: Record<Format, string> = { table: 'txt', json: 'json', csv: 'csv', md: 'md', html: 'html', junit: 'junit.xml' };
+import type { Format } from './formats.js';
+export { EXTENSION, FORMATS, type Format } from './formats.js';
 
 /**
  * Renders one report. Writers are loaded only when asked for: the HTML writer pulls in Plot and

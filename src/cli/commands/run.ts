@@ -2,7 +2,7 @@ import { PlanError } from '../../plan/problems.js';
 import { defineCommand } from '../command.js';
 import type { Outcome } from '../batch.js';
 import { useColor } from '../color.js';
-import { EXTENSION, FORMATS, type Format } from '../render.js';
+import { EXTENSION, FORMATS, type Format } from '../formats.js';
 
 const cliError = (path: string, message: string) => new PlanError([{ file: '(command line)', path, message }]);
 
