@@ -103,7 +103,19 @@ export function plateauProofStrength(strain: ArrayLike<number>, stress: ArrayLik
   let v = 0;
   for (let i = from; i < to; i++) v += (stress[i]! - ma[i - from]!) ** 2;
   v /= m;
-  const excess = v - noise * noise * (1 - 1 / w);
+  // The noise's share of that scatter, measured where there are no serrations: the same moving average on the
+  // hardening branch right after the plateau (as long as the plateau, at least 3 windows). Load noise that is
+  // correlated from sample to sample (a filter in the machine) scatters about a moving average more than the
+  // white-noise estimate σ̂ says; without this its excess would be taken for serrations.
+  let share = noise * noise * (1 - 1 / w);
+  const nh = Math.min(m, stress.length - to);
+  if (nh >= Math.max(10, 3 * w)) {
+    const mh = movingAverage(stress, to, to + nh, w);
+    let vh = 0;
+    for (let i = 0; i < nh; i++) vh += (stress[to + i]! - mh[i]!) ** 2;
+    share = Math.max(share, vh / nh);
+  }
+  const excess = v - share;
   const half = excess > Math.max(2 * Math.sqrt(2 / m), 0.25) * noise * noise ? Math.sqrt(3 * excess) : 0;
   const c = ma[at - from]!, se = noise / Math.sqrt(w);
   return { stress: c - half, range: [c - half - 3 * se, c + half + 3 * se] };
