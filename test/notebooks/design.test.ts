@@ -54,17 +54,32 @@ describe('route designer', () => {
     await settled(page, 'design');
     // Catch the state right after the move: the previous routes, marked as updating (the search of
     // 8 % on the fencing-wire demo takes tens of ms in the worker).
+    // Every state the page shows from the move on is recorded (a MutationObserver, so a worker that answers
+    // within the first frame on a fast machine cannot hide the 'updating' state): the first one must be
+    // 'updating' with its note, shown before the next frame.
     const during = await page.evaluate(() => {
+      const seen: { state: string | null; note: string; t: number }[] = [];
+      const look = () => seen.push({ state: document.getElementById('routes')?.getAttribute('data-resolution') ?? null, note: document.getElementById('cell-summary')?.textContent ?? '', t: performance.now() });
+      const mo = new MutationObserver(look);
+      mo.observe(document.body, { subtree: true, childList: true, attributes: true, attributeFilter: ['data-resolution'] });
+      (window as unknown as { __designStates: typeof seen; __designObserver: MutationObserver }).__designStates = seen;
+      (window as unknown as { __designObserver: MutationObserver }).__designObserver = mo;
       const r = document.getElementById('pass-range') as HTMLInputElement;
+      const t0 = performance.now();
       r.value = '8';
       r.dispatchEvent(new Event('input', { bubbles: true }));
-      return new Promise<{ state: string | null; note: string }>((res) => requestAnimationFrame(() => res({
-        state: document.getElementById('routes')?.getAttribute('data-resolution') ?? null,
-        note: document.getElementById('cell-summary')?.textContent ?? '' })));
+      return new Promise<{ t0: number; frame: number }>((res) => requestAnimationFrame((frame) => res({ t0, frame })));
     });
-    expect(during.state).toBe('updating');
-    expect(during.note).toContain('Updating: these routes are for the previous slider values');
     await settled(page, 'design');
+    const states = await page.evaluate(() => {
+      const w = window as unknown as { __designStates: { state: string | null; note: string; t: number }[]; __designObserver: MutationObserver };
+      w.__designObserver.disconnect();
+      return w.__designStates.filter((x, i, a) => i === 0 || x.state !== a[i - 1]!.state);
+    });
+    const first = states.find((x) => x.state !== null);
+    expect(first?.state, JSON.stringify(states)).toBe('updating');
+    expect(first!.note).toContain('Updating: these routes are for the previous slider values');
+    expect(first!.t).toBeLessThanOrEqual(during.frame + 1);
     expect(await page.getAttribute('#routes', 'data-resolution')).toBe('full');
     expect(await page.locator('#cell-summary').innerText()).not.toContain('Updating');
     // Reference: the core's search in Node on the same file and values (the runner's function).
