@@ -1,6 +1,6 @@
 import { InputError } from '../errors.js';
 import { makeLaw } from '../flow/makeLaw.js';
-import { LAW_NAMES } from '../flow/params.js';
+import { LAW_NAMES, LAW_TITLES } from '../flow/params.js';
 import type { LawName, LawSpec } from '../flow/types.js';
 import { fitLaw } from './fitLaw.js';
 import { lawData, type LawData } from './lawNormalEquations.js';
@@ -142,7 +142,7 @@ export function compareLawFits(byLaw: ReadonlyMap<LawName, LawFit>, stress: Arra
       warnings.push({
         code: 'lawsDisagree',
         message: `at true plastic strain ${c.strain.toPrecision(3)} (${c.note}) laws that fit the test equally well differ by ${spread.toFixed(1)} % (> ${limit} %): ` +
-          `${hiLaw.law} ${stressAt[hiLaw.law]!.toFixed(0)} MPa, ${loLaw.law} ${stressAt[loLaw.law]!.toFixed(0)} MPa; choosing a law there is an engineering decision — test the formed material`,
+          `${LAW_TITLES[hiLaw.law]} ${stressAt[hiLaw.law]!.toFixed(0)} MPa, ${LAW_TITLES[loLaw.law]} ${stressAt[loLaw.law]!.toFixed(0)} MPa; choosing a law there is an engineering decision — test the formed material`,
       });
     }
   }

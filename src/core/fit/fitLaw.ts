@@ -1,6 +1,6 @@
 import { InputError } from '../errors.js';
 import { makeLaw } from '../flow/makeLaw.js';
-import { LAW_PARAMETERS } from '../flow/params.js';
+import { LAW_PARAMETERS, LAW_TITLES } from '../flow/params.js';
 import type { LawName, LawSpec } from '../flow/types.js';
 import { blockAverage, reductionBlockSize } from './blockAverage.js';
 import { effectivePoints } from './effectivePoints.js';
@@ -135,7 +135,7 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   const independent = parameterErrors(res.JtJ, k, ssr, n, res.atBound, res.params, n);
   const honest = parameterErrors(res.JtJ, k, ssr, n, res.atBound, res.params, eff.effectiveN);
   const warnings: FitWarning[] = [];
-  if (!res.converged) warnings.push({ code: 'notConverged', message: `${law}: the fit did not converge in ${res.iterations} iterations (${res.reason})` });
+  if (!res.converged) warnings.push({ code: 'notConverged', message: `${LAW_TITLES[law]}: the fit did not converge in ${res.iterations} iterations (${res.reason})` });
   const params: Record<string, number> = {};
   const standardErrors: Record<string, number | null> = {};
   const standardErrorsIndependent: Record<string, number | null> = {};
@@ -145,9 +145,9 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
     standardErrors[p.name] = honest.standardErrors[j]!;
     standardErrorsIndependent[p.name] = independent.standardErrors[j]!;
     intervals95[p.name] = honest.intervals95[j]!;
-    if (res.atBound[j]) warnings.push({ code: 'atBound', message: `${law}: ${p.name} ended on its bound (${res.params[j]}); its standard error is not given` });
+    if (res.atBound[j]) warnings.push({ code: 'atBound', message: `${LAW_TITLES[law]}: ${p.symbol} ended on its bound (${res.params[j]}); its standard error is not given` });
   });
-  if (honest.singular) warnings.push({ code: 'notIdentifiable', message: `${law}: the data do not determine all ${k} parameters (singular information matrix); standard errors are not given` });
+  if (honest.singular) warnings.push({ code: 'notIdentifiable', message: `${LAW_TITLES[law]}: the data do not determine all ${k} parameters (singular information matrix); standard errors are not given` });
   const fit: LawFit = {
     law, params, standardErrors, intervals95,
     rmse: Math.sqrt(ssr / n), r2: pass.sst > 0 ? 1 - ssr / pass.sst : ssr === 0 ? 1 : 0,
