@@ -139,9 +139,11 @@ export type * from './tensile/types.js';
 // Law fitting and statistics (issue 3)
 export { levenbergMarquardt, levenbergMarquardtNormal, LM_DEFAULTS } from './fit/levenbergMarquardt.js';
 export type { Model, LmOptions, LmResult, NormalProblem, NormalLmResult } from './fit/levenbergMarquardt.js';
-export { lawData, lawNormalProblem, lawResidualPass } from './fit/lawNormalEquations.js';
+export { lawData, lawNormalProblem, lawResidualPass, lawResidualStats } from './fit/lawNormalEquations.js';
 export type { LawData } from './fit/lawNormalEquations.js';
 export { blockAverage, reductionBlockSize, REDUCTION_DEFAULTS } from './fit/blockAverage.js';
+export { blockMoments, MOMENT_STRIDE, type BlockMoments } from './fit/blockMoments.js';
+export { curveResidualStats, momentResidualStats, type CurveResidualStats, type MomentResidualStats } from './fit/momentResidualStats.js';
 export type { BlockAverages } from './fit/blockAverage.js';
 export { effectivePoints } from './fit/effectivePoints.js';
 export type { EffectivePoints } from './fit/effectivePoints.js';

@@ -4,6 +4,15 @@ export const REDUCTION_DEFAULTS = {
   fitAllUpTo: 4000,
   /** Larger curves are fitted on about this many block averages. */
   blocks: 2000,
+  /**
+   * Curves of at least this many points (unweighted) take RMSE, R², AIC, BIC and the lag-1
+   * autocorrelation from block moments (curveResidualStats) instead of one law value per point.
+   */
+  momentStatsFrom: 20_000,
+  /** Points per block of those moments. */
+  momentBlock: 128,
+  /** Blocks whose local quadratic may be off by more than this fraction of the RMSE are summed point by point. */
+  momentRelTol: 1e-8,
 } as const;
 
 /** A curve reduced to averages of consecutive blocks of points. */

@@ -7,6 +7,7 @@ import { effectivePoints } from './effectivePoints.js';
 import { parameterErrors } from './fitStatistics.js';
 import { lawJacobian } from './lawJacobian.js';
 import { lawData, lawNormalProblem, lawResidualStats, lawResiduals, type LawData } from './lawNormalEquations.js';
+import { curveResidualStats } from './momentResidualStats.js';
 import { levenbergMarquardtNormal } from './levenbergMarquardt.js';
 import { startValues } from './startValues.js';
 import type { FitWarning, LawFit } from './types.js';
@@ -18,6 +19,11 @@ export interface FitLawOptions {
   maxIterations?: number;
   /** The same strain and stress already packed by {@link lawData} (fitAllLaws packs a curve once for all laws). */
   packed?: LawData;
+  /**
+   * Sum the full-curve statistics point by point whatever the curve's size (default false: curves of
+   * REDUCTION_DEFAULTS.momentStatsFrom points or more use block moments, see curveResidualStats).
+   */
+  fullPassStats?: boolean;
 }
 
 /** At most this many points are used to choose the start (evenly spaced); the fit itself uses all. */
@@ -79,7 +85,9 @@ export function lawModelFast(law: LawName, strain: ArrayLike<number>): (p: Float
  * derivatives ({@link lawNormalProblem}). Curves of more than REDUCTION_DEFAULTS.fitAllUpTo points
  * are fitted on block averages of consecutive points ({@link blockAverage}, about
  * REDUCTION_DEFAULTS.blocks of them, weighted by their counts); RMSE, R², AIC, BIC and the
- * residuals are always those of the FULL curve.
+ * residuals are always those of the FULL curve: on curves of REDUCTION_DEFAULTS.momentStatsFrom points
+ * or more its SSR and lag-1 sum come from block moments ({@link curveResidualStats}), within about
+ * 2·REDUCTION_DEFAULTS.momentRelTol of SSR of the point-by-point sums (`fullPassStats` forces those).
  * Intervals: the residuals of closely spaced points are not independent, so the standard errors are
  * widened by sqrt(n/n_eff) with n_eff from the residuals' lag-1 autocorrelation
  * ({@link effectivePoints}) and the t quantile uses n_eff − k degrees of freedom
@@ -126,7 +134,7 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   }
   const res = levenbergMarquardtNormal(lawNormalProblem(law, fitted, lower, upper), start, {
     lower, upper, ...(opts.maxIterations !== undefined ? { maxIterations: opts.maxIterations } : {}) });
-  const pass = lawResidualStats(law, full, res.params);
+  const pass = opts.fullPassStats ? lawResidualStats(law, full, res.params) : curveResidualStats(law, full, res.params);
   const ssr = pass.ssr;
   const ssrN = Math.max(ssr / n, 1e-300);
   const eff = effectivePoints(n, ssr, pass.lag1);

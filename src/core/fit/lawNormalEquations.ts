@@ -1,4 +1,5 @@
 import type { LawName } from '../flow/types.js';
+import type { BlockMoments } from './blockMoments.js';
 import type { NormalProblem } from './levenbergMarquardt.js';
 
 /**
@@ -68,6 +69,10 @@ export interface LawData {
   blocks?: { size: number; data: LawData };
   /** Scratch column for model values, reused by every law fitted to these data (see lawResidualStats). */
   scratch?: Float64Array;
+  /** Block moments of these data for the full-curve statistics, made once (see curveResidualStats). */
+  moments?: BlockMoments;
+  /** Σ(yᵢ − ȳ)², made once (see curveResidualStats). */
+  sst?: number;
 }
 
 /** Packs strain/stress (and weights) for {@link lawNormalProblem}; ln x is computed once here. */
@@ -318,8 +323,12 @@ export function lawResiduals(law: LawName, d: LawData, p: Float64Array): number[
   return residuals;
 }
 
-/** σ(xᵢ; p) of `law` into `out` (formulas of POINT, value only). `lx` is ln x. */
-function lawValues(law: LawName, x: Float64Array, lx: Float64Array, p: Float64Array, out: Float64Array): void {
+/**
+ * σ(xᵢ; p) of `law` into `out` (formulas of POINT, value only; NaN outside the law's domain). `lx` is
+ * ln x. Units: strain true plastic, stress MPa. Formulas and sources: the law files in core/flow.
+ * @example lawValues('hollomon', Float64Array.of(0.1), Float64Array.of(Math.log(0.1)), Float64Array.of(530, 0.44), out) // out[0] ≈ 192.6
+ */
+export function lawValues(law: LawName, x: Float64Array, lx: Float64Array, p: Float64Array, out: Float64Array): void {
   const n = x.length;
   switch (law) {
     case 'hollomon': {
