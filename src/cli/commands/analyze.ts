@@ -4,6 +4,7 @@ import type { LawFit } from '../../core/fit/types.js';
 import type { LawComparison } from '../../core/fit/fitAllLaws.js';
 import type { TensileAnalysis } from '../../core/tensile/types.js';
 import type { AnalyzeOptions } from '../../core/tensile/analyzeRecord.js';
+import type { PieceHelper } from '../../records/node.js';
 import { statSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { PlanError } from '../../plan/problems.js';
@@ -229,17 +230,17 @@ export const analyze = defineCommand({
     const wanted = threads !== undefined ? threads === 2 : availableParallelism() >= 2 && recordBytes >= 4 * 1024 * 1024;
     const helper = wanted ? (await import('../fitThreads.js')).startFitHelper(60_000, threads === 2) : null;
     try {
-      return await analyzeWith(helper?.fitLaws);
+      return await analyzeWith(helper?.fitLaws, helper?.pieces);
     } finally {
       await helper?.close();
     }
 
-    async function analyzeWith(fitLaws: AnalyzeOptions['fitLaws'] | undefined): Promise<number> {
+    async function analyzeWith(fitLaws: AnalyzeOptions['fitLaws'] | undefined, pieces: PieceHelper | undefined): Promise<number> {
     const [{ readRecordFile }, { analyzeRecord }, { analyzeSpecimens }, { withRecordLocation }] = await Promise.all([
       import('../../records/node.js'), import('../../core/tensile/analyzeRecord.js'), import('../../core/tensile/analyzeSpecimens.js'), import('../recordErrors.js'),
     ]);
     const records: TensileRecord[] = [];
-    for (const f of positionals) records.push(await readRecordFile(f, { ...ropts, file: f }));
+    for (const f of positionals) records.push(await readRecordFile(f, { ...ropts, file: f }, pieces));
     const aopts = {
       ...(fitLaws ? { fitLaws } : {}),
       ...(offset !== undefined ? { proofOffsetPct: offset } : {}),

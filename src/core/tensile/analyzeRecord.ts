@@ -109,7 +109,12 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
 
   const offPct = opts.proofOffsetPct ?? ANALYZE_DEFAULTS.proofOffsetPct;
   if (!(offPct > 0 && offPct <= 5)) throw new InputError('proofOffsetPct', offPct, 'a number in (0, 5] %');
-  const rp = (pct: number) => proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise);
+  // Each offset's proof strength once (it was computed twice per listed offset and again for the asked one).
+  const rpMemo = new Map<number, ReturnType<typeof proofStrength>>();
+  const rp = (pct: number) => {
+    if (!rpMemo.has(pct)) rpMemo.set(pct, proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise));
+    return rpMemo.get(pct)!;
+  };
   let proof = rp(offPct);
   if (!proof) warnings.push({ code: 'noProofPoint', message: `the curve never meets the ${offPct} % offset line; no proof strength` });
   const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null, index: rp(p)?.index ?? -1 }));
