@@ -25,7 +25,7 @@ export function blockMoments(x: Float64Array, y: Float64Array, size: number): Bl
   const nodes = new Float64Array(count * NODES), lnNodes = new Float64Array(count * NODES);
   for (let b = 0; b < count; b++) blockInto(x, y, b * B, Math.min(n, b * B + B), data, b * MOMENT_STRIDE, nodes, b * NODES);
   for (let i = 0; i < nodes.length; i++) lnNodes[i] = Math.log(nodes[i]!);
-  return { size: B, count, points: n, data, nodes, lnNodes };
+  return { size: B, count, points: n, data, nodes, lnNodes, sst: totalSquares(data, count, n) };
 }
 
 /** Values kept per block by {@link blockMoments}. */
@@ -44,6 +44,21 @@ export interface BlockMoments {
   /** NODES strains per block where the laws are evaluated, and their natural logs. */
   nodes: Float64Array;
   lnNodes: Float64Array;
+  /** Σ(yᵢ − ȳ)² of the whole curve from the blocks: Σ_b [Σe² + n_b(ȳ_b − ȳ)²] (the within/between split; exact algebra). */
+  sst: number;
+}
+
+/** SST from the blocks' counts, means and Σe² (saves a pass over the curve; equal to the direct sum up to rounding). */
+function totalSquares(data: Float64Array, count: number, n: number): number {
+  let sy = 0;
+  for (let b = 0; b < count; b++) sy += data[b * MOMENT_STRIDE]! * data[b * MOMENT_STRIDE + 3]!;
+  const ym = sy / n;
+  let sst = 0;
+  for (let b = 0; b < count; b++) {
+    const o = b * MOMENT_STRIDE, d = data[o + 3]! - ym;
+    sst += data[o + 9]! + data[o]! * d * d;
+  }
+  return sst;
 }
 
 /** One block's moments into data[o…o + MOMENT_STRIDE). In a function of its own so the engine optimises the loop at once. */

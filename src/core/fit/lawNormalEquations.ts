@@ -71,8 +71,6 @@ export interface LawData {
   scratch?: Float64Array;
   /** Block moments of these data for the full-curve statistics, made once (see curveResidualStats). */
   moments?: BlockMoments;
-  /** Σ(yᵢ − ȳ)², made once (see curveResidualStats). */
-  sst?: number;
 }
 
 /** Packs strain/stress (and weights) for {@link lawNormalProblem}; ln x is computed once here. */

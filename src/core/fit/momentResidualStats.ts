@@ -32,7 +32,7 @@ export interface MomentResidualStats {
  * fit was made on). Curves of at least REDUCTION_DEFAULTS.momentStatsFrom points without weights use
  * {@link momentResidualStats} (block moments, five law values per block; agrees with the point-by-point
  * sums to about REDUCTION_DEFAULTS.momentRelTol of SSR); shorter curves use the exact pass
- * {@link lawResidualStats}, unchanged. SST is law-independent and made once per curve.
+ * {@link lawResidualStats}, unchanged. SST is law-independent and comes with the moments (once per curve).
  * Units MPa². Valid: d packed by lawData with finite, positive x and y.
  * @example curveResidualStats('voce', lawData(x, y), Float64Array.of(300, 200, 12)).ssr
  */
@@ -41,21 +41,7 @@ export function curveResidualStats(law: LawName, d: LawData, p: Float64Array): C
   if (n < REDUCTION_DEFAULTS.momentStatsFrom || d.w) return lawResidualStats(law, d, p);
   const mom = (d.moments ??= blockMoments(d.x, d.y, REDUCTION_DEFAULTS.momentBlock));
   const r = momentResidualStats(law, d, p, mom);
-  return { ssr: r.ssr, sst: (d.sst ??= totalSquares(d.y)), lag1: r.lag1, ok: r.ok };
-}
-
-/** Σ(yᵢ − ȳ)² with ȳ = Σyᵢ/n, both in index order: the same operations as lawResidualStats, so the same SST bit for bit. */
-function totalSquares(y: Float64Array): number {
-  const n = y.length;
-  let my = 0;
-  for (let i = 0; i < n; i++) my += y[i]!;
-  my /= n;
-  let sst = 0;
-  for (let i = 0; i < n; i++) {
-    const dy = y[i]! - my;
-    sst += dy * dy;
-  }
-  return sst;
+  return { ssr: r.ssr, sst: mom.sst, lag1: r.lag1, ok: r.ok };
 }
 
 /**
