@@ -125,6 +125,8 @@ export function scanBytes(path: string, layout: Layout, opts: RecordOptions, chu
 
 /** Files of at least this many bytes are scanned in pieces when readRecordFile is given a helper thread. */
 export const PIECES_FROM = 4 * 1024 * 1024;
+/** ... and at most this many: the pieces need the whole file in memory (larger files stream in bounded memory). */
+export const PIECES_UP_TO = 256 * 1024 * 1024;
 /** Bytes per piece (whole lines): small enough that the two threads finish close together. */
 export const PIECE_BYTES = 1 << 20;
 
@@ -134,7 +136,7 @@ export interface PieceHelper {
   post(job: PieceJob): void;
   /** Waits until ctl[1 + k] is 3 or `until` (Date.now() ms) passes; then the answers posted so far. */
   collect(job: PieceJob, k: number, until: number): PieceAnswer[];
-  /** For tests: other than PIECES_FROM, PIECE_BYTES and the minute scanPieces waits for an answer. */
+  /** For tests: other than PIECES_FROM, PIECE_BYTES and the 10 s scanPieces waits for an answer. */
   piecesFrom?: number;
   pieceBytes?: number;
   waitMs?: number;
@@ -145,10 +147,10 @@ let jobs = 0;
 /**
  * The two-thread form of {@link scanBytes}: reads the whole file into shared memory, cuts it after
  * the head into pieces of about PIECE_BYTES at line ends, and scans them on this thread and on the
- * `helper` at once (each takes the next free piece; pieces the helper has not answered within a
- * minute are scanned here again). The pieces' rows are appended in file order with their lines
+ * `helper` at once (each takes the next free piece; pieces the helper has not answered within
+ * 10 s are scanned here again). The pieces' rows are appended in file order with their lines
  * counted on, so the builder holds what {@link scanBytes} would put in it (the same numbers: the same
- * scanner reads every line). Returns undefined for files under PIECES_FROM bytes (not read this way),
+ * scanner reads every line). Returns undefined for files under PIECES_FROM or over PIECES_UP_TO bytes (not read this way),
  * null on any doubt (the text readers take the record, as after scanBytes).
  */
 export function scanPieces(path: string, layout: Layout, opts: RecordOptions, helper: PieceHelper): RecordBuilder | null | undefined {
@@ -157,7 +159,7 @@ export function scanPieces(path: string, layout: Layout, opts: RecordOptions, he
   let size: number;
   try {
     size = fstatSync(fd).size;
-    if (size < (helper.piecesFrom ?? PIECES_FROM)) return undefined;
+    if (size < (helper.piecesFrom ?? PIECES_FROM) || size > PIECES_UP_TO) return undefined;
     bytes = new Uint8Array(new SharedArrayBuffer(size + 1));
     let got = 0;
     while (got < size) {
@@ -198,7 +200,7 @@ export function scanPieces(path: string, layout: Layout, opts: RecordOptions, he
     rows[k] = scanPiece(bytes, bounds[k]!, pieceEnd(job, k), cells, k === 0 ? cells.dataLine : 1);
   }
   // The helper's pieces: wait for each (a clock is fine here: this is the Node reader, not the core).
-  const until = Date.now() + (helper.waitMs ?? 60_000);
+  const until = Date.now() + (helper.waitMs ?? 10_000);
   for (let k = 0; k < K; k++) {
     if (rows[k]) continue;
     for (const a of helper.collect(job, k, until)) if (a.id === job.id) rows[a.k] = a;
