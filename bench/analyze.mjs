@@ -7,7 +7,7 @@
 //        (also with --threads 1 and --threads 2: the default takes two only when a core is free);
 //     b. in-process, start-up excluded: numpy.loadtxt alone (perf_counter) against our analysis called
 //        as a library on the file (readRecordFile + analyzeRecord, modules loaded first), one thread
-//        and with the runner's helper thread (reading pieces and fitting laws); median of 5 after one warm-up.
+//        and with the runner's fit helper thread; median of 5 after one warm-up.
 //     Aims: ≤ 2× numpy's read, peak < 300 MB.
 //  2. the same command on a 100,000-point record beside the SciPy six-law script (bench/fit_scipy.py:
 //     bounded curve_fit, method trf, the same bounds and start values) fitting that record's flow
@@ -98,7 +98,7 @@ const helper = process.argv[3] === 'two' ? startFitHelper(60_000, true) : null;
 const ts = [];
 for (let k = 0; k < 6; k++) {
   const t0 = performance.now();
-  const a = analyzeRecord(await readRecordFile(process.argv[2], {}, helper?.pieces), helper ? { fitLaws: helper.fitLaws } : {});
+  const a = analyzeRecord(await readRecordFile(process.argv[2]), helper ? { fitLaws: helper.fitLaws } : {});
   ts.push((performance.now() - t0) / 1000);
   if (!a.fits) throw new Error('no fits');
 }

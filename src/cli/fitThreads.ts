@@ -5,8 +5,6 @@ import type { LawData } from '../core/fit/lawNormalEquations.js';
 import type { LawFit } from '../core/fit/types.js';
 import { LAW_NAMES, LAW_PARAMETERS } from '../core/flow/params.js';
 import type { LawName } from '../core/flow/types.js';
-import type { PieceHelper } from '../records/node.js';
-import { scanJobPieces, type PieceAnswer, type PieceJob } from '../records/scan.js';
 
 const ROLE = 'strainledger-fit-helper';
 
@@ -30,14 +28,7 @@ type Answer = { fits: FitData[] } | { error: string };
 // then fits the laws of each job and answers on its port, raising the `done` flag the main thread
 // waits on with Atomics.wait.
 if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE) {
-  const { port, ctl, scanPort } = workerData as { role: string; port: MessagePort; ctl: Int32Array; scanPort: MessagePort };
-  // Pieces of a record to read (records/node.ts scanPieces): take pieces until none is left; any
-  // failure leaves the piece unanswered, and the main thread reads it itself.
-  scanPort.on('message', (job: PieceJob) => {
-    try {
-      scanJobPieces(job, (a) => scanPort.postMessage(a, [a.xs.buffer as ArrayBuffer, a.ys.buffer as ArrayBuffer]));
-    } catch { /* the main thread scans what is not answered */ }
-  });
+  const { port, ctl } = workerData as { role: string; port: MessagePort; ctl: Int32Array };
   // ctl[1] counts the answers posted for the current job: 1 after the early law, 2 after the rest.
   const answer = (a: Answer) => { port.postMessage(a); Atomics.add(ctl, 1, 1); Atomics.notify(ctl, 1); };
   port.on('message', (job: Job) => {
@@ -76,8 +67,6 @@ function rebuiltFit(d: FitData, packed: LawData): LawFit {
 
 /** A second thread for the law fits of large records; `fitLaws` is a drop-in for analyzeRecord's `fitLaws` option. */
 export interface FitHelper {
-  /** The same thread as a reader of record pieces (readRecordFile's `helper`). */
-  pieces: PieceHelper;
   fitLaws: (strain: Float64Array, stress: Float64Array, opts: FitAllOptions & { packed: LawData }) => LawComparison;
   /** Fits done on two threads so far (the rest went the one-thread way). */
   readonly shared: number;
@@ -99,8 +88,7 @@ export interface FitHelper {
 export function startFitHelper(timeoutMs = 60_000, waitReady = false): FitHelper {
   const ctl = new Int32Array(new SharedArrayBuffer(8));
   const { port1, port2 } = new MessageChannel();
-  const scan = new MessageChannel();
-  const worker = new Worker(new URL(import.meta.url), { workerData: { role: ROLE, port: port2, ctl, scanPort: scan.port2 }, transferList: [port2, scan.port2] });
+  const worker = new Worker(new URL(import.meta.url), { workerData: { role: ROLE, port: port2, ctl }, transferList: [port2] });
   worker.unref();
   let broken = false;
   let shared = 0;
@@ -149,28 +137,10 @@ export function startFitHelper(timeoutMs = 60_000, waitReady = false): FitHelper
     shared++;
     return compareLawFits(mine, stress, opts);
   };
-  const pieces: PieceHelper = {
-    post(job) {
-      if (!broken) scan.port1.postMessage(job);
-    },
-    collect(job, k, until) {
-      // Atomics.wait returns at once when the flag has moved on; a helper that died never answers.
-      for (let v = Atomics.load(job.ctl, 1 + k); v !== 3 && !broken; v = Atomics.load(job.ctl, 1 + k)) {
-        const left = until - Date.now();
-        if (left <= 0) break;
-        Atomics.wait(job.ctl, 1 + k, v, Math.min(left, 100));
-      }
-      const out: PieceAnswer[] = [];
-      for (let m = receiveMessageOnPort(scan.port1); m; m = receiveMessageOnPort(scan.port1)) out.push(m.message as PieceAnswer);
-      return out;
-    },
-  };
   return {
     fitLaws,
-    pieces,
     get shared() { return shared; },
     async close() {
-      scan.port1.close();
       port1.close();
       await worker.terminate();
     },

@@ -300,22 +300,6 @@ export class RecordBuilder {
     if (count > 0) this.lastLine = lines[count - 1]!;
   }
 
-  /**
-   * Adds the rows of one piece of the file (rows in file order, pieces appended in file order): the
-   * same as pushBatch of its rows, with `maxA` the piece's largest |first value| at `maxALine` and
-   * `lastLine` its last row's line (1-based lines of the file). Used by the two-thread reader.
-   */
-  appendRows(xs: Float64Array, ys: Float64Array, count: number, maxA: number, maxALine: number, lastLine: number): void {
-    if (count <= 0) return;
-    if (this.n + count > MAX_ROWS) this.fail(lastLine, 1, '', `more than ${MAX_ROWS} data rows; split the record`);
-    if (this.n + count > this.xs.length) this.reserve(Math.max(this.xs.length * 2, this.n + count));
-    this.xs.set(xs.subarray(0, count), this.n);
-    this.ys.set(ys.subarray(0, count), this.n);
-    this.n += count;
-    if (maxA > this.maxA) { this.maxA = maxA; this.maxALine = maxALine; }
-    this.lastLine = lastLine;
-  }
-
   /** The record: converted, checked for swapped columns and too few rows. */
   finish(name: string): TensileRecord {
     const L = this.layout;

@@ -5,8 +5,7 @@ import { parse } from 'csv-parse';
 import { RecordBuilder, type RecordOptions, type TensileRecord } from './builder.js';
 import { recordError } from './errors.js';
 import { detectLayout, type Layout } from './layout.js';
-import { MAX_ROWS } from './builder.js';
-import { ByteRowScanner, pieceEnd, RowScanner, scanPiece, type PieceAnswer, type PieceJob, type PieceRows } from './scan.js';
+import { ByteRowScanner, RowScanner } from './scan.js';
 import { checkText, csvProblem, headLines } from './parse.js';
 
 /** Bytes read to find the layout (metadata, header, units row). */
@@ -19,7 +18,7 @@ export const HEAD_BYTES = 256 * 1024;
  * of rows needs little more than its numbers. Errors as {@link parseRecordText}.
  * @throws PlanError naming file, line, column and what was expected (file not found included).
  */
-export async function readRecordFile(path: string, opts: RecordOptions = {}, helper?: PieceHelper): Promise<TensileRecord> {
+export async function readRecordFile(path: string, opts: RecordOptions = {}): Promise<TensileRecord> {
   const file = opts.file ?? path;
   let fd: number;
   try {
@@ -51,11 +50,7 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}, hel
   const name = path.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '');
   // Fast paths: the file's bytes, else (non-ASCII text after the header) its decoded text; any doubt,
   // and any error from finish, goes to the located reader below, which words every message.
-  // With a helper thread, files of PIECES_FROM bytes or more are scanned in pieces by both threads
-  // (undefined: not done that way; null: a doubt, which the one-thread byte reader would share).
-  const shared = helper ? scanPieces(path, layout, { ...opts, file }, helper) : undefined;
-  const fast = shared === undefined ? scanBytes(path, layout, { ...opts, file }) ?? await scanFile(path, layout, { ...opts, file })
-    : shared ?? await scanFile(path, layout, { ...opts, file });
+  const fast = scanBytes(path, layout, { ...opts, file }) ?? await scanFile(path, layout, { ...opts, file });
   if (fast) {
     try {
       return fast.finish(name);
@@ -121,105 +116,6 @@ export function scanBytes(path: string, layout: Layout, opts: RecordOptions, chu
   } finally {
     closeSync(fd);
   }
-}
-
-/** Files of at least this many bytes are scanned in pieces when readRecordFile is given a helper thread. */
-export const PIECES_FROM = 4 * 1024 * 1024;
-/** ... and at most this many: the pieces need the whole file in memory (larger files stream in bounded memory). */
-export const PIECES_UP_TO = 256 * 1024 * 1024;
-/** Bytes per piece (whole lines): small enough that the two threads finish close together. */
-export const PIECE_BYTES = 1 << 20;
-
-/** The other thread (the runner's fit helper, cli/fitThreads.ts): takes pieces of a job while this thread does. */
-export interface PieceHelper {
-  /** Hands the job over (returns at once; a helper not started yet takes what is left when it is). */
-  post(job: PieceJob): void;
-  /** Waits until ctl[1 + k] is 3 or `until` (Date.now() ms) passes; then the answers posted so far. */
-  collect(job: PieceJob, k: number, until: number): PieceAnswer[];
-  /** For tests: other than PIECES_FROM, PIECE_BYTES and the 10 s scanPieces waits for an answer. */
-  piecesFrom?: number;
-  pieceBytes?: number;
-  waitMs?: number;
-}
-
-let jobs = 0;
-
-/**
- * The two-thread form of {@link scanBytes}: reads the whole file into shared memory, cuts it after
- * the head into pieces of about PIECE_BYTES at line ends, and scans them on this thread and on the
- * `helper` at once (each takes the next free piece; pieces the helper has not answered within
- * 10 s are scanned here again). The pieces' rows are appended in file order with their lines
- * counted on, so the builder holds what {@link scanBytes} would put in it (the same numbers: the same
- * scanner reads every line). Returns undefined for files under PIECES_FROM or over PIECES_UP_TO bytes (not read this way),
- * null on any doubt (the text readers take the record, as after scanBytes).
- */
-export function scanPieces(path: string, layout: Layout, opts: RecordOptions, helper: PieceHelper): RecordBuilder | null | undefined {
-  const fd = openSync(path, 'r');
-  let bytes: Uint8Array;
-  let size: number;
-  try {
-    size = fstatSync(fd).size;
-    if (size < (helper.piecesFrom ?? PIECES_FROM) || size > PIECES_UP_TO) return undefined;
-    bytes = new Uint8Array(new SharedArrayBuffer(size + 1));
-    let got = 0;
-    while (got < size) {
-      const r = readSync(fd, bytes, got, size - got, got);
-      if (r === 0) break;
-      got += r;
-    }
-    size = got;
-  } finally {
-    closeSync(fd);
-  }
-  const b = new RecordBuilder(layout, opts);
-  const cells = b.cells;
-  // The first data line's start; the head stays in piece 0 (its lines are checked as scanBytes checks them).
-  let at = 0;
-  for (let l = 1; l < cells.dataLine; l++) {
-    const lf = bytes.indexOf(10, at);
-    if (lf < 0 || lf >= size) return undefined;
-    at = lf + 1;
-  }
-  const bounds: number[] = [0];
-  const piece = Math.max(1, helper.pieceBytes ?? PIECE_BYTES);
-  for (let cut = at + piece; cut < size; ) {
-    const lf = bytes.indexOf(10, cut);
-    if (lf < 0 || lf + 1 >= size) break;
-    bounds.push(lf + 1);
-    cut = lf + 1 + piece;
-  }
-  bounds.push(size);
-  const K = bounds.length - 1;
-  const job: PieceJob = { id: ++jobs, bytes, bounds: Float64Array.from(bounds), ctl: new Int32Array(new SharedArrayBuffer(4 * (K + 1))), cells };
-  helper.post(job);
-  const rows: (PieceRows | undefined)[] = new Array(K);
-  for (;;) {
-    const k = Atomics.add(job.ctl, 0, 1);
-    if (k >= K) break;
-    Atomics.store(job.ctl, 1 + k, 1);
-    rows[k] = scanPiece(bytes, bounds[k]!, pieceEnd(job, k), cells, k === 0 ? cells.dataLine : 1);
-  }
-  // The helper's pieces: wait for each (a clock is fine here: this is the Node reader, not the core).
-  const until = Date.now() + (helper.waitMs ?? 10_000);
-  for (let k = 0; k < K; k++) {
-    if (rows[k]) continue;
-    for (const a of helper.collect(job, k, until)) if (a.id === job.id) rows[a.k] = a;
-    rows[k] ??= scanPiece(bytes, bounds[k]!, pieceEnd(job, k), cells, k === 0 ? cells.dataLine : 1);
-  }
-  let total = 0;
-  for (const r of rows) {
-    if (!r!.ok) return null;
-    total += r!.n;
-  }
-  if (total > MAX_ROWS) return null; // the located reader words it at its line
-  b.reserve(total);
-  let lineBase = 0; // lines before the piece
-  for (const r of rows) {
-    const p = r!;
-    b.appendRows(p.xs, p.ys, p.n, p.maxA, lineBase + p.maxALine, lineBase + p.lastLine);
-    lineBase += p.lines;
-  }
-  return b;
 }
 
 /**

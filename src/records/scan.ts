@@ -280,7 +280,7 @@ export class ByteRowScanner {
   private readonly comma: boolean;
   private readonly dataLine: number;
 
-  constructor(private readonly builder: RowSink) {
+  constructor(private readonly builder: RecordBuilder) {
     const c = builder.cells;
     this.a = c.a;
     this.b = c.b;
@@ -305,11 +305,6 @@ export class ByteRowScanner {
       bytes[to] = kept;
       this.flush();
     }
-  }
-
-  /** Lines counted so far (head lines included). */
-  get linesRead(): number {
-    return this.line - 1;
   }
 
   /** Hands the batched rows to the builder. */
@@ -438,118 +433,6 @@ export class ByteRowScanner {
     this.bx[k] = x; this.by[k] = y; this.bl[k] = line;
     if ((this.k = k + 1) === BATCH) this.flush();
     return lf;
-  }
-}
-
-/** What {@link ByteRowScanner} needs of a {@link RecordBuilder}: where the cells are, and where rows go. */
-export type RowSink = Pick<RecordBuilder, 'cells' | 'pushBatch'>;
-
-/** The cells of a record as RecordBuilder.cells gives them (plain data: it crosses to another thread). */
-export type ScanCells = RecordBuilder['cells'];
-
-/** The rows of one piece of a record's bytes (see {@link scanPiece}); lines counted from the piece's first line as 1. */
-export interface PieceRows {
-  /** False when the piece needs the text readers (a doubt, as ByteRowScanner has them). */
-  ok: boolean;
-  xs: Float64Array;
-  ys: Float64Array;
-  /** Rows in xs, ys. */
-  n: number;
-  /** Largest |first value| and the line of its first occurrence (−Infinity, 0 without rows). */
-  maxA: number;
-  maxALine: number;
-  /** Line of the last row (0 without rows). */
-  lastLine: number;
-  /** Lines in the piece. */
-  lines: number;
-}
-
-/**
- * Scans the whole lines bytes[from, to) as {@link ByteRowScanner} scans a file, into columns of
- * their own: one piece of a record read by two threads (records/node.ts, scanPieces). bytes[to]
- * must be an LF or a spare byte (the scanner's end mark; written and restored, so a piece may end at
- * the LF that closes its last line while another thread reads the next piece). `dataLine`: the
- * first data line counted from the piece's start (1 for a piece after the head).
- * @example scanPiece(new TextEncoder().encode('1,2\n3,4\n'), 0, 8, cells, 1).n // 2
- */
-export function scanPiece(bytes: Uint8Array, from: number, to: number, cells: ScanCells, dataLine: number): PieceRows {
-  const sink = new PieceSink({ ...cells, dataLine }, Math.ceil((to - from) / 12) + 64);
-  const sc = new ByteRowScanner(sink);
-  const used = sc.scan(bytes, from, to, true);
-  return { ok: used === to, xs: sink.xs, ys: sink.ys, n: sink.n, maxA: sink.maxA, maxALine: sink.maxALine, lastLine: sink.lastLine, lines: sc.linesRead };
-}
-
-/** A record's bytes cut into pieces for two threads; `ctl[0]` hands out pieces, `ctl[1 + k]` says who has piece k. */
-export interface PieceJob {
-  id: number;
-  /** The whole file and one spare byte, in shared memory. */
-  bytes: Uint8Array;
-  /** Piece k is bytes[bounds[k], bounds[k + 1]); piece 0 holds the head. */
-  bounds: Float64Array;
-  /** [next piece to take, then per piece: 0 free, 1 taken here, 2 taken by the helper, 3 the helper's answer posted]. */
-  ctl: Int32Array;
-  cells: ScanCells;
-}
-
-/** A piece's rows as the helper answers them. */
-export interface PieceAnswer extends PieceRows { id: number; k: number }
-
-/**
- * The helper's side of scanPieces (records/node.ts): takes pieces of `job` one at a time until none is left,
- * scans each ({@link scanPiece}) and posts its rows (with `post`), then marks it answered. Returns the
- * number of pieces it scanned.
- */
-export function scanJobPieces(job: PieceJob, post: (a: PieceAnswer) => void): number {
-  const K = job.bounds.length - 1;
-  let done = 0;
-  for (;;) {
-    const k = Atomics.add(job.ctl, 0, 1);
-    if (k >= K) return done;
-    Atomics.store(job.ctl, 1 + k, 2);
-    const r = scanPiece(job.bytes, job.bounds[k]!, pieceEnd(job, k), job.cells, k === 0 ? job.cells.dataLine : 1);
-    post({ ...r, id: job.id, k });
-    Atomics.store(job.ctl, 1 + k, 3);
-    Atomics.notify(job.ctl, 1 + k);
-    done++;
-  }
-}
-
-/** Where piece k's scan ends: the LF that closes its last line (bytes[end] stays an LF), or the file's end. */
-export function pieceEnd(job: PieceJob, k: number): number {
-  const K = job.bounds.length - 1;
-  return k === K - 1 ? job.bounds[K]! : job.bounds[k + 1]! - 1;
-}
-
-/** Rows of a piece in growing columns, kept as RecordBuilder.pushBatch keeps them (maxA strictly greater: the first occurrence). */
-class PieceSink {
-  xs: Float64Array;
-  ys: Float64Array;
-  n = 0;
-  maxA = -Infinity;
-  maxALine = 0;
-  lastLine = 0;
-  constructor(readonly cells: ScanCells, rows: number) {
-    this.xs = new Float64Array(rows);
-    this.ys = new Float64Array(rows);
-  }
-  pushBatch(xs: Float64Array, ys: Float64Array, lines: Float64Array, count: number): void {
-    if (this.n + count > this.xs.length) {
-      const want = Math.max(this.xs.length * 2, this.n + count);
-      const nx = new Float64Array(want); nx.set(this.xs.subarray(0, this.n)); this.xs = nx;
-      const ny = new Float64Array(want); ny.set(this.ys.subarray(0, this.n)); this.ys = ny;
-    }
-    const X = this.xs, Y = this.ys;
-    let n = this.n, maxA = this.maxA, maxALine = this.maxALine;
-    for (let j = 0; j < count; j++) {
-      const x = xs[j]!;
-      X[n] = x;
-      Y[n++] = ys[j]!;
-      if (Math.abs(x) > maxA) { maxA = Math.abs(x); maxALine = lines[j]!; }
-    }
-    this.n = n;
-    this.maxA = maxA;
-    this.maxALine = maxALine;
-    if (count > 0) this.lastLine = lines[count - 1]!;
   }
 }
 

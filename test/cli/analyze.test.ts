@@ -221,30 +221,3 @@ describe('startFitHelper (src/cli/fitThreads.ts): law fits on two threads', () =
     }
   });
 });
-
-describe('startFitHelper(...).pieces: the helper thread reads pieces of a record', () => {
-  it('readRecordFile with the helper gives the numbers and warnings of the one-thread reader, and the helper read some pieces', async () => {
-    const { startFitHelper } = await import(join(ROOT, 'dist', 'cli', 'fitThreads.js')) as typeof import('../../src/cli/fitThreads.js');
-    const { readRecordFile } = await import(join(ROOT, 'dist', 'records', 'node.js')) as typeof import('../../src/records/node.js');
-    // INVENTED record of 60,000 rows (about 1.3 MB), read in pieces of 16 kB (PIECES_FROM lowered for the test).
-    let text = 'Strain [%],Stress [MPa]\n';
-    for (let i = 0; i < 60_000; i++) text += `${(i * 0.0005).toFixed(6)},${(300 + 200 * Math.sin(i / 7000)).toFixed(4)}\n`;
-    const file = join(dir, 'pieces.csv');
-    writeFileSync(file, text);
-    const helper = startFitHelper(60_000, true);
-    try {
-      let answered = 0;
-      const pieces = { ...helper.pieces, piecesFrom: 0, pieceBytes: 16 * 1024, collect: (...a: Parameters<typeof helper.pieces.collect>) => { const r = helper.pieces.collect(...a); answered += r.length; return r; } };
-      // The helper starts in the background; wait until it has read pieces (it takes them while this thread does).
-      let two = await readRecordFile(file, {}, pieces);
-      for (let k = 0; k < 20 && answered === 0; k++) { await new Promise((r) => setTimeout(r, 50)); two = await readRecordFile(file, {}, pieces); }
-      const one = await readRecordFile(file);
-      expect(answered).toBeGreaterThan(0);
-      expect(Array.from(two.strain)).toEqual(Array.from(one.strain));
-      expect(Array.from(two.stress)).toEqual(Array.from(one.stress));
-      expect(two.warnings).toEqual(one.warnings);
-    } finally {
-      await helper.close();
-    }
-  });
-});

@@ -4,7 +4,6 @@ import type { LawFit } from '../../core/fit/types.js';
 import type { LawComparison } from '../../core/fit/fitAllLaws.js';
 import type { TensileAnalysis } from '../../core/tensile/types.js';
 import type { AnalyzeOptions } from '../../core/tensile/analyzeRecord.js';
-import type { PieceHelper } from '../../records/node.js';
 import { statSync } from 'node:fs';
 import { availableParallelism, loadavg } from 'node:os';
 import { PlanError } from '../../plan/problems.js';
@@ -153,7 +152,7 @@ export const analyze = defineCommand({
     disagreement: { type: 'string', value: 'PCT', help: 'spread between good laws, in percent, above which they are reported as disagreeing (default 10)' },
     modulus: { type: 'string', value: 'MPA', help: "Young's modulus in MPa to use instead of the one fitted to the record" },
     residuals: { type: 'boolean', default: false, help: 'include each fit\'s residuals in the JSON output' },
-    threads: { type: 'string', value: 'N', help: 'threads for reading and fitting a large record, 1 or 2 (default: 2 on a machine with two or more cores, one of them free, when the records hold 4 MB or more); the results are the same either way' },
+    threads: { type: 'string', value: 'N', help: 'threads for the law fits of a large record, 1 or 2 (default: 2 on a machine with two or more cores, one of them free, when the records hold 4 MB or more); the results are the same either way' },
     column: { type: 'string', multiple: true, default: [], value: 'ROLE=NAME', help: 'which column holds a role (strain, stress, force, extension, time), by header name or number' },
     delimiter: { type: 'string', value: ', ; tab', help: 'field separator of the record (default: detected)' },
     decimal: { type: 'string', value: '. ,', help: 'decimal mark of the record (default: detected)' },
@@ -234,17 +233,17 @@ export const analyze = defineCommand({
     const wanted = threads !== undefined ? threads === 2 : cores >= 2 && recordBytes >= 4 * 1024 * 1024 && loadavg()[0]! < cores - 0.5;
     const helper = wanted ? (await import('../fitThreads.js')).startFitHelper(60_000, threads === 2) : null;
     try {
-      return await analyzeWith(helper?.fitLaws, helper?.pieces);
+      return await analyzeWith(helper?.fitLaws);
     } finally {
       await helper?.close();
     }
 
-    async function analyzeWith(fitLaws: AnalyzeOptions['fitLaws'] | undefined, pieces: PieceHelper | undefined): Promise<number> {
+    async function analyzeWith(fitLaws: AnalyzeOptions['fitLaws'] | undefined): Promise<number> {
     const [{ readRecordFile }, { analyzeRecord }, { analyzeSpecimens }, { withRecordLocation }] = await Promise.all([
       import('../../records/node.js'), import('../../core/tensile/analyzeRecord.js'), import('../../core/tensile/analyzeSpecimens.js'), import('../recordErrors.js'),
     ]);
     const records: TensileRecord[] = [];
-    for (const f of positionals) records.push(await readRecordFile(f, { ...ropts, file: f }, pieces));
+    for (const f of positionals) records.push(await readRecordFile(f, { ...ropts, file: f }));
     const aopts = {
       ...(fitLaws ? { fitLaws } : {}),
       ...(offset !== undefined ? { proofOffsetPct: offset } : {}),
