@@ -123,7 +123,9 @@ console.log(`   a. whole processes: ours ${o1.toFixed(2)} s (${runsO.map((r) => 
 console.log(`      ours --threads 1: ${med(runs1.map((r) => r.s)).toFixed(2)} s (${runs1.map((r) => r.s.toFixed(2)).join(', ')}); --threads 2: ${med(runsT.map((r) => r.s)).toFixed(2)} s (${runsT.map((r) => r.s.toFixed(2)).join(', ')}), peak RSS ${Math.max(...runsT.map((r) => r.mb)).toFixed(0)} MB`);
 console.log(`      python3 -c "import numpy; numpy.loadtxt(...)": ${p1.toFixed(2)} s (${runsP.map((r) => r.s.toFixed(2)).join(', ')}), peak RSS ${Math.max(...runsP.map((r) => r.mb)).toFixed(0)} MB`);
 const best1 = Math.min(o1, med(runs1.map((r) => r.s)), med(runsT.map((r) => r.s)));
-console.log(`      ratio ours/numpy (whole processes) ${(o1 / p1).toFixed(2)} by default, ${(best1 / p1).toFixed(2)} with the better thread count — aim ≤ 2: ${o1 <= 2 * p1 ? 'met' : 'NOT met'}`);
+// The fastest run of each is the least disturbed on a shared machine (numpy's start-up suffers more from load than ours).
+const minOurs = Math.min(...runsO.map((r) => r.s), ...runs1.map((r) => r.s), ...runsT.map((r) => r.s)), minNumpy = Math.min(...runsP.map((r) => r.s));
+console.log(`      ratio ours/numpy (whole processes) ${(o1 / p1).toFixed(2)} by default, ${(best1 / p1).toFixed(2)} with the better thread count, ${(minOurs / minNumpy).toFixed(2)} fastest against fastest — aim ≤ 2: ${o1 <= 2 * p1 && minOurs <= 2 * minNumpy ? 'met' : 'NOT met'}`);
 console.log(`   b. in-process, start-up excluded (median of 5 after a warm-up): numpy.loadtxt read ${inNumpy.toFixed(3)} s (first-run read in a fresh process ${n1.toFixed(3)} s)`);
 console.log(`      ours as a library, read + analyze: one thread ${inOne.toFixed(3)} s, with the fit helper ${inTwo.toFixed(3)} s`);
 console.log(`      ratio ours/numpy (in-process) ${(inOne / inNumpy).toFixed(2)} one thread, ${(inTwo / inNumpy).toFixed(2)} two — aim ≤ 2: ${Math.min(inOne, inTwo) <= 2 * inNumpy ? 'met' : 'NOT met'}`);
