@@ -53,7 +53,8 @@ export interface NormalProblem {
   cost(p: Float64Array): number;
   /**
    * Fills JtJ (m×m, row-major, both triangles) with Σ wᵢ·∇fᵢ∇fᵢᵀ and g (m) with Σ wᵢ·∇fᵢ·rᵢ (rᵢ = fᵢ − yᵢ)
-   * at p and returns S(p); Infinity outside the domain.
+   * at p and returns S(p), the same number `cost(p)` returns (the solver takes trial costs from it);
+   * Infinity outside the domain.
    */
   normal(p: Float64Array, JtJ: Float64Array, g: Float64Array): number;
 }
@@ -91,6 +92,10 @@ export function levenbergMarquardtNormal(problem: NormalProblem, start: readonly
   }
   const JtJ = new Float64Array(m * m);
   const g = new Float64Array(m);
+  // A trial point's cost comes from `normal` into these, kept when the step is taken: one pass over the data
+  // per accepted step instead of a cost pass and a normal pass (the same S, so the same steps and fits).
+  const JtJq = new Float64Array(m * m);
+  const gq = new Float64Array(m);
   let S = problem.normal(p, JtJ, g);
   if (!Number.isFinite(S)) throw new InputError('start', Array.from(p), 'a start where the model gives finite values');
   let lambda = 1e-3;
@@ -134,7 +139,7 @@ export function levenbergMarquardtNormal(problem: NormalProblem, start: readonly
         q[j] = Math.min(upper[j]!, Math.max(lower[j]!, p[j]! + d[a]!));
         if (Math.abs(q[j]! - p[j]!) > xtol * (Math.abs(p[j]!) + xtol)) small = false;
       }
-      const Sq = problem.cost(q);
+      const Sq = problem.normal(q, JtJq, gq);
       if (Sq < S) {
         const drop = (S - Sq) / Math.max(S, 1e-300);
         // Gain ratio ρ = actual / predicted fall of S (predicted from the linear model, with the projected step).
@@ -148,7 +153,9 @@ export function levenbergMarquardtNormal(problem: NormalProblem, start: readonly
         }
         const rho = pred > 0 ? (S - Sq) / pred : 0.5;
         p.set(q);
-        S = problem.normal(p, JtJ, g);
+        S = Sq;
+        JtJ.set(JtJq);
+        g.set(gq);
         lambda = Math.max(lambda * Math.max(1 / 3, 1 - (2 * rho - 1) ** 3), 1e-10);
         nu = 2;
         if (drop < ftol || small) {
