@@ -71,14 +71,21 @@ export function startValues(law: LawName, x: ArrayLike<number>, y: ArrayLike<num
     case 'hockettSherby': {
       let best: number[] = [ymax * 1.05, ymin * 0.95, 10, 1];
       let bestS = Infinity;
+      // xᵖ once per p and e^(−a·xᵖ) once per (p, a), reused by the residual sum (the same values as
+      // evaluating the law point by point, so the same start).
+      const n = x.length;
+      const xp = new Float64Array(n), E = new Float64Array(n), oneMinusE = new Float64Array(n);
       for (const p of [0.4, 0.6, 0.8, 1, 1.3]) {
+        for (let i = 0; i < n; i++) xp[i] = Math.pow(x[i]!, p);
         for (const a of logspace(0.3, 3000, 18)) {
-          const E = Array.from({ length: x.length }, (_, i) => Math.exp(-a * Math.pow(x[i]!, p)));
-          const c = twoColumn(E.map((v) => 1 - v), E, y);
+          for (let i = 0; i < n; i++) { E[i] = Math.exp(-a * xp[i]!); oneMinusE[i] = 1 - E[i]!; }
+          const c = twoColumn(oneMinusE, E, y);
           if (!c) continue;
           const [sat, s0] = c;
           if (!(sat > s0 && s0 >= 0)) continue;
-          const s = ssr((e) => sat - (sat - s0) * Math.exp(-a * Math.pow(e, p)), x, y);
+          let s = 0;
+          for (let i = 0; i < n; i++) s += (sat - (sat - s0) * E[i]! - y[i]!) ** 2;
+          if (!Number.isFinite(s)) s = Infinity;
           if (s < bestS) { bestS = s; best = [sat, s0, a, p]; }
         }
       }
@@ -109,13 +116,17 @@ function swiftStart(x: ArrayLike<number>, y: ArrayLike<number>, ymax: number): n
 function voceStart(x: ArrayLike<number>, y: ArrayLike<number>, ymin: number, ymax: number): number[] {
   let best: number[] = [ymin, Math.max(ymax - ymin, 1), 10];
   let bestS = Infinity;
-  const ones = Array.from({ length: x.length }, () => 1);
+  const n = x.length;
+  const ones = new Float64Array(n).fill(1), u = new Float64Array(n);
   for (const b of logspace(0.3, 3000, 24)) {
-    const u = Array.from({ length: x.length }, (_, i) => -Math.expm1(-b * x[i]!));
+    for (let i = 0; i < n; i++) u[i] = -Math.expm1(-b * x[i]!);
     const c = twoColumn(ones, u, y);
     if (!c) continue;
     const s0 = Math.max(0, c[0]), Q = Math.max(0, c[1]);
-    const s = ssr((e) => s0 + Q * -Math.expm1(-b * e), x, y);
+    // The law's values are s0 + Q·u (u as above: the same numbers as evaluating it point by point).
+    let s = 0;
+    for (let i = 0; i < n; i++) s += (s0 + Q * u[i]! - y[i]!) ** 2;
+    if (!Number.isFinite(s)) s = Infinity;
     if (s < bestS) { bestS = s; best = [s0, Q, b]; }
   }
   return best;

@@ -1,0 +1,64 @@
+// startValues for Voce and Hockett–Sherby reuse e^(−b·x) and xᵖ between the linear solve and the residual sum
+// (src/core/fit/startValues.ts). The start must be the same number as the plain form, which evaluates the law
+// point by point (the form before the change, written out here): a different start would change the fits.
+// Curves are INVENTED from known laws with seeded noise.
+import { describe, expect, it } from 'vitest';
+import { makeLaw, startValues, xoshiro128ss, type LawSpec } from '../../../src/core/index.js';
+
+const logspace = (a: number, b: number, k: number) => Array.from({ length: k }, (_, i) => a * Math.pow(b / a, i / (k - 1)));
+function twoColumn(u: ArrayLike<number>, v: ArrayLike<number>, y: ArrayLike<number>): [number, number] | null {
+  let uu = 0, uv = 0, vv = 0, uy = 0, vy = 0;
+  for (let i = 0; i < y.length; i++) { uu += u[i]! * u[i]!; uv += u[i]! * v[i]!; vv += v[i]! * v[i]!; uy += u[i]! * y[i]!; vy += v[i]! * y[i]!; }
+  const det = uu * vv - uv * uv;
+  if (!(Math.abs(det) > 1e-300) || !(Math.abs(det) > 1e-14 * uu * vv)) return null;
+  return [(uy * vv - vy * uv) / det, (vy * uu - uy * uv) / det];
+}
+function ssr(f: (e: number) => number, x: ArrayLike<number>, y: ArrayLike<number>): number {
+  let s = 0;
+  for (let i = 0; i < x.length; i++) s += (f(x[i]!) - y[i]!) ** 2;
+  return Number.isFinite(s) ? s : Infinity;
+}
+function plainVoce(x: number[], y: number[]): number[] {
+  const ymin = Math.min(...y), ymax = Math.max(...y);
+  let best = [ymin, Math.max(ymax - ymin, 1), 10], bestS = Infinity;
+  const ones = x.map(() => 1);
+  for (const b of logspace(0.3, 3000, 24)) {
+    const u = x.map((e) => -Math.expm1(-b * e));
+    const c = twoColumn(ones, u, y);
+    if (!c) continue;
+    const s0 = Math.max(0, c[0]), Q = Math.max(0, c[1]);
+    const s = ssr((e) => s0 + Q * -Math.expm1(-b * e), x, y);
+    if (s < bestS) { bestS = s; best = [s0, Q, b]; }
+  }
+  return best;
+}
+function plainHockettSherby(x: number[], y: number[]): number[] {
+  const ymin = Math.min(...y), ymax = Math.max(...y);
+  let best = [ymax * 1.05, ymin * 0.95, 10, 1], bestS = Infinity;
+  for (const p of [0.4, 0.6, 0.8, 1, 1.3]) {
+    for (const a of logspace(0.3, 3000, 18)) {
+      const E = x.map((e) => Math.exp(-a * Math.pow(e, p)));
+      const c = twoColumn(E.map((v) => 1 - v), E, y);
+      if (!c) continue;
+      const [sat, s0] = c;
+      if (!(sat > s0 && s0 >= 0)) continue;
+      const s = ssr((e) => sat - (sat - s0) * Math.exp(-a * Math.pow(e, p)), x, y);
+      if (s < bestS) { bestS = s; best = [sat, s0, a, p]; }
+    }
+  }
+  return best;
+}
+
+describe('startValues(law, x, y) for Voce and Hockett–Sherby', () => {
+  it('gives the same start, bit for bit, as evaluating each candidate law point by point (20 seeded curves each)', () => {
+    const laws: LawSpec[] = [{ law: 'voce', sigma0: 250, Q: 180, b: 12 }, { law: 'hockettSherby', sigmaSat: 600, sigma0: 200, a: 8, p: 0.8 }, { law: 'swift', K: 600, eps0: 0.01, n: 0.22 }];
+    for (let t = 0; t < 20; t++) {
+      const r = xoshiro128ss(100 + t);
+      const truth = makeLaw(laws[t % laws.length]!);
+      const x = Array.from({ length: 50 + (t * 37) % 350 }, (_, i) => 0.002 + i * (0.2 + 0.01 * t) / 400);
+      const y = x.map((e) => truth.stress(e) + 3 * (r.nextFloat() - 0.5));
+      expect(startValues('voce', x, y), `voce, curve ${t}`).toEqual(plainVoce(x, y));
+      expect(startValues('hockettSherby', x, y), `hockettSherby, curve ${t}`).toEqual(plainHockettSherby(x, y));
+    }
+  });
+});
