@@ -380,7 +380,7 @@ export class ByteRowScanner {
             c = bytes[++i]!;
           }
         }
-        let v: number;
+        let v: number, bad: boolean;
         if (general || scale < -22 || (c !== d && c !== 32 && c !== 9 && c !== 10 && c !== 13)) {
           // An exponent, a long mantissa or something else: read the whole trimmed cell.
           let e = i;
@@ -388,15 +388,20 @@ export class ByteRowScanner {
           let t = e;
           while (t > s && (bytes[t - 1] === 32 || bytes[t - 1] === 9)) t--;
           v = generalDecimal(bytes, s, t, comma);
+          bad = !(v - v === 0);
           i = e;
           c = bytes[i]!;
         } else {
-          v = digits === 0 ? NaN : scale === 0 ? m : m / POW10[-scale]!;
+          // No digit is no number (bad), never NaN here: a NaN constant merged with the computed value made
+          // the engine box every cell's number (two heap numbers a row, 31 young-generation collections per
+          // 1,000,000 rows; measured, issue 12 G). A bad cell's value is never pushed.
+          v = digits === 0 ? 0 : scale === 0 ? m : m / POW10[-scale]!;
+          bad = digits === 0;
           if (neg) v = -v;
           while ((c === 32 || c === 9) && c !== d) c = bytes[++i]!;
         }
         // An empty cell at the end of a short line may be a blank line: decided at the line's end.
-        if (!(v - v === 0) && !(digits === 0 && s === i && (c === 10 || c === 13) && col < last)) return DOUBT;
+        if (bad && !(digits === 0 && s === i && (c === 10 || c === 13) && col < last)) return DOUBT;
         if (col === a) x = v; else y = v;
       } else {
         while (c !== d && c !== 10 && c !== 13) {
