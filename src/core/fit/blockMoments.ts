@@ -63,7 +63,10 @@ function totalSquares(data: Float64Array, count: number, n: number): number {
 
 /** One block's moments into data[o…o + MOMENT_STRIDE). In a function of its own so the engine optimises the loop at once. */
 function blockInto(x: Float64Array, y: Float64Array, a: number, z: number, data: Float64Array, o: number, nodes: Float64Array, k: number): void {
-  let lo = Infinity, hi = -Infinity, sy = 0;
+  // lo, hi from the block's first strain (finite: fitLaw refuses other data), not from ±Infinity: such a start
+  // made V8 box every new extreme.
+  let lo = 0, hi = 0, sy = 0;
+  lo = hi = x[a]!;
   for (let i = a; i < z; i++) {
     const v = x[i]!;
     if (v < lo) lo = v;

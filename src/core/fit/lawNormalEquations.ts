@@ -82,15 +82,17 @@ function packed(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Array | nu
   const xs = x instanceof Float64Array ? x : Float64Array.from(x as ArrayLike<number>);
   const ys = y instanceof Float64Array ? y : Float64Array.from(y as ArrayLike<number>);
   const lx = new Float64Array(xs.length);
-  let lo = Infinity, hi = -Infinity, bad = -1;
+  // lo and hi start as 0 with flags (the first value below +∞, above −∞, as comparisons with ±∞ starts would
+  // take): an ±Infinity start made V8 box every new extreme, one heap number a point of a rising curve.
+  let lo = 0, hi = 0, seenLo = false, seenHi = false, bad = -1;
   for (let i = 0; i < xs.length; i++) {
     const e = xs[i]!, s = ys[i]!;
     if (bad < 0 && (!(e > 0) || !(e < Infinity) || !(s > 0) || !(s < Infinity))) bad = i;
-    if (e < lo) lo = e;
-    if (e > hi) hi = e;
+    if (seenLo ? e < lo : e < Infinity) { lo = e; seenLo = true; }
+    if (seenHi ? e > hi : e > -Infinity) { hi = e; seenHi = true; }
     lx[i] = Math.log(e);
   }
-  return { x: xs, y: ys, w, lx, lo, hi, bad };
+  return { x: xs, y: ys, w, lx, lo: seenLo ? lo : Infinity, hi: seenHi ? hi : -Infinity, bad };
 }
 
 /**

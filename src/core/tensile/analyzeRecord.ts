@@ -284,14 +284,22 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
 /** Index of the first highest stress; throws naming the first non-finite value (strain before stress at each index). */
 function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>): number {
   const N = strain.length;
-  let iRaw = 0, top = -Infinity;
+  // top starts as 0, not −Infinity: i = 0 sets it anyway, and a non-small-integer start made V8 box every new top.
+  let iRaw = 0, top = 0;
   for (let i = 0; i < N; i++) {
     const e = strain[i]!, s = stress[i]!;
-    if (!Number.isFinite(e)) throw new InputError(`strain[${i}]`, e, 'a finite number');
-    if (!Number.isFinite(s)) throw new InputError(`stress[${i}]`, s, 'a finite number');
+    // The throw in a function of its own: inline, its message kept every value boxed for it (measured).
+    if (!(e - e === 0 && s - s === 0)) notFinite(strain, stress, i);
     if (i === 0 || s > top) { top = s; iRaw = i; }
   }
   return iRaw;
+}
+
+/** Throws the InputError of finiteArgMax for index i (strain before stress). */
+function notFinite(strain: ArrayLike<number>, stress: ArrayLike<number>, i: number): never {
+  const e = strain[i]!, s = stress[i]!;
+  if (!Number.isFinite(e)) throw new InputError(`strain[${i}]`, e, 'a finite number');
+  throw new InputError(`stress[${i}]`, s, 'a finite number');
 }
 
 /** Fracture: the first i ≥ iRaw after which the stress falls by more than fractureDrop or below fractureFloor·sMax; −1 if none. */
@@ -310,10 +318,12 @@ function flowColumns(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: 
   const m = iMax + 1;
   const xs = new Float64Array(m), ys = new Float64Array(m);
   let nf = 0;
-  let runMax = -Infinity;
+  // A flag, not runMax = −Infinity: that start made V8 box every new envelope value (one heap number a point).
+  let runMax = 0, any = false;
   for (let i = 0; i <= iMax; i++) {
     const e = strain[i]! - toe;
-    if (e <= runMax) continue;
+    if (any && e <= runMax) continue;
+    any = true;
     runMax = e;
     if (e <= -1 || i < fromIndex) continue; // no true strain, or before the proof point: not on the flow curve
     const s = stress[i]! * (1 + e);

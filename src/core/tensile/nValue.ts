@@ -17,15 +17,18 @@ export function nValueFit(plasticStrain: ArrayLike<number>, trueStress: ArrayLik
   const n = plasticStrain.length;
   const lx = new Float64Array(n), ly = new Float64Array(n);
   let k = 0;
-  let lo = Infinity, hi = -Infinity;
+  // lo, hi start as 0 with a flag: an ±Infinity start made V8 box every new extreme (one heap number a point).
+  let lo = 0, hi = 0, seen = false;
   for (let i = 0; i < n; i++) {
     const e = plasticStrain[i]!, s = trueStress[i]!;
     if (e > 0 && s > 0) {
       lx[k] = Math.log(e);
       ly[k] = Math.log(s);
       k++;
-      if (e < lo) lo = e;
-      if (e > hi) hi = e;
+      if (!seen) { lo = e; hi = e; seen = true; } else {
+        if (e < lo) lo = e;
+        if (e > hi) hi = e;
+      }
     }
   }
   return nResult(lx, ly, k, lo, hi);
@@ -42,15 +45,18 @@ export function nValueFitLogs(plasticStrain: ArrayLike<number>, trueStress: Arra
   const n = plasticStrain.length;
   const lx = new Float64Array(n), ly = new Float64Array(n);
   let k = 0;
-  let lo = Infinity, hi = -Infinity;
+  // lo, hi start as 0 with a flag: an ±Infinity start made V8 box every new extreme (one heap number a point).
+  let lo = 0, hi = 0, seen = false;
   for (let i = 0; i < n; i++) {
     const e = plasticStrain[i]!, s = trueStress[i]!;
     if (e > 0 && s > 0) {
       lx[k] = logStrain[i]!;
       ly[k] = Math.log(s);
       k++;
-      if (e < lo) lo = e;
-      if (e > hi) hi = e;
+      if (!seen) { lo = e; hi = e; seen = true; } else {
+        if (e < lo) lo = e;
+        if (e > hi) hi = e;
+      }
     }
   }
   return nResult(lx, ly, k, lo, hi);
