@@ -8,7 +8,7 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'modulusGiven' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
   message: string;
 }
 
