@@ -116,7 +116,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);
 
   // Fracture: first sudden fall after the highest stress, else the end of the record.
-  const fall = firstFall(stress, iRaw, sMax);
+  const fall = firstFall(stress, iRaw, sMax, noise);
   const detected = fall >= 0;
   const fi = detected ? fall : N - 1;
   const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
@@ -289,10 +289,20 @@ function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>): num
   return iRaw;
 }
 
-/** Fracture: the first i ≥ iRaw after which the stress falls by more than fractureDrop or below fractureFloor·sMax; −1 if none. */
-function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number): number {
+/**
+ * Fracture: the first i ≥ iRaw after which the stress falls by more than fractureDrop or below
+ * fractureFloor·sMax, then moved back to where that fall began: a fast-sampled record catches the load on its
+ * way down over a few samples, each step far larger than the necking's and the noise's (> max(6σ̂, 3 % of
+ * the stress)); the specimen broke at the first of them, not at the one where the fall passes 50 %. −1 if none.
+ */
+function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number, noise: number): number {
   const keep = 1 - ANALYZE_DEFAULTS.fractureDrop, floor = ANALYZE_DEFAULTS.fractureFloor * sMax;
-  for (let i = iRaw; i < stress.length - 1; i++) if (stress[i + 1]! < keep * stress[i]! || stress[i + 1]! < floor) return i;
+  for (let i = iRaw; i < stress.length - 1; i++) {
+    if (stress[i + 1]! < keep * stress[i]! || stress[i + 1]! < floor) {
+      while (i > iRaw && stress[i - 1]! - stress[i]! > Math.max(6 * noise, 0.03 * stress[i - 1]!)) i--;
+      return i;
+    }
+  }
   return -1;
 }
 
