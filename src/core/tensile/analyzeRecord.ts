@@ -135,6 +135,20 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     }
     for (const p of proofStrengths) if (p.stress !== null) p.stress = onPlateau(p.index)?.stress ?? p.stress;
   }
+  // Rp depends on E through the offset line. Where the measured E is uncertain (a coarse or noisy rise, a rise with
+  // no straight part), Rp is also read with E at both ends of its 95 % interval, the line pivoting about the
+  // middle of the elastic band; a spread wider than ±1 % is reported with the range (the record cannot say more).
+  if (proof && !proofRange && given === undefined) {
+    const [eLo, eHi] = el.window.interval95;
+    const mid = 0.5 * (el.window.fromStress + el.window.toStress);
+    const rpAt = (Ei: number) => (Ei > 0 ? proofStrength(strain, stress, Ei, toe + mid / E - mid / Ei, offPct / 100, el.window.fromIndex, N, noise)?.stress ?? null : null);
+    const ends = [rpAt(eLo), rpAt(eHi)].filter((v): v is number => v !== null);
+    const lo = Math.min(proof.stress, ...ends), hi = Math.max(proof.stress, ...ends);
+    if ((hi - lo) / 2 > UNCERTAIN_RP * proof.stress) {
+      proofRange = [lo, hi];
+      warnings.push({ code: 'uncertainRp', message: `Rp${offPct} ${proof.stress.toFixed(1)} MPa depends on E, which the record measures only to ${(eLo / 1000).toFixed(0)}–${(eHi / 1000).toFixed(0)} GPa (95 %): over that interval Rp${offPct} runs from ${lo.toFixed(1)} to ${hi.toFixed(1)} MPa; give the modulus if it is known` });
+    }
+  }
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
   const topFrom = Math.max(0, Math.min(yp ? yp.endIndex : el.window.toIndex, fi - 2));

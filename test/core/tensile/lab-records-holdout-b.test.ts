@@ -11,13 +11,13 @@ import { holdoutBRecord } from './lab-records-holdout-b.helpers.js';
 
 const SEEDS = Array.from({ length: 200 }, (_, i) => 5000 + i);
 
-interface HoldoutBTally { fails: string[]; count: Record<string, number>; refused: number; drops: number; continuous: number; agWarned: number }
+interface HoldoutBTally { fails: string[]; count: Record<string, number>; refused: number; drops: number; continuous: number; agWarned: number; rpWarned: number }
 
 /** Runs the analysis on every hold-out seed and tallies the misses by property. */
 function holdoutBTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutBTally {
   const fails: string[] = [];
   const count: Record<string, number> = {};
-  let refused = 0, drops = 0, continuous = 0, agWarned = 0;
+  let refused = 0, drops = 0, continuous = 0, agWarned = 0, rpWarned = 0;
   const miss = (k: string, msg: string) => { fails.push(msg); count[k] = (count[k] ?? 0) + 1; };
   for (const seed of seeds) {
     const rec = holdoutBRecord(seed, noiseScale);
@@ -34,7 +34,14 @@ function holdoutBTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutBTally 
     const chk = (k: string, err: number, t0: number, msg: string) => { if (!(err <= t0 * tol)) miss(k, `${rec.what}: ${k} ${msg}`); };
     // Rp0.2 on a plateau serrated by more than 0.5 % depends on which serration the offset line meets; ISO 6892-1
     // reports ReH/ReL for discontinuous yielding, so Rp0.2 is checked only where it is well defined.
-    if (t.serration <= 0.005) chk('Rp0.2', Math.abs(a.proofStrength! - t.rp02) / t.rp02, 0.01, `${a.proofStrength} vs ${t.rp02}`);
+    if (t.serration <= 0.005) {
+      // Off by more than 1 % is accepted only when the analysis says Rp is uncertain (E measured too loosely to
+      // fix it to ±1 %) and gives a range that holds the truth.
+      const pr = a.proofStrengthRange;
+      const rpErr = Math.abs(a.proofStrength! - t.rp02) / t.rp02;
+      if (rpErr > 0.01 * tol && a.warnings.some((w) => w.code === 'uncertainRp') && pr && (pr[1] - pr[0]) / 2 > 0.01 * tol * a.proofStrength! && pr[0] <= t.rp02 && t.rp02 <= pr[1]) rpWarned++;
+      else chk('Rp0.2', rpErr, 0.01, `${a.proofStrength} vs ${t.rp02}${pr ? ` (range ${pr[0].toFixed(1)}–${pr[1].toFixed(1)})` : ''}`);
+    }
     chk('Rm', Math.abs(a.tensileStrength - t.rm) / t.rm, 0.004, `${a.tensileStrength} vs ${t.rm}`);
     const agErr = Math.abs(a.uniformElongationPct - t.agPct);
     const [agLo, agHi] = a.forceMaximum.uniformElongationInterval95;
@@ -63,7 +70,7 @@ function holdoutBTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutBTally 
     const warned = a.warnings.some((w) => w.code === 'fewElasticPoints' || w.code === 'uncertainModulus' || w.code === 'elasticBandFallback');
     if (!(lo <= t.E && t.E <= hi) && !warned && Math.abs(a.elasticModulus / t.E - 1) > 0.05 * tol) miss('quietE', `${rec.what}: E ${a.elasticModulus} off by more than 5 % outside its interval, no warning`);
   }
-  return { fails, count, refused, drops, continuous, agWarned };
+  return { fails, count, refused, drops, continuous, agWarned, rpWarned };
 }
 
 
@@ -74,8 +81,8 @@ function holdoutBTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutBTally 
 // side is a quartic), under the noisy tolerance but not under a quarter of it. A was 0.1–0.25 point high on 25
 // noise-free records (read where a fall spread over samples passes 50 %) until the fracture point moved back to
 // where the fall begins: 3 left.
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 17, Ag: 6, ReH: 3, quietE: 4, missedYield: 3, Rm: 1 };
-const CEILINGS_CLEAN: Record<string, number> = { Ag: 122, A: 3, quietE: 7, ReH: 6, Ae: 3, 'Rp0.2': 8 };
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 9, Ag: 6, ReH: 3, quietE: 4, missedYield: 3, Rm: 1 };
+const CEILINGS_CLEAN: Record<string, number> = { Ag: 122, A: 3, quietE: 7, ReH: 6, Ae: 3, 'Rp0.2': 7 };
 
 function holdCeilings(r: HoldoutBTally, ceilings: Record<string, number>): void {
   const list = r.fails.slice(0, 40).join('\n');
@@ -85,7 +92,7 @@ function holdCeilings(r: HoldoutBTally, ceilings: Record<string, number>): void 
 describe('record analysis on 200 hold-out B INVENTED records (a second generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point)", () => {
     const r = holdoutBTally(SEEDS);
-    console.log(`hold-out B, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out B, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Rp warned ${r.rpWarned}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_NOISY);
   }, 180_000);
   it('noise-free: a quarter of those tolerances', () => {
