@@ -121,7 +121,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);
 
   // Fracture: first sudden fall after the highest stress, else the end of the record.
-  const fall = firstFall(stress, iRaw, sMax);
+  const fall = firstFall(stress, iRaw, sMax, noise);
   const detected = fall >= 0;
   const fi = detected ? fall : N - 1;
   const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
@@ -139,6 +139,20 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
       }
     }
     for (const p of proofStrengths) if (p.stress !== null) p.stress = onPlateau(p.index)?.stress ?? p.stress;
+  }
+  // Rp depends on E through the offset line. Where the measured E is uncertain (a coarse or noisy rise, a rise with
+  // no straight part), Rp is also read with E at both ends of its 95 % interval, the line pivoting about the
+  // middle of the elastic band; a spread wider than ±1 % is reported with the range (the record cannot say more).
+  if (proof && !proofRange && given === undefined) {
+    const [eLo, eHi] = el.window.interval95;
+    const mid = 0.5 * (el.window.fromStress + el.window.toStress);
+    const rpAt = (Ei: number) => (Ei > 0 ? proofStrength(strain, stress, Ei, toe + mid / E - mid / Ei, offPct / 100, el.window.fromIndex, N, noise)?.stress ?? null : null);
+    const ends = [rpAt(eLo), rpAt(eHi)].filter((v): v is number => v !== null);
+    const lo = Math.min(proof.stress, ...ends), hi = Math.max(proof.stress, ...ends);
+    if ((hi - lo) / 2 > UNCERTAIN_RP * proof.stress) {
+      proofRange = [lo, hi];
+      warnings.push({ code: 'uncertainRp', message: `Rp${offPct} ${proof.stress.toFixed(1)} MPa depends on E, which the record measures only to ${(eLo / 1000).toFixed(0)}–${(eHi / 1000).toFixed(0)} GPa (95 %): over that interval Rp${offPct} runs from ${lo.toFixed(1)} to ${hi.toFixed(1)} MPa; give the modulus if it is known` });
+    }
   }
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
@@ -302,10 +316,20 @@ function notFinite(strain: ArrayLike<number>, stress: ArrayLike<number>, i: numb
   throw new InputError(`stress[${i}]`, s, 'a finite number');
 }
 
-/** Fracture: the first i ≥ iRaw after which the stress falls by more than fractureDrop or below fractureFloor·sMax; −1 if none. */
-function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number): number {
+/**
+ * Fracture: the first i ≥ iRaw after which the stress falls by more than fractureDrop or below
+ * fractureFloor·sMax, then moved back to where that fall began: a fast-sampled record catches the load on its
+ * way down over a few samples, each step far larger than the necking's and the noise's (> max(6σ̂, 3 % of
+ * the stress)); the specimen broke at the first of them, not at the one where the fall passes 50 %. −1 if none.
+ */
+function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number, noise: number): number {
   const keep = 1 - ANALYZE_DEFAULTS.fractureDrop, floor = ANALYZE_DEFAULTS.fractureFloor * sMax;
-  for (let i = iRaw; i < stress.length - 1; i++) if (stress[i + 1]! < keep * stress[i]! || stress[i + 1]! < floor) return i;
+  for (let i = iRaw; i < stress.length - 1; i++) {
+    if (stress[i + 1]! < keep * stress[i]! || stress[i + 1]! < floor) {
+      while (i > iRaw && stress[i - 1]! - stress[i]! > Math.max(6 * noise, 0.03 * stress[i - 1]!)) i--;
+      return i;
+    }
+  }
   return -1;
 }
 

@@ -3,6 +3,7 @@ import { linearFit } from '../fit/linearFit.js';
 import { studentTQuantile } from '../fit/studentT.js';
 import { polynomialFit } from './localFit.js';
 import { proofStrength } from './proofStrength.js';
+import { initialTangent } from './initialTangent.js';
 import { recordNoise } from './recordNoise.js';
 import type { ElasticWindow } from './types.js';
 
@@ -37,6 +38,10 @@ export const ELASTIC_WINDOW = {
   toeMargin: 2,
   /** A band whose parabola beats its line by more than this many noise sd (√ of the drop of the residual sum over σ̂²) is bent: trimmed at the bent end. */
   curvatureSigmas: 3,
+  /** Top of the wide band over which a bend from low stress (gradual yielding) is looked for, fraction of Rp0.2. */
+  gradualTop: 0.7,
+  /** …and only when the band starts at or below this fraction of Rp0.2. */
+  gradualFrom: 0.2,
 } as const;
 
 export interface ElasticResult {
@@ -46,7 +51,7 @@ export interface ElasticResult {
   /** Noise of the record's stress estimated from the data ({@link recordNoise}), MPa. */
   noise: number;
   /** Problems with E, in words (empty when E is a plausible, well-determined metal modulus). */
-  issues: { code: 'implausibleModulus' | 'fewElasticPoints' | 'uncertainModulus' | 'elasticBandFallback'; message: string }[];
+  issues: { code: 'implausibleModulus' | 'fewElasticPoints' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield'; message: string }[];
 }
 
 interface Line { slope: number; intercept: number; n: number; se: number; ssr: number; r2: number }
@@ -117,6 +122,10 @@ function trimCurvature(x: ArrayLike<number>, y: ArrayLike<number>, from: number,
  *    standard error of the slope wins; Rp0.2 recomputed and the band refitted once if it moved by over 2 %.
  *    When no band holds 4 points, the first line is kept (`elasticBandFallback`).
  * 5. Toe compensation (ISO 6892-1 and ASTM E8 practice): e0 = −intercept/E is subtracted from all strains.
+ * 6. Gradual yielding (no straight part): when the band starts at ≤ 20 % of Rp0.2, a Ramberg–Osgood-form
+ *    curve is fitted from there to 70 % of Rp0.2 ({@link initialTangent}); a significant bend that agrees with
+ *    the band's lowest part and whose initial tangent is above the line's slope makes the tangent E
+ *    (`gradualYield`), its interval reaching down to the line's secant.
  * The 95 % interval is E ± t(0.975, n − 2)·SE (Student t). Issues are returned, not thrown: E outside
  * 40–450 GPa (common practice), fewer than 8 points, an interval wider than ±10 %.
  * Units: strain fraction, stress MPa, E MPa. Valid: at least 4 points on the rising branch.
@@ -200,10 +209,45 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     fallback = false;
     fit = chosen.f; i0 = chosen.i0; i1 = chosen.i1; bandLo = lo; bandHi = chosen.hi;
   }
-  const E = fit.slope;
-  const se = seOf(fit);
-  const t = studentTQuantile(0.975, Math.max(1, fit.n - 2));
-  const interval: [number, number] = [E - t * se, E + t * se];
+  let E = fit.slope;
+  let se = seOf(fit);
+  let toeStrain = -fit.intercept / E;
+  let nUsed = fit.n;
+  let method: string | null = null;
+  // 6. A rise that bends from low stress on (gradual yielding) has no straight band: every line over it is a
+  // secant below E, which lets Rp0.2 come out high. Over the wide band (its lower end to 70 % of Rp0.2) a
+  // line with a power-law bend is fitted ({@link initialTangent}); when the bend is significant AND the line's
+  // slope lies below the bent fit's initial tangent, the tangent is E (a bend only lowers a secant).
+  let secant: number | null = null;
+  // Only where the band reaches down to low stress (≤ 20 % of Rp0.2): a band raised by a toe starts where a
+  // bend from low stress cannot be told from the toe's end and the knee's microplasticity (on the 42CrMoS4
+  // open records such a band gave tangents 4–6 % above the producers' E).
+  if (!fallback && bandLo <= W.gradualFrom * proofEst) {
+    const ia = firstAt(bandLo), ib = firstAt(W.gradualTop * proofEst);
+    const tg = initialTangent(strain, stress, ia, ib, noise, W.curvatureSigmas);
+    // The bent fit must also agree with the band's lowest part (10–30 % of Rp0.2): the slope of a line through
+    // its own values there must match the data's line within 3 SE; a tangent far above the data is the bend
+    // term fitting noise, not the material.
+    const jb = Math.min(ib, Math.max(ia + W.fewPoints, firstAt(0.3 * proofEst)));
+    const low = line(strain, stress, ia, jb, noise);
+    let agrees = true;
+    if (tg && low) {
+      const xm = new Float64Array(jb - ia);
+      for (let i = ia; i < jb; i++) xm[i - ia] = tg.strainAt(stress[i]!);
+      const lm = line(xm, stress.length === 0 ? xm : Float64Array.from({ length: jb - ia }, (_, k) => stress[ia + k]!), 0, jb - ia, 0);
+      agrees = lm !== null && Math.abs(lm.slope - low.slope) <= 3 * Math.hypot(low.se, tg.standardError);
+    }
+      if (tg && agrees && tg.modulus > E && tg.modulus <= W.plausible[1]) {
+      issues.push({ code: 'gradualYield', message: `the rise bends from low stress on (no straight elastic part, as in austenitic stainless steels and many aluminium alloys): E = ${(tg.modulus / 1000).toFixed(1)} GPa is the initial tangent of a line with a power-law bend (exponent ${tg.power}) fitted over ${bandLo.toFixed(0)}–${stress[ib - 1]!.toFixed(0)} MPa; a straight line gives ${(E / 1000).toFixed(1)} GPa, which would overstate Rp0.2. Give the modulus if it is known` });
+      secant = E;
+      E = tg.modulus; se = tg.standardError; toeStrain = tg.toeStrain; nUsed = tg.points; i0 = ia; i1 = ib; bandHi = stress[ib - 1]!;
+      method = `initial tangent of a line with a power-law bend σ = a + E·x − d·(x/X)^${tg.power} (Ramberg–Osgood form) over the band from its lower end to ${W.gradualTop * 100} % of the record's Rp0.2 estimate; toe-compensated`;
+    }
+  }
+  const t = studentTQuantile(0.975, Math.max(1, nUsed - 2));
+  // With a bend from low stress, E lies between the straight line's secant (a bend only lowers a secant) and
+  // the tangent's upper bound: the interval's lower end reaches down to the secant.
+  const interval: [number, number] = [secant === null ? E - t * se : Math.min(E - t * se, secant), E + t * se];
   if (fallback) {
     bandLo = stress[i0]!; bandHi = stress[i1 - 1]!;
     issues.push({ code: 'elasticBandFallback', message: `the band 10–40 % of Rp0.2 holds fewer than ${W.minPoints} points of the initial rise; E is taken from the straightest band found (${fit.n} points, ${bandLo.toFixed(0)}–${bandHi.toFixed(0)} MPa)` });
@@ -211,14 +255,14 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   const [pLo, pHi] = W.plausible;
   if (!(E >= pLo && E <= pHi)) {
     issues.push({ code: 'implausibleModulus', message: `E = ${(E / 1000).toFixed(1)} GPa from the elastic band (${fit.n} points, ${bandLo.toFixed(0)}–${bandHi.toFixed(0)} MPa) is outside the range of metals (${pLo / 1000}–${pHi / 1000} GPa, common practice): the strain is probably not from an extensometer, or the record has too few elastic points; give the modulus (--modulus, or the record bench's modulus field)` });
-  } else if (fit.n < W.fewPoints) {
-    issues.push({ code: 'fewElasticPoints', message: `only ${fit.n} points in the elastic band; E = ${(E / 1000).toFixed(1)} GPa, 95 % interval ${(interval[0] / 1000).toFixed(1)}–${(interval[1] / 1000).toFixed(1)} GPa; give the modulus if it is known` });
-  } else if ((t * se) / E > W.maxRelInterval) {
-    issues.push({ code: 'uncertainModulus', message: `E = ${(E / 1000).toFixed(1)} GPa is uncertain: 95 % interval ±${((100 * t * se) / E).toFixed(0)} % (${fit.n} points, noise ${noise.toPrecision(2)} MPa); give the modulus if it is known` });
+  } else if (nUsed < W.fewPoints) {
+    issues.push({ code: 'fewElasticPoints', message: `only ${nUsed} points in the elastic band; E = ${(E / 1000).toFixed(1)} GPa, 95 % interval ${(interval[0] / 1000).toFixed(1)}–${(interval[1] / 1000).toFixed(1)} GPa; give the modulus if it is known` });
+  } else if ((interval[1] - interval[0]) / 2 / E > W.maxRelInterval) {
+    issues.push({ code: 'uncertainModulus', message: `E = ${(E / 1000).toFixed(1)} GPa is uncertain: 95 % interval ±${((100 * (interval[1] - interval[0])) / 2 / E).toFixed(0)} % (${nUsed} points, noise ${noise.toPrecision(2)} MPa); give the modulus if it is known` });
   }
   return {
     modulus: E,
-    toeStrain: -fit.intercept / E,
+    toeStrain,
     noise,
     issues,
     window: {
@@ -226,14 +270,14 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
       toStress: bandHi,
       fromIndex: i0,
       toIndex: i1,
-      points: fit.n,
+      points: nUsed,
       r2: fit.r2,
       standardError: se,
       interval95: interval,
       proofEstimate: proofEst,
-      method: fallback
+      method: method ?? (fallback
         ? 'least squares over the band of the initial rise with the highest lower confidence bound of the slope; toe-compensated'
-        : 'least squares over 10–40 % of the record\'s Rp0.2 estimate (ISO 6892-1 Annex G practice), above the toe, widened when too few points; toe-compensated',
+        : 'least squares over 10–40 % of the record\'s Rp0.2 estimate (ISO 6892-1 Annex G practice), above the toe, widened when too few points; toe-compensated'),
     },
   };
 }

@@ -8,7 +8,7 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'modulusGiven' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
   message: string;
 }
 
@@ -106,7 +106,7 @@ export interface TensileAnalysis {
   toeStrain: number;
   /** Rp at the requested offset (default 0.2 %), MPa. */
   proofStrength: number | null;
-  /** On a yield plateau: the band of stresses where the offset line can meet the serrations, MPa (see plateauProofStrength); null elsewhere. */
+  /** On a yield plateau: the band of stresses where the offset line can meet the serrations, MPa (see plateauProofStrength); elsewhere, when E is uncertain enough to move Rp by more than ±1 %, Rp over E's 95 % interval; else null. */
   proofStrengthRange: [number, number] | null;
   proofOffsetPct: number;
   /** Rp0.2, Rp0.5, Rp1, MPa (null where not reached). */

@@ -11,13 +11,13 @@ import { holdoutRecord } from './lab-records-holdout.helpers.js';
 
 const SEEDS = Array.from({ length: 200 }, (_, i) => 1000 + i);
 
-interface HoldoutTally { fails: string[]; count: Record<string, number>; refused: number; drops: number; continuous: number; agWarned: number }
+interface HoldoutTally { fails: string[]; count: Record<string, number>; refused: number; drops: number; continuous: number; agWarned: number; rpWarned: number }
 
 /** Runs the analysis on every hold-out seed and tallies the misses by property. */
 function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
   const fails: string[] = [];
   const count: Record<string, number> = {};
-  let refused = 0, drops = 0, continuous = 0, agWarned = 0;
+  let refused = 0, drops = 0, continuous = 0, agWarned = 0, rpWarned = 0;
   const miss = (k: string, msg: string) => { fails.push(msg); count[k] = (count[k] ?? 0) + 1; };
   for (const seed of seeds) {
     const rec = holdoutRecord(seed, noiseScale);
@@ -34,7 +34,14 @@ function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
     const chk = (k: string, err: number, t0: number, msg: string) => { if (!(err <= t0 * tol)) miss(k, `${rec.what}: ${k} ${msg}`); };
     // Rp0.2 on a plateau serrated by more than 0.5 % depends on which serration the offset line meets; ISO 6892-1
     // reports ReH/ReL for discontinuous yielding, so Rp0.2 is checked only where it is well defined.
-    if (t.serration <= 0.005) chk('Rp0.2', Math.abs(a.proofStrength! - t.rp02) / t.rp02, 0.01, `${a.proofStrength} vs ${t.rp02}`);
+    if (t.serration <= 0.005) {
+      // Off by more than 1 % is accepted only when the analysis says Rp is uncertain (E measured too loosely to
+      // fix it to ±1 %) and gives a range that holds the truth.
+      const pr = a.proofStrengthRange;
+      const rpErr = Math.abs(a.proofStrength! - t.rp02) / t.rp02;
+      if (rpErr > 0.01 * tol && a.warnings.some((w) => w.code === 'uncertainRp') && pr && (pr[1] - pr[0]) / 2 > 0.01 * tol * a.proofStrength! && pr[0] <= t.rp02 && t.rp02 <= pr[1]) rpWarned++;
+      else chk('Rp0.2', rpErr, 0.01, `${a.proofStrength} vs ${t.rp02}${pr ? ` (range ${pr[0].toFixed(1)}–${pr[1].toFixed(1)})` : ''}`);
+    }
     chk('Rm', Math.abs(a.tensileStrength - t.rm) / t.rm, 0.004, `${a.tensileStrength} vs ${t.rm}`);
     const agErr = Math.abs(a.uniformElongationPct - t.agPct);
     const [agLo, agHi] = a.forceMaximum.uniformElongationInterval95;
@@ -63,7 +70,7 @@ function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
     const warned = a.warnings.some((w) => w.code === 'fewElasticPoints' || w.code === 'uncertainModulus' || w.code === 'elasticBandFallback');
     if (!(lo <= t.E && t.E <= hi) && !warned && Math.abs(a.elasticModulus / t.E - 1) > 0.05 * tol) miss('quietE', `${rec.what}: E ${a.elasticModulus} off by more than 5 % outside its interval, no warning`);
   }
-  return { fails, count, refused, drops, continuous, agWarned };
+  return { fails, count, refused, drops, continuous, agWarned, rpWarned };
 }
 
 // What the misses showed when this test was written (lead's reading, for whoever fixes them):
@@ -85,7 +92,7 @@ function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
 // unwarned 4; noise-free Ag 200, ReL 34, Ae 11, ReH 9, missed drops 5. After the estimator work (21:05 UTC), the
 // counts below: NOT zero. The noisy misses are mostly correlated load noise (ρ 0.4–0.65), which the white-noise
 // estimate of the record reads low; see docs/records-and-fits.md.
-const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 4, missedYield: 2, ReH: 3, 'Rp0.2': 4, quietE: 2 };
+const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 4, missedYield: 2, ReH: 3, 'Rp0.2': 3, quietE: 2 };
 const CEILINGS_CLEAN: Record<string, number> = { ReH: 3 };
 
 function holdCeilings(r: HoldoutTally, ceilings: Record<string, number>): void {
@@ -96,7 +103,7 @@ function holdCeilings(r: HoldoutTally, ceilings: Record<string, number>): void {
 describe('record analysis on 200 hold-out INVENTED records (a generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point)", () => {
     const r = holdoutTally(SEEDS);
-    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Rp warned ${r.rpWarned}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_NOISY);
   }, 180_000);
   it('noise-free: a quarter of those tolerances (the estimators are unbiased on clean data)', () => {
