@@ -157,13 +157,18 @@ export function yieldPoint(
       // the rise, each tried) lie below the line through the samples before them by more than 3 standard errors,
       // the rise bends before the peak and reading the line at the peak would put ReH above every sample. The
       // peak is then read from the samples: the highest moving average (over m samples) around it.
+      // The peak sample q itself is left out of this test, as out of the line: a peak sample already part-way down
+      // the fall is not a bend of the rise (it made clean records with a sample just past the peak read ReH at the
+      // moving average, 0.5–0.7 % low). The noise is floored at 10⁻⁹ of the stress, the arithmetic's own
+      // resolution, so the rounding of an exact line does not read as a bend on a noise-free record.
+      const noiseK = Math.max(noise, 1e-9 * Math.abs(stress[q]!));
       for (const m of new Set([4, 8, 16, Math.min(20, Math.round(k / 4))])) {
         if (!(m >= 2 && k - m >= 3)) continue;
-        const g = linearFit(strain, stress, k0, q - m + 1);
+        const g = linearFit(strain, stress, k0, q - m);
         let res = 0;
-        for (let i = q - m + 1; i <= q; i++) res += stress[i]! - (g.intercept + g.slope * strain[i]!);
+        for (let i = q - m; i < q; i++) res += stress[i]! - (g.intercept + g.slope * strain[i]!);
         res /= m;
-        if (res < -Y.kneeSigmas * noise * Math.sqrt(1 / m + 4 / (k - m + 1))) {
+        if (res < -Y.kneeSigmas * noiseK * Math.sqrt(1 / m + 4 / (k - m))) {
           rise = null;
           const ma = movingAverage(stress, q - m + 1, Math.min(maxIndex, q + m) + 1, m | 1);
           reh = -Infinity;
