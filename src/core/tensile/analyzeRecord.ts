@@ -5,7 +5,7 @@ import { fitModulusDecay, findCycles } from './cycles.js';
 import { linearFit } from '../fit/linearFit.js';
 import { ELASTIC_WINDOW, elasticModulus } from './elasticModulus.js';
 import { forceMaximum } from './forceMaximum.js';
-import { recordNoise } from './recordNoise.js';
+import { recordNoiseWide } from './recordNoise.js';
 import { nValueFit, nValueFitLogs } from './nValue.js';
 import { lawData, type LawData } from '../fit/lawNormalEquations.js';
 import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
@@ -74,7 +74,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const warnings: TensileWarning[] = [];
   const sMax = stress[iRaw]!;
   if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
-  const noise = recordNoise(stress);
+  const noise = recordNoiseWide(stress);
   const el = elasticModulus(strain, stress, sMax, noise);
   const given = opts.elasticModulus;
   if (given !== undefined && !(given > 0 && Number.isFinite(given))) throw new InputError('elasticModulus', given, 'a modulus > 0 MPa');

@@ -3,7 +3,7 @@ import { linearFit } from '../fit/linearFit.js';
 import { studentTQuantile } from '../fit/studentT.js';
 import { polynomialFit } from './localFit.js';
 import { proofStrength } from './proofStrength.js';
-import { recordNoise } from './recordNoise.js';
+import { recordNoiseWide } from './recordNoise.js';
 import type { ElasticWindow } from './types.js';
 
 /**
@@ -43,7 +43,7 @@ export interface ElasticResult {
   modulus: number;
   toeStrain: number;
   window: ElasticWindow;
-  /** Noise of the record's stress estimated from the data ({@link recordNoise}), MPa. */
+  /** Noise of the record's stress estimated from the data ({@link recordNoiseWide}), MPa. */
   noise: number;
   /** Problems with E, in words (empty when E is a plausible, well-determined metal modulus). */
   issues: { code: 'implausibleModulus' | 'fewElasticPoints' | 'uncertainModulus' | 'elasticBandFallback'; message: string }[];
@@ -104,7 +104,7 @@ function trimCurvature(x: ArrayLike<number>, y: ArrayLike<number>, from: number,
  * Young's modulus E by least squares over a stress band tied to the record's own proof strength, robust
  * to noise, to a toe and to an elastic rise of few samples.
  *
- * 1. Noise σ̂ of the stress from the data ({@link recordNoise}).
+ * 1. Noise σ̂ of the stress from the data ({@link recordNoiseWide}).
  * 2. A first line: every band [a, a + w]·Smax (a from 0.02 to 0.6, w from 0.1 to 0.8, top ≤ 0.9·Smax)
  *    on the first rise (points before the stress first exceeds the band's top); the band with the highest
  *    lower confidence bound E − 2·SE(E), SE from max(σ̂, residual scatter)/√Sxx, wins. A plastic or toe
@@ -129,7 +129,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   let top = rm ?? 0;
   if (rm === undefined) for (let i = 0; i < n; i++) top = Math.max(top, stress[i]!);
   if (!(top > 0)) throw new InputError('stress', top, 'a record whose highest stress is above 0 MPa');
-  const noise = noiseIn ?? recordNoise(stress);
+  const noise = noiseIn ?? recordNoiseWide(stress);
   // Running maximum of the first rise, to find "the first index at or above a level" by bisection.
   let iTop = 0;
   while (iTop < n && stress[iTop]! < 0.98 * top) iTop++;
@@ -201,8 +201,15 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     fit = chosen.f; i0 = chosen.i0; i1 = chosen.i1; bandLo = lo; bandHi = chosen.hi;
   }
   const E = fit.slope;
-  const se = seOf(fit);
-  const t = studentTQuantile(0.975, Math.max(1, fit.n - 2));
+  // Load noise correlated from sample to sample (a filter in the machine) makes the band's residuals alike, and
+  // least squares then claims more precision than the samples hold: SE is widened by √((1 + ρ)/(1 − ρ)), ρ the lag-1
+  // autocorrelation of the band's residuals (ρ < 0 taken as 0), and the degrees of freedom shrink to the effective
+  // number of points n(1 − ρ)/(1 + ρ) (the AR(1) variance factor of a mean; the law fits' `effectivePoints` does
+  // the same).
+  const rho = residualLag1(strain, stress, i0, i1, fit.slope, fit.intercept);
+  const corr = (1 + rho) / (1 - rho);
+  const se = seOf(fit) * Math.sqrt(corr);
+  const t = studentTQuantile(0.975, Math.max(1, fit.n / corr - 2));
   const interval: [number, number] = [E - t * se, E + t * se];
   if (fallback) {
     bandLo = stress[i0]!; bandHi = stress[i1 - 1]!;
@@ -236,4 +243,16 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
         : 'least squares over 10–40 % of the record\'s Rp0.2 estimate (ISO 6892-1 Annex G practice), above the toe, widened when too few points; toe-compensated',
     },
   };
+}
+
+/** Lag-1 autocorrelation of the residuals of the line a + b·x over [from, to), in [0, 0.9] (negative taken as 0). */
+function residualLag1(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, b: number, a: number): number {
+  let s00 = 0, s01 = 0, prev = 0;
+  for (let i = from; i < to; i++) {
+    const r = y[i]! - (a + b * x[i]!);
+    s00 += r * r;
+    if (i > from) s01 += r * prev;
+    prev = r;
+  }
+  return s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
 }
