@@ -3,7 +3,7 @@ import { fitAllLaws, type FitAllOptions, type LawComparison } from '../fit/fitAl
 import type { LawName } from '../flow/types.js';
 import { fitModulusDecay, findCycles } from './cycles.js';
 import { linearFit } from '../fit/linearFit.js';
-import { ELASTIC_WINDOW, elasticModulus } from './elasticModulus.js';
+import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus } from './elasticModulus.js';
 import { forceMaximum } from './forceMaximum.js';
 import { recordNoiseWide } from './recordNoise.js';
 import { nValueFit, nValueFitLogs } from './nValue.js';
@@ -109,7 +109,8 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
 
   const offPct = opts.proofOffsetPct ?? ANALYZE_DEFAULTS.proofOffsetPct;
   if (!(offPct > 0 && offPct <= 5)) throw new InputError('proofOffsetPct', offPct, 'a number in (0, 5] %');
-  const rp = (pct: number) => proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise);
+  const lineVar = given === undefined ? elasticLineVariance(strain, stress, el.window, E) : undefined;
+  const rp = (pct: number) => proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise, lineVar);
   let proof = rp(offPct);
   if (!proof) warnings.push({ code: 'noProofPoint', message: `the curve never meets the ${offPct} % offset line; no proof strength` });
   const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null, index: rp(p)?.index ?? -1 }));
@@ -134,6 +135,12 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
       }
     }
     for (const p of proofStrengths) if (p.stress !== null) p.stress = onPlateau(p.index)?.stress ?? p.stress;
+  }
+  // A proof point read from a local fit carries its 95 % interval (noise and E); wider than ±1 % it is said.
+  if (proof && !proofRange && proof.halfWidth95 !== undefined) {
+    const h = proof.halfWidth95;
+    proofRange = [proof.stress - h, proof.stress + h];
+    if (h > UNCERTAIN_RP * proof.stress) warnings.push({ code: 'uncertainRp', message: `Rp${offPct} ${proof.stress.toFixed(1)} MPa is uncertain: the record's noise and its few samples near the offset point (and the uncertainty of E) place it anywhere from ${proofRange[0].toFixed(1)} to ${proofRange[1].toFixed(1)} MPa (95 % interval); give the modulus if it is known` });
   }
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).

@@ -256,3 +256,23 @@ function residualLag1(x: ArrayLike<number>, y: ArrayLike<number>, from: number, 
   }
   return s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
 }
+
+/**
+ * Variance of the elastic line's strain at a stress s (inverse prediction from the band's least-squares line,
+ * Draper & Smith ch. 3): Var ê(s) = SE(E)²·Sxx/(E²·n) + (s − s̄)²·SE(E)²/E⁴, with n, Sxx and s̄ of the band's samples and
+ * SE(E) as reported (already floored at the noise and widened for correlated residuals); σ² = SE(E)²·Sxx is the
+ * scatter the slope's error came from. Units: strain² for s in MPa. Used to carry the uncertainty of E and of the toe
+ * into the offset construction of Rp.
+ * @example elasticLineVariance(strain, stress, el.window, el.modulus)(300) // strain², ≥ 0
+ */
+export function elasticLineVariance(strain: ArrayLike<number>, stress: ArrayLike<number>, w: { fromIndex: number; toIndex: number; standardError: number }, E: number): (s: number) => number {
+  const n = w.toIndex - w.fromIndex;
+  if (!(n >= 2) || !(w.standardError >= 0)) return () => 0;
+  let mx = 0, ms = 0;
+  for (let i = w.fromIndex; i < w.toIndex; i++) { mx += strain[i]!; ms += stress[i]!; }
+  mx /= n; ms /= n;
+  let sxx = 0;
+  for (let i = w.fromIndex; i < w.toIndex; i++) sxx += (strain[i]! - mx) ** 2;
+  const se2 = w.standardError ** 2;
+  return (s) => (se2 * sxx) / (E * E * n) + ((s - ms) ** 2 * se2) / E ** 4;
+}
