@@ -109,9 +109,10 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
 
   const offPct = opts.proofOffsetPct ?? ANALYZE_DEFAULTS.proofOffsetPct;
   if (!(offPct > 0 && offPct <= 5)) throw new InputError('proofOffsetPct', offPct, 'a number in (0, 5] %');
-  const lineVar = given === undefined ? elasticLineVariance(strain, stress, el.window, E) : undefined;
-  const rp = (pct: number) => proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise, lineVar);
-  let proof = rp(offPct);
+  // The elastic line's error (slope and toe) enters Rp's interval; a given E is taken as exact.
+  const lineVar = given === undefined ? elasticLineVariance(strain, stress, el.window, E) : () => 0;
+  const rp = (pct: number, withError = false) => proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise, withError ? lineVar : undefined);
+  let proof = rp(offPct, true);
   if (!proof) warnings.push({ code: 'noProofPoint', message: `the curve never meets the ${offPct} % offset line; no proof strength` });
   const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null, index: rp(p)?.index ?? -1 }));
   const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);

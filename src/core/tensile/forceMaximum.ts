@@ -31,6 +31,9 @@ const TOP_BLOCKS = 1000;
 /** Top models whose AIC is within this of the best's join Ag's interval (Akaike weight ratio e^(−3) ≈ 1/20). */
 const TOP_MODEL_AIC = 6;
 
+/** Block averages the Ag models are fitted on (at most). */
+const AG_BLOCKS = 300;
+
 /**
  * Maximum force from a local smooth fit around the top, not the highest raw sample (the highest of
  * many noisy samples is biased high by 2–3 noise standard deviations).
@@ -143,16 +146,28 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // solution with the least residual sum (a convex problem: that is its optimum).
   const S2 = new Float64Array(K * K), T2 = new Float64Array(K);
   // Normal equations of the top model at vertex xv, shared by every variant (one pass over the bins).
+  // The Ag models see the span in at most AG_BLOCKS groups: the vertex comes from the shape of the top, which 300
+  // block means hold as well as 1000 (same vertices on the property tests), at a third of the cost per trial vertex.
+  const ag = blockAverage(xs, ys, Math.ceil(m / AG_BLOCKS));
+  const ax = ag.x, ay = ag.y, aw = ag.w, na = ax.length;
   const accumulate = (xv: number) => {
-    S2.fill(0); T2.fill(0);
-    let tt = 0, nL = 0, nR = 0;
-    for (let b = 0; b < nb; b++) {
-      const u = (bx[b]! - xv) / h, y = by[b]!, wt = bw[b]!, u2 = u * u;
-      col.fill(0); col[0] = 1; col[1] = -u2;
-      if (u < 0) { col[2] = u2 * u; nL++; } else { col[3] = -u2; col[4] = -u2 * u; nR++; }
-      for (let r = 0; r < K; r++) { if (col[r] === 0) continue; T2[r]! += wt * col[r]! * y; for (let c = r; c < K; c++) S2[r * K + c]! += wt * col[r]! * col[c]!; }
-      tt += wt * y * y;
+    // Columns 1, −u², u³ (left of the vertex) or 1, −u², −u², −u³ (right of it: a and δ), written out.
+    let s00 = 0, s01 = 0, s02 = 0, s03 = 0, s04 = 0, s11 = 0, s12 = 0, s13 = 0, s14 = 0, s22 = 0, s33 = 0, s34 = 0, s44 = 0;
+    let t0 = 0, t1 = 0, t2 = 0, t3 = 0, t4 = 0, tt = 0, nL = 0, nR = 0;
+    for (let b = 0; b < na; b++) {
+      const u = (ax[b]! - xv) / h, y = ay[b]!, wt = aw[b]!, u2 = u * u, u3 = u2 * u;
+      const wy = wt * y;
+      s00 += wt; t0 += wy; s11 += wt * u2 * u2; t1 -= wy * u2; tt += wy * y;
+      if (u < 0) { nL++; s01 -= wt * u2; s02 += wt * u3; s12 -= wt * u2 * u3; s22 += wt * u3 * u3; t2 += wy * u3; }
+      else {
+        nR++; s01 -= wt * u2; s03 -= wt * u2; s04 -= wt * u3; s13 += wt * u2 * u2; s14 += wt * u2 * u3;
+        s33 += wt * u2 * u2; s34 += wt * u2 * u3; s44 += wt * u3 * u3; t3 -= wy * u2; t4 -= wy * u3;
+      }
     }
+    S2.fill(0);
+    S2[0] = s00; S2[1] = s01; S2[2] = s02; S2[3] = s03; S2[4] = s04;
+    S2[6] = s11; S2[7] = s12; S2[8] = s13; S2[9] = s14; S2[12] = s22; S2[18] = s33; S2[19] = s34; S2[24] = s44;
+    T2[0] = t0; T2[1] = t1; T2[2] = t2; T2[3] = t3; T2[4] = t4;
     return nL + nR < 4 ? null : { tt, nL, nR };
   };
   // One variant's bounded fit from the normal equations in S2, T2: every set of active bounds, the feasible one
@@ -162,10 +177,12 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
     const uL = (xa - xv) / h;
     for (let active = 0; active < 4; active++) {
       const useD = (active & 1) === 0, useB = (active & 2) === 0;
-      const idx = [0, 1];
+      const idx = IDX;
+      idx.length = 2;
       if (acc.nL >= 3 && leftCubic) idx.push(2);
       if (useD && kink && acc.nR >= 2) idx.push(3);
       if (useB && rightCubic && acc.nR >= 3) idx.push(4);
+      if (active > 0 && ((active & 1 && !(kink && acc.nR >= 2)) || (active & 2 && !(rightCubic && acc.nR >= 3)))) continue; // same set as tried
       const coef = solveSubset(S2, T2, K, idx);
       if (!coef) continue;
       if (coef[3]! < 0 || coef[4]! < 0) continue;
@@ -174,7 +191,7 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
       // The top falls away from its vertex over the whole span (no second top inside it).
       if (uL < 0 && -2 * coef[1]! * uL + 3 * coef[2]! * uL * uL < 0) continue;
       if (!(coef[1]! + coef[3]! >= 0)) continue;
-      if (!bestFit || ssr < bestFit.ssr) bestFit = { Rm: coef[0]!, aL: coef[1]!, aR: coef[1]! + coef[3]!, ssr, coef };
+      if (!bestFit || ssr < bestFit.ssr) bestFit = { Rm: coef[0]!, aL: coef[1]!, aR: coef[1]! + coef[3]!, ssr, coef: coef.slice() };
     }
     return bestFit;
   };
@@ -269,10 +286,10 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   {
     const cf = chosenF.coef;
     let prev = 0, s01 = 0, s00 = 0;
-    for (let b = 0; b < nb; b++) {
-      const u = (bx[b]! - bestX) / h, u2 = u * u;
+    for (let b = 0; b < na; b++) {
+      const u = (ax[b]! - bestX) / h, u2 = u * u;
       const fit = cf[0]! - cf[1]! * u2 + (u < 0 ? cf[2]! * u2 * u : -cf[3]! * u2 - cf[4]! * u2 * u);
-      const r = (by[b]! - fit) * Math.sqrt(bw[b]!);
+      const r = (ay[b]! - fit) * Math.sqrt(aw[b]!);
       s00 += r * r; if (b > 0) s01 += r * prev; prev = r;
     }
     const rho = s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
@@ -301,10 +318,16 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   return { stress: topStress, strain: xAg, index: best, points: i1 - i0, span: [xa, xb], flat, strainInterval95: [Math.min(ciLo, xAg), Math.max(ciHi, xAg)] };
 }
 
-/** Least squares on the columns `idx` of the normal equations (S upper triangle, k×k row-major): Gaussian elimination with partial pivoting; the other coefficients are 0. Null when singular. */
+/** Scratch for {@link solveSubset}: the augmented system (at most 5 × 6) and the coefficients. */
+const SUB_M = new Float64Array(30), SUB_C = [0, 0, 0, 0, 0], IDX = [0, 1];
+
+/**
+ * Least squares on the columns `idx` of the normal equations (S upper triangle, k×k row-major, k ≤ 5): Gaussian
+ * elimination with partial pivoting; the other coefficients are 0. Writes into a shared scratch array and returns
+ * it (copy it to keep it), or null when singular. No allocation: it runs some thousands of times per record.
+ */
 function solveSubset(S: Float64Array, T: Float64Array, k: number, idx: readonly number[]): number[] | null {
-  const m = idx.length, W = m + 1;
-  const M = new Float64Array(m * W);
+  const m = idx.length, W = m + 1, M = SUB_M;
   for (let i = 0; i < m; i++) {
     for (let j = 0; j < m; j++) { const r = idx[i]!, c = idx[j]!; M[i * W + j] = S[Math.min(r, c) * k + Math.max(r, c)]!; }
     M[i * W + m] = T[idx[i]!]!;
@@ -321,7 +344,8 @@ function solveSubset(S: Float64Array, T: Float64Array, k: number, idx: readonly 
       if (f !== 0) for (let q = c; q < W; q++) M[r * W + q]! -= f * M[c * W + q]!;
     }
   }
-  const coef = new Array<number>(k).fill(0);
+  const coef = SUB_C;
+  coef.fill(0);
   for (let r = 0; r < m; r++) coef[idx[r]!] = M[r * W + m]! / M[r * W + r]!;
   return coef;
 }

@@ -8,7 +8,7 @@ import { movingAverage, polynomialFit } from './localFit.js';
  * after `fromIndex`, linearly interpolated between the two bracketing points; with `noise` > 0 (the
  * record's noise sd, MPa) the crossing is read from a least-squares parabola through the samples
  * whose plastic strain is within [offset/2, 2·offset] (at least 7), not from two noisy samples, with its standard
- * error (the parabola's prediction error at the crossing, widened for correlated residuals, and `lineVariance`, the
+ * error when `lineVariance` is given (the parabola's prediction error at the crossing, widened for correlated residuals, and `lineVariance`, the
  * variance of the elastic line's strain at a stress (strain², from {@link elasticLineVariance}), carried through the
  * offset line).
  * Units: strain fraction, stresses and E in MPa. Valid: offset > 0.
@@ -40,7 +40,7 @@ export function proofStrength(
  * does not cross the line inside its own span (the raw crossing is used then). Returns the crossing's standard error
  * too (the parabola's prediction error and the modulus's, see below).
  */
-function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number, noise: number, lineVariance?: (stress: number) => number): { stress: number; index: number; standardError: number; halfWidth95: number } | null {
+function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number, noise: number, lineVariance?: (stress: number) => number): { stress: number; index: number; standardError?: number; halfWidth95?: number } | null {
   const pl = (i: number) => strain[i]! - toe - stress[i]! / E;
   const lo = 0.5 * offset, hi = 2 * offset;
   // The window ends where three samples in a row leave [lo, hi]: one noisy sample (in load or extension, the
@@ -70,6 +70,8 @@ function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E:
   // from sample to sample (lag-1 ρ ≥ 0); a change δ of the curve moves the crossing's stress by δ·E/(E − f′). The
   // elastic line's own error (slope and toe, `lineVariance`: the variance of its strain at the crossing's stress)
   // shifts the offset line sideways by Δe, which moves the crossing's stress by f′·Δe·E/(E − f′).
+  const at = { stress: f.at(e), index: i + Math.min(1, Math.max(0, t)) };
+  if (!lineVariance) return at;
   const S = [0, 0, 0, 0, 0];
   let r00 = 0, r01 = 0, prev = 0;
   for (let k = a; k <= b; k++) {
@@ -90,7 +92,7 @@ function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E:
   // 95 % half-width with Student's t on the effective degrees of freedom n(1 − ρ)/(1 + ρ) − 3.
   const se = Math.hypot(sFit, sE);
   const dof = Math.max(1, (f.n * (1 - rho)) / (1 + rho) - 3);
-  return { stress: f.at(e), index: i + Math.min(1, Math.max(0, t)), standardError: se, halfWidth95: studentTQuantile(0.975, dof) * se };
+  return { ...at, standardError: se, halfWidth95: studentTQuantile(0.975, dof) * se };
 }
 
 /** xᵀ M⁻¹ x for the symmetric 3×3 moment matrix M[r][c] = S[r + c] (Hankel), by the adjugate; Infinity when singular. */

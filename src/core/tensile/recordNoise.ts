@@ -50,7 +50,7 @@ export function recordNoise(stress: ArrayLike<number>, from = 0, to = stress.len
  * @example recordNoiseWide([0, 1, 2, 3, 4]) // 0
  */
 /** Blocks per scale at most in {@link recordNoiseWide}. */
-const MAX_BLOCKS = 2000;
+const MAX_BLOCKS = 1000;
 
 export function recordNoiseWide(stress: ArrayLike<number>, from = 0, to = stress.length): number {
   let best = recordNoise(stress, from, to);
