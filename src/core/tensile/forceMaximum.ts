@@ -46,7 +46,8 @@ const AG_BLOCKS = 300;
  * - Rm: two half-parabolas joined at the vertex with zero slope, the hardening side with a cubic term
  *   (s = Rm − aL·u² + bL·u³ left, Rm − aR·u² right); Rm is its maximum (one parameter fewer than a cubic on both
  *   sides halves the scatter of Rm on noisy coarse records).
- * - Ag: s = Rm − a·u² + bL·u³ left of the vertex, Rm − (a + δ)·u² − bR·u³ right of it, δ ≥ 0 and bR ≥ 0 (the
+ * - Ag: s = Rm − a·u² + bL·u³ left of the vertex, Rm − (a + δ)·u² − bR·u³ right of it, a ≥ 0 (a top is concave at
+ *   its vertex), δ ≥ 0 and bR ≥ 0 (the
  *   necking side at least as curved at the vertex and falling ever faster, common practice), in eight nested forms
  *   (δ, bL, bR each in or out) compared by Akaike's criterion at the noise scale; Ag is the chosen model's vertex.
  *   Terms the data do not ask for let the vertex wander on a flat, noisy top; the simplest adequate model places it
@@ -138,11 +139,11 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
     return { Rm: coef[0]!, aL: coef[1]!, aR: coef[3]!, ssr };
   };
   // The top model for Ag: s = Rm − a·u² + bL·u³ left of the vertex, Rm − (a + δ)·u² − bR·u³ right of it, with
-  // δ ≥ 0 and bR ≥ 0: the necking side is at least as curved at the vertex as the hardening side (equal for a
+  // a ≥ 0, δ ≥ 0 and bR ≥ 0: a top is concave at its vertex, the necking side is at least as curved at the vertex as the hardening side (equal for a
   // smooth curve) and its fall does not slow down (geometric softening compounds after maximum force, common
   // practice). Without these bounds a necking side free to start flat lets the vertex slide back onto the
   // hardening side of a flat, noisy top (the early bias of Ag measured on the property test). The bounded
-  // least-squares problem is solved exactly by trying every set of active bounds (4) and keeping the feasible
+  // least-squares problem is solved exactly by trying every set of active bounds (8: a, δ, bR) and keeping the feasible
   // solution with the least residual sum (a convex problem: that is its optimum).
   const S2 = new Float64Array(K * K), T2 = new Float64Array(K);
   // Normal equations of the top model at vertex xv, shared by every variant (one pass over the bins).
@@ -175,22 +176,24 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   const fitVariant = (xv: number, acc: { tt: number; nL: number; nR: number }, rightCubic: boolean, leftCubic: boolean, kink: boolean) => {
     let bestFit: { Rm: number; aL: number; aR: number; ssr: number; coef: number[] } | null = null;
     const uL = (xa - xv) / h;
-    for (let active = 0; active < 4; active++) {
-      const useD = (active & 1) === 0, useB = (active & 2) === 0;
+    for (let active = 0; active < 8; active++) {
+      const useD = (active & 1) === 0, useB = (active & 2) === 0, useA = (active & 4) === 0;
+      if ((active & 1 && !(kink && acc.nR >= 2)) || (active & 2 && !(rightCubic && acc.nR >= 3))) continue; // same set as with that bound free
       const idx = IDX;
-      idx.length = 2;
+      idx.length = 1;
+      if (useA) idx.push(1);
       if (acc.nL >= 3 && leftCubic) idx.push(2);
       if (useD && kink && acc.nR >= 2) idx.push(3);
       if (useB && rightCubic && acc.nR >= 3) idx.push(4);
-      if (active > 0 && ((active & 1 && !(kink && acc.nR >= 2)) || (active & 2 && !(rightCubic && acc.nR >= 3)))) continue; // same set as tried
       const coef = solveSubset(S2, T2, K, idx);
       if (!coef) continue;
-      if (coef[3]! < 0 || coef[4]! < 0) continue;
+      // A top is concave at its vertex (a ≥ 0; the necking side's a + δ ≥ a): without this bound a vertex at the end of
+      // the span, convex there, fitted a rising cubic through the whole top (a hold-out Ag 2.5 points late).
+      if (coef[1]! < 0 || coef[3]! < 0 || coef[4]! < 0) continue;
       let ssr = acc.tt;
       for (let k = 0; k < K; k++) ssr -= coef[k]! * T2[k]!;
       // The top falls away from its vertex over the whole span (no second top inside it).
       if (uL < 0 && -2 * coef[1]! * uL + 3 * coef[2]! * uL * uL < 0) continue;
-      if (!(coef[1]! + coef[3]! >= 0)) continue;
       if (!bestFit || ssr < bestFit.ssr) bestFit = { Rm: coef[0]!, aL: coef[1]!, aR: coef[1]! + coef[3]!, ssr, coef: coef.slice() };
     }
     return bestFit;
