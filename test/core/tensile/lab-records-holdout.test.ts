@@ -11,13 +11,13 @@ import { holdoutRecord } from './lab-records-holdout.helpers.js';
 
 const SEEDS = Array.from({ length: 200 }, (_, i) => 1000 + i);
 
-interface HoldoutTally { fails: string[]; count: Record<string, number>; refused: number; drops: number; continuous: number; agWarned: number }
+interface HoldoutTally { fails: string[]; count: Record<string, number>; refused: number; drops: number; continuous: number; agWarned: number; lowEvidence: number }
 
 /** Runs the analysis on every hold-out seed and tallies the misses by property. */
 function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
   const fails: string[] = [];
   const count: Record<string, number> = {};
-  let refused = 0, drops = 0, continuous = 0, agWarned = 0;
+  let refused = 0, drops = 0, continuous = 0, agWarned = 0, lowEvidence = 0;
   const miss = (k: string, msg: string) => { fails.push(msg); count[k] = (count[k] ?? 0) + 1; };
   for (const seed of seeds) {
     const rec = holdoutRecord(seed, noiseScale);
@@ -55,8 +55,13 @@ function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
       }
     } else {
       drops++;
-      if (a.upperYield === null) miss('missedYield', `${rec.what}: yield drop ${t.reH.toFixed(1)}/${t.reL!.toFixed(1)} not found`);
-      else {
+      // A drop may go unreported only when its evidence (see HoldoutTruth.dropEvidence) is below 6: a test that keeps
+      // continuous curves free of false yield points (about 3.7 noise sd at a false-alarm rate of 10⁻⁴) finds a drop of
+      // evidence 6 with probability ≥ 99 % and one of evidence 4 about half the time (the same rule as the property test).
+      if (a.upperYield === null) {
+        if (t.dropEvidence !== null && t.dropEvidence < 6) lowEvidence++;
+        else miss('missedYield', `${rec.what}: yield drop ${t.reH.toFixed(1)}/${t.reL!.toFixed(1)} (evidence ${t.dropEvidence?.toFixed(1)}) not found`);
+      } else {
         chk('ReH', Math.abs(a.upperYield - t.reH) / t.reH, 0.015, `${a.upperYield} vs ${t.reH}`);
         chk('ReL', Math.abs(a.lowerYield! - t.reL!) / t.reL!, 0.015, `${a.lowerYield} vs ${t.reL}`);
         chk('Ae', Math.abs(a.yieldPointElongationPct! - t.aePct!), 0.4, `${a.yieldPointElongationPct} vs ${t.aePct}`);
@@ -67,7 +72,7 @@ function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
     const warned = a.warnings.some((w) => w.code === 'fewElasticPoints' || w.code === 'uncertainModulus' || w.code === 'elasticBandFallback');
     if (!(lo <= t.E && t.E <= hi) && !warned && Math.abs(a.elasticModulus / t.E - 1) > 0.05 * tol) miss('quietE', `${rec.what}: E ${a.elasticModulus} off by more than 5 % outside its interval, no warning`);
   }
-  return { fails, count, refused, drops, continuous, agWarned };
+  return { fails, count, refused, drops, continuous, agWarned, lowEvidence };
 }
 
 // What the misses showed when this test was written (lead's reading, for whoever fixes them):
@@ -89,7 +94,7 @@ function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
 // unwarned 4; noise-free Ag 200, ReL 34, Ae 11, ReH 9, missed drops 5. After the estimator work (21:05 UTC), the
 // counts below: NOT zero. The noisy misses are mostly correlated load noise (ρ 0.4–0.65), which the white-noise
 // estimate of the record reads low; see docs/records-and-fits.md.
-const CEILINGS_NOISY: Record<string, number> = { Ag: 8, Ae: 4, missedYield: 3, ReH: 2, 'Rp0.2': 1 };
+const CEILINGS_NOISY: Record<string, number> = { Ag: 8, Ae: 4, missedYield: 1, ReH: 2, 'Rp0.2': 1 };
 // Noise-free: met on every seed (ReH was read at a moving average on 3 clean records whose peak sample sat just past
 // the peak, 0.5–0.7 % low: the knee test now leaves the peak sample out).
 const CEILINGS_CLEAN: Record<string, number> = {};
@@ -102,8 +107,11 @@ function holdCeilings(r: HoldoutTally, ceilings: Record<string, number>): void {
 describe('record analysis on 200 hold-out INVENTED records (a generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point)", () => {
     const r = holdoutTally(SEEDS);
-    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, drops not found with evidence < 6: ${r.lowEvidence}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_NOISY);
+    // Drops too weak for any test to find reliably (evidence below 6: seeds 1128 at 2.6 and 1059 at 5.5 when this was
+    // written) stay the exception.
+    expect(r.lowEvidence).toBeLessThanOrEqual(2);
   }, 180_000);
   it('noise-free: a quarter of those tolerances (the estimators are unbiased on clean data)', () => {
     const r = holdoutTally(SEEDS, 0, 0.25);
