@@ -163,12 +163,17 @@ export function yieldPoint(
       // resolution, so the rounding of an exact line does not read as a bend on a noise-free record.
       const noiseK = Math.max(noise, 1e-9 * Math.abs(stress[q]!));
       for (const m of new Set([4, 8, 16, Math.min(20, Math.round(k / 4))])) {
-        if (!(m >= 2 && k - m >= 3)) continue;
+        // The line the run is compared with rests on at least as many samples as the run (a run of 16 against a line
+        // through 9, extrapolated under correlated noise, read a sharp 3.5 % drop as a rounded knee).
+        if (!(m >= 2 && k - m >= Math.max(3, m))) continue;
         const g = linearFit(strain, stress, k0, q - m);
         let res = 0;
         for (let i = q - m; i < q; i++) res += stress[i]! - (g.intercept + g.slope * strain[i]!);
         res /= m;
-        if (res < -Y.kneeSigmas * noiseK * Math.sqrt(1 / m + 4 / (k - m))) {
+        // Noise correlated from sample to sample moves a mean of m samples by more than σ̂/√m: the standard error is
+        // widened by √((1 + ρ)/(1 − ρ)), ρ the lag-1 autocorrelation of the line's residuals (ρ < 0 taken as 0).
+        const corr = lag1Factor(strain, stress, k0, q - m, g.intercept, g.slope);
+        if (res < -Y.kneeSigmas * noiseK * Math.sqrt(corr * (1 / m + 4 / (k - m)))) {
           rise = null;
           const ma = movingAverage(stress, q - m + 1, Math.min(maxIndex, q + m) + 1, m | 1);
           reh = -Infinity;
@@ -472,4 +477,17 @@ function solveSmall(S: Float64Array, T: Float64Array, k: number): Float64Array |
   const out = new Float64Array(k);
   for (let r = 0; r < k; r++) out[r] = M[r * W + k]! / M[r * W + r]!;
   return out;
+}
+
+/** (1 + ρ)/(1 − ρ) for the lag-1 autocorrelation ρ of the residuals of the line a + b·x over [from, to), ρ in [0, 0.9]. */
+function lag1Factor(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, a: number, b: number): number {
+  let s00 = 0, s01 = 0, prev = 0;
+  for (let i = from; i < to; i++) {
+    const r = y[i]! - (a + b * x[i]!);
+    s00 += r * r;
+    if (i > from) s01 += r * prev;
+    prev = r;
+  }
+  const rho = s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
+  return (1 + rho) / (1 - rho);
 }

@@ -62,7 +62,11 @@ function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
         if (t.dropEvidence !== null && t.dropEvidence < 6) lowEvidence++;
         else miss('missedYield', `${rec.what}: yield drop ${t.reH.toFixed(1)}/${t.reL!.toFixed(1)} (evidence ${t.dropEvidence?.toFixed(1)}) not found`);
       } else {
-        chk('ReH', Math.abs(a.upperYield - t.reH) / t.reH, 0.015, `${a.upperYield} vs ${t.reH}`);
+        // As in the property test: ReH off by more than 1.5 % is accepted only with the `uncertainReH` warning and a range
+        // wider than ±1.5 % that holds the truth (one noisy sample at the peak cannot tell whether it was still rising).
+        const rr = a.upperYieldRange!;
+        const rehWarned = tol === 1 && a.warnings.some((w) => w.code === 'uncertainReH') && (rr[1] - rr[0]) / 2 > 0.015 * a.upperYield && rr[0] <= t.reH && t.reH <= rr[1];
+        if (!rehWarned) chk('ReH', Math.abs(a.upperYield - t.reH) / t.reH, 0.015, `${a.upperYield} vs ${t.reH} (range ${rr[0].toFixed(1)}–${rr[1].toFixed(1)})`);
         chk('ReL', Math.abs(a.lowerYield! - t.reL!) / t.reL!, 0.015, `${a.lowerYield} vs ${t.reL}`);
         chk('Ae', Math.abs(a.yieldPointElongationPct! - t.aePct!), 0.4, `${a.yieldPointElongationPct} vs ${t.aePct}`);
       }
@@ -94,7 +98,7 @@ function holdoutTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
 // unwarned 4; noise-free Ag 200, ReL 34, Ae 11, ReH 9, missed drops 5. After the estimator work (21:05 UTC), the
 // counts below: NOT zero. The noisy misses are mostly correlated load noise (ρ 0.4–0.65), which the white-noise
 // estimate of the record reads low; see docs/records-and-fits.md.
-const CEILINGS_NOISY: Record<string, number> = { Ag: 8, Ae: 4, missedYield: 1, ReH: 2, 'Rp0.2': 1 };
+const CEILINGS_NOISY: Record<string, number> = { Ag: 8, Ae: 4, ReH: 2, 'Rp0.2': 1 };
 // Noise-free: met on every seed (ReH was read at a moving average on 3 clean records whose peak sample sat just past
 // the peak, 0.5–0.7 % low: the knee test now leaves the peak sample out).
 const CEILINGS_CLEAN: Record<string, number> = {};
