@@ -213,7 +213,7 @@ export function yieldPoint(
     // least squares of "rise line, then a straight fall from it" over the break position (grid over the
     // samples from the last few on the rise to the last on the upper half of the fall). ReH is the rise line at
     // the break.
-    const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - Math.max(3, lastUpper - q)), lastUpper + 1);
+    const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - Math.max(3, lastUpper - q)), lastUpper + 1, noise);
     if (cp !== null) {
       // ReH as the record shows it: the highest modelled sample — the last on the rise line before the break
       // or the first on the fall after it.
@@ -226,7 +226,9 @@ export function yieldPoint(
       }
       reh = testReh = Math.max(before, after, -Infinity) > -Infinity ? Math.max(before, after) : top;
       seReh = testSe = noise * Math.sqrt(4 / Math.max(2, q - k0));
-      lo = reh - 3 * seReh; hi = reh + 3 * seReh;
+      // The range also holds the rise line over every break position the samples allow (its profile interval): on
+      // a slow fall a break placed a few samples late reads the line several noise sd above the peak.
+      lo = Math.min(reh, rise.a + rise.b * cp.xbLo) - 3 * seReh; hi = Math.max(reh, rise.a + rise.b * cp.xbHi) + 3 * seReh;
     }
   } else {
     // Coarse: at most a couple of samples on the fall. The highest noise-free sample may be one of them (caught
@@ -334,9 +336,10 @@ function isStepDown(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: nu
  * least squares; the x_b with the least residual sum wins (a change-point fit, common practice). O(k²) in the
  * k samples of the window (a few hundred at most on a fall of 2·10⁻⁴ strain).
  * The break is refined between samples (the peak need not be a sample).
- * @returns the break strain and the fall's slope, or null for a window of fewer than 3 samples or no falling break.
+ * @returns the break strain, the fall's slope and the break positions within the 95 % profile band (residual sum
+ * within 3.84·σ̂² of the least, σ̂ = `noise`), or null for a window of fewer than 3 samples or no falling break.
  */
-function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number): { xb: number; slope: number } | null {
+function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number, noise = 0): { xb: number; slope: number; xbLo: number; xbHi: number } | null {
   if (to - from < 3) return null;
   const ssrAt = (xb: number) => {
     const yb = a + b * xb;
@@ -357,7 +360,12 @@ function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b:
   const lo = x[Math.max(from, at - stride)]!, hi = x[Math.min(to - 1, at + stride)]!;
   let xb = x[at]!, m = ssrAt(xb).m;
   for (let k = 0; k <= 40; k++) { const t = lo + ((hi - lo) * k) / 40; const r = ssrAt(t); if (r.ssr < best) { best = r.ssr; xb = t; m = r.m; } }
-  return { xb, slope: m };
+  // Where the break could be: every sample position whose residual sum is within χ²₁(0.95)·σ̂² = 3.84·σ̂² of the
+  // least (a profile-likelihood interval for the change point, Bates & Watts §6.1, from memory).
+  let xbLo = xb, xbHi = xb;
+  const limit = best + 3.84 * noise * noise;
+  for (let c = from; c < to - 1; c += stride) { const r = ssrAt(x[c]!); if (r.ssr <= limit) { xbLo = Math.min(xbLo, x[c]!); xbHi = Math.max(xbHi, x[c]!); } }
+  return { xb, slope: m, xbLo, xbHi };
 }
 
 /**
