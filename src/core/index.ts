@@ -126,7 +126,7 @@ export { elasticModulus, ELASTIC_WINDOW } from './tensile/elasticModulus.js';
 export type { ElasticResult } from './tensile/elasticModulus.js';
 export { proofStrength, totalExtensionStrength } from './tensile/proofStrength.js';
 export { yieldPoint, YIELD_DROP } from './tensile/yieldPoint.js';
-export { recordNoise } from './tensile/recordNoise.js';
+export { recordNoise, recordNoiseWide } from './tensile/recordNoise.js';
 export { forceMaximum } from './tensile/forceMaximum.js';
 export type { ForceMaximum } from './tensile/forceMaximum.js';
 export { quadraticFit, movingAverage } from './tensile/localFit.js';

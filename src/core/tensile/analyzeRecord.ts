@@ -3,9 +3,9 @@ import { fitAllLaws, type FitAllOptions, type LawComparison } from '../fit/fitAl
 import type { LawName } from '../flow/types.js';
 import { fitModulusDecay, findCycles } from './cycles.js';
 import { linearFit } from '../fit/linearFit.js';
-import { ELASTIC_WINDOW, elasticModulus } from './elasticModulus.js';
+import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus } from './elasticModulus.js';
 import { forceMaximum } from './forceMaximum.js';
-import { recordNoise } from './recordNoise.js';
+import { recordNoiseWide } from './recordNoise.js';
 import { nValueFit, nValueFitLogs } from './nValue.js';
 import { lawData, type LawData } from '../fit/lawNormalEquations.js';
 import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
@@ -74,7 +74,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const warnings: TensileWarning[] = [];
   const sMax = stress[iRaw]!;
   if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
-  const noise = recordNoise(stress);
+  const noise = recordNoiseWide(stress);
   const el = elasticModulus(strain, stress, sMax, noise);
   const given = opts.elasticModulus;
   if (given !== undefined && !(given > 0 && Number.isFinite(given))) throw new InputError('elasticModulus', given, 'a modulus > 0 MPa');
@@ -109,13 +109,15 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
 
   const offPct = opts.proofOffsetPct ?? ANALYZE_DEFAULTS.proofOffsetPct;
   if (!(offPct > 0 && offPct <= 5)) throw new InputError('proofOffsetPct', offPct, 'a number in (0, 5] %');
+  // The elastic line's error (slope and toe) enters Rp's interval; a given E is taken as exact.
+  const lineVar = given === undefined ? elasticLineVariance(strain, stress, el.window, E) : () => 0;
   // Each offset's proof strength once (it was computed twice per listed offset and again for the asked one).
   const rpMemo = new Map<number, ReturnType<typeof proofStrength>>();
   const rp = (pct: number) => {
     if (!rpMemo.has(pct)) rpMemo.set(pct, proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise));
     return rpMemo.get(pct)!;
   };
-  let proof = rp(offPct);
+  let proof = proofStrength(strain, stress, E, toe, offPct / 100, el.window.fromIndex, N, noise, lineVar);
   if (!proof) warnings.push({ code: 'noProofPoint', message: `the curve never meets the ${offPct} % offset line; no proof strength` });
   const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null, index: rp(p)?.index ?? -1 }));
   const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);
@@ -140,19 +142,21 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     }
     for (const p of proofStrengths) if (p.stress !== null) p.stress = onPlateau(p.index)?.stress ?? p.stress;
   }
-  // Rp depends on E through the offset line. Where the measured E is uncertain (a coarse or noisy rise, a rise with
-  // no straight part), Rp is also read with E at both ends of its 95 % interval, the line pivoting about the
-  // middle of the elastic band; a spread wider than ±1 % is reported with the range (the record cannot say more).
-  if (proof && !proofRange && given === undefined) {
-    const [eLo, eHi] = el.window.interval95;
-    const mid = 0.5 * (el.window.fromStress + el.window.toStress);
-    const rpAt = (Ei: number) => (Ei > 0 ? proofStrength(strain, stress, Ei, toe + mid / E - mid / Ei, offPct / 100, el.window.fromIndex, N, noise)?.stress ?? null : null);
-    const ends = [rpAt(eLo), rpAt(eHi)].filter((v): v is number => v !== null);
-    const lo = Math.min(proof.stress, ...ends), hi = Math.max(proof.stress, ...ends);
-    if ((hi - lo) / 2 > UNCERTAIN_RP * proof.stress) {
-      proofRange = [lo, hi];
-      warnings.push({ code: 'uncertainRp', message: `Rp${offPct} ${proof.stress.toFixed(1)} MPa depends on E, which the record measures only to ${(eLo / 1000).toFixed(0)}–${(eHi / 1000).toFixed(0)} GPa (95 %): over that interval Rp${offPct} runs from ${lo.toFixed(1)} to ${hi.toFixed(1)} MPa; give the modulus if it is known` });
+  // A proof point read from a local fit carries its 95 % interval (noise, and the elastic line's slope and toe).
+  // Where the measured E is loosely known (a coarse or noisy rise, a rise with no straight part, whose interval
+  // reaches down to the secant), Rp is also read with E at both ends of its 95 % interval, the line pivoting about
+  // the middle of the elastic band. The range is the hull of both; wider than ±1 % it is said.
+  if (proof && !proofRange) {
+    let lo = proof.stress, hi = proof.stress;
+    if (proof.halfWidth95 !== undefined) { lo -= proof.halfWidth95; hi += proof.halfWidth95; }
+    if (given === undefined) {
+      const [eLo, eHi] = el.window.interval95;
+      const mid = 0.5 * (el.window.fromStress + el.window.toStress);
+      const rpAt = (Ei: number) => (Ei > 0 ? proofStrength(strain, stress, Ei, toe + mid / E - mid / Ei, offPct / 100, el.window.fromIndex, N, noise)?.stress ?? null : null);
+      for (const v of [rpAt(eLo), rpAt(eHi)]) if (v !== null) { lo = Math.min(lo, v); hi = Math.max(hi, v); }
     }
+    if (proof.halfWidth95 !== undefined || (hi - lo) / 2 > UNCERTAIN_RP * proof.stress) proofRange = [lo, hi];
+    if ((hi - lo) / 2 > UNCERTAIN_RP * proof.stress) warnings.push({ code: 'uncertainRp', message: `Rp${offPct} ${proof.stress.toFixed(1)} MPa is uncertain: the record's noise, its few samples near the offset point and the uncertainty of E (95 % ${(el.window.interval95[0] / 1000).toFixed(0)}–${(el.window.interval95[1] / 1000).toFixed(0)} GPa) place it anywhere from ${lo.toFixed(1)} to ${hi.toFixed(1)} MPa; give the modulus if it is known` });
   }
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
@@ -165,7 +169,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const Agt = eM * 100;
   const agCi: [number, number] = [(fm.strainInterval95[0] - toe - Rm / E) * 100, (fm.strainInterval95[1] - toe - Rm / E) * 100];
   if ((agCi[1] - agCi[0]) / 2 > AG_SHARP_PCT) warnings.push({ code: 'uncertainAg', message: `Ag ${Ag.toFixed(2)} % is uncertain: the top is flat within the noise, so maximum force could lie anywhere from Ag ${agCi[0].toFixed(2)} % to ${agCi[1].toFixed(2)} % (95 % interval, ±${((agCi[1] - agCi[0]) / 2).toFixed(2)} points)` });
-  if (fm.flat) warnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; Ag is read at the middle of the flat part (±${((fm.span[1] - fm.span[0]) * 50).toFixed(2)} points)` });
+  if (fm.flat) warnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; Ag is read at the maximum of the top fitted to all of it, 95 % interval ${agCi[0].toFixed(2)}–${agCi[1].toFixed(2)} %` });
 
   const necked = !detected && stress[N - 1]! < 0.9 * Rm;
   // The test stopped before maximum force: no fracture and the top fit reaches the last samples.
@@ -239,7 +243,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     measuredModulus: el.modulus,
     measuredModulusInterval95: el.window.interval95,
     noise,
-    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, method: 'maximum of a least-squares parabola through the samples whose moving average lies within max(2 noise sd, 0.1 %) of the top; Ag at its vertex, or at the middle of a top flat within the noise' },
+    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, method: 'maximum of a least-squares model of the top (two half-parabolas joined at the vertex, each side with a cubic term when the data support it: Akaike information criterion) through the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top; Ag at its vertex, with a profile 95 % interval' },
     elasticWindow: el.window,
     toeStrain: toe,
     proofStrength: proof?.stress ?? null,

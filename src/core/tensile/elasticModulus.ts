@@ -4,7 +4,7 @@ import { studentTQuantile } from '../fit/studentT.js';
 import { polynomialFit } from './localFit.js';
 import { proofStrength } from './proofStrength.js';
 import { initialTangent } from './initialTangent.js';
-import { recordNoise } from './recordNoise.js';
+import { recordNoiseWide } from './recordNoise.js';
 import type { ElasticWindow } from './types.js';
 
 /**
@@ -48,7 +48,7 @@ export interface ElasticResult {
   modulus: number;
   toeStrain: number;
   window: ElasticWindow;
-  /** Noise of the record's stress estimated from the data ({@link recordNoise}), MPa. */
+  /** Noise of the record's stress estimated from the data ({@link recordNoiseWide}), MPa. */
   noise: number;
   /** Problems with E, in words (empty when E is a plausible, well-determined metal modulus). */
   issues: { code: 'implausibleModulus' | 'fewElasticPoints' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield'; message: string }[];
@@ -109,7 +109,7 @@ function trimCurvature(x: ArrayLike<number>, y: ArrayLike<number>, from: number,
  * Young's modulus E by least squares over a stress band tied to the record's own proof strength, robust
  * to noise, to a toe and to an elastic rise of few samples.
  *
- * 1. Noise σ̂ of the stress from the data ({@link recordNoise}).
+ * 1. Noise σ̂ of the stress from the data ({@link recordNoiseWide}).
  * 2. A first line: every band [a, a + w]·Smax (a from 0.02 to 0.6, w from 0.1 to 0.8, top ≤ 0.9·Smax)
  *    on the first rise (points before the stress first exceeds the band's top); the band with the highest
  *    lower confidence bound E − 2·SE(E), SE from max(σ̂, residual scatter)/√Sxx, wins. A plastic or toe
@@ -138,7 +138,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   let top = rm ?? 0;
   if (rm === undefined) for (let i = 0; i < n; i++) top = Math.max(top, stress[i]!);
   if (!(top > 0)) throw new InputError('stress', top, 'a record whose highest stress is above 0 MPa');
-  const noise = noiseIn ?? recordNoise(stress);
+  const noise = noiseIn ?? recordNoiseWide(stress);
   // Running maximum of the first rise, to find "the first index at or above a level" by bisection.
   let iTop = 0;
   while (iTop < n && stress[iTop]! < 0.98 * top) iTop++;
@@ -210,7 +210,15 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     fit = chosen.f; i0 = chosen.i0; i1 = chosen.i1; bandLo = lo; bandHi = chosen.hi;
   }
   let E = fit.slope;
-  let se = seOf(fit);
+  // Load noise correlated from sample to sample (a filter in the machine) makes the band's residuals alike, and
+  // least squares then claims more precision than the samples hold: SE is widened by √((1 + ρ)/(1 − ρ)), ρ the lag-1
+  // autocorrelation of the band's residuals (ρ < 0 taken as 0), and the degrees of freedom shrink to the effective
+  // number of points n(1 − ρ)/(1 + ρ) (the AR(1) variance factor of a mean; the law fits' `effectivePoints` does
+  // the same).
+  const rho = residualLag1(strain, stress, i0, i1, fit.slope, fit.intercept);
+  const corr = (1 + rho) / (1 - rho);
+  let se = seOf(fit) * Math.sqrt(corr);
+  let dof = Math.max(1, fit.n / corr - 2);
   let toeStrain = -fit.intercept / E;
   let nUsed = fit.n;
   let method: string | null = null;
@@ -237,14 +245,14 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
       const lm = line(xm, stress.length === 0 ? xm : Float64Array.from({ length: jb - ia }, (_, k) => stress[ia + k]!), 0, jb - ia, 0);
       agrees = lm !== null && Math.abs(lm.slope - low.slope) <= 3 * Math.hypot(low.se, tg.standardError);
     }
-      if (tg && agrees && tg.modulus > E && tg.modulus <= W.plausible[1]) {
+    if (tg && agrees && tg.modulus > E && tg.modulus <= W.plausible[1]) {
       issues.push({ code: 'gradualYield', message: `the rise bends from low stress on (no straight elastic part, as in austenitic stainless steels and many aluminium alloys): E = ${(tg.modulus / 1000).toFixed(1)} GPa is the initial tangent of a line with a power-law bend (exponent ${tg.power}) fitted over ${bandLo.toFixed(0)}–${stress[ib - 1]!.toFixed(0)} MPa; a straight line gives ${(E / 1000).toFixed(1)} GPa, which would overstate Rp0.2. Give the modulus if it is known` });
       secant = E;
-      E = tg.modulus; se = tg.standardError; toeStrain = tg.toeStrain; nUsed = tg.points; i0 = ia; i1 = ib; bandHi = stress[ib - 1]!;
+      E = tg.modulus; se = tg.standardError; dof = Math.max(1, tg.points - 2); toeStrain = tg.toeStrain; nUsed = tg.points; i0 = ia; i1 = ib; bandHi = stress[ib - 1]!;
       method = `initial tangent of a line with a power-law bend σ = a + E·x − d·(x/X)^${tg.power} (Ramberg–Osgood form) over the band from its lower end to ${W.gradualTop * 100} % of the record's Rp0.2 estimate; toe-compensated`;
     }
   }
-  const t = studentTQuantile(0.975, Math.max(1, nUsed - 2));
+  const t = studentTQuantile(0.975, dof);
   // With a bend from low stress, E lies between the straight line's secant (a bend only lowers a secant) and
   // the tangent's upper bound: the interval's lower end reaches down to the secant.
   const interval: [number, number] = [secant === null ? E - t * se : Math.min(E - t * se, secant), E + t * se];
@@ -280,4 +288,36 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
         : 'least squares over 10–40 % of the record\'s Rp0.2 estimate (ISO 6892-1 Annex G practice), above the toe, widened when too few points; toe-compensated'),
     },
   };
+}
+
+/** Lag-1 autocorrelation of the residuals of the line a + b·x over [from, to), in [0, 0.9] (negative taken as 0). */
+function residualLag1(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, b: number, a: number): number {
+  let s00 = 0, s01 = 0, prev = 0;
+  for (let i = from; i < to; i++) {
+    const r = y[i]! - (a + b * x[i]!);
+    s00 += r * r;
+    if (i > from) s01 += r * prev;
+    prev = r;
+  }
+  return s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
+}
+
+/**
+ * Variance of the elastic line's strain at a stress s (inverse prediction from the band's least-squares line,
+ * Draper & Smith ch. 3): Var ê(s) = SE(E)²·Sxx/(E²·n) + (s − s̄)²·SE(E)²/E⁴, with n, Sxx and s̄ of the band's samples and
+ * SE(E) as reported (already floored at the noise and widened for correlated residuals); σ² = SE(E)²·Sxx is the
+ * scatter the slope's error came from. Units: strain² for s in MPa. Used to carry the uncertainty of E and of the toe
+ * into the offset construction of Rp.
+ * @example elasticLineVariance(strain, stress, el.window, el.modulus)(300) // strain², ≥ 0
+ */
+export function elasticLineVariance(strain: ArrayLike<number>, stress: ArrayLike<number>, w: { fromIndex: number; toIndex: number; standardError: number }, E: number): (s: number) => number {
+  const n = w.toIndex - w.fromIndex;
+  if (!(n >= 2) || !(w.standardError >= 0)) return () => 0;
+  let mx = 0, ms = 0;
+  for (let i = w.fromIndex; i < w.toIndex; i++) { mx += strain[i]!; ms += stress[i]!; }
+  mx /= n; ms /= n;
+  let sxx = 0;
+  for (let i = w.fromIndex; i < w.toIndex; i++) sxx += (strain[i]! - mx) ** 2;
+  const se2 = w.standardError ** 2;
+  return (s) => (se2 * sxx) / (E * E * n) + ((s - ms) ** 2 * se2) / E ** 4;
 }

@@ -1,3 +1,4 @@
+import { studentTQuantile } from '../fit/studentT.js';
 import { movingAverage, polynomialFit } from './localFit.js';
 
 /**
@@ -6,14 +7,17 @@ import { movingAverage, polynomialFit } from './localFit.js';
  * "offset method", ASTM E8 §7.7.1. Found as the first sign change of g = σ − E·(e − e0 − offset)
  * after `fromIndex`, linearly interpolated between the two bracketing points; with `noise` > 0 (the
  * record's noise sd, MPa) the crossing is read from a least-squares parabola through the samples
- * whose plastic strain is within [offset/2, 2·offset] (at least 7), not from two noisy samples.
+ * whose plastic strain is within [offset/2, 2·offset] (at least 7), not from two noisy samples, with its standard
+ * error when `lineVariance` is given (the parabola's prediction error at the crossing, widened for correlated residuals, and `lineVariance`, the
+ * variance of the elastic line's strain at a stress (strain², from {@link elasticLineVariance}), carried through the
+ * offset line).
  * Units: strain fraction, stresses and E in MPa. Valid: offset > 0.
  * @returns the stress in MPa and the (fractional) index, or null when the curve never crosses the line.
  * @example proofStrength([0, 0.002, 0.004, 0.006], [0, 400, 440, 450], 200000, 0, 0.002) // ≈ 436.4 MPa
  */
 export function proofStrength(
-  strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, fromIndex = 0, toIndex = strain.length, noise = 0,
-): { stress: number; index: number } | null {
+  strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, fromIndex = 0, toIndex = strain.length, noise = 0, lineVariance?: (stress: number) => number,
+): { stress: number; index: number; standardError?: number; halfWidth95?: number } | null {
   const g = (i: number) => stress[i]! - E * (strain[i]! - toe - offset);
   let prev = g(fromIndex);
   for (let i = fromIndex + 1; i < toIndex; i++) {
@@ -21,7 +25,7 @@ export function proofStrength(
     if (prev > 0 && cur <= 0) {
       const t = prev / (prev - cur);
       const raw = { stress: stress[i - 1]! + t * (stress[i]! - stress[i - 1]!), index: i - 1 + t };
-      return noise > 0 ? smoothCrossing(strain, stress, E, toe, offset, i, toIndex) ?? raw : raw;
+      return noise > 0 ? smoothCrossing(strain, stress, E, toe, offset, i, toIndex, noise, lineVariance) ?? raw : raw;
     }
     prev = cur;
   }
@@ -33,9 +37,10 @@ export function proofStrength(
  * the samples around the crossing whose plastic strain e − e0 − s/E lies in [offset/2, 2·offset] (at
  * least 7; the run ends at three samples in a row outside), so the estimate's noise is about σ̂·√(3/m) instead
  * of σ̂, and the first sign change of a noisy record (early by the noise) only picks the neighbourhood. Null when the fit
- * does not cross the line inside its own span (the raw crossing is used then).
+ * does not cross the line inside its own span (the raw crossing is used then). Returns the crossing's standard error
+ * too (the parabola's prediction error and the modulus's, see below).
  */
-function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number): { stress: number; index: number } | null {
+function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number, noise: number, lineVariance?: (stress: number) => number): { stress: number; index: number; standardError?: number; halfWidth95?: number } | null {
   const pl = (i: number) => strain[i]! - toe - stress[i]! / E;
   const lo = 0.5 * offset, hi = 2 * offset;
   // The window ends where three samples in a row leave [lo, hi]: one noisy sample (in load or extension, the
@@ -60,7 +65,46 @@ function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E:
   let i = a;
   while (i < b && strain[i + 1]! < e) i++;
   const t = strain[i + 1]! > strain[i]! ? (e - strain[i]!) / (strain[i + 1]! - strain[i]!) : 0;
-  return { stress: f.at(e), index: i + Math.min(1, Math.max(0, t)) };
+  // Standard error of the crossing. The parabola's value at e has variance s²·xᵀ(XᵀX)⁻¹x, x = (1, u, u²) (Draper &
+  // Smith ch. 5), s the larger of σ̂ and the residual scatter, widened by (1 + ρ)/(1 − ρ) for residuals correlated
+  // from sample to sample (lag-1 ρ ≥ 0); a change δ of the curve moves the crossing's stress by δ·E/(E − f′). The
+  // elastic line's own error (slope and toe, `lineVariance`: the variance of its strain at the crossing's stress)
+  // shifts the offset line sideways by Δe, which moves the crossing's stress by f′·Δe·E/(E − f′).
+  const at = { stress: f.at(e), index: i + Math.min(1, Math.max(0, t)) };
+  if (!lineVariance) return at;
+  const S = [0, 0, 0, 0, 0];
+  let r00 = 0, r01 = 0, prev = 0;
+  for (let k = a; k <= b; k++) {
+    const u = (strain[k]! - f.xm) / f.h;
+    let p = 1;
+    for (let q = 0; q < 5; q++) { S[q]! += p; p *= u; }
+    const r = stress[k]! - f.at(strain[k]!);
+    r00 += r * r; if (k > a) r01 += r * prev; prev = r;
+  }
+  const rho = r00 > 0 ? Math.min(0.9, Math.max(0, r01 / r00)) : 0;
+  const s2 = Math.max(noise * noise, f.ssr / Math.max(1, f.n - 3)) * (1 + rho) / (1 - rho);
+  const ue = (e - f.xm) / f.h;
+  const lev = quadForm3(S, [1, ue, ue * ue]);
+  const slope = (f.c[1]! + 2 * f.c[2]! * ue) / f.h;
+  const gain = E / Math.max(E - slope, 1e-9 * E);
+  const sFit = Math.sqrt(Math.max(0, s2 * lev)) * gain;
+  const sE = lineVariance ? Math.abs(slope) * Math.sqrt(Math.max(0, lineVariance(f.at(e)))) * gain : 0;
+  // 95 % half-width with Student's t on the effective degrees of freedom n(1 − ρ)/(1 + ρ) − 3.
+  const se = Math.hypot(sFit, sE);
+  const dof = Math.max(1, (f.n * (1 - rho)) / (1 + rho) - 3);
+  return { ...at, standardError: se, halfWidth95: studentTQuantile(0.975, dof) * se };
+}
+
+/** xᵀ M⁻¹ x for the symmetric 3×3 moment matrix M[r][c] = S[r + c] (Hankel), by the adjugate; Infinity when singular. */
+function quadForm3(S: readonly number[], x: readonly number[]): number {
+  const a = S[0]!, b = S[1]!, c = S[2]!, d = S[3]!, e = S[4]!;
+  // M = [[a, b, c], [b, c, d], [c, d, e]]
+  const A00 = c * e - d * d, A01 = -(b * e - c * d), A02 = b * d - c * c;
+  const A11 = a * e - c * c, A12 = -(a * d - b * c), A22 = a * c - b * b;
+  const det = a * A00 + b * A01 + c * A02;
+  if (!(Math.abs(det) > 0)) return Infinity;
+  const [x0, x1, x2] = x as [number, number, number];
+  return (A00 * x0 * x0 + A11 * x1 * x1 + A22 * x2 * x2 + 2 * (A01 * x0 * x1 + A02 * x0 * x2 + A12 * x1 * x2)) / det;
 }
 
 /**

@@ -157,13 +157,23 @@ export function yieldPoint(
       // the rise, each tried) lie below the line through the samples before them by more than 3 standard errors,
       // the rise bends before the peak and reading the line at the peak would put ReH above every sample. The
       // peak is then read from the samples: the highest moving average (over m samples) around it.
+      // The peak sample q itself is left out of this test, as out of the line: a peak sample already part-way down
+      // the fall is not a bend of the rise (it made clean records with a sample just past the peak read ReH at the
+      // moving average, 0.5–0.7 % low). The noise is floored at 10⁻⁹ of the stress, the arithmetic's own
+      // resolution, so the rounding of an exact line does not read as a bend on a noise-free record.
+      const noiseK = Math.max(noise, 1e-9 * Math.abs(stress[q]!));
       for (const m of new Set([4, 8, 16, Math.min(20, Math.round(k / 4))])) {
-        if (!(m >= 2 && k - m >= 3)) continue;
-        const g = linearFit(strain, stress, k0, q - m + 1);
+        // The line the run is compared with rests on at least as many samples as the run (a run of 16 against a line
+        // through 9, extrapolated under correlated noise, read a sharp 3.5 % drop as a rounded knee).
+        if (!(m >= 2 && k - m >= Math.max(3, m))) continue;
+        const g = linearFit(strain, stress, k0, q - m);
         let res = 0;
-        for (let i = q - m + 1; i <= q; i++) res += stress[i]! - (g.intercept + g.slope * strain[i]!);
+        for (let i = q - m; i < q; i++) res += stress[i]! - (g.intercept + g.slope * strain[i]!);
         res /= m;
-        if (res < -Y.kneeSigmas * noise * Math.sqrt(1 / m + 4 / (k - m + 1))) {
+        // Noise correlated from sample to sample moves a mean of m samples by more than σ̂/√m: the standard error is
+        // widened by √((1 + ρ)/(1 − ρ)), ρ the lag-1 autocorrelation of the line's residuals (ρ < 0 taken as 0).
+        const corr = lag1Factor(strain, stress, k0, q - m, g.intercept, g.slope);
+        if (res < -Y.kneeSigmas * noiseK * Math.sqrt(corr * (1 / m + 4 / (k - m)))) {
           rise = null;
           const ma = movingAverage(stress, q - m + 1, Math.min(maxIndex, q + m) + 1, m | 1);
           reh = -Infinity;
@@ -203,7 +213,7 @@ export function yieldPoint(
     // least squares of "rise line, then a straight fall from it" over the break position (grid over the
     // samples from the last few on the rise to the last on the upper half of the fall). ReH is the rise line at
     // the break.
-    const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - Math.max(3, lastUpper - q)), lastUpper + 1);
+    const cp = riseFallBreak(strain, stress, rise.a, rise.b, Math.max(k0, q - Math.max(3, lastUpper - q)), lastUpper + 1, noise);
     if (cp !== null) {
       // ReH as the record shows it: the highest modelled sample — the last on the rise line before the break
       // or the first on the fall after it.
@@ -216,7 +226,9 @@ export function yieldPoint(
       }
       reh = testReh = Math.max(before, after, -Infinity) > -Infinity ? Math.max(before, after) : top;
       seReh = testSe = noise * Math.sqrt(4 / Math.max(2, q - k0));
-      lo = reh - 3 * seReh; hi = reh + 3 * seReh;
+      // The range also holds the rise line over every break position the samples allow (its profile interval): on
+      // a slow fall a break placed a few samples late reads the line several noise sd above the peak.
+      lo = Math.min(reh, rise.a + rise.b * cp.xbLo) - 3 * seReh; hi = Math.max(reh, rise.a + rise.b * cp.xbHi) + 3 * seReh;
     }
   } else {
     // Coarse: at most a couple of samples on the fall. The highest noise-free sample may be one of them (caught
@@ -324,9 +336,10 @@ function isStepDown(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: nu
  * least squares; the x_b with the least residual sum wins (a change-point fit, common practice). O(k²) in the
  * k samples of the window (a few hundred at most on a fall of 2·10⁻⁴ strain).
  * The break is refined between samples (the peak need not be a sample).
- * @returns the break strain and the fall's slope, or null for a window of fewer than 3 samples or no falling break.
+ * @returns the break strain, the fall's slope and the break positions within the 95 % profile band (residual sum
+ * within 3.84·σ̂² of the least, σ̂ = `noise`), or null for a window of fewer than 3 samples or no falling break.
  */
-function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number): { xb: number; slope: number } | null {
+function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: number, from: number, to: number, noise = 0): { xb: number; slope: number; xbLo: number; xbHi: number } | null {
   if (to - from < 3) return null;
   const ssrAt = (xb: number) => {
     const yb = a + b * xb;
@@ -347,7 +360,12 @@ function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b:
   const lo = x[Math.max(from, at - stride)]!, hi = x[Math.min(to - 1, at + stride)]!;
   let xb = x[at]!, m = ssrAt(xb).m;
   for (let k = 0; k <= 40; k++) { const t = lo + ((hi - lo) * k) / 40; const r = ssrAt(t); if (r.ssr < best) { best = r.ssr; xb = t; m = r.m; } }
-  return { xb, slope: m };
+  // Where the break could be: every sample position whose residual sum is within χ²₁(0.95)·σ̂² = 3.84·σ̂² of the
+  // least (a profile-likelihood interval for the change point, Bates & Watts §6.1, from memory).
+  let xbLo = xb, xbHi = xb;
+  const limit = best + 3.84 * noise * noise;
+  for (let c = from; c < to - 1; c += stride) { const r = ssrAt(x[c]!); if (r.ssr <= limit) { xbLo = Math.min(xbLo, x[c]!); xbHi = Math.max(xbHi, x[c]!); } }
+  return { xb, slope: m, xbLo, xbHi };
 }
 
 /**
@@ -467,4 +485,17 @@ function solveSmall(S: Float64Array, T: Float64Array, k: number): Float64Array |
   const out = new Float64Array(k);
   for (let r = 0; r < k; r++) out[r] = M[r * W + k]! / M[r * W + r]!;
   return out;
+}
+
+/** (1 + ρ)/(1 − ρ) for the lag-1 autocorrelation ρ of the residuals of the line a + b·x over [from, to), ρ in [0, 0.9]. */
+function lag1Factor(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, a: number, b: number): number {
+  let s00 = 0, s01 = 0, prev = 0;
+  for (let i = from; i < to; i++) {
+    const r = y[i]! - (a + b * x[i]!);
+    s00 += r * r;
+    if (i > from) s01 += r * prev;
+    prev = r;
+  }
+  const rho = s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
+  return (1 + rho) / (1 - rho);
 }

@@ -22,6 +22,13 @@ export interface HoldoutTruth {
   serration: number;
   /** Samples on the elastic line below 0.9 of the yield stress. */
   elasticPoints: number;
+  /**
+   * Evidence of a recorded yield drop: √Σ(sᵢ − ReL)² over the noise-free samples of the rise and fall above ReL,
+   * divided by the noise's marginal sd (load noise and quantisation) — the signal-to-noise ratio of the best test
+   * that knows the drop's shape (matched filter), as in the project's generator. Correlated noise makes the real
+   * ratio lower still, so this overstates it (acceptances are rarer). Null without a recorded drop.
+   */
+  dropEvidence: number | null;
 }
 
 export interface HoldoutRecord { strain: Float64Array; stress: Float64Array; truth: HoldoutTruth; what: string }
@@ -156,7 +163,7 @@ export function holdoutRecord(seed: number, noiseScale = 1): HoldoutRecord {
   };
   const strain = new Float64Array(total), stress = new Float64Array(total);
   let ar = gauss() * sn;
-  let reHrec = -Infinity, reLrec = Infinity, elasticPoints = 0, serrMax = 0;
+  let reHrec = -Infinity, reLrec = Infinity, elasticPoints = 0, serrMax = 0, ev = 0;
   const yieldTop = reH ?? engOf(0).s;
   const fracRest = u(0, 0.02) * rm0;
   for (let i = 0; i < total; i++) {
@@ -166,6 +173,7 @@ export function holdoutRecord(seed: number, noiseScale = 1): HoldoutRecord {
     if (i < nCurve && e > 0 && E * e < 0.9 * yieldTop && e <= eH) elasticPoints++;
     if (reH !== null && i < nCurve) {
       if (e <= eH + dropSpan / 2 && e > 0.5 * eH) reHrec = Math.max(reHrec, clean);
+      if (e > 0 && e <= eH + dropSpan && clean > reL) ev += (clean - reL) ** 2;
       if (e >= plateauStart && e < eL) { reLrec = Math.min(reLrec, clean); serrMax = Math.max(serrMax, clean / reL - 1); }
     }
     ar = rho * ar + Math.sqrt(1 - rho * rho) * sn * gauss();
@@ -190,6 +198,7 @@ export function holdoutRecord(seed: number, noiseScale = 1): HoldoutRecord {
     aePct: recorded ? (eL - eH) * 100 : null,
     serration: serrMax,
     elasticPoints,
+    dropEvidence: recorded && noiseScale > 0 ? Math.sqrt(ev) / (noiseScale * Math.sqrt(sn * sn + (quant * quant) / 12)) : null,
   };
   const what = `holdout ${seed}: ${law.name}, E ${E.toFixed(0)}, ${total} points (rate ×${kRate} after ${xSwitch.toFixed(4)}), noise ${(sn / rm0 * 100).toFixed(2)} % Rm ρ ${rho.toFixed(2)} quant ${quant.toFixed(2)} MPa, extensometer sd ${sx.toExponential(1)}, toe ${x0.toExponential(1)}${drop ? `, drop ${(dropFrac * 100).toFixed(1)} % Lüders ${(luders * 100).toFixed(2)} % serration ${(amp * 100).toFixed(2)} % undershoot ${(undershoot * 100).toFixed(1)} %${recorded ? '' : ' (peak not caught)'}` : ''}, trailing ${trailing}`;
   return { strain, stress, truth, what };

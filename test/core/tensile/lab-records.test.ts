@@ -18,8 +18,10 @@ import { labCase } from './lab-records.helpers.js';
 //   the modulus given, as a user would.
 // - ReH off by more than 1.5 % only with the `uncertainReH` warning, a range wider than ±1.5 % that holds the truth
 //   (the peak fell between two samples whose line values differ by more than the tolerance, or within the noise).
-// - Rp0.2 off by more than 1 % only with the `uncertainRp` warning and a range holding the truth: the offset line
-//   meets a serrated plateau wherever the serrations are when it crosses (the band they sweep is wider than ±1 %).
+// - Rp0.2 off by more than 1 % only with the `uncertainRp` warning and a range wider than ±1 % holding the truth: the
+//   offset line meets a serrated plateau wherever the serrations are when it crosses (the band they sweep is wider
+//   than ±1 %), or the few noisy samples near the offset point and a coarse elastic line place the crossing no closer
+//   (its 95 % interval from the local fit and the elastic line's own error is wider than ±1 %).
 // - Ag off by more than 0.4 point only with `uncertainAg` and a 95 % interval wider than ±0.4 point that holds it.
 // - A recorded yield drop may go unreported only when its evidence — √Σ(sᵢ − ReL)²/σ over the noise-free samples of
 //   the rise above ReL, the signal-to-noise ratio of the best test that knows the drop's shape (matched filter) —
@@ -54,7 +56,7 @@ function tally(seeds: number[]): Tally {
     const rpErr = Math.abs(a.proofStrength! - t.proofStrength) / t.proofStrength;
     const pr = a.proofStrengthRange;
     if (!(rpErr <= 0.01)) {
-      if (has('uncertainRp') && pr && (pr[1] - pr[0]) / 2 > 0.01 * a.proofStrength! && pr[0] <= t.proofStrength && t.proofStrength <= pr[1]) accept('Rp0.2 (serrated plateau, warned, inside its range)', seed);
+      if (has('uncertainRp') && pr && (pr[1] - pr[0]) / 2 > 0.01 * a.proofStrength! && pr[0] <= t.proofStrength && t.proofStrength <= pr[1]) accept('Rp0.2 (warned, inside its range)', seed);
       else miss('Rp0.2', `${c.what}: ${a.proofStrength} vs ${t.proofStrength}`);
     }
     if (!(Math.abs(a.tensileStrength - t.tensileStrength) / t.tensileStrength <= 0.004)) miss('Rm', `${c.what}: ${a.tensileStrength} vs ${t.tensileStrength}`);
@@ -101,16 +103,15 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // Met on every seed.
     for (const k of ['threw', 'Rm', 'A', 'falseYield', 'silentE', 'quietE', 'ReH', 'ReL', 'Ae', 'missedYield']) expect(r.count[k] ?? 0, `${k}\n${list}`).toBe(0);
     // NOT met on every seed (measured, held as ceilings so a regression fails; see docs/records-and-fits.md):
-    // Rp0.2 off by 1.2–1.6 % on 2 coarse, noisy records with 4 and 7 elastic samples (seeds 57, 147; the local
-    // parabola through ~12 samples has a standard error near 0.6 %), and Ag off by more than 0.4 point with no
-    // 95 % interval holding the truth on 3 (seeds 113, 122, 187: coarse, noisy tops — the expected few percent of
-    // a 95 % interval's non-coverage, but not zero).
-    expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(2);
-    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(3);
-    // Ag is uncertain (warned, interval wider than ±0.4 point, holding the truth) on 107 of 240 records: coarse
-    // records whose top is flat within the noise over several points of strain. Held so that it cannot quietly
-    // become the rule.
-    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(110);
+    // Rp0.2 1.55 % high on seed 147 (2019 points, noise 0.97 % of Rm, 7 elastic samples): warned, but the truth lies
+    // just outside its 95 % interval (±1.5 %).
+    expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(1);
+    // Ag: off by more than 0.4 point on 45 records (was 110 before the top models were chosen by AIC), 4 of them
+    // with the truth outside the 95 % interval (seeds 113, 142, 168, 187: coarse, noisy tops).
+    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(4);
+    // Ag is uncertain (warned, interval wider than ±0.4 point, holding the truth) and off by more than 0.4 point on
+    // 43 of 240 records (107 before). Held so that it cannot quietly become the rule.
+    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(45);
     // The acceptances stay the exception, and each kind is exercised (so the conditions above can fail).
     expect(r.accepted['E refused']?.length ?? 0).toBeLessThanOrEqual(6);
     expect(r.accepted[`drop not reported (evidence < ${MIN_EVIDENCE})`]?.length ?? 0).toBeLessThanOrEqual(8);
