@@ -169,7 +169,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const Agt = eM * 100;
   const agCi: [number, number] = [(fm.strainInterval95[0] - toe - Rm / E) * 100, (fm.strainInterval95[1] - toe - Rm / E) * 100];
   if ((agCi[1] - agCi[0]) / 2 > AG_SHARP_PCT) warnings.push({ code: 'uncertainAg', message: `Ag ${Ag.toFixed(2)} % is uncertain: the top is flat within the noise, so maximum force could lie anywhere from Ag ${agCi[0].toFixed(2)} % to ${agCi[1].toFixed(2)} % (95 % interval, ±${((agCi[1] - agCi[0]) / 2).toFixed(2)} points)` });
-  if (fm.flat) warnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; Ag is read at the maximum of the top fitted to all of it, 95 % interval ${agCi[0].toFixed(2)}–${agCi[1].toFixed(2)} %` });
+  if (fm.flat) warnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; Ag is read at the middle of the flat part (±${((fm.span[1] - fm.span[0]) * 50).toFixed(2)} points)` });
 
   const necked = !detected && stress[N - 1]! < 0.9 * Rm;
   // The test stopped before maximum force: no fracture and the top fit reaches the last samples.
@@ -243,7 +243,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     measuredModulus: el.modulus,
     measuredModulusInterval95: el.window.interval95,
     noise,
-    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, method: 'maximum of a least-squares model of the top (two half-parabolas joined at the vertex, each side with a cubic term when the data support it: Akaike information criterion) through the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top; Ag at its vertex, with a profile 95 % interval' },
+    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, method: 'maximum of a least-squares parabola through the samples whose moving average lies within max(2 noise sd, 0.1 %) of the top; Ag at its vertex, or at the middle of a top flat within the noise' },
     elasticWindow: el.window,
     toeStrain: toe,
     proofStrength: proof?.stress ?? null,

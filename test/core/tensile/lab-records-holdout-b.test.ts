@@ -74,15 +74,16 @@ function holdoutBTally(seeds: number[], noiseScale = 1, tol = 1): HoldoutBTally 
 }
 
 
-// Misses held as CEILINGS so that a regression fails; the aim is 0 (issue 12). Measured on the lead's branch with
-// the initial-tangent E (23:01 UTC 2026-12-02); before it, on main: noisy quietE 18 of 100 seeds and Rp0.2 9 (all
-// HIGH, 1–7 %, the unsafe side). Still open: noisy stainless-like Rp0.2 off 1–5 % (now mostly low, warned
-// `uncertainModulus`); noise-free Ag 0.1–0.3 point high on every family (the top model's bias when the necking
-// side is a quartic), under the noisy tolerance but not under a quarter of it. A was 0.1–0.25 point high on 25
-// noise-free records (read where a fall spread over samples passes 50 %) until the fracture point moved back to
-// where the fall begins: 3 left.
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 9, Ag: 6, ReH: 3, quietE: 4, missedYield: 3, Rm: 1 };
-const CEILINGS_CLEAN: Record<string, number> = { Ag: 122, A: 3, quietE: 7, ReH: 6, Ae: 3, 'Rp0.2': 7 };
+// Misses held as CEILINGS so that a regression fails; the aim is 0 (issue 12). Before the initial-tangent E (main,
+// 22:50 UTC 2026-12-02): noisy quietE 18 of 100 seeds and Rp0.2 9, all HIGH by 1–7 % (the unsafe side). Measured on
+// the merged main (23:50 UTC): still open are noisy stainless-like Rp0.2 off 1–5 % (mostly low now, warned
+// `uncertainModulus`), Ag on coarse noisy tops, and noise-free Ag 0.1–0.3 point high on every family (the top
+// model's bias when the necking side is a quartic): under the noisy tolerance, not under a quarter of it. A was
+// 0.1–0.25 point high on 25 noise-free records (read where a fall spread over samples passes 50 %) until the
+// fracture point moved back to where the fall begins: 3 left. A top model chosen by AIC (tried by a helper) took
+// noisy Ag misses here from 6 to 29 and was withdrawn.
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 6, Ag: 6, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
+const CEILINGS_CLEAN: Record<string, number> = { Ag: 122, A: 3, quietE: 6, Ae: 3, 'Rp0.2': 6 };
 
 function holdCeilings(r: HoldoutBTally, ceilings: Record<string, number>): void {
   const list = r.fails.slice(0, 40).join('\n');

@@ -106,12 +106,15 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // Rp0.2 1.55 % high on seed 147 (2019 points, noise 0.97 % of Rm, 7 elastic samples): warned, but the truth lies
     // just outside its 95 % interval (±1.5 %).
     expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(1);
-    // Ag: off by more than 0.4 point on 45 records (was 110 before the top models were chosen by AIC), 4 of them
-    // with the truth outside the 95 % interval (seeds 113, 142, 168, 187: coarse, noisy tops).
-    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(4);
-    // Ag is uncertain (warned, interval wider than ±0.4 point, holding the truth) and off by more than 0.4 point on
-    // 43 of 240 records (107 before). Held so that it cannot quietly become the rule.
-    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(45);
+    // Ag off by more than 0.4 point with no 95 % interval holding the truth on 3 (seeds 113, 122, 187: coarse, noisy
+    // tops — the expected few percent of a 95 % interval's non-coverage, but not zero). A top model chosen by AIC
+    // among eight shapes lowered the warned count to 45 here but read Ag late on the second hold-out (29 misses of
+    // 200 against 6) and was withdrawn; see docs/records-and-fits.md.
+    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(3);
+    // Ag is uncertain (warned, interval wider than ±0.4 point, holding the truth) on 107 of 240 records: coarse
+    // records whose top is flat within the noise over several points of strain. Held so that it cannot quietly
+    // become the rule.
+    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(110);
     // The acceptances stay the exception, and each kind is exercised (so the conditions above can fail).
     expect(r.accepted['E refused']?.length ?? 0).toBeLessThanOrEqual(6);
     expect(r.accepted[`drop not reported (evidence < ${MIN_EVIDENCE})`]?.length ?? 0).toBeLessThanOrEqual(8);
