@@ -1,7 +1,7 @@
 import { InputError } from '../errors.js';
 import { linearFit } from '../fit/linearFit.js';
 import { studentTQuantile } from '../fit/studentT.js';
-import { polynomialFit } from './localFit.js';
+import { lineResidualLag1, polynomialFit } from './localFit.js';
 import { proofStrength } from './proofStrength.js';
 import { initialTangent } from './initialTangent.js';
 import { recordNoiseWide } from './recordNoise.js';
@@ -215,7 +215,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   // autocorrelation of the band's residuals (ρ < 0 taken as 0), and the degrees of freedom shrink to the effective
   // number of points n(1 − ρ)/(1 + ρ) (the AR(1) variance factor of a mean; the law fits' `effectivePoints` does
   // the same).
-  const rho = residualLag1(strain, stress, i0, i1, fit.slope, fit.intercept);
+  const rho = lineResidualLag1(strain, stress, i0, i1, fit.intercept, fit.slope);
   const corr = (1 + rho) / (1 - rho);
   let se = seOf(fit) * Math.sqrt(corr);
   let dof = Math.max(1, fit.n / corr - 2);
@@ -290,17 +290,6 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   };
 }
 
-/** Lag-1 autocorrelation of the residuals of the line a + b·x over [from, to), in [0, 0.9] (negative taken as 0). */
-function residualLag1(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, b: number, a: number): number {
-  let s00 = 0, s01 = 0, prev = 0;
-  for (let i = from; i < to; i++) {
-    const r = y[i]! - (a + b * x[i]!);
-    s00 += r * r;
-    if (i > from) s01 += r * prev;
-    prev = r;
-  }
-  return s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
-}
 
 /**
  * Variance of the elastic line's strain at a stress s (inverse prediction from the band's least-squares line,

@@ -114,3 +114,21 @@ export class PolyFit {
     return best;
   }
 }
+
+/**
+ * Lag-1 autocorrelation of the residuals of the line a + b·x over [from, to): ρ = Σ rᵢrᵢ₋₁ / Σ rᵢ², clamped to
+ * [0, 0.9] (a negative ρ is taken as 0; 0.9 keeps the variance factor (1 + ρ)/(1 − ρ) at most 19). Used to widen
+ * intervals for load noise correlated from sample to sample (the AR(1) variance factor; Bayley & Hammersley,
+ * J. R. Stat. Soc. Suppl. 8, 1946). Units: those of x and y; ρ dimensionless. 0 for a perfect fit.
+ * @example lineResidualLag1([0, 1, 2, 3], [0, 1, 2, 3], 0, 4, 0, 1) // 0
+ */
+export function lineResidualLag1(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, a: number, b: number): number {
+  let s00 = 0, s01 = 0, prev = 0;
+  for (let i = from; i < to; i++) {
+    const r = y[i]! - (a + b * x[i]!);
+    s00 += r * r;
+    if (i > from) s01 += r * prev;
+    prev = r;
+  }
+  return s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
+}

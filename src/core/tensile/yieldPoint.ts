@@ -1,6 +1,6 @@
 import { blockAverage } from '../fit/blockAverage.js';
 import { linearFit } from '../fit/linearFit.js';
-import { movingAverage, polynomialFit } from './localFit.js';
+import { lineResidualLag1, movingAverage, polynomialFit } from './localFit.js';
 
 export interface YieldPointResult {
   upperYield: number;
@@ -489,13 +489,6 @@ function solveSmall(S: Float64Array, T: Float64Array, k: number): Float64Array |
 
 /** (1 + ρ)/(1 − ρ) for the lag-1 autocorrelation ρ of the residuals of the line a + b·x over [from, to), ρ in [0, 0.9]. */
 function lag1Factor(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, a: number, b: number): number {
-  let s00 = 0, s01 = 0, prev = 0;
-  for (let i = from; i < to; i++) {
-    const r = y[i]! - (a + b * x[i]!);
-    s00 += r * r;
-    if (i > from) s01 += r * prev;
-    prev = r;
-  }
-  const rho = s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
+  const rho = lineResidualLag1(x, y, from, to, a, b);
   return (1 + rho) / (1 - rho);
 }
