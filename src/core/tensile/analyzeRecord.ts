@@ -118,6 +118,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     return rpMemo.get(pct)!;
   };
   let proof = proofStrength(strain, stress, E, toe, offPct / 100, el.window.fromIndex, N, noise, lineVar);
+  rpMemo.set(offPct, proof); // the same crossing; the listed offsets reuse it
   if (!proof) warnings.push({ code: 'noProofPoint', message: `the curve never meets the ${offPct} % offset line; no proof strength` });
   const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null, index: rp(p)?.index ?? -1 }));
   const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);

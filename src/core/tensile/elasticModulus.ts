@@ -242,7 +242,8 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     if (tg && low) {
       const xm = new Float64Array(jb - ia);
       for (let i = ia; i < jb; i++) xm[i - ia] = tg.strainAt(stress[i]!);
-      const lm = line(xm, stress.length === 0 ? xm : Float64Array.from({ length: jb - ia }, (_, k) => stress[ia + k]!), 0, jb - ia, 0);
+      const ys = Float64Array.from({ length: jb - ia }, (_, k) => stress[ia + k]!);
+      const lm = line(xm, ys, 0, jb - ia, 0);
       agrees = lm !== null && Math.abs(lm.slope - low.slope) <= 3 * Math.hypot(low.se, tg.standardError);
     }
     if (tg && agrees && tg.modulus > E && tg.modulus <= W.plausible[1]) {

@@ -1,6 +1,6 @@
 import { ComputationError } from '../errors.js';
 import { blockAverage } from '../fit/blockAverage.js';
-import { movingAverage } from './localFit.js';
+import { movingAverage, solveSmall } from './localFit.js';
 
 /** Where the maximum of force is and how it was read. */
 export interface ForceMaximum {
@@ -97,23 +97,13 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
     if (nL >= 3) idx.push(2);
     if (nR >= 1) idx.push(3);
     if (nR >= 3 && rightCubic) idx.push(4);
-    const m = idx.length, W = m + 1;
-    const M = new Float64Array(m * W);
-    idx.forEach((r, i) => { idx.forEach((c, j) => { M[i * W + j] = S[Math.min(r, c) * K + Math.max(r, c)]!; }); M[i * W + m] = T[r]!; });
-    const scale = Math.abs(M[0]!) || 1;
-    for (let c = 0; c < m; c++) {
-      let piv = c;
-      for (let r = c + 1; r < m; r++) if (Math.abs(M[r * W + c]!) > Math.abs(M[piv * W + c]!)) piv = r;
-      if (!(Math.abs(M[piv * W + c]!) > 1e-18 * scale)) return null;
-      if (piv !== c) for (let q = 0; q < W; q++) { const t = M[c * W + q]!; M[c * W + q] = M[piv * W + q]!; M[piv * W + q] = t; }
-      for (let r = 0; r < m; r++) {
-        if (r === c) continue;
-        const f = M[r * W + c]! / M[c * W + c]!;
-        if (f !== 0) for (let q = c; q < W; q++) M[r * W + q]! -= f * M[c * W + q]!;
-      }
-    }
+    const m = idx.length;
+    const Ss = new Float64Array(m * m), Ts = new Float64Array(m);
+    idx.forEach((r, i) => { idx.forEach((c, j) => { Ss[i * m + j] = S[Math.min(r, c) * K + Math.max(r, c)]!; }); Ts[i] = T[r]!; });
+    const sol = solveSmall(Ss, Ts, m, 1e-18);
+    if (!sol) return null;
     const coef = [0, 0, 0, 0, 0];
-    idx.forEach((k, r) => { coef[k] = M[r * W + m]! / M[r * W + r]!; });
+    idx.forEach((k, r) => { coef[k] = sol[r]!; });
     let ssr = tt;
     for (let k = 0; k < K; k++) ssr -= coef[k]! * T[k]!;
     // A top must fall away from its vertex over the whole span: slope ≥ 0 on the left, ≤ 0 on the right

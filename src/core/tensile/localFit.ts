@@ -132,3 +132,30 @@ export function lineResidualLag1(x: ArrayLike<number>, y: ArrayLike<number>, fro
   }
   return s00 > 0 ? Math.min(0.9, Math.max(0, s01 / s00)) : 0;
 }
+
+/**
+ * Solves the k×k linear system S·c = T (S row-major, k small: the normal equations of a local model) by
+ * Gauss–Jordan elimination with partial pivoting (Golub & Van Loan, Matrix Computations, §3.4). A pivot below
+ * `relPivot` times |S₀₀| counts as singular. Returns null when singular, never NaN. Units: those of T over S.
+ * @example solveSmall(new Float64Array([2, 0, 0, 4]), new Float64Array([2, 8]), 2, 1e-14) // [1, 2]
+ */
+export function solveSmall(S: Float64Array, T: Float64Array, k: number, relPivot: number): Float64Array | null {
+  const W = k + 1;
+  const M = new Float64Array(k * W);
+  for (let r = 0; r < k; r++) { for (let q = 0; q < k; q++) M[r * W + q] = S[r * k + q]!; M[r * W + k] = T[r]!; }
+  const scale = Math.abs(M[0]!) || 1;
+  for (let col = 0; col < k; col++) {
+    let piv = col;
+    for (let r = col + 1; r < k; r++) if (Math.abs(M[r * W + col]!) > Math.abs(M[piv * W + col]!)) piv = r;
+    if (!(Math.abs(M[piv * W + col]!) > relPivot * scale)) return null;
+    if (piv !== col) for (let q = 0; q < W; q++) { const t = M[col * W + q]!; M[col * W + q] = M[piv * W + q]!; M[piv * W + q] = t; }
+    for (let r = 0; r < k; r++) {
+      if (r === col) continue;
+      const fct = M[r * W + col]! / M[col * W + col]!;
+      if (fct !== 0) for (let q = col; q < W; q++) M[r * W + q]! -= fct * M[col * W + q]!;
+    }
+  }
+  const out = new Float64Array(k);
+  for (let r = 0; r < k; r++) out[r] = M[r * W + k]! / M[r * W + r]!;
+  return out;
+}

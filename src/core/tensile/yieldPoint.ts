@@ -1,6 +1,6 @@
 import { blockAverage } from '../fit/blockAverage.js';
 import { linearFit } from '../fit/linearFit.js';
-import { lineResidualLag1, movingAverage, polynomialFit } from './localFit.js';
+import { lineResidualLag1, movingAverage, polynomialFit, solveSmall } from './localFit.js';
 
 export interface YieldPointResult {
   upperYield: number;
@@ -408,7 +408,7 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
       yy += wt * y * y;
     }
     for (let r = 0; r < K; r++) for (let q = 0; q < r; q++) S[r * K + q] = S[q * K + r]!;
-    const coef = solveSmall(S, T, K);
+    const coef = solveSmall(S, T, K, 1e-14);
     if (!coef) return null;
     let ssr = yy;
     for (let r = 0; r < K; r++) ssr -= coef[r]! * T[r]!;
@@ -465,27 +465,6 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
   return { lowerYield, hardeningStart: Math.max(strain[from]!, xk - back), level: f.m, slope, spread: A };
 }
 
-/** Solves the k×k system S·c = T (row-major S) by Gaussian elimination with partial pivoting; null when singular. */
-function solveSmall(S: Float64Array, T: Float64Array, k: number): Float64Array | null {
-  const W = k + 1;
-  const M = new Float64Array(k * W);
-  for (let r = 0; r < k; r++) { for (let q = 0; q < k; q++) M[r * W + q] = S[r * k + q]!; M[r * W + k] = T[r]!; }
-  const scale = Math.abs(M[0]!) || 1;
-  for (let col = 0; col < k; col++) {
-    let piv = col;
-    for (let r = col + 1; r < k; r++) if (Math.abs(M[r * W + col]!) > Math.abs(M[piv * W + col]!)) piv = r;
-    if (!(Math.abs(M[piv * W + col]!) > 1e-14 * scale)) return null;
-    if (piv !== col) for (let q = 0; q < W; q++) { const t = M[col * W + q]!; M[col * W + q] = M[piv * W + q]!; M[piv * W + q] = t; }
-    for (let r = 0; r < k; r++) {
-      if (r === col) continue;
-      const fct = M[r * W + col]! / M[col * W + col]!;
-      if (fct !== 0) for (let q = col; q < W; q++) M[r * W + q]! -= fct * M[col * W + q]!;
-    }
-  }
-  const out = new Float64Array(k);
-  for (let r = 0; r < k; r++) out[r] = M[r * W + k]! / M[r * W + r]!;
-  return out;
-}
 
 /** (1 + ρ)/(1 − ρ) for the lag-1 autocorrelation ρ of the residuals of the line a + b·x over [from, to), ρ in [0, 0.9]. */
 function lag1Factor(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, a: number, b: number): number {
