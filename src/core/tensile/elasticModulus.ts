@@ -221,10 +221,11 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   let dof = Math.max(1, fit.n / corr - 2);
   let toeStrain = -fit.intercept / E;
   let nUsed = fit.n;
+  let r2 = fit.r2;
   let method: string | null = null;
   // 6. A rise that bends from low stress on (gradual yielding) has no straight band: every line over it is a
   // secant below E, which lets Rp0.2 come out high. Over the wide band (its lower end to 70 % of Rp0.2) a
-  // line with a power-law bend is fitted ({@link initialTangent}); when the bend is significant AND the line's
+  // Ramberg–Osgood-form curve is fitted ({@link initialTangent}); when the bend is significant AND the line's
   // slope lies below the bent fit's initial tangent, the tangent is E (a bend only lowers a secant).
   let secant: number | null = null;
   // Only where the band reaches down to low stress (≤ 20 % of Rp0.2): a band raised by a toe starts where a
@@ -247,10 +248,10 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
       agrees = lm !== null && Math.abs(lm.slope - low.slope) <= 3 * Math.hypot(low.se, tg.standardError);
     }
     if (tg && agrees && tg.modulus > E && tg.modulus <= W.plausible[1]) {
-      issues.push({ code: 'gradualYield', message: `the rise bends from low stress on (no straight elastic part, as in austenitic stainless steels and many aluminium alloys): E = ${(tg.modulus / 1000).toFixed(1)} GPa is the initial tangent of a line with a power-law bend (exponent ${tg.power}) fitted over ${bandLo.toFixed(0)}–${stress[ib - 1]!.toFixed(0)} MPa; a straight line gives ${(E / 1000).toFixed(1)} GPa, which would overstate Rp0.2. Give the modulus if it is known` });
+      issues.push({ code: 'gradualYield', message: `the rise bends from low stress on (no straight elastic part, as in austenitic stainless steels and many aluminium alloys): E = ${(tg.modulus / 1000).toFixed(1)} GPa is the initial tangent of a Ramberg–Osgood-form curve (exponent ${tg.power}) fitted over ${bandLo.toFixed(0)}–${stress[ib - 1]!.toFixed(0)} MPa; a straight line gives ${(E / 1000).toFixed(1)} GPa, which would overstate Rp0.2. Give the modulus if it is known` });
       secant = E;
-      E = tg.modulus; se = tg.standardError; dof = Math.max(1, tg.points - 2); toeStrain = tg.toeStrain; nUsed = tg.points; i0 = ia; i1 = ib; bandHi = stress[ib - 1]!;
-      method = `initial tangent of a line with a power-law bend σ = a + E·x − d·(x/X)^${tg.power} (Ramberg–Osgood form) over the band from its lower end to ${W.gradualTop * 100} % of the record's Rp0.2 estimate; toe-compensated`;
+      E = tg.modulus; se = tg.standardError; r2 = tg.r2; dof = Math.max(1, tg.points - 2); toeStrain = tg.toeStrain; nUsed = tg.points; i0 = ia; i1 = ib; bandHi = stress[ib - 1]!;
+      method = `initial tangent of ε = a + σ/E + d·(σ/S)^${tg.power} (Ramberg–Osgood form) fitted from the band's lower end to ${W.gradualTop * 100} % of the record's Rp0.2 estimate; toe-compensated`;
     }
   }
   const t = studentTQuantile(0.975, dof);
@@ -280,7 +281,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
       fromIndex: i0,
       toIndex: i1,
       points: nUsed,
-      r2: fit.r2,
+      r2,
       standardError: se,
       interval95: interval,
       proofEstimate: proofEst,

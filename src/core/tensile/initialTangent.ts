@@ -12,6 +12,8 @@ export interface InitialTangent {
   power: number;
   /** Points in the band. */
   points: number;
+  /** R² of the bent fit (strain on stress), 0–1. */
+  r2: number;
   /** How far the bend term lowered the residual sum, in noise variances (the test statistic). */
   improvement: number;
   /** The fitted curve: strain at stress σ (MPa), fraction (dilution correction not applied). */
@@ -103,5 +105,5 @@ export function initialTangent(strain: ArrayLike<number>, stress: ArrayLike<numb
   const toeStrain = xbar + best.c[0]! - best.c[1]! * sbar;
   const { c, m } = best;
   const strainAt = (sigma: number) => xbar + c[0]! + c[1]! * (sigma - sbar) + c[2]! * (Math.max(sigma, 0) / S) ** m;
-  return { modulus: E, standardError: seB * E * E, toeStrain, power: m, points: n, improvement, strainAt };
+  return { modulus: E, standardError: seB * E * E, toeStrain, power: m, points: n, r2: sxx > 0 ? Math.max(0, 1 - best.ssr / sxx) : 1, improvement, strainAt };
 }
