@@ -134,6 +134,17 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
   const numericLines = nonEmpty.filter((x) => DELIMITERS.some((d) => numericRow(splitLine(x.l, d), d !== ',')));
   const textLines = nonEmpty.filter((x) => !numericLines.includes(x));
   if (numericLines.length === 0) {
+    // A row whose every cell is a number with a decimal point or with a decimal comma, both kinds present
+    // (0.1;204,5): the columns disagree on the decimal separator, so no convention reads the row.
+    for (const x of nonEmpty) {
+      for (const d of ['\t', ';'] as const) {
+        const f = splitLine(x.l, d).filter((t) => t !== '');
+        if (f.length < 2 || !f.every((t) => isNumberToken(t, false) || isNumberToken(t, true))) continue;
+        if (f.some((t) => /^[+-]?\d*\.\d/.test(t)) && f.some((t) => /^[+-]?\d*,\d/.test(t))) {
+          throw recordError(file, x.i + 1, 1, '', `mixed decimal separators in ${JSON.stringify(x.l.slice(0, 40))}: some columns use a decimal point, others a decimal comma; expected one decimal separator in every column (a decimal comma only with semicolon or tab delimiters)`);
+        }
+      }
+    }
     const last = textLines[textLines.length - 1]!;
     const widest = Math.max(...DELIMITERS.map((d) => splitLine(last.l, d).length));
     if (widest < 2) throw recordError(file, last.i + 1, 1, '', `only one column found (${JSON.stringify(last.l.slice(0, 40))}); expected columns separated by comma, semicolon or tab`);

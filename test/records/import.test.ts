@@ -85,6 +85,7 @@ describe('parseRecordText(bad record) names the line, the column and what was ex
     ['force without a cross-section', csv('Force [kN],Extension [mm]'), /needs the cross-section .* missing the cross-section/, 1, undefined],
     ['numbers with no header', ROWS.map((r) => r.join(',')).join('\n'), /no header line: the file starts with numbers/, 1, 1],
     ['one column only', 'stress\n1\n2\n', /only one column found/, 3, 1],
+    ['columns with different decimal separators', 'Time [s];Strain [%];Stress [MPa]\n' + ROWS.map(([e, sg], i) => `${i}.5;${(e + 0.01).toFixed(2).replace('.', ',')};${(sg + 0.5).toFixed(1).replace('.', ',')}`).join('\n') + '\n', /mixed decimal separators in "0\.5;.*decimal point, others a decimal comma; expected one decimal separator/, 2, 1],
   ];
   for (const [what, text, msg, line, column] of bad) {
     it(`${what}: a PlanError ${msg}`, () => {
