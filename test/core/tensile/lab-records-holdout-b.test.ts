@@ -1,4 +1,4 @@
-import { describe, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { holdCeilings, holdoutTally } from './holdout-tally.js';
 import { holdoutBRecord } from './lab-records-holdout-b.helpers.js';
 
@@ -19,19 +19,27 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 5000 + i);
 // 0.1–0.25 point high on 25 noise-free records (read where a fall spread over samples passes 50 %) until the
 // fracture point moved back to where the fall begins: 3 left. A top model chosen by AIC (tried by a helper) took
 // noisy Ag misses here from 6 to 29 and was withdrawn.
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 6, Ag: 6, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
-const CEILINGS_CLEAN: Record<string, number> = { Ag: 122, A: 3, quietE: 6, Ae: 3, 'Rp0.2': 6 };
+// Fifth session (2026-12-03): the top model bounded to a top that falls away from its vertex on both sides. Raw Ag
+// accuracy (off by more than 0.4 point, warned or not) 96 → 73 of 200; but the misses outside the interval rose
+// 6 → 15 (all LATE by 0.4–1.5 point, the truth 0.02–0.3 point below the interval: the cubic necking side reads a
+// necking branch that falls like d⁴ late). Noise-free at a quarter of the tolerance: off 154 → 170, outside the
+// interval 122 → 86 (the vertex of a d⁴ necking model joins the interval).
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 6, Ag: 15, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
+const CEILINGS_CLEAN: Record<string, number> = { Ag: 86, A: 3, quietE: 6, Ae: 3, 'Rp0.2': 6 };
+const AG_OFF_NOISY = 73, AG_OFF_CLEAN = 170;
 
 
 describe('record analysis on 200 hold-out B INVENTED records (a second generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point)", () => {
     const r = holdoutTally(holdoutBRecord, SEEDS);
-    console.log(`hold-out B, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Rp warned ${r.rpWarned}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out B, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, Rp warned ${r.rpWarned}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_NOISY);
+    expect(r.agOff).toBeLessThanOrEqual(AG_OFF_NOISY);
   }, 180_000);
   it('noise-free: a quarter of those tolerances', () => {
     const r = holdoutTally(holdoutBRecord, SEEDS, 0, 0.25);
-    console.log(`hold-out B, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out B, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_CLEAN);
+    expect(r.agOff).toBeLessThanOrEqual(AG_OFF_CLEAN);
   }, 180_000);
 });

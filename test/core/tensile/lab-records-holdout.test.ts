@@ -30,7 +30,10 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 1000 + i);
 // unwarned 4; noise-free Ag 200, ReL 34, Ae 11, ReH 9, missed drops 5. After the estimator work (21:05 UTC), the
 // counts below: NOT zero. The noisy misses are mostly correlated load noise (ρ 0.4–0.65), which the white-noise
 // estimate of the record reads low; see docs/records-and-fits.md.
-const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 4, ReH: 2, 'Rp0.2': 1 };
+// Fifth session (2026-12-03), the top model bounded to a top that falls away from its vertex: Ag off by more than
+// 0.4 point (warned or not) 114 → 82 of 200; outside its interval 4 → 5.
+const CEILINGS_NOISY: Record<string, number> = { Ag: 5, Ae: 4, ReH: 2, 'Rp0.2': 1 };
+const AG_OFF_NOISY = 82;
 // Noise-free: met on every seed (ReH was read at a moving average on 3 clean records whose peak sample sat just past
 // the peak, 0.5–0.7 % low: the knee test now leaves the peak sample out).
 const CEILINGS_CLEAN: Record<string, number> = {};
@@ -39,15 +42,17 @@ const CEILINGS_CLEAN: Record<string, number> = {};
 describe('record analysis on 200 hold-out INVENTED records (a generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point)", () => {
     const r = holdoutTally(holdoutRecord, SEEDS);
-    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, drops not found with evidence < 6: ${r.lowEvidence}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, drops not found with evidence < 6: ${r.lowEvidence}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_NOISY);
+    expect(r.agOff).toBeLessThanOrEqual(AG_OFF_NOISY);
     // Drops too weak for any test to find reliably (evidence below 6: seeds 1128 at 2.6 and 1059 at 5.5 when this was
     // written) stay the exception.
     expect(r.lowEvidence).toBeLessThanOrEqual(2);
   }, 180_000);
   it('noise-free: a quarter of those tolerances (the estimators are unbiased on clean data)', () => {
     const r = holdoutTally(holdoutRecord, SEEDS, 0, 0.25);
-    console.log(`hold-out, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_CLEAN);
+    expect(r.agOff).toBe(0);
   }, 180_000);
 });

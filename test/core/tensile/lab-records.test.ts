@@ -31,13 +31,13 @@ import { labCase } from './lab-records.helpers.js';
 const SEEDS = Array.from({ length: 240 }, (_, i) => i);
 const MIN_EVIDENCE = 6;
 
-interface Tally { fails: string[]; count: Record<string, number>; accepted: Record<string, string[]>; drops: number; continuous: number }
+interface Tally { fails: string[]; count: Record<string, number>; accepted: Record<string, string[]>; drops: number; continuous: number; agOff: number }
 
 function tally(seeds: number[]): Tally {
   const fails: string[] = [];
   const count: Record<string, number> = {};
   const accepted: Record<string, string[]> = {};
-  let drops = 0, continuous = 0;
+  let drops = 0, continuous = 0, agOff = 0;
   const miss = (k: string, msg: string) => { fails.push(`${k}: ${msg}`); count[k] = (count[k] ?? 0) + 1; };
   const accept = (k: string, seed: number) => { (accepted[k] ??= []).push(String(seed)); };
   for (const seed of seeds) {
@@ -62,6 +62,7 @@ function tally(seeds: number[]): Tally {
     if (!(Math.abs(a.tensileStrength - t.tensileStrength) / t.tensileStrength <= 0.004)) miss('Rm', `${c.what}: ${a.tensileStrength} vs ${t.tensileStrength}`);
     const agErr = Math.abs(a.uniformElongationPct - t.uniformElongationPct);
     const [agLo, agHi] = a.forceMaximum.uniformElongationInterval95;
+    if (!(agErr <= 0.4)) agOff++;
     if (!(agErr <= 0.4)) {
       if (has('uncertainAg') && (agHi - agLo) / 2 > 0.4 && agLo <= t.uniformElongationPct && t.uniformElongationPct <= agHi) accept('Ag (warned, inside its 95 % interval)', seed);
       else miss('Ag', `${c.what}: ${a.uniformElongationPct} vs ${t.uniformElongationPct} (interval ${agLo.toFixed(2)}–${agHi.toFixed(2)})`);
@@ -92,29 +93,30 @@ function tally(seeds: number[]): Tally {
     const warned = has('fewElasticPoints') || has('uncertainModulus') || has('elasticBandFallback');
     if (!(lo <= t.elasticModulus && t.elasticModulus <= hi) && !warned && Math.abs(a.elasticModulus / t.elasticModulus - 1) > 0.05) miss('quietE', `${c.what}: E ${a.elasticModulus} off by more than 5 % outside its interval, no warning`);
   }
-  return { fails, count, accepted, drops, continuous };
+  return { fails, count, accepted, drops, continuous, agOff };
 }
 
 describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of Rm, 1,000–100,000 points uniform in time)', () => {
   it('Rp0.2 within 1 %, Rm within 0.4 %, Ag within 0.4 point, A within 0.5 point; ReH/ReL only with a real drop, within 1.5 %, Ae within 0.4 point', () => {
     const r = tally(SEEDS);
     const list = r.fails.join('\n');
-    console.log(`${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous; accepted (the record cannot support the tolerance, the analysis says so): ${JSON.stringify(r.accepted)}\n${list}`);
+    console.log(`${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous; Ag off by more than 0.4 point (warned or not) ${r.agOff}; accepted (the record cannot support the tolerance, the analysis says so): ${JSON.stringify(r.accepted)}\n${list}`);
     // Met on every seed.
     for (const k of ['threw', 'Rm', 'A', 'falseYield', 'silentE', 'quietE', 'ReH', 'ReL', 'Ae', 'missedYield']) expect(r.count[k] ?? 0, `${k}\n${list}`).toBe(0);
     // NOT met on every seed (measured, held as ceilings so a regression fails; see docs/records-and-fits.md):
     // Rp0.2 1.55 % high on seed 147 (2019 points, noise 0.97 % of Rm, 7 elastic samples): warned, but the truth lies
     // just outside its 95 % interval (±1.5 %).
     expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(1);
-    // Ag off by more than 0.4 point with no 95 % interval holding the truth on 3 (seeds 113, 122, 187: coarse, noisy
-    // tops — the expected few percent of a 95 % interval's non-coverage, but not zero). A top model chosen by AIC
-    // among eight shapes lowered the warned count to 45 here but read Ag late on the second hold-out (29 misses of
-    // 200 against 6) and was withdrawn; see docs/records-and-fits.md.
-    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(3);
-    // Ag is uncertain (warned, interval wider than ±0.4 point, holding the truth) on 107 of 240 records: coarse
-    // records whose top is flat within the noise over several points of strain. Held so that it cannot quietly
-    // become the rule.
-    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(110);
+    // Ag off by more than 0.4 point with no 95 % interval holding the truth on 5 (seeds 57, 122, 143, 168, 187: coarse,
+    // noisy tops; the truth lies 0.02–0.3 point outside the interval — the expected few percent of a 95 % interval's
+    // non-coverage, but not zero).
+    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(5);
+    // The raw accuracy, warned or not: Ag off by more than 0.4 point on 49 of 240 records (110 before the top model
+    // was bounded to a top that falls away from its vertex on both sides: an unbounded side rose past the vertex and
+    // read Ag up to 7 points early). Almost all are coarse (1,000–10,000 points) with noise above 0.4 % of Rm.
+    expect(r.agOff).toBeLessThanOrEqual(50);
+    // Of those, warned with a 95 % interval wider than ±0.4 point that holds the truth: 45 (107 before).
+    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(50);
     // The acceptances stay the exception, and each kind is exercised (so the conditions above can fail).
     expect(r.accepted['E refused']?.length ?? 0).toBeLessThanOrEqual(6);
     expect(r.accepted[`drop not reported (evidence < ${MIN_EVIDENCE})`]?.length ?? 0).toBeLessThanOrEqual(8);
