@@ -30,10 +30,11 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 1000 + i);
 // unwarned 4; noise-free Ag 200, ReL 34, Ae 11, ReH 9, missed drops 5. After the estimator work (21:05 UTC), the
 // counts below: NOT zero. The noisy misses are mostly correlated load noise (ρ 0.4–0.65), which the white-noise
 // estimate of the record reads low; see docs/records-and-fits.md.
-// Fifth session (2026-12-03), the top model bounded to a top that falls away from its vertex: Ag off by more than
-// 0.4 point (warned or not) 114 → 82 of 200; outside its interval 4 → 5.
-const CEILINGS_NOISY: Record<string, number> = { Ag: 5, Ae: 4, ReH: 2, 'Rp0.2': 1 };
-const AG_OFF_NOISY = 82;
+// Fifth session (2026-12-03), the top model bounded to a top that falls away from its vertex, Ag the Akaike-weighted
+// mean of a kinked and a smooth top: Ag off by more than 0.4 point (warned or not) 114 → 52 of 200; outside its
+// interval 4 → 4.
+const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 4, ReH: 2, 'Rp0.2': 1 };
+const AG_OFF_NOISY = 52;
 // Noise-free: met on every seed (ReH was read at a moving average on 3 clean records whose peak sample sat just past
 // the peak, 0.5–0.7 % low: the knee test now leaves the peak sample out).
 const CEILINGS_CLEAN: Record<string, number> = {};
