@@ -108,7 +108,7 @@ function packed(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Array | nu
 export function lawNormalProblem(law: LawName, d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
   if (law === 'swiftVoce') return swiftVoceProblem(d, lower, upper);
   if (law === 'hockettSherby') return hockettSherbyProblem(d, lower, upper);
-  return pointProblem(law, d, lower, upper);
+  return simpleProblem(law, d, lower, upper);
 }
 
 /**
@@ -143,6 +143,223 @@ export function pointProblem(law: LawName, d: LawData, lower: readonly number[],
       let s = 0;
       for (let i = 0; i < n; i++) {
         const r = pt(x[i]!, lx[i]!, p, gr) - y[i]!;
+        const wi = w ? w[i]! : 1;
+        s += wi * r * r;
+        for (let a = 0; a < m; a++) {
+          const ga = wi * gr[a]!;
+          g[a] = g[a]! + ga * r;
+          const row = a * m;
+          for (let b = 0; b <= a; b++) A[row + b] = A[row + b]! + ga * gr[b]!;
+        }
+      }
+      for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) A[b * m + a] = A[a * m + b]!;
+      return Number.isFinite(s) ? s : Infinity;
+    },
+  };
+}
+
+/**
+ * {@link lawNormalProblem} for Hollomon, Ludwik, Swift and Voce, one factory per law with POINT's formulas
+ * written out in its loops (the same operations in the same order, so the same sums bit for bit; checked
+ * against {@link pointProblem} in test/core/fit/normal.test.ts; in swiftAt/voceAt the factor c = 1 is kept,
+ * so every product is the same). Through POINT's shared call site the point function is not inlined: each
+ * point's stress came back as a heap number, and in a fresh process these fits' normal equations ran
+ * unoptimised longer (speed follow-up J). Each factory's loops are their own functions, so each stays monomorphic.
+ */
+function simpleProblem(law: 'hollomon' | 'ludwik' | 'swift' | 'voce', d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
+  switch (law) {
+    case 'hollomon': return hollomonProblem(d, lower, upper);
+    case 'ludwik': return ludwikProblem(d, lower, upper);
+    case 'swift': return swiftProblem(d, lower, upper);
+    case 'voce': return voceProblem(d, lower, upper);
+  }
+}
+
+/** Hollomon: see {@link simpleProblem}. */
+function hollomonProblem(d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
+  const m = 2;
+  const gr = new Float64Array(m);
+  const { x, y, w, lx } = d;
+  const n = x.length;
+  void x; void lx;
+  const inBox = (p: Float64Array) => {
+    for (let j = 0; j < m; j++) if (!(p[j]! >= lower[j]! && p[j]! <= upper[j]!)) return false;
+    return true;
+  };
+  return {
+    m,
+    cost(p) {
+      if (!inBox(p)) return Infinity;
+      const p0 = p[0]!, p1 = p[1]!;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const l = lx[i]!, P = Math.exp(p1 * l), sv = p0 * P;
+        gr[0] = P; gr[1] = sv * l;
+        const r = sv - y[i]!;
+        s += w ? w[i]! * r * r : r * r;
+      }
+      return Number.isFinite(s) ? s : Infinity;
+    },
+    normal(p, A, g) {
+      A.fill(0);
+      g.fill(0);
+      if (!inBox(p)) return Infinity;
+      const p0 = p[0]!, p1 = p[1]!;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const l = lx[i]!, P = Math.exp(p1 * l), sv = p0 * P;
+        gr[0] = P; gr[1] = sv * l;
+        const r = sv - y[i]!;
+        const wi = w ? w[i]! : 1;
+        s += wi * r * r;
+        for (let a = 0; a < m; a++) {
+          const ga = wi * gr[a]!;
+          g[a] = g[a]! + ga * r;
+          const row = a * m;
+          for (let b = 0; b <= a; b++) A[row + b] = A[row + b]! + ga * gr[b]!;
+        }
+      }
+      for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) A[b * m + a] = A[a * m + b]!;
+      return Number.isFinite(s) ? s : Infinity;
+    },
+  };
+}
+
+/** Ludwik: see {@link simpleProblem}. */
+function ludwikProblem(d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
+  const m = 3;
+  const gr = new Float64Array(m);
+  const { x, y, w, lx } = d;
+  const n = x.length;
+  void x; void lx;
+  const inBox = (p: Float64Array) => {
+    for (let j = 0; j < m; j++) if (!(p[j]! >= lower[j]! && p[j]! <= upper[j]!)) return false;
+    return true;
+  };
+  return {
+    m,
+    cost(p) {
+      if (!inBox(p)) return Infinity;
+      const p0 = p[0]!, p1 = p[1]!, p2 = p[2]!;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const l = lx[i]!, P = Math.exp(p2 * l), kp = p1 * P;
+        gr[0] = 1; gr[1] = P; gr[2] = kp * l;
+        const r = p0 + kp - y[i]!;
+        s += w ? w[i]! * r * r : r * r;
+      }
+      return Number.isFinite(s) ? s : Infinity;
+    },
+    normal(p, A, g) {
+      A.fill(0);
+      g.fill(0);
+      if (!inBox(p)) return Infinity;
+      const p0 = p[0]!, p1 = p[1]!, p2 = p[2]!;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const l = lx[i]!, P = Math.exp(p2 * l), kp = p1 * P;
+        gr[0] = 1; gr[1] = P; gr[2] = kp * l;
+        const r = p0 + kp - y[i]!;
+        const wi = w ? w[i]! : 1;
+        s += wi * r * r;
+        for (let a = 0; a < m; a++) {
+          const ga = wi * gr[a]!;
+          g[a] = g[a]! + ga * r;
+          const row = a * m;
+          for (let b = 0; b <= a; b++) A[row + b] = A[row + b]! + ga * gr[b]!;
+        }
+      }
+      for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) A[b * m + a] = A[a * m + b]!;
+      return Number.isFinite(s) ? s : Infinity;
+    },
+  };
+}
+
+/** Swift: see {@link simpleProblem}. */
+function swiftProblem(d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
+  const m = 3;
+  const gr = new Float64Array(m);
+  const { x, y, w, lx } = d;
+  const n = x.length;
+  void x; void lx;
+  const inBox = (p: Float64Array) => {
+    for (let j = 0; j < m; j++) if (!(p[j]! >= lower[j]! && p[j]! <= upper[j]!)) return false;
+    return true;
+  };
+  return {
+    m,
+    cost(p) {
+      if (!inBox(p)) return Infinity;
+      const p0 = p[0]!, p1 = p[1]!, p2 = p[2]!;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const u = p1 + x[i]!, lu = Math.log(u), P = Math.exp(p2 * lu), sv = p0 * P;
+        gr[0] = 1 * P; gr[1] = (1 * p2 * sv) / u; gr[2] = 1 * sv * lu;
+        const r = sv - y[i]!;
+        s += w ? w[i]! * r * r : r * r;
+      }
+      return Number.isFinite(s) ? s : Infinity;
+    },
+    normal(p, A, g) {
+      A.fill(0);
+      g.fill(0);
+      if (!inBox(p)) return Infinity;
+      const p0 = p[0]!, p1 = p[1]!, p2 = p[2]!;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const u = p1 + x[i]!, lu = Math.log(u), P = Math.exp(p2 * lu), sv = p0 * P;
+        gr[0] = 1 * P; gr[1] = (1 * p2 * sv) / u; gr[2] = 1 * sv * lu;
+        const r = sv - y[i]!;
+        const wi = w ? w[i]! : 1;
+        s += wi * r * r;
+        for (let a = 0; a < m; a++) {
+          const ga = wi * gr[a]!;
+          g[a] = g[a]! + ga * r;
+          const row = a * m;
+          for (let b = 0; b <= a; b++) A[row + b] = A[row + b]! + ga * gr[b]!;
+        }
+      }
+      for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) A[b * m + a] = A[a * m + b]!;
+      return Number.isFinite(s) ? s : Infinity;
+    },
+  };
+}
+
+/** Voce: see {@link simpleProblem}. */
+function voceProblem(d: LawData, lower: readonly number[], upper: readonly number[]): NormalProblem {
+  const m = 3;
+  const gr = new Float64Array(m);
+  const { x, y, w, lx } = d;
+  const n = x.length;
+  void x; void lx;
+  const inBox = (p: Float64Array) => {
+    for (let j = 0; j < m; j++) if (!(p[j]! >= lower[j]! && p[j]! <= upper[j]!)) return false;
+    return true;
+  };
+  return {
+    m,
+    cost(p) {
+      if (!inBox(p)) return Infinity;
+      const p0 = p[0]!, p1 = p[1]!, p2 = p[2]!;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const xi = x[i]!, E = Math.exp(-p2 * xi), om = -Math.expm1(-p2 * xi);
+        gr[0] = 1; gr[1] = 1 * om; gr[2] = 1 * p1 * xi * E;
+        const r = p0 + p1 * om - y[i]!;
+        s += w ? w[i]! * r * r : r * r;
+      }
+      return Number.isFinite(s) ? s : Infinity;
+    },
+    normal(p, A, g) {
+      A.fill(0);
+      g.fill(0);
+      if (!inBox(p)) return Infinity;
+      const p0 = p[0]!, p1 = p[1]!, p2 = p[2]!;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const xi = x[i]!, E = Math.exp(-p2 * xi), om = -Math.expm1(-p2 * xi);
+        gr[0] = 1; gr[1] = 1 * om; gr[2] = 1 * p1 * xi * E;
+        const r = p0 + p1 * om - y[i]!;
         const wi = w ? w[i]! : 1;
         s += wi * r * r;
         for (let a = 0; a < m; a++) {
