@@ -1,5 +1,5 @@
-// The written-out normal equations of every law (the Swift–Voce blend, Hockett–Sherby, and Hollomon,
-// Ludwik, Swift and Voce, src/core/fit/lawNormalEquations.ts) against the general form through each law's point function
+// The written-out normal equations of the Swift–Voce blend and of Hockett–Sherby
+// (src/core/fit/lawNormalEquations.ts) against the general form through each law's point function
 // (POINT, whose derivatives test/core/fit/fitter.test.ts checks against central differences): the
 // same cost, JᵀWJ and JᵀWr, bit for bit, on random data and parameters (seeded), weighted or not.
 import { describe, expect, it } from 'vitest';
@@ -9,7 +9,7 @@ import { lawData, lawNormalProblem, pointProblem } from '../../../src/core/fit/l
 import type { LawName } from '../../../src/core/flow/types.js';
 
 describe('lawNormalProblem: written-out loops equal the general form', () => {
-  for (const law of ['swiftVoce', 'hockettSherby', 'hollomon', 'ludwik', 'swift', 'voce'] as LawName[]) {
+  for (const law of ['swiftVoce', 'hockettSherby'] as LawName[]) {
     it(`${law}: cost and normal equations identical to pointProblem on 200 random weighted and unweighted curves`, () => {
       const r = xoshiro128ss(law.length);
       const { lower, upper } = lawBounds(law);
@@ -26,11 +26,7 @@ describe('lawNormalProblem: written-out loops equal the general form', () => {
         });
         // Plausible blends often: alpha in (0, 1), small ε0, exponents below 1.
         if (law === 'swiftVoce') { p[0] = r.nextFloat(); p[2] = 0.001 + 0.05 * r.nextFloat(); p[3] = 0.05 + 0.5 * r.nextFloat(); p[6] = 1 + 40 * r.nextFloat(); }
-        else if (law === 'hockettSherby') { p[0] = 500 + 300 * r.nextFloat(); p[1] = 100 + 300 * r.nextFloat(); p[2] = 0.5 + 20 * r.nextFloat(); p[3] = 0.3 + 1.2 * r.nextFloat(); }
-        else if (law === 'hollomon') { p[0] = 200 + 800 * r.nextFloat(); p[1] = 0.05 + 0.55 * r.nextFloat(); }
-        else if (law === 'ludwik') { p[0] = 300 * r.nextFloat(); p[1] = 100 + 900 * r.nextFloat(); p[2] = 0.05 + 0.75 * r.nextFloat(); }
-        else if (law === 'swift') { p[0] = 200 + 800 * r.nextFloat(); p[1] = 0.001 + 0.05 * r.nextFloat(); p[2] = 0.05 + 0.55 * r.nextFloat(); }
-        else { p[0] = 100 + 300 * r.nextFloat(); p[1] = 50 + 450 * r.nextFloat(); p[2] = 1 + 40 * r.nextFloat(); }
+        else { p[0] = 500 + 300 * r.nextFloat(); p[1] = 100 + 300 * r.nextFloat(); p[2] = 0.5 + 20 * r.nextFloat(); p[3] = 0.3 + 1.2 * r.nextFloat(); }
         const a = lawNormalProblem(law, d, lower, upper), b = pointProblem(law, d, lower, upper);
         const m = a.m;
         const A1 = new Float64Array(m * m), g1 = new Float64Array(m), A2 = new Float64Array(m * m), g2 = new Float64Array(m);
