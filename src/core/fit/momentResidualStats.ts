@@ -76,13 +76,17 @@ export function momentResidualStats(law: LawName, d: LawData, p: Float64Array, m
   lawValues(law, mom.nodes, mom.lnNodes, p, F);
   const ssrB = new Float64Array(count), lagB = new Float64Array(count), rFirst = new Float64Array(count), rLast = new Float64Array(count);
   const beta = new Float64Array(count), round = new Float64Array(count);
-  const cols: BlockColumns = { ssr: ssrB, lag: lagB, r0: rFirst, r1: rLast, beta, round };
-  allBlockStats(data, mom.nodes, F, x, y, size, count, cols);
-  const ssrEst = sumOf(ssrB);
+  let ssrEst = 0;
+  for (let b = 0; b < count; b++) {
+    const v = blockStats(data, b * MOMENT_STRIDE, mom.nodes, F, b * NODES, x, y, b * size, Math.min(x.length, b * size + size));
+    ssrB[b] = v.ssr; lagB[b] = v.lag; rFirst[b] = v.r0; rLast[b] = v.r1; beta[b] = v.beta; round[b] = v.round;
+    ssrEst += v.ssr;
+  }
   const n = x.length;
   const rmse = Math.sqrt(Math.max(0, ssrEst) / n);
   const limit = relTol * rmse, roundLimit = relTol * Math.max(0, ssrEst) / count;
   let exactBlocks = 0, exactPoints = 0, err = 0;
+  let scratch: Float64Array | null = null;
   for (let b = 0; b < count; b++) {
     if (beta[b]! <= limit && round[b]! <= roundLimit) {
       const nb = data[b * MOMENT_STRIDE]!;
@@ -90,7 +94,11 @@ export function momentResidualStats(law: LawName, d: LawData, p: Float64Array, m
       continue;
     }
     const a = b * size, z = Math.min(n, a + size);
-    exactBlock(law, x, d.lx, y, p, a, z, cols, b);
+    scratch ??= new Float64Array(size);
+    const out = scratch.subarray(0, z - a);
+    lawValues(law, x.subarray(a, z), d.lx.subarray(a, z), p, out);
+    const e = exactBlock(out, y, a, z);
+    ssrB[b] = e.ssr; lagB[b] = e.lag; rFirst[b] = e.r0; rLast[b] = e.r1;
     exactBlocks++; exactPoints += z - a;
   }
   let ssr = 0, lag1 = 0;
@@ -103,31 +111,10 @@ export function momentResidualStats(law: LawName, d: LawData, p: Float64Array, m
   return { ssr, lag1, ok, exactBlocks, exactPoints, bound: ssr > 0 ? err / ssr : err === 0 ? 0 : Infinity };
 }
 
-// Speed (follow-up J): each block's statistics are written straight into typed columns (an object of six numbers
-// a block was a heap object and six heap numbers while the loop ran unoptimised), and a block summed point by
-// point evaluates the law in the same loop as its sums (no scratch column, no subarrays). The same operations in
-// the same order as before: the same numbers, bit for bit (analyze's JSON compared byte for byte).
-
-/** Per-block results of momentResidualStats: SSR, in-block lag-1 sum, first and last residual, β and rounding bound. */
-interface BlockColumns { ssr: Float64Array; lag: Float64Array; r0: Float64Array; r1: Float64Array; beta: Float64Array; round: Float64Array }
-
-/** Σ v[b] in index order. */
-function sumOf(v: Float64Array): number {
-  let s = 0;
-  for (let b = 0; b < v.length; b++) s += v[b]!;
-  return s;
-}
-
-/** {@link blockStats} of every block into `cols`. */
-function allBlockStats(data: Float64Array, nodes: Float64Array, F: Float64Array, x: Float64Array, y: Float64Array, size: number, count: number, cols: BlockColumns): void {
-  const n = x.length;
-  for (let b = 0; b < count; b++) blockStats(data, b * MOMENT_STRIDE, nodes, F, b * NODES, x, y, b * size, Math.min(n, b * size + size), cols, b);
-}
-
 const EPS = Number.EPSILON;
 
 /** One block from its moments and the law's five values F[k…k+5) (see momentResidualStats). */
-function blockStats(M: Float64Array, o: number, nodes: Float64Array, F: Float64Array, k: number, x: Float64Array, y: Float64Array, a: number, z: number, cols: BlockColumns, b: number): void {
+function blockStats(M: Float64Array, o: number, nodes: Float64Array, F: Float64Array, k: number, x: Float64Array, y: Float64Array, a: number, z: number) {
   const nb = M[o]!, m = M[o + 1]!, ym = M[o + 3]!;
   const s1 = M[o + 4]!, s2 = M[o + 5]!, s3 = M[o + 6]!, s4 = M[o + 7]!;
   const se = M[o + 8]!, see = M[o + 9]!, sde = M[o + 10]!, sqe = M[o + 11]!;
@@ -154,110 +141,17 @@ function blockStats(M: Float64Array, o: number, nodes: Float64Array, F: Float64A
   // What rounding may cost: a few ulps of the largest terms summed (their sizes, not their sum).
   const round = 16 * EPS * (Math.abs(tA) + Math.abs(tS) + Math.abs(tQ) + Math.abs(tAS) + Math.abs(tAQ) + Math.abs(tSQ) + Math.abs(tE) + see +
     s * s * pdd + q * q * pqq + pee + Math.abs(2 * s * q * pdq) + Math.abs(2 * s * pde) + Math.abs(2 * q * pqe));
-  cols.ssr[b] = ssr; cols.lag[b] = lag; cols.r0[b] = r0; cols.r1[b] = r1; cols.beta[b] = Number.isFinite(ssr) ? beta : NaN; cols.round[b] = round;
+  return { ssr, lag, r0, r1, beta: Number.isFinite(ssr) ? beta : NaN, round };
 }
 
-/**
- * SSR, in-block lag-1 sum and end residuals of block b (points a…z−1) from the law's value at every point, into
- * `cols`: the values of {@link lawValues} (the same formulas, written out per law so the engine inlines them),
- * residual rᵢ = σ(xᵢ) − yᵢ, Σr², Σrᵢrᵢ₋₁ in index order.
- */
-function exactBlock(law: LawName, x: Float64Array, lx: Float64Array, y: Float64Array, p: Float64Array, a: number, z: number, cols: BlockColumns, b: number): void {
-  switch (law) {
-    case 'hollomon': return sums(cols, b, hollomonBlock(x, lx, y, p, a, z));
-    case 'ludwik': return sums(cols, b, ludwikBlock(x, lx, y, p, a, z));
-    case 'swift': return sums(cols, b, swiftBlock(x, lx, y, p, a, z));
-    case 'voce': return sums(cols, b, voceBlock(x, lx, y, p, a, z));
-    case 'hockettSherby': return sums(cols, b, hockettSherbyBlock(x, lx, y, p, a, z));
-    case 'swiftVoce': return sums(cols, b, swiftVoceBlock(x, lx, y, p, a, z));
-  }
-}
-
-/** The four sums of one exact block, handed over in a scratch column (no object, no heap numbers a block). */
-const BLOCK = new Float64Array(4);
-
-function sums(cols: BlockColumns, b: number, s: Float64Array): void {
-  cols.ssr[b] = s[0]!; cols.lag[b] = s[1]!; cols.r0[b] = s[2]!; cols.r1[b] = s[3]!;
-}
-
-// One function per law (each loop monomorphic); the value expressions are lawValues' own.
-function hollomonBlock(_x: Float64Array, lx: Float64Array, y: Float64Array, p: Float64Array, a: number, z: number): Float64Array {
-  const K = p[0]!, e = p[1]!;
-  let ssr = 0, lag = 0, prev = 0, r0 = 0;
+/** SSR, in-block lag-1 sum and end residuals of one block from the law's values `f` at its points a…z−1. */
+function exactBlock(f: Float64Array, y: Float64Array, a: number, z: number) {
+  let ssr = 0, lag = 0, prev = 0;
   for (let i = a; i < z; i++) {
-    const r = K * Math.exp(e * lx[i]!) - y[i]!;
+    const r = f[i - a]! - y[i]!;
     ssr += r * r;
-    if (i > a) lag += r * prev; else r0 = r;
+    if (i > a) lag += r * prev;
     prev = r;
   }
-  BLOCK[0] = ssr; BLOCK[1] = lag; BLOCK[2] = r0; BLOCK[3] = prev;
-  return BLOCK;
-}
-
-function ludwikBlock(_x: Float64Array, lx: Float64Array, y: Float64Array, p: Float64Array, a: number, z: number): Float64Array {
-  const s0 = p[0]!, K = p[1]!, e = p[2]!;
-  let ssr = 0, lag = 0, prev = 0, r0 = 0;
-  for (let i = a; i < z; i++) {
-    const r = s0 + K * Math.exp(e * lx[i]!) - y[i]!;
-    ssr += r * r;
-    if (i > a) lag += r * prev; else r0 = r;
-    prev = r;
-  }
-  BLOCK[0] = ssr; BLOCK[1] = lag; BLOCK[2] = r0; BLOCK[3] = prev;
-  return BLOCK;
-}
-
-function swiftBlock(x: Float64Array, _lx: Float64Array, y: Float64Array, p: Float64Array, a: number, z: number): Float64Array {
-  const K = p[0]!, e0 = p[1]!, e = p[2]!;
-  let ssr = 0, lag = 0, prev = 0, r0 = 0;
-  for (let i = a; i < z; i++) {
-    const r = K * Math.exp(e * Math.log(e0 + x[i]!)) - y[i]!;
-    ssr += r * r;
-    if (i > a) lag += r * prev; else r0 = r;
-    prev = r;
-  }
-  BLOCK[0] = ssr; BLOCK[1] = lag; BLOCK[2] = r0; BLOCK[3] = prev;
-  return BLOCK;
-}
-
-function voceBlock(x: Float64Array, _lx: Float64Array, y: Float64Array, p: Float64Array, a: number, z: number): Float64Array {
-  const s0 = p[0]!, Q = p[1]!, bb = p[2]!;
-  let ssr = 0, lag = 0, prev = 0, r0 = 0;
-  for (let i = a; i < z; i++) {
-    const r = s0 + Q * -Math.expm1(-bb * x[i]!) - y[i]!;
-    ssr += r * r;
-    if (i > a) lag += r * prev; else r0 = r;
-    prev = r;
-  }
-  BLOCK[0] = ssr; BLOCK[1] = lag; BLOCK[2] = r0; BLOCK[3] = prev;
-  return BLOCK;
-}
-
-function hockettSherbyBlock(_x: Float64Array, lx: Float64Array, y: Float64Array, p: Float64Array, a: number, z: number): Float64Array {
-  const sat = p[0]!, s0 = p[1]!, al = p[2]!, e = p[3]!;
-  const dd = sat - s0;
-  const ok = dd > 0; // lawValues gives NaN for every point otherwise
-  let ssr = 0, lag = 0, prev = 0, r0 = 0;
-  for (let i = a; i < z; i++) {
-    const r = (ok ? sat - dd * Math.exp(-al * Math.exp(e * lx[i]!)) : NaN) - y[i]!;
-    ssr += r * r;
-    if (i > a) lag += r * prev; else r0 = r;
-    prev = r;
-  }
-  BLOCK[0] = ssr; BLOCK[1] = lag; BLOCK[2] = r0; BLOCK[3] = prev;
-  return BLOCK;
-}
-
-function swiftVoceBlock(x: Float64Array, _lx: Float64Array, y: Float64Array, p: Float64Array, a: number, z: number): Float64Array {
-  const al = p[0]!, K = p[1]!, e0 = p[2]!, e = p[3]!, s0 = p[4]!, Q = p[5]!, bb = p[6]!;
-  let ssr = 0, lag = 0, prev = 0, r0 = 0;
-  for (let i = a; i < z; i++) {
-    const xi = x[i]!;
-    const r = al * (K * Math.exp(e * Math.log(e0 + xi))) + (1 - al) * (s0 + Q * -Math.expm1(-bb * xi)) - y[i]!;
-    ssr += r * r;
-    if (i > a) lag += r * prev; else r0 = r;
-    prev = r;
-  }
-  BLOCK[0] = ssr; BLOCK[1] = lag; BLOCK[2] = r0; BLOCK[3] = prev;
-  return BLOCK;
+  return { ssr, lag, r0: f[0]! - y[a]!, r1: prev };
 }
