@@ -357,29 +357,29 @@ export class ByteRowScanner {
         const s = i;
         let neg = false;
         if (c === 45 || c === 43) { neg = c === 45; c = bytes[++i]!; }
-        let m = 0, sig = 0, scale = 0, digits = 0, general = false;
-        // Integer digits, then the fraction's (leading zeros are not significant; past 15 significant
-        // digits generalDecimal reads the cell). Two loops: no "after the point?" test per digit.
+        let m = 0, sig = 0, scale = 0, digits = 0;
+        // Integer digits, then the fraction's (leading zeros are not significant: m stays 0 and they are not
+        // counted; past 15 significant digits m is no longer exact and generalDecimal reads the cell). Two
+        // loops: no "after the point?" test per digit; the digit and fraction counts from positions, not per digit.
+        const i0 = i;
         while (c >= 48 && c <= 57) {
-          digits++;
-          if (m !== 0 || c !== 48) {
-            if (sig === EXACT_DIGITS) general = true;
-            else { m = m * 10 + (c - 48); sig++; }
-          }
+          m = m * 10 + (c - 48);
+          if (m !== 0) sig++;
           c = bytes[++i]!;
         }
+        digits = i - i0;
         if (c === 46 || (comma && c === 44)) {
           c = bytes[++i]!;
+          const f0 = i;
           while (c >= 48 && c <= 57) {
-            digits++;
-            scale--;
-            if (m !== 0 || c !== 48) {
-              if (sig === EXACT_DIGITS) general = true;
-              else { m = m * 10 + (c - 48); sig++; }
-            }
+            m = m * 10 + (c - 48);
+            if (m !== 0) sig++;
             c = bytes[++i]!;
           }
+          scale = f0 - i;
+          digits += i - f0;
         }
+        const general = sig > EXACT_DIGITS;
         let v: number, bad: boolean;
         if (general || scale < -22 || (c !== d && c !== 32 && c !== 9 && c !== 10 && c !== 13)) {
           // An exponent, a long mantissa or something else: read the whole trimmed cell.

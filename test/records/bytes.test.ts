@@ -88,6 +88,26 @@ describe('readRecordFile through the byte scanner reads what the text readers re
     expect(scannedBytes).toBeGreaterThan(100);
   });
 
+  it('cells at the 15-significant-digit edge (leading and trailing zeros, 15, 16 and 17 digits) read as Number() reads them', () => {
+    // The byte path's exact form takes at most 15 significant digits (m < 10^15 < 2^53); a 16th sends the cell to
+    // generalDecimal. Leading zeros are not significant, trailing ones are. Reference: Number() of the cell's text.
+    const cells = ['0.000123456789012345', '000012.5', '12.50000000000000', '12.500000000000000', '1.50000000000000000',
+      '123456789012345', '1234567789012345.5', '0.1234567890123456', '99999.9999999999', '0000000000000000001.25', '.000000000000000000000125',
+      '7.1000000000000000000000001', '0.0', '000', '4503599627370497.5'];
+    let text = 'Strain [%],Stress [MPa]\n';
+    // Edge cells in the stress column (the strain column must stay below 500 %); strains plain.
+    for (let i = 0; i < 40; i++) text += `${(i * 0.1).toFixed(1)},${cells[i % cells.length]}\n`;
+    const file = join(dir, 'edge.csv');
+    writeFileSync(file, text);
+    const layout = detectLayout(headLines(text), 'e.csv', {});
+    const b = scanBytes(file, layout, { file: 'e.csv' });
+    expect(b).not.toBeNull();
+    const r = b!.finish('e');
+    for (let i = 0; i < 40; i++) {
+      expect(Object.is(r.stress[i], Number(cells[i % cells.length])), `stress row ${i}: ${cells[i % cells.length]}`).toBe(true);
+    }
+  });
+
   it('a clean record is read by the byte path at every piece size from 40 bytes (lines cut at every place), the same arrays as the text reader', () => {
     let text = 'Strain [%],Stress [MPa]\r\n';
     for (let i = 0; i < 300; i++) text += `${(i * 0.0137).toFixed(5)},${(200 + i * 1.25).toFixed(3)}${i % 7 === 0 ? 'e0' : ''}\r\n`;

@@ -78,6 +78,23 @@ export function lawData(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Ar
   return packed(x, y, w);
 }
 
+/**
+ * {@link lawData} for unweighted data whose ln x is already known (`lx[i]` = Math.log(x[i]) for every i, as
+ * analyzeRecord's flow-curve pass takes it): the same LawData (range, first bad point), without the logarithm
+ * pass. Units as lawData.
+ * @example lawDataLogged(Float64Array.of(0.1), Float64Array.of(300), Float64Array.of(Math.log(0.1))).lo // 0.1
+ */
+export function lawDataLogged(x: Float64Array, y: Float64Array, lx: Float64Array): LawData {
+  let lo = 0, hi = 0, seenLo = false, seenHi = false, bad = -1;
+  for (let i = 0; i < x.length; i++) {
+    const e = x[i]!, s = y[i]!;
+    if (bad < 0 && (!(e > 0) || !(e < Infinity) || !(s > 0) || !(s < Infinity))) bad = i;
+    if (seenLo ? e < lo : e < Infinity) { lo = e; seenLo = true; }
+    if (seenHi ? e > hi : e > -Infinity) { hi = e; seenHi = true; }
+  }
+  return { x, y, w: null, lx, lo: seenLo ? lo : Infinity, hi: seenHi ? hi : -Infinity, bad };
+}
+
 function packed(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Array | null): LawData {
   const xs = x instanceof Float64Array ? x : Float64Array.from(x as ArrayLike<number>);
   const ys = y instanceof Float64Array ? y : Float64Array.from(y as ArrayLike<number>);

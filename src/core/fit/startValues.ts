@@ -15,20 +15,43 @@ function twoColumn(u: ArrayLike<number>, v: ArrayLike<number>, y: ArrayLike<numb
   return [(uy * vv - vy * uv) / det, (vy * uu - uy * uv) / det];
 }
 
-function ssr(f: (e: number) => number, x: ArrayLike<number>, y: ArrayLike<number>): number {
+/** Σ(s0 + K·xⁿ − y)² in index order (Infinity when not finite): Ludwik's residual sum in the start grid. */
+function ludwikSsr(x: ArrayLike<number>, y: ArrayLike<number>, s0: number, K: number, n: number): number {
   let s = 0;
-  for (let i = 0; i < x.length; i++) s += (f(x[i]!) - y[i]!) ** 2;
+  for (let i = 0; i < x.length; i++) s += (s0 + K * Math.pow(x[i]!, n) - y[i]!) ** 2;
   return Number.isFinite(s) ? s : Infinity;
 }
 
-/** ln y = a + b·ln x: returns [b, exp(a)] or null. */
-function powerLine(x: ArrayLike<number>, y: ArrayLike<number>): [number, number] | null {
-  const lx: number[] = [], ly: number[] = [];
-  for (let i = 0; i < x.length; i++) if (x[i]! > 0 && y[i]! > 0) { lx.push(Math.log(x[i]!)); ly.push(Math.log(y[i]!)); }
-  if (lx.length < 2) return null;
-  const ones = lx.map(() => 1);
-  const c = twoColumn(ones, lx, ly);
-  return c ? [c[1], Math.exp(c[0])] : null;
+/** Σ(K·(e0 + x)ⁿ − y)² in index order (Infinity when not finite): Swift's residual sum in the start grid. */
+function swiftSsr(x: ArrayLike<number>, y: ArrayLike<number>, K: number, e0: number, n: number): number {
+  let s = 0;
+  for (let i = 0; i < x.length; i++) s += (K * Math.pow(e0 + x[i]!, n) - y[i]!) ** 2;
+  return Number.isFinite(s) ? s : Infinity;
+}
+
+/**
+ * ln(y − yShift) = a + b·ln(x + xShift) over the points where both are > 0: returns [b, exp(a)] or null. The
+ * logs go into the scratch columns lx, ly (length ≥ x.length); the sums are twoColumn's with a column of ones
+ * (1·1 = 1 and 1·v = v exactly, so the same numbers as twoColumn(ones, lx, ly)). Written without per-call
+ * arrays or closures: the start grids call it a dozen times per law, and in a fresh process its loops ran
+ * unoptimised (speed follow-up J).
+ */
+function powerLine(x: ArrayLike<number>, y: ArrayLike<number>, xShift: number, yShift: number, lx: Float64Array, ly: Float64Array): [number, number] | null {
+  let k = 0;
+  for (let i = 0; i < x.length; i++) {
+    const xi = x[i]! + xShift, yi = y[i]! - yShift;
+    if (xi > 0 && yi > 0) { lx[k] = Math.log(xi); ly[k] = Math.log(yi); k++; }
+  }
+  if (k < 2) return null;
+  let uu = 0, uv = 0, vv = 0, uy = 0, vy = 0;
+  for (let i = 0; i < k; i++) {
+    const v = lx[i]!, w = ly[i]!;
+    uu += 1; uv += v; vv += v * v; uy += w; vy += v * w;
+  }
+  const det = uu * vv - uv * uv;
+  if (!(Math.abs(det) > 1e-300) || !(Math.abs(det) > 1e-14 * uu * vv)) return null;
+  const c0 = (uy * vv - vy * uv) / det, c1 = (vy * uu - uy * uv) / det;
+  return [c1, Math.exp(c0)];
 }
 
 const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
@@ -49,19 +72,19 @@ export function startValues(law: LawName, x: ArrayLike<number>, y: ArrayLike<num
   for (let i = 0; i < y.length; i++) { ymin = Math.min(ymin, y[i]!); ymax = Math.max(ymax, y[i]!); }
   switch (law) {
     case 'hollomon': {
-      const c = powerLine(x, y);
+      const c = powerLine(x, y, 0, 0, new Float64Array(x.length), new Float64Array(x.length));
       return c ? [clamp(c[1], 1e-3, 1e5), clamp(c[0], 1e-3, 1)] : [ymax, 0.1];
     }
     case 'ludwik': {
       let best: number[] = [0.9 * ymin, ymax - 0.9 * ymin, 0.5];
       let bestS = Infinity;
+      const lx = new Float64Array(x.length), ly = new Float64Array(x.length);
       for (const c of [0, 0.3, 0.5, 0.7, 0.8, 0.9, 0.95, 0.98, 0.995]) {
         const s0 = c * ymin;
-        const yy = Array.from({ length: y.length }, (_, i) => y[i]! - s0);
-        const p = powerLine(x, yy);
+        const p = powerLine(x, y, 0, s0, lx, ly);
         if (!p) continue;
         const K = clamp(p[1], 1e-3, 1e5), n = clamp(p[0], 1e-3, 1);
-        const s = ssr((e) => s0 + K * Math.pow(e, n), x, y);
+        const s = ludwikSsr(x, y, s0, K, n);
         if (s < bestS) { bestS = s; best = [s0, K, n]; }
       }
       return best;
@@ -102,12 +125,12 @@ export function startValues(law: LawName, x: ArrayLike<number>, y: ArrayLike<num
 function swiftStart(x: ArrayLike<number>, y: ArrayLike<number>, ymax: number): number[] {
   let best: number[] = [ymax, 0.01, 0.1];
   let bestS = Infinity;
+  const lx = new Float64Array(x.length), ly = new Float64Array(x.length);
   for (const e0 of [1e-5, 1e-4, 3e-4, 1e-3, 3e-3, 0.01, 0.03, 0.1, 0.3]) {
-    const xx = Array.from({ length: x.length }, (_, i) => x[i]! + e0);
-    const p = powerLine(xx, y);
+    const p = powerLine(x, y, e0, 0, lx, ly);
     if (!p) continue;
     const K = clamp(p[1], 1e-3, 1e5), n = clamp(p[0], 1e-3, 1);
-    const s = ssr((e) => K * Math.pow(e0 + e, n), x, y);
+    const s = swiftSsr(x, y, K, e0, n);
     if (s < bestS) { bestS = s; best = [K, e0, n]; }
   }
   return best;

@@ -6,8 +6,8 @@ import { linearFit } from '../fit/linearFit.js';
 import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus } from './elasticModulus.js';
 import { forceMaximum } from './forceMaximum.js';
 import { recordNoiseWide } from './recordNoise.js';
-import { nValueFit, nValueFitLogs } from './nValue.js';
-import { lawData, type LawData } from '../fit/lawNormalEquations.js';
+import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
+import { lawDataLogged, type LawData } from '../fit/lawNormalEquations.js';
 import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { TensileAnalysis, TensileData, TensileWarning } from './types.js';
 import { yieldPoint } from './yieldPoint.js';
@@ -196,10 +196,10 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   // The flow curve in one pass (ln(1 + e) only for the points of the envelope), into arrays sized
   // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
   // true curve that `analyze` never prints were a tenth of the command (bench/RESULTS.md, issue 12 D).
-  const { strain: fStrain, stress: fStress } = flowColumns(strain, stress, toe, E, iMax, proof ? proof.index : 0, fromTrue);
+  const { strain: fStrain, stress: fStress, logStrain, logStress } = flowColumns(strain, stress, toe, E, iMax, proof ? proof.index : 0, fromTrue);
   const nf = fStrain.length;
-  // ln εp once, for the n-value and every law fit (lawData: the same Math.log of the same values).
-  const packed = nf > 0 ? lawData(fStrain, fStress) : null;
+  // ln εp once, for the n-value and every law fit (taken in flowColumns' pass: the same Math.log of the same values).
+  const packed = nf > 0 ? lawDataLogged(fStrain, fStress, logStrain) : null;
 
   // n-value (ISO 10275).
   let nFit = null;
@@ -217,7 +217,9 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
       }
       xs = xr; ys = yr;
     }
-    if (xs.length >= 3) nFit = lx ? nValueFitLogs(xs, ys, lx) : nValueFit(xs, ys);
+    // Every point valid (packed.bad < 0: εp and σ finite and > 0): ln εp and ln σ as flowColumns took them, the range
+    // lawData found (the same regression on the same numbers as nValueFitLogs, without its copy and logarithm pass).
+    if (xs.length >= 3) nFit = lx && packed && packed.bad < 0 ? nValueFromLogs(lx, logStress, packed.lo, packed.hi) : lx ? nValueFitLogs(xs, ys, lx) : nValueFit(xs, ys);
     else warnings.push({ code: 'nRange', message: `only ${xs.length} points in the n-value range; no n-value` });
   }
 
@@ -341,11 +343,13 @@ function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number, noise:
 /**
  * The flow curve in one pass: the monotone envelope of samples fromIndex…iMax (cycles left out),
  * toe-compensated, as true plastic strain εp = ln(1 + e) − σ/E and true stress σ = s(1 + e)
- * (Dowling §4.5), keeping εp ≥ fromTrue and > 0; ln(1 + e) only for envelope points.
+ * (Dowling §4.5), keeping εp ≥ fromTrue and > 0; ln(1 + e) only for envelope points. Also ln εp and ln σ of
+ * each kept point (for the law fits and the n-value: taken here, while the values are at hand, instead of in
+ * two more passes over the curve; speed follow-up J).
  */
-function flowColumns(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: number, E: number, iMax: number, fromIndex: number, fromTrue: number): { strain: Float64Array; stress: Float64Array } {
+function flowColumns(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: number, E: number, iMax: number, fromIndex: number, fromTrue: number): { strain: Float64Array; stress: Float64Array; logStrain: Float64Array; logStress: Float64Array } {
   const m = iMax + 1;
-  const xs = new Float64Array(m), ys = new Float64Array(m);
+  const xs = new Float64Array(m), ys = new Float64Array(m), lxs = new Float64Array(m), lys = new Float64Array(m);
   let nf = 0;
   // A flag, not runMax = −Infinity: that start made V8 box every new envelope value (one heap number a point).
   let runMax = 0, any = false;
@@ -359,10 +363,12 @@ function flowColumns(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: 
     const ep = Math.log1p(e) - s / E;
     if (ep >= fromTrue && ep > 0) {
       xs[nf] = ep;
-      ys[nf++] = s;
+      ys[nf] = s;
+      lxs[nf] = Math.log(ep);
+      lys[nf++] = Math.log(s);
     }
   }
-  return { strain: xs.subarray(0, nf), stress: ys.subarray(0, nf) };
+  return { strain: xs.subarray(0, nf), stress: ys.subarray(0, nf), logStrain: lxs.subarray(0, nf), logStress: lys.subarray(0, nf) };
 }
 
 /**

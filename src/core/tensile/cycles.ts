@@ -96,8 +96,14 @@ export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<nu
  * so the cycles found are the same either way.
  */
 function mayHoldCycle(engStrain: ArrayLike<number>, engStress: ArrayLike<number>, toe: number, from: number, n: number): boolean {
-  let maxS = -Infinity, maxE = -Infinity;
-  for (let q = from - 1; q < n; q++) {
+  // The running maxima start from the first sample (what Math.max-like updates from −Infinity give it), not from
+  // −Infinity: such a start made the engine box every new maximum (a heap number a sample; speed follow-up J).
+  const q0 = from - 1;
+  if (!(q0 < n)) return false;
+  let maxE = Math.max(engStrain[q0]! - toe, -0.5);
+  let maxS = engStress[q0]! * (1 + maxE);
+  if (!(maxS > -Infinity)) maxS = -Infinity; // NaN stays below every sample, as with the −Infinity start
+  for (let q = q0 + 1; q < n; q++) {
     const e = Math.max(engStrain[q]! - toe, -0.5);
     const s = engStress[q]! * (1 + e);
     // Slack of 1e-9 on the stress bound: findCycles compares drop ≥ 0.3·σ_i in its own rounding.

@@ -63,14 +63,15 @@ export function initialTangent(strain: ArrayLike<number>, stress: ArrayLike<numb
   const bLine = ssx / sss;
   const ssrLine = Math.max(0, sxx - ssx * bLine);
   let best: { ssr: number; m: number; c: Float64Array; inv: Float64Array } | null = null;
+  // v = σ − σ̄, r = max(σ, 0)/S and x = e − x̄ once per point (the same values the loops below computed per power),
+  // and the per-power sums in a small function of its own: this function runs once per record, and its loops ran
+  // unoptimised with a heap number per value (speed follow-up J). Same operations in the same order.
+  const cols = bandColumns(strain, stress, from, to, sbar, S, xbar);
+  const sums = new Float64Array(8);
   for (const m of POWERS) {
     // Normal equations of [1, v, w], v = σ − σ̄ (MPa), w = (σ/S)^m, for x − x̄.
-    let s1 = 0, s2 = 0, s11 = 0, s12 = 0, s22 = 0, t0 = 0, t1 = 0, t2 = 0;
-    for (let i = from; i < to; i++) {
-      const v = stress[i]! - sbar, w = (Math.max(stress[i]!, 0) / S) ** m, x = strain[i]! - xbar;
-      s1 += v; s2 += w; s11 += v * v; s12 += v * w; s22 += w * w;
-      t0 += x; t1 += v * x; t2 += w * x;
-    }
+    bendSums(cols, m, sums);
+    const s1 = sums[0]!, s2 = sums[1]!, s11 = sums[2]!, s12 = sums[3]!, s22 = sums[4]!, t0 = sums[5]!, t1 = sums[6]!, t2 = sums[7]!;
     const L = cholesky(new Float64Array([n, s1, s2, s1, s11, s12, s2, s12, s22]), 3);
     if (!L) continue;
     const c = choleskySolve(L, 3, new Float64Array([t0, t1, t2]));
@@ -87,14 +88,8 @@ export function initialTangent(strain: ArrayLike<number>, stress: ArrayLike<numb
   // Residuals of closely spaced points are not independent (filtered load signals, a model that does not
   // quite fit): the variance is widened by n/n_eff, n_eff from the residuals' lag-1 autocorrelation r₁,
   // n_eff = n(1 − r₁)/(1 + r₁) (Bayley & Hammersley, J. R. Stat. Soc. Suppl. 8, 1946), as the law fits do.
-  let r0 = 0, r1 = 0, prev = NaN;
-  for (let i = from; i < to; i++) {
-    const v = stress[i]! - sbar, w = (Math.max(stress[i]!, 0) / S) ** best.m;
-    const res = strain[i]! - xbar - (best.c[0]! + best.c[1]! * v + best.c[2]! * w);
-    r0 += res * res;
-    if (i > from) r1 += res * prev;
-    prev = res;
-  }
+  const lag = bendResidualLag(cols, best.m, best.c[0]!, best.c[1]!, best.c[2]!);
+  const r0 = lag[0], r1 = lag[1];
   const rho = r0 > 0 ? Math.max(0, Math.min(0.95, r1 / r0)) : 0;
   const widen = (1 + rho) / (1 - rho);
   const b = best.c[1]! / lambda;
@@ -106,4 +101,44 @@ export function initialTangent(strain: ArrayLike<number>, stress: ArrayLike<numb
   const { c, m } = best;
   const strainAt = (sigma: number) => xbar + c[0]! + c[1]! * (sigma - sbar) + c[2]! * (Math.max(sigma, 0) / S) ** m;
   return { modulus: E, standardError: seB * E * E, toeStrain, power: m, points: n, r2: sxx > 0 ? Math.max(0, 1 - best.ssr / sxx) : 1, improvement, strainAt };
+}
+
+/** The band's points as initialTangent uses them: v = σ − σ̄, r = max(σ, 0)/S, x = e − x̄ (MPa, 1, strain). */
+interface BandColumns { v: Float64Array; r: Float64Array; x: Float64Array }
+
+function bandColumns(strain: ArrayLike<number>, stress: ArrayLike<number>, from: number, to: number, sbar: number, S: number, xbar: number): BandColumns {
+  const n = to - from;
+  const v = new Float64Array(n), r = new Float64Array(n), x = new Float64Array(n);
+  for (let i = from; i < to; i++) {
+    v[i - from] = stress[i]! - sbar;
+    r[i - from] = Math.max(stress[i]!, 0) / S;
+    x[i - from] = strain[i]! - xbar;
+  }
+  return { v, r, x };
+}
+
+/** Σv, Σw, Σv², Σvw, Σw², Σx, Σvx, Σwx with w = r^m, in index order, into out[0…8). */
+function bendSums(c: BandColumns, m: number, out: Float64Array): void {
+  const { v: vs, r: rs, x: xs } = c;
+  let s1 = 0, s2 = 0, s11 = 0, s12 = 0, s22 = 0, t0 = 0, t1 = 0, t2 = 0;
+  for (let i = 0; i < vs.length; i++) {
+    const v = vs[i]!, w = rs[i]! ** m, x = xs[i]!;
+    s1 += v; s2 += w; s11 += v * v; s12 += v * w; s22 += w * w;
+    t0 += x; t1 += v * x; t2 += w * x;
+  }
+  out[0] = s1; out[1] = s2; out[2] = s11; out[3] = s12; out[4] = s22; out[5] = t0; out[6] = t1; out[7] = t2;
+}
+
+/** Σres² and the lag-1 Σresᵢresᵢ₋₁ of x − (c0 + c1·v + c2·r^m), in index order. */
+function bendResidualLag(c: BandColumns, m: number, c0: number, c1: number, c2: number): [number, number] {
+  const { v: vs, r: rs, x: xs } = c;
+  let r0 = 0, r1 = 0, prev = NaN;
+  for (let i = 0; i < vs.length; i++) {
+    const w = rs[i]! ** m;
+    const res = xs[i]! - (c0 + c1 * vs[i]! + c2 * w);
+    r0 += res * res;
+    if (i > 0) r1 += res * prev;
+    prev = res;
+  }
+  return [r0, r1];
 }

@@ -62,6 +62,17 @@ export function nValueFitLogs(plasticStrain: ArrayLike<number>, trueStress: Arra
   return nResult(lx, ly, k, lo, hi);
 }
 
+/**
+ * {@link nValueFit} from ln εp and ln σ already taken for every point, all of them usable (εp and σ finite and
+ * > 0), with the range [lo, hi] of εp: the same regression on the same numbers (analyzeRecord takes the logs in
+ * its flow-curve pass). Units and range as nValueFit.
+ * @throws InputError when fewer than 3 points.
+ * @example nValueFromLogs(Float64Array.from([0.01, 0.1, 0.2], Math.log), Float64Array.from([530 * 0.01 ** 0.44, 530 * 0.1 ** 0.44, 530 * 0.2 ** 0.44], Math.log), 0.01, 0.2).n // 0.44
+ */
+export function nValueFromLogs(logStrain: Float64Array, logStress: Float64Array, lo: number, hi: number): NValueResult {
+  return nResult(logStrain, logStress, logStrain.length, lo, hi);
+}
+
 function nResult(lx: Float64Array, ly: Float64Array, k: number, lo: number, hi: number): NValueResult {
   if (k < 3) throw new InputError('nRange', k, 'at least 3 points with true plastic strain > 0 in the n-value range');
   const f = linearFit(lx, ly, 0, k);

@@ -18,18 +18,56 @@ import { movingAverage, polynomialFit } from './localFit.js';
 export function proofStrength(
   strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, fromIndex = 0, toIndex = strain.length, noise = 0, lineVariance?: (stress: number) => number,
 ): { stress: number; index: number; standardError?: number; halfWidth95?: number } | null {
-  const g = (i: number) => stress[i]! - E * (strain[i]! - toe - offset);
-  let prev = g(fromIndex);
+  const i = firstCrossing(strain, stress, E, toe, offset, fromIndex, toIndex);
+  if (i < 0) return null;
+  const prev = stress[i - 1]! - E * (strain[i - 1]! - toe - offset), cur = stress[i]! - E * (strain[i]! - toe - offset);
+  const t = prev / (prev - cur);
+  const raw = { stress: stress[i - 1]! + t * (stress[i]! - stress[i - 1]!), index: i - 1 + t };
+  return noise > 0 ? smoothCrossing(strain, stress, E, toe, offset, i, toIndex, noise, lineVariance) ?? raw : raw;
+}
+
+// The record-long loops below are small functions of their own, without closures: proofStrength runs five
+// times per record (three offsets, and Rp at both ends of E's interval), and on a 1,000,000-row record its
+// loops through closures ran unoptimised long enough to be 50 ms of the analysis (speed follow-up J). The
+// same operations in the same order: the same numbers.
+
+/**
+ * The first i in (fromIndex, toIndex) where g = σ − E·(e − e0 − offset) changes sign from > 0 to ≤ 0
+ * (g(i − 1) > 0, g(i) ≤ 0), or −1. Units: strain fraction, MPa.
+ */
+function firstCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, fromIndex: number, toIndex: number): number {
+  let prevPositive = stress[fromIndex]! - E * (strain[fromIndex]! - toe - offset) > 0;
   for (let i = fromIndex + 1; i < toIndex; i++) {
-    const cur = g(i);
-    if (prev > 0 && cur <= 0) {
-      const t = prev / (prev - cur);
-      const raw = { stress: stress[i - 1]! + t * (stress[i]! - stress[i - 1]!), index: i - 1 + t };
-      return noise > 0 ? smoothCrossing(strain, stress, E, toe, offset, i, toIndex, noise, lineVariance) ?? raw : raw;
-    }
-    prev = cur;
+    const cur = stress[i]! - E * (strain[i]! - toe - offset);
+    if (prevPositive && cur <= 0) return i;
+    prevPositive = cur > 0;
   }
-  return null;
+  return -1;
+}
+
+/** True when the samples i, i + dir, i + 2·dir all leave [lo, hi] in plastic strain e − e0 − σ/E (or the record). */
+function leaves(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, lo: number, hi: number, i: number, dir: number, toIndex: number): boolean {
+  for (let k = 0; k < 3; k++) {
+    const j = i + k * dir;
+    if (j < 0 || j >= toIndex) return true;
+    const v = strain[j]! - toe - stress[j]! / E;
+    if (v >= lo && v <= hi) return false;
+  }
+  return true;
+}
+
+/** First index of the window: moved down from c while the samples below do not leave [lo, hi] (see smoothCrossing). */
+function windowStart(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, lo: number, hi: number, c: number, toIndex: number): number {
+  let a = c;
+  while (a - 1 >= 0 && !leaves(strain, stress, E, toe, lo, hi, a - 1, -1, toIndex)) a--;
+  return a;
+}
+
+/** Last index of the window: moved up from c while the samples above do not leave [lo, hi]. */
+function windowEnd(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, lo: number, hi: number, c: number, toIndex: number): number {
+  let b = c;
+  while (b + 1 < toIndex && !leaves(strain, stress, E, toe, lo, hi, b + 1, 1, toIndex)) b++;
+  return b;
 }
 
 /**
@@ -41,23 +79,16 @@ export function proofStrength(
  * too (the parabola's prediction error and the modulus's, see below).
  */
 function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number, noise: number, lineVariance?: (stress: number) => number): { stress: number; index: number; standardError?: number; halfWidth95?: number } | null {
-  const pl = (i: number) => strain[i]! - toe - stress[i]! / E;
   const lo = 0.5 * offset, hi = 2 * offset;
   // The window ends where three samples in a row leave [lo, hi]: one noisy sample (in load or extension, the
   // strain of a dense record is not even monotone under extensometer noise) does not cut it short.
-  const out = (i: number, dir: number) => {
-    for (let k = 0; k < 3; k++) { const j = i + k * dir; if (j < 0 || j >= toIndex) return true; const v = pl(j); if (v >= lo && v <= hi) return false; }
-    return true;
-  };
-  let a = c, b = c;
-  while (a - 1 >= 0 && !out(a - 1, -1)) a--;
-  while (b + 1 < toIndex && !out(b + 1, 1)) b++;
+  const a = windowStart(strain, stress, E, toe, lo, hi, c, toIndex), b = windowEnd(strain, stress, E, toe, lo, hi, c, toIndex);
   if (b - a + 1 < 7) return null;
   const f = polynomialFit(strain, stress, a, b + 1, 2);
   if (!f) return null;
   const G = (e: number) => f.at(e) - E * (e - toe - offset);
-  let x0 = Infinity, x1 = -Infinity;
-  for (let i = a; i <= b; i++) { x0 = Math.min(x0, strain[i]!); x1 = Math.max(x1, strain[i]!); }
+  const x01 = spanOf(strain, a, b);
+  let x0 = x01[0], x1 = x01[1];
   if (!(G(x0) > 0 && G(x1) <= 0)) return null;
   for (let k = 0; k < 80 && x1 - x0 > 1e-14; k++) { const m = 0.5 * (x0 + x1); if (G(m) > 0) x0 = m; else x1 = m; }
   const e = 0.5 * (x0 + x1);
@@ -72,15 +103,9 @@ function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E:
   // shifts the offset line sideways by Δe, which moves the crossing's stress by f′·Δe·E/(E − f′).
   const at = { stress: f.at(e), index: i + Math.min(1, Math.max(0, t)) };
   if (!lineVariance) return at;
-  const S = [0, 0, 0, 0, 0];
-  let r00 = 0, r01 = 0, prev = 0;
-  for (let k = a; k <= b; k++) {
-    const u = (strain[k]! - f.xm) / f.h;
-    let p = 1;
-    for (let q = 0; q < 5; q++) { S[q]! += p; p *= u; }
-    const r = stress[k]! - f.at(strain[k]!);
-    r00 += r * r; if (k > a) r01 += r * prev; prev = r;
-  }
+  const S = new Float64Array(5);
+  const r0 = windowMoments(strain, stress, a, b, f.xm, f.h, f.c[0]!, f.c[1]!, f.c[2]!, S);
+  const r00 = r0[0], r01 = r0[1];
   const rho = r00 > 0 ? Math.min(0.9, Math.max(0, r01 / r00)) : 0;
   const s2 = Math.max(noise * noise, f.ssr / Math.max(1, f.n - 3)) * (1 + rho) / (1 - rho);
   const ue = (e - f.xm) / f.h;
@@ -95,8 +120,35 @@ function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E:
   return { ...at, standardError: se, halfWidth95: studentTQuantile(0.975, dof) * se };
 }
 
+/** Smallest and largest strain of samples a…b (Math.min/Math.max in index order from ±Infinity, as written before). */
+function spanOf(strain: ArrayLike<number>, a: number, b: number): [number, number] {
+  let x0 = strain[a]!, x1 = strain[a]!;
+  for (let i = a + 1; i <= b; i++) { x0 = Math.min(x0, strain[i]!); x1 = Math.max(x1, strain[i]!); }
+  return [x0, x1];
+}
+
+/**
+ * Power sums S[q] = Σ uᵏ (q = 0…4, u = (e − xm)/h, each power by repeated multiplication from 1, as PolyFit
+ * builds them) over samples a…b into S, and the residuals' Σr² and lag-1 Σrᵢrᵢ₋₁ about the parabola
+ * c0 + c1·u + c2·u² (evaluated as PolyFit.at does: ((0·u + c2)·u + c1)·u + c0). Returns [Σr², Σrᵢrᵢ₋₁].
+ */
+function windowMoments(strain: ArrayLike<number>, stress: ArrayLike<number>, a: number, b: number, xm: number, h: number, c0: number, c1: number, c2: number, S: Float64Array): [number, number] {
+  let s0 = 0, s1 = 0, s2 = 0, s3 = 0, s4 = 0, r00 = 0, r01 = 0, prev = 0;
+  for (let k = a; k <= b; k++) {
+    const e = strain[k]!;
+    const u = (e - xm) / h;
+    const p2 = u * u, p3 = p2 * u, p4 = p3 * u;
+    s0 += 1; s1 += u; s2 += p2; s3 += p3; s4 += p4;
+    const w = (e - xm) / h;
+    const r = stress[k]! - (((0 * w + c2) * w + c1) * w + c0);
+    r00 += r * r; if (k > a) r01 += r * prev; prev = r;
+  }
+  S[0] = s0; S[1] = s1; S[2] = s2; S[3] = s3; S[4] = s4;
+  return [r00, r01];
+}
+
 /** xᵀ M⁻¹ x for the symmetric 3×3 moment matrix M[r][c] = S[r + c] (Hankel), by the adjugate; Infinity when singular. */
-function quadForm3(S: readonly number[], x: readonly number[]): number {
+function quadForm3(S: ArrayLike<number>, x: readonly number[]): number {
   const a = S[0]!, b = S[1]!, c = S[2]!, d = S[3]!, e = S[4]!;
   // M = [[a, b, c], [b, c, d], [c, d, e]]
   const A00 = c * e - d * d, A01 = -(b * e - c * d), A02 = b * d - c * c;

@@ -80,25 +80,11 @@ export function yieldPoint(
   // refitted through the rising samples before the departure found (above a fifth of the stress there) and
   // the search repeated, until the departure stays put (at most 4 rounds).
   let lineA = -E * toe, lineB = E;
-  const lineAt = (i: number) => lineA + lineB * strain[i]!;
   // The line is known only to about σ̂·√(4/k) at the end of the k samples it rests on (prediction error just
   // past a least-squares line's range): the departure tolerance includes it, so a good sample at the peak of
   // a short rise is not taken for the fall.
   let lineFrom = fromIndex;
-  const depart = (start: number) => {
-    for (let i = Math.max(1, start); i < maxIndex - 1; i++) {
-      const tol = (k: number) => Math.max(Y.departSigmas * noise * Math.sqrt(1 + 4 / Math.max(2, k - lineFrom)), 0.005 * lineAt(k));
-      if (stress[i]! < lineAt(i) - tol(i) && stress[i + 1]! < lineAt(i + 1) - tol(i + 1)) {
-        // A departure lasts: past a real one the line rises away from the samples for good. Correlated load
-        // noise (which the white-noise estimate reads low) can put two samples below the line in mid-rise; when
-        // a sample of the next ten comes back to the line, it was such an excursion.
-        let back = false;
-        for (let j = i + 2; j <= Math.min(i + 11, maxIndex - 1) && !back; j++) back = stress[j]! >= lineAt(j) - 0.5 * tol(j);
-        if (!back) return i;
-      }
-    }
-    return -1;
-  };
+  const depart = (start: number) => departure(strain, stress, lineA, lineB, lineFrom, Y.departSigmas * noise, start, maxIndex);
   let d = depart(fromIndex);
   for (let round = 0; round < 4 && d > 0; round++) {
     let a = d;
@@ -119,9 +105,7 @@ export function yieldPoint(
   // (low-hardening steels), which would leave no plateau to read.
   let r = d;
   while (r < maxIndex && stress[r + 1]! < stress[r]! + noise) r++;
-  let top = r;
-  for (let i = r + 1; i <= maxIndex; i++) if (stress[i]! > stress[top]!) top = i;
-  maxIndex = top;
+  maxIndex = firstHighest(stress, r, maxIndex);
   // The peak: the highest sample from the elastic band to the departure (still on the elastic line).
   let q = Math.max(fromIndex, d - 1);
   for (let i = Math.max(fromIndex, 0); i < d; i++) if (stress[i]! > stress[q]!) q = i;
@@ -470,4 +454,40 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
 function lag1Factor(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, a: number, b: number): number {
   const rho = lineResidualLag1(x, y, from, to, a, b);
   return (1 + rho) / (1 - rho);
+}
+
+// yieldPoint's record-long loops as small functions without closures (the same operations in the same order, so
+// the same numbers): yieldPoint runs once per record and is long, and its search for the departure (a closure per
+// sample for the tolerance) and for the highest stress ran unoptimised (speed follow-up J).
+
+/**
+ * The departure from the line σ = lineA + lineB·e: the first i ≥ max(1, start), i < maxIndex − 1, where samples i
+ * and i + 1 both lie more than tol below the line, tol(k) = max(sn·√(1 + 4/max(2, k − lineFrom)), 0.005·line(k))
+ * with sn = departSigmas·σ̂, and no sample of the next ten comes back within tol/2 of it; −1 if none.
+ */
+function departure(strain: ArrayLike<number>, stress: ArrayLike<number>, lineA: number, lineB: number, lineFrom: number, sn: number, start: number, maxIndex: number): number {
+  for (let i = Math.max(1, start); i < maxIndex - 1; i++) {
+    if (stress[i]! < lineA + lineB * strain[i]! - departTol(strain, lineA, lineB, lineFrom, sn, i) &&
+      stress[i + 1]! < lineA + lineB * strain[i + 1]! - departTol(strain, lineA, lineB, lineFrom, sn, i + 1)) {
+      // A departure lasts: past a real one the line rises away from the samples for good. Correlated load
+      // noise (which the white-noise estimate reads low) can put two samples below the line in mid-rise; when
+      // a sample of the next ten comes back to the line, it was such an excursion.
+      let back = false;
+      for (let j = i + 2; j <= Math.min(i + 11, maxIndex - 1) && !back; j++) back = stress[j]! >= lineA + lineB * strain[j]! - 0.5 * departTol(strain, lineA, lineB, lineFrom, sn, j);
+      if (!back) return i;
+    }
+  }
+  return -1;
+}
+
+/** The departure tolerance at sample k (see {@link departure}). */
+function departTol(strain: ArrayLike<number>, lineA: number, lineB: number, lineFrom: number, sn: number, k: number): number {
+  return Math.max(sn * Math.sqrt(1 + 4 / Math.max(2, k - lineFrom)), 0.005 * (lineA + lineB * strain[k]!));
+}
+
+/** Index of the first highest stress in [r, maxIndex] (r itself unless a later sample is strictly higher). */
+function firstHighest(stress: ArrayLike<number>, r: number, maxIndex: number): number {
+  let top = r;
+  for (let i = r + 1; i <= maxIndex; i++) if (stress[i]! > stress[top]!) top = i;
+  return top;
 }
