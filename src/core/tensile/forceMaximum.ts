@@ -200,12 +200,14 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
       if (f && (!bf || f.ssr < bf.ssr)) { bf = f; bx0 = xv; }
     }
     let lo = Math.max(xa, bx0 - (xb - xa) / G), hi = Math.min(xb, bx0 + (xb - xa) / G);
-    const gr = (Math.sqrt(5) - 1) / 2;
-    for (let k = 0; k < 30 && hi - lo > 1e-12; k++) {
-      const x1 = hi - gr * (hi - lo), x2 = lo + gr * (hi - lo);
-      const f1 = solve(x1, pR, smooth), f2 = solve(x2, pR, smooth);
-      if (!f1 || !f2) break;
-      if (f1.ssr < f2.ssr) hi = x2; else lo = x1;
+    // Golden section with one new trial per step (the other is kept), down to 1e-6 of the span (about 1e-5 point
+    // of Ag on a 5 % span: far below any record's resolution; 22 trials where 60 were spent before).
+    const gr = (Math.sqrt(5) - 1) / 2, tolX = 1e-6 * (xb - xa);
+    let x1 = hi - gr * (hi - lo), x2 = lo + gr * (hi - lo);
+    let f1 = solve(x1, pR, smooth), f2 = solve(x2, pR, smooth);
+    for (let k = 0; k < 60 && hi - lo > tolX && f1 && f2; k++) {
+      if (f1.ssr < f2.ssr) { hi = x2; x2 = x1; f2 = f1; x1 = hi - gr * (hi - lo); f1 = solve(x1, pR, smooth); }
+      else { lo = x1; x1 = x2; f1 = f2; x2 = lo + gr * (hi - lo); f2 = solve(x2, pR, smooth); }
     }
     const xm = 0.5 * (lo + hi);
     const fm = solve(xm, pR, smooth);
@@ -221,7 +223,7 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // Multimodel Inference*, 2nd ed., §4.2, from memory): AIC = ssr/s² + 2k, k = 5 and 4 linear parameters, s² the
   // larger of the record's noise and the kinked fit's residual variance; weight ∝ exp(−ΔAIC/2). Measured on 240 +
   // 200 + 200 invented records (property test, hold-outs A and B): Ag off by more than 0.4 point on 49/82/73 with
-  // the kinked shape alone, 71/56/68 choosing the lower AIC, 51/52/66 with the weighted mean.
+  // the kinked shape alone, 71/56/68 choosing the lower AIC, 51/52/67 with the weighted mean.
   const kinked = vertex(3);
   const smoothTop = vertex(3, true);
   let bestX = kinked.x;

@@ -106,14 +106,14 @@ const fc = analyzeRecord(rec, { fit: false }).flowCurve;
 describe('fitLaw against SciPy curve_fit on the same flow curve (46NT99, 42CrMoS4 open data)', () => {
   // Reference: SciPy 1.17.1 (python3 on this machine) scipy.optimize.curve_fit(method='trf', bounds from
   // LAW_PARAMETERS, ftol=xtol=gtol=1e-14, p0 = our startValues) on exactly these points (written out by
-  // analyzeRecord, 01:35 UTC 2026-12-03, after the bounded top model moved Ag and so the flow curve's end: 232 points);
+  // analyzeRecord, 2026-12-03, after the bounded top model: 231 points; re-run with `node bench/fitter-scipy-ref.mjs`);
   // perr = sqrt(diag(pcov)), rmse = sqrt(mean(r²)).
   // Both minimise the same sum of squares; parameters agree to 1e-6 and standard errors to 1e-4
   // (SciPy's pcov uses a finite-difference Jacobian, ours the analytic one).
   const ref = {
-    hollomon: { p: [1441.2940577901518, 0.04604299129516007], se: [3.2153275884131927, 0.0005692675219170886], rmse: 7.376484673789287 },
-    voce: { p: [1108.9155938925055, 212.4015363169107, 26.639421801199404], se: [0.3077683029074667, 1.1178040669420457, 0.3057553381933641], rmse: 1.0801878961752265 },
-    swift: { p: [1624.2526941507256, 0.013805021967149991, 0.09017461042014752], se: [3.5781946608182835, 0.00032208557830198817, 0.0009183804670692032], rmse: 1.1020690130128064 },
+    hollomon: { p: [1440.9575635285014, 0.04599065293332972], se: [3.2255521196895747, 0.0005706672544256456], rmse: 7.371249540150089 },
+    voce: { p: [1108.9270717614504, 212.4945634864478, 26.617872441145867], se: [0.3089572588376895, 1.1352404914607588, 0.3088701040485963], rmse: 1.0818619378024474 },
+    swift: { p: [1625.1275444401012, 0.013869999103528857, 0.09038723370455005], se: [3.5994092076546877, 0.00032336979865730956, 0.0009234514537512749], rmse: 1.0954974995937568 },
   } as const;
   for (const [law, r] of Object.entries(ref)) {
     it(`fitLaw('${law}') gives SciPy's parameters, standard errors and RMSE`, () => {
