@@ -75,6 +75,22 @@ describe('analyzeRecord on the ten 42CrMoS4 records (MaterialDigital open data, 
       expect(a.nValue!).toBeLessThan(0.1);
     });
   }
+  it("Ag is not biased against the producers' values over the nine records whose top is not a one-sample spike", () => {
+    // The producers read Ag at the highest raw sample: on these low-noise records (0.2–1.7 MPa) that sample scatters
+    // about the true maximum but is not biased in strain, so the mean of our Ag minus theirs over nine records must be
+    // near zero. Measured: +0.006 point (largest single difference 0.19). A top model reaching ten times further down
+    // the necking side — far better on all three invented generators — read +0.20 on average here (up to 0.42): real
+    // necking branches turn from falling ever faster to falling steadily, which the generators did not do. This check
+    // keeps invented data from steering Ag away from real records. 46NT73 is left out (its producers' Ag is a spike,
+    // see above).
+    const d = FILES.filter((f) => f !== '46NT73.csv').map((f) => {
+      const { rec, ref } = load(f);
+      return analyzeRecord(rec, { fit: false }).uniformElongationPct - ref('uniform elongation');
+    });
+    const mean = d.reduce((s, v) => s + v, 0) / d.length;
+    expect(Math.abs(mean), d.map((v) => v.toFixed(3)).join(' ')).toBeLessThan(0.08);
+    expect(Math.max(...d.map(Math.abs))).toBeLessThan(0.3);
+  });
   it('analyzeSpecimens gives mean and sd of Rp0.2 equal to those of the producers\' values (ten 42CrMoS4 records)', () => {
     const loaded = FILES.map(load);
     const set = analyzeSpecimens(loaded.map(({ rec }) => ({ name: rec.name, strain: rec.strain, stress: rec.stress })), { law: 'voce', laws: ['voce'] });
