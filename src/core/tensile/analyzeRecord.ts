@@ -246,7 +246,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     measuredModulus: el.modulus,
     measuredModulusInterval95: el.window.interval95,
     noise,
-    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, method: 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at its vertex, or at the middle of a top flat within the noise' },
+    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, method: 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at the Akaike-weighted vertex of this kinked top and a smooth one (one curvature both sides), or at the middle of a top flat within the noise' },
     elasticWindow: el.window,
     toeStrain: toe,
     proofStrength: proof?.stress ?? null,

@@ -4,13 +4,13 @@ import { movingAverage, solveSmall } from './localFit.js';
 
 /** Where the maximum of force is and how it was read. */
 export interface ForceMaximum {
-  /** Rm: the maximum of the local least-squares parabola, MPa. */
+  /** Rm: the maximum of the top model without the necking side's cubic, MPa. */
   stress: number;
-  /** Engineering strain (as recorded, toe not removed) where Ag is read: the vertex, or the middle of a top flat within the noise. */
+  /** Engineering strain (as recorded, toe not removed) where Ag is read: the weighted vertex, or the middle of a top flat within the noise. */
   strain: number;
   /** Sample nearest to that strain. */
   index: number;
-  /** Samples in the parabola fit and its strain span. */
+  /** Samples in the top fit and its strain span. */
   points: number;
   span: [number, number];
   /** True when the top is flat within the noise, so Ag is read at the middle of the flat part. */
@@ -18,8 +18,10 @@ export interface ForceMaximum {
   /**
    * 95 % interval of the strain at maximum force (as `strain`, toe not removed), from the profile of the
    * residual sum over the vertex position: every xv whose best fit has ssr ≤ ssr_min + 3.84·s², with
-   * s² = max(σ̂², ssr_min/(bins − 4)) (profile-likelihood interval for one parameter, χ²₁(0.95) = 3.84;
-   * Bates & Watts, *Nonlinear Regression Analysis and Its Applications*, §6.1, from memory).
+   * s² = max(σ̂², ssr_min/(bins − p − 1))·(1 + ρ)/(1 − ρ) (profile-likelihood interval for one parameter,
+   * χ²₁(0.95) = 3.84; Bates & Watts, *Nonlinear Regression Analysis and Its Applications*, §6.1, from memory; ρ the
+   * lag-1 autocorrelation of the residuals), for the kinked and the Rm model, joined with the vertices of the smooth
+   * and the d⁴ model.
    */
   strainInterval95: [number, number];
 }
@@ -40,10 +42,10 @@ const TOP_BLOCKS = 1000;
  * squares, the vertex position found by a grid and golden-section search: the necking side bends more sharply
  * than the hardening side, and neither side is a mirror of the other (a model without the right-hand cubic put
  * Ag 0.3–1 point late on necking branches that are not parabolas). Rm is the maximum of the same model without
- * the necking side's cubic (less scatter). Ag is read at the vertex; where neither side of the model falls by
- * more than 4σ̂/√m over the span (m samples in the fit) the top is flat within the noise and Ag is read at the
- * middle of the span (ASTM
- * E8/E8M practice for flat tops, from memory). ISO 6892-1 §3.10.1: for a record with a yield drop, Fm is
+ * the necking side's cubic (less scatter). Ag is read at the Akaike-weighted mean of the vertices of this
+ * (kinked) model and of a smooth one (one curvature for both sides); where neither side of the kinked model falls
+ * by more than 4σ̂/√m over the span (m samples in the fit) the top is flat within the noise and Ag is read at the
+ * middle of the span (ASTM E8/E8M practice for flat tops, from memory). ISO 6892-1 §3.10.1: for a record with a yield drop, Fm is
  * the highest force after work hardening begins — the caller passes `from` after the yield plateau.
  * Units: strain fraction, stress MPa, σ̂ = `noise` MPa. Valid: `to − from` ≥ 3. Cost: O(to − from).
  * @example forceMaximum([0, 1, 2, 3, 4], [0, 3, 4, 3, 0], 0, 0, 5).stress // 4.0
@@ -67,9 +69,6 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   while (b - a + 1 < 9 && (a > 0 || b < n - 1)) { if (a > 0) a--; if (b < n - 1) b++; }
   const i0 = from + a, i1 = from + b + 1;
   const xa = strain[i0]!, xb = strain[i1 - 1]!;
-  // Two half-cubics joined at the vertex xv: s = Rm − aL·u² + bL·u³ left of it, Rm − aR·u² + bR·u³ right of it.
-  // For a fixed xv the model is linear in (Rm, aL, bL, aR, bR); xv minimises the residual sum (grid, then golden
-  // section).
   const h = Math.max(xb - xa, 1e-300);
   // Bin the span to at most 1000 groups of consecutive samples (mean strain, mean stress, count): a weighted
   // least-squares fit to the group means has the same minimiser in xv as the fit to every sample, up to the
@@ -92,7 +91,7 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // constraints the optimum is the feasible solution of its own active set, so this is the constrained optimum).
   // Without the constraint a side could rise past the vertex and fall again (a second, higher top inside the span):
   // on the property test that read Ag up to 7 points early (Ag off by more than 0.4 point on 110 of 240 records,
-  // 50 with it). Per-side power sums over the bins (Σw·uᵏ, k ≤ 8, Σw·y·uᵏ, k ≤ 4) give every combination's normal
+  // 49 with it). Per-side power sums over the bins (Σw·uᵏ, k ≤ 8, Σw·y·uᵏ, k ≤ 4) give every combination's normal
   // equations without another pass over the bins.
   const PW = 9, PY = 5;
   const pw = [new Float64Array(PW), new Float64Array(PW)], py = [new Float64Array(PY), new Float64Array(PY)];
@@ -232,7 +231,8 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   if (smoothTop.f && kinked.f && s2sel > 0) {
     const dK = kinked.f.ssr / s2sel + 10, dS = smoothTop.f.ssr / s2sel + 8, m0 = Math.min(dK, dS);
     const wK = Math.exp(-(dK - m0) / 2), wS = Math.exp(-(dS - m0) / 2);
-    bestX = (wK * kinked.x + wS * smoothTop.x) / (wK + wS);
+    const x = (wK * kinked.x + wS * smoothTop.x) / (wK + wS);
+    if (Number.isFinite(x)) bestX = x;
   }
   const rmVertex = vertex(0), rmFit = rmVertex.f;
   let best = from + j;
