@@ -24,7 +24,9 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 5000 + i);
 // 96 → 67 of 200; but the misses outside the interval rose 6 → 14 (all LATE by 0.4–1.5 point, the truth 0.02–0.3
 // point below the interval: the cubic necking side reads a necking branch that falls like d⁴ late). Noise-free at a quarter of the tolerance: off 154 → 170, outside the
 // interval 122 → 86 (the vertex of a d⁴ necking model joins the interval).
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 6, Ag: 14, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
+// Sixth session: Rp0.2's range adds the slope's and the noise's half-widths in quadrature (it was the larger of
+// the two): noisy Rp0.2 outside its range 6 → 5.
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 5, Ag: 14, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
 const CEILINGS_CLEAN: Record<string, number> = { Ag: 86, A: 3, quietE: 6, Ae: 3, 'Rp0.2': 6 };
 const AG_OFF_NOISY = 67, AG_OFF_CLEAN = 170;
 
