@@ -25,9 +25,12 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 5000 + i);
 // point below the interval: the cubic necking side reads a necking branch that falls like d⁴ late). Noise-free at a quarter of the tolerance: off 154 → 170, outside the
 // interval 122 → 86 (the vertex of a d⁴ necking model joins the interval).
 // Sixth session: Rp0.2's range adds the slope's and the noise's half-widths in quadrature (it was the larger of
-// the two): noisy Rp0.2 outside its range 6 → 5.
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 5, Ag: 14, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
-const CEILINGS_CLEAN: Record<string, number> = { Ag: 86, A: 3, quietE: 6, Ae: 3, 'Rp0.2': 6 };
+// the two): noisy Rp0.2 outside its range 6 → 5. Ag's interval also joins the vertex of a smooth top whose necking
+// side starts like d⁴ (where the data do not reject it): noisy Ag outside its interval 14 → 12, noise-free 86 → 83
+// misses (the truth outside the interval 80 → 0 of 200; the estimate itself unchanged, still 0.15 point late on
+// average here).
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 5, Ag: 12, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
+const CEILINGS_CLEAN: Record<string, number> = { Ag: 83, A: 3, quietE: 6, Ae: 3, 'Rp0.2': 6 };
 const AG_OFF_NOISY = 67, AG_OFF_CLEAN = 170;
 
 
