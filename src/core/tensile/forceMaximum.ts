@@ -56,8 +56,7 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   let w = Math.max(5, Math.min(20001, Math.round(n / 50))) | 1;
   if (w > n) w = Math.max(1, n) | 1;
   const ma = movingAverage(stress, from, to, w);
-  let j = 0;
-  for (let k = 1; k < n; k++) if (ma[k]! > ma[j]!) j = k;
+  const j = indexOfHighest(ma, n);
   const delta = Math.max((3 * noise) / Math.sqrt(w), 0.01 * Math.abs(ma[j]!));
   // Outermost samples whose average is within delta of the top (a contiguous scan would stop at the first
   // noise dip of the average).
@@ -74,10 +73,9 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // least-squares fit to the group means has the same minimiser in xv as the fit to every sample, up to the
   // few groups the vertex splits, and each trial xv costs O(1000) instead of O(samples).
   const m = i1 - i0;
-  const xs = new Float64Array(m), ys = new Float64Array(m);
-  for (let k = 0; k < m; k++) { xs[k] = strain[i0 + k]!; ys[k] = stress[i0 + k]!; }
-  const blocks = blockAverage(xs, ys, Math.ceil(m / TOP_BLOCKS));
+  const blocks = blockAverage(columnSpan(strain, i0, i1), columnSpan(stress, i0, i1), Math.ceil(m / TOP_BLOCKS));
   const bx = blocks.x, by = blocks.y, bw = blocks.w, nb = bx.length;
+  const sums = new TopSums(bx, by, bw, 0.5 * (xa + xb), h);
   // Two halves joined at the vertex xv: s = Rm − a·u² + b·uᵖ on each side (u = (x − xv)/h), each side its own a
   // and b; p = 3 on the hardening side, and on the necking side 3 (the model Ag is read from), 4 (a necking branch
   // that starts flatter, for the interval) or no second term (the model Rm is read from). A top falls away from its
@@ -127,9 +125,15 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
       const ci = cols[i]!, c = sol[i + 1]!;
       L.a += ci.qL * c; L.b += ci.cL * c; R.a += ci.qR * c; R.b += ci.cR * c;
     }
-    return { Rm: sol[0]!, L, R, ssr };
+    return { Rm: sums.y0 + sol[0]!, L, R, ssr };
   };
-  const feasible = (sd: Side, uE: number, p: number) => sd.a >= 0 && p * sd.b * uE ** (p - 2) - 2 * sd.a <= 0;
+  // A tied side (end slope zero, b = 2a/(p·uE^(p−2))) lies on its bound by construction; its slope factor comes out
+  // ±1e-16 of its terms, so the test allows rounding (without the allowance a tied fit was refused at random,
+  // however good: on a fifth of the property-test records a worse active set was kept at some trial vertices).
+  const feasible = (sd: Side, uE: number, p: number) => {
+    const t = p * sd.b * uE ** (p - 2);
+    return sd.a >= 0 && t - 2 * sd.a <= 1e-12 * (Math.abs(t) + 2 * Math.abs(sd.a));
+  };
   /**
    * The designs of every active set, the unconstrained one first. Kinked top (each side its own a): per side free
    * (a, b), b only (a = 0), tied end slope (b = 2a/(p·uE^(p−2))), flat. Smooth top (one a for both sides: the
@@ -162,19 +166,7 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   };
   /** Best bounded fit with the vertex at xv; `pR` the necking side's second power (3, 4, or 0 for none). */
   const solve = (xv: number, pR = 3, smooth = false) => {
-    for (const W of pw) W.fill(0);
-    for (const Y of py) Y.fill(0);
-    let tt = 0, nL = 0, nR = 0;
-    const quartic = pR === 4;
-    for (let b = 0; b < nb; b++) {
-      const u = (bx[b]! - xv) / h, y = by[b]!, wt = bw[b]!, u2 = u * u, u3 = u2 * u, u4 = u2 * u2, wy = wt * y;
-      tt += wy * y;
-      let W, Y;
-      if (u < 0) { nL++; W = pw[0]!; Y = py[0]!; } else { nR++; W = pw[1]!; Y = py[1]!; }
-      W[0]! += wt; W[2]! += wt * u2; W[3]! += wt * u3; W[4]! += wt * u4; W[5]! += wt * u4 * u; W[6]! += wt * u3 * u3;
-      Y[0]! += wy; Y[2]! += wy * u2; Y[3]! += wy * u3;
-      if (quartic) { W[8]! += wt * u4 * u4; Y[4]! += wy * u4; }
-    }
+    const nL = sums.at(xv, pw[0]!, py[0]!, pw[1]!, py[1]!), nR = nb - nL, tt = sums.tt;
     const uL = (xa - xv) / h, uR = (xb - xv) / h, p = pR === 0 ? 3 : pR;
     const ok = (f: { L: Side; R: Side } | null) => f !== null && feasible(f.L, uL, 3) && feasible(f.R, uR, p);
     const all = designs(nL, nR, uL, uR, pR, smooth);
@@ -235,6 +227,7 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
     if (Number.isFinite(x)) bestX = x;
   }
   const rmVertex = vertex(0), rmFit = rmVertex.f;
+  if ((globalThis as any).FM_DBG) console.log('DBG', JSON.stringify({ k: kinked.x, kssr: kinked.f?.ssr, s: smoothTop.x, sssr: smoothTop.f?.ssr, bestX, rm: rmVertex.x, nb, xa, xb }));
   let best = from + j;
   if (!bestF) return { stress: ma[j]!, strain: strain[best]!, index: best, points: i1 - i0, span: [xa, xb], flat: false, strainInterval95: [xa, xb] };
   // Profile interval of the vertex: scan xv over the span (G2 steps), keep the outermost xv still within the
@@ -304,7 +297,137 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   const xAg = flat ? 0.5 * (xa + xb) : bestX;
   const topStress = rmFit ? rmFit.Rm : bestF.Rm;
   // Nearest sample (strain rises through the top; scan the span).
-  let bd = Infinity;
-  for (let i = i0; i < i1; i++) { const dd = Math.abs(strain[i]! - xAg); if (dd < bd) { bd = dd; best = i; } }
+  best = nearestSample(strain, i0, i1, xAg);
   return { stress: topStress, strain: xAg, index: best, points: i1 - i0, span: [xa, xb], flat, strainInterval95: [Math.min(ciLo, xAg), Math.max(ciHi, xAg)] };
 }
+
+/** Index of the first highest of a[0..n). Own function: a record-long loop, compiled on its own (DEVELOPERS.md, speed). */
+function indexOfHighest(a: Float64Array, n: number): number {
+  let j = 0, top = a[0]!;
+  for (let k = 1; k < n; k++) { const v = a[k]!; if (v > top) { top = v; j = k; } }
+  return j;
+}
+
+/** Samples [i0, i1) of a column: a view where the column is a typed array (no copy), else a copy. */
+function columnSpan(a: ArrayLike<number>, i0: number, i1: number): ArrayLike<number> {
+  if (a instanceof Float64Array) return a.subarray(i0, i1);
+  const out = new Float64Array(i1 - i0);
+  for (let k = 0; k < out.length; k++) out[k] = a[i0 + k]!;
+  return out;
+}
+
+/** Index in [i0, i1) of the sample whose strain is nearest x (the first of equals). */
+function nearestSample(strain: ArrayLike<number>, i0: number, i1: number, x: number): number {
+  let best = i0, bd = Infinity;
+  for (let i = i0; i < i1; i++) { const dd = Math.abs(strain[i]! - x); if (dd < bd) { bd = dd; best = i; } }
+  return best;
+}
+
+/** Binomial coefficients C(k, j), k ≤ 8, row-major (9 × 9). */
+const BINOM = (() => {
+  const c = new Float64Array(81);
+  for (let k = 0; k <= 8; k++) { c[k * 9] = 1; for (let j = 1; j <= k; j++) c[k * 9 + j] = c[(k - 1) * 9 + j - 1]! + (j < k ? c[(k - 1) * 9 + j]! : 0); }
+  return c;
+})();
+
+/**
+ * Per-side power sums of the top's bins about any vertex position: Σw·uᵏ (k ≤ 8) and Σw·(y − y0)·uᵏ (k ≤ 4) over
+ * the bins left of the vertex (x < xv) and right of it, u = (x − xv)/h, y0 the bins' weighted mean stress. Prefix
+ * sums of the moments about the span's middle c, t = (x − c)/h (|t| ≤ ½), are kept once; about v = (xv − c)/h they
+ * follow from the binomial expansion Σw(t − v)ᵏ = Σⱼ C(k, j)(−v)^(k−j)·Σw·tʲ, in O(log bins) per position. The
+ * vertex searches and the interval's scans ask for about 700 positions: a pass over the bins for each took 90–140 ms
+ * of a fresh process on a 1,000,000-row record (their first calls run unoptimised), the whole top model now 35–55 ms
+ * (bench/RESULTS.md, sixth session). Rounding: |t|, |v| ≤ ½, so the expansion's absolute error is about 1e-16 of the
+ * total weight — too much for a side whose bins all lie close to the vertex (its high moments are tiny), so a side
+ * reaching less than a quarter of the span is summed bin by bin: every sum then agrees with a per-bin pass to about
+ * 1e-11, and Ag with the per-bin top model to 2e-4 point at most (the property test, both hold-outs and the inflected
+ * generator, with and without noise; no warning changes).
+ */
+class TopSums {
+  /** Total Σw·(y − y0)². */
+  readonly tt: number;
+  /** Weighted mean stress of the bins, MPa: the sums are of y − y0. */
+  readonly y0: number;
+  private readonly xs: Float64Array;
+  private readonly ts: Float64Array;
+  private readonly ws: Float64Array;
+  private readonly wys: Float64Array;
+  private readonly P: Float64Array;
+  private readonly Q: Float64Array;
+  private readonly n: number;
+  private readonly nv = new Float64Array(9);
+  private readonly S = new Float64Array(9);
+  private readonly T = new Float64Array(5);
+  constructor(bx: Float64Array, by: Float64Array, bw: Float64Array, private readonly c: number, private readonly h: number) {
+    const n = bx.length;
+    this.n = n;
+    // Bins by strain (block means of consecutive samples; sorted unless the strain signal itself wanders back).
+    const order = new Uint32Array(n);
+    let sorted = true;
+    for (let b = 0; b < n; b++) { order[b] = b; if (b > 0 && bx[b]! < bx[b - 1]!) sorted = false; }
+    if (!sorted) order.sort((p, q) => bx[p]! - bx[q]! || p - q);
+    const xs = new Float64Array(n), P = new Float64Array((n + 1) * 9), Q = new Float64Array((n + 1) * 5);
+    const ts = new Float64Array(n), ws = new Float64Array(n), wys = new Float64Array(n);
+    // Stresses about their weighted mean y0 (the fit's level is y0 + the fitted constant): the residual sum
+    // tt − θ·V then cancels far less than with Σw·y² of stresses some hundred MPa high.
+    let sw = 0, swy = 0;
+    for (let b = 0; b < n; b++) { sw += bw[b]!; swy += bw[b]! * by[b]!; }
+    const y0 = sw > 0 ? swy / sw : 0;
+    this.y0 = y0;
+    let tt = 0;
+    for (let i = 0; i < n; i++) {
+      const b = order[i]!, t = (bx[b]! - c) / h, w = bw[b]!, dy = by[b]! - y0, wy = w * dy;
+      xs[i] = bx[b]!; ts[i] = t; ws[i] = w; wys[i] = wy;
+      tt += wy * dy;
+      let p = w;
+      for (let k = 0; k < 9; k++) { P[(i + 1) * 9 + k] = P[i * 9 + k]! + p; p *= t; }
+      p = wy;
+      for (let k = 0; k < 5; k++) { Q[(i + 1) * 5 + k] = Q[i * 5 + k]! + p; p *= t; }
+    }
+    this.xs = xs; this.P = P; this.Q = Q; this.tt = tt; this.ts = ts; this.ws = ws; this.wys = wys;
+  }
+  /** Fills WL, YL (left of xv) and WR, YR (right) with the sums about xv; returns the number of bins left of xv. */
+  at(xv: number, WL: Float64Array, YL: Float64Array, WR: Float64Array, YR: Float64Array): number {
+    const { xs, P, Q, n, nv, S, T } = this;
+    let lo = 0, hi = n;
+    while (lo < hi) { const mid = (lo + hi) >> 1; if (xs[mid]! < xv) lo = mid + 1; else hi = mid; }
+    const s = lo, v = (xv - this.c) / this.h;
+    nv[0] = 1;
+    for (let k = 1; k < 9; k++) nv[k] = nv[k - 1]! * -v;
+    for (let side = 0; side < 2; side++) {
+      const W = side === 0 ? WL : WR, Y = side === 0 ? YL : YR;
+      // A side reaching less than a quarter of the span from the vertex is summed bin by bin: its high moments
+      // are too small for the expansion (whose rounding is about 1e-16 of the total weight) to carry them.
+      const reach = side === 0 ? (s > 0 ? v - this.ts[0]! : 0) : (s < n ? this.ts[n - 1]! - v : 0);
+      if (reach < DIRECT_REACH) { this.direct(side === 0 ? 0 : s, side === 0 ? s : n, v, W, Y); continue; }
+      for (let k = 0; k < 9; k++) S[k] = side === 0 ? P[s * 9 + k]! : P[n * 9 + k]! - P[s * 9 + k]!;
+      for (let k = 0; k < 5; k++) T[k] = side === 0 ? Q[s * 5 + k]! : Q[n * 5 + k]! - Q[s * 5 + k]!;
+      for (let k = 0; k < 9; k++) {
+        let acc = 0;
+        for (let j = 0; j <= k; j++) acc += BINOM[k * 9 + j]! * nv[k - j]! * S[j]!;
+        W[k] = acc;
+      }
+      for (let k = 0; k < 5; k++) {
+        let acc = 0;
+        for (let j = 0; j <= k; j++) acc += BINOM[k * 9 + j]! * nv[k - j]! * T[j]!;
+        Y[k] = acc;
+      }
+    }
+    return s;
+  }
+  /** Sums over the sorted bins [i0, i1) directly, u = t − v. */
+  private direct(i0: number, i1: number, v: number, W: Float64Array, Y: Float64Array): void {
+    W.fill(0); Y.fill(0);
+    const { ts, ws, wys } = this;
+    for (let i = i0; i < i1; i++) {
+      const u = ts[i]! - v;
+      let p = ws[i]!;
+      for (let k = 0; k < 9; k++) { W[k]! += p; p *= u; }
+      p = wys[i]!;
+      for (let k = 0; k < 5; k++) { Y[k]! += p; p *= u; }
+    }
+  }
+}
+
+/** A side of the top reaching less than this fraction of the span from the vertex is summed directly (TopSums). */
+const DIRECT_REACH = 0.25;
