@@ -80,6 +80,16 @@ export class RecordBuilder {
   private maxA = -Infinity;
   private maxALine = 0;
   /**
+   * Rows are stored converted as they come (strain ×fa, stress ×fb) for a stress–strain record whose units are
+   * known (not true values): `finish` then needs no conversion pass and no second pair of columns. The same
+   * multiplications as convertColumns, so the same numbers (speed follow-up K).
+   */
+  private readonly early: boolean;
+  private readonly fa: number;
+  private readonly fb: number;
+  /** Largest |stress| converted so far (early rows). */
+  private maxS = 0;
+  /**
    * The first row after the data that is not two numbers, kept while only such rows follow: a footer
    * ("Maximum;358.2", "End of test") or an extensometer taken off (the strain cells empty to the end). A row of
    * numbers after it makes it the error it is.
@@ -91,6 +101,10 @@ export class RecordBuilder {
     this.layout = layout;
     this.width = layout.header.length;
     this.plan = this.resolve(opts);
+    const p = this.plan;
+    this.early = p.mode === 'ss' && !p.trueValues && !Number.isNaN(p.fa);
+    this.fa = p.fa;
+    this.fb = p.fb;
   }
 
   private fail(line: number | undefined, col: number | undefined, field: string, msg: string): never {
@@ -269,8 +283,15 @@ export class RecordBuilder {
       const nx = new Float64Array(this.n * 2); nx.set(this.xs); this.xs = nx;
       const ny = new Float64Array(this.n * 2); ny.set(this.ys); this.ys = ny;
     }
-    this.xs[this.n] = x;
-    this.ys[this.n] = y;
+    if (this.early) {
+      const sy = y * this.fb;
+      this.xs[this.n] = x * this.fa;
+      this.ys[this.n] = sy;
+      this.maxS = Math.max(this.maxS, Math.abs(sy));
+    } else {
+      this.xs[this.n] = x;
+      this.ys[this.n] = y;
+    }
     if (Math.abs(x) > this.maxA) { this.maxA = Math.abs(x); this.maxALine = line; }
     this.n++;
     this.lastLine = line;
@@ -288,11 +309,25 @@ export class RecordBuilder {
     }
     const X = this.xs, Y = this.ys;
     let n = this.n, maxA = this.maxA, maxALine = this.maxALine;
-    for (let j = 0; j < count; j++) {
-      const x = xs[j]!;
-      X[n] = x;
-      Y[n++] = ys[j]!;
-      if (Math.abs(x) > maxA) { maxA = Math.abs(x); maxALine = lines[j]!; }
+    if (this.early) {
+      // Converted as stored (see `early`); the largest |x| of the raw values, as below.
+      const fa = this.fa, fb = this.fb;
+      let maxS = this.maxS;
+      for (let j = 0; j < count; j++) {
+        const x = xs[j]!, sy = ys[j]! * fb;
+        X[n] = x * fa;
+        Y[n++] = sy;
+        maxS = Math.max(maxS, Math.abs(sy));
+        if (Math.abs(x) > maxA) { maxA = Math.abs(x); maxALine = lines[j]!; }
+      }
+      this.maxS = maxS;
+    } else {
+      for (let j = 0; j < count; j++) {
+        const x = xs[j]!;
+        X[n] = x;
+        Y[n++] = ys[j]!;
+        if (Math.abs(x) > maxA) { maxA = Math.abs(x); maxALine = lines[j]!; }
+      }
     }
     this.n = n;
     this.maxA = maxA;
@@ -320,9 +355,17 @@ export class RecordBuilder {
       this.warnings.push(`no unit for strain column ${show(p.a.name)}; read as ${fa === 1 ? 'a fraction' : 'percent'} because its largest value is ${this.maxA}`);
     }
     const n = this.n;
-    const strain = new Float64Array(n);
-    const stress = new Float64Array(n);
-    const maxS = convertColumns(this.xs, this.ys, n, p, fa, strain, stress);
+    let strain: Float64Array, stress: Float64Array, maxS: number;
+    if (this.early) {
+      // Already converted: the columns as they are when full, else copies of their filled part (a memory copy).
+      strain = n === this.xs.length ? this.xs : this.xs.slice(0, n);
+      stress = n === this.ys.length ? this.ys : this.ys.slice(0, n);
+      maxS = this.maxS;
+    } else {
+      strain = new Float64Array(n);
+      stress = new Float64Array(n);
+      maxS = convertColumns(this.xs, this.ys, n, p, fa, strain, stress);
+    }
     const maxE = this.maxA * fa / (p.mode === 'fe' ? p.gauge : 1);
     if (maxE > MAX_STRAIN) {
       this.fail(this.maxALine, p.a.index + 1, p.a.name, `reaches ${this.maxA} — not a ${p.mode === 'ss' ? 'strain' : 'extension'} of a tensile test (expected at most ${MAX_STRAIN * 100} %); are the ${p.mode === 'ss' ? 'strain and stress' : 'extension and force'} columns swapped, or is the unit wrong?`);
