@@ -57,7 +57,7 @@ describe('flowColumns(strain, stress, toe, E, iMax, from, fromTrue): one pass fo
     }
     expect(points).toBeGreaterThan(10_000); // the comparison is of real flow curves, not of empty columns
   });
-  it('finds the first bad point (true stress ≤ 0) as lawDataLogged does, on 200 seeded columns', () => {
+  it('finds the first bad point (true stress ≤ 0 or infinite) and the range as lawDataLogged does, on 200 seeded columns', () => {
     const r = xoshiro128ss(122);
     let withBad = 0;
     for (let t = 0; t < 200; t++) {
@@ -65,10 +65,22 @@ describe('flowColumns(strain, stress, toe, E, iMax, from, fromTrue): one pass fo
       const strain = Float64Array.from({ length: n }, (_, i) => i * 2e-4 + 1e-5 * r.nextFloat());
       const stress = Float64Array.from(strain, (e) => 300 + 2000 * e + r.nextFloat());
       if (t % 2) for (let k = 0; k < 3; k++) stress[10 + (r.nextU32() % (n - 10))] = t % 4 === 1 ? 0 : -5;
+      // A stress so large and negative that σ = s(1 + e) is −∞ and εp +∞ (kept, and the first kept point when at 0).
+      if (t % 8 === 2) stress[t % 16 === 2 ? 0 : 5 + (r.nextU32() % (n - 5))] = -1.7e308;
       const got = expectSame(strain, stress, 0, 200_000, n - 1, 0, 0, `columns ${t}`);
       if (got.bad >= 0) withBad++;
     }
     expect(withBad).toBeGreaterThan(50);
+  });
+  it('kept points with εp = +∞ (σ/E overflowing) give lawDataLogged\'s range and first bad point (hand-made extremes)', () => {
+    // E 1e-290 MPa: a stress of −5 MPa gives εp ≈ 5e290 (kept), −1.7e308 gives εp = +∞ (kept), positive stresses εp < 0.
+    for (const at of [[0], [3], [0, 4], [1, 2, 3, 4, 5]]) {
+      const strain = [0, 0.001, 0.002, 0.003, 0.004, 0.005, 0.006];
+      const stress = [300, -5, 320, -5, 330, -5, 340];
+      for (const i of at) stress[i] = -1.7e308;
+      const got = expectSame(strain, stress, 0, 1e-290, 6, 0, 0, `+∞ at ${at}`);
+      expect(got.bad).toBe(0);
+    }
   });
   it('no point on the flow curve: empty columns, lo = Infinity, hi = −Infinity, bad = −1 (lawDataLogged\'s values)', () => {
     const got = expectSame([0, 0.001, 0.002], [0, 200, 400], 0, 200_000, 2, 0, 0.002, 'elastic only');
