@@ -273,6 +273,13 @@ export class ByteRowScanner {
   private readonly by = new Float64Array(BATCH);
   private readonly bl = new Float64Array(BATCH);
   private k = 0;
+  /** The batch's largest |raw strain| and its line, its largest |stored stress| (see RecordBuilder.pushStored). */
+  private maxA = 0;
+  private maxALine = 0;
+  private maxS = 0;
+  /** Factors the values are stored with (RecordBuilder.cells: the unit conversion, or 1). */
+  private readonly fa: number;
+  private readonly fb: number;
   private readonly a: number;
   private readonly b: number;
   private readonly last: number;
@@ -288,6 +295,8 @@ export class ByteRowScanner {
     this.delim = c.delimiter.charCodeAt(0);
     this.comma = c.decimalComma;
     this.dataLine = c.dataLine;
+    this.fa = c.fa;
+    this.fb = c.fb;
   }
 
   /**
@@ -307,10 +316,14 @@ export class ByteRowScanner {
     }
   }
 
-  /** Hands the batched rows to the builder. */
+  /** Hands the batched rows to the builder (converted as stored, with their extremes: no copy loop there). */
   private flush(): void {
-    this.builder.pushBatch(this.bx, this.by, this.bl, this.k);
+    const k = this.k;
+    if (k > 0) this.builder.pushStored(this.bx, this.by, this.bl, k, this.maxA, this.maxALine, this.maxS, this.bl[k - 1]!);
     this.k = 0;
+    this.maxA = 0;
+    this.maxALine = 0;
+    this.maxS = 0;
   }
 
   private lines(bytes: Uint8Array, from: number, to: number, final: boolean): number {
@@ -435,7 +448,11 @@ export class ByteRowScanner {
     } else lf = i;
     if (col < last) return col === 0 && blankLine(bytes, from, content) ? lf : DOUBT; // fewer fields than needed
     const k = this.k;
-    this.bx[k] = x; this.by[k] = y; this.bl[k] = line;
+    // Stored as the builder stores a row (×fa, ×fb), with the batch's extremes: the first largest |x| keeps its line.
+    const sy = y * this.fb, ax = Math.abs(x);
+    this.bx[k] = x * this.fa; this.by[k] = sy; this.bl[k] = line;
+    if (k === 0 || ax > this.maxA) { this.maxA = ax; this.maxALine = line; }
+    this.maxS = Math.max(this.maxS, Math.abs(sy));
     if ((this.k = k + 1) === BATCH) this.flush();
     return lf;
   }

@@ -124,3 +124,29 @@ describe('readRecordFile through the byte scanner reads what the text readers re
     }
   });
 });
+
+describe('the byte scanner\'s batches (speed follow-up K: stored converted, extremes tracked per batch)', () => {
+  // INVENTED 10,000-row records (the scanner hands rows over in batches of 4096): the largest |strain| reached
+  // twice, in two batches, so the message must name the first of them, as the per-row text reader does.
+  const rows = (n: number, at: number[], big: string, header: string) =>
+    header + '\n' + Array.from({ length: n }, (_, i) => `${at.includes(i) ? big : (i * 0.004).toFixed(4)},${(300 + i * 0.01).toFixed(2)}`).join('\n') + '\n';
+  it('a strain beyond 500 % in rows 4500 and 9000: the same located message, naming line 4502, from both readers', async () => {
+    const text = rows(10_000, [4500, 9000], '-750.5', 'Strain [%],Stress [MPa]');
+    const f = join(dir, 'twice.csv');
+    writeFileSync(f, text);
+    const viaBytes = await readRecordFile(f).then(() => 'no error', (e: Error) => e.message);
+    const viaText = outcome(() => parseRecordText(text, { file: f }));
+    expect(viaBytes).toMatch(/twice\.csv:4502:1: Strain \[%\]: reaches 750\.5 — not a strain/);
+    expect(viaBytes).toBe(viaText);
+  });
+  it('a strain column without a unit: the same warning (largest value) and numbers from both readers, across batches', async () => {
+    const text = rows(10_000, [5000], '37.25', 'Strain,Stress [MPa]');
+    const f = join(dir, 'nounit.csv');
+    writeFileSync(f, text);
+    const a = await readRecordFile(f), b = parseRecordText(text, { file: f });
+    expect(a.warnings.join('\n')).toMatch(/read as percent because its largest value is 39\.996/);
+    expect(a.warnings).toEqual(b.warnings);
+    expect(Array.from(a.strain)).toEqual(Array.from(b.strain));
+    expect(Array.from(a.stress)).toEqual(Array.from(b.stress));
+  });
+});

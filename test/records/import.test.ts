@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { PlanError } from '../../src/plan/problems.js';
 import { parseRecordText, type RecordOptions } from '../../src/records/index.js';
+import { unitFactor } from '../../src/records/units.js';
 import { readRecordFile } from '../../src/records/node.js';
 import { expectRelClose } from '../helpers.js';
 
@@ -128,4 +129,35 @@ describe('readRecordFile(path) streams the same record as parseRecordText', () =
     writeFileSync(g, Buffer.from([0x53, 0x2c, 0x54, 0x0a, 0x00, 0x01, 0x02]));
     await expect(readRecordFile(g)).rejects.toThrow(/binary content/);
   });
+});
+
+describe('unit conversion as rows are stored (speed follow-up K) gives Number(cell) × the unit factor, bit for bit', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'sl-conv-'));
+  // INVENTED rows: strains and stresses with 1 to 17 significant digits, in the units each header names.
+  const cases: [string, string, number, number][] = [
+    ['Strain [%],Stress [MPa]', 'percent, MPa', unitFactor('strain', '%')!, unitFactor('stress', 'MPa')!],
+    ['Strain [mm/mm],Stress [ksi]', 'fraction, ksi', unitFactor('strain', 'mm/mm')!, unitFactor('stress', 'ksi')!],
+    ['Strain [µε],Stress [psi]', 'microstrain, psi', unitFactor('strain', 'µε')!, unitFactor('stress', 'psi')!],
+  ];
+  for (const [header, what, fa, fb] of cases) {
+    it(`${what}: the byte reader, the text reader and the located reader store the same converted numbers`, async () => {
+      let seed = 7;
+      const next = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+      const rows = Array.from({ length: 3000 }, (_, i) => [((i * 0.0137 + next() * 1e-3) * (0.01 / fa)).toPrecision(1 + (i % 17)), (300 + 200 * next()).toPrecision(1 + ((i * 7) % 17))]);
+      const text = header + '\n' + rows.map((r) => r.join(',')).join('\n') + '\n';
+      const f = join(dir, `conv-${fa}-${fb}.csv`);
+      writeFileSync(f, text);
+      const viaBytes = await readRecordFile(f);
+      const viaText = parseRecordText(text, { file: f });
+      // A quoted cell: the fast readers doubt the record, and csv-parse's located reader reads it (pushing every row).
+      const viaLocated = parseRecordText(text.replace(`\n${rows[0]![0]},`, `\n"${rows[0]![0]}",`), { file: f });
+      for (const rec of [viaBytes, viaText, viaLocated]) {
+        expect(rec.rows).toBe(rows.length);
+        for (let i = 0; i < rows.length; i++) {
+          const e = Number(rows[i]![0]) * fa, s = Number(rows[i]![1]) * fb;
+          if (!Object.is(rec.strain[i], e) || !Object.is(rec.stress[i], s)) expect([rec.strain[i], rec.stress[i]], `row ${i}`).toEqual([e, s]);
+        }
+      }
+    });
+  }
 });

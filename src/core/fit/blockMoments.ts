@@ -23,9 +23,12 @@ export function blockMoments(x: Float64Array, y: Float64Array, size: number): Bl
   const data = new Float64Array(count * MOMENT_STRIDE);
   // The five places each law is evaluated at per block (see momentResidualStats), and their logs.
   const nodes = new Float64Array(count * NODES), lnNodes = new Float64Array(count * NODES);
-  for (let b = 0; b < count; b++) blockInto(x, y, b * B, Math.min(n, b * B + B), data, b * MOMENT_STRIDE, nodes, b * NODES);
+  // meanY: Σ yᵢ/n in index order, carried from block to block (the comparison of the laws needs the curve's mean
+  // stress; taken here, in a pass that reads every y anyway, instead of in a pass of its own; speed follow-up K).
+  let meanY = 0;
+  for (let b = 0; b < count; b++) meanY = blockInto(x, y, b * B, Math.min(n, b * B + B), data, b * MOMENT_STRIDE, nodes, b * NODES, n, meanY);
   for (let i = 0; i < nodes.length; i++) lnNodes[i] = Math.log(nodes[i]!);
-  return { size: B, count, points: n, data, nodes, lnNodes, sst: totalSquares(data, count, n) };
+  return { size: B, count, points: n, data, nodes, lnNodes, sst: totalSquares(data, count, n), meanY };
 }
 
 /** Values kept per block by {@link blockMoments}. */
@@ -46,6 +49,8 @@ export interface BlockMoments {
   lnNodes: Float64Array;
   /** Σ(yᵢ − ȳ)² of the whole curve from the blocks: Σ_b [Σe² + n_b(ȳ_b − ȳ)²] (the within/between split; exact algebra). */
   sst: number;
+  /** Mean stress Σ yᵢ/n, each term divided by n and added in index order (the bits of that loop), MPa. */
+  meanY: number;
 }
 
 /** SST from the blocks' counts, means and Σe² (saves a pass over the curve; equal to the direct sum up to rounding). */
@@ -61,17 +66,21 @@ function totalSquares(data: Float64Array, count: number, n: number): number {
   return sst;
 }
 
-/** One block's moments into data[o…o + MOMENT_STRIDE). In a function of its own so the engine optimises the loop at once. */
-function blockInto(x: Float64Array, y: Float64Array, a: number, z: number, data: Float64Array, o: number, nodes: Float64Array, k: number): void {
+/**
+ * One block's moments into data[o…o + MOMENT_STRIDE); returns meanAcc + Σ y[i]/n over the block, added in index
+ * order. In a function of its own so the engine optimises the loop at once.
+ */
+function blockInto(x: Float64Array, y: Float64Array, a: number, z: number, data: Float64Array, o: number, nodes: Float64Array, k: number, n: number, meanAcc: number): number {
   // lo, hi from the block's first strain (finite: fitLaw refuses other data), not from ±Infinity: such a start
   // made V8 box every new extreme.
-  let lo = 0, hi = 0, sy = 0;
+  let lo = 0, hi = 0, sy = 0, acc = meanAcc;
   lo = hi = x[a]!;
   for (let i = a; i < z; i++) {
-    const v = x[i]!;
+    const v = x[i]!, yi = y[i]!;
     if (v < lo) lo = v;
     if (v > hi) hi = v;
-    sy += y[i]!;
+    sy += yi;
+    acc += yi / n;
   }
   const c = z - a, m = (lo + hi) / 2, h = (hi - lo) / 2, ym = sy / c;
   let s1 = 0, s2 = 0, s3 = 0, s4 = 0, se = 0, see = 0, sde = 0, sqe = 0;
@@ -91,4 +100,5 @@ function blockInto(x: Float64Array, y: Float64Array, a: number, z: number, data:
   data[o + 4] = s1; data[o + 5] = s2; data[o + 6] = s3; data[o + 7] = s4;
   data[o + 8] = se; data[o + 9] = see; data[o + 10] = sde; data[o + 11] = sqe;
   data[o + 12] = pdd; data[o + 13] = pdq; data[o + 14] = pqq; data[o + 15] = pee; data[o + 16] = pde; data[o + 17] = pqe;
+  return acc;
 }

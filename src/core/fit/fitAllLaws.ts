@@ -63,7 +63,7 @@ export interface FitAllOptions {
 export function fitAllLaws(strain: ArrayLike<number>, stress: ArrayLike<number>, opts: FitAllOptions = {}): LawComparison {
   const laws = opts.laws ?? LAW_NAMES;
   const packed = opts.packed && opts.packed.x.length === strain.length ? opts.packed : lawData(strain, stress); // ln ε once for every law
-  return compareLawFits(fitLawGroup(laws, strain, stress, packed), stress, opts);
+  return compareLawFits(fitLawGroup(laws, strain, stress, packed), stress, opts.packed === packed ? opts : { ...opts, packed });
 }
 
 /**
@@ -119,7 +119,10 @@ export function compareLawFits(byLaw: ReadonlyMap<LawName, LawFit>, stress: Arra
   const conv = fits.filter((f) => f.converged);
   const best = conv.length ? conv.reduce((a, b) => (b.aic < a.aic ? b : a)).law : null;
   const bestRmse = conv.length ? Math.min(...conv.map((f) => f.rmse)) : Infinity;
-  const meanStress = meanOf(stress);
+  // The mean flow stress: from the block moments of the fitted curve when they were made (the same divisions and
+  // additions in the same order as meanOf, in a pass the moments make anyway), else a pass of its own.
+  const mom = opts.packed?.moments;
+  const meanStress = mom && opts.packed!.y === stress && mom.points === stress.length ? mom.meanY : meanOf(stress);
   const goodRmse = Math.max(FIT_DEFAULTS.goodFitRmseFactor * bestRmse, FIT_DEFAULTS.goodFitRelRmse * Math.abs(meanStress)) + 1e-12;
   const good = conv.filter((f) => f.rmse <= goodRmse);
   const top = fits.length ? Math.max(...fits.map((f) => f.strainRange[1])) : 0;

@@ -95,6 +95,17 @@ export function lawDataLogged(x: Float64Array, y: Float64Array, lx: Float64Array
   return { x, y, w: null, lx, lo: seenLo ? lo : Infinity, hi: seenHi ? hi : -Infinity, bad };
 }
 
+/**
+ * {@link lawDataLogged} when the range and the first bad point are known too (analyzeRecord's flow-curve pass
+ * finds them with lawDataLogged's own comparisons, `flowColumns`): the same LawData without a pass over the
+ * data. `lo`, `hi`: smallest and largest x (Infinity and −Infinity for no data); `bad`: index of the first
+ * point whose x or y is not finite and > 0, or −1. Units as lawData.
+ * @example lawDataRanged(Float64Array.of(0.1), Float64Array.of(300), Float64Array.of(Math.log(0.1)), 0.1, 0.1, -1).hi // 0.1
+ */
+export function lawDataRanged(x: Float64Array, y: Float64Array, lx: Float64Array, lo: number, hi: number, bad: number): LawData {
+  return { x, y, w: null, lx, lo, hi, bad };
+}
+
 function packed(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Array | null): LawData {
   const xs = x instanceof Float64Array ? x : Float64Array.from(x as ArrayLike<number>);
   const ys = y instanceof Float64Array ? y : Float64Array.from(y as ArrayLike<number>);
@@ -157,22 +168,40 @@ export function pointProblem(law: LawName, d: LawData, lower: readonly number[],
       A.fill(0);
       g.fill(0);
       if (!inBox(p)) return Infinity;
-      let s = 0;
-      for (let i = 0; i < n; i++) {
-        const r = pt(x[i]!, lx[i]!, p, gr) - y[i]!;
-        const wi = w ? w[i]! : 1;
-        s += wi * r * r;
-        for (let a = 0; a < m; a++) {
-          const ga = wi * gr[a]!;
-          g[a] = g[a]! + ga * r;
-          const row = a * m;
-          for (let b = 0; b <= a; b++) A[row + b] = A[row + b]! + ga * gr[b]!;
-        }
-      }
-      for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) A[b * m + a] = A[a * m + b]!;
+      const s = pointSums(pt, x, lx, y, w, n, m, p, gr, A, g);
+      mirrorLower(A, m);
       return Number.isFinite(s) ? s : Infinity;
     },
   };
+}
+
+// The normal equations' data loops live in functions of their own, apart from the code that runs after them
+// (the mirror of JᵀJ's lower triangle, the finite check). With the loop inside `normal`, the engine compiled
+// `normal` on the stack during its first call's loop, before the code after the loop had run once, and the
+// compiled code gave up at that code's first comparison ("insufficient type feedback"): measured 21–149 such
+// deoptimisations of `normal` per 1,000,000-row analysis, each sending the next steps back to the slow tiers
+// (speed follow-up K). The operations and their order are unchanged (test/core/fit/normal.test.ts).
+
+/** Σ wᵢrᵢ² of POINT[law] over the data, adding Σ wᵢ∇ᵢ∇ᵢᵀ (lower triangle) into A and Σ wᵢ∇ᵢrᵢ into g. */
+function pointSums(pt: PointFn, x: Float64Array, lx: Float64Array, y: Float64Array, w: Float64Array | null, n: number, m: number, p: Float64Array, gr: Float64Array, A: Float64Array, g: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < n; i++) {
+    const r = pt(x[i]!, lx[i]!, p, gr) - y[i]!;
+    const wi = w ? w[i]! : 1;
+    s += wi * r * r;
+    for (let a = 0; a < m; a++) {
+      const ga = wi * gr[a]!;
+      g[a] = g[a]! + ga * r;
+      const row = a * m;
+      for (let b = 0; b <= a; b++) A[row + b] = A[row + b]! + ga * gr[b]!;
+    }
+  }
+  return s;
+}
+
+/** Copies the lower triangle of the m×m row-major A into its upper triangle. */
+function mirrorLower(A: Float64Array, m: number): void {
+  for (let a = 0; a < m; a++) for (let b = 0; b < a; b++) A[b * m + a] = A[a * m + b]!;
 }
 
 /**
@@ -211,33 +240,40 @@ function swiftVoceProblem(d: LawData, lower: readonly number[], upper: readonly 
       A.fill(0);
       g.fill(0);
       if (!inBox(p)) return Infinity;
-      const al = p[0]!, K = p[1]!, e0 = p[2]!, k = p[3]!, s0 = p[4]!, Q = p[5]!, b = p[6]!;
-      const c = 1 - al;
-      let s = 0;
-      for (let i = 0; i < n; i++) {
-        const xi = x[i]!;
-        // swiftAt(x, p, 1, al, gr, 1)
-        const u = e0 + xi, lu = Math.log(u), P = Math.exp(k * lu), S = K * P;
-        gr[1] = al * P; gr[2] = (al * k * S) / u; gr[3] = al * S * lu;
-        // voceAt(x, p, 4, 1 − al, gr, 4)
-        const E = Math.exp(-b * xi), om = -Math.expm1(-b * xi);
-        gr[4] = c; gr[5] = c * om; gr[6] = c * Q * xi * E;
-        const V = s0 + Q * om;
-        gr[0] = S - V;
-        const r = al * S + (1 - al) * V - y[i]!;
-        const wi = w ? w[i]! : 1;
-        s += wi * r * r;
-        for (let a = 0; a < m; a++) {
-          const ga = wi * gr[a]!;
-          g[a] = g[a]! + ga * r;
-          const row = a * m;
-          for (let bb = 0; bb <= a; bb++) A[row + bb] = A[row + bb]! + ga * gr[bb]!;
-        }
-      }
-      for (let a = 0; a < m; a++) for (let bb = 0; bb < a; bb++) A[bb * m + a] = A[a * m + bb]!;
+      const s = swiftVoceSums(x, y, w, n, p, gr, A, g);
+      mirrorLower(A, m);
       return Number.isFinite(s) ? s : Infinity;
     },
   };
+}
+
+/** {@link pointSums} of the Swift–Voce blend, POINT.swiftVoce written out (m = 7; see swiftVoceProblem). */
+function swiftVoceSums(x: Float64Array, y: Float64Array, w: Float64Array | null, n: number, p: Float64Array, gr: Float64Array, A: Float64Array, g: Float64Array): number {
+  const m = 7;
+  const al = p[0]!, K = p[1]!, e0 = p[2]!, k = p[3]!, s0 = p[4]!, Q = p[5]!, b = p[6]!;
+  const c = 1 - al;
+  let s = 0;
+  for (let i = 0; i < n; i++) {
+    const xi = x[i]!;
+    // swiftAt(x, p, 1, al, gr, 1)
+    const u = e0 + xi, lu = Math.log(u), P = Math.exp(k * lu), S = K * P;
+    gr[1] = al * P; gr[2] = (al * k * S) / u; gr[3] = al * S * lu;
+    // voceAt(x, p, 4, 1 − al, gr, 4)
+    const E = Math.exp(-b * xi), om = -Math.expm1(-b * xi);
+    gr[4] = c; gr[5] = c * om; gr[6] = c * Q * xi * E;
+    const V = s0 + Q * om;
+    gr[0] = S - V;
+    const r = al * S + (1 - al) * V - y[i]!;
+    const wi = w ? w[i]! : 1;
+    s += wi * r * r;
+    for (let a = 0; a < m; a++) {
+      const ga = wi * gr[a]!;
+      g[a] = g[a]! + ga * r;
+      const row = a * m;
+      for (let bb = 0; bb <= a; bb++) A[row + bb] = A[row + bb]! + ga * gr[bb]!;
+    }
+  }
+  return s;
 }
 
 /**
@@ -272,27 +308,34 @@ function hockettSherbyProblem(d: LawData, lower: readonly number[], upper: reado
       A.fill(0);
       g.fill(0);
       if (!inBox(p)) return Infinity;
-      const sat = p[0]!, s0 = p[1]!, a = p[2]!, e = p[3]!;
-      const dd = sat - s0;
-      let s = 0;
-      for (let i = 0; i < n; i++) {
-        const li = lx[i]!;
-        const X = Math.exp(e * li), E = Math.exp(-a * X), dE = dd * E;
-        gr[0] = 1 - E; gr[1] = E; gr[2] = dE * X; gr[3] = dE * a * X * li;
-        const r = (dd > 0 ? sat - dE : NaN) - y[i]!;
-        const wi = w ? w[i]! : 1;
-        s += wi * r * r;
-        for (let q = 0; q < m; q++) {
-          const ga = wi * gr[q]!;
-          g[q] = g[q]! + ga * r;
-          const row = q * m;
-          for (let bb = 0; bb <= q; bb++) A[row + bb] = A[row + bb]! + ga * gr[bb]!;
-        }
-      }
-      for (let q = 0; q < m; q++) for (let bb = 0; bb < q; bb++) A[bb * m + q] = A[q * m + bb]!;
+      const s = hockettSherbySums(lx, y, w, n, p, gr, A, g);
+      mirrorLower(A, m);
       return Number.isFinite(s) ? s : Infinity;
     },
   };
+}
+
+/** {@link pointSums} of Hockett–Sherby, POINT.hockettSherby written out (m = 4; see hockettSherbyProblem). */
+function hockettSherbySums(lx: Float64Array, y: Float64Array, w: Float64Array | null, n: number, p: Float64Array, gr: Float64Array, A: Float64Array, g: Float64Array): number {
+  const m = 4;
+  const sat = p[0]!, s0 = p[1]!, a = p[2]!, e = p[3]!;
+  const dd = sat - s0;
+  let s = 0;
+  for (let i = 0; i < n; i++) {
+    const li = lx[i]!;
+    const X = Math.exp(e * li), E = Math.exp(-a * X), dE = dd * E;
+    gr[0] = 1 - E; gr[1] = E; gr[2] = dE * X; gr[3] = dE * a * X * li;
+    const r = (dd > 0 ? sat - dE : NaN) - y[i]!;
+    const wi = w ? w[i]! : 1;
+    s += wi * r * r;
+    for (let q = 0; q < m; q++) {
+      const ga = wi * gr[q]!;
+      g[q] = g[q]! + ga * r;
+      const row = q * m;
+      for (let bb = 0; bb <= q; bb++) A[row + bb] = A[row + bb]! + ga * gr[bb]!;
+    }
+  }
+  return s;
 }
 
 /**
@@ -346,42 +389,50 @@ export function lawResiduals(law: LawName, d: LawData, p: Float64Array): number[
  * @example lawValues('hollomon', Float64Array.of(0.1), Float64Array.of(Math.log(0.1)), Float64Array.of(530, 0.44), out) // out[0] ≈ 192.6
  */
 export function lawValues(law: LawName, x: Float64Array, lx: Float64Array, p: Float64Array, out: Float64Array): void {
+  // One function per law (not one loop per case of a switch here): compiled while only some laws had run, a
+  // shared function gave up at the first case without type feedback (3–4 times per analysis; speed follow-up K).
   const n = x.length;
   switch (law) {
-    case 'hollomon': {
-      const K = p[0]!, e = p[1]!;
-      for (let i = 0; i < n; i++) out[i] = K * Math.exp(e * lx[i]!);
-      return;
-    }
-    case 'ludwik': {
-      const s0 = p[0]!, K = p[1]!, e = p[2]!;
-      for (let i = 0; i < n; i++) out[i] = s0 + K * Math.exp(e * lx[i]!);
-      return;
-    }
-    case 'swift': {
-      const K = p[0]!, e0 = p[1]!, e = p[2]!;
-      for (let i = 0; i < n; i++) out[i] = K * Math.exp(e * Math.log(e0 + x[i]!));
-      return;
-    }
-    case 'voce': {
-      const s0 = p[0]!, Q = p[1]!, b = p[2]!;
-      for (let i = 0; i < n; i++) out[i] = s0 + Q * -Math.expm1(-b * x[i]!);
-      return;
-    }
-    case 'hockettSherby': {
-      const sat = p[0]!, s0 = p[1]!, a = p[2]!, e = p[3]!;
-      const dd = sat - s0;
-      if (!(dd > 0)) { out.fill(NaN); return; }
-      for (let i = 0; i < n; i++) out[i] = sat - dd * Math.exp(-a * Math.exp(e * lx[i]!));
-      return;
-    }
-    case 'swiftVoce': {
-      const al = p[0]!, K = p[1]!, e0 = p[2]!, e = p[3]!, s0 = p[4]!, Q = p[5]!, b = p[6]!;
-      for (let i = 0; i < n; i++) {
-        const xi = x[i]!;
-        out[i] = al * (K * Math.exp(e * Math.log(e0 + xi))) + (1 - al) * (s0 + Q * -Math.expm1(-b * xi));
-      }
-      return;
-    }
+    case 'hollomon': return hollomonValues(n, lx, p, out);
+    case 'ludwik': return ludwikValues(n, lx, p, out);
+    case 'swift': return swiftValues(n, x, p, out);
+    case 'voce': return voceValues(n, x, p, out);
+    case 'hockettSherby': return hockettSherbyValues(n, lx, p, out);
+    case 'swiftVoce': return swiftVoceValues(n, x, p, out);
+  }
+}
+
+function hollomonValues(n: number, lx: Float64Array, p: Float64Array, out: Float64Array): void {
+  const K = p[0]!, e = p[1]!;
+  for (let i = 0; i < n; i++) out[i] = K * Math.exp(e * lx[i]!);
+}
+
+function ludwikValues(n: number, lx: Float64Array, p: Float64Array, out: Float64Array): void {
+  const s0 = p[0]!, K = p[1]!, e = p[2]!;
+  for (let i = 0; i < n; i++) out[i] = s0 + K * Math.exp(e * lx[i]!);
+}
+
+function swiftValues(n: number, x: Float64Array, p: Float64Array, out: Float64Array): void {
+  const K = p[0]!, e0 = p[1]!, e = p[2]!;
+  for (let i = 0; i < n; i++) out[i] = K * Math.exp(e * Math.log(e0 + x[i]!));
+}
+
+function voceValues(n: number, x: Float64Array, p: Float64Array, out: Float64Array): void {
+  const s0 = p[0]!, Q = p[1]!, b = p[2]!;
+  for (let i = 0; i < n; i++) out[i] = s0 + Q * -Math.expm1(-b * x[i]!);
+}
+
+function hockettSherbyValues(n: number, lx: Float64Array, p: Float64Array, out: Float64Array): void {
+  const sat = p[0]!, s0 = p[1]!, a = p[2]!, e = p[3]!;
+  const dd = sat - s0;
+  if (!(dd > 0)) { out.fill(NaN); return; }
+  for (let i = 0; i < n; i++) out[i] = sat - dd * Math.exp(-a * Math.exp(e * lx[i]!));
+}
+
+function swiftVoceValues(n: number, x: Float64Array, p: Float64Array, out: Float64Array): void {
+  const al = p[0]!, K = p[1]!, e0 = p[2]!, e = p[3]!, s0 = p[4]!, Q = p[5]!, b = p[6]!;
+  for (let i = 0; i < n; i++) {
+    const xi = x[i]!;
+    out[i] = al * (K * Math.exp(e * Math.log(e0 + xi))) + (1 - al) * (s0 + Q * -Math.expm1(-b * xi));
   }
 }

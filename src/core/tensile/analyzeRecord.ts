@@ -7,7 +7,8 @@ import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus } from './elasticMo
 import { forceMaximum } from './forceMaximum.js';
 import { recordNoiseWide } from './recordNoise.js';
 import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
-import { lawDataLogged, type LawData } from '../fit/lawNormalEquations.js';
+import { lawDataRanged, type LawData } from '../fit/lawNormalEquations.js';
+import { flowColumns } from './flowColumns.js';
 import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { TensileAnalysis, TensileData, TensileWarning } from './types.js';
 import { yieldPoint } from './yieldPoint.js';
@@ -201,10 +202,12 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   // The flow curve in one pass (ln(1 + e) only for the points of the envelope), into arrays sized
   // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
   // true curve that `analyze` never prints were a tenth of the command (bench/RESULTS.md, issue 12 D).
-  const { strain: fStrain, stress: fStress, logStrain, logStress } = flowColumns(strain, stress, toe, E, iMax, proof ? proof.index : 0, fromTrue);
+  const flow = flowColumns(strain, stress, toe, E, iMax, proof ? proof.index : 0, fromTrue);
+  const { strain: fStrain, stress: fStress, logStrain, logStress } = flow;
   const nf = fStrain.length;
-  // ln εp once, for the n-value and every law fit (taken in flowColumns' pass: the same Math.log of the same values).
-  const packed = nf > 0 ? lawDataLogged(fStrain, fStress, logStrain) : null;
+  // ln εp once, for the n-value and every law fit, and the range and first bad point the fits check (all taken
+  // in flowColumns' pass: the same operations on the same values as a pass of lawDataLogged; speed follow-up K).
+  const packed = nf > 0 ? lawDataRanged(fStrain, fStress, logStrain, flow.lo, flow.hi, flow.bad) : null;
 
   // n-value (ISO 10275).
   let nFit = null;
@@ -343,37 +346,6 @@ function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number, noise:
     }
   }
   return -1;
-}
-
-/**
- * The flow curve in one pass: the monotone envelope of samples fromIndex…iMax (cycles left out),
- * toe-compensated, as true plastic strain εp = ln(1 + e) − σ/E and true stress σ = s(1 + e)
- * (Dowling §4.5), keeping εp ≥ fromTrue and > 0; ln(1 + e) only for envelope points. Also ln εp and ln σ of
- * each kept point (for the law fits and the n-value: taken here, while the values are at hand, instead of in
- * two more passes over the curve; speed follow-up J).
- */
-function flowColumns(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: number, E: number, iMax: number, fromIndex: number, fromTrue: number): { strain: Float64Array; stress: Float64Array; logStrain: Float64Array; logStress: Float64Array } {
-  const m = iMax + 1;
-  const xs = new Float64Array(m), ys = new Float64Array(m), lxs = new Float64Array(m), lys = new Float64Array(m);
-  let nf = 0;
-  // A flag, not runMax = −Infinity: that start made V8 box every new envelope value (one heap number a point).
-  let runMax = 0, any = false;
-  for (let i = 0; i <= iMax; i++) {
-    const e = strain[i]! - toe;
-    if (any && e <= runMax) continue;
-    any = true;
-    runMax = e;
-    if (e <= -1 || i < fromIndex) continue; // no true strain, or before the proof point: not on the flow curve
-    const s = stress[i]! * (1 + e);
-    const ep = Math.log1p(e) - s / E;
-    if (ep >= fromTrue && ep > 0) {
-      xs[nf] = ep;
-      ys[nf] = s;
-      lxs[nf] = Math.log(ep);
-      lys[nf++] = Math.log(s);
-    }
-  }
-  return { strain: xs.subarray(0, nf), stress: ys.subarray(0, nf), logStrain: lxs.subarray(0, nf), logStress: lys.subarray(0, nf) };
 }
 
 /**

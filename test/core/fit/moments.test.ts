@@ -136,3 +136,19 @@ describe('momentResidualStats falls back to the point-by-point sums where a bloc
     expectAbsClose(m.lag1, e.lag1, m.bound * e.ssr, 'lag-1 sum');
   });
 });
+
+describe('blockMoments(x, y, size).meanY: the mean stress the law comparison uses (speed follow-up K)', () => {
+  it('equals Σ yᵢ/n added in index order (the former pass of compareLawFits) bit for bit, and the mean within rounding', () => {
+    const r = xoshiro128ss(77);
+    for (let t = 0; t < 50; t++) {
+      const n = 1 + (r.nextU32() % 5000), size = 1 + (r.nextU32() % 300);
+      const x = Float64Array.from({ length: n }, (_, i) => 1e-3 + i * 1e-4);
+      const y = Float64Array.from(x, () => 100 + 900 * r.nextFloat());
+      let former = 0;
+      for (let i = 0; i < n; i++) former += y[i]! / n;
+      const got = blockMoments(x, y, size).meanY;
+      expect(Object.is(got, former), `case ${t}: ${got} vs ${former}`).toBe(true);
+      expectRelClose(got, y.reduce((a, b) => a + b, 0) / n, 1e-12); // a mean: rounding-level agreement with Σy/n
+    }
+  });
+});
