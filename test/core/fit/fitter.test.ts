@@ -106,14 +106,14 @@ const fc = analyzeRecord(rec, { fit: false }).flowCurve;
 describe('fitLaw against SciPy curve_fit on the same flow curve (46NT99, 42CrMoS4 open data)', () => {
   // Reference: SciPy 1.17.1 (python3 on this machine) scipy.optimize.curve_fit(method='trf', bounds from
   // LAW_PARAMETERS, ftol=xtol=gtol=1e-14, p0 = our startValues) on exactly these points (written out by
-  // analyzeRecord, 2026-12-03, after the bounded top model: 231 points; re-run with `node bench/fitter-scipy-ref.mjs`);
+  // analyzeRecord, 2026-12-03, after the toe from the band's samples up to 40 % of Rp0.2: 231 points; re-run with `node bench/fitter-scipy-ref.mjs`);
   // perr = sqrt(diag(pcov)), rmse = sqrt(mean(r²)).
   // Both minimise the same sum of squares; parameters agree to 1e-6 and standard errors to 1e-4
   // (SciPy's pcov uses a finite-difference Jacobian, ours the analytic one).
   const ref = {
-    hollomon: { p: [1440.9575635285014, 0.04599065293332972], se: [3.2255521196895747, 0.0005706672544256456], rmse: 7.371249540150089 },
-    voce: { p: [1108.9270717614504, 212.4945634864478, 26.617872441145867], se: [0.3089572588376895, 1.1352404914607588, 0.3088701040485963], rmse: 1.0818619378024474 },
-    swift: { p: [1625.1275444401012, 0.013869999103528857, 0.09038723370455005], se: [3.5994092076546877, 0.00032336979865730956, 0.0009234514537512749], rmse: 1.0954974995937568 },
+    hollomon: { p: [1440.9457503981937, 0.0459882498665642], se: [3.2257592672713047, 0.0005707026365609016], rmse: 7.37205676888604 },
+    voce: { p: [1108.9295707332274, 212.49141306010603, 26.617849218169546], se: [0.3089376315500085, 1.1352578860499711, 0.3088698027068556], rmse: 1.08186132990004 },
+    swift: { p: [1625.126769122417, 0.01387056390419614, 0.0903872734001435], se: [3.5994075834330737, 0.0003233700439886616, 0.0009234517876420309], rmse: 1.0954968094132966 },
   } as const;
   for (const [law, r] of Object.entries(ref)) {
     it(`fitLaw('${law}') gives SciPy's parameters, standard errors and RMSE`, () => {

@@ -28,9 +28,10 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 5000 + i);
 // the two): noisy Rp0.2 outside its range 6 → 5. Ag's interval also joins the vertex of a smooth top whose necking
 // side starts like d⁴ (where the data do not reject it): noisy Ag outside its interval 14 → 12, noise-free 86 → 83
 // misses (the truth outside the interval 80 → 0 of 200; the estimate itself unchanged, still 0.15 point late on
-// average here).
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 5, Ag: 12, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
-const CEILINGS_CLEAN: Record<string, number> = { Ag: 83, A: 3, quietE: 6, Ae: 3, 'Rp0.2': 6 };
+// average here). The toe read from the band's samples up to 40 % of Rp0.2 (microplastic strain above it on round-house
+// curves): noise-free Rp0.2 misses at a quarter of the tolerance 6 → 2, noisy Ag 12 → 11.
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 5, Ag: 11, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
+const CEILINGS_CLEAN: Record<string, number> = { Ag: 83, A: 3, quietE: 6, Ae: 3, 'Rp0.2': 2 };
 const AG_OFF_NOISY = 67, AG_OFF_CLEAN = 170;
 
 
