@@ -121,7 +121,9 @@ function trimCurvature(x: ArrayLike<number>, y: ArrayLike<number>, from: number,
  *    flow, top cut; {@link trimCurvature}); of the bands with 8 points (else 4) the one with the smallest
  *    standard error of the slope wins; Rp0.2 recomputed and the band refitted once if it moved by over 2 %.
  *    When no band holds 4 points, the first line is kept (`elasticBandFallback`).
- * 5. Toe compensation (ISO 6892-1 and ASTM E8 practice): e0 = −intercept/E is subtracted from all strains.
+ * 5. Toe compensation (ISO 6892-1 and ASTM E8 practice): e0 = −intercept/E (`toeStrain` here; `analyzeRecord`
+ *    then takes e0 from the band's samples up to 40 % of Rp0.2, where a round-house curve has no microplastic
+ *    strain yet).
  * 6. Gradual yielding (no straight part): when the band starts at ≤ 20 % of Rp0.2, a Ramberg–Osgood-form
  *    curve is fitted from there to 70 % of Rp0.2 ({@link initialTangent}); a significant bend that agrees with
  *    the band's lowest part and whose initial tangent is above the line's slope makes the tangent E
