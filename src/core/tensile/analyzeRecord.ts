@@ -3,7 +3,7 @@ import { fitAllLaws, type FitAllOptions, type LawComparison } from '../fit/fitAl
 import type { LawName } from '../flow/types.js';
 import { fitModulusDecay, findCycles } from './cycles.js';
 import { linearFit } from '../fit/linearFit.js';
-import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus } from './elasticModulus.js';
+import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus, lowBandToe } from './elasticModulus.js';
 import { forceMaximum } from './forceMaximum.js';
 import { recordNoiseWide } from './recordNoise.js';
 import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
@@ -81,13 +81,6 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   if (given !== undefined && !(given > 0 && Number.isFinite(given))) throw new InputError('elasticModulus', given, 'a modulus > 0 MPa');
   const E = given ?? el.modulus;
   let toe = el.toeStrain;
-  if (given === undefined) {
-    // The measured E's line through the band's samples up to 40 % of Rp0.2 (as for a given E, below): on a
-    // round-house curve the band's upper part carries microplastic strain. Noise-free hold-out B: Rp0.2 off by more
-    // than a quarter of the tolerance on 6 → 2 records; the property test and hold-out A unchanged.
-    const low = lowBandToe(strain, stress, el.window.fromIndex, el.window.toIndex, ELASTIC_WINDOW.band[1] * el.window.proofEstimate, E);
-    if (low !== null) toe = low;
-  }
   if (given !== undefined) {
     // The given E through the centroid of the elastic band's samples up to 40 % of the Rp0.2 estimate (ISO 6892-1
     // Annex G's 10–40 % band, from memory), all of the band's samples when fewer than 3 lie there. Above that a
@@ -96,7 +89,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     // the true E given, Rp0.2 read up to 2.9 % HIGH on noise-free hold-out B records (the unsafe side), worse than
     // with E measured. The strain's own noise hardly matters here: σ̂/E is about 1e-5 per sample.
     const { fromIndex: a, toIndex: b, proofEstimate } = el.window;
-    toe = lowBandToe(strain, stress, a, b, ELASTIC_WINDOW.band[1] * proofEstimate, E) ?? lowBandToe(strain, stress, a, b, Infinity, E, 1)!;
+    toe = lowBandToe(strain, stress, a, b, ELASTIC_WINDOW.band[1] * proofEstimate, E) ?? lowBandToe(strain, stress, a, b, Infinity, E, 1) ?? el.toeStrain;
     if (el.issues.some((x) => x.code === 'implausibleModulus' || x.code === 'elasticBandFallback')) {
       // The band is not elastic: take the toe from the steepest three consecutive samples of the first rise
       // (the elastic samples, however few), e0 = mean of e − s/E over them.
@@ -374,15 +367,4 @@ function trueCurveTo(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: 
     tPlastic.push(eps - s / E);
   }
   return { strain: tStrain, stress: tStress, plasticStrain: tPlastic };
-}
-
-/**
- * Toe compensation e0 of a line of slope E through the centroid of the samples in [a, b) whose stress is at most
- * `limit`: e0 = mean(e) − mean(σ)/E (ISO 6892-1 and ASTM E8 practice). Null when fewer than `least` samples qualify.
- * Units: strain fraction, MPa. @example lowBandToe([0.001, 0.002], [200, 400], 0, 2, 500, 200000) // 0
- */
-function lowBandToe(strain: ArrayLike<number>, stress: ArrayLike<number>, a: number, b: number, limit: number, E: number, least = 3): number | null {
-  let mx = 0, my = 0, k = 0;
-  for (let i = a; i < b; i++) if (stress[i]! <= limit) { mx += strain[i]!; my += stress[i]!; k++; }
-  return k >= least && k > 0 ? (mx - my / E) / k : null;
 }

@@ -71,7 +71,7 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   const h = Math.max(xb - xa, 1e-300);
   // Bin the span to at most 1000 groups of consecutive samples (mean strain, mean stress, count): a weighted
   // least-squares fit to the group means has the same minimiser in xv as the fit to every sample, up to the
-  // few groups the vertex splits, and each trial xv costs O(1000) instead of O(samples).
+  // few groups the vertex splits; their moments are kept once ({@link TopSums}), so a trial xv costs O(log bins).
   const m = i1 - i0;
   const blocks = blockAverage(columnSpan(strain, i0, i1), columnSpan(stress, i0, i1), Math.ceil(m / TOP_BLOCKS));
   const bx = blocks.x, by = blocks.y, bw = blocks.w, nb = bx.length;
@@ -89,8 +89,8 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // constraints the optimum is the feasible solution of its own active set, so this is the constrained optimum).
   // Without the constraint a side could rise past the vertex and fall again (a second, higher top inside the span):
   // on the property test that read Ag up to 7 points early (Ag off by more than 0.4 point on 110 of 240 records,
-  // 49 with it). Per-side power sums over the bins (Σw·uᵏ, k ≤ 8, Σw·y·uᵏ, k ≤ 4) give every combination's normal
-  // equations without another pass over the bins.
+  // 49 with it). Per-side power sums (Σw·uᵏ, k ≤ 8, Σw·(y − y0)·uᵏ, k ≤ 4, from TopSums) give every combination's
+  // normal equations.
   const PW = 9, PY = 5;
   const pw = [new Float64Array(PW), new Float64Array(PW)], py = [new Float64Array(PY), new Float64Array(PY)];
   const M = new Float64Array(25), V = new Float64Array(5);
