@@ -36,6 +36,18 @@ describe('strainledger analyze RECORD --format json', () => {
     for (const f of j.fits) for (const k of ['law', 'params', 'standardErrors', 'rmse', 'r2', 'converged']) expect(f, `${f.law}.${k}`).toHaveProperty(k);
     expect(r.stdout).not.toMatch(/NaN|Infinity/);
   });
+  it('the Swift–Voce blend: α held at 0.5 and said so in the table and in --format json (basis.held); its other parameters have standard errors', () => {
+    const t = run('analyze', join(FIX, '46NTA1.csv'));
+    expect(t.status).toBe(0);
+    expect(t.stdout).toMatch(/swiftVoce .*alpha=0\.5 \(held\) K=[\d.]+±/);
+    expect(t.stdout).toContain('held, not fitted: swiftVoce alpha = 0.5');
+    const j = JSON.parse(run('analyze', join(FIX, '46NTA1.csv'), '--format', 'json').stdout);
+    const sv = j.fits.find((f: { law: string }) => f.law === 'swiftVoce');
+    expect(sv.basis.held).toEqual(['alpha']);
+    expect(sv.standardErrors.alpha).toBeNull();
+    expect(sv.standardErrors.K).toBeGreaterThan(0);
+    for (const f of j.fits) if (f.law !== 'swiftVoce') expect(f.basis.held, f.law).toEqual([]);
+  });
   it('table: a continuous record says "none (continuous yielding)"; a record cut before maximum force marks Rm, Ag and A as lower bounds', () => {
     const full = run('analyze', join(FIX, '46NT9B.csv'));
     expect(full.status).toBe(0);

@@ -117,7 +117,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   if (a.fits) {
     lines.push('  law             RMSE MPa   R²        AIC      converged  parameters');
     for (const f of a.fits.fits) {
-      const ps = Object.entries(f.params).map(([k, v]) => `${k}=${paramText(f.law, k, v)}${f.standardErrors[k] != null ? `±${+f.standardErrors[k]!.toPrecision(2)}` : ''}`).join(' ');
+      const ps = Object.entries(f.params).map(([k, v]) => `${k}=${paramText(f.law, k, v)}${f.standardErrors[k] != null ? `±${+f.standardErrors[k]!.toPrecision(2)}` : f.basis.held.includes(k) ? ' (held)' : ''}`).join(' ');
       lines.push(`  ${f.law.padEnd(15)} ${fmt(f.rmse, 2).padStart(8)}   ${f.r2.toFixed(5)}  ${fmt(f.aic, 0).padStart(7)}  ${(f.converged ? 'yes' : 'NO').padEnd(9)}  ${ps}`);
     }
     const b0 = a.fits.fits[0]?.basis;
@@ -125,6 +125,8 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
       lines.push(b0.blockSize > 1
         ? `  fitted on ${b0.fittedPoints} averages of ${b0.blockSize} consecutive points (flow curve of ${a.fits.fits[0]!.points}); RMSE, R², AIC on the full curve`
         : `  fitted on all ${a.fits.fits[0]!.points} points of the flow curve`);
+      const held = a.fits.fits.filter((f) => f.basis.held.length > 0);
+      if (held.length) lines.push(`  held, not fitted: ${held.map((f) => f.basis.held.map((k) => `${f.law} ${k} = ${paramText(f.law, k, f.params[k]!)}`).join(', ')).join('; ')} (one flow curve does not determine it; the other parameters are fitted)`);
       lines.push(`  ± is a standard error widened for correlated residuals by √(n/n_eff), n_eff = n(1 − ρ)/(1 + ρ) from the lag-1 autocorrelation ρ: ${a.fits.fits.map((f) => `${f.law} ρ ${f.basis.lag1Autocorrelation.toFixed(2)}`).join(', ')}`);
     }
     for (const e of a.fits.extrapolation) lines.push(`  at εp ${e.strain.toPrecision(3)} (${e.note}): spread ${e.spreadPct.toFixed(1)} % over laws that fit well`);

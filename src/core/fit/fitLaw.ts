@@ -16,6 +16,12 @@ import type { FitWarning, LawFit } from './types.js';
 export interface FitLawOptions {
   /** Start instead of the automatic one, parameters by name (MPa). */
   start?: Record<string, number>;
+  /**
+   * Parameters held at the given values instead of fitted, by name (MPa), each within its LAW_PARAMETERS
+   * range: they get no standard error and are listed in `basis.held` (fitLawGroup holds the Swift–Voce
+   * blend's α, which one flow curve does not determine).
+   */
+  hold?: Record<string, number>;
   maxIterations?: number;
   /** The same strain and stress already packed by {@link lawData} (fitAllLaws packs a curve once for all laws). */
   packed?: LawData;
@@ -112,6 +118,13 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   }
   const lo = full.lo, hi = full.hi;
   const { lower, upper } = lawBounds(law);
+  const held = info.map(() => false);
+  for (const [name, v] of Object.entries(opts.hold ?? {})) {
+    const j = info.findIndex((p) => p.name === name);
+    if (j < 0) throw new InputError('hold', name, `a parameter of ${law} (${info.map((p) => p.name).join(', ')})`);
+    if (!(v >= lower[j]! && v <= upper[j]!)) throw new InputError(`hold.${name}`, v, `a number in [${lower[j]}, ${upper[j]}]`);
+    lower[j] = v; upper[j] = v; held[j] = true;
+  }
   let start: number[];
   if (opts.start) {
     start = info.map((p) => opts.start![p.name] ?? NaN);
@@ -140,8 +153,9 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   const eff = effectivePoints(n, ssr, pass.lag1);
   // JᵀJ of the full curve: the solver's own when every point was fitted; with block averages the
   // weighted Σ w_b∇σ(x̄_b)∇σ(x̄_b)ᵀ, equal to the full sum up to second order in the block span.
-  const independent = parameterErrors(res.JtJ, k, ssr, n, res.atBound, res.params, n);
-  const honest = parameterErrors(res.JtJ, k, ssr, n, res.atBound, res.params, eff.effectiveN);
+  const noError = res.atBound.map((b, j) => b || held[j]!); // a held parameter has no standard error
+  const independent = parameterErrors(res.JtJ, k, ssr, n, noError, res.params, n);
+  const honest = parameterErrors(res.JtJ, k, ssr, n, noError, res.params, eff.effectiveN);
   const warnings: FitWarning[] = [];
   if (!res.converged) warnings.push({ code: 'notConverged', message: `${LAW_TITLES[law]}: the fit did not converge in ${res.iterations} iterations (${res.reason})` });
   const params: Record<string, number> = {};
@@ -155,14 +169,15 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
     intervals95[p.name] = honest.intervals95[j]!;
     if (res.atBound[j]) warnings.push({ code: 'atBound', message: `${LAW_TITLES[law]}: ${p.symbol} ended on its bound (${res.params[j]}); its standard error is not given` });
   });
-  if (honest.singular) warnings.push({ code: 'notIdentifiable', message: `${LAW_TITLES[law]}: the data do not determine all ${k} parameters (singular information matrix); standard errors are not given` });
+  const fittedK = k - held.filter(Boolean).length;
+  if (honest.singular) warnings.push({ code: 'notIdentifiable', message: `${LAW_TITLES[law]}: the data do not determine all ${fittedK} fitted parameters (singular information matrix); standard errors are not given` });
   const fit: LawFit = {
     law, params, standardErrors, intervals95,
     rmse: Math.sqrt(ssr / n), r2: pass.sst > 0 ? 1 - ssr / pass.sst : ssr === 0 ? 1 : 0,
-    aic: n * Math.log(ssrN) + 2 * k, bic: n * Math.log(ssrN) + k * Math.log(n),
+    aic: n * Math.log(ssrN) + 2 * fittedK, bic: n * Math.log(ssrN) + fittedK * Math.log(n), // k: the parameters fitted
     residuals: [], converged: res.converged, iterations: res.iterations,
     strainRange: [lo, hi], points: n, warnings, standardErrorsIndependent,
-    basis: { fittedPoints: fitted.x.length, blockSize, lag1Autocorrelation: eff.lag1, effectivePoints: eff.effectiveN, inflation: eff.inflation },
+    basis: { fittedPoints: fitted.x.length, blockSize, lag1Autocorrelation: eff.lag1, effectivePoints: eff.effectiveN, inflation: eff.inflation, held: info.filter((_, j) => held[j]).map((p) => p.name) },
   };
   return withLazyResiduals(fit, full, res.params);
 }

@@ -8,7 +8,7 @@ import { cholesky, choleskySolve } from './symmetric.js';
 export type Model = (p: Float64Array) => Float64Array | null;
 
 export interface LmOptions {
-  /** Lower and upper bound of each parameter (finite or ±Infinity). */
+  /** Lower and upper bound of each parameter (finite or ±Infinity); lower = upper holds that parameter at the value. */
   lower: readonly number[];
   upper: readonly number[];
   /** Most iterations; defaults to {@link LM_DEFAULTS}.maxIterations. */
@@ -37,7 +37,7 @@ export interface LmResult {
   jacobian: Float64Array;
   /** Model values at `params`. */
   predicted: Float64Array;
-  /** Per parameter: true when it ended on a bound with the gradient pushing outward. */
+  /** Per parameter: true when it ended on a bound with the gradient pushing outward (never for a held one). */
   atBound: boolean[];
 }
 
@@ -106,9 +106,10 @@ export function levenbergMarquardtNormal(problem: NormalProblem, start: readonly
   let atBound: boolean[] = new Array(m).fill(false);
   outer: for (it = 1; it <= maxIt; it++) {
     // Active set: on a bound with the descent direction (−g) pointing out of the box.
-    atBound = Array.from({ length: m }, (_, j) => (p[j]! <= lower[j]! && g[j]! > 0) || (p[j]! >= upper[j]! && g[j]! < 0));
+    // A parameter whose box is one point (lower = upper) is held: never free, never reported on a bound.
+    atBound = Array.from({ length: m }, (_, j) => lower[j]! < upper[j]! && ((p[j]! <= lower[j]! && g[j]! > 0) || (p[j]! >= upper[j]! && g[j]! < 0)));
     const free: number[] = [];
-    for (let j = 0; j < m; j++) if (!atBound[j] && JtJ[j * m + j]! > 0) free.push(j);
+    for (let j = 0; j < m; j++) if (!atBound[j] && lower[j]! < upper[j]! && JtJ[j * m + j]! > 0) free.push(j);
     let gmax = 0;
     for (const j of free) gmax = Math.max(gmax, Math.abs(g[j]!) / Math.sqrt(JtJ[j * m + j]! * Math.max(S, 1e-300)));
     if (free.length === 0 || gmax < LM_DEFAULTS.gradientTolerance) {
@@ -191,7 +192,7 @@ export function levenbergMarquardtNormal(problem: NormalProblem, start: readonly
  * projects p + δ onto the box, and accepts it when S falls (λ ← λ·max(1/3, 1 − (2ρ − 1)³) with ρ the ratio of actual to predicted
  * fall), else λ ← ν·λ, ν ← 2ν and retries (Nielsen's damping update, H. B. Nielsen, IMM-REP-1999-05, DTU).
  * Parameters sitting on a bound whose gradient pushes outward are held fixed for that iteration
- * (an active-set projection). The Jacobian is by forward differences, step √ε·max(|p|, 1e-6·scale),
+ * (an active-set projection); a parameter whose bounds are equal is held at that value throughout. The Jacobian is by forward differences, step √ε·max(|p|, 1e-6·scale),
  * taken backward when the forward point is outside the box or the model's domain.
  *
  * Sources: K. Levenberg, *Q. Appl. Math.* 2 (1944) 164–168; D. W. Marquardt, *J. SIAM* 11 (1963)

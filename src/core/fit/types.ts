@@ -56,4 +56,9 @@ export interface FitBasis {
   effectivePoints: number;
   /** Factor by which `standardErrors` exceed `standardErrorsIndependent`: sqrt(n / effectivePoints). */
   inflation: number;
+  /**
+   * Parameters held at a set value instead of fitted (no standard error): the Swift–Voce blend's α,
+   * which one flow curve does not determine (see fitLawGroup); empty for the other laws.
+   */
+  held: string[];
 }

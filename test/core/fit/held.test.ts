@@ -1,0 +1,58 @@
+import { linearRegression } from 'simple-statistics';
+import { describe, expect, it } from 'vitest';
+import { fitLaw, makeLaw } from '../../../src/core/index.js';
+import { BLEND_ALPHA, hockettSherbyNearLudwik } from '../../../src/core/fit/fitAllLaws.js';
+import { expectRelClose } from '../../helpers.js';
+
+// INVENTED Voce-like curve with a little deterministic ripple (so the fit has residuals).
+const eps = Array.from({ length: 120 }, (_, i) => 0.002 + (0.2 * i) / 119);
+const sig = eps.map((e, i) => 250 + 180 * (1 - Math.exp(-12 * e)) + 1.5 * Math.sin(i * 1.7));
+
+describe('fitLaw with a parameter held (the blend holds α)', () => {
+  it('Voce with b held: σ0 and Q are the straight-line least squares of σ on 1 − e^(−bε) (simple-statistics linearRegression)', () => {
+    const b = 10;
+    const f = fitLaw('voce', eps, sig, { hold: { b } });
+    // Reference: simple-statistics (npm) linearRegression, an ordinary least-squares line, intercept σ0, slope Q.
+    const line = linearRegression(eps.map((e, i) => [1 - Math.exp(-b * e), sig[i]!]));
+    expect(f.params.b).toBe(b);
+    expectRelClose(f.params.sigma0!, line.b, 1e-7, 'sigma0');
+    expectRelClose(f.params.Q!, line.m, 1e-7, 'Q');
+    expect(f.standardErrors.b).toBeNull();
+    expect(f.standardErrors.sigma0).toBeGreaterThan(0);
+    expect(f.basis.held).toEqual(['b']);
+    expect(f.warnings.map((w) => w.code)).not.toContain('atBound');
+    // AIC counts the parameters fitted (two), not the law's three.
+    const free = fitLaw('voce', eps, sig);
+    expect(free.basis.held).toEqual([]);
+    expectRelClose(f.aic - 2 * 2, f.points * Math.log((f.rmse * f.rmse)), 1e-9, 'AIC with k = 2');
+  });
+
+  it('a held value outside the range or an unknown name is refused with the allowed range', () => {
+    expect(() => fitLaw('voce', eps, sig, { hold: { b: -1 } })).toThrow(/hold\.b.*\[/);
+    expect(() => fitLaw('voce', eps, sig, { hold: { c: 1 } })).toThrow(/sigma0, Q, b/);
+  });
+
+  it('the Swift–Voce blend holds α at 0.5 and fits the other six, no worse than its Swift and Voce parts', () => {
+    const f = fitLaw('swiftVoce', eps, sig, { hold: { alpha: BLEND_ALPHA }, start: { alpha: BLEND_ALPHA, ...fitLaw('swift', eps, sig).params, ...fitLaw('voce', eps, sig).params } });
+    expect(f.params.alpha).toBe(0.5);
+    expect(f.basis.held).toEqual(['alpha']);
+    expect(f.rmse).toBeLessThanOrEqual(Math.min(fitLaw('voce', eps, sig).rmse, fitLaw('swift', eps, sig).rmse) * (1 + 1e-9));
+  });
+});
+
+describe('hockettSherbyNearLudwik', () => {
+  it('starts Hockett–Sherby where it equals the Ludwik fit to first order: off by h²/(2(σsat − σ0)) for hardening h (Taylor series of exp)', () => {
+    const eL = Array.from({ length: 80 }, (_, i) => 0.003 + (0.15 * i) / 79);
+    const sL = eL.map((e) => 900 + 400 * e ** 0.3);
+    const lud = fitLaw('ludwik', eL, sL);
+    const start = hockettSherbyNearLudwik(lud);
+    expect(start.sigmaSat).toBe(1e5);
+    const hs = makeLaw({ law: 'hockettSherby', ...start } as never);
+    const ll = makeLaw({ law: 'ludwik', ...lud.params } as never);
+    for (const e of eL) {
+      const h = ll.stress(e) - lud.params.sigma0!;
+      const gap = ll.stress(e) - hs.stress(e); // exp(−x) = 1 − x + x²/2 − …: Hockett–Sherby falls short by h²/(2(σsat − σ0))
+      expectRelClose(gap, (h * h) / (2 * (start.sigmaSat! - start.sigma0!)), 0.01, `gap at ε ${e}`);
+    }
+  });
+});
