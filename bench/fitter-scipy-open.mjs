@@ -4,14 +4,15 @@
 // gtol = 1e-14, max_nfev 20000), from our start values: startValues for five laws, and for the Swift–Voce blend
 // the start fitLawGroup uses (α = 0.5 with our Swift and Voce fits), α free in SciPy. Prints the test's `ref` table
 // (RMSE per law, MPa). Needed whenever the record estimators move the flow curves.
-// Usage: npm run build && node bench/fitter-scipy-open.mjs
+// Usage: npm run build && node bench/fitter-scipy-open.mjs [DIR]   (DIR: another folder of records, e.g. the TS275 records
+// of ../shared/datasets/ts275-steel-tension for test/core/tensile/ts275-optional.test.ts)
 import { spawnSync } from 'node:child_process';
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { analyzeRecord, fitLaw, lawBounds, LAW_NAMES, startValues } from '../dist/core/index.js';
 import { parseRecordText } from '../dist/records/index.js';
 
-const dir = join(import.meta.dirname, '..', 'test', 'fixtures', '42crmos4');
+const dir = process.argv[2] ?? join(import.meta.dirname, '..', 'test', 'fixtures', '42crmos4');
 const input = [];
 for (const file of readdirSync(dir).filter((f) => f.endsWith('.csv')).sort()) {
   const fc = analyzeRecord(parseRecordText(readFileSync(join(dir, file), 'utf8'), { file }), { fit: false }).flowCurve;

@@ -137,14 +137,7 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   }
   start = start.map((v, j) => Math.min(upper[j]!, Math.max(lower[j]!, v)));
   const blockSize = reductionBlockSize(n);
-  let fitted = full;
-  if (blockSize > 1) {
-    if (full.blocks?.size !== blockSize) {
-      const b = blockAverage(full.x, full.y, blockSize);
-      full.blocks = { size: blockSize, data: lawData(b.x, b.y, b.w) };
-    }
-    fitted = full.blocks.data;
-  }
+  const fitted = fittedData(full);
   const res = levenbergMarquardtNormal(lawNormalProblem(law, fitted, lower, upper), start, {
     lower, upper, ...(opts.maxIterations !== undefined ? { maxIterations: opts.maxIterations } : {}) });
   const pass = opts.fullPassStats ? lawResidualStats(law, full, res.params) : curveResidualStats(law, full, res.params);
@@ -180,6 +173,22 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
     basis: { fittedPoints: fitted.x.length, blockSize, lag1Autocorrelation: eff.lag1, effectivePoints: eff.effectiveN, inflation: eff.inflation, held: info.filter((_, j) => held[j]).map((p) => p.name) },
   };
   return withLazyResiduals(fit, full, res.params);
+}
+
+/**
+ * The points fitLaw's solver works on: `full` itself, or for curves of more than
+ * REDUCTION_DEFAULTS.fitAllUpTo points its block averages ({@link blockAverage}, made once and kept on
+ * `full.blocks`, weighted by their counts). Units those of `full`.
+ * @example fittedData(lawData(eps, sigma)).x.length // ≤ 4000 points: all of them; more: about 2000 averages
+ */
+export function fittedData(full: LawData): LawData {
+  const blockSize = reductionBlockSize(full.x.length);
+  if (blockSize <= 1) return full;
+  if (full.blocks?.size !== blockSize) {
+    const b = blockAverage(full.x, full.y, blockSize);
+    full.blocks = { size: blockSize, data: lawData(b.x, b.y, b.w) };
+  }
+  return full.blocks.data;
 }
 
 /**

@@ -1,6 +1,7 @@
 import { linearRegression } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
-import { fitLaw, makeLaw } from '../../../src/core/index.js';
+import { fitAllLaws, fitLaw, lawData, makeLaw } from '../../../src/core/index.js';
+import { blendProjectedStart } from '../../../src/core/fit/blendProjection.js';
 import { BLEND_ALPHA, hockettSherbyNearLudwik } from '../../../src/core/fit/fitAllLaws.js';
 import { expectRelClose } from '../../helpers.js';
 
@@ -54,5 +55,28 @@ describe('hockettSherbyNearLudwik', () => {
       const gap = ll.stress(e) - hs.stress(e); // exp(−x) = 1 − x + x²/2 − …: Hockett–Sherby falls short by h²/(2(σsat − σ0))
       expectRelClose(gap, (h * h) / (2 * (start.sigmaSat! - start.sigma0!)), 0.01, `gap at ε ${e}`);
     }
+  });
+});
+
+describe('the blend fitted by variable projection when its own fit crawls (blendProjectedStart)', () => {
+  // INVENTED noise-free blend shaped like a real S275-class record (TS275_0003's SciPy optimum, its 113 points over
+  // ε 0.0021–0.0465): the blend's own fit from the Swift and Voce fits crawls 500 steps without converging there.
+  const truth = { alpha: 0.5, K: 1421, eps0: 0, n: 0.873, sigma0: 582, Q: 186, b: 38.5 };
+  const law = makeLaw({ law: 'swiftVoce', ...truth });
+  const x = Array.from({ length: 113 }, (_, i) => 0.0021 + (0.0444 * i) / 112);
+  const y = x.map((e) => law.stress(e));
+
+  it('fitAllLaws recovers the curve (RMSE < 1e-9 MPa), converged, and the six fitted parameters of the truth', () => {
+    const f = fitAllLaws(x, y).fits.find((g) => g.law === 'swiftVoce')!;
+    expect(f.converged).toBe(true);
+    expect(f.rmse).toBeLessThan(1e-9);
+    for (const k of ['K', 'n', 'sigma0', 'Q', 'b'] as const) expectRelClose(f.params[k]!, truth[k], 1e-6, k);
+    expect(f.params.eps0).toBeLessThan(1e-9);
+  });
+
+  it('the projection alone, from the Swift and Voce fits, lands on the truth: c = (αK, (1−α)σ0, (1−α)Q) solved exactly', () => {
+    const s = fitLaw('swift', x, y).params, v = fitLaw('voce', x, y).params;
+    const p = blendProjectedStart(lawData(x, y), { eps0: s.eps0!, n: s.n!, b: v.b! }, 0.5)!;
+    for (const k of ['K', 'n', 'sigma0', 'Q', 'b'] as const) expectRelClose(p[k]!, truth[k], 1e-5, k);
   });
 });
