@@ -8,6 +8,8 @@ import { forceMaximum } from './forceMaximum.js';
 import { recordNoiseWide } from './recordNoise.js';
 import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
 import { lawDataRanged, type LawData } from '../fit/lawNormalEquations.js';
+import { LAW_NAMES } from '../flow/params.js';
+import { lawUniformElongation } from './lawTop.js';
 import { flowColumns } from './flowColumns.js';
 import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { TensileAnalysis, TensileData, TensileWarning } from './types.js';
@@ -59,8 +61,11 @@ export const ANALYZE_DEFAULTS = {
  * plastic flow curve with statistics and an extrapolation spread.
  *
  * Conversions (Dowling, *Mechanical Behavior of Materials*, §4.5, valid to maximum force):
- * σ = s·(1 + e), ε = ln(1 + e), εp = ε − σ/E. Ag = e(Fm) − Rm/E, Agt = e(Fm), A = e_f − s_f/E
- * (ISO 6892-1 §3.6.4–3.6.6 read from the extensometer record), all toe-compensated.
+ * σ = s·(1 + e), ε = ln(1 + e), εp = ε − σ/E. Ag = e(Fm) − Rm/E, Agt = Ag + Rm/E, A = e_f − s_f/E
+ * (ISO 6892-1 §3.6.4–3.6.6 read from the extensometer record), all toe-compensated. Fm is placed by the
+ * local top model, or by the six hardening laws fitted to the flow curve where their maximum of force lies
+ * inside the top model's 95 % interval ({@link lawUniformElongation}; the six are fitted for this even with
+ * `fit: false` or fewer `laws`, so Ag does not depend on those options).
  * Units: strain fraction, stress MPa in; MPa and % out. Valid: a record with an elastic rise and a
  * maximum of force, finite numbers.
  * @throws InputError naming the field and index for non-finite values or too few points.
@@ -175,11 +180,10 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const Rm = fm.stress;
   const iMax = fm.index;
   const eM = fm.strain - toe;
-  const Ag = (eM - Rm / E) * 100;
-  const Agt = eM * 100;
+  // Ag of the local top model; the hardening laws may place it more tightly inside its interval (below, lawTop.ts).
+  const agTop = (eM - Rm / E) * 100;
   const agCi: [number, number] = [(fm.strainInterval95[0] - toe - Rm / E) * 100, (fm.strainInterval95[1] - toe - Rm / E) * 100];
-  if ((agCi[1] - agCi[0]) / 2 > AG_SHARP_PCT) warnings.push({ code: 'uncertainAg', message: `Ag ${Ag.toFixed(2)} % is uncertain: the top is flat within the noise, so maximum force could lie anywhere from Ag ${agCi[0].toFixed(2)} % to ${agCi[1].toFixed(2)} % (95 % interval, ±${((agCi[1] - agCi[0]) / 2).toFixed(2)} points)` });
-  if (fm.flat) warnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; Ag is read at the middle of the flat part (±${((fm.span[1] - fm.span[0]) * 50).toFixed(2)} points)` });
+  const agWarningsAt = warnings.length; // Ag's warnings go here once Ag is known
 
   const necked = !detected && stress[N - 1]! < 0.9 * Rm;
   // The test stopped before maximum force: no fracture and the top fit reaches the last samples.
@@ -243,6 +247,26 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
       warnings.push({ code: 'fewFlowPoints', message: `only ${fStrain.length} points on the plastic flow curve up to maximum force; no law fitted` });
     }
   }
+  // Ag from the hardening laws fitted to the uniform part of the curve (their maximum of engineering stress, held
+  // inside the top model's 95 % interval, Akaike-weighted; lawTop.ts). Always the six laws, whichever laws were
+  // asked for (or none, fit: false), so that Ag does not depend on that choice; not where the record ends before
+  // maximum force (the laws would extrapolate) or the flow curve is too short to fit.
+  let agLaws = null;
+  if (!warnings.some((w) => w.code === 'maxAtEnd') && packed && packed.bad < 0 && fStrain.length >= 9) {
+    let six = fits && LAW_NAMES.every((l) => fits!.fits.some((f) => f.law === l)) ? fits.fits : null;
+    if (!six) {
+      try { six = fitAllLaws(fStrain, fStress, { packed }).fits; } catch { six = null; }
+    }
+    if (six) agLaws = lawUniformElongation(six, E, agCi);
+  }
+  const byLaws = agLaws?.pct ?? null;
+  const Ag = byLaws ?? agTop;
+  const Agt = Ag + (Rm / E) * 100;
+  const agWarnings: TensileWarning[] = [];
+  if ((agCi[1] - agCi[0]) / 2 > AG_SHARP_PCT) agWarnings.push({ code: 'uncertainAg', message: `Ag ${Ag.toFixed(2)} % is uncertain: the top is flat within the noise, so maximum force could lie anywhere from Ag ${agCi[0].toFixed(2)} % to ${agCi[1].toFixed(2)} % (95 % interval, ±${((agCi[1] - agCi[0]) / 2).toFixed(2)} points)${byLaws !== null ? '; the fitted hardening laws place it at the value given' : ''}` });
+  if (fm.flat) agWarnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; ${byLaws !== null ? 'Ag is read where the fitted hardening laws reach maximum force, inside that flat part' : `Ag is read at the middle of the flat part (±${((fm.span[1] - fm.span[0]) * 50).toFixed(2)} points)`}` });
+  warnings.splice(agWarningsAt, 0, ...agWarnings);
+
   let modulusDecay = null;
   if (cycles.length) {
     const ep = cycles.map((c) => c.permanentStrain);
@@ -257,7 +281,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     measuredModulus: el.modulus,
     measuredModulusInterval95: el.window.interval95,
     noise,
-    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, method: 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at the Akaike-weighted vertex of this kinked top and a smooth one (one curvature both sides), or at the middle of a top flat within the noise' },
+    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, topModelUniformElongationPct: agTop, lawUniformElongation: agLaws, method: (byLaws !== null ? 'Ag where the hardening laws fitted to the uniform part of the curve reach maximum engineering stress (Considère with the elastic strain counted), Akaike-weighted over the laws whose maximum lies inside the 95 % interval of the top model below; ' : '') + 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at the Akaike-weighted vertex of this kinked top and a smooth one (one curvature both sides), or at the middle of a top flat within the noise' },
     elasticWindow: el.window,
     toeStrain: toe,
     proofStrength: proof?.stress ?? null,

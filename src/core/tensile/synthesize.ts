@@ -1,4 +1,5 @@
 import { InputError } from '../errors.js';
+import { lawTopPlasticStrain } from './lawTop.js';
 import { makeLaw } from '../flow/makeLaw.js';
 import type { LawSpec } from '../flow/types.js';
 import { chordModulus, type ModulusDecay } from '../material/modulus.js';
@@ -126,12 +127,22 @@ export function synthesizeRecord(spec: SynthSpec): SynthRecord {
     outE.push(e[i]! + toe);
     outS.push(s[i]! + (noise > 0 ? noise * gauss() : 0));
   }
+  // The truth's maximum force: where the law's engineering stress stops rising (σ'·(1 − σ/E) = σ, lawTop.ts), not
+  // the highest sample (2e-4 strain apart, up to 0.02 point of Ag away); the sampled top where that root is not on
+  // the hardening curve (a law whose maximum the yield point outranks).
+  const epTop = lawTopPlasticStrain(law, E);
+  let RmT = Rm, agT = (eM - Rm / E) * 100;
+  if (epTop !== null && epTop >= ep0 && epTop <= eu && law.stress(epTop) / Math.exp(epTop + law.stress(epTop) / E) >= Rm) {
+    const sig = law.stress(epTop), en = Math.expm1(epTop + sig / E);
+    RmT = sig / (1 + en);
+    agT = (en - RmT / E) * 100;
+  }
   return {
     strain: outE,
     stress: outS,
     truth: {
-      tensileStrength: Rm,
-      uniformElongationPct: (eM - Rm / E) * 100,
+      tensileStrength: RmT,
+      uniformElongationPct: agT,
       totalElongationPct: spec.necking ? (eF - sF / E) * 100 : (e[e.length - 1]! - s[s.length - 1]! / E) * 100,
       uniformStrain: eu,
       lowerYield: spec.yieldPoint ? sigY : null,

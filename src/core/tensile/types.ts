@@ -1,3 +1,4 @@
+import type { LawTop } from './lawTop.js';
 import type { LawComparison } from '../fit/fitAllLaws.js';
 
 /** A tensile record as the core takes it: engineering strain (fraction) and engineering stress (MPa), same length. */
@@ -100,6 +101,15 @@ export interface TensileAnalysis {
     points: number; span: [number, number]; flat: boolean; method: string;
     /** 95 % interval of Ag, % (profile of the top fit over the position of maximum force; see `forceMaximum`). */
     uniformElongationInterval95: [number, number];
+    /** Ag of the local top model alone, % (the reported Ag where no law applies). */
+    topModelUniformElongationPct: number;
+    /**
+     * Ag from the six hardening laws fitted to the flow curve (lawUniformElongation): each law's own Ag, Akaike
+     * weight and whether it lies inside the interval above, and their weighted mean over those inside (the
+     * reported Ag; null when they hold less than half the weight); null where the record ends before maximum
+     * force or no law was fitted.
+     */
+    lawUniformElongation: LawTop | null;
   };
   elasticWindow: ElasticWindow;
   /** Toe correction: strain where the elastic line meets zero stress (subtracted from all strains). */

@@ -30,9 +30,12 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 5000 + i);
 // misses (the truth outside the interval 80 → 0 of 200; the estimate itself unchanged, still 0.15 point late on
 // average here). The toe read from the band's samples up to 40 % of Rp0.2 (microplastic strain above it on round-house
 // curves): noise-free Rp0.2 misses at a quarter of the tolerance 6 → 2, noisy Ag 12 → 11.
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 5, Ag: 11, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
-const CEILINGS_CLEAN: Record<string, number> = { Ag: 83, A: 3, quietE: 6, Ae: 3, 'Rp0.2': 2 };
-const AG_OFF_NOISY = 67, AG_OFF_CLEAN = 170;
+// Seventh session: Ag from the fitted hardening laws where their maximum lies inside the top model's interval
+// (lawTop.ts; the laws are not this generator's, Ramberg–Osgood and Hollomon with a rounded top): noisy Ag off
+// 67 → 20, outside its interval 11 → 9; noise-free off at a quarter of the tolerance 170 → 5, misses 83 → 0.
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 5, Ag: 9, ReH: 1, Ae: 1, quietE: 1, missedYield: 2, Rm: 1 };
+const CEILINGS_CLEAN: Record<string, number> = { A: 3, quietE: 6, Ae: 3, 'Rp0.2': 2 };
+const AG_OFF_NOISY = 20, AG_OFF_CLEAN = 5;
 
 
 describe('record analysis on 200 hold-out B INVENTED records (a second generator the analysis was not tuned on)', () => {

@@ -37,7 +37,9 @@ const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 4, ReH: 2, 'Rp0.2': 
 // Sixth session: the top fit's bound test allows rounding (a side tied to zero end slope, on its bound by
 // construction, had been refused at random): 28 of the 760 noisy records of the four generators moved by 0.01–0.14
 // point either way, and seed 1110 from 0.398 to 0.423 point off: 52 → 53.
-const AG_OFF_NOISY = 53;
+// Seventh session: Ag from the fitted hardening laws where their maximum lies inside the top model's interval
+// (lawTop.ts): 53 → 29; outside the interval unchanged (4).
+const AG_OFF_NOISY = 29;
 // Noise-free: met on every seed (ReH was read at a moving average on 3 clean records whose peak sample sat just past
 // the peak, 0.5–0.7 % low: the knee test now leaves the peak sample out).
 const CEILINGS_CLEAN: Record<string, number> = {};

@@ -53,7 +53,9 @@ describe('Ag on 120 INVENTED records with an inflected necking branch', () => {
   // or early reading on inflected branches — what the wider necking reach did on the real records — fails it.
     expect(errs.length).toBe(120);
     expect(Math.abs(m)).toBeLessThan(0.1);
-    expect(off).toBeLessThanOrEqual(28);
+    // Seventh session, Ag from the fitted laws inside the top model's interval (lawTop.ts; the curve is Swift up to
+    // maximum force): off 28 → 12, mean −0.018.
+    expect(off).toBeLessThanOrEqual(12);
     expect(out).toBe(0);
   }, 600000);
 });

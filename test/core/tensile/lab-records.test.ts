@@ -116,9 +116,13 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // was bounded to a top that falls away from its vertex on both sides — an unbounded side rose past the vertex and
     // read Ag up to 7 points early — and Ag became the Akaike-weighted mean of a kinked and a smooth top). Almost all
     // are coarse (1,000–10,000 points) with noise above 0.4 % of Rm.
-    expect(r.agOff).toBeLessThanOrEqual(51);
-    // Of those, warned with a 95 % interval wider than ±0.4 point that holds the truth: 46 (107 before).
-    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(46);
+    // Seventh session: Ag from the hardening laws fitted to the uniform part where their maximum lies inside the top
+    // model's interval (lawTop.ts), and the truth at the curve's own maximum of force (the generator had read it at the
+    // rigid-plastic Considère strain, 0.03–0.17 point late): 51 → 16 (44 for the top model alone against that truth).
+    expect(r.agOff).toBeLessThanOrEqual(16);
+    // Of those, warned with a 95 % interval wider than ±0.4 point that holds the truth: 11 (46 before the laws, 107
+    // before the bounded top model).
+    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(11);
     // The acceptances stay the exception, and each kind is exercised (so the conditions above can fail).
     expect(r.accepted['E refused']?.length ?? 0).toBeLessThanOrEqual(6);
     expect(r.accepted[`drop not reported (evidence < ${MIN_EVIDENCE})`]?.length ?? 0).toBeLessThanOrEqual(8);

@@ -1,0 +1,68 @@
+import { describe, expect, it } from 'vitest';
+import { LAW_NAMES, makeLaw, synthesizeLabRecord, xoshiro128ss, analyzeRecord, type LawSpec } from '../../../src/core/index.js';
+import { lawTopPlasticStrain, lawUniformElongation } from '../../../src/core/tensile/lawTop.js';
+import type { LawFit } from '../../../src/core/fit/types.js';
+import { labCase } from './lab-records.helpers.js';
+
+// One INVENTED parameter set per law (engineering-metal magnitudes).
+const LAWS: LawSpec[] = [
+  { law: 'hollomon', K: 530, n: 0.22 },
+  { law: 'ludwik', sigma0: 250, K: 500, n: 0.45 },
+  { law: 'swift', K: 600, eps0: 0.01, n: 0.2 },
+  { law: 'voce', sigma0: 250, Q: 200, b: 12 },
+  { law: 'hockettSherby', sigmaSat: 520, sigma0: 240, a: 6, p: 0.8 },
+  { law: 'swiftVoce', alpha: 0.5, K: 600, eps0: 0.01, n: 0.2, sigma0: 250, Q: 200, b: 12 },
+];
+const E = 200000;
+
+describe('lawTopPlasticStrain: where a law with elastic strain reaches maximum engineering stress', () => {
+  it('Hollomon: εu = n·(1 − σ/E), and εu → n as E → ∞ (Considère: necking at ε = n for Kεⁿ; Dieter, Mechanical Metallurgy)', () => {
+    const L = makeLaw({ law: 'hollomon', K: 530, n: 0.22 });
+    const eu = lawTopPlasticStrain(L, E)!;
+    expect(Math.abs(eu - 0.22 * (1 - L.stress(eu) / E))).toBeLessThan(1e-12);
+    expect(Math.abs(lawTopPlasticStrain(L, 1e15)! - 0.22)).toBeLessThan(1e-9);
+  });
+  for (const spec of LAWS) {
+    it(`${spec.law}: the highest engineering stress s = σ·exp(−εp − σ/E) on a 1e-6 grid lies within one step of it`, () => {
+      const L = makeLaw(spec);
+      const eu = lawTopPlasticStrain(L, E)!;
+      let best = 0, bestS = -Infinity;
+      for (let k = 1; k <= 1_000_000; k++) { const ep = k * 1e-6; const s = L.stress(ep) * Math.exp(-ep - L.stress(ep) / E); if (s > bestS) { bestS = s; best = ep; } }
+      expect(Math.abs(eu - best)).toBeLessThanOrEqual(1.5e-6);
+    });
+  }
+});
+
+describe('lawUniformElongation: Ag from the fitted laws, only inside the top model\'s interval', () => {
+  const fit = (spec: LawSpec, aic: number) => ({ law: spec.law, params: { ...spec }, converged: true, aic } as unknown as LawFit);
+  const agOf = (spec: LawSpec) => { const L = makeLaw(spec); const ep = lawTopPlasticStrain(L, E)!; const s = L.stress(ep); const e = Math.expm1(ep + s / E); return (e - s / (1 + e) / E) * 100; };
+  it('the Akaike-weighted mean of the laws inside the interval; null pct when those hold less than half the weight', () => {
+    const a = fit(LAWS[2]!, 0), b = fit(LAWS[3]!, 2); // weights 1 : e⁻¹
+    const agA = agOf(LAWS[2]!), agB = agOf(LAWS[3]!);
+    const both = lawUniformElongation([a, b], E, [Math.min(agA, agB) - 1, Math.max(agA, agB) + 1])!;
+    const w = Math.exp(-1);
+    expect(both.pct!).toBeCloseTo((agA + w * agB) / (1 + w), 10);
+    // Only the worse law inside: it holds e⁻¹/(1 + e⁻¹) ≈ 27 % of the weight, too little.
+    const lo = Math.min(agB - 0.01, agB + 0.01), hi = agB + 0.01;
+    expect(Math.abs(agA - agB)).toBeGreaterThan(0.05);
+    const onlyB = lawUniformElongation([a, b], E, [lo, hi])!;
+    expect(onlyB.pct).toBeNull();
+    expect(onlyB.laws.map((l) => l.inside)).toEqual([false, true]);
+  });
+});
+
+describe('Ag on the noise-free property-test records (INVENTED, labCase): the laws read the top exactly', () => {
+  it('Ag within 0.1 point of the truth (the curve\'s own maximum of force) on at least 239 of 240; the top model alone missed 73', () => {
+    let off = 0;
+    const worst: string[] = [];
+    for (let seed = 0; seed < 240; seed++) {
+      const c = labCase(seed);
+      const rec = synthesizeLabRecord({ ...c.spec, noise: 0, rng: xoshiro128ss(seed) });
+      let a;
+      try { a = analyzeRecord(rec, { fit: false }); } catch { a = analyzeRecord(rec, { fit: false, elasticModulus: rec.truth.elasticModulus }); }
+      const err = a.uniformElongationPct - rec.truth.uniformElongationPct;
+      if (Math.abs(err) > 0.1) { off++; worst.push(`${c.what}: ${err.toFixed(3)}`); }
+    }
+    expect(off, worst.join('\n')).toBeLessThanOrEqual(1);
+  }, 240_000);
+});
