@@ -206,6 +206,7 @@ nb.cell({ name: 'input', fn: () => null })
             q('ReL (lower yield)', a.lowerYield, DIGITS.stress, 'MPa', 'lowerYield'),
             q('Ae (yield point extension)', a.yieldPointElongationPct, 2, '%', 'yieldPointElongation')] : []),
           q('yield ratio Rp/Rm', a.proofStrength === null ? null : a.proofStrength / a.tensileStrength, DIGITS.ratio, '', 'yieldRatio', { none: 'not determined' })),
+        h('p', { id: 'ag-basis' }, agBasis(a)),
         h('p', { id: 'elastic-window' }, `Elastic window: ${fixed(w.fromStress, 0)} to ${fixed(w.toStress, 0)} MPa, ${w.points} points, R² ${fixed(w.r2, 5)}, standard error of E ${fixed(w.standardError, 0)} MPa (${w.method}).`),
         a.cycles.length ? h('p', { id: 'modulus-decay' }, `${a.cycles.length} unload–reload loops; unloading chord modulus ${a.cycles.map((c) => fixed(c.unloadModulus, 0)).join(', ')} MPa`,
           a.modulusDecay?.converged ? `; fitted E(ε̄) = E0 − (E0 − Ea)(1 − exp(−ξ·ε̄)) with Ea ${fixed(a.modulusDecay.Ea, 0)} MPa, ξ ${fixed(a.modulusDecay.xi, 1)} (sent with the law).` : '.') : null,
@@ -288,3 +289,12 @@ const demo = examples[0];
 if (demo) load({ name: demo[0].split('/').pop()!, text: demo[1], demo: true }, {});
 else drawMapping();
 expose('records', nb);
+
+/** Where Ag was read: the fitted laws' maximum of force inside the top model's interval, or the top model (lawTop.ts). */
+function agBasis(a: { forceMaximum: { uniformElongationInterval95: [number, number]; lawUniformElongation: { pct: number | null } | null } }): string {
+  const [lo, hi] = a.forceMaximum.uniformElongationInterval95;
+  const range = `${fixed(lo, 2)} to ${fixed(hi, 2)} %`;
+  return a.forceMaximum.lawUniformElongation?.pct != null
+    ? `Ag: where the fitted hardening laws reach maximum force, inside the range the samples near the top allow (95 %: ${range}).`
+    : `Ag: from a local fit of the samples near the top (95 %: ${range}); the fitted laws' maximum of force lies outside that range and is not used.`;
+}

@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { MaterialSchema } from '../../src/plan/schema.js';
+import { synthesizeLabRecord, xoshiro128ss } from '../../src/core/index.js';
 import { expectRelClose } from '../helpers.js';
 
 // Runs the shipped runner (bin/ → dist/) as a user would; test/globalSetup.ts builds dist/ first.
@@ -47,6 +48,21 @@ describe('strainledger analyze RECORD --format json', () => {
     expect(sv.standardErrors.alpha).toBeNull();
     expect(sv.standardErrors.K).toBeGreaterThan(0);
     for (const f of j.fits) if (f.law !== 'swiftVoce') expect(f.basis.held, f.law).toEqual([]);
+  });
+  it('says how Ag was read: from the samples near the top on a real record whose laws peak above that range, from the laws on an INVENTED Swift record', () => {
+    const real = run('analyze', join(FIX, '46NTA1.csv'));
+    expect(real.stdout).toMatch(/Ag \/ Agt \/ A [\d.]+ .*\(Ag from the samples near the top, 95 % range [\d.]+–[\d.]+ %\)/);
+    const j = JSON.parse(run('analyze', join(FIX, '46NTA1.csv'), '--format', 'json').stdout);
+    expect(j.forceMaximum.lawUniformElongation.pct).toBeNull();
+    expect(j.uniformElongationPct).toBe(j.forceMaximum.topModelUniformElongationPct);
+    // INVENTED: Swift K 600, ε0 0.01, n 0.2, E 200 GPa, 4,000 points, 1 MPa noise (seeded).
+    const rec = synthesizeLabRecord({ law: { law: 'swift', K: 600, eps0: 0.01, n: 0.2 }, elasticModulus: 200000, points: 4000, noise: 1, rng: xoshiro128ss(5) });
+    const file = join(dir, 'invented-swift.csv');
+    writeFileSync(file, 'strain,stress_MPa\n' + Array.from(rec.strain, (e, i) => `${e},${rec.stress[i]}`).join('\n') + '\n');
+    const inv = run('analyze', file);
+    expect(inv.stdout).toContain('(Ag where the fitted laws reach maximum force, inside the top');
+    const k = JSON.parse(run('analyze', file, '--format', 'json').stdout);
+    expect(Math.abs(k.uniformElongationPct - rec.truth.uniformElongationPct)).toBeLessThan(0.1);
   });
   it('table: a continuous record says "none (continuous yielding)"; a record cut before maximum force marks Rm, Ag and A as lower bounds', () => {
     const full = run('analyze', join(FIX, '46NT9B.csv'));

@@ -112,7 +112,11 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   // A record that stops before maximum force gives lower bounds, marked ≥ (the warning below says why).
   const ge = a.warnings.some((x) => x.code === 'maxAtEnd') ? '≥ ' : '';
   lines.push(`  Rm           ${ge}${fmt(a.tensileStrength)} MPa`);
-  lines.push(`  Ag / Agt / A ${ge}${fmt(a.uniformElongationPct, 2)} / ${ge}${fmt(a.uniformTotalElongationPct, 2)} / ${ge}${fmt(a.totalElongationPct, 2)} %${ge ? '   (the record ends before maximum force)' : ''}`);
+  const agCi = a.forceMaximum.uniformElongationInterval95;
+  const agHow = ge ? '   (the record ends before maximum force)'
+    : a.forceMaximum.lawUniformElongation?.pct != null ? `   (Ag where the fitted laws reach maximum force, inside the top's 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`
+      : `   (Ag from the samples near the top, 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`;
+  lines.push(`  Ag / Agt / A ${ge}${fmt(a.uniformElongationPct, 2)} / ${ge}${fmt(a.uniformTotalElongationPct, 2)} / ${ge}${fmt(a.totalElongationPct, 2)} %${agHow}`);
   lines.push(`  n, K         ${fmt(a.nValue, 4)}, ${fmt(a.K, 0)} MPa (ISO 10275)`);
   if (a.fits) {
     lines.push('  law             RMSE MPa   R²        AIC      converged  parameters');
