@@ -247,8 +247,8 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
       warnings.push({ code: 'fewFlowPoints', message: `only ${fStrain.length} points on the plastic flow curve up to maximum force; no law fitted` });
     }
   }
-  // Ag from the hardening laws fitted to the uniform part of the curve (their maximum of engineering stress, held
-  // inside the top model's 95 % interval, Akaike-weighted; lawTop.ts). Always the six laws, whichever laws were
+  // Ag from the hardening laws fitted to the uniform part of the curve (their maximum of engineering stress, used
+  // where it lies inside the top model's 95 % interval, Akaike-weighted; lawTop.ts). Always the six laws, whichever laws were
   // asked for (or none, fit: false), so that Ag does not depend on that choice; not where the record ends before
   // maximum force (the laws would extrapolate) or the flow curve is too short to fit.
   let agLaws = null;
