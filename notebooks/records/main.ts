@@ -294,7 +294,7 @@ expose('records', nb);
 function agBasis(a: { forceMaximum: { uniformElongationInterval95: [number, number]; lawUniformElongation: { pct: number | null } | null } }): string {
   const [lo, hi] = a.forceMaximum.uniformElongationInterval95;
   const range = `${fixed(lo, 2)} to ${fixed(hi, 2)} %`;
-  return a.forceMaximum.lawUniformElongation?.pct != null
-    ? `Ag: where the fitted hardening laws reach maximum force, inside the range the samples near the top allow (95 %: ${range}).`
-    : `Ag: from a local fit of the samples near the top (95 %: ${range}); the fitted laws' maximum of force lies outside that range and is not used.`;
+  const laws = a.forceMaximum.lawUniformElongation;
+  if (laws?.pct != null) return `Ag: where the fitted hardening laws reach maximum force, inside the range the samples near the top allow (95 %: ${range}).`;
+  return `Ag: from a local fit of the samples near the top (95 %: ${range})${laws ? '; the fitted laws put maximum force outside that range, so they are not used' : ''}.`;
 }

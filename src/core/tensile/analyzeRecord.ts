@@ -20,8 +20,12 @@ export interface AnalyzeOptions {
   proofOffsetPct?: number;
   /** n-value range in engineering strain (fraction), e.g. [0.1, 0.2]; default: end of yield effects to maximum force. */
   nRange?: [number, number];
-  /** Fit the hardening laws (default true). */
+  /**
+   * Report the hardening laws' fits (default true). Ag uses the six laws' fits either way (lawTop.ts), so with
+   * `fit: false` they are still made, only not reported.
+   */
   fit?: boolean;
+  /** The laws to report (default all six); Ag uses all six whatever this says. */
   laws?: readonly LawName[];
   /** Strains a route reaches, checked for disagreement between laws. */
   checkStrains?: readonly number[];
