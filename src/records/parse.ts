@@ -49,7 +49,7 @@ export function csvProblem(e: unknown, file: string): Error {
  * Handles comma, semicolon or tab separators; decimal point or comma; UTF-8 with or without BOM;
  * CRLF or LF; key/value metadata lines before the header; an optional units row; columns found by
  * name (`Stress [MPa]`, `stress_MPa`, `Strain (%)`, force, extension, ...) or mapped explicitly;
- * units MPa, N/mm², GPa, ksi, psi; N, kN, lbf; mm, in; strain fraction or %. CSV cells are split by
+ * units MPa, N/mm², MN/m², GPa, kPa, Pa, kN/cm², ksi, psi (lbf/in²), kgf/mm²; N, kN, lbf, kip, kgf; mm, in; strain fraction, % or µε. CSV cells are split by
  * a fast scanner ({@link RowScanner}) when the rows are plain, else by csv-parse (RFC 4180 quoting)
  * with line information; cells are converted as they are read, so memory is 16 bytes a row.
  * @throws PlanError naming the file, line, column and what was expected for any malformed input.

@@ -1,8 +1,19 @@
 /** Units a record may come in, and their factors to the core's units (MPa, N, mm, strain fraction). */
 export const STRESS_UNITS: Readonly<Record<string, number>> = {
   mpa: 1, 'n/mm²': 1, 'n/mm2': 1, 'n/mm^2': 1, 'n/mm**2': 1, gpa: 1000, kpa: 1e-3, pa: 1e-6,
-  // 1 ksi = 6.894757293168361 MPa, 1 psi = 0.006894757293168361 MPa (NIST SP 811, Appendix B.8).
+  'n/m²': 1e-6, 'n/m2': 1e-6, 'n/m^2': 1e-6, 'n/cm²': 0.01, 'n/cm2': 0.01, 'n/cm^2': 0.01,
+  // kN/cm² (10 MPa) as structural-steel tables write it (common practice).
+  'kn/cm²': 10, 'kn/cm2': 10, 'kn/cm^2': 10, 'kn/mm²': 1000, 'kn/mm2': 1000, 'kn/mm^2': 1000,
+  // 1 ksi = 6.894757293168361 MPa, 1 psi = 0.006894757293168361 MPa (NIST SP 811, Appendix B.8); psi written out
+  // as pound-force per square inch.
   ksi: 6.894757293168361, psi: 0.006894757293168361,
+  'lbf/in²': 0.006894757293168361, 'lbf/in2': 0.006894757293168361, 'lbf/in^2': 0.006894757293168361,
+  'lb/in²': 0.006894757293168361, 'lb/in2': 0.006894757293168361, 'lb/in^2': 0.006894757293168361,
+  'kip/in²': 6.894757293168361, 'kip/in2': 6.894757293168361, 'kip/in^2': 6.894757293168361,
+  // Kilogram-force per square millimetre (and per cm²) of older certificates: 1 kgf = 9.80665 N (NIST SP 811,
+  // Appendix B.8), so 1 kgf/mm² = 9.80665 MPa; 'kg/mm²' as such certificates write it (common practice).
+  'kgf/mm²': 9.80665, 'kgf/mm2': 9.80665, 'kgf/mm^2': 9.80665, 'kg/mm²': 9.80665, 'kg/mm2': 9.80665, 'kg/mm^2': 9.80665,
+  'kgf/cm²': 0.0980665, 'kgf/cm2': 0.0980665, 'kgf/cm^2': 0.0980665, 'kg/cm²': 0.0980665, 'kg/cm2': 0.0980665, 'kg/cm^2': 0.0980665,
 };
 export const FORCE_UNITS: Readonly<Record<string, number>> = {
   // 1 lbf = 4.4482216152605 N, 1 kgf = 9.80665 N (NIST SP 811, Appendix B.8); 'lb'/'lbs' as US exports
@@ -51,13 +62,18 @@ export function unitFactor(q: Exclude<Quantity, 'time'>, unit: string): number |
     const raw = unit.trim().replace(/^[[({<]\s*(.*?)\s*[\])}>]$/, '$1').trim();
     return raw === 'MN' ? 1e6 : raw === 'mN' ? 1e-3 : undefined;
   }
+  // MN/m² is the MPa of older British standards; mN/m² (10⁻⁹ MPa) is no tensile stress: only the capital M is read.
+  if (q === 'stress' && /^mn\/m(²|2|\^2)$/.test(k)) {
+    const raw = unit.trim().replace(/^[[({<]\s*(.*?)\s*[\])}>]$/, '$1').replace(/\s+/g, '');
+    return /^MN\/m(²|2|\^2)$/.test(raw) ? 1 : undefined;
+  }
   return Object.prototype.hasOwnProperty.call(t, k) ? t[k] : undefined;
 }
 
 /** Allowed unit names of a quantity, for messages. */
 export function allowedUnits(q: Exclude<Quantity, 'time'>): string {
   switch (q) {
-    case 'stress': return 'MPa, N/mm², GPa, ksi, psi';
+    case 'stress': return 'MPa, N/mm², MN/m², GPa, kPa, Pa, kN/cm², ksi, psi (lbf/in²), kgf/mm²';
     case 'force': return 'N, kN, lbf, kip, kgf';
     case 'length': return 'mm, in, m, cm, µm';
     case 'strain': return 'a fraction (-, mm/mm, in/in), %, mm/m or µε (microstrain)';

@@ -47,6 +47,13 @@ describe('parseRecordText(text) reads what labs export', () => {
     check(csv('Strain [%],Stress [ksi]', ',', '.', ([e, s]) => [e, s / 6.894757293168361]));
     check(csv('Strain [%],Stress [psi]', ',', '.', ([e, s]) => [e, (s / 6.894757293168361) * 1000]));
   });
+  it('stress in kgf/mm², lbf/in², MN/m² and kN/cm² is converted to MPa (NIST SP 811 B.8: 1 kgf = 9.80665 N; MN/m² = MPa by the SI)', () => {
+    check(csv('Strain [%],Stress [kgf/mm²]', ',', '.', ([e, s]) => [e, s / 9.80665]));
+    check(csv('Strain [%],Stress (kg/mm2)', ',', '.', ([e, s]) => [e, s / 9.80665]));
+    check(csv('Strain [%],Stress (lbf/in²)', ',', '.', ([e, s]) => [e, (s / 6.894757293168361) * 1000]));
+    check(csv('Strain [%],Stress (MN/m²)', ',', '.', ([e, s]) => [e, s]));
+    check(csv('Strain [%],Stress [kN/cm²]', ',', '.', ([e, s]) => [e, s / 10]));
+  });
   it('strain as a fraction (mm/mm) and columns in another order', () => {
     check(['Time [s],Stress [MPa],Strain [mm/mm]', ...ROWS.map(([e, s], i) => `${i},${s},${e / 100}`)].join('\n'));
   });
@@ -82,7 +89,7 @@ describe('parseRecordText(bad record) names the line, the column and what was ex
     ['binary content', 'Strain,Stress\n\u0000\u0001\u0002PK\u0003\u0004', /binary content \(character U\+0000\)/, 2, 1],
     ['hostile column names', csv('__proto__,constructor'), /no strain and stress columns, nor force and extension; the header has "__proto__", "constructor"/, 1, 1],
     ['a row shorter than the header', csv('Strain [%],Stress [MPa]').replace('\n0.25,505', '\n0.25'), /the row has 1 fields; expected 2 as in the header \(line 1\)/, 7, 2],
-    ['an unknown stress unit', csv('Strain [%],Stress [bar]'), /unit "bar" is not a stress unit; allowed MPa, N\/mm², GPa, ksi, psi/, 1, 2],
+    ['an unknown stress unit', csv('Strain [%],Stress [bar]'), /unit "bar" is not a stress unit; allowed MPa, N\/mm², MN\/m², GPa, kPa, Pa, kN\/cm², ksi, psi \(lbf\/in²\), kgf\/mm²/, 1, 2],
     ['force without a cross-section', csv('Force [kN],Extension [mm]'), /needs the cross-section .* missing the cross-section/, 1, undefined],
     ['numbers with no header', ROWS.map((r) => r.join(',')).join('\n'), /no header line: the file starts with numbers/, 1, 1],
     ['one column only', 'stress\n1\n2\n', /only one column found/, 3, 1],

@@ -51,6 +51,17 @@ describe('unitFactor(quantity, unit) for the units labs write', () => {
     for (const u of ['N/mm²', 'N/mm2', '[MPa]', '(MPa)']) expect(unitFactor('stress', u), u).toBe(1);
     expectRelClose(unitFactor('stress', '(ksi)')!, 6.894757, 1e-6, 'ksi');
   });
+  it('stress of older certificates and other practice: kgf/mm² = 9.80665 MPa (1 kgf = 9.80665 N, NIST SP 811 B.8); lbf/in² = psi; MN/m² = N/m² × 10⁶ = MPa, kN/cm² = 10 MPa (SI)', () => {
+    for (const u of ['kgf/mm²', '(kgf/mm2)', '[kg/mm²]', 'kgf/mm^2']) expectRelClose(unitFactor('stress', u)!, 9.80665, 1e-12, u);
+    for (const u of ['lbf/in²', 'lb/in2', '(lbf/in^2)']) expectRelClose(unitFactor('stress', u)!, 0.006894757, 1e-6, u);
+    for (const u of ['MN/m²', '[MN/m2]', 'MN/m^2']) expect(unitFactor('stress', u), u).toBe(1);
+    expect(unitFactor('stress', 'N/m²')).toBe(1e-6);
+    expect(unitFactor('stress', 'kN/cm²')).toBe(10);
+    expectRelClose(unitFactor('stress', 'kgf/cm²')!, 0.0980665, 1e-12, 'kgf/cm²');
+    // mN/m² (10⁻⁹ MPa) is no tensile stress: the case that tells it from MN/m² is kept, a lower-case "mn/m²" refused.
+    expect(unitFactor('stress', 'mN/m²')).toBeUndefined();
+    expect(unitFactor('stress', 'mn/m2')).toBeUndefined();
+  });
   it('force: lbf = 4.448222 N (NIST SP 811 B.8), kN = 1000 N; length: in = 25.4 mm', () => {
     expectRelClose(unitFactor('force', 'lbf')!, 4.448222, 1e-6, 'lbf');
     expect(unitFactor('force', '[kN]')).toBe(1000);
