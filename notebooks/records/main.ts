@@ -100,7 +100,7 @@ function drawMapping(): void {
   const num = (id: string, text: string) => h('div', { class: 'sl-input' }, h('label', { for: id }, text), h('input', { type: 'text', inputmode: 'decimal', id, class: 'sl-number' }), ' mm');
   box.replaceChildren(
     colSel('strain', 'strain column'), colSel('stress', 'stress column'), colSel('force', 'force column'), colSel('extension', 'extension column'),
-    unitSel('map-strainUnit', 'strain unit', ['fraction', 'percent']), unitSel('map-stressUnit', 'stress unit', shown(['MPa', 'N/mm²', 'GPa', 'ksi', 'psi'], STRESS_UNITS)),
+    unitSel('map-strainUnit', 'strain unit', ['fraction', 'percent']), unitSel('map-stressUnit', 'stress unit', shown(['MPa', 'N/mm²', 'GPa', 'ksi', 'psi', 'kgf/mm²', 'kN/cm²'], STRESS_UNITS)),
     unitSel('map-forceUnit', 'force unit', shown(['N', 'kN', 'lbf', 'kip', 'kgf'], FORCE_UNITS)), unitSel('map-lengthUnit', 'extension unit', shown(['mm', 'in', 'cm', 'm', 'µm'], LENGTH_UNITS)),
     num('map-diameter', 'specimen diameter'), num('map-gaugeLength', 'gauge length'),
     h('button', { type: 'button', id: 'apply-mapping', onclick: applyMapping }, 'read the record again with these settings'));

@@ -1,4 +1,4 @@
-import { describeColumn, roleScore, ROLES, type ColumnInfo, type Role } from './columns.js';
+import { describeColumn, isMachineTravel, roleScore, ROLES, type ColumnInfo, type Role } from './columns.js';
 import { recordError, show } from './errors.js';
 import type { Layout } from './layout.js';
 import { allowedUnits, AREA_UNITS, LENGTH_UNITS, normUnit, unitFactor } from './units.js';
@@ -170,6 +170,7 @@ export class RecordBuilder {
       fb = factor('force', b, opts.forceUnit);
       fa = factor('length', a, opts.lengthUnit);
       ({ area, gauge } = this.geometry(opts));
+      if (isMachineTravel(a)) this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the modulus (--modulus) and prefer an extensometer channel`);
     }
     this.columns[mode === 'ss' ? 'strain' : 'extension'] = { name: a.name, column: a.index + 1, unit: unitOf(a) };
     this.columns[mode === 'ss' ? 'stress' : 'force'] = { name: b.name, column: b.index + 1, unit: unitOf(b) };
@@ -200,14 +201,16 @@ export class RecordBuilder {
     const d = pos('diameter', o.diameter), w = pos('width', o.width), t = pos('thickness', o.thickness);
     if (area === undefined && d !== undefined) area = (Math.PI / 4) * d * d;
     if (area === undefined && w !== undefined && t !== undefined) area = w * t;
-    if (area === undefined) area = num(find(/^(original )?cross[ -]?section( area)?$|^s0$|^area$|^original area$/), AREA_UNITS);
-    if (area === undefined) { const dd = num(find(/diameter|^d0$/), LENGTH_UNITS); if (dd !== undefined) area = (Math.PI / 4) * dd * dd; }
+    // Keys as exports write them (ISO 6892-1 symbols S0, d0, b0, a0, L0, Le, with a capital O for the zero as some
+    // exports type it; ASTM E8's "gage"; common practice otherwise).
+    if (area === undefined) area = num(find(/^(original |specimen |initial )?(cross[ -]?section(al)?( area)?|area)$|^s[0o]$/), AREA_UNITS);
+    if (area === undefined) { const dd = num(find(/diameter|^d[0o]$/), LENGTH_UNITS); if (dd !== undefined) area = (Math.PI / 4) * dd * dd; }
     if (area === undefined) {
-      const ww = num(find(/^(specimen )?width$|^b0$/), LENGTH_UNITS), tt = num(find(/^(specimen )?thickness$|^a0$/), LENGTH_UNITS);
+      const ww = num(find(/^(original |specimen |initial )?width$|^b[0o]$/), LENGTH_UNITS), tt = num(find(/^(original |specimen |initial )?thickness$|^a[0o]$/), LENGTH_UNITS);
       if (ww !== undefined && tt !== undefined) area = ww * tt;
     }
     let gauge = pos('gaugeLength', o.gaugeLength);
-    if (gauge === undefined) gauge = num(find(/gauge length|^l0$|^le$|extensometer length/), LENGTH_UNITS);
+    if (gauge === undefined) gauge = num(find(/ga(u)?ge length|^(original |initial )?ga(u)?ge$|^l[0o]$|^le$|extensometer (gauge |gage )?length/), LENGTH_UNITS);
     if (area === undefined || gauge === undefined) {
       this.fail(this.layout.headerLine, undefined, area === undefined ? 'cross-section' : 'gaugeLength',
         `a force–extension record needs the cross-section (area, width × thickness, or diameter) and the gauge length; missing ${area === undefined ? 'the cross-section' : 'the gauge length'}: give options (--area, --diameter, --width and --thickness, --gauge-length) or metadata lines such as "Gauge length: 50 mm"`);

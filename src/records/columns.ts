@@ -72,6 +72,15 @@ const FOREIGN_WORDS: Readonly<Record<string, string>> = {
 };
 const toEnglish = (b: string) => b.split(' ').map((w) => (Object.prototype.hasOwnProperty.call(FOREIGN_WORDS, w) ? FOREIGN_WORDS[w]! : w)).join(' ');
 
+/**
+ * True when a column is the machine's own travel (crosshead, stroke, actuator or piston position), not an
+ * extensometer: its extension includes the elastic compliance of the machine, load train and grips, so E from it is
+ * low and the strains are not ISO 6892-1 extensometer strains (common practice).
+ */
+export function isMachineTravel(c: ColumnInfo): boolean {
+  return /machine|crosshead|cross head|stroke|position|actuator|piston|travel/.test(toEnglish(c.base));
+}
+
 /** Score of a column for a role (0 = not this role). Higher wins; engineering values beat true ones. */
 export function roleScore(c: ColumnInfo, role: Role, unitHint: string): number {
   const b = toEnglish(c.base);
@@ -80,14 +89,20 @@ export function roleScore(c: ColumnInfo, role: Role, unitHint: string): number {
   switch (role) {
     case 'stress': return /\bstress\b|^sigma$/.test(b) ? 10 + eng * 5 + (/^(eng(ineering)? )?stress$/.test(b) ? 2 : 0) : 0;
     case 'strain':
+      // "Strain [mm]": an extensometer channel named strain but recorded as a length is an extension (below).
+      if (/\bstrain\b|^epsilon$/.test(b) && lengthUnit) return 0;
       if (/\bstrain\b|^epsilon$/.test(b)) return 10 + eng * 5 + (/^(eng(ineering)? |axial |longitudinal )?strain$/.test(b) ? 2 : 0) - (/rate/.test(b) ? 20 : 0) - (/lateral|transverse|width|thickness/.test(b) ? 9 : 0);
       if (/^elongation$|^elong$/.test(b) && !lengthUnit) return 8;
       return 0;
     case 'force': return /\bforce\b|\bload\b/.test(b) ? 10 + (/^(force|load)$/.test(b) ? 2 : 0) : 0;
     case 'extension': {
+      if (/\bstrain\b/.test(b) && lengthUnit) return 9;
+      // The machine's own travel (crosshead, stroke, actuator position) only when nothing better is there: it holds
+      // the compliance of the machine and grips (isMachineTravel; the reader warns).
+      if (isMachineTravel(c) && lengthUnit && !/\bextension\b|\bdisplacement\b|\belongation\b|\bextensometer\b|\bdeformation\b/.test(b)) return 3;
       if (!/\bextension\b|\bdisplacement\b|\belongation\b|\bextensometer\b|\bdeformation\b/.test(b)) return 0;
       if (/elongation/.test(b) && !lengthUnit && unitHint !== '') return 0;
-      return 10 - (/machine|crosshead|cross head|stroke|position|actuator|piston/.test(b) ? 6 : 0) + (/^(extension|displacement)$/.test(b) ? 2 : 0);
+      return 10 - (isMachineTravel(c) ? 6 : 0) + (/^(extension|displacement)$/.test(b) ? 2 : 0);
     }
     case 'time': return /^time\b|\btime$/.test(b) ? 10 : 0;
   }

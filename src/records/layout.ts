@@ -70,6 +70,34 @@ function numericRow(f: string[], dc: boolean): boolean {
  * tried; decimal comma is recognised with tab or semicolon.
  * @throws PlanError naming the file and line (header only, no header, one column).
  */
+/**
+ * One metadata line's key, value and unit, as lab exports write them: `Gauge length,50,mm`, `Gauge length: 50 mm`,
+ * `Diameter = 5.64 mm`, `Width (mm),12.5`, `Gage Length [in]: 2.000`, `Gauge length,50 mm` (common practice of
+ * testing-machine exports). A unit in brackets after the key is moved to the unit when no unit field follows the
+ * value; a value and unit in one field are split. Null for a line with no key and value.
+ */
+export function metadataEntry(f: readonly string[]): { key: string; value: string; unit: string } | null {
+  let key = (f[0] ?? '').replace(/:\s*$/, '').trim();
+  let value: string, unit: string;
+  if (key && f.length >= 2) { value = (f[1] ?? '').trim(); unit = (f[2] ?? '').trim(); }
+  else {
+    const sep = /^([^:=]*?)\s*[:=]\s*(.*)$/.exec(key);
+    if (!sep || !sep[1]) return null;
+    key = sep[1];
+    const rest = sep[2]!.trim().split(/\s+/);
+    value = rest[0] ?? '';
+    unit = rest.slice(1).join(' ');
+  }
+  key = key.replace(/\s*[:=]\s*$/, '').trim();
+  if (!unit) {
+    const inValue = /^([+-]?(?:\d+[.,]?\d*|[.,]\d+)(?:[eE][+-]?\d+)?)\s*([^\d\s.,+-].*)$/.exec(value);
+    if (inValue) { value = inValue[1]!; unit = inValue[2]!.trim(); }
+  }
+  const br = /^(.*?)\s*[[(]([^\])]*)[\])]$/.exec(key);
+  if (br && br[1]) { key = br[1]; if (!unit) unit = br[2]!.trim(); }
+  return key ? { key, value, unit } : null;
+}
+
 export function detectLayout(lines: readonly string[], file: string, opts: { delimiter?: Delimiter | undefined; decimal?: '.' | ',' | undefined } = {}): Layout {
   const head = lines.slice(0, MAX_HEAD_LINES);
   const nonEmpty = head.map((l, i) => ({ l, i })).filter((x) => x.l.trim() !== '');
@@ -108,14 +136,8 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
         const metadata = new Map<string, { key: string; value: string; unit: string; line: number }>();
         for (let m = 0; m < k; m++) {
           const { l, i } = nonEmpty[m]!;
-          const f = splitLine(l, l.includes('\t') ? '\t' : d);
-          const key = (f[0] ?? '').replace(/:\s*$/, '').trim();
-          if (key && f.length >= 2) metadata.set(key.toLowerCase(), { key, value: f[1] ?? '', unit: f[2] ?? '', line: i + 1 });
-          else if (key.includes(':')) {
-            const [a, ...b] = key.split(':');
-            const rest = b.join(':').trim().split(/\s+/);
-            metadata.set(a!.trim().toLowerCase(), { key: a!.trim(), value: rest[0] ?? '', unit: rest.slice(1).join(' '), line: i + 1 });
-          }
+          const entry = metadataEntry(splitLine(l, l.includes('\t') ? '\t' : d));
+          if (entry) metadata.set(entry.key.toLowerCase(), { ...entry, line: i + 1 });
         }
         return {
           delimiter: d, decimalComma,

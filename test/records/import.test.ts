@@ -67,6 +67,35 @@ describe('parseRecordText(text) reads what labs export', () => {
     expect(r.basis).toBe('force-extension');
     expect(r.geometry!.gaugeLength).toBe(25);
   });
+  // Metadata and column names as testing-machine exports write them (common practice; ISO 6892-1 symbols S0, L0;
+  // ASTM E8's spelling "gage"). Rows INVENTED; factors NIST SP 811 B.8 (1 in = 25.4 mm, 1 lbf = 4.4482216152605 N).
+  const fe = (meta: string[], header: string, sep: string, force: (s: number) => number, ext: (e: number) => number) =>
+    [...meta, header, ...ROWS.map(([e, s]) => `${force(s)}${sep}${ext(e / 100)}`)].join('\n') + '\n';
+  it.each([
+    ['units in brackets after the key, comma-separated', ['Specimen width (mm),12.5', 'Specimen thickness (mm),2.0', 'Original gauge length (mm),50'], 12.5 * 2, 50],
+    ['ASTM "gage", inches in brackets, colon', ['Width (in): 0.500', 'Thickness (in): 0.125', 'Gage Length (in): 2.000'], 0.5 * 0.125 * 645.16, 50.8],
+    ['"=" with the unit after the value', ['Diameter = 5.642 mm', 'Gauge length = 50 mm'], (Math.PI / 4) * 5.642 ** 2, 50],
+    ['ISO symbols with a capital O for the zero', ['So: 25 mm2', 'Lo: 50 mm'], 25, 50],
+    ['value and unit in one field', ['Cross-sectional area,25 mm²', 'Gauge length,50 mm'], 25, 50],
+  ])('force–extension with the geometry in metadata lines: %s', (_, meta, A, L0) => {
+    const r = check(fe(meta, 'Force [N],Extension [mm]', ',', (s) => s * A, (e) => e * L0));
+    expectRelClose(r.geometry!.area, A, 1e-12, 'area');
+    expectRelClose(r.geometry!.gaugeLength, L0, 1e-12, 'gauge length');
+  });
+  it('an extensometer channel named "Strain" but recorded in mm is read as the extension', () => {
+    const r = check(fe(['Width: 12.5 mm', 'Thickness: 2 mm', 'Gauge length: 50 mm'], 'Standard force [N],Strain [mm]', ',', (s) => s * 25, (e) => e * 50));
+    expect(r.basis).toBe('force-extension');
+    expect(r.columns.extension).toMatchObject({ name: 'Strain [mm]' });
+  });
+  it('the crosshead is read when it is the only extension, with a warning that it holds the machine\'s compliance; an extensometer beside it wins', () => {
+    const meta = ['Area: 25 mm²', 'Gauge length: 50 mm'];
+    const r = check(fe(meta, 'Load [N],Crosshead [mm]', ',', (s) => s * 25, (e) => e * 50));
+    expect(r.columns.extension).toMatchObject({ name: 'Crosshead [mm]' });
+    expect(r.warnings.join(' ')).toMatch(/machine's travel \(column "Crosshead \[mm\]"\), not an extensometer.*--modulus/);
+    const both = check([...meta, 'Load [N],Crosshead [mm],Extension [mm]', ...ROWS.map(([e, s]) => `${s * 25},${(e / 100) * 50 * 1.7},${(e / 100) * 50}`)].join('\n') + '\n');
+    expect(both.columns.extension).toMatchObject({ name: 'Extension [mm]' });
+    expect(both.warnings.join(' ')).not.toMatch(/machine's travel/);
+  });
   it('force–extension in lbf and in with width × thickness from options (NIST: 1 lbf = 4.4482216152605 N)', () => {
     const A = 12.5 * 2, L0 = 50;
     check(csv('Load (lbf),Extension (in)', ',', '.', ([e, s]) => [(s * A) / 4.4482216152605, ((e / 100) * L0) / 25.4]).replace(/^([^\n]*)\n/, '$1\n'),
