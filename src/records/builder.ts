@@ -133,12 +133,14 @@ export class RecordBuilder {
       }
       let best: ColumnInfo | undefined;
       let bs = 0;
-      for (const c of cols) {
-        const s = roleScore(c, role, unitOf(c));
-        if (s > bs) { bs = s; best = c; }
-      }
+      const scores = cols.map((c) => roleScore(c, role, unitOf(c)));
+      cols.forEach((c, i) => { if (scores[i]! > bs) { bs = scores[i]!; best = c; } });
+      // Two channels of one kind (two extensometers, `Strain 1` and `Strain 2`): the first is read; say so.
+      const alike = cols.filter((c, i) => bs > 0 && scores[i] === bs && c !== best);
+      if (best && alike.length) tied.push({ role, used: best, others: alike });
       return best;
     };
+    const tied: { role: Role; used: ColumnInfo; others: ColumnInfo[] }[] = [];
     const found: Partial<Record<Role, ColumnInfo>> = {};
     for (const r of ROLES) { const c = pick(r); if (c) found[r] = c; }
     const names = cols.map((x) => show(x.name)).join(', ');
@@ -150,6 +152,11 @@ export class RecordBuilder {
     else this.fail(L.headerLine, 1, 'columns', `no strain and stress columns, nor force and extension; the header has ${names}; expected names such as strain, stress, force, extension (with units like [MPa], [%], [kN], [mm]) or an explicit column mapping`);
     const a = mode === 'ss' ? found.strain! : found.extension!;
     const b = mode === 'ss' ? found.stress! : found.force!;
+    for (const t of tied) {
+      if (t.used !== a && t.used !== b) continue;
+      const role = mode === 'ss' ? t.role : t.role === 'extension' ? 'extension' : 'force';
+      this.warnings.push(`${t.others.length + 1} columns could be the ${role}: ${show(t.used.name)} (column ${t.used.index + 1}) is read, ${t.others.map((c) => `${show(c.name)} (column ${c.index + 1})`).join(', ')} ${t.others.length > 1 ? 'are' : 'is'} not; map another with --column ${role}=NAME (or the record bench's ${role} column choice)`);
+    }
     const unitCell = (c: ColumnInfo) => ({ line: L.units ? L.unitsLine! : L.headerLine, col: c.index + 1 });
     const factor = (q: 'stress' | 'force' | 'length' | 'strain', c: ColumnInfo, override: string | undefined): number => {
       const u = override ?? unitOf(c);
@@ -170,7 +177,7 @@ export class RecordBuilder {
       fb = factor('force', b, opts.forceUnit);
       fa = factor('length', a, opts.lengthUnit);
       ({ area, gauge } = this.geometry(opts));
-      if (isMachineTravel(a)) this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the modulus (--modulus) and prefer an extensometer channel`);
+      if (isMachineTravel(a)) this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the modulus (--modulus, or the record bench's modulus field) and prefer an extensometer channel`);
     }
     this.columns[mode === 'ss' ? 'strain' : 'extension'] = { name: a.name, column: a.index + 1, unit: unitOf(a) };
     this.columns[mode === 'ss' ? 'stress' : 'force'] = { name: b.name, column: b.index + 1, unit: unitOf(b) };

@@ -96,6 +96,12 @@ describe('parseRecordText(text) reads what labs export', () => {
     expect(both.columns.extension).toMatchObject({ name: 'Extension [mm]' });
     expect(both.warnings.join(' ')).not.toMatch(/machine's travel/);
   });
+  it('two channels of one kind (Strain 1, Strain 2): the first is read and a warning names both and how to map the other', () => {
+    const r = check(['Strain 1 [%],Strain 2 [%],Stress [MPa]', ...ROWS.map(([e, s]) => `${e},${e * 1.05},${s}`)].join('\n') + '\n');
+    expect(r.columns.strain).toMatchObject({ name: 'Strain 1 [%]' });
+    expect(r.warnings.join(' ')).toMatch(/2 columns could be the strain: "Strain 1 \[%\]" \(column 1\) is read, "Strain 2 \[%\]" \(column 2\) is not; map another with --column strain=NAME/);
+    expect(check(csv('Strain [%],Stress [MPa]')).warnings.join(' ')).not.toMatch(/could be/);
+  });
   it('force–extension in lbf and in with width × thickness from options (NIST: 1 lbf = 4.4482216152605 N)', () => {
     const A = 12.5 * 2, L0 = 50;
     check(csv('Load (lbf),Extension (in)', ',', '.', ([e, s]) => [(s * A) / 4.4482216152605, ((e / 100) * L0) / 25.4]).replace(/^([^\n]*)\n/, '$1\n'),
