@@ -206,6 +206,7 @@ nb.cell({ name: 'input', fn: () => null })
             q('ReL (lower yield)', a.lowerYield, DIGITS.stress, 'MPa', 'lowerYield'),
             q('Ae (yield point extension)', a.yieldPointElongationPct, 2, '%', 'yieldPointElongation')] : []),
           q('yield ratio Rp/Rm', a.proofStrength === null ? null : a.proofStrength / a.tensileStrength, DIGITS.ratio, '', 'yieldRatio', { none: 'not determined' })),
+        h('p', { id: 'stress-basis' }, 'Rp, ReH, ReL and Rm are engineering stresses (force over the original section), as a test certificate gives them; the n-value and the fitted laws below are true stress against true plastic strain.'),
         h('p', { id: 'ag-basis' }, agBasis(a)),
         h('p', { id: 'elastic-window' }, `Elastic window: ${fixed(w.fromStress, 0)} to ${fixed(w.toStress, 0)} MPa, ${w.points} points, R² ${fixed(w.r2, 5)}, standard error of E ${fixed(w.standardError, 0)} MPa (${w.method}).`),
         a.cycles.length ? h('p', { id: 'modulus-decay' }, `${a.cycles.length} unload–reload loops; unloading chord modulus ${a.cycles.map((c) => fixed(c.unloadModulus, 0)).join(', ')} MPa`,
@@ -239,7 +240,7 @@ nb.cell({ name: 'input', fn: () => null })
         `95 % intervals allow for residuals that are not independent: each standard error is widened by √(n/n_eff), with n_eff = n(1 − ρ)/(1 + ρ) from the residuals' lag-1 autocorrelation ρ`,
         basis ? ` (${LAW_TITLES[c.best ?? c.fits[0]!.law]}: ρ ${fixed(basis.lag1Autocorrelation, 3)}, n_eff ${fixed(basis.effectivePoints, 0)}, ×${fixed(basis.inflation, 1)}).` : '.');
       const table = h('table', { class: 'sl-table', id: 'fits-table' },
-        h('thead', {}, h('tr', {}, ...['law', 'parameters (MPa for stresses)', 'RMSE MPa', 'R²', 'AIC', 'state'].map((x) => h('th', { scope: 'col' }, x)))),
+        h('thead', {}, h('tr', {}, ...['law', 'parameters (true stress, MPa)', 'RMSE MPa', 'R²', 'AIC', 'state'].map((x) => h('th', { scope: 'col' }, x)))),
         h('tbody', {}, ...c.fits.map((f) => h('tr', { 'data-law': f.law },
           h('td', { class: 'text' }, LAW_TITLES[f.law] + (c.best === f.law ? ' (best AIC)' : '')),
           h('td', { class: 'text' }, LAW_PARAMETERS[f.law].map((p) => param(f, p.name)).join('; ')),

@@ -36,13 +36,19 @@ export const CHART_STYLE = {
 export const X_AXIS = { labelAnchor: 'center', labelArrow: 'none', labelOffset: 34 } as const;
 /** Bottom margin (px) that leaves room for {@link X_AXIS}'s label. */
 export const MARGIN_BOTTOM = 42;
+/**
+ * Left margin (px) that holds a five-character tick label ("1,200" MPa of a quenched and tempered steel, "12,000"
+ * less its comma) at {@link CHART_STYLE}'s 12 px: Plot's default of 40 px cut the first digit off.
+ */
+export const MARGIN_LEFT = 50;
 
 /**
  * The frame every chart shares: the caller's `document` (linkedom's in Node, the page's by default),
  * the width and height it asks for in px (else the chart's own defaults), {@link CHART_STYLE}, and
- * room under the x axis for its label ({@link MARGIN_BOTTOM}). Spread it into `Plot.plot`'s options.
+ * room under the x axis for its label ({@link MARGIN_BOTTOM}) and left of the y axis for its ticks ({@link MARGIN_LEFT}).
+ * Spread it into `Plot.plot`'s options.
  * @example Plot.plot({ ...chartFrame(o, 560, 320), x: { ...X_AXIS, label: 'strain (–)' }, marks })
  */
 export function chartFrame(o: { document?: Document; width?: number; height?: number }, width: number, height: number) {
-  return { ...(o.document ? { document: o.document } : {}), width: o.width ?? width, height: o.height ?? height, style: CHART_STYLE, marginBottom: MARGIN_BOTTOM };
+  return { ...(o.document ? { document: o.document } : {}), width: o.width ?? width, height: o.height ?? height, style: CHART_STYLE, marginBottom: MARGIN_BOTTOM, marginLeft: MARGIN_LEFT };
 }

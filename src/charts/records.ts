@@ -39,8 +39,9 @@ export function recordCurveChart(
         Plot.ruleY([analysis.proofStrength], { stroke: PALETTE.elastic, strokeDasharray: '4,3' }),
         Plot.text([analysis.proofStrength], { y: (d: number) => d, text: (d: number) => `Rp0.2 ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: 9, fill: PALETTE.elastic, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
       ] : []),
+      // Rm's label above its line and Rp0.2's below its own, so the two stay apart when Rp0.2 is close to Rm.
       Plot.ruleY([analysis.tensileStrength], { stroke: PALETTE.ductility, strokeDasharray: '4,3' }),
-      Plot.text([analysis.tensileStrength], { y: (d: number) => d, text: (d: number) => `Rm ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: 9, fill: PALETTE.ductility, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
+      Plot.text([analysis.tensileStrength], { y: (d: number) => d, text: (d: number) => `Rm ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: -9, fill: PALETTE.ductility, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
     ],
   });
 }
@@ -58,7 +59,7 @@ export function residualChart(
   return Plot.plot({
     ...chartFrame(o, 520, 300),
     x: { ...X_AXIS, label: 'true plastic strain (–)', grid: true },
-    y: { label: 'residual (MPa)', grid: true },
+    y: { label: 'residual, law − record (MPa)', grid: true },
     color: { domain: fits.map((f) => title(f.law)), range: [...PALETTE.laws], legend: true },
     marks: [Plot.ruleY([0], { stroke: PALETTE.ink }), Plot.line(data, { x: 'eps', y: 'r', stroke: 'law', z: 'law', strokeWidth: 1.2 })],
   });

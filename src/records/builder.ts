@@ -352,7 +352,7 @@ export class RecordBuilder {
     let fa = p.fa;
     if (Number.isNaN(fa)) {
       fa = this.maxA > 1 ? 0.01 : 1;
-      this.warnings.push(`no unit for strain column ${show(p.a.name)}; read as ${fa === 1 ? 'a fraction' : 'percent'} because its largest value is ${this.maxA}`);
+      this.warnings.push(`no unit for strain column ${show(p.a.name)}; read as ${fa === 1 ? 'a fraction' : 'percent'} because its largest value is ${+this.maxA.toPrecision(6)}`);
     }
     const n = this.n;
     let strain: Float64Array, stress: Float64Array, maxS: number;

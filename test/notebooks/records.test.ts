@@ -81,6 +81,8 @@ describe('record bench', () => {
     expect(await page.locator('#fits-table tbody tr').count()).toBeGreaterThanOrEqual(5);
     expect(await page.locator('#spread-table tbody tr').count()).toBeGreaterThanOrEqual(2);
     expect(await page.locator('#elastic-window').innerText()).toContain('points');
+    // Every stress on a stated basis (docs/bases-and-units.md): certificate values engineering, laws true.
+    expect(await page.locator('#stress-basis').innerText()).toMatch(/engineering stresses .* true stress against true plastic strain/);
     await page.screenshot({ path: `${SCREENSHOTS}/records.png`, fullPage: true });
 
     // A malformed record: the error names the line; the 46NT71 properties stay on screen.

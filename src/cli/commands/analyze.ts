@@ -117,6 +117,8 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
     : a.forceMaximum.lawUniformElongation?.pct != null ? `   (Ag where the fitted laws reach maximum force, inside the top's 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`
       : `   (Ag from the samples near the top, 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`;
   lines.push(`  Ag / Agt / A ${ge}${fmt(a.uniformElongationPct, 2)} / ${ge}${fmt(a.uniformTotalElongationPct, 2)} / ${ge}${fmt(a.totalElongationPct, 2)} %${agHow}`);
+  // The basis of every stress, as a certificate reader checks it first (docs/bases-and-units.md).
+  lines.push(`  basis        Rp, Rt, ReH/ReL, Rm: engineering (force / original section); n, K and the laws: true stress on true plastic strain`);
   lines.push(`  n, K         ${fmt(a.nValue, 4)}, ${fmt(a.K, 0)} MPa (ISO 10275)`);
   if (a.fits) {
     lines.push('  law             RMSE MPa   R²        AIC      converged  parameters');
