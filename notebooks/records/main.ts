@@ -231,7 +231,8 @@ nb.cell({ name: 'input', fn: () => null })
         const v = f.params[p]!;
         const info = LAW_PARAMETERS[f.law].find((x) => x.name === p)!;
         const held = f.basis.held?.includes(p); // the blend's α: one flow curve does not fix it (docs/records-and-fits.md)
-        return `${info.symbol} ${formatLawParam(info, v)}${iv ? ` (95 %: ${sig4(iv[0])} to ${sig4(iv[1])})` : held ? ' (held, not fitted: one curve does not fix it)' : ' (interval not identifiable)'}`;
+        const cut = f.basis.intervalsClipped?.includes(p) ? ', cut at the end of its range' : '';
+        return `${info.symbol} ${formatLawParam(info, v)}${iv ? ` (95 %: ${sig4(iv[0])} to ${sig4(iv[1])}${cut})` : held ? ' (held, not fitted: one curve does not fix it)' : ' (interval not identifiable)'}`;
       };
       const basis = c.fits.find((f) => f.law === c.best)?.basis ?? c.fits[0]?.basis;
       const n = c.fits[0]?.points ?? 0;

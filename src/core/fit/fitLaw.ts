@@ -155,11 +155,16 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
   const standardErrors: Record<string, number | null> = {};
   const standardErrorsIndependent: Record<string, number | null> = {};
   const intervals95: Record<string, [number, number] | null> = {};
+  const clipped: string[] = [];
   info.forEach((p, j) => {
     params[p.name] = res.params[j]!;
     standardErrors[p.name] = honest.standardErrors[j]!;
     standardErrorsIndependent[p.name] = independent.standardErrors[j]!;
-    intervals95[p.name] = honest.intervals95[j]!;
+    // A Wald interval is symmetric and knows nothing of the range a parameter can take (a σ0 of −14 to 31 MPa on a
+    // fit whose Voce part hardly shows): cut at the range's ends, and say so (basis.intervalsClipped).
+    const iv = honest.intervals95[j]!;
+    if (iv && (iv[0] < p.lo || iv[1] > p.hi)) { intervals95[p.name] = [Math.max(p.lo, iv[0]), Math.min(p.hi, iv[1])]; clipped.push(p.name); }
+    else intervals95[p.name] = iv;
     if (res.atBound[j]) warnings.push({ code: 'atBound', message: `${LAW_TITLES[law]}: ${p.symbol} ended on its bound (${res.params[j]}); its standard error is not given` });
   });
   const fittedK = k - held.filter(Boolean).length;
@@ -170,7 +175,7 @@ export function fitLaw(law: LawName, strain: ArrayLike<number>, stress: ArrayLik
     aic: n * Math.log(ssrN) + 2 * fittedK, bic: n * Math.log(ssrN) + fittedK * Math.log(n), // k: the parameters fitted
     residuals: [], converged: res.converged, iterations: res.iterations,
     strainRange: [lo, hi], points: n, warnings, standardErrorsIndependent,
-    basis: { fittedPoints: fitted.x.length, blockSize, lag1Autocorrelation: eff.lag1, effectivePoints: eff.effectiveN, inflation: eff.inflation, held: info.filter((_, j) => held[j]).map((p) => p.name) },
+    basis: { fittedPoints: fitted.x.length, blockSize, lag1Autocorrelation: eff.lag1, effectivePoints: eff.effectiveN, inflation: eff.inflation, held: info.filter((_, j) => held[j]).map((p) => p.name), intervalsClipped: clipped },
   };
   return withLazyResiduals(fit, full, res.params);
 }

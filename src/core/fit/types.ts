@@ -31,7 +31,10 @@ export interface LawFit extends FitQuality {
   params: Record<string, number>;
   /** Standard error of each parameter, s·sqrt(diag((JᵀJ)⁻¹)); null when it is on a bound or not identifiable. */
   standardErrors: Record<string, number | null>;
-  /** 95 % confidence interval of each parameter, value ± t(0.975, N − k)·SE; null where the SE is null. */
+  /**
+   * 95 % confidence interval of each parameter, value ± t(0.975, N − k)·SE, cut at the ends of the parameter's
+   * admissible range (basis.intervalsClipped names those); null where the SE is null.
+   */
   intervals95: Record<string, [number, number] | null>;
   /** Range of true plastic strain the law was fitted on. */
   strainRange: [number, number];
@@ -61,4 +64,10 @@ export interface FitBasis {
    * which one flow curve does not determine (see fitLawGroup); empty for the other laws.
    */
   held: string[];
+  /**
+   * Parameters whose 95 % interval (value ± t·SE) reached past the law's admissible range (LAW_PARAMETERS, e.g. a
+   * saturation stress below 0) and was cut at its end: the linearised interval is not to be read beyond the
+   * range a parameter can take. Usually a sign that the data hardly determine that parameter.
+   */
+  intervalsClipped: string[];
 }

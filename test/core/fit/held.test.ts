@@ -80,3 +80,26 @@ describe('the blend fitted by variable projection when its own fit crawls (blend
     for (const k of ['K', 'n', 'sigma0', 'Q', 'b'] as const) expectRelClose(p[k]!, truth[k], 1e-5, k);
   });
 });
+
+describe('95 % intervals cut at the ends of a parameter\'s admissible range', () => {
+  // INVENTED: a nearly flat Voce curve (Q 1.5 MPa over σ0 300) with a deterministic ripple, so b is barely
+  // determined and value − t·SE falls below b's lower end, 0 (LAW_PARAMETERS: b > 0).
+  const x = Array.from({ length: 120 }, (_, i) => 0.002 + (0.2 * i) / 119);
+  const y = x.map((e, i) => 300 + 1.5 * (1 - Math.exp(-12 * e)) + 1.5 * Math.sin(i * 1.7));
+  it('the lower end of b\'s interval is 0, not negative; its upper end and the uncut intervals stay value ± t·SE', () => {
+    const f = fitLaw('voce', x, y);
+    expect(f.converged).toBe(true);
+    expect(f.basis.intervalsClipped).toEqual(['b']);
+    const [lo, hi] = f.intervals95.b!;
+    expect(lo).toBe(0);
+    // The t quantile, from σ0's uncut interval (symmetric: half-width = t·SE).
+    const [s0lo, s0hi] = f.intervals95.sigma0!;
+    expectRelClose((s0hi - s0lo) / 2 / f.standardErrors.sigma0!, (hi - f.params.b!) / f.standardErrors.b!, 1e-9, 't from σ0 and from b\'s upper end');
+    expect(f.params.b! - (hi - f.params.b!)).toBeLessThan(0); // the symmetric interval would have reached below 0
+    expectRelClose(s0lo + s0hi, 2 * f.params.sigma0!, 1e-12, 'σ0 interval symmetric (not cut)');
+  });
+  it('a well-determined fit cuts nothing', () => {
+    const f = fitLaw('voce', eps, sig);
+    expect(f.basis.intervalsClipped).toEqual([]);
+  });
+});
