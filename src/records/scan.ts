@@ -1,14 +1,15 @@
 import type { RecordBuilder } from './builder.js';
 
 /**
- * Fast reader of the data rows of a record, for the common case: unquoted cells, LF or CRLF line
- * ends, text without control characters. It finds only the two cells the record uses in each line
+ * Fast reader of the data rows of a record, for the common case: plain cells or cells each wrapped in one
+ * pair of quotes (`"0.125","205.3"`, as some exports quote every field; a quoted note may hold the delimiter),
+ * LF or CRLF line ends, text without control characters. It finds only the two cells the record uses in each line
  * (`indexOf` of the delimiter), converts them with the engine's number parser and passes them to
  * the builder with their line number, so a record of millions of rows makes no per-row arrays and
  * no strings for unused columns.
  *
- * It never words an error itself: whenever a line is not plainly valid (a quote, a lone CR, a
- * control character, a missing or non-numeric cell) it reports `false`, and the caller reads the
+ * It never words an error itself: whenever a line is not plainly valid (a quote inside a cell or not
+ * closed on its line, a lone CR, a control character, a missing or non-numeric cell) it reports `false`, and the caller reads the
  * record again with the located reader (csv-parse with line information), whose message names the
  * line and column exactly as before. Valid records give the same numbers either way: a cell is
  * accepted here only when it matches the located reader's number pattern
@@ -60,8 +61,8 @@ export class RowScanner {
       if (m && m.index < pos) return -1; // CR line ends: line numbers would differ
       if (this.line < this.dataLine) return final ? -1 : pos;
     }
-    QUOTE_OR_CONTROL.lastIndex = pos;
-    if (QUOTE_OR_CONTROL.test(text)) return -1;
+    CONTROL.lastIndex = pos;
+    if (CONTROL.test(text)) return -1;
     if (text.indexOf('\r', pos) !== -1) {
       LONE_CR.lastIndex = pos;
       if (LONE_CR.test(text)) return -1;
@@ -82,6 +83,8 @@ export class RowScanner {
 
   /** One line [from, to): pushes its two numbers, skips a blank line; false when the line needs the located reader. */
   private row(text: string, from: number, to: number, d: string, line: number): boolean {
+    const q = text.indexOf('"', from);
+    if (q !== -1 && q < to) return this.quotedRow(text, from, to, d, line);
     let x = NaN, y = NaN;
     let start = from;
     for (let col = 0; col <= this.last; col++) {
@@ -101,6 +104,48 @@ export class RowScanner {
         if (col === this.b) y = v;
       }
       start = stop + 1;
+    }
+    this.builder.pushValues(x, y, line);
+    return true;
+  }
+
+  /**
+   * A line with quotes: each cell either plain or one pair of quotes around the whole cell (spaces allowed outside
+   * it, as csv-parse's trim takes them), which may hold delimiters; anything else (`""` inside, a quote within a
+   * plain cell, a quote not closed on the line) is for the located reader. The used cells are read as plain ones.
+   */
+  private quotedRow(text: string, from: number, to: number, d: string, line: number): boolean {
+    let x = NaN, y = NaN;
+    let i = from;
+    for (let col = 0; ; col++) {
+      while (i < to && (text.charCodeAt(i) === 32 || text.charCodeAt(i) === 9) && text[i] !== d) i++;
+      let s: number, e: number;
+      if (text.charCodeAt(i) === 34) {
+        s = i + 1;
+        e = text.indexOf('"', s);
+        if (e === -1 || e >= to) return false;
+        i = e + 1;
+        while (i < to && (text.charCodeAt(i) === 32 || text.charCodeAt(i) === 9) && text[i] !== d) i++;
+        if (i < to && text[i] !== d) return false;
+      } else {
+        s = i;
+        e = text.indexOf(d, i);
+        if (e === -1 || e > to) e = to;
+        const qq = text.indexOf('"', s);
+        if (qq !== -1 && qq < e) return false;
+        i = e;
+      }
+      if (col === this.a || col === this.b) {
+        let v: number | null = decimal(text, s, e, this.comma ? 44 : 46);
+        if (v !== v) v = this.number(text.slice(s, e));
+        if (v === null) return false;
+        if (col === this.a) x = v; else y = v;
+      }
+      if (i >= to) {
+        if (col < this.last) return false; // fewer fields than needed (a blank line has no quote)
+        break;
+      }
+      i++; // past the delimiter
     }
     this.builder.pushValues(x, y, line);
     return true;
@@ -150,8 +195,8 @@ function decimal(text: string, from: number, to: number, point: number): number 
 }
 
 const LONE_CR = /\r(?!\n|$)/g;
-/** A quote (quoted cells may hold delimiters and line breaks) or a control character (one character class: fast). */
-const QUOTE_OR_CONTROL = /["\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFD]/g;
+/** A control character or a replacement character (one character class: fast). */
+const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFD]/g;
 
 /** Significant digits below which a decimal's digits form an exact integer (10¹⁵ < 2⁵³). */
 const EXACT_DIGITS = 15;
@@ -252,8 +297,8 @@ function generalDecimal(bytes: Uint8Array, from: number, to: number, comma: bool
 
 /**
  * The row scanner of {@link RowScanner}, reading the file's bytes (UTF-8) directly: no decoding of
- * the whole file to a string, control characters, quotes and lone CRs checked in the same loop that
- * finds the cells, numbers read by {@link readDecimal}. It accepts exactly the rows {@link RowScanner}
+ * the whole file to a string, control characters, quotes (one pair around a whole cell is read, as
+ * {@link RowScanner} reads it) and lone CRs checked in the same loop that finds the cells, numbers read by {@link readDecimal}. It accepts exactly the rows {@link RowScanner}
  * accepts and gives the same numbers (test/records/scan.test.ts compares the two readers on random
  * files), with one more reason for doubt: any byte ≥ 0x80 after the header (non-ASCII text, a
  * broken UTF-8 sequence) sends the whole record to the text readers, which decode it as before.
@@ -367,6 +412,13 @@ export class ByteRowScanner {
     for (;;) {
       if (col === a || col === b) {
         while ((c === 32 || c === 9) && c !== d) c = bytes[++i]!; // String.prototype.trim
+        // A quoted cell ("1.5": some exports quote every field) is the same number: csv-parse's trim takes the
+        // spaces around the quotes, the cell's own trim those inside. Anything else in quotes is a doubt.
+        const quoted = c === 34;
+        if (quoted) {
+          c = bytes[++i]!;
+          while ((c === 32 || c === 9) && c !== d) c = bytes[++i]!;
+        }
         const s = i;
         let neg = false;
         if (c === 45 || c === 43) { neg = c === 45; c = bytes[++i]!; }
@@ -394,10 +446,13 @@ export class ByteRowScanner {
         }
         const general = sig > EXACT_DIGITS;
         let v: number, bad: boolean;
-        if (general || scale < -22 || (c !== d && c !== 32 && c !== 9 && c !== 10 && c !== 13)) {
-          // An exponent, a long mantissa or something else: read the whole trimmed cell.
+        if (general || scale < -22 || (c !== d && c !== 32 && c !== 9 && c !== 10 && c !== 13 && !(quoted && c === 34))) {
+          // An exponent, a long mantissa or something else: read the whole trimmed cell (to its closing quote).
           let e = i;
-          while (e < to && bytes[e] !== d && bytes[e] !== 10 && bytes[e] !== 13) e++;
+          if (quoted) {
+            while (e < to && bytes[e] !== 34 && bytes[e] !== 10 && bytes[e] !== 13) e++;
+            if (bytes[e] !== 34) return DOUBT; // no closing quote on this line
+          } else while (e < to && bytes[e] !== d && bytes[e] !== 10 && bytes[e] !== 13) e++;
           let t = e;
           while (t > s && (bytes[t - 1] === 32 || bytes[t - 1] === 9)) t--;
           v = generalDecimal(bytes, s, t, comma);
@@ -413,21 +468,30 @@ export class ByteRowScanner {
           if (neg) v = -v;
           while ((c === 32 || c === 9) && c !== d) c = bytes[++i]!;
         }
+        if (quoted) {
+          if (c !== 34) return DOUBT;
+          c = bytes[++i]!;
+          while ((c === 32 || c === 9) && c !== d) c = bytes[++i]!;
+          if (c !== d && c !== 10 && c !== 13) return DOUBT; // "1"" or "1"x: csv-parse's own message
+          if (bad) return DOUBT; // "" or "abc": the text readers word it
+        }
         // An empty cell at the end of a short line may be a blank line: decided at the line's end.
         if (bad && !(digits === 0 && s === i && (c === 10 || c === 13) && col < last)) return DOUBT;
         if (col === a) x = v; else y = v;
       } else {
-        while (c !== d && c !== 10 && c !== 13) {
-          if (c < 32 ? c !== 9 : c === 34 || c > 126) return DOUBT; // control character, quote, DEL, non-ASCII
-          c = bytes[++i]!;
-        }
+        i = skipCell(bytes, i, d);
+        if (i < 0) return DOUBT;
+        c = bytes[i]!;
       }
       if (c === d) {
         c = bytes[++i]!;
         if (++col > last) {
           // Cells the record does not use: only checked, as the text readers check the whole text.
-          while (c !== 10 && c !== 13) {
-            if (c < 32 ? c !== 9 : c === 34 || c > 126) return DOUBT;
+          for (;;) {
+            i = skipCell(bytes, i, d);
+            if (i < 0) return DOUBT;
+            c = bytes[i]!;
+            if (c !== d) break;
             c = bytes[++i]!;
           }
         } else continue;
@@ -462,6 +526,33 @@ const DOUBT = -1;
 /** Rows per batch handed to the builder (see ByteRowScanner.bx). */
 const BATCH = 4096;
 const INCOMPLETE = -2;
+
+/**
+ * Passes over a cell the record does not use, from bytes[i]: returns the index of the delimiter or line end after
+ * it, or −1 (a doubt) for a control character, DEL or non-ASCII byte, or a quote other than one pair around the
+ * whole cell (spaces allowed outside it: csv-parse's trim). A quoted cell may hold delimiters; `""` inside it, a
+ * line break or a cell cut by the end of the piece (its LF mark) is a doubt.
+ */
+function skipCell(bytes: Uint8Array, i: number, d: number): number {
+  let c = bytes[i]!;
+  let j = i;
+  while ((c === 32 || c === 9) && c !== d) c = bytes[++j]!;
+  if (c === 34) {
+    c = bytes[++j]!;
+    while (c !== 34) {
+      if (c < 32 ? c !== 9 : c > 126) return -1;
+      c = bytes[++j]!;
+    }
+    c = bytes[++j]!;
+    while ((c === 32 || c === 9) && c !== d) c = bytes[++j]!;
+    return c === d || c === 10 || c === 13 ? j : -1;
+  }
+  while (c !== d && c !== 10 && c !== 13) {
+    if (c < 32 ? c !== 9 : c === 34 || c > 126) return -1; // control character, a quote inside, DEL, non-ASCII
+    c = bytes[++j]!;
+  }
+  return j;
+}
 
 /** True when bytes[from, to) hold only spaces and tabs (a blank line, which the readers skip). */
 function blankLine(bytes: Uint8Array, from: number, to: number): boolean {

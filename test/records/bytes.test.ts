@@ -26,7 +26,7 @@ const plain = fc.oneof(
   fc.constant('12345678901234567890'),
 );
 // Doubtful cells: each must send the record to the text readers (or be read the same way).
-const odd = fc.constantFrom('', ' ', '"1.5"', '1e400', 'Infinity', '0x10', 'abc', 'µm', 'é', '\u0001', '\u007f', '1 2', '\t3', '4\t', 'NaN', '1.2.3', '\uFEFF5');
+const odd = fc.constantFrom('', ' ', '"1.5"', ' "2,5" ', '"-3e2"', '""', '"a""b"', '"x;y,z"', '"1.5"x', '" 7 "', '"8', '9"', '1e400', 'Infinity', '0x10', 'abc', 'µm', 'é', '\u0001', '\u007f', '1 2', '\t3', '4\t', 'NaN', '1.2.3', '\uFEFF5');
 
 // Strains in % below the 500 % the reader accepts.
 const strain = fc.oneof(

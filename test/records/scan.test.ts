@@ -4,6 +4,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import fc from 'fast-check';
+import { parse as parseCsv } from 'csv-parse/sync';
 import { initParser } from 'udsv';
 import { describe, expect, it } from 'vitest';
 import { PlanError } from '../../src/plan/problems.js';
@@ -79,6 +80,44 @@ describe('parseRecordText through the fast scanner gives what an independent par
         }
       }), { numRuns: 200, seed: 12 });
     expect(refused, `${refused} of ${runs} random records refused as records`).toBeLessThan(runs / 10);
+  });
+
+  it('random records whose cells are quoted ("1.5", spaces around the quotes, a quoted note holding the delimiter): the same numbers as csv-parse (npm, RFC 4180) + Number(), through the text and the file reader', async () => {
+    let runs = 0, quotedRows = 0;
+    const dir = mkdtempSync(join(tmpdir(), 'sl-quoted-'));
+    await fc.assert(fc.asyncProperty(
+      fc.constantFrom(',', ';', '\t'), fc.boolean(), fc.boolean(),
+      fc.array(fc.tuple(strainCell, cell, fc.constantFrom(0, 1, 2, 3), fc.constantFrom('', ' ')), { minLength: 10, maxLength: 60 }),
+      async (d, comma, crlf, rows) => {
+        runs++;
+        const dc = comma && d !== ',';
+        const nl = crlf ? '\r\n' : '\n';
+        const fmt = (s: string) => (dc ? s.replace('.', ',') : s);
+        // quote: 0 none, 1 the strain, 2 both, 3 both and the note (which holds the delimiter).
+        let text = `"Strain [%]"${d}"Stress [MPa]"${d}"Note"${nl}1${d}2${d}0${nl}`;
+        for (const [a, b, quote, pad] of rows) {
+          const qa = quote >= 1 ? `${pad}"${fmt(a)}"${pad}` : fmt(a), qb = quote >= 2 ? `${pad}"${fmt(b)}"` : fmt(b);
+          const note = quote === 3 ? `"a${d}b"` : 'n';
+          if (quote > 0) quotedRows++;
+          text += [qa, qb, note].join(d) + nl;
+        }
+        const opts = { file: 'q.csv', decimal: dc ? ',' as const : '.' as const, strainUnit: 'percent' as const };
+        const ref = parseCsv(text, { delimiter: d, trim: true, relax_column_count: true, skip_empty_lines: true, from_line: 2 }) as string[][];
+        const num = (s: string) => Number(dc ? s.trim().replace(',', '.') : s.trim());
+        const got = parseRecordText(text, opts);
+        const file = join(dir, `q${runs}.csv`);
+        writeFileSync(file, text);
+        const viaFile = await readRecordFile(file, opts);
+        expect(got.rows).toBe(ref.length);
+        expect(viaFile.rows).toBe(ref.length);
+        ref.forEach((r, i) => {
+          expect(got.strain[i]).toBe(num(r[0]!) * 0.01);
+          expect(got.stress[i]).toBe(num(r[1]!));
+          expect(viaFile.strain[i]).toBe(got.strain[i]);
+          expect(viaFile.stress[i]).toBe(got.stress[i]);
+        });
+      }), { numRuns: 150, seed: 21 });
+    expect(quotedRows).toBeGreaterThan(runs * 10);
   });
 
   it('plain decimals of 1 to 17 digits with the point anywhere read to the same double as Number() (the reference: the engine\'s own ECMAScript StringToNumber)', () => {
