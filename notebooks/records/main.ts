@@ -2,7 +2,7 @@
 // (src/records) and analysis (analyzeRecord, fitAllLaws) as the runner, computed in a web worker
 // (worker.ts) so that a large record never freezes the page.
 import {
-  Notebook, expose, h, fixed, formatLawParam, DIGITS, fileDrop, errorBox, byId, autosave, choice, restore,
+  Notebook, expose, h, fixed, formatLawParam, DIGITS, fileDrop, readRecordFileText, errorBox, byId, autosave, choice, restore,
   widthStream,
 } from '../../src/cells/index.js';
 import { InputError, LAW_PARAMETERS, LAW_TITLES } from '../../src/core/index.js';
@@ -64,7 +64,7 @@ const EXAMPLE_RECORDS = import.meta.glob('../../examples/*.{csv,tsv,txt}', { que
 const fileInput = h('input', { type: 'file', id: 'record-file', accept: '.csv,.tsv,.txt,text/csv,text/plain' });
 const drop = h('div', { class: 'sl-drop', id: 'record-drop', role: 'button', 'aria-label': 'Record file: drop it here or press Enter to choose' },
   'Drop a tensile-test export (CSV or tab-separated) here, or ', h('label', { for: 'record-file' }, 'choose one: '), fileInput);
-fileDrop(drop, fileInput, (name, text) => load({ name, text }, {}), (e) => byId('cell-import').replaceChildren(errorBox(e, 'The file could not be read')));
+fileDrop(drop, fileInput, (name, text) => load({ name, text }, {}), (e) => byId('cell-import').replaceChildren(errorBox(e, 'The file could not be read')), readRecordFileText);
 byId('record-input').append(drop);
 const examples = Object.entries(EXAMPLE_RECORDS);
 const DEMO_FIRST = 'stamping-strip-loops.csv';

@@ -1,5 +1,6 @@
 import { loadPlanText, type LoadedPlan } from '../plan/load.js';
 import type { PlanDoc } from '../plan/schema.js';
+import { decodeRecordBytes } from '../records/decode.js';
 
 /**
  * Plan import and export in exactly the runner's format: the plan document (plan units) as JSON,
@@ -44,13 +45,29 @@ export async function readFileText(file: File): Promise<string> {
 }
 
 /**
- * Makes `zone` accept a dropped file and wires `input` (a file chooser) to the same handler.
+ * Largest tensile-record export the record bench reads (parsed and analysed in a worker): a 1,000,000-row export
+ * with a few columns is 20–60 MB.
+ */
+export const MAX_RECORD_BYTES = 256 * 1024 * 1024;
+
+/**
+ * Reads a dropped tensile-record export: up to {@link MAX_RECORD_BYTES}, UTF-8, or UTF-16 with its byte-order mark
+ * (a spreadsheet's "Unicode text" export), decoded by decodeRecordBytes as the runner decodes it.
+ */
+export async function readRecordFileText(file: File): Promise<string> {
+  if (file.size > MAX_RECORD_BYTES) throw new Error(`${file.name}: ${file.size} bytes; records up to ${MAX_RECORD_BYTES} bytes are accepted`);
+  return decodeRecordBytes(new Uint8Array(await file.arrayBuffer()));
+}
+
+/**
+ * Makes `zone` accept a dropped file and wires `input` (a file chooser) to the same handler (`read`: how the file
+ * becomes text, {@link readFileText} by default).
  * The zone is focusable and opens the chooser on Enter or Space, so it works from the keyboard.
  */
-export function fileDrop(zone: HTMLElement, input: HTMLInputElement, onFile: (name: string, text: string) => void, onError: (e: unknown) => void): void {
+export function fileDrop(zone: HTMLElement, input: HTMLInputElement, onFile: (name: string, text: string) => void, onError: (e: unknown) => void, read: (f: File) => Promise<string> = readFileText): void {
   const take = (f: File | undefined) => {
     if (!f) return;
-    readFileText(f).then((t) => onFile(f.name, t), onError);
+    read(f).then((t) => onFile(f.name, t), onError);
   };
   zone.tabIndex = 0;
   zone.addEventListener('dragover', (e) => { e.preventDefault(); zone.classList.add('sl-drop-over'); });

@@ -6,7 +6,9 @@ import { RecordBuilder, type RecordOptions, type TensileRecord } from './builder
 import { recordError } from './errors.js';
 import { detectLayout, type Layout } from './layout.js';
 import { ByteRowScanner, RowScanner } from './scan.js';
-import { checkText, csvProblem, headLines } from './parse.js';
+import { checkText, csvProblem, headLines, parseRecordText } from './parse.js';
+import { decodeRecordBytes, utf16Mark } from './decode.js';
+import { readFileSync } from 'node:fs';
 
 /** Bytes read to find the layout (metadata, header, units row). */
 export const HEAD_BYTES = 256 * 1024;
@@ -35,10 +37,15 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
     closeSync(fd);
   }
   let head = buf.subarray(0, got);
+  if (utf16Mark(head)) {
+    // A spreadsheet's "Unicode text" export (UTF-16 with its mark): decoded whole and read as text (such files come
+    // from a spreadsheet, so they are of a spreadsheet's size).
+    return parseRecordText(decodeRecordBytes(readFileSync(path)), { ...opts, file });
+  }
   if (head.includes(0)) {
     const at = head.indexOf(0);
     const pre = head.subarray(0, at).toString('latin1');
-    throw recordError(file, pre.split('\n').length, at - pre.lastIndexOf('\n'), '', 'binary content (NUL byte); expected a text export (CSV or tab-separated) in UTF-8');
+    throw recordError(file, pre.split('\n').length, at - pre.lastIndexOf('\n'), '', 'binary content (NUL byte); expected a text export (CSV or tab-separated) in UTF-8, or in UTF-16 with its byte-order mark');
   }
   let text = new TextDecoder('utf-8', { fatal: false }).decode(head);
   if (got === HEAD_BYTES) text = text.slice(0, Math.max(text.lastIndexOf('\n'), 0)); // whole lines only

@@ -67,6 +67,9 @@ export class RowScanner {
       LONE_CR.lastIndex = pos;
       if (LONE_CR.test(text)) return -1;
     }
+    // The next quote, found once and again only after passing it (a search from every line to the end of a text
+    // without quotes made the scan quadratic).
+    let quote = text.indexOf('"', pos);
     while (pos < n) {
       let end = text.indexOf('\n', pos);
       if (end === -1) {
@@ -75,7 +78,10 @@ export class RowScanner {
       }
       const next = end + 1;
       if (end > pos && text.charCodeAt(end - 1) === 13) end--;
-      if (!this.row(text, pos, end, d, this.line++)) return -1;
+      if (quote !== -1 && quote < end) {
+        if (!this.quotedRow(text, pos, end, d, this.line++)) return -1;
+        quote = text.indexOf('"', next);
+      } else if (!this.row(text, pos, end, d, this.line++)) return -1;
       pos = next;
     }
     return n;
@@ -83,8 +89,6 @@ export class RowScanner {
 
   /** One line [from, to): pushes its two numbers, skips a blank line; false when the line needs the located reader. */
   private row(text: string, from: number, to: number, d: string, line: number): boolean {
-    const q = text.indexOf('"', from);
-    if (q !== -1 && q < to) return this.quotedRow(text, from, to, d, line);
     let x = NaN, y = NaN;
     let start = from;
     for (let col = 0; col <= this.last; col++) {

@@ -28,6 +28,19 @@ async function dropFile(page: Page, name: string, text: string): Promise<void> {
   await page.dispatchEvent('#record-drop', 'drop', { dataTransfer: dt });
 }
 
+/** Drops `text` as a spreadsheet's "Unicode text" export: UTF-16LE with its byte-order mark, made in the page. */
+async function dropUtf16(page: Page, name: string, text: string): Promise<void> {
+  const dt = await page.evaluateHandle(([n, t]) => {
+    const bytes = new Uint8Array(2 + 2 * t!.length);
+    bytes[0] = 0xff; bytes[1] = 0xfe;
+    for (let i = 0; i < t!.length; i++) { const c = t!.charCodeAt(i); bytes[2 + 2 * i] = c & 0xff; bytes[3 + 2 * i] = c >> 8; }
+    const d = new DataTransfer();
+    d.items.add(new File([bytes], n!, { type: 'text/plain' }));
+    return d;
+  }, [name, text]);
+  await page.dispatchEvent('#record-drop', 'drop', { dataTransfer: dt });
+}
+
 describe('record bench', () => {
   it('shows the INVENTED demo record before any file is dropped (no error cells); a dropped 100,000-point record is read and fitted in a web worker', async () => {
     const workers: string[] = [];
@@ -57,6 +70,23 @@ describe('record bench', () => {
     expect(errors).toEqual([]);
   });
 
+
+  it('a spreadsheet\'s "Unicode text" export (UTF-16LE with its mark, tab-separated) of over 5 MB is read and fitted', async () => {
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    // INVENTED: 150,000 points from a known Swift law (K 600 MPa, ε0 0.01, n 0.22, E 200 GPa); 6 MB as UTF-16.
+    const rec = synthesizeRecord({ law: { law: 'swift', K: 600, eps0: 0.01, n: 0.22 }, elasticModulus: 200000, rng: xoshiro128ss(7), noise: 1, toe: 0, step: 1.8e-6, necking: { extraStrain: 0.06, dropTo: 0.7 } });
+    let text = 'Dehnung [%]\tSpannung [MPa]\r\n';
+    for (let i = 0; i < rec.strain.length; i++) text += `${(rec.strain[i]! * 100).toFixed(6).replace('.', ',')}\t${rec.stress[i]!.toFixed(4).replace('.', ',')}\r\n`;
+    expect(2 * text.length).toBeGreaterThan(5 * 1024 * 1024); // over the 5 MB the notebooks take for a plan
+    await dropUtf16(page, 'unicode-export.txt', text);
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('unicode-export'), { timeout: 60_000 }).toBe(true);
+    await settled(page, 'records');
+    expect(await page.locator('#record-summary').innerText()).toContain(`${rec.strain.length} rows`);
+    expect(await page.locator('#fits-table tr[data-law="swift"]').innerText()).toMatch(/K 60[01]\.?\d*|K 599\.\d+/);
+    expect(await page.locator('.sl-error').count()).toBe(0);
+    expect(errors).toEqual([]);
+  });
 
   it('a dropped 42CrMoS4 record gives its properties; a malformed record shows an error cell while the previous state stays', async () => {
     const { page, errors } = await openPage(h, '/records/');

@@ -102,6 +102,22 @@ describe('parseRecordText(text) reads what labs export', () => {
     expect(r.warnings.join(' ')).toMatch(/2 columns could be the strain: "Strain 1 \[%\]" \(column 1\) is read, "Strain 2 \[%\]" \(column 2\) is not; map another with --column strain=NAME/);
     expect(check(csv('Strain [%],Stress [MPa]')).warnings.join(' ')).not.toMatch(/could be/);
   });
+  it('a spreadsheet\'s "Unicode text" export: UTF-16 LE or BE with its byte-order mark (Unicode Standard §23.8) reads as the UTF-8 file', async () => {
+    const text = csv('Strain [%]\tStress [MPa]', '\t', ',').replace(/\n/g, '\r\n');
+    const dir = mkdtempSync(join(tmpdir(), 'sl-utf16-'));
+    const le = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(text, 'utf16le')]);
+    const be = Buffer.from(le); be.swap16(); // byte order swapped, the mark becomes FE FF
+    const want = check(text);
+    for (const [name, bytes] of [['le.txt', le], ['be.txt', be]] as const) {
+      writeFileSync(join(dir, name), bytes);
+      const r = await readRecordFile(join(dir, name), { file: name });
+      expect(Array.from(r.strain), name).toEqual(Array.from(want.strain));
+      expect(Array.from(r.stress), name).toEqual(Array.from(want.stress));
+    }
+    // Without the mark the NUL bytes are refused with their place, and the message says what is read.
+    writeFileSync(join(dir, 'nomark.txt'), Buffer.from(text, 'utf16le'));
+    await expect(readRecordFile(join(dir, 'nomark.txt'), { file: 'nomark.txt' })).rejects.toThrow(/nomark\.txt:1:2: binary content \(NUL byte\); expected .* in UTF-8, or in UTF-16 with its byte-order mark/);
+  });
   it('force–extension in lbf and in with width × thickness from options (NIST: 1 lbf = 4.4482216152605 N)', () => {
     const A = 12.5 * 2, L0 = 50;
     check(csv('Load (lbf),Extension (in)', ',', '.', ([e, s]) => [(s * A) / 4.4482216152605, ((e / 100) * L0) / 25.4]).replace(/^([^\n]*)\n/, '$1\n'),
