@@ -6,6 +6,9 @@
 //             parser measured on this machine class, ../shared/DESIGN.md §8)
 //   csv-parse csv-parse 7.0.3 with per-record `info`, the reader before issue 12 (set OLD=1; ~10 s)
 //   numpy     numpy.loadtxt(delimiter=',', skiprows=1) (python3 on the PATH)
+//   quoted    readRecordFile on the same rows with every cell in double quotes ("0.125","205.3"), as some
+//             exports write them (read by the same byte scanner since the eighth session; csv-parse before)
+//   text      parseRecordText of the whole file as one string: the record bench's reader (in its web worker)
 // Run after `npm run build`: node bench/import.mjs   (ROWS=... for another size)
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -14,6 +17,15 @@ import { join } from 'node:path';
 import { writeInventedRecord } from './records-gen.mjs';
 
 const who = process.argv[2];
+if (who === 'text') {
+  const { parseRecordText } = await import('../dist/records/index.js');
+  const text = readFileSync(process.argv[3], 'utf8');
+  const t0 = performance.now();
+  const r = parseRecordText(text, { file: 'big.csv' });
+  const ms = performance.now() - t0;
+  console.log(JSON.stringify({ rows: r.rows, ms, maxRSSkB: process.resourceUsage().maxRSS, last: r.stress[r.rows - 1] }));
+  process.exit(0);
+}
 if (who === 'ours' || who === 'udsv' || who === 'csv-parse') {
   const file = process.argv[3];
   // Modules are loaded before the clock starts (the same for each reader): the rate is the reading's.
@@ -48,8 +60,11 @@ const dir = mkdtempSync(join(tmpdir(), 'sl-import-'));
 const file = join(dir, 'big.csv');
 const rows = await writeInventedRecord(file, ROWS);
 const size = statSync(file).size;
+const quotedFile = join(dir, 'quoted.csv');
+writeFileSync(quotedFile, readFileSync(file, 'utf8').replace(/[^,\n]+/g, '"$&"'));
 const run = (name) => {
-  const r = spawnSync(process.execPath, [import.meta.filename, name, file], { encoding: 'utf8', maxBuffer: 1 << 24 });
+  const [who, f] = name === 'quoted' ? ['ours', quotedFile] : [name, file];
+  const r = spawnSync(process.execPath, [import.meta.filename, who, f], { encoding: 'utf8', maxBuffer: 1 << 24 });
   if (r.status !== 0) return { error: r.stderr.trim().split('\n').pop() };
   return JSON.parse(r.stdout);
 };
@@ -66,7 +81,7 @@ const runPy = () => {
   return r.status === 0 ? JSON.parse(r.stdout) : { error: r.stderr.trim().split('\n').pop() };
 };
 console.log(`node ${process.version}, ${new Date().toISOString()}; file: ${rows.toLocaleString('en')} rows, ${(size / 1048576).toFixed(1)} MB, two columns; load average before ${loadavg().map((x) => x.toFixed(1)).join(' ')} (2 cores)`);
-const names = ['ours', 'udsv', 'numpy', ...(process.env.OLD ? ['csv-parse'] : [])];
+const names = ['ours', 'udsv', 'numpy', 'quoted', 'text', ...(process.env.OLD ? ['csv-parse'] : [])];
 const results = Object.fromEntries(names.map((n) => [n, []]));
 // Three rounds, readers interleaved, so load changes hit each alike; the median is reported.
 for (let round = 0; round < 3; round++) for (const n of names) results[n].push(n === 'numpy' ? runPy() : run(n));
