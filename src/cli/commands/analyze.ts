@@ -160,7 +160,7 @@ export const analyze = defineCommand({
     disagreement: { type: 'string', value: 'PCT', help: 'spread between good laws, in percent, above which they are reported as disagreeing (default 10)' },
     modulus: { type: 'string', value: 'MPA', help: "Young's modulus in MPa to use instead of the one fitted to the record" },
     residuals: { type: 'boolean', default: false, help: 'include each fit\'s residuals in the JSON output' },
-    threads: { type: 'string', value: 'N', help: 'threads for the law fits of a large record, 1 or 2 (default: 2 on a machine with two or more cores, one of them free, when the records hold 4 MB or more); the results are the same either way' },
+    threads: { type: 'string', value: 'N', help: 'threads for the law fits of a large record, 1 or 2 (default: 2 on a machine with four or more cores, two of them free, when the records hold 4 MB or more; else 1); the results are the same either way' },
     column: { type: 'string', multiple: true, default: [], value: 'ROLE=NAME', help: 'which column holds a role (strain, stress, force, extension, time), by header name or number' },
     delimiter: { type: 'string', value: ', ; tab', help: 'field separator of the record (default: detected)' },
     decimal: { type: 'string', value: '. ,', help: 'decimal mark of the record (default: detected)' },
@@ -233,12 +233,14 @@ export const analyze = defineCommand({
     // A second thread for the law fits of large records, started now so it is ready when the fits begin.
     let recordBytes = 0;
     for (const f of positionals) { try { recordBytes += statSync(f).size; } catch { /* the reader words it */ } }
-    // Default: two threads on a machine with two or more cores for records of 4 MB or more (about 200,000 rows),
-    // when a core is free: with the cores already busy (load average ≥ cores − 0.5, as `make -l` reads it) the
-    // second thread only competes with the first (measured: 0.80 s against 0.66 s at load 4 on two cores,
-    // bench/RESULTS.md). The results are the same either way.
+    // Default: two threads for records of 4 MB or more (about 200,000 rows) only on a machine with four or more cores,
+    // two of them free (load average < cores − 1.5, as `make -l` reads it). On two cores the helper competes with
+    // the engine's own background threads (optimising compiler, garbage collector): measured slower there, idle or
+    // busy (eighth session, `perf stat -r 10`: 1,000,000 rows 0.524 s on one thread against 0.563 s on two; 250,000
+    // rows 0.365 against 0.379; at load 4, 0.66 against 0.80 s; bench/RESULTS.md). Not measured on four cores. The
+    // results are the same either way.
     const cores = availableParallelism();
-    const wanted = threads !== undefined ? threads === 2 : cores >= 2 && recordBytes >= 4 * 1024 * 1024 && loadavg()[0]! < cores - 0.5;
+    const wanted = threads !== undefined ? threads === 2 : cores >= 4 && recordBytes >= 4 * 1024 * 1024 && loadavg()[0]! < cores - 1.5;
     const helper = wanted ? (await import('../fitThreads.js')).startFitHelper(60_000, threads === 2) : null;
     try {
       return await analyzeWith(helper?.fitLaws);
