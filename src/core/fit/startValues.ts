@@ -98,18 +98,38 @@ export function startValues(law: LawName, x: ArrayLike<number>, y: ArrayLike<num
       // evaluating the law point by point, so the same start).
       const n = x.length;
       const xp = new Float64Array(n), E = new Float64Array(n), oneMinusE = new Float64Array(n);
+      // The residual sum at (a, p) with σsat and σ0 solved exactly (linear least squares); Infinity where they are
+      // not admissible.
+      let pNow = NaN;
+      const at = (a: number, p: number): number => {
+        if (p !== pNow) { for (let i = 0; i < n; i++) xp[i] = Math.pow(x[i]!, p); pNow = p; }
+        for (let i = 0; i < n; i++) { E[i] = Math.exp(-a * xp[i]!); oneMinusE[i] = 1 - E[i]!; }
+        const c = twoColumn(oneMinusE, E, y);
+        if (!c) return Infinity;
+        const [sat, s0] = c;
+        if (!(sat > s0 && s0 >= 0)) return Infinity;
+        let s = 0;
+        for (let i = 0; i < n; i++) s += (sat - (sat - s0) * E[i]! - y[i]!) ** 2;
+        if (!Number.isFinite(s)) return Infinity;
+        if (s < bestS) { bestS = s; best = [sat, s0, a, p]; }
+        return s;
+      };
+      // The grid: a coarse one in a for each p, then (the valley in a is narrow: a grid step of a factor 1.7 can
+      // land far up its wall, 74 LM steps from such a start on the bench's 1,000,000-row record) a golden-section
+      // search in ln a between each row's best point's neighbours (14 evaluations a row; common practice for
+      // starts). It only lowers the start's residual sum; the fit itself is unchanged.
+      const as = logspace(0.3, 3000, 18);
+      const G = (Math.sqrt(5) - 1) / 2;
       for (const p of [0.4, 0.6, 0.8, 1, 1.3]) {
-        for (let i = 0; i < n; i++) xp[i] = Math.pow(x[i]!, p);
-        for (const a of logspace(0.3, 3000, 18)) {
-          for (let i = 0; i < n; i++) { E[i] = Math.exp(-a * xp[i]!); oneMinusE[i] = 1 - E[i]!; }
-          const c = twoColumn(oneMinusE, E, y);
-          if (!c) continue;
-          const [sat, s0] = c;
-          if (!(sat > s0 && s0 >= 0)) continue;
-          let s = 0;
-          for (let i = 0; i < n; i++) s += (sat - (sat - s0) * E[i]! - y[i]!) ** 2;
-          if (!Number.isFinite(s)) s = Infinity;
-          if (s < bestS) { bestS = s; best = [sat, s0, a, p]; }
+        let rowBest = -1, rowS = Infinity;
+        as.forEach((a, k) => { const s = at(a, p); if (s < rowS) { rowS = s; rowBest = k; } });
+        if (rowBest < 0) continue;
+        let lo = Math.log(as[Math.max(0, rowBest - 1)]!), hi = Math.log(as[Math.min(as.length - 1, rowBest + 1)]!);
+        let c = hi - G * (hi - lo), d = lo + G * (hi - lo);
+        let fc = at(Math.exp(c), p), fd = at(Math.exp(d), p);
+        for (let it = 0; it < 12; it++) {
+          if (fc <= fd) { hi = d; d = c; fd = fc; c = hi - G * (hi - lo); fc = at(Math.exp(c), p); }
+          else { lo = c; c = d; fc = fd; d = lo + G * (hi - lo); fd = at(Math.exp(d), p); }
         }
       }
       return best;

@@ -35,15 +35,27 @@ function plainVoce(x: number[], y: number[]): number[] {
 function plainHockettSherby(x: number[], y: number[]): number[] {
   const ymin = Math.min(...y), ymax = Math.max(...y);
   let best = [ymax * 1.05, ymin * 0.95, 10, 1], bestS = Infinity;
+  const at = (a: number, p: number): number => {
+    const E = x.map((e) => Math.exp(-a * Math.pow(e, p)));
+    const c = twoColumn(E.map((v) => 1 - v), E, y);
+    if (!c) return Infinity;
+    const [sat, s0] = c;
+    if (!(sat > s0 && s0 >= 0)) return Infinity;
+    const s = ssr((e) => sat - (sat - s0) * Math.exp(-a * Math.pow(e, p)), x, y);
+    if (s < bestS) { bestS = s; best = [sat, s0, a, p]; }
+    return s;
+  };
+  // The grid in a for each p, then a golden-section search in ln a between the row's best point's neighbours.
+  const as = logspace(0.3, 3000, 18), G = (Math.sqrt(5) - 1) / 2;
   for (const p of [0.4, 0.6, 0.8, 1, 1.3]) {
-    for (const a of logspace(0.3, 3000, 18)) {
-      const E = x.map((e) => Math.exp(-a * Math.pow(e, p)));
-      const c = twoColumn(E.map((v) => 1 - v), E, y);
-      if (!c) continue;
-      const [sat, s0] = c;
-      if (!(sat > s0 && s0 >= 0)) continue;
-      const s = ssr((e) => sat - (sat - s0) * Math.exp(-a * Math.pow(e, p)), x, y);
-      if (s < bestS) { bestS = s; best = [sat, s0, a, p]; }
+    let k = -1, rowS = Infinity;
+    as.forEach((a, i) => { const s = at(a, p); if (s < rowS) { rowS = s; k = i; } });
+    if (k < 0) continue;
+    let lo = Math.log(as[Math.max(0, k - 1)]!), hi = Math.log(as[Math.min(as.length - 1, k + 1)]!);
+    let c = hi - G * (hi - lo), d = lo + G * (hi - lo), fc = at(Math.exp(c), p), fd = at(Math.exp(d), p);
+    for (let it = 0; it < 12; it++) {
+      if (fc <= fd) { hi = d; d = c; fd = fc; c = hi - G * (hi - lo); fc = at(Math.exp(c), p); }
+      else { lo = c; c = d; fc = fd; d = lo + G * (hi - lo); fd = at(Math.exp(d), p); }
     }
   }
   return best;
