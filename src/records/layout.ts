@@ -1,4 +1,5 @@
 import { recordError } from './errors.js';
+import { describeColumn, roleScore, ROLES } from './columns.js';
 
 export type Delimiter = ',' | ';' | '\t';
 export const DELIMITERS: readonly Delimiter[] = ['\t', ';', ','];
@@ -53,6 +54,33 @@ function isUnitToken(t: string): boolean {
   return t.length <= 14 && !/strain|stress|force|load|time|extension|displacement|elongation/i.test(t) && /^[[(]?[A-Za-z%°µ/²³^0-9\-.·* ]*[\])]?$/.test(t);
 }
 
+/**
+ * True when the three lines from nonEmpty[at] are data rows with text cells: each has the header's field count and
+ * at least two numbers, the same columns hold numbers in all three, and every column holding text is one whose header
+ * names no role (describeColumn/roleScore: no strain, stress, force, extension or time).
+ */
+function textRows(h: string[], nonEmpty: readonly { l: string }[], at: number, d: string, dc: boolean): boolean {
+  let pattern = '';
+  for (let r = at; r < at + 3; r++) {
+    const line = nonEmpty[r];
+    if (!line) return false;
+    const f = splitLine(line.l, d);
+    if (f.length !== h.length) return false;
+    let p = '', nums = 0;
+    for (let j = 0; j < f.length; j++) {
+      const t = f[j]!;
+      if (t === '') { p += '_'; continue; }
+      if (isNumberToken(t, dc)) { p += 'n'; nums++; continue; }
+      const c = describeColumn(h[j]!, j);
+      if (ROLES.some((role) => roleScore(c, role, c.unit) > 0)) return false;
+      p += 't';
+    }
+    if (nums < 2 || (pattern && p !== pattern)) return false;
+    pattern = p;
+  }
+  return pattern.includes('t');
+}
+
 function numericRow(f: string[], dc: boolean): boolean {
   let nums = 0;
   for (const t of f) {
@@ -103,20 +131,24 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
   const nonEmpty = head.map((l, i) => ({ l, i })).filter((x) => x.l.trim() !== '');
   if (nonEmpty.length === 0) throw recordError(file, 1, 1, '', 'empty file; expected a header line of column names and rows of numbers below it');
   const cands = opts.delimiter ? [opts.delimiter] : DELIMITERS;
-  for (const d of cands) {
+  // Two passes: data rows of numbers only; then, when none is found, rows whose text cells (a status or phase column,
+  // `0.1,205.3,OK`) sit only in columns that are no strain, stress, force, extension or time, with three rows alike
+  // (textRows), so that a metadata line is not taken for data.
+  for (const relaxed of [false, true]) for (const d of cands) {
     for (let k = 0; k < nonEmpty.length; k++) {
       const h = splitLine(nonEmpty[k]!.l, d);
       // A header names columns: at least 2 fields, none of them a number.
       if (h.length < 2 || h.some((t) => t !== '' && isNumberToken(t, d !== ',')) || h.every((t) => t === '')) continue;
       const next = nonEmpty[k + 1];
       if (!next) continue;
+      const dataRow = (f: string[], dc: boolean, at: number) => (relaxed ? textRows(h, nonEmpty, at, d, dc) : numericRow(f, dc));
       const tryDc = (dc: boolean) => {
         const f1 = splitLine(next.l, d);
-        if (f1.length === h.length && numericRow(f1, dc)) return { units: null as string[] | null, data: next };
+        if (f1.length === h.length && dataRow(f1, dc, k + 1)) return { units: null as string[] | null, data: next };
         const after = nonEmpty[k + 2];
         if (f1.length <= h.length && after) {
           const f2 = splitLine(after.l, d);
-          if (f2.length === h.length && numericRow(f2, dc) && f1.every(isUnitToken)) return { units: f1, data: after };
+          if (f2.length === h.length && dataRow(f2, dc, k + 2) && f1.every(isUnitToken)) return { units: f1, data: after };
         }
         return null;
       };

@@ -96,6 +96,18 @@ describe('parseRecordText(text) reads what labs export', () => {
     expect(both.columns.extension).toMatchObject({ name: 'Extension [mm]' });
     expect(both.warnings.join(' ')).not.toMatch(/machine's travel/);
   });
+  it('data rows with a text column (a phase or status, common practice of machine exports) read through the text and the file reader', async () => {
+    const text = ['Specimen,A-7,steel,', 'Time [s],Strain [%],Stress [MPa],Phase', ...ROWS.map(([e, s], i) => `${i},${e},${s},${i < 4 ? 'elastic' : 'plastic'}`)].join('\n') + '\n';
+    const r = check(text);
+    expect(r.layout.headerLine).toBe(2);
+    const dir = mkdtempSync(join(tmpdir(), 'sl-phase-'));
+    writeFileSync(join(dir, 'p.csv'), text);
+    const f = await readRecordFile(join(dir, 'p.csv'), { file: 'p.csv' });
+    expect(Array.from(f.stress)).toEqual(Array.from(r.stress));
+    // Text in a column whose header names a role is not data: the record is refused as before.
+    const bad = ['Strain [%],Stress [MPa],Time [s]', ...ROWS.map(([e, s]) => `${e},${s},n/a`)].join('\n') + '\n';
+    expect(() => parseRecordText(bad, { file: 'b.csv' })).toThrow(/header only: no rows of numbers/);
+  });
   it('two channels of one kind (Strain 1, Strain 2): the first is read and a warning names both and how to map the other', () => {
     const r = check(['Strain 1 [%],Strain 2 [%],Stress [MPa]', ...ROWS.map(([e, s]) => `${e},${e * 1.05},${s}`)].join('\n') + '\n');
     expect(r.columns.strain).toMatchObject({ name: 'Strain 1 [%]' });
