@@ -92,13 +92,6 @@ function numericRow(f: string[], dc: boolean): boolean {
 }
 
 /**
- * Finds delimiter, decimal mark, header, optional units row, data start and metadata from the first
- * lines of a record. The header is the first line of ≥ 2 fields, not all numbers, followed (after an
- * optional units row of the same width) by a row of numbers. Tab, then semicolon, then comma are
- * tried; decimal comma is recognised with tab or semicolon.
- * @throws PlanError naming the file and line (header only, no header, one column).
- */
-/**
  * One metadata line's key, value and unit, as lab exports write them: `Gauge length,50,mm`, `Gauge length: 50 mm`,
  * `Diameter = 5.64 mm`, `Width (mm),12.5`, `Gage Length [in]: 2.000`, `Gauge length,50 mm` (common practice of
  * testing-machine exports). A unit in brackets after the key is moved to the unit when no unit field follows the
@@ -126,6 +119,13 @@ export function metadataEntry(f: readonly string[]): { key: string; value: strin
   return key ? { key, value, unit } : null;
 }
 
+/**
+ * Finds delimiter, decimal mark, header, optional units row, data start and metadata from the first
+ * lines of a record. The header is the first line of ≥ 2 fields, not all numbers, followed (after an
+ * optional units row of the same width) by a row of numbers. Tab, then semicolon, then comma are
+ * tried; decimal comma is recognised with tab or semicolon.
+ * @throws PlanError naming the file and line (header only, no header, one column).
+ */
 export function detectLayout(lines: readonly string[], file: string, opts: { delimiter?: Delimiter | undefined; decimal?: '.' | ',' | undefined } = {}): Layout {
   const head = lines.slice(0, MAX_HEAD_LINES);
   const nonEmpty = head.map((l, i) => ({ l, i })).filter((x) => x.l.trim() !== '');
