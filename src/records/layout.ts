@@ -122,8 +122,9 @@ export function metadataEntry(f: readonly string[]): { key: string; value: strin
 /**
  * Finds delimiter, decimal mark, header, optional units row, data start and metadata from the first
  * lines of a record. The header is the first line of ≥ 2 fields, not all numbers, followed (after an
- * optional units row of the same width) by a row of numbers. Tab, then semicolon, then comma are
- * tried; decimal comma is recognised with tab or semicolon.
+ * optional units row of the same width) by a row of numbers; failing that, by three rows with text only in
+ * columns that name no role ({@link textRows}). Tab, then semicolon, then comma are tried; decimal comma is
+ * recognised with tab or semicolon.
  * @throws PlanError naming the file and line (header only, no header, one column).
  */
 export function detectLayout(lines: readonly string[], file: string, opts: { delimiter?: Delimiter | undefined; decimal?: '.' | ',' | undefined } = {}): Layout {
