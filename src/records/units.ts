@@ -33,6 +33,8 @@ export const STRAIN_UNITS: Readonly<Record<string, number>> = {
   // Microstrain (µε = 1e-6; micro sign U+00B5 or Greek mu U+03BC; 'ue' as ASCII exports write it), mm/m = 1e-3.
   'µε': 1e-6, 'με': 1e-6, 'µe': 1e-6, ue: 1e-6, µstrain: 1e-6, microstrain: 1e-6, 'µm/m': 1e-6, 'μm/m': 1e-6, 'um/m': 1e-6,
   'mm/m': 1e-3, 'µin/in': 1e-6, 'uin/in': 1e-6,
+  // Per mille (‰, U+2030; 1 ‰ = 1e-3, the same as mm/m), as some European exports write strain.
+  '‰': 1e-3, permille: 1e-3, 'per mille': 1e-3,
 };
 
 export type Quantity = 'stress' | 'force' | 'length' | 'strain' | 'time';
@@ -76,6 +78,6 @@ export function allowedUnits(q: Exclude<Quantity, 'time'>): string {
     case 'stress': return 'MPa, N/mm², MN/m², GPa, kPa, Pa, kN/cm², ksi, psi (lbf/in²), kgf/mm²';
     case 'force': return 'N, kN, lbf, kip, kgf';
     case 'length': return 'mm, in, m, cm, µm';
-    case 'strain': return 'a fraction (-, mm/mm, in/in), %, mm/m or µε (microstrain)';
+    case 'strain': return 'a fraction (-, mm/mm, in/in), %, ‰ (mm/m) or µε (microstrain)';
   }
 }

@@ -46,6 +46,8 @@ describe('unitFactor(quantity, unit) for the units labs write', () => {
     for (const u of ['in/in', 'mm/mm', '[in/in]', '(mm/mm)', 'in per in', 'in./in.']) expect(unitFactor('strain', u), u).toBe(1);
     expect(unitFactor('strain', '%')).toBe(0.01);
     for (const u of ['µε', 'με', 'ue', 'microstrain', '[µε]']) expect(unitFactor('strain', u), u).toBe(1e-6);
+    // Per mille: 1 ‰ = 0.001, the same as mm/m (common practice; the per mille sign is U+2030).
+    for (const u of ['‰', '[‰]', 'permille', 'mm/m']) expect(unitFactor('strain', u), u).toBe(1e-3);
   });
   it('stress: N/mm² = N/mm2 = MPa; ksi = 6.894757 MPa (NIST SP 811 B.8)', () => {
     for (const u of ['N/mm²', 'N/mm2', '[MPa]', '(MPa)']) expect(unitFactor('stress', u), u).toBe(1);
