@@ -78,7 +78,8 @@ const toEnglish = (b: string) => b.split(' ').map((w) => (Object.prototype.hasOw
  * low and the strains are not ISO 6892-1 extensometer strains (common practice).
  */
 export function isMachineTravel(c: ColumnInfo): boolean {
-  return /machine|crosshead|cross head|stroke|position|actuator|piston|travel/.test(toEnglish(c.base));
+  const b = toEnglish(c.base);
+  return /machine|crosshead|cross head|stroke|position|actuator|piston|travel/.test(b) && !/extensometer/.test(b);
 }
 
 /** Score of a column for a role (0 = not this role). Higher wins; engineering values beat true ones. */

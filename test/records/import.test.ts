@@ -95,6 +95,9 @@ describe('parseRecordText(text) reads what labs export', () => {
     const both = check([...meta, 'Load [N],Crosshead [mm],Extension [mm]', ...ROWS.map(([e, s]) => `${s * 25},${(e / 100) * 50 * 1.7},${(e / 100) * 50}`)].join('\n') + '\n');
     expect(both.columns.extension).toMatchObject({ name: 'Extension [mm]' });
     expect(both.warnings.join(' ')).not.toMatch(/machine's travel/);
+    // An extensometer's own position channel is no machine travel.
+    const ext = check(fe(meta, 'Load [N],Extensometer position [mm]', ',', (s) => s * 25, (e) => e * 50));
+    expect(ext.warnings.join(' ')).not.toMatch(/machine's travel/);
   });
   it('data rows with a text column (a phase or status, common practice of machine exports) read through the text and the file reader', async () => {
     const text = ['Specimen,A-7,steel,', 'Time [s],Strain [%],Stress [MPa],Phase', ...ROWS.map(([e, s], i) => `${i},${e},${s},${i < 4 ? 'elastic' : 'plastic'}`)].join('\n') + '\n';
