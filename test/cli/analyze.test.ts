@@ -116,6 +116,25 @@ describe('strainledger analyze RECORD --format json', () => {
     expect(j.lawParameters.law).toBe('voce');
     expect(j.jointFit.fits.length).toBe(6);
   });
+  it('--strain-unit permille and microstrain override a strain column without a unit (1 ‰ = 1e-3, 1 µε = 1e-6: SI prefix micro; per mille common practice)', () => {
+    // INVENTED: the same rows written as fraction, per mille and microstrain, no unit in the header.
+    // Fine steps over the elastic line (E 200 GPa to 250 MPa), coarser after.
+    const rows = Array.from({ length: 900 }, (_, i) => { const e = i < 500 ? i * 2e-5 : 0.01 + (i - 500) * 5e-4; return [e, Math.min(200000 * e, 250 + 600 * e)] as const; });
+    const file = (name: string, k: number) => { const f = join(dir, name); writeFileSync(f, 'strain,stress [MPa]\n' + rows.map(([e, s]) => `${e * k},${s}`).join('\n') + '\n'); return f; };
+    const want = JSON.parse(run('analyze', file('frac.csv', 1), '--strain-unit', 'fraction', '--format', 'json').stdout);
+    expectRelClose(want.elasticModulus, 200000, 1e-6, 'E from the fraction file');
+    for (const [unit, k] of [['permille', 1e3], ['‰', 1e3], ['microstrain', 1e6], ['µε', 1e6]] as const) {
+      const r = run('analyze', file(`s${k}.csv`, k), '--strain-unit', unit, '--format', 'json');
+      expect(r.status, r.stderr).toBe(0);
+      const j = JSON.parse(r.stdout);
+      // E and the elongations depend on the strain's unit: the same as from the fraction file.
+      expectRelClose(j.elasticModulus, want.elasticModulus, 1e-9, `${unit}: E`);
+      expectRelClose(j.totalElongationPct, want.totalElongationPct, 1e-9, `${unit}: A`);
+    }
+    const bad = run('analyze', file('frac2.csv', 1), '--strain-unit', 'inch');
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/--strain-unit: got "inch", allowed fraction, percent, permille \(‰\) or microstrain \(µε\)/);
+  });
   it('--format table prints the properties and the cautions', () => {
     const r = run('analyze', join(FIX, '46NTBN.csv'));
     expect(r.status).toBe(0);

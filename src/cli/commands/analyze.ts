@@ -167,7 +167,7 @@ export const analyze = defineCommand({
     'stress-unit': { type: 'string', value: 'UNIT', help: 'unit of the stress column when the record does not say, e.g. MPa, ksi' },
     'force-unit': { type: 'string', value: 'UNIT', help: 'unit of the force column when the record does not say, e.g. N, kN, lbf' },
     'length-unit': { type: 'string', value: 'UNIT', help: 'unit of the extension column and sizes when the record does not say, e.g. mm, in' },
-    'strain-unit': { type: 'string', value: 'fraction|percent', help: 'unit of the strain column when the record does not say' },
+    'strain-unit': { type: 'string', value: 'fraction|percent|permille|microstrain', help: 'unit of the strain column when the record does not say (or says wrongly)' },
     area: { type: 'string', value: 'MM2', help: 'specimen cross-section (for a force column), in mm²' },
     diameter: { type: 'string', value: 'MM', help: 'round specimen diameter (for a force column), in mm' },
     width: { type: 'string', value: 'MM', help: 'flat specimen width (with --thickness), in mm' },
@@ -201,9 +201,8 @@ export const analyze = defineCommand({
     if (values['length-unit'] !== undefined) ropts.lengthUnit = values['length-unit'];
     if (values['strain-unit'] !== undefined) {
       const s = values['strain-unit'];
-      if (!['fraction', 'percent', '%'].includes(s)) throw cliError('--strain-unit', `got ${JSON.stringify(s)}, allowed fraction or percent`);
-      ropts.strainUnit = s === 'fraction' ? '' : '%';
-      if (s === 'fraction') ropts.strainUnit = '-';
+      if (!['fraction', 'percent', '%', 'permille', '‰', 'microstrain', 'µε'].includes(s)) throw cliError('--strain-unit', `got ${JSON.stringify(s)}, allowed fraction, percent, permille (‰) or microstrain (µε)`);
+      ropts.strainUnit = s === 'fraction' ? '-' : s === 'percent' || s === '%' ? '%' : s === 'permille' || s === '‰' ? '‰' : 'µε';
     }
     for (const [k, name] of [['area', 'area'], ['diameter', 'diameter'], ['width', 'width'], ['thickness', 'thickness'], ['gauge-length', 'gaugeLength']] as const) {
       const v = num(k, values[k], 1e-9, 1e9);
