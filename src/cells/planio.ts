@@ -52,7 +52,7 @@ export const MAX_RECORD_BYTES = 256 * 1024 * 1024;
 
 /**
  * Reads a dropped tensile-record export: up to {@link MAX_RECORD_BYTES}, UTF-8, or UTF-16 with its byte-order mark
- * (a spreadsheet's "Unicode text" export), decoded by decodeRecordBytes as the runner decodes it.
+ * (a spreadsheet's UTF-16 text export), decoded by decodeRecordBytes as the runner decodes it.
  */
 export async function readRecordFileText(file: File): Promise<string> {
   if (file.size > MAX_RECORD_BYTES) throw new Error(`${file.name}: ${file.size} bytes; records up to ${MAX_RECORD_BYTES} bytes are accepted`);

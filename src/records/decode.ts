@@ -1,5 +1,5 @@
 /**
- * The text of a record file from its bytes. UTF-16 with its byte-order mark — what a spreadsheet's "Unicode text"
+ * The text of a record file from its bytes. UTF-16 with its byte-order mark — what a spreadsheet's UTF-16 text
  * export writes (tab-separated, little-endian, BOM FF FE; common practice) — is decoded as UTF-16 (LE or BE, by the
  * mark; the Unicode Standard §23.8 / RFC 2781 §3.2); everything else as UTF-8, whose own mark the readers skip.
  * Without a mark, UTF-16 is not guessed: its NUL bytes are refused by the readers with their line and column.

@@ -1,4 +1,4 @@
-import { createReadStream, openSync, readSync, closeSync, fstatSync } from 'node:fs';
+import { createReadStream, openSync, readSync, readFileSync, closeSync, fstatSync } from 'node:fs';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { parse } from 'csv-parse';
@@ -8,7 +8,6 @@ import { detectLayout, type Layout } from './layout.js';
 import { ByteRowScanner, RowScanner } from './scan.js';
 import { checkText, csvProblem, headLines, parseRecordText } from './parse.js';
 import { decodeRecordBytes, utf16Mark } from './decode.js';
-import { readFileSync } from 'node:fs';
 
 /** Bytes read to find the layout (metadata, header, units row). */
 export const HEAD_BYTES = 256 * 1024;
@@ -38,7 +37,7 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
   }
   let head = buf.subarray(0, got);
   if (utf16Mark(head)) {
-    // A spreadsheet's "Unicode text" export (UTF-16 with its mark): decoded whole and read as text (such files come
+    // A spreadsheet's UTF-16 text export (UTF-16 with its mark): decoded whole and read as text (such files come
     // from a spreadsheet, so they are of a spreadsheet's size).
     return parseRecordText(decodeRecordBytes(readFileSync(path)), { ...opts, file });
   }

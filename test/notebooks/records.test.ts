@@ -28,7 +28,7 @@ async function dropFile(page: Page, name: string, text: string): Promise<void> {
   await page.dispatchEvent('#record-drop', 'drop', { dataTransfer: dt });
 }
 
-/** Drops `text` as a spreadsheet's "Unicode text" export: UTF-16LE with its byte-order mark, made in the page. */
+/** Drops `text` as a spreadsheet's UTF-16 text export: UTF-16LE with its byte-order mark, made in the page. */
 async function dropUtf16(page: Page, name: string, text: string): Promise<void> {
   const dt = await page.evaluateHandle(([n, t]) => {
     const bytes = new Uint8Array(2 + 2 * t!.length);
@@ -71,7 +71,7 @@ describe('record bench', () => {
   });
 
 
-  it('a spreadsheet\'s "Unicode text" export (UTF-16LE with its mark, tab-separated) of over 5 MB is read and fitted', async () => {
+  it('a spreadsheet\'s UTF-16 text export (UTF-16LE with its mark, tab-separated) of over 5 MB is read and fitted', async () => {
     const { page, errors } = await openPage(h, '/records/');
     await settled(page, 'records');
     // INVENTED: 150,000 points from a known Swift law (K 600 MPa, ε0 0.01, n 0.22, E 200 GPa); 6 MB as UTF-16.

@@ -83,7 +83,7 @@ describe('parseRecordText(text) reads what labs export', () => {
     expectRelClose(r.geometry!.gaugeLength, L0, 1e-12, 'gauge length');
   });
   it('an extensometer channel named "Strain" but recorded in mm is read as the extension', () => {
-    const r = check(fe(['Width: 12.5 mm', 'Thickness: 2 mm', 'Gauge length: 50 mm'], 'Standard force [N],Strain [mm]', ',', (s) => s * 25, (e) => e * 50));
+    const r = check(fe(['Width: 12.5 mm', 'Thickness: 2 mm', 'Gauge length: 50 mm'], 'Force [N],Strain [mm]', ',', (s) => s * 25, (e) => e * 50));
     expect(r.basis).toBe('force-extension');
     expect(r.columns.extension).toMatchObject({ name: 'Strain [mm]' });
   });
@@ -117,7 +117,7 @@ describe('parseRecordText(text) reads what labs export', () => {
     expect(r.warnings.join(' ')).toMatch(/2 columns could be the strain: "Strain 1 \[%\]" \(column 1\) is read, "Strain 2 \[%\]" \(column 2\) is not; map another with --column strain=NAME/);
     expect(check(csv('Strain [%],Stress [MPa]')).warnings.join(' ')).not.toMatch(/could be/);
   });
-  it('a spreadsheet\'s "Unicode text" export: UTF-16 LE or BE with its byte-order mark (Unicode Standard §23.8) reads as the UTF-8 file', async () => {
+  it('a spreadsheet\'s UTF-16 text export: UTF-16 LE or BE with its byte-order mark (Unicode Standard §23.8) reads as the UTF-8 file', async () => {
     const text = csv('Strain [%]\tStress [MPa]', '\t', ',').replace(/\n/g, '\r\n');
     const dir = mkdtempSync(join(tmpdir(), 'sl-utf16-'));
     const le = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(text, 'utf16le')]);
