@@ -190,15 +190,16 @@ nb.cell({ name: 'input', fn: () => null })
           ? h('dd', { 'data-q': id }, h('span', { class: 'sl-none' }, opt.none))
           : h('dd', { 'data-q': id }, opt.prefix ? `${opt.prefix} ` : '', h('span', { class: 'sl-num' }, fixed(v, d)), unit ? ` ${unit}` : ''));
       const w = a.elasticWindow;
-      const stopped = a.warnings.some((x) => x.code === 'maxAtEnd');
-      const lower = stopped ? { prefix: '≥' } : {};
+      // Lower bounds (the test stopped before maximum force, or the strain channel ended before fracture): ≥.
+      const lower = (k: TensileAnalysis['lowerBounds'][number]) => (a.lowerBounds.includes(k) ? { prefix: '≥' } : {});
+      const stopped = a.lowerBounds.includes('tensileStrength');
       const continuous = 'none (continuous yielding)';
       return h('div', {},
         h('dl', { class: 'sl-quantities', id: 'properties' },
           q(`Rp${a.proofOffsetPct}`, a.proofStrength, DIGITS.stress, 'MPa', 'proofStrength', { none: 'not reached' }),
-          q('Rm', a.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength', lower),
-          q('Ag (uniform elongation)', a.uniformElongationPct, 2, '%', 'uniformElongation', lower),
-          q(stopped ? 'A (record ends before fracture)' : 'A (after fracture)', a.totalElongationPct, 2, '%', 'totalElongation', lower),
+          q(a.forceTop ? 'Rm (from the force after the strain ended)' : 'Rm', a.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength', lower('tensileStrength')),
+          q('Ag (uniform elongation)', a.uniformElongationPct, 2, '%', 'uniformElongation', lower('uniformElongationPct')),
+          q(stopped ? 'A (record ends before fracture)' : a.strainChannelEnd ? 'A (strain channel ends before fracture)' : 'A (after fracture)', a.totalElongationPct, 2, '%', 'totalElongation', lower('totalElongationPct')),
           q(a.elasticModulusSource === 'given' ? 'E (given)' : 'E (elastic window)', a.elasticModulus / 1000, 1, 'GPa', 'elasticModulus'),
           q('n-value', a.nValue, 3, '', 'nValue', { none: 'not determined' }),
           q('ReH (upper yield)', a.upperYield, DIGITS.stress, 'MPa', 'upperYield', { none: continuous }),

@@ -15,14 +15,17 @@ function thin(n: number): number[] {
 
 /**
  * The record as engineering stress against engineering strain (in %), with the elastic window
- * (where E was fitted) drawn thick. Strains are shown as recorded (before toe compensation).
+ * (where E was fitted) drawn thick. Strains are shown as recorded (before toe compensation). Where the
+ * strain channel ended before fracture (extensometer taken off) the curve stops there, at a dotted line
+ * that says so: the samples after it have force but no strain of the specimen.
  */
 export function recordCurveChart(
   record: { strain: ArrayLike<number>; stress: ArrayLike<number> },
-  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number },
+  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null },
   o: { width?: number; height?: number; document?: Document } = {},
 ): SVGSVGElement | HTMLElement {
-  const idx = thin(record.strain.length);
+  const end = analysis.strainChannelEnd ?? null;
+  const idx = thin(end ? end.index : record.strain.length);
   const pts = idx.map((i) => ({ e: record.strain[i]! * 100, s: record.stress[i]! }));
   const w = analysis.elasticWindow;
   const win: { e: number; s: number }[] = [];
@@ -35,6 +38,10 @@ export function recordCurveChart(
       Plot.ruleY([0], { stroke: PALETTE.grid }),
       Plot.line(pts, { x: 'e', y: 's', stroke: PALETTE.strength, strokeWidth: 1.5 }),
       Plot.line(win, { x: 'e', y: 's', stroke: PALETTE.elastic, strokeWidth: 6, strokeOpacity: 0.7 }),
+      ...(end ? [
+        Plot.ruleX([end.strain * 100], { stroke: PALETTE.ink, strokeDasharray: '1,3' }),
+        Plot.text([end.strain * 100], { x: (d: number) => d, text: () => 'strain ends (extensometer off)', frameAnchor: 'bottom', textAnchor: 'end', dx: -4, dy: -8, fill: PALETTE.ink, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
+      ] : []),
       ...(analysis.proofStrength !== null ? [
         Plot.ruleY([analysis.proofStrength], { stroke: PALETTE.elastic, strokeDasharray: '4,3' }),
         Plot.text([analysis.proofStrength], { y: (d: number) => d, text: (d: number) => `Rp0.2 ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: 9, fill: PALETTE.elastic, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),

@@ -129,6 +129,8 @@ export { yieldPoint, YIELD_DROP } from './tensile/yieldPoint.js';
 export { recordNoise, recordNoiseWide } from './tensile/recordNoise.js';
 export { forceMaximum } from './tensile/forceMaximum.js';
 export type { ForceMaximum } from './tensile/forceMaximum.js';
+export { extensometerEnd, EXTENSOMETER_END } from './tensile/extensometerEnd.js';
+export type { ExtensometerEnd } from './tensile/extensometerEnd.js';
 export { quadraticFit, movingAverage } from './tensile/localFit.js';
 export type { YieldPointResult } from './tensile/yieldPoint.js';
 export { nValueFit } from './tensile/nValue.js';

@@ -63,7 +63,7 @@ interface Plan {
 /** Collects rows into growable typed arrays; validates every used cell with its line and column. */
 /** Fewest rows of a tensile record. */
 const MIN_ROWS = 10;
-/** Most non-number rows read as a footer at the end of a record (more is not a footer: the file is not one record); rows with only the strain cell empty (extensometer taken off) are not limited. */
+/** Most non-number rows read as a footer at the end of a record (more is not a footer: the file is not one record); rows with only the strain cell empty (extensometer taken off) are data, not footer. */
 const MAX_FOOTER_ROWS = 1000;
 
 export class RecordBuilder {
@@ -91,10 +91,11 @@ export class RecordBuilder {
   private maxS = 0;
   /**
    * The first row after the data that is not two numbers, kept while only such rows follow: a footer
-   * ("Maximum;358.2", "End of test") or an extensometer taken off (the strain cells empty to the end). A row of
-   * numbers after it makes it the error it is.
+   * ("Maximum;358.2", "End of test"). A row of numbers after it makes it the error it is.
    */
-  private footer: { error: unknown; line: number; lastLine: number; rows: number; strainEmpty: boolean } | null = null;
+  private footer: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
+  /** Rows at the end whose strain cell is empty and stress a number (extensometer taken off), stored with the last strain held. */
+  private held: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
 
   constructor(layout: Layout, opts: RecordOptions) {
     this.file = opts.file ?? 'record';
@@ -250,14 +251,31 @@ export class RecordBuilder {
       x = this.cell(f, a, line);
       y = this.cell(f, b, line);
     } catch (e) {
+      // An extensometer taken off: after the record's first rows, the strain cell empty and the stress a number.
+      // The row keeps the strain's last value (as a machine that holds the reading would write it), so the force
+      // after it still counts for Rm; the analysis finds where the strain stopped (extensometerEnd) and reads Ag
+      // and A before it.
+      if (this.n >= MIN_ROWS && !this.footer && (f[a.index] ?? '').trim() === '' && (f[b.index] ?? '').trim() !== '') {
+        let held: number | null = null;
+        try { held = this.cell(f, b, line); } catch { /* not a number: a footer row, below */ }
+        if (held !== null) {
+          this.held ??= { error: e, line, lastLine: line, rows: 0 };
+          this.held.rows++;
+          this.held.lastLine = line;
+          this.pushHeld(held, line);
+          return;
+        }
+      }
       // Before a record of at least MIN_ROWS rows the row is an error; after it, a footer candidate.
-      if (this.n < MIN_ROWS || (this.footer && !this.footer.strainEmpty && this.footer.rows === MAX_FOOTER_ROWS)) throw this.footer?.error ?? e;
-      this.footer ??= { error: e, line, lastLine: line, rows: 0, strainEmpty: (f[a.index] ?? '').trim() === '' && (f[b.index] ?? '').trim() !== '' };
+      if (this.n < MIN_ROWS || (this.footer && this.footer.rows === MAX_FOOTER_ROWS)) throw this.footer?.error ?? e;
+      this.footer ??= { error: e, line, lastLine: line, rows: 0 };
       this.footer.rows++;
       this.footer.lastLine = line;
       return;
     }
+    // Numbers after a footer, or a strain again after empty strain cells: the first of those rows is the error.
     if (this.footer) throw this.footer.error;
+    if (this.held) throw this.held.error;
     this.pushValues(x, y, line);
   }
 
@@ -288,6 +306,20 @@ export class RecordBuilder {
   /** Rows added so far. */
   get rowCount(): number {
     return this.n;
+  }
+
+  /** Adds a row whose strain cell was empty: the last strain as stored, the stress `y` as pushValues stores it. */
+  private pushHeld(y: number, line: number): void {
+    if (this.n === this.xs.length) {
+      if (this.n >= MAX_ROWS) this.fail(line, 1, '', `more than ${MAX_ROWS} data rows; split the record`);
+      this.reserve(this.n * 2);
+    }
+    this.xs[this.n] = this.xs[this.n - 1]!;
+    const sy = this.early ? y * this.fb : y;
+    this.ys[this.n] = sy;
+    if (this.early) this.maxS = Math.max(this.maxS, Math.abs(sy));
+    this.n++;
+    this.lastLine = line;
   }
 
   /** Adds the two numbers of one data row found at 1-based `line` (already checked as {@link push} checks cells). */
@@ -345,9 +377,11 @@ export class RecordBuilder {
     if (ft) {
       const why = (ft.error as { problems?: { message: string }[] }).problems?.[0]?.message ?? String(ft.error);
       const span = ft.rows === 1 ? `line ${ft.line}` : `lines ${ft.line}–${ft.lastLine}`;
-      this.warnings.push(ft.strainEmpty
-        ? `the ${p.mode === 'ss' ? 'strain' : 'extension'} column ${show(p.a.name)} is empty from line ${ft.line} to the end (${ft.rows} rows; extensometer taken off?): the record is read to line ${this.lastLine}; Rm, Ag and A past that point are not in it`
-        : `${span} after the data ${ft.rows === 1 ? 'is not a row' : 'are not rows'} of numbers (first: ${why}): read as a footer and left out; the record ends at line ${this.lastLine}`);
+      this.warnings.push(`${span} after the data ${ft.rows === 1 ? 'is not a row' : 'are not rows'} of numbers (first: ${why}): read as a footer and left out; the record ends at line ${this.lastLine}`);
+    }
+    const hd = this.held;
+    if (hd) {
+      this.warnings.push(`the ${p.mode === 'ss' ? 'strain' : 'extension'} column ${show(p.a.name)} is empty from line ${hd.line} to ${hd.lastLine === this.lastLine ? 'the end' : `line ${hd.lastLine}`} (${hd.rows} rows; extensometer taken off?): its last value is held there, so the force still counts for Rm; properties that need strain are read where it still changes`);
     }
     let fa = p.fa;
     if (Number.isNaN(fa)) {

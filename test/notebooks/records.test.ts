@@ -210,6 +210,27 @@ describe('record bench', () => {
     expect(await page.locator('[data-q="tensileStrength"]').innerText()).toMatch(/^≥ \d/);
     expect(await page.locator('[data-q="totalElongation"]').innerText()).toMatch(/^≥ \d/);
     expect(await page.locator('#properties').innerText()).toContain('A (record ends before fracture)');
+    // The same INVENTED record whole, its strain cells empty from 8 % strain (extensometer taken off before maximum
+    // force): Rm from the force (no ≥, within 0.4 % of the whole record's), Ag and A lower bounds.
+    let whole = 'Strain [%],Stress [MPa]\n', off = whole;
+    for (let i = 0; i < rec.strain.length; i++) {
+      whole += `${(rec.strain[i]! * 100).toFixed(6)},${rec.stress[i]!.toFixed(4)}\n`;
+      off += `${rec.strain[i]! < 0.08 ? (rec.strain[i]! * 100).toFixed(6) : ''},${rec.stress[i]!.toFixed(4)}\n`;
+    }
+    await dropFile(page, 'whole.csv', whole);
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('whole'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    const rmWhole = await num(page, 'tensileStrength');
+    await dropFile(page, 'extensometer-off.csv', off);
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('extensometer-off'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expect(await page.locator('[data-q="tensileStrength"]').innerText()).not.toContain('≥');
+    expectRelClose(await num(page, 'tensileStrength'), rmWhole, 0.004, 'Rm from the force after the extensometer came off');
+    expect(await page.locator('[data-q="uniformElongation"]').innerText()).toMatch(/^≥ \d/);
+    expect(await page.locator('[data-q="totalElongation"]').innerText()).toMatch(/^≥ \d/);
+    expect(await page.locator('#properties').innerText()).toContain('Rm (from the force after the strain ended)');
+    expect(await page.locator('#properties').innerText()).toContain('A (strain channel ends before fracture)');
+    expect(await page.locator('#cell-properties').innerText()).toMatch(/the strain holds one value from sample \d+/);
     // INVENTED: a clear 8 % yield drop with a 2 % Lüders plateau and little noise.
     const { synthesizeLabRecord } = await import('../../src/core/index.js');
     const lab = synthesizeLabRecord({ law: { law: 'voce', sigma0: 280, Q: 200, b: 12 }, elasticModulus: 205000, rng: xoshiro128ss(3), points: 8000, noise: 0.5, yieldDrop: { drop: 0.08, luedersStrain: 0.02 } });

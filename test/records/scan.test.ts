@@ -150,9 +150,19 @@ describe('parseRecordText through the fast scanner gives what an independent par
     expect(r.rows).toBe(12);
     expect(r.warnings.join('\n')).toMatch(/lines 15–16 after the data are not rows of numbers \(first: got "Maximum", expected a number\): read as a footer and left out; the record ends at line 13/);
     // Extensometer taken off: the strain cells are empty to the end while the stress goes on.
+    // The rows are kept with the strain's last value held (the force still counts for Rm; the analysis finds where
+    // the strain stopped, test/core/tensile/extensometerEnd.test.ts).
     const off = parseRecordText(base + ',130\n,140\n,135\n', { file: 'x.csv', strainUnit: 'fraction' });
-    expect(off.rows).toBe(12);
-    expect(off.warnings.join('\n')).toMatch(/strain column "strain" is empty from line 14 to the end \(3 rows; extensometer taken off\?\)/);
+    expect(off.rows).toBe(15);
+    expect(Array.from(off.strain.subarray(11))).toEqual([0.011, 0.011, 0.011, 0.011]);
+    expect(Array.from(off.stress.subarray(11))).toEqual([110, 130, 140, 135]);
+    expect(off.warnings.join('\n')).toMatch(/strain column "strain" is empty from line 14 to the end \(3 rows; extensometer taken off\?\): its last value is held there/);
+    // A strain again after empty strain cells: the first empty cell is the error, located.
+    expect(() => parseRecordText(base + ',130\n0.02,140\n', { file: 'y.csv', strainUnit: 'fraction' })).toThrow(/^y\.csv:14:1: strain: got "", expected a number$/);
+    // A footer after the held rows is still a footer.
+    const offEnd = parseRecordText(base + ',130\n,140\nEnd of test,\n', { file: 'z.csv', strainUnit: 'fraction' });
+    expect(offEnd.rows).toBe(14);
+    expect(offEnd.warnings.join('\n')).toMatch(/line 16 after the data is not a row of numbers/);
     // Numbers after a non-number row: the first bad row is the error, located.
     expect(() => parseRecordText(base + 'Maximum,110\n0.5,120\n', { file: 'g.csv', strainUnit: 'fraction' })).toThrow(/^g\.csv:14:1: strain: got "Maximum", expected a number$/);
     // A bad row among the first ten is an error, never a footer.

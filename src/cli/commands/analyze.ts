@@ -43,6 +43,7 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     tensileStrength: a.tensileStrength,
     uniformElongationPct: a.uniformElongationPct,
     totalElongationPct: a.totalElongationPct,
+    lowerBounds: a.lowerBounds,
     nValue: a.nValue,
     K: a.K,
     fits: a.fits ? a.fits.fits.map(fit) : [],
@@ -61,6 +62,8 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     elasticWindow: a.elasticWindow,
     toeStrain: a.toeStrain,
     fracture: a.fracture,
+    strainChannelEnd: a.strainChannelEnd,
+    forceTop: a.forceTop,
     nFit: a.nFit,
     bestLaw: a.fits?.best ?? null,
     goodLaws: a.fits?.goodLaws ?? [],
@@ -109,14 +112,16 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   lines.push(`  Rp${a.proofOffsetPct}        ${fmt(a.proofStrength)} MPa   Rp0.5 ${fmt(a.proofStrengths[1]?.stress)}   Rp1 ${fmt(a.proofStrengths[2]?.stress)}   Rt0.5 ${fmt(a.totalExtensionStrength)}`);
   if (a.upperYield !== null) lines.push(`  ReH / ReL    ${fmt(a.upperYield)} / ${fmt(a.lowerYield)} MPa   Ae ${fmt(a.yieldPointElongationPct, 2)} %`);
   else lines.push('  ReH          none (continuous yielding)');
-  // A record that stops before maximum force gives lower bounds, marked ≥ (the warning below says why).
-  const ge = a.warnings.some((x) => x.code === 'maxAtEnd') ? '≥ ' : '';
-  lines.push(`  Rm           ${ge}${fmt(a.tensileStrength)} MPa`);
+  // Lower bounds (a record that stops before maximum force, or whose strain channel ends before fracture) are
+  // marked ≥ (the warning below says why).
+  const ge = (k: TensileAnalysis['lowerBounds'][number]) => (a.lowerBounds.includes(k) ? '≥ ' : '');
+  lines.push(`  Rm           ${ge('tensileStrength')}${fmt(a.tensileStrength)} MPa${a.forceTop ? '   (from the force after the strain channel ended)' : ''}`);
   const agCi = a.forceMaximum.uniformElongationInterval95;
-  const agHow = ge ? '   (the record ends before maximum force)'
-    : a.forceMaximum.lawUniformElongation?.pct != null ? `   (Ag where the fitted laws reach maximum force, inside the top's 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`
-      : `   (Ag from the samples near the top, 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`;
-  lines.push(`  Ag / Agt / A ${ge}${fmt(a.uniformElongationPct, 2)} / ${ge}${fmt(a.uniformTotalElongationPct, 2)} / ${ge}${fmt(a.totalElongationPct, 2)} %${agHow}`);
+  const agHow = ge('tensileStrength') ? '   (the record ends before maximum force)'
+    : ge('uniformElongationPct') ? '   (the strain channel ends before maximum force)'
+      : (a.forceMaximum.lawUniformElongation?.pct != null ? `   (Ag where the fitted laws reach maximum force, inside the top's 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`
+        : `   (Ag from the samples near the top, 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`) + (ge('totalElongationPct') ? '; A: the strain channel ends before fracture' : '');
+  lines.push(`  Ag / Agt / A ${ge('uniformElongationPct')}${fmt(a.uniformElongationPct, 2)} / ${ge('uniformTotalElongationPct')}${fmt(a.uniformTotalElongationPct, 2)} / ${ge('totalElongationPct')}${fmt(a.totalElongationPct, 2)} %${agHow}`);
   // The basis of every stress, as a certificate reader checks it first (docs/bases-and-units.md).
   lines.push(`  basis        Rp, Rt, ReH/ReL, Rm: engineering (force / original section); n, K and the laws: true stress on true plastic strain`);
   lines.push(`  n, K         ${fmt(a.nValue, 4)}, ${fmt(a.K, 0)} MPa (ISO 10275)`);

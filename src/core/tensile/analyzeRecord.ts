@@ -4,6 +4,7 @@ import type { LawName } from '../flow/types.js';
 import { fitModulusDecay, findCycles } from './cycles.js';
 import { linearFit } from '../fit/linearFit.js';
 import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus, lowBandToe } from './elasticModulus.js';
+import { EXTENSOMETER_END, extensometerEnd, type ExtensometerEnd } from './extensometerEnd.js';
 import { forceMaximum } from './forceMaximum.js';
 import { recordNoiseWide } from './recordNoise.js';
 import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
@@ -80,11 +81,32 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const N = strain.length;
   if (stress.length !== N) throw new InputError('stress', stress.length, `as many values as strain (${N})`);
   if (N < 10) throw new InputError('points', N, 'at least 10 points in a tensile record');
-  const iRaw = finiteArgMax(strain, stress);
-  const warnings: TensileWarning[] = [];
+  const falls: number[] = [];
+  const iRaw = finiteArgMax(strain, stress, falls);
   const sMax = stress[iRaw]!;
   if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
   const noise = recordNoiseWide(stress);
+  // A strain channel that stops following the specimen (extensometer taken off, reset, out of range): every
+  // property that needs strain is read before that point; the force after it still counts for Rm.
+  const end = extensometerEnd(strain, stress, sMax, noise, falls.length < MAX_FALLS ? falls : undefined);
+  if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null);
+  if (end.index < 10) throw new InputError(`strain[${end.index}]`, strain[end.index]!, `a strain channel that follows the specimen for at least 10 samples; it ${end.kind === 'held' ? 'holds one value' : 'falls back by more than any elastic recovery'} from sample ${end.index} while the force goes on (extensometer taken off?)`);
+  const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, end.index) : Array.prototype.slice.call(a, 0, end.index) as number[]);
+  const hs = head(strain), hy = head(stress);
+  return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end });
+}
+
+/** The force after a strain channel's end ({@link extensometerEnd}): the whole record's stress column and where the strain ends. */
+interface ForceTail { stress: ArrayLike<number>; end: ExtensometerEnd }
+
+/**
+ * analyzeRecord on the samples whose strain follows the specimen (all of them, or those before the strain
+ * channel's end, with the whole record's stress in `tail`).
+ */
+function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, noise: number, opts: AnalyzeOptions, tail: ForceTail | null): TensileAnalysis {
+  const N = strain.length;
+  const warnings: TensileWarning[] = [];
+  const sMax = stress[iRaw]!;
   const el = elasticModulus(strain, stress, sMax, noise);
   const given = opts.elasticModulus;
   if (given !== undefined && !(given > 0 && Number.isFinite(given))) throw new InputError('elasticModulus', given, 'a modulus > 0 MPa');
@@ -181,25 +203,45 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
   const topFrom = Math.max(0, Math.min(yp ? yp.endIndex : el.window.toIndex, fi - 2));
   const fm = forceMaximum(strain, stress, noise, topFrom, fi + 1);
-  const Rm = fm.stress;
+  // Past the strain channel's end the force alone: its top on the sample axis (uniform in time), from the same
+  // start, to the fracture of the whole record. Where that top lies past the end, Rm is read from it (force over
+  // the original section needs no strain) and Ag, Agt and A are lower bounds; else Rm and Ag stand and A is one.
+  const force = tail ? forceAfterEnd(tail, topFrom, noise) : null;
+  const maxInTail = force !== null && force.top.index >= tail!.end.index;
+  const Rm = maxInTail ? force!.top.stress : fm.stress;
   const iMax = fm.index;
   const eM = fm.strain - toe;
   // Ag of the local top model; the hardening laws may place it more tightly inside its interval (below, lawTop.ts).
-  const agTop = (eM - Rm / E) * 100;
-  const agCi: [number, number] = [(fm.strainInterval95[0] - toe - Rm / E) * 100, (fm.strainInterval95[1] - toe - Rm / E) * 100];
+  const agTop = (eM - fm.stress / E) * 100;
+  const agCi: [number, number] = [(fm.strainInterval95[0] - toe - fm.stress / E) * 100, (fm.strainInterval95[1] - toe - fm.stress / E) * 100];
   const agWarningsAt = warnings.length; // Ag's warnings go here once Ag is known
 
   const necked = !detected && stress[N - 1]! < 0.9 * Rm;
   // The test stopped before maximum force: no fracture and the top fit reaches the last samples.
   let endMean = 0;
   for (let i = N - 3; i < N; i++) endMean += stress[i]! / 3;
-  if (!detected && (iMax >= N - Math.max(2, Math.ceil(0.01 * N)) || (fm.span[1] >= strain[N - 1]! && endMean >= Rm - Math.max(3 * noise, 0.002 * Rm)))) {
+  const lowerBounds: TensileAnalysis['lowerBounds'] = [];
+  if (tail) {
+    const t = tail.end;
+    const eEnd = (t.strain - toe) * 100;
+    warnings.push({
+      code: 'strainChannelEnds',
+      message: `the strain ${t.kind === 'held' ? 'holds one value' : 'falls back by more than elastic recovery allows'} from sample ${t.index} (at ${eEnd.toFixed(2)} % strain) while the force goes on for ${t.samplesAfter} more samples: the extensometer was taken off${t.kind === 'held' ? ' or reached the end of its range' : ' or reset'}. `
+        + (maxInTail
+          ? `Rm ${Rm.toFixed(1)} MPa is read from the force after that point (its top against time); Ag, Agt and A are not in the record and are given as lower bounds. `
+          : 'Rm and Ag lie before that point and stand; A is not in the record and is given as a lower bound. ')
+        + 'Measure A on the fitted broken pieces (ISO 6892-1, from memory)',
+    });
+    lowerBounds.push(...(maxInTail ? ['uniformElongationPct', 'uniformTotalElongationPct', 'totalElongationPct'] as const : ['totalElongationPct'] as const));
+  } else if (!detected && (iMax >= N - Math.max(2, Math.ceil(0.01 * N)) || (fm.span[1] >= strain[N - 1]! && endMean >= Rm - Math.max(3 * noise, 0.002 * Rm)))) {
     warnings.push({ code: 'maxAtEnd', message: 'the highest stress is at the end of the record: the test stopped before maximum force, so Rm, Ag and A are lower bounds' });
+    lowerBounds.push('tensileStrength', 'uniformElongationPct', 'uniformTotalElongationPct', 'totalElongationPct');
   }
   else if (!detected && !necked) warnings.push({ code: 'noFractureDrop', message: 'no sudden fall of force after Rm and no necking at the end: the last point is taken as fracture (A assumes the record ends at fracture)' });
   // A: the stress at fracture from a line through the last samples (its elastic part s_f/E, not one noisy sample).
+  // Past a strain channel's end, the plastic strain of its last sample (A can only be larger).
   let sF = stress[fi]!;
-  {
+  if (!tail) {
     const k = Math.min(fi - iMax, Math.max(3, Math.min(50, Math.round(N / 1000))));
     if (k >= 3) {
       try { const f = linearFit(strain, stress, fi - k + 1, fi + 1); sF = f.intercept + f.slope * strain[fi]!; } catch { /* keep the sample */ }
@@ -256,7 +298,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   // asked for (or none, fit: false), so that Ag does not depend on that choice; not where the record ends before
   // maximum force (the laws would extrapolate) or the flow curve is too short to fit.
   let agLaws = null;
-  if (!warnings.some((w) => w.code === 'maxAtEnd') && packed && packed.bad < 0 && fStrain.length >= 9) {
+  if (!lowerBounds.includes('uniformElongationPct') && packed && packed.bad < 0 && fStrain.length >= 9) {
     let six = fits && LAW_NAMES.every((l) => fits!.fits.some((f) => f.law === l)) ? fits.fits : null;
     if (!six) {
       try { six = fitAllLaws(fStrain, fStress, { packed }).fits; } catch { six = null; }
@@ -264,11 +306,13 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     if (six) agLaws = lawUniformElongation(six, E, agCi);
   }
   const byLaws = agLaws?.pct ?? null;
-  const Ag = byLaws ?? agTop;
-  const Agt = Ag + (Rm / E) * 100;
+  // Maximum force after the strain channel's end: Ag and Agt at least the plastic and total strain of its last sample.
+  const Ag = maxInTail ? (strain[N - 1]! - toe - stress[N - 1]! / E) * 100 : byLaws ?? agTop;
+  const Agt = maxInTail ? (strain[N - 1]! - toe) * 100 : Ag + (Rm / E) * 100;
   const agWarnings: TensileWarning[] = [];
-  if ((agCi[1] - agCi[0]) / 2 > AG_SHARP_PCT) agWarnings.push({ code: 'uncertainAg', message: `Ag ${Ag.toFixed(2)} % is uncertain: the top is flat within the noise, so maximum force could lie anywhere from Ag ${agCi[0].toFixed(2)} % to ${agCi[1].toFixed(2)} % (95 % interval, ±${((agCi[1] - agCi[0]) / 2).toFixed(2)} points)${byLaws !== null ? '; the fitted hardening laws place it at the value given' : ''}` });
-  if (fm.flat) agWarnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; ${byLaws !== null ? 'Ag is read where the fitted hardening laws reach maximum force, inside that flat part' : `Ag is read at the middle of the flat part (±${((fm.span[1] - fm.span[0]) * 50).toFixed(2)} points)`}` });
+  if (maxInTail) { /* Ag is a lower bound (said above); the top model's flatness and interval are not Ag's */ }
+  else if ((agCi[1] - agCi[0]) / 2 > AG_SHARP_PCT) agWarnings.push({ code: 'uncertainAg', message: `Ag ${Ag.toFixed(2)} % is uncertain: the top is flat within the noise, so maximum force could lie anywhere from Ag ${agCi[0].toFixed(2)} % to ${agCi[1].toFixed(2)} % (95 % interval, ±${((agCi[1] - agCi[0]) / 2).toFixed(2)} points)${byLaws !== null ? '; the fitted hardening laws place it at the value given' : ''}` });
+  if (fm.flat && !maxInTail) agWarnings.push({ code: 'flatTop', message: `the top of the curve is flat within the noise over ${((fm.span[1] - fm.span[0]) * 100).toFixed(2)} % strain; ${byLaws !== null ? 'Ag is read where the fitted hardening laws reach maximum force, inside that flat part' : `Ag is read at the middle of the flat part (±${((fm.span[1] - fm.span[0]) * 50).toFixed(2)} points)`}` });
   warnings.splice(agWarningsAt, 0, ...agWarnings);
 
   let modulusDecay = null;
@@ -298,16 +342,19 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     lowerYield: yp?.lowerYield ?? null,
     yieldPointElongationPct: yp?.elongationPct ?? null,
     tensileStrength: Rm,
-    maxForceIndex: iMax,
+    maxForceIndex: maxInTail ? force!.top.index : iMax,
     uniformElongationPct: Ag,
     uniformTotalElongationPct: Agt,
     totalElongationPct: A,
-    fracture: {
+    fracture: force ? force.fracture : {
       index: fi,
       detected: detected || necked,
       method: detected ? `first fall of stress by more than ${ANALYZE_DEFAULTS.fractureDrop * 100} % between two samples after Rm`
         : necked ? 'last point of a record that ends after necking (force below 90 % of Fm): the machine stopped at fracture' : 'end of the record (no fracture seen)',
     },
+    lowerBounds,
+    strainChannelEnd: tail ? { ...tail.end } : null,
+    forceTop: force && maxInTail ? { stress: force.top.stress, index: force.top.index, points: force.top.points, method: 'top model of the force against sample number (uniform in time) past the strain channel\'s end, fitted as the top against strain is' } : null,
     nValue: nFit?.n ?? null,
     K: nFit?.K ?? null,
     nFit,
@@ -341,16 +388,26 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
 // the whole function (measured: the finite check and the search for the highest stress took 16 and
 // 11 ms of a 1,000,000-row analysis inside analyzeRecord, bench/RESULTS.md issue 12 E).
 
-/** Index of the first highest stress; throws naming the first non-finite value (strain before stress at each index). */
-function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>): number {
+/** Most strain falls finiteArgMax collects for extensometerEnd; with more, extensometerEnd makes its own pass. */
+const MAX_FALLS = 64;
+
+/**
+ * Index of the first highest stress; throws naming the first non-finite value (strain before stress at each
+ * index). With `falls`, also collects (up to MAX_FALLS) the indices i where the strain falls by more than
+ * extensometerEnd's reset margin from sample i − 1 (rare: a reset, or a noisy crosshead channel).
+ */
+function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>, falls?: number[]): number {
   const N = strain.length;
   // top starts as 0, not −Infinity: i = 0 sets it anyway, and a non-small-integer start made V8 box every new top.
-  let iRaw = 0, top = 0;
+  let iRaw = 0, top = 0, prev = N > 0 ? strain[0]! : 0;
+  const margin = EXTENSOMETER_END.resetMargin;
   for (let i = 0; i < N; i++) {
     const e = strain[i]!, s = stress[i]!;
     // The throw in a function of its own: inline, its message kept every value boxed for it (measured).
     if (!(e - e === 0 && s - s === 0)) notFinite(strain, stress, i);
     if (i === 0 || s > top) { top = s; iRaw = i; }
+    if (prev - e > margin && falls && falls.length < MAX_FALLS) falls.push(i);
+    prev = e;
   }
   return iRaw;
 }
@@ -395,4 +452,31 @@ function trueCurveTo(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: 
     tPlastic.push(eps - s / E);
   }
   return { strain: tStrain, stress: tStress, plasticStrain: tPlastic };
+}
+
+/**
+ * The force past a strain channel's end: the top of the whole record's stress on the sample axis (samples are
+ * uniform in time, so this is force against time, whose maximum is Fm; ISO 6892-1 §3.10.1 needs no strain for
+ * it) from `from` to the fracture after the highest stress, by the same top model as against strain
+ * ({@link forceMaximum}), and that fracture (index in the whole record).
+ */
+function forceAfterEnd(tail: ForceTail, from: number, noise: number): { top: ReturnType<typeof forceMaximum>; fracture: TensileAnalysis['fracture'] } {
+  const S = tail.stress, NT = S.length;
+  let iTop = from, top = S[from]!;
+  for (let i = from + 1; i < NT; i++) if (S[i]! > top) { top = S[i]!; iTop = i; }
+  const fall = firstFall(S, iTop, top, noise);
+  const fi = fall >= 0 ? fall : NT - 1;
+  const axis = new Float64Array(fi + 1);
+  for (let i = 0; i <= fi; i++) axis[i] = i;
+  const t = forceMaximum(axis, S, noise, Math.min(from, Math.max(0, fi - 2)), fi + 1);
+  const necked = fall < 0 && S[NT - 1]! < 0.9 * t.stress;
+  return {
+    top: t,
+    fracture: {
+      index: fi,
+      detected: fall >= 0 || necked,
+      method: (fall >= 0 ? `first fall of stress by more than ${ANALYZE_DEFAULTS.fractureDrop * 100} % between two samples after Rm` : necked ? 'last point of a record that ends after necking (force below 90 % of Fm)' : 'end of the record (no fracture seen)')
+        + ' in the force, which goes on past the strain channel\'s end (the index is the whole record\'s)',
+    },
+  };
 }

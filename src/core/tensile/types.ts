@@ -1,4 +1,5 @@
 import type { LawTop } from './lawTop.js';
+import type { ExtensometerEnd } from './extensometerEnd.js';
 import type { LawComparison } from '../fit/fitAllLaws.js';
 
 /** A tensile record as the core takes it: engineering strain (fraction) and engineering stress (MPa), same length. */
@@ -8,7 +9,7 @@ export interface TensileData {
 }
 
 export interface TensileWarning {
-  code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles'
+  code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles' | 'strainChannelEnds'
     | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
   message: string;
 }
@@ -137,6 +138,16 @@ export interface TensileAnalysis {
   /** A: plastic elongation after fracture, %. */
   totalElongationPct: number;
   fracture: { index: number; detected: boolean; method: string };
+  /**
+   * The properties whose value is a lower bound, not a measurement: all four when the test stopped before
+   * maximum force (warning `maxAtEnd`); A (and Ag, Agt when maximum force came later) when the strain channel
+   * ended before fracture (warning `strainChannelEnds`). Empty when every value is measured.
+   */
+  lowerBounds: ('tensileStrength' | 'uniformElongationPct' | 'uniformTotalElongationPct' | 'totalElongationPct')[];
+  /** Where the strain channel stopped following the specimen while the force went on (extensometer taken off, reset, out of range); null when it followed it to the end. Strain-based properties are read before it. */
+  strainChannelEnd: ExtensometerEnd | null;
+  /** Rm read from the force alone past the strain channel's end (its top against sample number); null otherwise. `index` is the whole record's. */
+  forceTop: { stress: number; index: number; points: number; method: string } | null;
   nValue: number | null;
   K: number | null;
   nFit: NValueResult | null;
