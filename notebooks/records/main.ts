@@ -102,11 +102,12 @@ function drawMapping(): void {
     colSel('strain', 'strain column'), colSel('stress', 'stress column'), colSel('force', 'force column'), colSel('extension', 'extension column'),
     unitSel('map-strainUnit', 'strain unit', ['fraction', 'percent']), unitSel('map-stressUnit', 'stress unit', shown(['MPa', 'N/mm²', 'GPa', 'ksi', 'psi', 'kgf/mm²', 'kN/cm²'], STRESS_UNITS)),
     unitSel('map-forceUnit', 'force unit', shown(['N', 'kN', 'lbf', 'kip', 'kgf'], FORCE_UNITS)), unitSel('map-lengthUnit', 'extension unit', shown(['mm', 'in', 'cm', 'm', 'µm'], LENGTH_UNITS)),
-    num('map-diameter', 'specimen diameter'), num('map-gaugeLength', 'gauge length'),
+    // Round specimens by diameter, flat ones (strip, sheet) by width and thickness: the cross-section a force column needs.
+    num('map-diameter', 'specimen diameter'), num('map-width', 'or width'), num('map-thickness', 'and thickness'), num('map-gaugeLength', 'gauge length'),
     h('button', { type: 'button', id: 'apply-mapping', onclick: applyMapping }, 'read the record again with these settings'));
   const unitKeys = ['strainUnit', 'stressUnit', 'forceUnit', 'lengthUnit'] as const;
   for (const k of unitKeys) (byId(`map-${k}`) as HTMLSelectElement).value = String(options[k] ?? '');
-  for (const k of ['diameter', 'gaugeLength'] as const) (byId(`map-${k}`) as HTMLInputElement).value = options[k] === undefined ? '' : String(options[k]);
+  for (const k of ['diameter', 'width', 'thickness', 'gaugeLength'] as const) (byId(`map-${k}`) as HTMLInputElement).value = options[k] === undefined ? '' : String(options[k]);
 }
 
 /** Unit names as people write them, kept only where the record parser knows them (it compares lower-cased). */
@@ -127,7 +128,7 @@ function applyMapping(): void {
     const v = (byId(`map-${k}`) as HTMLSelectElement).value;
     if (v) o[k] = v;
   }
-  for (const k of ['diameter', 'gaugeLength'] as const) {
+  for (const k of ['diameter', 'width', 'thickness', 'gaugeLength'] as const) {
     const t = (byId(`map-${k}`) as HTMLInputElement).value.trim();
     if (t) o[k] = Number(t); // the parser validates the number and names the field when it is wrong
   }
@@ -158,7 +159,7 @@ nb.cell({ name: 'input', fn: () => null })
       const c = p.record.columns;
       return h('div', {},
         p.input.demo ? h('p', { class: 'sl-invented', id: 'demo-note' }, 'INVENTED demo record (generated from a known law, not a test): drop your own export above.') : null,
-        h('p', { id: 'record-summary' }, `${p.input.name}: ${p.record.rows} rows, ${p.record.basis === 'stress-strain' ? 'stress and strain columns' : 'force and extension columns'} (${Object.entries(c).map(([k, v]) => `${k}: "${v!.name}" ${v!.unit}`).join('; ')}).`),
+        h('p', { id: 'record-summary' }, `${p.input.name}: ${p.record.rows} rows, ${p.record.basis === 'stress-strain' ? 'stress and strain columns' : p.record.basis === 'force-strain' ? `force and strain columns, stress = force / ${p.record.geometry!.area.toPrecision(4)} mm²` : 'force and extension columns'} (${Object.entries(c).map(([k, v]) => `${k}: "${v!.name}" ${v!.unit}`).join('; ')}).`),
         p.record.warnings.length ? h('ul', { class: 'sl-notice' }, ...p.record.warnings.map((w) => h('li', {}, w))) : null);
     },
   })

@@ -33,11 +33,14 @@ export interface TensileRecord {
   strain: Float64Array;
   stress: Float64Array;
   rows: number;
-  /** 'stress–strain' when the lab's stress and strain columns were used, else 'force–extension'. */
-  basis: 'stress-strain' | 'force-extension';
+  /**
+   * 'stress-strain' when the lab's stress and strain columns were used; 'force-strain' for a force column with a
+   * strain column (the stress is force over the cross-section); else 'force-extension'.
+   */
+  basis: 'stress-strain' | 'force-strain' | 'force-extension';
   columns: Partial<Record<Role, { name: string; column: number; unit: string }>>;
-  /** Cross-section (mm²) and gauge length (mm) used for a force–extension record. */
-  geometry: { area: number; gaugeLength: number } | null;
+  /** Cross-section (mm²) and gauge length (mm) used for a force–extension record; a force–strain record needs no gauge length (null). */
+  geometry: { area: number; gaugeLength: number | null } | null;
   /** Metadata lines before the header. */
   metadata: Map<string, { key: string; value: string; unit: string; line: number }>;
   warnings: string[];
@@ -50,7 +53,8 @@ export const MAX_ROWS = 50_000_000;
 export const MAX_STRAIN = 5;
 
 interface Plan {
-  mode: 'ss' | 'fe';
+  /** Stress and strain; force and extension; force and strain (the machine's strain channel, stress = force/area). */
+  mode: 'ss' | 'fe' | 'fs';
   a: ColumnInfo; // strain or extension
   b: ColumnInfo; // stress or force
   fa: number;    // factor to fraction (strain) or mm (extension)
@@ -145,17 +149,22 @@ export class RecordBuilder {
     const found: Partial<Record<Role, ColumnInfo>> = {};
     for (const r of ROLES) { const c = pick(r); if (c) found[r] = c; }
     const names = cols.map((x) => show(x.name)).join(', ');
-    let mode: 'ss' | 'fe';
+    let mode: 'ss' | 'fe' | 'fs';
+    // A force column with the machine's strain channel (no stress column) is as common in exports as force with
+    // extension: stress = force / cross-section, no gauge length needed. With both an extension and a strain column
+    // the extension is read when the gauge length is known (as before), else the strain.
+    const fs = !!(found.force && found.strain && found.force.index !== found.strain.index);
     if (found.strain && found.stress && found.strain.index !== found.stress.index) mode = 'ss';
-    else if (found.force && found.extension && found.force.index !== found.extension.index) mode = 'fe';
+    else if (found.force && found.extension && found.force.index !== found.extension.index && !(fs && this.geometryOf(opts).gauge === undefined)) mode = 'fe';
+    else if (fs) mode = 'fs';
     else if (found.stress && !found.strain) this.fail(L.headerLine, found.stress.index + 1, 'strain', `no strain column (nor force and extension); the header has ${names}; expected a column named like "Strain [%]" or map it explicitly`);
-    else if (found.strain && !found.stress) this.fail(L.headerLine, found.strain.index + 1, 'stress', `no stress column (nor force and extension); the header has ${names}; expected a column named like "Stress [MPa]" or map it explicitly`);
-    else this.fail(L.headerLine, 1, 'columns', `no strain and stress columns, nor force and extension; the header has ${names}; expected names such as strain, stress, force, extension (with units like [MPa], [%], [kN], [mm]) or an explicit column mapping`);
-    const a = mode === 'ss' ? found.strain! : found.extension!;
+    else if (found.strain && !found.stress) this.fail(L.headerLine, found.strain.index + 1, 'stress', `no stress column (nor a force column); the header has ${names}; expected a column named like "Stress [MPa]" or "Force [kN]", or map it explicitly`);
+    else this.fail(L.headerLine, 1, 'columns', `no strain and stress columns, nor force and extension (or force and strain); the header has ${names}; expected names such as strain, stress, force, extension (with units like [MPa], [%], [kN], [mm]) or an explicit column mapping`);
+    const a = mode === 'fe' ? found.extension! : found.strain!;
     const b = mode === 'ss' ? found.stress! : found.force!;
     for (const t of tied) {
       if (t.used !== a && t.used !== b) continue;
-      const role = mode === 'ss' ? t.role : t.role === 'extension' ? 'extension' : 'force';
+      const role = t.used === a ? (mode === 'fe' ? 'extension' : 'strain') : (mode === 'ss' ? 'stress' : 'force');
       this.warnings.push(`${t.others.length + 1} columns could be the ${role}: ${show(t.used.name)} (column ${t.used.index + 1}) is read, ${t.others.map((c) => `${show(c.name)} (column ${c.index + 1})`).join(', ')} ${t.others.length > 1 ? 'are' : 'is'} not; map another with --column ${role}=NAME (or the record bench's ${role} column choice)`);
     }
     const unitCell = (c: ColumnInfo) => ({ line: L.units ? L.unitsLine! : L.headerLine, col: c.index + 1 });
@@ -170,17 +179,24 @@ export class RecordBuilder {
       return f;
     };
     let fa: number, fb: number, area = 0, gauge = 0;
-    if (mode === 'ss') {
-      fb = factor('stress', b, opts.stressUnit);
+    if (mode === 'ss' || mode === 'fs') {
+      fb = mode === 'ss' ? factor('stress', b, opts.stressUnit) : factor('force', b, opts.forceUnit);
       const su = opts.strainUnit ?? unitOf(a);
       fa = su === '' ? NaN : factor('strain', a, opts.strainUnit === 'percent' ? '%' : opts.strainUnit);
+      if (mode === 'fs') {
+        const g = this.geometryOf(opts);
+        if (g.area === undefined) {
+          this.fail(L.headerLine, undefined, 'cross-section', `a force–strain record (force column ${show(b.name)}, strain column ${show(a.name)}) needs the cross-section (area, width × thickness, or diameter) to give stress; give options (--area, --diameter, --width and --thickness) or metadata lines such as "Diameter: 10 mm"`);
+        }
+        area = g.area;
+      }
     } else {
       fb = factor('force', b, opts.forceUnit);
       fa = factor('length', a, opts.lengthUnit);
       ({ area, gauge } = this.geometry(opts));
       if (isMachineTravel(a)) this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the modulus (--modulus, or the record bench's modulus field) and prefer an extensometer channel`);
     }
-    this.columns[mode === 'ss' ? 'strain' : 'extension'] = { name: a.name, column: a.index + 1, unit: unitOf(a) };
+    this.columns[mode === 'fe' ? 'extension' : 'strain'] = { name: a.name, column: a.index + 1, unit: unitOf(a) };
     this.columns[mode === 'ss' ? 'stress' : 'force'] = { name: b.name, column: b.index + 1, unit: unitOf(b) };
     const trueValues = mode === 'ss' && a.isTrue && b.isTrue;
     if (trueValues) this.warnings.push('only true stress and true strain columns: converted to engineering values (s = σ/exp(ε), e = exp(ε) − 1); valid to maximum force only');
@@ -188,6 +204,16 @@ export class RecordBuilder {
   }
 
   private geometry(o: RecordOptions): { area: number; gauge: number } {
+    const { area, gauge } = this.geometryOf(o);
+    if (area === undefined || gauge === undefined) {
+      this.fail(this.layout.headerLine, undefined, area === undefined ? 'cross-section' : 'gaugeLength',
+        `a force–extension record needs the cross-section (area, width × thickness, or diameter) and the gauge length; missing ${area === undefined ? 'the cross-section' : 'the gauge length'}: give options (--area, --diameter, --width and --thickness, --gauge-length) or metadata lines such as "Gauge length: 50 mm"`);
+    }
+    return { area, gauge };
+  }
+
+  /** Cross-section (mm²) and gauge length (mm) from the options, else the metadata lines; undefined where neither gives one (a malformed value is an error). */
+  private geometryOf(o: RecordOptions): { area: number | undefined; gauge: number | undefined } {
     const md = this.layout.metadata;
     const find = (re: RegExp) => {
       for (const [k, v] of md) if (re.test(k)) return v;
@@ -219,10 +245,6 @@ export class RecordBuilder {
     }
     let gauge = pos('gaugeLength', o.gaugeLength);
     if (gauge === undefined) gauge = num(find(/ga(u)?ge length|^(original |initial )?ga(u)?ge$|^l[0o]$|^le$|extensometer (gauge |gage )?length/), LENGTH_UNITS);
-    if (area === undefined || gauge === undefined) {
-      this.fail(this.layout.headerLine, undefined, area === undefined ? 'cross-section' : 'gaugeLength',
-        `a force–extension record needs the cross-section (area, width × thickness, or diameter) and the gauge length; missing ${area === undefined ? 'the cross-section' : 'the gauge length'}: give options (--area, --diameter, --width and --thickness, --gauge-length) or metadata lines such as "Gauge length: 50 mm"`);
-    }
     return { area, gauge };
   }
 
@@ -381,7 +403,7 @@ export class RecordBuilder {
     }
     const hd = this.held;
     if (hd) {
-      this.warnings.push(`the ${p.mode === 'ss' ? 'strain' : 'extension'} column ${show(p.a.name)} is empty from line ${hd.line} to ${hd.lastLine === this.lastLine ? 'the end' : `line ${hd.lastLine}`} (${hd.rows} rows; extensometer taken off?): its last value is held there, so the force still counts for Rm; properties that need strain are read where it still changes`);
+      this.warnings.push(`the ${p.mode === 'fe' ? 'extension' : 'strain'} column ${show(p.a.name)} is empty from line ${hd.line} to ${hd.lastLine === this.lastLine ? 'the end' : `line ${hd.lastLine}`} (${hd.rows} rows; extensometer taken off?): its last value is held there, so the force still counts for Rm; properties that need strain are read where it still changes`);
     }
     let fa = p.fa;
     if (Number.isNaN(fa)) {
@@ -406,14 +428,14 @@ export class RecordBuilder {
     }
     const maxE = this.maxA * fa / (p.mode === 'fe' ? p.gauge : 1);
     if (maxE > MAX_STRAIN) {
-      this.fail(this.maxALine, p.a.index + 1, p.a.name, `reaches ${this.maxA} — not a ${p.mode === 'ss' ? 'strain' : 'extension'} of a tensile test (expected at most ${MAX_STRAIN * 100} %); are the ${p.mode === 'ss' ? 'strain and stress' : 'extension and force'} columns swapped, or is the unit wrong?`);
+      this.fail(this.maxALine, p.a.index + 1, p.a.name, `reaches ${this.maxA} — not a ${p.mode === 'fe' ? 'extension' : 'strain'} of a tensile test (expected at most ${MAX_STRAIN * 100} %); are the ${p.mode === 'ss' ? 'strain and stress' : p.mode === 'fs' ? 'strain and force' : 'extension and force'} columns swapped, or is the unit wrong?`);
     }
     if (!(maxS > 0)) this.fail(L.dataLine, p.b.index + 1, p.b.name, 'every stress is 0; expected a loaded specimen');
     return {
       name, file: this.file, strain, stress, rows: n,
-      basis: p.mode === 'ss' ? 'stress-strain' : 'force-extension',
+      basis: p.mode === 'ss' ? 'stress-strain' : p.mode === 'fs' ? 'force-strain' : 'force-extension',
       columns: this.columns,
-      geometry: p.mode === 'fe' ? { area: p.area, gaugeLength: p.gauge } : null,
+      geometry: p.mode === 'fe' ? { area: p.area, gaugeLength: p.gauge } : p.mode === 'fs' ? { area: p.area, gaugeLength: null } : null,
       metadata: L.metadata,
       warnings: this.warnings,
       layout: { delimiter: L.delimiter, decimalComma: L.decimalComma, headerLine: L.headerLine, unitsLine: L.unitsLine, dataLine: L.dataLine },
@@ -446,6 +468,9 @@ function convertColumns(xs: Float64Array, ys: Float64Array, n: number, p: Plan, 
       e = xs[i]! * fa;
       s = ys[i]! * fb;
       if (p.trueValues) { s = s / Math.exp(e); e = Math.expm1(e); }
+    } else if (p.mode === 'fs') {
+      e = xs[i]! * fa;
+      s = (ys[i]! * fb) / area;
     } else {
       e = (xs[i]! * fa) / gauge;
       s = (ys[i]! * fb) / area;

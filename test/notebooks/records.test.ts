@@ -166,6 +166,40 @@ describe('record bench', () => {
     expect(errors).toEqual([]);
   });
 
+  it('a strip record of force and strain reads once its width and thickness are given, with the stresses of the stress record', async () => {
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    // The invented demo record as a machine exports a strip test: force in N (stress × 12.5 mm × 0.8 mm), strain in %.
+    const original = readFileSync(join(REPO, 'examples', 'stamping-strip-loops.csv'), 'utf8');
+    // Its Width and Thickness lines left out, so the export holds no cross-section.
+    const lines = original.split('\n').filter((l) => !/^(Width|Thickness):/.test(l));
+    const head = lines.findIndex((l) => l.startsWith('Time [s],Strain [%],Stress [MPa]'));
+    const strip = lines.map((l, i) => {
+      if (i < head) return l;
+      if (i === head) return 'Time [s],Strain [%],Force [N]';
+      const f = l.split(',');
+      return f.length === 3 && l.trim() !== '' ? `${f[0]},${f[1]},${(Number(f[2]) * 12.5 * 0.8).toPrecision(10)}` : l;
+    }).join('\n');
+    await dropFile(page, 'strip-force.csv', strip);
+    await expect.poll(() => page.locator('#cell-import .sl-error').count(), { timeout: 30_000 }).toBe(1);
+    expect(await page.locator('#cell-import .sl-error').innerText()).toMatch(/force–strain record .* needs the cross-section/);
+    await settled(page, 'records');
+    await page.fill('#map-width', '12.5');
+    await page.fill('#map-thickness', '0.8');
+    await page.click('#apply-mapping');
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('strip-force'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expect(await page.locator('#cell-import .sl-error').count()).toBe(0);
+    expect(await page.locator('#record-summary').innerText()).toMatch(/force and strain columns, stress = force \/ 10\.00 mm²/);
+    const fromForce = { E: await num(page, 'elasticModulus'), Rm: await num(page, 'tensileStrength') };
+    await dropFile(page, 'stamping-strip-loops.csv', original);
+    await expect.poll(async () => { const t = await page.locator('#cell-record-name').innerText(); return t.includes('stamping') && !t.includes('INVENTED'); }, { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expectRelClose(fromForce.E, await num(page, 'elasticModulus'), 1e-3, 'E');
+    expectRelClose(fromForce.Rm, await num(page, 'tensileStrength'), 1e-3, 'Rm');
+    expect(errors).toEqual([]);
+  });
+
   it('opens an invented demo record from examples/ and labels it invented', async () => {
     const { page, errors } = await openPage(h, '/records/');
     await settled(page, 'records');

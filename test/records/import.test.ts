@@ -82,6 +82,35 @@ describe('parseRecordText(text) reads what labs export', () => {
     expectRelClose(r.geometry!.area, A, 1e-12, 'area');
     expectRelClose(r.geometry!.gaugeLength, L0, 1e-12, 'gauge length');
   });
+  // Force with the machine's strain channel (no stress column), as many exports give it: s = F/S0 (ISO 6892-1 §3.10.1
+  // with §3.5 for the strain; common practice). Factors NIST SP 811 B.8 (1 kN = 1000 N, 1 lbf = 4.4482216152605 N).
+  it.each([
+    ['kN and %, the diameter in metadata', ['Diameter: 5 mm'], 'Time [s],Force [kN],Strain [%]', (s: number, A: number) => (s * A) / 1000, (e: number) => e, (Math.PI / 4) * 25, {}],
+    ['N and mm/mm, the area as an option', [], 'Load (N);Strain (mm/mm)', (s: number, A: number) => s * A, (e: number) => e / 100, 20, { area: 20 }],
+    ['lbf and in/in, width and thickness in inches', ['Width (in): 0.500', 'Thickness (in): 0.125'], 'Force (lbf)\tStrain (in/in)', (s: number, A: number) => (s * A) / 4.4482216152605, (e: number) => e / 100, 0.5 * 0.125 * 645.16, {}],
+  ] as const)('force and strain columns (no stress): %s', (_, meta, header, force, strain, A, opts) => {
+    const sep = header.includes(';') ? ';' : header.includes('\t') ? '\t' : ',';
+    const time = header.startsWith('Time');
+    const r = check([...meta, header, ...ROWS.map(([e, s], i) => `${time ? `${i}${sep}` : ''}${force(s, A)}${sep}${strain(e)}`)].join('\n') + '\n', opts);
+    expect(r.basis).toBe('force-strain');
+    expectRelClose(r.geometry!.area, A, 1e-12, 'area');
+    expect(r.geometry!.gaugeLength).toBeNull();
+    expect(r.columns.force).toBeDefined();
+    expect(r.columns.strain).toBeDefined();
+  });
+  it('force and strain with no cross-section: a located error that names both columns and the options', () => {
+    const text = ['Force [kN],Strain [%]', ...ROWS.map(([e, s]) => `${s / 50},${e}`)].join('\n');
+    expect(() => parseRecordText(text, { file: 'fs.csv' })).toThrow(/^fs\.csv:1:1: cross-section: a force–strain record \(force column "Force \[kN\]", strain column "Strain \[%\]"\) needs the cross-section.*--area, --diameter/);
+  });
+  it('force, extension and strain: the extension with a gauge length, else the strain', () => {
+    const A = 25, L0 = 50;
+    const rows = ROWS.map(([e, s]) => `${s * A},${(e / 100) * L0},${e}`);
+    const withGauge = check(['Area: 25 mm²', 'Gauge length: 50 mm', 'Force [N],Extension [mm],Strain [%]', ...rows].join('\n') + '\n');
+    expect(withGauge.basis).toBe('force-extension');
+    const without = check(['Area: 25 mm²', 'Force [N],Extension [mm],Strain [%]', ...rows].join('\n') + '\n');
+    expect(without.basis).toBe('force-strain');
+    expect(without.columns.strain).toMatchObject({ name: 'Strain [%]' });
+  });
   it('an extensometer channel named "Strain" but recorded in mm is read as the extension', () => {
     const r = check(fe(['Width: 12.5 mm', 'Thickness: 2 mm', 'Gauge length: 50 mm'], 'Force [N],Strain [mm]', ',', (s) => s * 25, (e) => e * 50));
     expect(r.basis).toBe('force-extension');
@@ -153,7 +182,7 @@ describe('parseRecordText(bad record) names the line, the column and what was ex
     ['duplicate column names', csv('Stress [MPa],Stress [MPa]'), /duplicate column name "Stress \[MPa\]" in columns 1 and 2/, 1, 2],
     ['a broken quoted field', 'Strain [%],Stress [MPa]\n' + ROWS.slice(0, 5).map((r) => r.join(',')).join('\n') + '\n"0.3,606\n' + ROWS.slice(6).map((r) => r.join(',')).join('\n') + '\n', /broken CSV: a quoted field is not closed/, undefined, undefined],
     ['binary content', 'Strain,Stress\n\u0000\u0001\u0002PK\u0003\u0004', /binary content \(character U\+0000\)/, 2, 1],
-    ['hostile column names', csv('__proto__,constructor'), /no strain and stress columns, nor force and extension; the header has "__proto__", "constructor"/, 1, 1],
+    ['hostile column names', csv('__proto__,constructor'), /no strain and stress columns, nor force and extension \(or force and strain\); the header has "__proto__", "constructor"/, 1, 1],
     ['a row shorter than the header', csv('Strain [%],Stress [MPa]').replace('\n0.25,505', '\n0.25'), /the row has 1 fields; expected 2 as in the header \(line 1\)/, 7, 2],
     ['an unknown stress unit', csv('Strain [%],Stress [bar]'), /unit "bar" is not a stress unit; allowed MPa, N\/mm², MN\/m², GPa, kPa, Pa, kN\/cm², ksi, psi \(lbf\/in²\), kgf\/mm²/, 1, 2],
     ['force without a cross-section', csv('Force [kN],Extension [mm]'), /needs the cross-section .* missing the cross-section/, 1, undefined],
