@@ -1,6 +1,6 @@
 import { describeColumn, isMachineTravel, roleScore, ROLES, type ColumnInfo, type Role } from './columns.js';
 import { recordError, show } from './errors.js';
-import type { Layout } from './layout.js';
+import { ungrouped, type Layout } from './layout.js';
 import { allowedUnits, AREA_UNITS, LENGTH_UNITS, normUnit, unitFactor } from './units.js';
 
 /** Options of the record readers. Lengths in mm, areas in mm² unless a unit option says otherwise. */
@@ -255,7 +255,10 @@ export class RecordBuilder {
     let t = raw.trim();
     if (this.layout.decimalComma) t = t.replace(',', '.');
     if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t)) {
+      const g = ungrouped(raw.trim(), this.layout.decimalComma);
+      if (g !== null) return g;
       if (/^[+-]?(nan|inf|infinity)$/i.test(t)) this.fail(line, c.index + 1, c.name, `got ${show(raw)}, expected a finite number`);
+      if (/^[+-]?\d{1,3}(,\d{3})+$/.test(raw.trim())) this.fail(line, c.index + 1, c.name, `got ${show(raw)}: a thousands separator or a decimal comma? expected a number; export the column without thousands separators (or with decimals, such as "1,205.0")`);
       this.fail(line, c.index + 1, c.name, `got ${show(raw)}, expected a number${this.layout.decimalComma ? ' with a decimal comma' : ''}`);
     }
     const v = Number(t);

@@ -44,10 +44,29 @@ const NUM_DOT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const NUM_COMMA = /^[+-]?(\d+,?\d*|,\d+)([eE][+-]?\d+)?$/;
 const NONFINITE = /^[+-]?(nan|inf|infinity|-?1\.#ind|1\.#inf)$/i;
 
-/** True for a number token (or a non-finite token such as `nan`, which the reader rejects later with its line). */
+/** True for a number token (or a non-finite token such as `nan`, which the reader rejects later with its line), thousands separators allowed ({@link ungrouped}). */
 export function isNumberToken(t: string, decimalComma: boolean): boolean {
-  return (decimalComma ? NUM_COMMA : NUM_DOT).test(t) || NONFINITE.test(t);
+  return (decimalComma ? NUM_COMMA : NUM_DOT).test(t) || NONFINITE.test(t) || ungrouped(t, decimalComma) !== null;
 }
+
+/**
+ * A number written with thousands separators, as spreadsheets export a formatted column (quoted where the
+ * separator is the delimiter): with a decimal point, groups of three digits after a comma ("12,345.6", the
+ * fraction required: "1,205" alone could be a decimal comma); with a decimal comma, after a point ("12.345,6");
+ * or after a space, no-break space or thin space with either mark, or none ("12 345,6", "12 345.6", "12 345";
+ * the grouping of ISO 80000-1 §7.3.1, from memory). Null for anything else (the caller's error says what is wrong).
+ * @example ungrouped('12,345.6', false) // 12345.6
+ */
+export function ungrouped(t: string, decimalComma: boolean): number | null {
+  let m = /^([+-]?)(\d{1,3}(?:[ \u00A0\u2009\u202F]\d{3})+)(?:([.,])(\d+))?$/.exec(t);
+  if (!m) m = decimalComma ? /^([+-]?)(\d{1,3}(?:\.\d{3})+)(,)(\d+)$/.exec(t) : /^([+-]?)(\d{1,3}(?:,\d{3})+)(\.)(\d+)$/.exec(t);
+  if (!m) return null;
+  // With a space grouping the decimal mark must be the layout's (a point in a decimal-comma file is a second grouping mark).
+  if (m[3] !== undefined && /[ \u00A0\u2009\u202F]/.test(m[2]!) && m[3] !== (decimalComma ? ',' : '.')) return null;
+  const v = Number(`${m[1]}${m[2]!.replace(/[^\d]/g, '')}${m[4] !== undefined ? `.${m[4]}` : ''}`);
+  return Number.isFinite(v) ? v : null;
+}
+
 
 /** A cell of a units row: empty or a short unit such as `mm`, `kN`, `N/mm²`, `[MPa]`, `%`, `-`, `s-1`. */
 function isUnitToken(t: string): boolean {
@@ -203,6 +222,9 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
     const last = textLines[textLines.length - 1]!;
     const widest = Math.max(...DELIMITERS.map((d) => splitLine(last.l, d).length));
     if (widest < 2) throw recordError(file, last.i + 1, 1, '', `only one column found (${JSON.stringify(last.l.slice(0, 40))}); expected columns separated by comma, semicolon or tab`);
+    // Whole numbers with thousands separators ("1,205"): a thousands separator or a decimal comma cannot be told apart.
+    const grouped = textLines.find((x) => x !== last && x.i > 0 && DELIMITERS.some((d) => splitLine(x.l, d).some((t) => /^[+-]?\d{1,3}(,\d{3})+$/.test(t))));
+    if (grouped) throw recordError(file, grouped.i + 1, 1, '', `${JSON.stringify(grouped.l.slice(0, 40))} holds whole numbers with a comma ("1,205"): a thousands separator or a decimal comma? expected rows of numbers; export the columns without thousands separators, or with decimals ("1,205.0")`);
     throw recordError(file, last.i + 1, 1, '', `header only: no rows of numbers after the header at line ${last.i + 1}; expected data rows such as 0.001,205.3`);
   }
   if (numericLines[0] === first) throw recordError(file, first.i + 1, 1, '', 'no header line: the file starts with numbers; expected a line of column names (e.g. strain,stress) above the data');

@@ -169,6 +169,36 @@ describe('parseRecordText(text) reads what labs export', () => {
   });
 });
 
+// Spreadsheets export a formatted column with thousands separators (quoted where the separator is the delimiter);
+// ISO 80000-1 groups digits by spaces (from memory). Stresses of 1000–2200 MPa (high-strength steel; INVENTED rows).
+describe('numbers with thousands separators', () => {
+  const rows = Array.from({ length: 12 }, (_, i) => [i * 0.1, 1000 + i * 111.1] as const);
+  const group = (v: number, dec: string, sep: string) => { const [a, b] = v.toFixed(1).split('.'); return a!.replace(/\B(?=(\d{3})+(?!\d))/g, sep) + dec + b; };
+  it.each([
+    ['comma grouping, decimal point, quoted cells', 'Strain [%],Stress [MPa]', (e: number, s: number) => `${e.toFixed(2)},"${group(s, '.', ',')}"`],
+    ['point grouping, decimal comma, semicolons', 'Strain [%];Stress [MPa]', (e: number, s: number) => `${e.toFixed(2).replace('.', ',')};${group(s, ',', '.')}`],
+    ['space grouping, decimal comma, semicolons', 'Strain [%];Stress [MPa]', (e: number, s: number) => `${e.toFixed(2).replace('.', ',')};${group(s, ',', ' ')}`],
+    ['narrow no-break space grouping, decimal point, tabs', 'Strain [%]\tStress [MPa]', (e: number, s: number) => `${e.toFixed(2)}\t${group(s, '.', '\u202F')}`],
+  ] as const)('%s: the same numbers as without them', async (_, header, row) => {
+    const text = [header, ...rows.map(([e, s]) => row(e, s))].join('\n') + '\n';
+    const r = parseRecordText(text, { file: 'g.csv' });
+    expect(Array.from(r.stress)).toEqual(rows.map(([, s]) => Number(s.toFixed(1))));
+    expect(Array.from(r.strain)).toEqual(rows.map(([e]) => Number(e.toFixed(2)) / 100));
+    // The file reader (fast scanners, then the located reader for these rows) reads the same.
+    const dir = mkdtempSync(join(tmpdir(), 'sl-group-'));
+    writeFileSync(join(dir, 'g.csv'), text);
+    const f = await readRecordFile(join(dir, 'g.csv'));
+    expect(Array.from(f.stress)).toEqual(Array.from(r.stress));
+  });
+  it('whole numbers with a comma ("1,205": thousands or a decimal comma?) are a located error, not a guess', () => {
+    const text = ['Strain [%],Stress [MPa]', ...rows.map(([e, s]) => `${e.toFixed(2)},"${group(s, '.', ',').split('.')[0]}"`)].join('\n');
+    expect(() => parseRecordText(text, { file: 'w.csv' })).toThrow(/^w\.csv:2:1: .*whole numbers with a comma \("1,205"\): a thousands separator or a decimal comma\?/);
+    // The same after ordinary rows (the layout is found, the cell is the error).
+    const late = ['Strain [%],Stress [MPa]', '0,0', '0.01,20', ...rows.map(([e, s]) => `${(e + 0.1).toFixed(2)},"${group(s, '.', ',').split('.')[0]}"`)].join('\n');
+    expect(() => parseRecordText(late, { file: 'l.csv' })).toThrow(/^l\.csv:4:2: Stress \[MPa\]: got "1,000": a thousands separator or a decimal comma\?/);
+  });
+});
+
 describe('parseRecordText(bad record) names the line, the column and what was expected', () => {
   const bad: [string, string, RegExp, number | undefined, number | undefined][] = [
     ['an empty file', '', /empty file; expected a header line/, 1, 1],
