@@ -434,6 +434,12 @@ export class RecordBuilder {
       this.fail(this.maxALine, p.a.index + 1, p.a.name, `reaches ${this.maxA} — not a ${p.mode === 'fe' ? 'extension' : 'strain'} of a tensile test (expected at most ${MAX_STRAIN * 100} %); are the ${p.mode === 'ss' ? 'strain and stress' : p.mode === 'fs' ? 'strain and force' : 'extension and force'} columns swapped, or is the unit wrong?`);
     }
     if (!(maxS > 0)) this.fail(L.dataLine, p.b.index + 1, p.b.name, 'every stress is 0; expected a loaded specimen');
+    // Tension recorded as negative (a machine or channel set up with compression positive): a column whose values
+    // are nearly all negative is read with its sign reversed, and the warning names it.
+    const flipped: string[] = [];
+    if (mostlyNegative(stress)) { negate(stress); flipped.push(show(p.b.name)); }
+    if (mostlyNegative(strain)) { negate(strain); flipped.push(show(p.a.name)); }
+    if (flipped.length) this.warnings.push(`${flipped.join(' and ')} ${flipped.length > 1 ? 'are' : 'is'} negative almost throughout (tension recorded as negative, a compression-positive sign convention): read with the sign reversed, as tension`);
     return {
       name, file: this.file, strain, stress, rows: n,
       basis: p.mode === 'ss' ? 'stress-strain' : p.mode === 'fs' ? 'force-strain' : 'force-extension',
@@ -444,6 +450,25 @@ export class RecordBuilder {
       layout: { delimiter: L.delimiter, decimalComma: L.decimalComma, headerLine: L.headerLine, unitsLine: L.unitsLine, dataLine: L.dataLine },
     };
   }
+}
+
+/**
+ * True when at least 90 % of the nonzero values among up to 2001 evenly spaced samples of `a` are negative (a
+ * tension record whose sign convention is compression-positive; a tensile record's own negative values — a toe,
+ * the noise about zero before loading or after fracture — are a few percent of it).
+ */
+function mostlyNegative(a: Float64Array): boolean {
+  const step = Math.max(1, Math.floor(a.length / 2000));
+  let neg = 0, nonzero = 0;
+  for (let i = 0; i < a.length; i += step) {
+    const v = a[i]!;
+    if (v !== 0) { nonzero++; if (v < 0) neg++; }
+  }
+  return nonzero >= 5 && neg >= 0.9 * nonzero;
+}
+
+function negate(a: Float64Array): void {
+  for (let i = 0; i < a.length; i++) a[i] = -a[i]!;
 }
 
 /**

@@ -45,12 +45,15 @@ const TABLES: Record<Exclude<Quantity, 'time'>, Readonly<Record<string, number>>
 
 /**
  * Lower-cased unit without spaces or the brackets around it ([MPa], (ksi), {mm}, <N>); 'N/mm^2' and
- * 'N/mm²' alike; 'in per in', 'in_per_in' and 'in./in.' read as 'in/in'; 'lbf.' as 'lbf'.
+ * 'N/mm²' alike, and 'N·mm⁻²', 'N mm-2', 'N.mm^-2'; 'in per in', 'in_per_in' and 'in./in.' read as 'in/in'; 'lbf.' as 'lbf'.
  */
 export function normUnit(u: string): string {
   let k = u.trim().toLowerCase();
   for (let i = 0; i < 2; i++) k = k.replace(/^[[({<]\s*(.*?)\s*[\])}>]$/, '$1');
-  k = k.replace(/[\s_]+per[\s_]+/g, '/').replace(/\s+/g, '').replace(/\.(?=\/|$)/g, '');
+  k = k.replace(/[\s_]+per[\s_]+/g, '/');
+  // A negative exponent as SI typesetting writes it (N·mm⁻², N mm-2, N.mm^-2; SI Brochure §5.4.6, from memory): N/mm².
+  k = k.replace(/^([a-zµ]+)\s*[·.*]?\s*([a-zµ]+)\s*(?:\^?-2|⁻²)$/, '$1/$2²');
+  k = k.replace(/\s+/g, '').replace(/\.(?=\/|$)/g, '');
   return k;
 }
 

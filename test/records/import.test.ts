@@ -111,6 +111,16 @@ describe('parseRecordText(text) reads what labs export', () => {
     expect(without.basis).toBe('force-strain');
     expect(without.columns.strain).toMatchObject({ name: 'Strain [%]' });
   });
+  it('tension recorded as negative (compression-positive sign convention, common practice): the columns read with the sign reversed, and said', () => {
+    const both = check(['Strain [%],Stress [MPa]', ...ROWS.map(([e, s]) => `${-e},${-s}`)].join('\n'));
+    expect(both.warnings.join(' ')).toMatch(/"Stress \[MPa\]" and "Strain \[%\]" are negative almost throughout .*read with the sign reversed/);
+    const force = check(['Area: 25 mm²', 'Force [N],Strain [%]', ...ROWS.map(([e, s]) => `${-s * 25},${e}`)].join('\n'));
+    expect(force.warnings.join(' ')).toMatch(/^"Force \[N\]" is negative almost throughout/);
+    // A tensile record's own few negative values (noise about zero before loading) are left alone.
+    const plain = parseRecordText(['Strain [%],Stress [MPa]', ...ROWS.map(([e, s], i) => `${i < 2 ? -0.001 : e},${i < 2 ? -0.3 : s}`)].join('\n'), { file: 'p.csv' });
+    expect(plain.stress[5]).toBe(ROWS[5]![1]);
+    expect(plain.warnings.join(' ')).not.toMatch(/negative almost throughout/);
+  });
   it('an extensometer channel named "Strain" but recorded in mm is read as the extension', () => {
     const r = check(fe(['Width: 12.5 mm', 'Thickness: 2 mm', 'Gauge length: 50 mm'], 'Force [N],Strain [mm]', ',', (s) => s * 25, (e) => e * 50));
     expect(r.basis).toBe('force-extension');

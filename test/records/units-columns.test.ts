@@ -51,6 +51,10 @@ describe('unitFactor(quantity, unit) for the units labs write', () => {
   });
   it('stress: N/mm² = N/mm2 = MPa; ksi = 6.894757 MPa (NIST SP 811 B.8)', () => {
     for (const u of ['N/mm²', 'N/mm2', '[MPa]', '(MPa)']) expect(unitFactor('stress', u), u).toBe(1);
+    // A negative exponent as SI typesetting writes it (SI Brochure §5.4.6, from memory).
+    for (const u of ['N·mm⁻²', 'N mm-2', '[N.mm^-2]', 'N*mm-2']) expect(unitFactor('stress', u), u).toBe(1);
+    expect(unitFactor('stress', 'kgf mm-2')).toBe(9.80665);
+    expect(unitFactor('stress', 'N mm-3')).toBeUndefined();
     expectRelClose(unitFactor('stress', '(ksi)')!, 6.894757, 1e-6, 'ksi');
   });
   it('stress of older certificates and other practice: kgf/mm² = 9.80665 MPa (1 kgf = 9.80665 N, NIST SP 811 B.8); lbf/in² = psi; MN/m² = N/m² × 10⁶ = MPa, kN/cm² = 10 MPa (SI)', () => {
