@@ -87,16 +87,25 @@ export function roleScore(c: ColumnInfo, role: Role, unitHint: string): number {
   const b = toEnglish(c.base);
   const lengthUnit = /^(mm|in|inch|m|cm|µm|um)$/i.test(normUnit(unitHint));
   const eng = c.isTrue ? 0 : 1;
+  // Symbols as papers and lab sheets head columns (σ, ε, F, ΔL, and their spelled-out or short forms), read only
+  // with a unit of their quantity (a bare "s" or "e" could be anything else): 9, below a named column.
+  const sym = (q: 'stress' | 'strain' | 'force' | 'length') => unitHint !== '' && unitFactor(q, unitHint) !== undefined;
   switch (role) {
-    case 'stress': return /\bstress\b|^sigma$/.test(b) ? 10 + eng * 5 + (/^(eng(ineering)? )?stress$/.test(b) ? 2 : 0) : 0;
+    case 'stress':
+      if (/^(σ|sig|s)$/.test(b) && sym('stress')) return 9;
+      return /\bstress\b|^sigma$/.test(b) ? 10 + eng * 5 + (/^(eng(ineering)? )?stress$/.test(b) ? 2 : 0) : 0;
     case 'strain':
+      if (/^(ε|ϵ|eps|e)$/.test(b) && sym('strain')) return 9;
       // "Strain [mm]": an extensometer channel named strain but recorded as a length is an extension (below).
       if (/\bstrain\b|^epsilon$/.test(b) && lengthUnit) return 0;
       if (/\bstrain\b|^epsilon$/.test(b)) return 10 + eng * 5 + (/^(eng(ineering)? |axial |longitudinal )?strain$/.test(b) ? 2 : 0) - (/rate/.test(b) ? 20 : 0) - (/lateral|transverse|width|thickness/.test(b) ? 9 : 0);
       if (/^elongation$|^elong$/.test(b) && !lengthUnit) return 8;
       return 0;
-    case 'force': return /\bforce\b|\bload\b/.test(b) ? 10 + (/^(force|load)$/.test(b) ? 2 : 0) : 0;
+    case 'force':
+      if (/^f$/.test(b) && sym('force')) return 9;
+      return /\bforce\b|\bload\b/.test(b) ? 10 + (/^(force|load)$/.test(b) ? 2 : 0) : 0;
     case 'extension': {
+      if (/^(δl|∆l|dl|δ|∆)$/.test(b) && lengthUnit) return 9;
       if (/\bstrain\b/.test(b) && lengthUnit) return 9;
       // The machine's own travel (crosshead, stroke, actuator position) only when nothing better is there: it holds
       // the compliance of the machine and grips (isMachineTravel; the reader warns).

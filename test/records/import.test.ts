@@ -57,6 +57,15 @@ describe('parseRecordText(text) reads what labs export', () => {
   it('strain as a fraction (mm/mm) and columns in another order', () => {
     check(['Time [s],Stress [MPa],Strain [mm/mm]', ...ROWS.map(([e, s], i) => `${i},${s},${e / 100}`)].join('\n'));
   });
+  it('columns headed by symbols with their units (σ [MPa], ε [%], eps, F [kN], ΔL [mm]; ISO 6892-1 and textbook symbols, common practice)', () => {
+    check(csv('ε [%],σ [MPa]'));
+    check(csv('eps (%);sigma (N/mm²)', ';', ','));
+    check(csv('e [%],S [MPa]'));
+    const r = check(['Area: 25 mm²', 'Gauge length: 50 mm', 'F [kN]\tΔL [mm]', ...ROWS.map(([e, s]) => `${(s * 25) / 1000}\t${(e / 100) * 50}`)].join('\n'));
+    expect(r.basis).toBe('force-extension');
+    // Without a unit of its quantity a bare letter is not read as a role.
+    expect(() => parseRecordText(csv('e,s'), { file: 'bare.csv' })).toThrow(/no strain and stress columns/);
+  });
   it('columns mapped explicitly by name or number', () => {
     const text = ['a,b,c', ...ROWS.map(([e, s]) => `0,${s},${e}`)].join('\n');
     check(text, { columns: { stress: 'b', strain: 3 }, strainUnit: '%', stressUnit: 'MPa' });
