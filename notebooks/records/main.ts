@@ -200,7 +200,7 @@ nb.cell({ name: 'input', fn: () => null })
           q(`Rp${a.proofOffsetPct}`, a.proofStrength, DIGITS.stress, 'MPa', 'proofStrength', { none: 'not reached' }),
           q(a.forceTop ? 'Rm (from the force after the strain ended)' : 'Rm', a.tensileStrength, DIGITS.stress, 'MPa', 'tensileStrength', lower('tensileStrength')),
           q('Ag (uniform elongation)', a.uniformElongationPct, 2, '%', 'uniformElongation', lower('uniformElongationPct')),
-          q(stopped ? 'A (record ends before fracture)' : a.strainChannelEnd ? 'A (strain channel ends before fracture)' : 'A (after fracture)', a.totalElongationPct, 2, '%', 'totalElongation', lower('totalElongationPct')),
+          q(stopped ? 'A (record ends before fracture)' : a.strainChannelEnd ? 'A (strain channel ends before fracture)' : a.lowerBounds.includes('totalElongationPct') ? 'A (test stopped before fracture)' : 'A (after fracture)', a.totalElongationPct, 2, '%', 'totalElongation', lower('totalElongationPct')),
           q(a.elasticModulusSource === 'given' ? 'E (given)' : 'E (elastic window)', a.elasticModulus / 1000, 1, 'GPa', 'elasticModulus'),
           q('n-value', a.nValue, 3, '', 'nValue', { none: 'not determined' }),
           q('ReH (upper yield)', a.upperYield, DIGITS.stress, 'MPa', 'upperYield', { none: continuous }),

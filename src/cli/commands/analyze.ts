@@ -120,7 +120,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   const agHow = ge('tensileStrength') ? '   (the record ends before maximum force)'
     : ge('uniformElongationPct') ? '   (the strain channel ends before maximum force)'
       : (a.forceMaximum.lawUniformElongation?.pct != null ? `   (Ag where the fitted laws reach maximum force, inside the top's 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`
-        : `   (Ag from the samples near the top, 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`) + (ge('totalElongationPct') ? '; A: the strain channel ends before fracture' : '');
+        : `   (Ag from the samples near the top, 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`) + (!ge('totalElongationPct') ? '' : a.strainChannelEnd ? '; A: the strain channel ends before fracture' : '; A: the test was stopped before fracture');
   lines.push(`  Ag / Agt / A ${ge('uniformElongationPct')}${fmt(a.uniformElongationPct, 2)} / ${ge('uniformTotalElongationPct')}${fmt(a.uniformTotalElongationPct, 2)} / ${ge('totalElongationPct')}${fmt(a.totalElongationPct, 2)} %${agHow}`);
   // The basis of every stress, as a certificate reader checks it first (docs/bases-and-units.md).
   lines.push(`  basis        Rp, Rt, ReH/ReL, Rm: engineering (force / original section); n, K and the laws: true stress on true plastic strain`);

@@ -13,7 +13,7 @@ import { LAW_NAMES } from '../flow/params.js';
 import { lawUniformElongation } from './lawTop.js';
 import { flowColumns } from './flowColumns.js';
 import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
-import type { TensileAnalysis, TensileData, TensileWarning } from './types.js';
+import type { TensileAnalysis, TensileData, TensileWarning, UnloadCycle } from './types.js';
 import { yieldPoint } from './yieldPoint.js';
 
 export interface AnalyzeOptions {
@@ -159,7 +159,9 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);
 
   // Fracture: first sudden fall after the highest stress, else the end of the record.
-  const fall = firstFall(stress, iRaw, sMax, noise);
+  // A fall spread over many samples along the elastic line is the specimen being unloaded, not fracture.
+  const fall0 = firstFall(stress, iRaw, sMax, noise);
+  const fall = fall0 >= 0 && elasticUnloading(strain, stress, iRaw, fall0, sMax, E) ? -1 : fall0;
   const detected = fall >= 0;
   const fi = detected ? fall : N - 1;
   const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
@@ -202,7 +204,18 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
   const topFrom = Math.max(0, Math.min(yp ? yp.endIndex : el.window.toIndex, fi - 2));
-  const fm = forceMaximum(strain, stress, noise, topFrom, fi + 1);
+  // Unload–reload cycles (found here: a last unloading that is never reloaded is the end of the test, below).
+  const cycles = findCycles(strain, stress, E, toe, el.window.toIndex, noise);
+  // A record that ends with an elastic unloading and no reload: the test was stopped and the specimen unloaded
+  // before it broke (no fracture fall). That unloading is no unload–reload cycle, the loading ended where it
+  // began, and A is the permanent elongation at the stop — a lower bound of the elongation after fracture.
+  let finalUnload: UnloadCycle | null = null;
+  {
+    const c = cycles[cycles.length - 1];
+    if (!detected && c && c.reloadProofStrength === null && neverReloaded(stress, c.reversalIndex, 0.7 * stress[c.unloadIndex]!)) { finalUnload = c; cycles.pop(); }
+  }
+  // The top is fitted on the loading only (an unloading at the end is no part of it).
+  const fm = forceMaximum(strain, stress, noise, topFrom, finalUnload ? Math.max(topFrom + 3, finalUnload.unloadIndex + 1) : fi + 1);
   // Past the strain channel's end the force alone: its top on the sample axis (uniform in time), from the same
   // start, to the fracture of the whole record. Where that top lies past the end, Rm is read from it (force over
   // the original section needs no strain) and Ag, Agt and A are lower bounds; else Rm and Ag stand and A is one.
@@ -216,10 +229,11 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const agCi: [number, number] = [(fm.strainInterval95[0] - toe - fm.stress / E) * 100, (fm.strainInterval95[1] - toe - fm.stress / E) * 100];
   const agWarningsAt = warnings.length; // Ag's warnings go here once Ag is known
 
-  const necked = !detected && stress[N - 1]! < 0.9 * Rm;
-  // The test stopped before maximum force: no fracture and the top fit reaches the last samples.
+  const loadEnd = finalUnload ? finalUnload.unloadIndex + 1 : N;
+  const necked = !detected && !finalUnload && stress[N - 1]! < 0.9 * Rm;
+  // The test stopped before maximum force: no fracture and the top fit reaches the last samples of the loading.
   let endMean = 0;
-  for (let i = N - 3; i < N; i++) endMean += stress[i]! / 3;
+  for (let i = Math.max(0, loadEnd - 3); i < loadEnd; i++) endMean += stress[i]! / Math.min(3, loadEnd);
   const lowerBounds: TensileAnalysis['lowerBounds'] = [];
   if (tail) {
     const t = tail.end;
@@ -233,11 +247,16 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
         + 'Measure A on the fitted broken pieces (ISO 6892-1, from memory)',
     });
     lowerBounds.push(...(maxInTail ? ['uniformElongationPct', 'uniformTotalElongationPct', 'totalElongationPct'] as const : ['totalElongationPct'] as const));
-  } else if (!detected && (iMax >= N - Math.max(2, Math.ceil(0.01 * N)) || (fm.span[1] >= strain[N - 1]! && endMean >= Rm - Math.max(3 * noise, 0.002 * Rm)))) {
-    warnings.push({ code: 'maxAtEnd', message: 'the highest stress is at the end of the record: the test stopped before maximum force, so Rm, Ag and A are lower bounds' });
+  } else if (!detected && (iMax >= loadEnd - Math.max(2, Math.ceil(0.01 * loadEnd)) || (fm.span[1] >= strain[loadEnd - 1]! && endMean >= Rm - Math.max(3 * noise, 0.002 * Rm)))) {
+    warnings.push({ code: 'maxAtEnd', message: `the highest stress is at the end of the ${finalUnload ? 'loading (the specimen was then unloaded)' : 'record'}: the test stopped before maximum force, so Rm, Ag and A are lower bounds` });
     lowerBounds.push('tensileStrength', 'uniformElongationPct', 'uniformTotalElongationPct', 'totalElongationPct');
   }
-  else if (!detected && !necked) warnings.push({ code: 'noFractureDrop', message: 'no sudden fall of force after Rm and no necking at the end: the last point is taken as fracture (A assumes the record ends at fracture)' });
+  if (finalUnload) {
+    const e = finalUnload.engineering;
+    warnings.push({ code: 'unloadedBeforeFracture', message: `the record ends with an elastic unloading from ${e.unloadStress.toFixed(1)} MPa (chord modulus ${(finalUnload.unloadModulus / 1000).toFixed(0)} GPa) and no fracture: the test was stopped before the specimen broke, so A is a lower bound (the permanent elongation at the stop)` });
+    if (!lowerBounds.includes('totalElongationPct')) lowerBounds.push('totalElongationPct');
+  }
+  else if (!tail && !detected && !necked && !lowerBounds.length) warnings.push({ code: 'noFractureDrop', message: 'no sudden fall of force after Rm and no necking at the end: the last point is taken as fracture (A assumes the record ends at fracture)' });
   // A: the stress at fracture from a line through the last samples (its elastic part s_f/E, not one noisy sample).
   // Past a strain channel's end, the plastic strain of its last sample (A can only be larger).
   let sF = stress[fi]!;
@@ -250,7 +269,6 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const A = (strain[fi]! - toe - sF / E) * 100;
 
   // Flow curve: monotone envelope (cycles left out), from the end of yield effects to Fm.
-  const cycles = findCycles(strain, stress, E, toe, el.window.toIndex, noise);
   const fromTrue = yp ? Math.log1p(strain[yp.endIndex]! - toe) - (stress[yp.endIndex]! * (1 + strain[yp.endIndex]! - toe)) / E : ANALYZE_DEFAULTS.flowCurveFrom;
   // The flow curve in one pass (ln(1 + e) only for the points of the envelope), into arrays sized
   // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
@@ -350,7 +368,8 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
       index: fi,
       detected: detected || necked,
       method: detected ? `first fall of stress by more than ${ANALYZE_DEFAULTS.fractureDrop * 100} % between two samples after Rm`
-        : necked ? 'last point of a record that ends after necking (force below 90 % of Fm): the machine stopped at fracture' : 'end of the record (no fracture seen)',
+        : necked ? 'last point of a record that ends after necking (force below 90 % of Fm): the machine stopped at fracture'
+          : finalUnload ? 'end of the record after an elastic unloading (the test was stopped before fracture)' : 'end of the record (no fracture seen)',
     },
     lowerBounds,
     strainChannelEnd: tail ? { ...tail.end } : null,
@@ -410,6 +429,32 @@ function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>, fall
     prev = e;
   }
   return iRaw;
+}
+
+/**
+ * True when the fall of stress that firstFall found at `fall` is a controlled unloading: it begins where the strain
+ * is largest after the highest stress (index iRaw), takes at least 6 samples to reach 2 % of the highest stress,
+ * and its chord follows the elastic line (the strain falls, the chord slope within 0.5–2 E). At fracture the strain
+ * is largest at the fall itself (the specimen stretches until it breaks) and the fall takes 1–4 samples on a
+ * fast-sampled record.
+ */
+function elasticUnloading(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, fall: number, sMax: number, E: number): boolean {
+  let u = iRaw;
+  for (let i = iRaw; i <= fall; i++) if (strain[i]! > strain[u]!) u = i;
+  let k = fall;
+  const floor = ANALYZE_DEFAULTS.fractureFloor * sMax;
+  while (k < stress.length - 1 && stress[k]! >= floor) k++;
+  if (k - u < 6) return false;
+  const de = strain[u]! - strain[k]!;
+  if (!(de > 0)) return false;
+  const slope = (stress[u]! - stress[k]!) / de;
+  return slope >= 0.5 * E && slope <= 2 * E;
+}
+
+/** True when no stress after index `from` reaches `level` (an unloading that is never reloaded). */
+function neverReloaded(stress: ArrayLike<number>, from: number, level: number): boolean {
+  for (let i = from + 1; i < stress.length; i++) if (stress[i]! >= level) return false;
+  return true;
 }
 
 /** Throws the InputError of finiteArgMax for index i (strain before stress). */

@@ -120,3 +120,65 @@ describe('analyzeRecord on INVENTED records whose extensometer was taken off (he
     expect(bad, bad.join('\n')).toEqual([]);
   }, 120_000);
 });
+
+describe('analyzeRecord on INVENTED records of tests stopped and unloaded before fracture', () => {
+  // The record cut at `at` (engineering strain as recorded) and unloaded along the elastic line to about zero load
+  // in 30 samples with the record's noise: the specimen never broke. The permanent elongation at the stop is then
+  // e − s/E of the last loaded sample (ISO 6892-1's plastic elongation; Dowling §4.5).
+  function stopAndUnload(strain: Float64Array, stress: Float64Array, at: number, E: number, noise: number, seed: number): { strain: Float64Array; stress: Float64Array; stop: number } {
+    let n = strain.findIndex((e) => e > at);
+    if (n < 0) n = strain.length;
+    const rng = xoshiro128ss(seed, 3);
+    const e = Array.from(strain.subarray(0, n)), s = Array.from(stress.subarray(0, n));
+    const e0 = e[n - 1]!, s0 = s[n - 1]!;
+    for (let k = 1; k <= 30; k++) {
+      const sk = s0 * (1 - k / 30);
+      e.push(e0 - (s0 - sk) / E);
+      s.push(sk + noise * (rng.nextFloat() * 2 - 1));
+    }
+    return { strain: Float64Array.from(e), stress: Float64Array.from(s), stop: n - 1 };
+  }
+  const seeds = Array.from({ length: 24 }, (_, i) => 10 * i + 3);
+  it('after maximum force: no unload–reload cycle, Rm and Ag as on the whole record, A a lower bound at the permanent elongation', () => {
+    const bad: string[] = [];
+    for (const seed of seeds) {
+      const c = labCase(seed);
+      const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(seed) });
+      const t = rec.truth;
+      const at = (t.uniformTotalElongationPct + 0.5 * (t.totalElongationPct - t.uniformElongationPct)) / 100;
+      const u = stopAndUnload(rec.strain, rec.stress, at, t.elasticModulus, c.spec.noise ?? 0, seed);
+      const opts = { fit: false } as const;
+      let a, whole;
+      try { a = analyzeRecord(u, opts); whole = analyzeRecord(rec, opts); } catch {
+        a = analyzeRecord(u, { ...opts, elasticModulus: t.elasticModulus }); whole = analyzeRecord(rec, { ...opts, elasticModulus: t.elasticModulus });
+      }
+      const why = `${c.what}, stopped at sample ${u.stop}`;
+      if (a.cycles.length) bad.push(`${why}: ${a.cycles.length} cycle(s) reported`);
+      if (!a.warnings.some((w) => w.code === 'unloadedBeforeFracture')) { bad.push(`${why}: no unloadedBeforeFracture warning (${a.warnings.map((w) => w.code).join(', ')})`); continue; }
+      expect(a.lowerBounds, why).toEqual(['totalElongationPct']);
+      expect(a.fracture.detected, why).toBe(false);
+      if (!(Math.abs(a.tensileStrength - whole.tensileStrength) / whole.tensileStrength <= 0.004)) bad.push(`${why}: Rm ${a.tensileStrength} vs whole ${whole.tensileStrength}`);
+      // The permanent elongation at the stop: the last loaded sample's e − s/E (toe as the analysis found it).
+      const perm = (u.strain[u.stop]! - a.toeStrain - u.stress[u.stop]! / a.elasticModulus) * 100;
+      if (!(Math.abs(a.totalElongationPct - perm) <= 0.1)) bad.push(`${why}: A ${a.totalElongationPct} vs permanent ${perm}`);
+      if (!(a.totalElongationPct <= t.totalElongationPct + 0.05)) bad.push(`${why}: A bound ${a.totalElongationPct} above the truth ${t.totalElongationPct}`);
+    }
+    expect(bad, bad.join('\n')).toEqual([]);
+  }, 120_000);
+  it('before maximum force: Rm, Ag and A lower bounds (the loading ended at the top)', () => {
+    const bad: string[] = [];
+    for (const seed of seeds.slice(0, 12)) {
+      const c = labCase(seed);
+      const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(seed) });
+      const t = rec.truth;
+      const u = stopAndUnload(rec.strain, rec.stress, 0.7 * t.uniformTotalElongationPct / 100, t.elasticModulus, c.spec.noise ?? 0, seed);
+      let a;
+      try { a = analyzeRecord(u, { fit: false }); } catch { a = analyzeRecord(u, { fit: false, elasticModulus: t.elasticModulus }); }
+      const why = `${c.what}, stopped at sample ${u.stop}`;
+      if ([...a.lowerBounds].sort().join() !== 'tensileStrength,totalElongationPct,uniformElongationPct,uniformTotalElongationPct') bad.push(`${why}: lower bounds ${a.lowerBounds.join(', ')}`);
+      if (!(a.tensileStrength <= t.tensileStrength * 1.004)) bad.push(`${why}: Rm bound ${a.tensileStrength} above the truth ${t.tensileStrength}`);
+      if (a.cycles.length) bad.push(`${why}: ${a.cycles.length} cycle(s) reported`);
+    }
+    expect(bad, bad.join('\n')).toEqual([]);
+  }, 120_000);
+});
