@@ -4,7 +4,7 @@
 import { analyzeRecord, ComputationError, InputError } from '../../src/core/index.js';
 import type { TensileAnalysis } from '../../src/core/index.js';
 import { PlanError } from '../../src/plan/problems.js';
-import { parseRecordText } from '../../src/records/index.js';
+import { parseRecordText, strainUnitHint } from '../../src/records/index.js';
 import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
 
 /** An error as plain data (classes do not cross to the page); `recordError` in main.ts rebuilds it. */
@@ -64,6 +64,10 @@ self.onmessage = (e: MessageEvent<WorkerRequest>) => {
     }
     post({ id, ok: true, record, analysis, analysisError: null });
   } catch (err) {
-    post({ id, ok: true, record, analysis: null, analysisError: plain(err) });
+    // An impossible E from a record whose strain unit was guessed: say that the guess explains it (strainUnitHint).
+    const e = err as { path?: unknown; value?: unknown; message?: unknown };
+    const hint = e?.path === 'elasticModulus' && typeof e.value === 'number' ? strainUnitHint(record, e.value) : null;
+    const p = plain(err);
+    post({ id, ok: true, record, analysis: null, analysisError: hint && p.kind === 'input' ? { ...p, allowed: `${p.allowed}; ${hint}`, message: `${p.message}; ${hint}` } : p });
   }
 };

@@ -43,6 +43,8 @@ export interface TensileRecord {
   geometry: { area: number; gaugeLength: number | null } | null;
   /** Metadata lines before the header. */
   metadata: Map<string, { key: string; value: string; unit: string; line: number }>;
+  /** How a strain column without a unit was read, by its largest value (more than 1: percent), or null when its unit was known. */
+  strainUnitGuessed?: 'fraction' | 'percent' | null;
   warnings: string[];
   layout: { delimiter: string; decimalComma: boolean; headerLine: number; unitsLine: number | null; dataLine: number };
 }
@@ -100,6 +102,8 @@ export class RecordBuilder {
   private footer: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
   /** Rows at the end whose strain cell is empty and stress a number (extensometer taken off), stored with the last strain held. */
   private held: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
+  /** How a strain column without a unit was read (by its largest value), or null when the unit was known. */
+  private strainUnitGuessed: 'fraction' | 'percent' | null = null;
 
   constructor(layout: Layout, opts: RecordOptions) {
     this.file = opts.file ?? 'record';
@@ -412,6 +416,7 @@ export class RecordBuilder {
     if (Number.isNaN(fa)) {
       fa = this.maxA > 1 ? 0.01 : 1;
       this.warnings.push(`no unit for strain column ${show(p.a.name)}; read as ${fa === 1 ? 'a fraction' : 'percent'} because its largest value is ${+this.maxA.toPrecision(6)}`);
+      this.strainUnitGuessed = fa === 1 ? 'fraction' : 'percent';
     }
     const n = this.n;
     let strain: Float64Array, stress: Float64Array, maxS: number;
@@ -446,10 +451,25 @@ export class RecordBuilder {
       columns: this.columns,
       geometry: p.mode === 'fe' ? { area: p.area, gaugeLength: p.gauge } : p.mode === 'fs' ? { area: p.area, gaugeLength: null } : null,
       metadata: L.metadata,
+      strainUnitGuessed: this.strainUnitGuessed,
       warnings: this.warnings,
       layout: { delimiter: L.delimiter, decimalComma: L.decimalComma, headerLine: L.headerLine, unitsLine: L.unitsLine, dataLine: L.dataLine },
     };
   }
+}
+
+/**
+ * A hint for an impossible E measured on a record whose strain unit was guessed: the factor 100 between a fraction
+ * and percent moves E by 100, so an E a hundred times too small (or large) is most likely that guess. The hint
+ * names the option and the E it would give; null when the guess does not explain E.
+ * @example strainUnitHint({ strainUnitGuessed: 'fraction' }, 2050) // "… give --strain-unit percent … E 205 GPa …"
+ */
+export function strainUnitHint(rec: Pick<TensileRecord, 'strainUnitGuessed'>, measuredE: number): string | null {
+  const g = rec.strainUnitGuessed;
+  if (!g || !(measuredE > 0)) return null;
+  const other = g === 'fraction' ? measuredE * 100 : measuredE / 100;
+  if (!(other >= 40000 && other <= 450000)) return null;
+  return `the strain column has no unit and was read as ${g === 'fraction' ? 'a fraction' : 'percent'}; if it is in ${g === 'fraction' ? 'percent' : 'fractions'}, give --strain-unit ${g === 'fraction' ? 'percent' : 'fraction'} (or the record bench's strain unit): E would be ${(other / 1000).toFixed(0)} GPa`;
 }
 
 /**

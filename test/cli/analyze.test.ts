@@ -185,6 +185,19 @@ describe('strainledger analyze RECORD --format json', () => {
     expect(bad.status).toBe(2);
     expect(bad.stderr).toMatch(/--strain-unit: got "inch", allowed fraction, percent, permille \(‰\) or microstrain \(µε\)/);
   });
+  it('a strain column without a unit read by its largest value: an impossible E that the guess explains says which --strain-unit gives a metal\'s E', () => {
+    // INVENTED: a brittle cast alloy (E 70 GPa, fracture at 0.9 % strain) in percent with no unit: its largest strain,
+    // 0.9, reads as a fraction, E comes out a hundred times too small; the message names the fix and the E it gives.
+    const rows = Array.from({ length: 900 }, (_, i) => { const e = i * 1e-5; return [e, Math.min(70000 * e, 150 + 9000 * (e - 150 / 70000))] as const; });
+    const f = join(dir, 'brittle-no-unit.csv');
+    writeFileSync(f, 'strain,stress [MPa]\n' + rows.map(([e, s]) => `${(e * 100).toFixed(5)},${s.toFixed(3)}`).join('\n') + '\n');
+    const r = run('analyze', f);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/elasticModulus: got 700, .*the strain column has no unit and was read as a fraction; if it is in percent, give --strain-unit percent .*E would be 70 GPa/);
+    const ok = run('analyze', f, '--strain-unit', 'percent', '--format', 'json');
+    expect(ok.status, ok.stderr).toBe(0);
+    expectRelClose(JSON.parse(ok.stdout).elasticModulus, 70000, 1e-3, 'E with the unit given');
+  });
   it('--format table prints the properties and the cautions', () => {
     const r = run('analyze', join(FIX, '46NTBN.csv'));
     expect(r.status).toBe(0);

@@ -253,7 +253,7 @@ export const analyze = defineCommand({
     }
 
     async function analyzeWith(fitLaws: AnalyzeOptions['fitLaws'] | undefined): Promise<number> {
-    const [{ readRecordFile }, { analyzeRecord }, { analyzeSpecimens }, { withRecordLocation }] = await Promise.all([
+    const [{ readRecordFile }, { analyzeRecord }, { analyzeSpecimens }, { withRecordLocation, withStrainUnitHint }] = await Promise.all([
       import('../../records/node.js'), import('../../core/tensile/analyzeRecord.js'), import('../../core/tensile/analyzeSpecimens.js'), import('../recordErrors.js'),
     ]);
     const records: TensileRecord[] = [];
@@ -266,7 +266,7 @@ export const analyze = defineCommand({
       ...(disagreement !== undefined ? { disagreementPct: disagreement } : {}),
       ...(modulus !== undefined ? { elasticModulus: modulus } : {}),
     };
-    const analyses = records.map((r) => withRecordLocation(r.file, () => analyzeRecord(r, aopts)));
+    const analyses = records.map((r) => withRecordLocation(r.file, () => withStrainUnitHint(r, () => analyzeRecord(r, aopts))));
     let block: Record<string, unknown> | undefined;
     let out: Record<string, unknown>;
     if (records.length === 1) {
