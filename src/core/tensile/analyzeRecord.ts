@@ -240,7 +240,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     const eEnd = (t.strain - toe) * 100;
     warnings.push({
       code: 'strainChannelEnds',
-      message: `the strain ${t.kind === 'held' ? 'holds one value' : 'falls back by more than elastic recovery allows'} from sample ${t.index} (at ${eEnd.toFixed(2)} % strain) while the force goes on for ${t.samplesAfter} more samples: the extensometer was taken off${t.kind === 'held' ? ' or reached the end of its range' : ' or reset'}. `
+      message: `the strain ${t.kind === 'held' ? 'holds one value' : t.kind === 'reset' ? 'falls back by more than elastic recovery allows' : 'jumps by far more than its steps around it'} from sample ${t.index} (at ${eEnd.toFixed(2)} % strain) while the force goes on for ${t.samplesAfter} more samples: the extensometer was taken off${t.kind === 'held' ? ' or reached the end of its range' : t.kind === 'reset' ? ' or reset' : ' and the strain switched to another source (such as the crosshead)'}. `
         + (maxInTail
           ? `Rm ${Rm.toFixed(1)} MPa is read from the force after that point (its top against time); Ag, Agt and A are not in the record and are given as lower bounds. `
           : 'Rm and Ag lie before that point and stand; A is not in the record and is given as a lower bound. ')
@@ -413,19 +413,20 @@ const MAX_FALLS = 64;
 /**
  * Index of the first highest stress; throws naming the first non-finite value (strain before stress at each
  * index). With `falls`, also collects (up to MAX_FALLS) the indices i where the strain falls by more than
- * extensometerEnd's reset margin from sample i − 1 (rare: a reset, or a noisy crosshead channel).
+ * extensometerEnd's reset margin, or rises by more than its jump size, from sample i − 1 (rare: a reset, a jump,
+ * a noisy crosshead channel, or a very coarse record).
  */
 function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>, falls?: number[]): number {
   const N = strain.length;
   // top starts as 0, not −Infinity: i = 0 sets it anyway, and a non-small-integer start made V8 box every new top.
   let iRaw = 0, top = 0, prev = N > 0 ? strain[0]! : 0;
-  const margin = EXTENSOMETER_END.resetMargin;
+  const margin = EXTENSOMETER_END.resetMargin, jump = EXTENSOMETER_END.jumpMin;
   for (let i = 0; i < N; i++) {
     const e = strain[i]!, s = stress[i]!;
     // The throw in a function of its own: inline, its message kept every value boxed for it (measured).
     if (!(e - e === 0 && s - s === 0)) notFinite(strain, stress, i);
     if (i === 0 || s > top) { top = s; iRaw = i; }
-    if (prev - e > margin && falls && falls.length < MAX_FALLS) falls.push(i);
+    if ((prev - e > margin || e - prev > jump) && falls && falls.length < MAX_FALLS) falls.push(i);
     prev = e;
   }
   return iRaw;

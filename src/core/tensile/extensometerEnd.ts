@@ -5,9 +5,10 @@ export interface ExtensometerEnd {
   /**
    * 'held': the channel keeps one value (an extensometer taken off whose last reading the machine holds, or one at
    * the end of its range) while the force changes; 'reset': it falls back by more than elastic recovery allows (to
-   * zero, or to a new origin).
+   * zero, or to a new origin); 'jump': it rises in one sample by far more than its steps around it (the machine
+   * switched the strain to another source, such as the crosshead, when the extensometer came off).
    */
-  kind: 'held' | 'reset';
+  kind: 'held' | 'reset' | 'jump';
   /** Engineering strain of the last sample read (index − 1), as recorded (toe not removed). */
   strain: number;
   /** Samples after the end in which the force was still recorded (to the end of the record). */
@@ -28,6 +29,9 @@ export const EXTENSOMETER_END = {
   heldStressChange: 0.02,
   /** Two strain readings closer than this are the same held value (far below any extensometer's resolution). */
   sameValue: 1e-9,
+  /** A rise of strain in one sample of more than this (0.5 % strain) and jumpRatio times the steps around it is a jump. */
+  jumpMin: 0.005,
+  jumpRatio: 20,
 } as const;
 
 /**
@@ -41,6 +45,9 @@ export const EXTENSOMETER_END = {
  * - reset: at sample i the strain falls by more than the elastic recovery any metal allows,
  *   e[i−1] − e[i] > resetMargin + max(0, s[i−1] − s[i])/E_LOW (E_LOW = 40 GPa), while the force still carries
  *   (s[i] > 10 % of the highest stress and > half of s[i−1]: not fracture). Unloading gives back Δs/E ≤ Δs/E_LOW.
+ * - jump: at sample i the strain rises by more than 0.5 % and 20 times the median step of the 25 samples on each
+ *   side (the larger median: a change of test rate keeps its larger steps), the force carrying on both sides — the
+ *   machine switched the strain to another source (common practice: the crosshead, once the extensometer is off);
  * - held: from sample c the strain keeps one value (within 1e-9) to the end of the record, to a reset, or to
  *   fracture (the stress below 10 % of the highest), and over the held samples before the force falls (at least
  *   5) the stress changes by more than max(2 % of the highest stress, 8σ̂). A working extensometer on a specimen
@@ -49,26 +56,29 @@ export const EXTENSOMETER_END = {
  * A channel that keeps drifting with noise after removal is not recognised. Cost: O(N), one pass; with `falls`
  * (every index i, ascending, where e[i−1] − e[i] > resetMargin) only the held run's length.
  * Units: strain fraction, stress and σ̂ (`noise`) MPa. Valid: finite arrays of one length, sMax > 0.
- * @example extensometerEnd([0, 0.001, 0.002, 0.05, 0.1, 0.1, 0.1, 0.1, 0.1, 0.1], [0, 200, 300, 350, 380, 390, 400, 405, 402, 0], 405, 1)
- *   // { index: 5, kind: 'held', strain: 0.1, samplesAfter: 5 }
+ * @example extensometerEnd([0, 0.001, 0.002, 0.003, 0.004, 0.004, 0.004, 0.004, 0.004, 0.004], [0, 200, 300, 350, 380, 390, 400, 405, 402, 0], 405, 1)
+ *   // { index: 5, kind: 'held', strain: 0.004, samplesAfter: 5 }
  */
 export function extensometerEnd(strain: ArrayLike<number>, stress: ArrayLike<number>, sMax: number, noise: number, falls?: readonly number[]): ExtensometerEnd | null {
   const N = strain.length;
   const L = EXTENSOMETER_END;
   const carrying = L.carrying * sMax;
   const heldChange = Math.max(L.heldStressChange * sMax, 8 * noise);
-  // First reset, if any (a held run must end before or at it).
-  // First reset, if any (a held run must end before or at it). `falls` (the samples where the strain fell by
-  // more than the margin, found by a pass the caller makes anyway) spares a pass of its own: on a
+  // First reset or jump, if any (a held run must end before or at it). `falls` (the samples where the strain moved
+  // by more than the margin, found by a pass the caller makes anyway) spares a pass of its own: on a
   // 1,000,000-row record that pass cost 6 ms cold, the test inside the caller's pass under 1 ms (measured).
   let reset = -1;
   const margin = L.resetMargin, lowE = L.lowestModulus;
+  const event = (i: number): boolean => {
+    const d = strain[i - 1]! - strain[i]!;
+    return d > margin ? isReset(d, stress[i]!, stress[i - 1]!, carrying, margin, lowE) : -d > L.jumpMin && isJump(strain, stress, i, carrying);
+  };
   if (falls) {
-    for (const i of falls) if (isReset(strain[i - 1]! - strain[i]!, stress[i]!, stress[i - 1]!, carrying, margin, lowE)) { reset = i; break; }
+    for (const i of falls) if (event(i)) { reset = i; break; }
   } else {
     for (let i = 1; i < N; i++) {
-      const fall = strain[i - 1]! - strain[i]!;
-      if (fall > margin && isReset(fall, stress[i]!, stress[i - 1]!, carrying, margin, lowE)) { reset = i; break; }
+      const d = strain[i - 1]! - strain[i]!;
+      if ((d > margin || -d > L.jumpMin) && event(i)) { reset = i; break; }
     }
   }
   const stop = reset >= 0 ? reset : N;
@@ -90,10 +100,28 @@ export function extensometerEnd(strain: ArrayLike<number>, stress: ArrayLike<num
     if (k - c >= L.heldSamples && hi - lo > heldChange) return { index: c + 1, kind: 'held', strain: v, samplesAfter: N - c - 1 };
   }
   if (reset >= 0) {
-    // A reset after a held run shorter than the rule (or none): the channel is read to the sample before it.
-    return { index: reset, kind: 'reset', strain: strain[reset - 1]!, samplesAfter: N - reset };
+    // A reset or jump after a held run shorter than the rule (or none): the channel is read to the sample before it.
+    return { index: reset, kind: strain[reset]! < strain[reset - 1]! ? 'reset' : 'jump', strain: strain[reset - 1]!, samplesAfter: N - reset };
   }
   return null;
+}
+
+/**
+ * The jump test of {@link extensometerEnd} at sample i (the strain rose by more than jumpMin from i − 1): the rise
+ * is more than jumpRatio times the median step of the 25 samples on each side (the larger of the two medians, so
+ * a change of test rate, whose steps stay large after it, is no jump), and the force carries on both sides.
+ */
+function isJump(strain: ArrayLike<number>, stress: ArrayLike<number>, i: number, carrying: number): boolean {
+  const N = strain.length;
+  if (!(stress[i]! > carrying && stress[i]! > 0.5 * stress[i - 1]! && (i + 1 >= N || stress[i + 1]! > carrying))) return false;
+  const steps = (a: number, b: number) => {
+    const out: number[] = [];
+    for (let k = Math.max(1, a); k < Math.min(N, b); k++) if (k !== i) out.push(Math.abs(strain[k]! - strain[k - 1]!));
+    out.sort((x, y) => x - y);
+    return out.length ? out[out.length >> 1]! : 0;
+  };
+  const typical = Math.max(steps(i - 25, i), steps(i + 1, i + 26));
+  return strain[i]! - strain[i - 1]! > EXTENSOMETER_END.jumpRatio * typical;
 }
 
 /** The reset test of {@link extensometerEnd} for a strain fall `fall` from the sample with stress `sp` to the one with `s`. */

@@ -4,19 +4,22 @@ import { parseRecordText } from '../../../src/records/parse.js';
 import { labCase } from './lab-records.helpers.js';
 
 // An extensometer taken off before fracture (common practice where the fracture would damage it): the machine
-// holds its last reading, writes zero, or leaves the cells empty, while the force goes on to fracture. Rm is the
+// holds its last reading, writes zero, leaves the cells empty, or switches the strain to another source (the
+// crosshead), while the force goes on to fracture. Rm is the
 // highest force over the original section (ISO 6892-1 §3.10.1) and needs no strain; Ag and A do. The records are
 // INVENTED (synthesizeLabRecord via the property test's cases), the truth their noise-free curve's ISO 6892-1
 // values; the removal is applied to the recorded strain as each machine behaviour writes it.
 
-type Style = 'held' | 'zero' | 'blank';
+type Style = 'held' | 'zero' | 'blank' | 'switched';
 
 /** The record with its strain channel ended at engineering strain `at` (as recorded), written the way `style` says. */
 function removeAt(strain: Float64Array, stress: Float64Array, at: number, style: Style): { strain: Float64Array; stress: Float64Array; from: number } {
   const s = Float64Array.from(strain);
   let from = s.findIndex((e) => e > at);
   if (from < 0) from = s.length;
-  for (let i = from; i < s.length; i++) s[i] = style === 'zero' ? 0 : s[from - 1]!;
+  // 'switched': the machine goes on with another strain source that reads more (the crosshead: the machine's and
+  // grips' stretch, here 30 % more and 1 % of slack taken up), as some do when the extensometer comes off.
+  for (let i = from; i < s.length; i++) s[i] = style === 'zero' ? 0 : style === 'switched' ? 1.3 * strain[i]! + 0.01 : s[from - 1]!;
   if (style !== 'blank') return { strain: s, stress, from };
   // Empty strain cells to the end, through the record reader (which holds the last value).
   const lines = ['Strain [mm/mm],Stress [MPa]'];
@@ -27,12 +30,23 @@ function removeAt(strain: Float64Array, stress: Float64Array, at: number, style:
 
 describe('extensometerEnd: where the strain channel stops following the specimen', () => {
   it('finds a held value and a reset, and the index of the first sample past the last real reading', () => {
-    // The doc example: the strain holds 0.1 from index 4 while the stress goes from 380 to 405 MPa.
-    expect(extensometerEnd([0, 0.001, 0.002, 0.05, 0.1, 0.1, 0.1, 0.1, 0.1, 0.1], [0, 200, 300, 350, 380, 390, 400, 405, 402, 0], 405, 1))
-      .toEqual({ index: 5, kind: 'held', strain: 0.1, samplesAfter: 5 });
+    // The doc example: the strain holds 0.004 from index 4 while the stress goes from 380 to 405 MPa.
+    expect(extensometerEnd([0, 0.001, 0.002, 0.003, 0.004, 0.004, 0.004, 0.004, 0.004, 0.004], [0, 200, 300, 350, 380, 390, 400, 405, 402, 0], 405, 1))
+      .toEqual({ index: 5, kind: 'held', strain: 0.004, samplesAfter: 5 });
     // Reset to zero at index 6 while the stress still carries.
-    const r = extensometerEnd([0, 0.001, 0.002, 0.05, 0.1, 0.12, 0, 0, 0, 0], [0, 200, 300, 350, 380, 390, 395, 400, 380, 0], 400, 1);
-    expect(r).toEqual({ index: 6, kind: 'reset', strain: 0.12, samplesAfter: 4 });
+    const r = extensometerEnd([0, 0.001, 0.002, 0.003, 0.004, 0.005, 0, 0, 0, 0], [0, 200, 300, 350, 380, 390, 395, 400, 380, 0], 400, 1);
+    expect(r).toEqual({ index: 6, kind: 'reset', strain: 0.005, samplesAfter: 4 });
+  });
+
+  it('finds a jump to another strain source, and not a change of test rate', () => {
+    // Steps of 1e-3, then at index 30 a jump of 2 % and steps of 1.3e-3 (the crosshead): the end at 30.
+    const e: number[] = [], s: number[] = [];
+    for (let i = 0; i < 60; i++) { e.push(i < 30 ? i * 1e-3 : 0.05 + i * 1.3e-3); s.push(300 + i); }
+    expect(extensometerEnd(e, s, 400, 0.5)).toEqual({ index: 30, kind: 'jump', strain: 0.029, samplesAfter: 30 });
+    // The rate raised 27 times at index 30 (ISO 6892-1 method A's range, from memory): no jump.
+    const r: number[] = [];
+    for (let i = 0; i < 60; i++) r.push(i < 30 ? i * 2e-4 : 29 * 2e-4 + (i - 29) * 5.4e-3);
+    expect(extensometerEnd(r, s, 400, 0.5)).toBeNull();
   });
 
   it('does not read an unloading, a held value after fracture, a coarse channel in the elastic rise or a short hold as the end', () => {
@@ -69,7 +83,7 @@ describe('analyzeRecord on INVENTED records whose extensometer was taken off (he
       const c = labCase(seed);
       const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(seed) });
       const t = rec.truth;
-      const style: Style = (['held', 'zero', 'blank'] as const)[seed % 3]!;
+      const style: Style = (['held', 'zero', 'blank', 'switched'] as const)[seed % 4]!;
       // Off at 70 % of the strain at maximum force (past the yield region on every case here).
       const cut = removeAt(rec.strain, rec.stress, 0.7 * t.uniformTotalElongationPct / 100, style);
       let a;
@@ -77,7 +91,7 @@ describe('analyzeRecord on INVENTED records whose extensometer was taken off (he
       n++;
       const why = `${c.what}, ${style} at sample ${cut.from}`;
       if (a.strainChannelEnd === null) { bad.push(`${why}: not found`); continue; }
-      if (a.strainChannelEnd.kind !== (style === 'zero' ? 'reset' : 'held')) bad.push(`${why}: kind ${a.strainChannelEnd.kind}`);
+      if (a.strainChannelEnd.kind !== (style === 'zero' ? 'reset' : style === 'switched' ? 'jump' : 'held')) bad.push(`${why}: kind ${a.strainChannelEnd.kind}`);
       if (Math.abs(a.strainChannelEnd.index - cut.from) > 1) bad.push(`${why}: found at ${a.strainChannelEnd.index}`);
       if (!(Math.abs(a.tensileStrength - t.tensileStrength) / t.tensileStrength <= 0.004)) bad.push(`${why}: Rm ${a.tensileStrength} vs ${t.tensileStrength}`);
       expect(a.forceTop, why).not.toBeNull();
@@ -98,7 +112,7 @@ describe('analyzeRecord on INVENTED records whose extensometer was taken off (he
       const c = labCase(seed);
       const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(seed) });
       const t = rec.truth;
-      const style: Style = (['held', 'zero', 'blank'] as const)[(seed + 1) % 3]!;
+      const style: Style = (['held', 'zero', 'blank', 'switched'] as const)[(seed + 1) % 4]!;
       // Off halfway between maximum force and fracture.
       const at = (t.uniformTotalElongationPct + 0.5 * (t.totalElongationPct - t.uniformElongationPct)) / 100;
       const cut = removeAt(rec.strain, rec.stress, at, style);
