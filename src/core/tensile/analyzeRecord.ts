@@ -6,6 +6,7 @@ import { linearFit } from '../fit/linearFit.js';
 import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus, lowBandToe } from './elasticModulus.js';
 import { EXTENSOMETER_END, extensometerEnd, type ExtensometerEnd } from './extensometerEnd.js';
 import { forceMaximum } from './forceMaximum.js';
+import { findGlitches, GLITCH } from './glitches.js';
 import { recordNoiseWide } from './recordNoise.js';
 import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
 import { lawDataRanged, type LawData } from '../fit/lawNormalEquations.js';
@@ -77,23 +78,37 @@ export const ANALYZE_DEFAULTS = {
  * @example analyzeRecord({ strain, stress }).proofStrength // Rp0.2 in MPa
  */
 export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): TensileAnalysis {
-  const { strain, stress } = data;
-  const N = strain.length;
-  if (stress.length !== N) throw new InputError('stress', stress.length, `as many values as strain (${N})`);
+  const N = data.strain.length;
+  if (data.stress.length !== N) throw new InputError('stress', data.stress.length, `as many values as strain (${N})`);
   if (N < 10) throw new InputError('points', N, 'at least 10 points in a tensile record');
-  const falls: number[] = [];
-  const iRaw = finiteArgMax(strain, stress, falls);
-  const sMax = stress[iRaw]!;
+  const falls: number[] = [], jumps: number[] = [];
+  let iRaw = finiteArgMax(data.strain, data.stress, falls, jumps);
+  let sMax = data.stress[iRaw]!;
   if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
+  // Single samples an acquisition glitch put far off the curve (a spike, a dropped reading) are read as the mean of
+  // their neighbours, on a copy, and said: one spike read as the maximum had put Rm 13 % high and "fracture" there.
+  const early: TensileWarning[] = [];
+  const glitches = findGlitches(data.strain, data.stress, sMax, { strain: falls.length < MAX_FALLS ? falls : null, stress: jumps.length < MAX_FALLS ? jumps : null });
+  let strain = data.strain, stress = data.stress;
+  if (glitches.length) {
+    const e = Float64Array.from(strain), s = Float64Array.from(stress);
+    for (const g of glitches) (g.column === 'strain' ? e : s)[g.index] = g.readAs;
+    strain = e; stress = s;
+    const list = glitches.slice(0, 5).map((g) => `sample ${g.index} (${g.column} ${+g.value.toPrecision(5)}, read as ${+g.readAs.toPrecision(5)})`).join(', ');
+    early.push({ code: 'glitch', message: `${glitches.length} single sample${glitches.length > 1 ? 's' : ''} far off ${glitches.length > 1 ? 'their' : 'its'} neighbours, which agree with each other (an acquisition spike or dropped reading; the specimen cannot do that and return the next sample): read as the mean of the neighbours — ${list}${glitches.length > 5 ? ', …' : ''}. Check the export if there are many` });
+    falls.length = 0;
+    iRaw = finiteArgMax(strain, stress, falls);
+    sMax = stress[iRaw]!;
+  }
   const noise = recordNoiseWide(stress);
   // A strain channel that stops following the specimen (extensometer taken off, reset, out of range): every
   // property that needs strain is read before that point; the force after it still counts for Rm.
   const end = extensometerEnd(strain, stress, sMax, noise, falls.length < MAX_FALLS ? falls : undefined);
-  if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null);
+  if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null, early);
   if (end.index < 10) throw new InputError(`strain[${end.index}]`, strain[end.index]!, `a strain channel that follows the specimen for at least 10 samples; it ${end.kind === 'held' ? 'holds one value' : 'falls back by more than any elastic recovery'} from sample ${end.index} while the force goes on (extensometer taken off?)`);
   const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, end.index) : Array.prototype.slice.call(a, 0, end.index) as number[]);
   const hs = head(strain), hy = head(stress);
-  return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end });
+  return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end }, early);
 }
 
 /** The force after a strain channel's end ({@link extensometerEnd}): the whole record's stress column and where the strain ends. */
@@ -103,9 +118,9 @@ interface ForceTail { stress: ArrayLike<number>; end: ExtensometerEnd }
  * analyzeRecord on the samples whose strain follows the specimen (all of them, or those before the strain
  * channel's end, with the whole record's stress in `tail`).
  */
-function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, noise: number, opts: AnalyzeOptions, tail: ForceTail | null): TensileAnalysis {
+function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, noise: number, opts: AnalyzeOptions, tail: ForceTail | null, early: TensileWarning[]): TensileAnalysis {
   const N = strain.length;
-  const warnings: TensileWarning[] = [];
+  const warnings: TensileWarning[] = [...early];
   const sMax = stress[iRaw]!;
   const el = elasticModulus(strain, stress, sMax, noise);
   const given = opts.elasticModulus;
@@ -416,18 +431,25 @@ const MAX_FALLS = 64;
  * extensometerEnd's reset margin, or rises by more than its jump size, from sample i − 1 (rare: a reset, a jump,
  * a noisy crosshead channel, or a very coarse record).
  */
-function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>, falls?: number[]): number {
+function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>, falls?: number[], leaps?: number[]): number {
   const N = strain.length;
   // top starts as 0, not −Infinity: i = 0 sets it anyway, and a non-small-integer start made V8 box every new top.
-  let iRaw = 0, top = 0, prev = N > 0 ? strain[0]! : 0;
-  const margin = EXTENSOMETER_END.resetMargin, jump = EXTENSOMETER_END.jumpMin;
+  let iRaw = 0, top = 0, prev = N > 0 ? strain[0]! : 0, sPrev = N > 0 ? stress[0]! : 0;
+  const margin = EXTENSOMETER_END.resetMargin, jump = EXTENSOMETER_END.jumpMin, leap = GLITCH.stressOff;
   for (let i = 0; i < N; i++) {
     const e = strain[i]!, s = stress[i]!;
     // The throw in a function of its own: inline, its message kept every value boxed for it (measured).
     if (!(e - e === 0 && s - s === 0)) notFinite(strain, stress, i);
     if (i === 0 || s > top) { top = s; iRaw = i; }
     if ((prev - e > margin || e - prev > jump) && falls && falls.length < MAX_FALLS) falls.push(i);
-    prev = e;
+    // A move of stress by more than a tenth of the highest so far: a glitch candidate (findGlitches).
+    if (Math.abs(s - sPrev) > leap * top && leaps) {
+      // Full: keep only the moves still larger than a tenth of the highest stress so far (the rest, from the noisy
+      // start of loading, cannot be glitches of a loaded specimen: findGlitches wants a tenth of the final highest).
+      if (leaps.length === MAX_FALLS) compactLeaps(leaps, stress, leap * top);
+      if (leaps.length < MAX_FALLS) leaps.push(i);
+    }
+    prev = e; sPrev = s;
   }
   return iRaw;
 }
@@ -456,6 +478,13 @@ function elasticUnloading(strain: ArrayLike<number>, stress: ArrayLike<number>, 
 function neverReloaded(stress: ArrayLike<number>, from: number, level: number): boolean {
   for (let i = from + 1; i < stress.length; i++) if (stress[i]! >= level) return false;
   return true;
+}
+
+/** Keeps the indices i of `leaps` where the stress moved by more than `min` from sample i − 1 (in place). */
+function compactLeaps(leaps: number[], stress: ArrayLike<number>, min: number): void {
+  let k = 0;
+  for (const i of leaps) if (Math.abs(stress[i]! - stress[i - 1]!) > min) leaps[k++] = i;
+  leaps.length = k;
 }
 
 /** Throws the InputError of finiteArgMax for index i (strain before stress). */

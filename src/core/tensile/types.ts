@@ -9,7 +9,7 @@ export interface TensileData {
 }
 
 export interface TensileWarning {
-  code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles' | 'strainChannelEnds' | 'unloadedBeforeFracture'
+  code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles' | 'strainChannelEnds' | 'unloadedBeforeFracture' | 'glitch'
     | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
   message: string;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeRecord, extensometerEnd, synthesizeLabRecord, xoshiro128ss } from '../../../src/core/index.js';
+import { analyzeRecord, extensometerEnd, findGlitches, synthesizeLabRecord, xoshiro128ss } from '../../../src/core/index.js';
 import { parseRecordText } from '../../../src/records/parse.js';
 import { labCase } from './lab-records.helpers.js';
 
@@ -192,6 +192,61 @@ describe('analyzeRecord on INVENTED records of tests stopped and unloaded before
       if ([...a.lowerBounds].sort().join() !== 'tensileStrength,totalElongationPct,uniformElongationPct,uniformTotalElongationPct') bad.push(`${why}: lower bounds ${a.lowerBounds.join(', ')}`);
       if (!(a.tensileStrength <= t.tensileStrength * 1.004)) bad.push(`${why}: Rm bound ${a.tensileStrength} above the truth ${t.tensileStrength}`);
       if (a.cycles.length) bad.push(`${why}: ${a.cycles.length} cycle(s) reported`);
+    }
+    expect(bad, bad.join('\n')).toEqual([]);
+  }, 120_000);
+});
+
+describe('analyzeRecord on INVENTED records with single-sample acquisition glitches', () => {
+  it('findGlitches: a spike and a dropped reading, not a yield drop, a fracture or the start of loading', () => {
+    expect(findGlitches([0, 0.01, 0.02, 0.03, 0.04], [100, 300, 900, 310, 320], 320)).toEqual([{ index: 2, column: 'stress', value: 900, readAs: 305 }]);
+    expect(findGlitches([0, 0.01, 0.02, 0.03, 0.04], [300, 305, 0, 310, 312], 312).map((g) => g.index)).toEqual([2]);
+    // A yield drop (stays down), a fracture (stays down), the first samples of loading (below 10 % of the top).
+    expect(findGlitches([0, 0.001, 0.002, 0.003, 0.004], [250, 300, 270, 271, 272], 300)).toEqual([]);
+    expect(findGlitches([0, 0.1, 0.2, 0.3, 0.31], [400, 410, 405, 3, 1], 410)).toEqual([]);
+    expect(findGlitches([0, 1e-5, 2e-5, 3e-5, 4e-5], [0, 2, 9, 3, 4], 400)).toEqual([]);
+    // A strain reading dropped to zero for one sample.
+    expect(findGlitches([0.1, 0.11, 0, 0.13, 0.14], [400, 401, 402, 403, 404], 404)).toEqual([{ index: 2, column: 'strain', value: 0, readAs: 0.12 }]);
+  });
+
+  it('1–3 spikes (×1.5–3), dropped stress or strain readings in the loaded record: the same Rp0.2, Rm, Ag and A as without them, and said', () => {
+    const bad: string[] = [];
+    const seeds = Array.from({ length: 30 }, (_, i) => 8 * i + 5);
+    for (const seed of seeds) {
+      const c = labCase(seed);
+      const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(seed) });
+      const t = rec.truth;
+      const rng = xoshiro128ss(seed, 11);
+      const strain = Float64Array.from(rec.strain), stress = Float64Array.from(rec.stress);
+      // Places where the specimen is loaded above 30 % of Rm, before the fall to fracture, not next to each other.
+      const N = strain.length, sMax = Math.max(...stress);
+      const k = 1 + Math.floor(rng.nextFloat() * 3);
+      const at: number[] = [];
+      while (at.length < k) {
+        const i = 2 + Math.floor(rng.nextFloat() * (N - 4));
+        if (stress[i - 1]! > 0.3 * sMax && stress[i + 1]! > 0.3 * sMax && at.every((j) => Math.abs(j - i) > 3)) at.push(i);
+      }
+      for (const i of at) {
+        const kind = Math.floor(rng.nextFloat() * 3);
+        if (kind === 0) stress[i] = stress[i]! * (1.5 + 1.5 * rng.nextFloat());
+        else if (kind === 1) stress[i] = 0;
+        else strain[i] = 0;
+      }
+      const opts = { fit: false } as const;
+      let a, clean;
+      try { a = analyzeRecord({ strain, stress }, opts); clean = analyzeRecord(rec, opts); } catch {
+        a = analyzeRecord({ strain, stress }, { ...opts, elasticModulus: t.elasticModulus }); clean = analyzeRecord(rec, { ...opts, elasticModulus: t.elasticModulus });
+      }
+      const why = `${c.what}, glitches at ${at.join(', ')}`;
+      const g = a.warnings.find((w) => w.code === 'glitch');
+      if (!g) { bad.push(`${why}: no glitch warning`); continue; }
+      for (const [name, x, y, tol] of [['Rp0.2', a.proofStrength!, clean.proofStrength!, 0.002], ['Rm', a.tensileStrength, clean.tensileStrength, 0.002]] as const) {
+        if (!(Math.abs(x / y - 1) <= tol)) bad.push(`${why}: ${name} ${x} vs ${y} without the glitches`);
+      }
+      for (const [name, x, y] of [['Ag', a.uniformElongationPct, clean.uniformElongationPct], ['A', a.totalElongationPct, clean.totalElongationPct]] as const) {
+        if (!(Math.abs(x - y) <= 0.1)) bad.push(`${why}: ${name} ${x} vs ${y} without the glitches`);
+      }
+      if (a.strainChannelEnd !== null) bad.push(`${why}: a strain glitch read as the channel's end`);
     }
     expect(bad, bad.join('\n')).toEqual([]);
   }, 120_000);
