@@ -22,9 +22,10 @@ export const GLITCH = {
  * Single samples an acquisition glitch put far off the curve (an electrical spike, a dropped reading of 0): sample
  * i (1 ≤ i ≤ N − 2) whose value v stands off the mean m of its two neighbours a, b by more than the limit — 10 % of
  * the highest stress, or 0.2 % strain — on the same side of both, while the neighbours agree (|b − a| < ¼ |v − m|)
- * and the specimen is loaded (max(a, b) > 10 % of the highest stress, for stress). A specimen cannot do that in one
- * sample and return the next: a yield drop or a fracture stays down (its next sample is far from the one before), a
- * serration or the noise is far smaller. Two or more bad samples in a row are not recognised.
+ * and the specimen is loaded (max(a, b) > 10 % of the highest stress, for stress), unless the other column turns the
+ * same way at i by at least a quarter of the elastic amount (an unload–reload reversal caught on one sample). A
+ * specimen cannot do that in one sample and return the next: a yield drop or a fracture stays down (its next sample
+ * is far from the one before), a serration or the noise is far smaller. Two or more bad samples in a row are not recognised.
  * `candidates` (per column, ascending indices where the value moved by more than the limit from the sample before,
  * collected by a pass the caller makes anyway) limits the search; a column without them has every sample tested.
  * Units: strain fraction, stress MPa. Cost: O(candidates), or O(N).
@@ -33,13 +34,20 @@ export const GLITCH = {
 export function findGlitches(strain: ArrayLike<number>, stress: ArrayLike<number>, sMax: number, candidates?: { strain?: readonly number[] | null; stress?: readonly number[] | null }): Glitch[] {
   const N = strain.length;
   const out: Glitch[] = [];
-  const test = (col: ArrayLike<number>, i: number, off: number, loaded: boolean) => {
+  // Off the mean of the two neighbours, at sample i of a column.
+  const offMean = (col: ArrayLike<number>, i: number) => col[i]! - 0.5 * (col[i - 1]! + col[i + 1]!);
+  const test = (col: ArrayLike<number>, i: number, off: number, isStress: boolean) => {
     if (i < 1 || i > N - 2) return null;
     const a = col[i - 1]!, v = col[i]!, b = col[i + 1]!;
     const m = 0.5 * (a + b);
     const dev = v - m;
     if (!(Math.abs(dev) > off) || !(Math.abs(b - a) < GLITCH.neighboursAgree * Math.abs(dev)) || (v - a) * (v - b) <= 0) return null;
-    if (loaded && !(Math.max(a, b) > 0.1 * sMax)) return null;
+    if (isStress && !(Math.max(a, b) > 0.1 * sMax)) return null;
+    // An unload–reload reversal caught on one sample is a V in stress AND in strain, the same way, by at least a
+    // quarter of the elastic amount (the strain by Δs/450 GPa, the stiffest metal; the stress by Δe·40 GPa, the
+    // softest): the specimen's own, not a glitch (the invented loop record's four reversals had read as glitches).
+    const other = offMean(isStress ? strain : stress, i);
+    if (other * dev > 0 && Math.abs(other) >= (isStress ? (0.25 * Math.abs(dev)) / 450000 : 0.25 * Math.abs(dev) * 40000)) return null;
     return m;
   };
   const scan = (column: 'strain' | 'stress', col: ArrayLike<number>, off: number, idx: readonly number[] | null | undefined) => {

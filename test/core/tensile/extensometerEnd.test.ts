@@ -205,6 +205,8 @@ describe('analyzeRecord on INVENTED records with single-sample acquisition glitc
     expect(findGlitches([0, 0.001, 0.002, 0.003, 0.004], [250, 300, 270, 271, 272], 300)).toEqual([]);
     expect(findGlitches([0, 0.1, 0.2, 0.3, 0.31], [400, 410, 405, 3, 1], 410)).toEqual([]);
     expect(findGlitches([0, 1e-5, 2e-5, 3e-5, 4e-5], [0, 2, 9, 3, 4], 400)).toEqual([]);
+    // An unload–reload reversal caught on one sample: a V in stress and in strain (by Δs/E), the specimen's own.
+    expect(findGlitches([0.05, 0.0495, 0.049, 0.0495, 0.05], [300, 200, 20, 200, 300], 300)).toEqual([]);
     // A strain reading dropped to zero for one sample.
     expect(findGlitches([0.1, 0.11, 0, 0.13, 0.14], [400, 401, 402, 403, 404], 404)).toEqual([{ index: 2, column: 'strain', value: 0, readAs: 0.12 }]);
   });
