@@ -151,7 +151,7 @@ describe('parseRecordText through the fast scanner gives what an independent par
     expect(r.warnings.join('\n')).toMatch(/lines 15–16 after the data are not rows of numbers \(first: got "Maximum", expected a number\): read as a footer and left out; the record ends at line 13/);
     // Extensometer taken off: the strain cells are empty to the end while the stress goes on.
     // The rows are kept with the strain's last value held (the force still counts for Rm; the analysis finds where
-    // the strain stopped, test/core/tensile/extensometerEnd.test.ts).
+    // the strain stopped, test/core/tensile/record-ends-and-glitches.test.ts).
     const off = parseRecordText(base + ',130\n,140\n,135\n', { file: 'x.csv', strainUnit: 'fraction' });
     expect(off.rows).toBe(15);
     expect(Array.from(off.strain.subarray(11))).toEqual([0.011, 0.011, 0.011, 0.011]);

@@ -294,6 +294,13 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // ln εp once, for the n-value and every law fit, and the range and first bad point the fits check (all taken
   // in flowColumns' pass: the same operations on the same values as a pass of lawDataLogged; speed follow-up K).
   const packed = nf > 0 ? lawDataRanged(fStrain, fStress, logStrain, flow.lo, flow.hi, flow.bad) : null;
+  // A flow-curve point with no positive stress (a run of zero or negative readings on the plastic part, which no
+  // specimen gives): say where it is in the record, not in the flow curve the user never sees.
+  if (packed && packed.bad >= 0) {
+    let i = proof ? Math.max(0, Math.floor(proof.index)) : 0;
+    while (i < iMax && stress[i]! > 0 && stress[i]! < Infinity) i++;
+    throw new InputError(`stress[${i}]`, stress[i]!, `a stress > 0 MPa on the plastic part of the record up to maximum force (sample ${i}${i > 0 ? `, after ${+stress[i - 1]!.toPrecision(5)} MPa` : ''}); a run of zero readings there is an acquisition fault: check the export`);
+  }
 
   // n-value (ISO 10275).
   let nFit = null;

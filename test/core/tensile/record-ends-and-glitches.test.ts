@@ -211,6 +211,14 @@ describe('analyzeRecord on INVENTED records with single-sample acquisition glitc
     expect(findGlitches([0.1, 0.11, 0, 0.13, 0.14], [400, 401, 402, 403, 404], 404)).toEqual([{ index: 2, column: 'strain', value: 0, readAs: 0.12 }]);
   });
 
+  it('two dropped readings in a row on the plastic part: an error naming the record\'s sample, not a flow-curve index', () => {
+    const rec = synthesizeLabRecord({ law: { law: 'voce', sigma0: 250, Q: 200, b: 12 }, elasticModulus: 205000, rng: xoshiro128ss(2), points: 5000, noise: 0.5 });
+    const stress = Float64Array.from(rec.stress);
+    const i = 1500; // past the proof point, before maximum force
+    stress[i] = 0; stress[i + 1] = 0;
+    expect(() => analyzeRecord({ strain: rec.strain, stress }, { fit: false })).toThrow(new RegExp(`^stress\\[${i}\\]: got 0, allowed a stress > 0 MPa on the plastic part of the record up to maximum force \\(sample ${i}, after [\\d.]+ MPa\\)`));
+  });
+
   it('1–3 spikes (×1.5–3), dropped stress or strain readings in the loaded record: the same Rp0.2, Rm, Ag and A as without them, and said', () => {
     const bad: string[] = [];
     const seeds = Array.from({ length: 30 }, (_, i) => 8 * i + 5);
