@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeRecord, extensometerEnd, findGlitches, synthesizeLabRecord, xoshiro128ss } from '../../../src/core/index.js';
+import { analyzeRecord, extensometerEnd, findGlitches, synthesizeLabRecord, xoshiro128ss, type TensileAnalysis, type TensileData } from '../../../src/core/index.js';
 import { parseRecordText } from '../../../src/records/parse.js';
 import { labCase } from './lab-records.helpers.js';
 
@@ -9,6 +9,16 @@ import { labCase } from './lab-records.helpers.js';
 // highest force over the original section (ISO 6892-1 §3.10.1) and needs no strain; Ag and A do. The records are
 // INVENTED (synthesizeLabRecord via the property test's cases), the truth their noise-free curve's ISO 6892-1
 // values; the removal is applied to the recorded strain as each machine behaviour writes it.
+
+/**
+ * analyzeRecord of `changed` and of `whole` (fit: false), both with E measured, or both with the true E where a
+ * record's elastic rise is too coarse to measure it (the analysis refuses it; a user gives --modulus).
+ */
+function analyzedPair(changed: TensileData, whole: TensileData | null, E: number): [TensileAnalysis, TensileAnalysis | null] {
+  try { return [analyzeRecord(changed, { fit: false }), whole && analyzeRecord(whole, { fit: false })]; } catch {
+    return [analyzeRecord(changed, { fit: false, elasticModulus: E }), whole && analyzeRecord(whole, { fit: false, elasticModulus: E })];
+  }
+}
 
 type Style = 'held' | 'zero' | 'blank' | 'switched';
 
@@ -86,8 +96,7 @@ describe('analyzeRecord on INVENTED records whose extensometer was taken off (he
       const style: Style = (['held', 'zero', 'blank', 'switched'] as const)[seed % 4]!;
       // Off at 70 % of the strain at maximum force (past the yield region on every case here).
       const cut = removeAt(rec.strain, rec.stress, 0.7 * t.uniformTotalElongationPct / 100, style);
-      let a;
-      try { a = analyzeRecord(cut, { fit: false }); } catch { a = analyzeRecord(cut, { fit: false, elasticModulus: t.elasticModulus }); }
+      const [a] = analyzedPair(cut, null, t.elasticModulus);
       n++;
       const why = `${c.what}, ${style} at sample ${cut.from}`;
       if (a.strainChannelEnd === null) { bad.push(`${why}: not found`); continue; }
@@ -116,10 +125,8 @@ describe('analyzeRecord on INVENTED records whose extensometer was taken off (he
       // Off halfway between maximum force and fracture.
       const at = (t.uniformTotalElongationPct + 0.5 * (t.totalElongationPct - t.uniformElongationPct)) / 100;
       const cut = removeAt(rec.strain, rec.stress, at, style);
-      let a, whole;
-      try { a = analyzeRecord(cut, { fit: false }); whole = analyzeRecord(rec, { fit: false }); } catch {
-        a = analyzeRecord(cut, { fit: false, elasticModulus: t.elasticModulus }); whole = analyzeRecord(rec, { fit: false, elasticModulus: t.elasticModulus });
-      }
+      const [a, w] = analyzedPair(cut, rec, t.elasticModulus);
+      const whole = w!;
       const why = `${c.what}, ${style} at sample ${cut.from}`;
       if (a.strainChannelEnd === null) { bad.push(`${why}: not found`); continue; }
       expect(a.lowerBounds, why).toEqual(['totalElongationPct']);
@@ -161,11 +168,8 @@ describe('analyzeRecord on INVENTED records of tests stopped and unloaded before
       const t = rec.truth;
       const at = (t.uniformTotalElongationPct + 0.5 * (t.totalElongationPct - t.uniformElongationPct)) / 100;
       const u = stopAndUnload(rec.strain, rec.stress, at, t.elasticModulus, c.spec.noise ?? 0, seed);
-      const opts = { fit: false } as const;
-      let a, whole;
-      try { a = analyzeRecord(u, opts); whole = analyzeRecord(rec, opts); } catch {
-        a = analyzeRecord(u, { ...opts, elasticModulus: t.elasticModulus }); whole = analyzeRecord(rec, { ...opts, elasticModulus: t.elasticModulus });
-      }
+      const [a, w] = analyzedPair(u, rec, t.elasticModulus);
+      const whole = w!;
       const why = `${c.what}, stopped at sample ${u.stop}`;
       if (a.cycles.length) bad.push(`${why}: ${a.cycles.length} cycle(s) reported`);
       if (!a.warnings.some((w) => w.code === 'unloadedBeforeFracture')) { bad.push(`${why}: no unloadedBeforeFracture warning (${a.warnings.map((w) => w.code).join(', ')})`); continue; }
@@ -186,8 +190,7 @@ describe('analyzeRecord on INVENTED records of tests stopped and unloaded before
       const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(seed) });
       const t = rec.truth;
       const u = stopAndUnload(rec.strain, rec.stress, 0.7 * t.uniformTotalElongationPct / 100, t.elasticModulus, c.spec.noise ?? 0, seed);
-      let a;
-      try { a = analyzeRecord(u, { fit: false }); } catch { a = analyzeRecord(u, { fit: false, elasticModulus: t.elasticModulus }); }
+      const [a] = analyzedPair(u, null, t.elasticModulus);
       const why = `${c.what}, stopped at sample ${u.stop}`;
       if ([...a.lowerBounds].sort().join() !== 'tensileStrength,totalElongationPct,uniformElongationPct,uniformTotalElongationPct') bad.push(`${why}: lower bounds ${a.lowerBounds.join(', ')}`);
       if (!(a.tensileStrength <= t.tensileStrength * 1.004)) bad.push(`${why}: Rm bound ${a.tensileStrength} above the truth ${t.tensileStrength}`);
@@ -242,11 +245,8 @@ describe('analyzeRecord on INVENTED records with single-sample acquisition glitc
         else if (kind === 1) stress[i] = 0;
         else strain[i] = 0;
       }
-      const opts = { fit: false } as const;
-      let a, clean;
-      try { a = analyzeRecord({ strain, stress }, opts); clean = analyzeRecord(rec, opts); } catch {
-        a = analyzeRecord({ strain, stress }, { ...opts, elasticModulus: t.elasticModulus }); clean = analyzeRecord(rec, { ...opts, elasticModulus: t.elasticModulus });
-      }
+      const [a, c0] = analyzedPair({ strain, stress }, rec, t.elasticModulus);
+      const clean = c0!;
       const why = `${c.what}, glitches at ${at.join(', ')}`;
       const g = a.warnings.find((w) => w.code === 'glitch');
       if (!g) { bad.push(`${why}: no glitch warning`); continue; }
