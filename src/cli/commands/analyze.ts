@@ -302,9 +302,9 @@ export const analyze = defineCommand({
     else {
       let text = records.map((r, i) => tableText(r, analyses[i]!)).join('\n');
       if (records.length > 1) {
-        const s = out.summary as Record<string, { mean: number; sd: number | null; n: number }>;
-        text += '\nover specimens (mean ± sd):\n';
-        for (const [k, v] of Object.entries(s)) text += `  ${k.padEnd(26)} ${v.mean.toPrecision(6)} ± ${v.sd === null ? '—' : v.sd.toPrecision(3)}  (n = ${v.n})\n`;
+        const s = out.summary as Record<string, { mean: number; sd: number | null; n: number; lowerBoundsLeftOut: number }>;
+        text += '\nover specimens (mean ± sd; lower bounds left out):\n';
+        for (const [k, v] of Object.entries(s)) text += `  ${k.padEnd(26)} ${v.mean.toPrecision(6)} ± ${v.sd === null ? '—' : v.sd.toPrecision(3)}  (n = ${v.n}${v.lowerBoundsLeftOut ? `; ${v.lowerBoundsLeftOut} lower bound${v.lowerBoundsLeftOut > 1 ? 's' : ''} left out` : ''})\n`;
       }
       text += '\n' + CAUTIONS.map((c) => `caution: ${c}`).join('\n') + '\n';
       io.stdout(text);

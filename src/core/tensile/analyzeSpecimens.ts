@@ -11,6 +11,8 @@ export interface PropertySummary {
   mean: number;
   sd: number | null;
   n: number;
+  /** Specimens whose value is only a lower bound (TensileAnalysis.lowerBounds), left out of mean, sd and n. */
+  lowerBoundsLeftOut: number;
 }
 
 /** The scalar properties summarised over specimens. */
@@ -32,7 +34,8 @@ export interface SpecimenSet {
 
 /**
  * Several specimens of one material: {@link analyzeRecord} for each, mean and sample standard
- * deviation (simple-statistics `mean`, `sampleStandardDeviation`) of every property, the mean, sd and
+ * deviation (simple-statistics `mean`, `sampleStandardDeviation`) of every property over the specimens that
+ * measured it (a lower bound — a test stopped early, a strain channel ended early — is left out and counted), the mean, sd and
  * Pearson correlations (`sampleCorrelation`) of the chosen law's parameters across specimens, and a
  * joint fit of every law to all flow curves pooled. This is the input scatter analysis uses.
  * Units as in {@link analyzeRecord}. Valid: at least one record; sd needs two, correlations three.
@@ -52,8 +55,13 @@ export function analyzeSpecimens(records: readonly (TensileData & { name: string
   });
   const summary: Partial<Record<SpecimenProperty, PropertySummary>> = {};
   for (const p of SPECIMEN_PROPERTIES) {
-    const v = specimens.map((s) => s.analysis[p]).filter((x): x is number => typeof x === 'number' && Number.isFinite(x));
-    if (v.length) summary[p] = { mean: mean(v), sd: v.length >= 2 ? sampleStandardDeviation(v) : null, n: v.length };
+    // A lower bound (a test stopped before maximum force or fracture, a strain channel that ended early) is no
+    // measurement: it is left out of the mean and sd (it would pull both down), and counted.
+    const bound = (a: TensileAnalysis) => (a.lowerBounds as readonly string[]).includes(p);
+    const v = specimens.filter((s) => !bound(s.analysis)).map((s) => s.analysis[p]).filter((x): x is number => typeof x === 'number' && Number.isFinite(x));
+    const lowerBoundsLeftOut = specimens.filter((s) => bound(s.analysis)).length;
+    // (Every specimen a lower bound: no entry, as for a property no specimen has.)
+    if (v.length) summary[p] = { mean: mean(v), sd: v.length >= 2 ? sampleStandardDeviation(v) : null, n: v.length, lowerBoundsLeftOut };
   }
   const names = LAW_PARAMETERS[law].map((p) => p.name);
   const rows = specimens.map((s) => s.analysis.fits?.fits.find((f) => f.law === law)).filter((f) => f && f.converged).map((f) => names.map((n) => f!.params[n]!));

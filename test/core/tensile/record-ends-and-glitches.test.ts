@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeRecord, extensometerEnd, findGlitches, synthesizeLabRecord, xoshiro128ss, type TensileAnalysis, type TensileData } from '../../../src/core/index.js';
+import { analyzeRecord, analyzeSpecimens, extensometerEnd, findGlitches, synthesizeLabRecord, xoshiro128ss, type TensileAnalysis, type TensileData } from '../../../src/core/index.js';
 import { parseRecordText } from '../../../src/records/parse.js';
 import { labCase } from './lab-records.helpers.js';
 
@@ -260,4 +260,29 @@ describe('analyzeRecord on INVENTED records with single-sample acquisition glitc
     }
     expect(bad, bad.join('\n')).toEqual([]);
   }, 120_000);
+});
+
+describe('analyzeSpecimens leaves lower bounds out of the mean and sd, and counts them', () => {
+  it('three INVENTED specimens, one with its extensometer taken off before fracture: A over the two that measured it', () => {
+    const recs = [4, 8, 12].map((seed) => {
+      const c = labCase(seed);
+      const rec = synthesizeLabRecord({ ...c.spec, rng: xoshiro128ss(seed) });
+      return { name: `s${seed}`, rec, c };
+    });
+    const t0 = recs[0]!.rec.truth;
+    // The first one's extensometer off halfway between maximum force and fracture (its last reading held).
+    const at = (t0.uniformTotalElongationPct + 0.5 * (t0.totalElongationPct - t0.uniformElongationPct)) / 100;
+    const off = removeAt(recs[0]!.rec.strain, recs[0]!.rec.stress, at, 'held');
+    const data = [{ name: 's4', ...off }, ...recs.slice(1).map((r) => ({ name: r.name, strain: r.rec.strain, stress: r.rec.stress }))];
+    const set = analyzeSpecimens(data, { fit: false });
+    expect(set.specimens[0]!.analysis.lowerBounds).toEqual(['totalElongationPct']);
+    const A = set.summary.totalElongationPct!;
+    expect(A.n).toBe(2);
+    expect(A.lowerBoundsLeftOut).toBe(1);
+    const measured = set.specimens.slice(1).map((s) => s.analysis.totalElongationPct);
+    expect(A.mean).toBeCloseTo((measured[0]! + measured[1]!) / 2, 12);
+    // Rm was measured on all three (the force went on past the extensometer's end).
+    expect(set.summary.tensileStrength!.n).toBe(3);
+    expect(set.summary.tensileStrength!.lowerBoundsLeftOut).toBe(0);
+  }, 60_000);
 });
