@@ -72,6 +72,11 @@ export const ANALYZE_DEFAULTS = {
  * local top model, or by the six hardening laws fitted to the flow curve where their maximum of force lies
  * inside the top model's 95 % interval ({@link lawUniformElongation}; the six are fitted for this even with
  * `fit: false` or fewer `laws`, so Ag does not depend on those options).
+ * First, single samples an acquisition glitch put far off their agreeing neighbours are read as the neighbours'
+ * mean ({@link findGlitches}, warning `glitch`), and a strain channel that stops following the specimen before
+ * fracture ({@link extensometerEnd}: held, reset or jump) ends the strain part: strain-based properties are read
+ * before it, Rm from the force after it too, and what is only a lower bound is listed in `lowerBounds`. A record
+ * that ends with an elastic unloading is a test stopped before fracture (`unloadedBeforeFracture`).
  * Units: strain fraction, stress MPa in; MPa and % out. Valid: a record with an elastic rise and a
  * maximum of force, finite numbers.
  * @throws InputError naming the field and index for non-finite values or too few points.
@@ -105,7 +110,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   // property that needs strain is read before that point; the force after it still counts for Rm.
   const end = extensometerEnd(strain, stress, sMax, noise, falls.length < MAX_FALLS ? falls : undefined);
   if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null, early);
-  if (end.index < 10) throw new InputError(`strain[${end.index}]`, strain[end.index]!, `a strain channel that follows the specimen for at least 10 samples; it ${end.kind === 'held' ? 'holds one value' : 'falls back by more than any elastic recovery'} from sample ${end.index} while the force goes on (extensometer taken off?)`);
+  if (end.index < 10) throw new InputError(`strain[${end.index}]`, strain[end.index]!, `a strain channel that follows the specimen for at least 10 samples; it ${end.kind === 'held' ? 'holds one value' : end.kind === 'reset' ? 'falls back by more than any elastic recovery' : 'jumps by far more than its steps'} from sample ${end.index} while the force goes on (extensometer taken off?)`);
   const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, end.index) : Array.prototype.slice.call(a, 0, end.index) as number[]);
   const hs = head(strain), hy = head(stress);
   return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end }, early);
