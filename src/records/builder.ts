@@ -241,14 +241,16 @@ export class RecordBuilder {
     if (area === undefined && w !== undefined && t !== undefined) area = w * t;
     // Keys as exports write them (ISO 6892-1 symbols S0, d0, b0, a0, L0, Le, with a capital O for the zero as some
     // exports type it; ASTM E8's "gage"; common practice otherwise).
-    if (area === undefined) area = num(find(/^(original |specimen |initial )?(cross[ -]?section(al)?( area)?|area)$|^s[0o]$/), AREA_UNITS);
-    if (area === undefined) { const dd = num(find(/diameter|^d[0o]$/), LENGTH_UNITS); if (dd !== undefined) area = (Math.PI / 4) * dd * dd; }
+    // German keys as German test reports write them (Querschnitt, Durchmesser, Breite, Dicke, Messlänge; plain German
+    // words, common practice), with or without the Anfangs- (initial) prefix.
+    if (area === undefined) area = num(find(/^(original |specimen |initial )?(cross[ -]?section(al)?( area)?|area)$|^s[0o]$|^(anfangs)?querschnitt(sfläche)?$/), AREA_UNITS);
+    if (area === undefined) { const dd = num(find(/diameter|^d[0o]$|^(anfangs)?durchmesser$/), LENGTH_UNITS); if (dd !== undefined) area = (Math.PI / 4) * dd * dd; }
     if (area === undefined) {
-      const ww = num(find(/^(original |specimen |initial )?width$|^b[0o]$/), LENGTH_UNITS), tt = num(find(/^(original |specimen |initial )?thickness$|^a[0o]$/), LENGTH_UNITS);
+      const ww = num(find(/^(original |specimen |initial )?width$|^b[0o]$|^(anfangs|proben)?breite$/), LENGTH_UNITS), tt = num(find(/^(original |specimen |initial )?thickness$|^a[0o]$|^(anfangs|proben)?dicke$/), LENGTH_UNITS);
       if (ww !== undefined && tt !== undefined) area = ww * tt;
     }
     let gauge = pos('gaugeLength', o.gaugeLength);
-    if (gauge === undefined) gauge = num(find(/ga(u)?ge length|^(original |initial )?ga(u)?ge$|^l[0o]$|^le$|extensometer (gauge |gage )?length/), LENGTH_UNITS);
+    if (gauge === undefined) gauge = num(find(/ga(u)?ge length|^(original |initial )?ga(u)?ge$|^l[0o]$|^le$|extensometer (gauge |gage )?length|^(anfangs)?messlänge$/), LENGTH_UNITS);
     return { area, gauge };
   }
 

@@ -70,7 +70,12 @@ const FOREIGN_WORDS: Readonly<Record<string, string>> = {
   'tensión': 'stress', esfuerzo: 'stress', 'deformación': 'strain', fuerza: 'force', carga: 'load', alargamiento: 'extension', tiempo: 'time', verdadera: 'true',
   tensione: 'stress', sollecitazione: 'stress', deformazione: 'strain', forza: 'force', carico: 'load', allungamento: 'extension', tempo: 'time', vera: 'true',
 };
-const toEnglish = (b: string) => b.split(' ').map((w) => (Object.prototype.hasOwnProperty.call(FOREIGN_WORDS, w) ? FOREIGN_WORDS[w]! : w)).join(' ');
+/**
+ * German compounds put the head noun last (Prüfkraft, Nenndehnung, Zugspannung: a kind of force, strain, stress;
+ * plain German grammar): a word ending in one of these reads as it, a transverse strain (Querdehnung) as such.
+ */
+const GERMAN_HEADS: readonly [RegExp, string][] = [[/^quer\S*dehnung$/, 'transverse strain'], [/^\S+kraft$/, 'force'], [/^\S+spannung$/, 'stress'], [/^\S+dehnung$/, 'strain'], [/^\S+(verlängerung|längenänderung)$/, 'extension']];
+const toEnglish = (b: string) => b.split(' ').map((w) => (Object.prototype.hasOwnProperty.call(FOREIGN_WORDS, w) ? FOREIGN_WORDS[w]! : GERMAN_HEADS.find(([re]) => re.test(w))?.[1] ?? w)).join(' ');
 
 /**
  * True when a column is the machine's own travel (crosshead, stroke, actuator or piston position), not an

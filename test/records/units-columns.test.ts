@@ -106,6 +106,21 @@ describe('parseRecordText on US-style and microstrain exports (INVENTED rows)', 
     expectRelClose(r.strain[10]!, 1e-3, 1e-9, 'strain');
     expectRelClose(r.stress[10]!, 200, 1e-9, 'stress');
   });
+  it('German compound headings (Prüfkraft, Nenndehnung, Querdehnung) and German geometry lines (Anfangsquerschnitt, Durchmesser, Breite, Dicke, Messlänge): plain German, the head noun last', () => {
+    const body = rows((e, s) => `${(e * 1e3).toFixed(1).replace('.', ',')};${((s * 20) / 1000).toFixed(6).replace('.', ',')};${(e * 100).toFixed(4).replace('.', ',')};${(-e * 30).toFixed(4).replace('.', ',')}`);
+    const r = parseRecordText('Anfangsquerschnitt;20;mm²\n\nZeit [s];Prüfkraft [kN];Nenndehnung [%];Querdehnung [%]\n' + body, { file: 'de-fs.csv' });
+    expect(r.basis).toBe('force-strain');
+    expect(r.columns.force!.name).toBe('Prüfkraft [kN]');
+    expect(r.columns.strain!.name).toBe('Nenndehnung [%]');
+    expectRelClose(r.stress[10]!, 200, 1e-6, 'stress = force / 20 mm²');
+    for (const [meta, A] of [['Durchmesser: 5 mm', (Math.PI / 4) * 25], ['Breite: 10 mm\nDicke: 2 mm', 20]] as const) {
+      const q = parseRecordText(`${meta}\n\nZeit [s];Prüfkraft [kN];Nenndehnung [%];Querdehnung [%]\n` + body, { file: 'de-geo.csv' });
+      expectRelClose(q.geometry!.area, A, 1e-12, meta);
+    }
+    const fe = parseRecordText('Anfangsquerschnitt: 20 mm²\nMesslänge: 50 mm\n\nPrüfkraft [kN];Längenänderung [mm]\n' + rows((e, s) => `${((s * 20) / 1000).toFixed(6).replace('.', ',')};${(e * 50).toFixed(5).replace('.', ',')}`), { file: 'de-fe.csv' });
+    expect(fe.basis).toBe('force-extension');
+    expect(fe.geometry!.gaugeLength).toBe(50);
+  });
   it('a German export (decimal comma, semicolons, a preamble, Dehnung/Spannung) reads as strain and stress', () => {
     const text = 'Prüfbericht;Probe 7\nDatum;02.12.2026\n\nZeit [s];Dehnung [%];Spannung [MPa]\n' + rows((e, s) => `${(e * 1e3).toFixed(1).replace('.', ',')};${(e * 100).toFixed(4).replace('.', ',')};${s.toFixed(1).replace('.', ',')}`);
     const r = parseRecordText(text, { file: 'de.csv' });
