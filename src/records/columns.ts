@@ -66,9 +66,9 @@ export function describeColumn(name: string, index: number): ColumnInfo {
 const FOREIGN_WORDS: Readonly<Record<string, string>> = {
   spannung: 'stress', zugspannung: 'stress', dehnung: 'strain', kraft: 'force', zugkraft: 'force', 'verlängerung': 'extension',
   'längenänderung': 'extension', weg: 'displacement', traverse: 'crosshead', zeit: 'time', wahre: 'true', technische: 'engineering',
-  contrainte: 'stress', 'déformation': 'strain', allongement: 'extension', effort: 'force', charge: 'load', 'déplacement': 'displacement', temps: 'time', vraie: 'true',
-  'tensión': 'stress', esfuerzo: 'stress', 'deformación': 'strain', fuerza: 'force', carga: 'load', alargamiento: 'extension', tiempo: 'time', verdadera: 'true',
-  tensione: 'stress', sollecitazione: 'stress', deformazione: 'strain', forza: 'force', carico: 'load', allungamento: 'extension', tempo: 'time', vera: 'true',
+  contrainte: 'stress', 'déformation': 'strain', allongement: 'elongation', effort: 'force', charge: 'load', 'déplacement': 'displacement', temps: 'time', vraie: 'true',
+  'tensión': 'stress', esfuerzo: 'stress', 'deformación': 'strain', fuerza: 'force', carga: 'load', alargamiento: 'elongation', tiempo: 'time', verdadera: 'true',
+  tensione: 'stress', sollecitazione: 'stress', deformazione: 'strain', forza: 'force', carico: 'load', allungamento: 'elongation', tempo: 'time', vera: 'true',
 };
 /**
  * German compounds put the head noun last (Prüfkraft, Nenndehnung, Zugspannung: a kind of force, strain, stress;

@@ -121,6 +121,15 @@ describe('parseRecordText on US-style and microstrain exports (INVENTED rows)', 
     expect(fe.basis).toBe('force-extension');
     expect(fe.geometry!.gaugeLength).toBe(50);
   });
+  it('French, Spanish and Italian "elongation" in % is the strain (Allongement [%], Alargamiento [%], Allungamento (%)); in mm the extension', () => {
+    for (const [head, unit] of [['Allongement', '[%]'], ['Alargamiento', '[%]'], ['Allungamento', '(%)']] as const) {
+      const r = parseRecordText(`${head} ${unit};Contrainte [MPa]\n` + rows((e, s) => `${(e * 100).toFixed(4).replace('.', ',')};${s.toFixed(1).replace('.', ',')}`), { file: 'fr.csv' });
+      expect(r.columns.strain!.name, head).toBe(`${head} ${unit}`);
+      expectRelClose(r.strain[10]!, 1e-3, 1e-9, `${head}: strain`);
+    }
+    const fe = parseRecordText('Section: 20 mm²\nLongueur: 50 mm\n\nEffort [kN];Allongement [mm]\n' + rows((e, s) => `${((s * 20) / 1000).toFixed(6).replace('.', ',')};${(e * 50).toFixed(5).replace('.', ',')}`), { file: 'fr-fe.csv', area: 20, gaugeLength: 50 });
+    expect(fe.basis).toBe('force-extension');
+  });
   it('a German export (decimal comma, semicolons, a preamble, Dehnung/Spannung) reads as strain and stress', () => {
     const text = 'Prüfbericht;Probe 7\nDatum;02.12.2026\n\nZeit [s];Dehnung [%];Spannung [MPa]\n' + rows((e, s) => `${(e * 1e3).toFixed(1).replace('.', ',')};${(e * 100).toFixed(4).replace('.', ',')};${s.toFixed(1).replace('.', ',')}`);
     const r = parseRecordText(text, { file: 'de.csv' });
