@@ -1,6 +1,6 @@
 import { describeColumn, isMachineTravel, roleScore, ROLES, type ColumnInfo, type Role } from './columns.js';
 import { recordError, show } from './errors.js';
-import { ungrouped, type Layout } from './layout.js';
+import { isNumberToken, ungrouped, type Layout } from './layout.js';
 import { allowedUnits, AREA_UNITS, LENGTH_UNITS, normUnit, unitFactor } from './units.js';
 
 /** Options of the record readers. Lengths in mm, areas in mm² unless a unit option says otherwise. */
@@ -69,6 +69,8 @@ interface Plan {
 /** Collects rows into growable typed arrays; validates every used cell with its line and column. */
 /** Fewest rows of a tensile record. */
 const MIN_ROWS = 10;
+/** Most rows of numbers a results table in the footer may hold under its line of column names. */
+const RESULTS_TABLE_ROWS = 20;
 /** Most non-number rows read as a footer at the end of a record (more is not a footer: the file is not one record); rows with only the strain cell empty (extensometer taken off) are data, not footer. */
 const MAX_FOOTER_ROWS = 1000;
 
@@ -97,9 +99,11 @@ export class RecordBuilder {
   private maxS = 0;
   /**
    * The first row after the data that is not two numbers, kept while only such rows follow: a footer
-   * ("Maximum;358.2", "End of test"). A row of numbers after it makes it the error it is.
+   * ("Maximum;358.2", "End of test"), or a results table (a line of column names and up to RESULTS_TABLE_ROWS rows
+   * of numbers under it; `table` counts the rows still allowed). Any other row of numbers after it makes it the
+   * error it is.
    */
-  private footer: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
+  private footer: { error: unknown; line: number; lastLine: number; rows: number; table: number; results: boolean } | null = null;
   /** Rows at the end whose strain cell is empty and stress a number (extensometer taken off), stored with the last strain held. */
   private held: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
   /** How a strain column without a unit was read (by its largest value), or null when the unit was known. */
@@ -299,7 +303,20 @@ export class RecordBuilder {
       }
       // Before a record of at least MIN_ROWS rows the row is an error; after it, a footer candidate.
       if (this.n < MIN_ROWS || (this.footer && this.footer.rows === MAX_FOOTER_ROWS)) throw this.footer?.error ?? e;
-      this.footer ??= { error: e, line, lastLine: line, rows: 0 };
+      this.footer ??= { error: e, line, lastLine: line, rows: 0, table: 0, results: false };
+      this.footer.rows++;
+      this.footer.lastLine = line;
+      // A line of column names in the footer opens a results table ("Rp0.2 [MPa],Rm [MPa],A [%]"): a few rows of
+      // numbers may follow it (below).
+      const cells = f.map((c) => c.trim()).filter((c) => c !== '');
+      if (cells.length >= 2 && cells.every((c) => !isNumberToken(c, this.layout.decimalComma))) { this.footer.table = RESULTS_TABLE_ROWS; this.footer.results = true; }
+      return;
+    }
+    // Numbers after a footer: a few rows under a results table's column names are part of the footer (a summary the
+    // machine appends, common practice); anything else — numbers again after a bad line, the rest of the curve —
+    // makes the footer's first line the error it is, so a bad cell in the middle of the data is never skipped.
+    if (this.footer && this.footer.table > 0) {
+      this.footer.table--;
       this.footer.rows++;
       this.footer.lastLine = line;
       return;
@@ -408,7 +425,9 @@ export class RecordBuilder {
     if (ft) {
       const why = (ft.error as { problems?: { message: string }[] }).problems?.[0]?.message ?? String(ft.error);
       const span = ft.rows === 1 ? `line ${ft.line}` : `lines ${ft.line}–${ft.lastLine}`;
-      this.warnings.push(`${span} after the data ${ft.rows === 1 ? 'is not a row' : 'are not rows'} of numbers (first: ${why}): read as a footer and left out; the record ends at line ${this.lastLine}`);
+      this.warnings.push(ft.results
+        ? `${span} after the data hold a results table (first: ${why}): read as a footer and left out; the record ends at line ${this.lastLine}`
+        : `${span} after the data ${ft.rows === 1 ? 'is not a row' : 'are not rows'} of numbers (first: ${why}): read as a footer and left out; the record ends at line ${this.lastLine}`);
     }
     const hd = this.held;
     if (hd) {

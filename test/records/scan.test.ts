@@ -163,6 +163,13 @@ describe('parseRecordText through the fast scanner gives what an independent par
     const offEnd = parseRecordText(base + ',130\n,140\nEnd of test,\n', { file: 'z.csv', strainUnit: 'fraction' });
     expect(offEnd.rows).toBe(14);
     expect(offEnd.warnings.join('\n')).toMatch(/line 16 after the data is not a row of numbers/);
+    // A results table the machine appends (a line of column names, a few rows of numbers) is footer too.
+    const res = parseRecordText(base + '\nResults\nRp0.2 [MPa],Rm [MPa]\n108.5,110.0\n', { file: 'r.csv', strainUnit: 'fraction' });
+    expect(res.rows).toBe(12);
+    expect(res.warnings.join('\n')).toMatch(/lines 15–17 after the data hold a results table \(first: got "Results", expected a number\): read as a footer and left out; the record ends at line 13/);
+    // …but not the rest of a curve after a line of words: more than a results table's rows is the error it was.
+    const rest = Array.from({ length: 25 }, (_, i) => `${0.02 + i * 0.001},${120 + i}`).join('\n');
+    expect(() => parseRecordText(base + 'note,here\n' + rest + '\n', { file: 'n.csv', strainUnit: 'fraction' })).toThrow(/^n\.csv:14:1: strain: got "note", expected a number$/);
     // Numbers after a non-number row: the first bad row is the error, located.
     expect(() => parseRecordText(base + 'Maximum,110\n0.5,120\n', { file: 'g.csv', strainUnit: 'fraction' })).toThrow(/^g\.csv:14:1: strain: got "Maximum", expected a number$/);
     // A bad row among the first ten is an error, never a footer.
