@@ -295,7 +295,13 @@ else drawMapping();
 expose('records', nb);
 
 /** Where Ag was read: the fitted laws' maximum of force inside the top model's interval, or the top model (lawTop.ts). */
-function agBasis(a: { forceMaximum: { uniformElongationInterval95: [number, number]; lawUniformElongation: { pct: number | null } | null } }): string {
+function agBasis(a: { forceMaximum: { uniformElongationInterval95: [number, number]; lawUniformElongation: { pct: number | null } | null }; lowerBounds: readonly string[]; strainChannelEnd: unknown }): string {
+  // A lower bound has no interval of its own: say where it comes from instead.
+  if (a.lowerBounds.includes('uniformElongationPct')) {
+    return a.strainChannelEnd && !a.lowerBounds.includes('tensileStrength')
+      ? 'Ag: not in the record — the strain channel ends before maximum force; the value shown is the plastic strain where it ended, a lower bound.'
+      : 'Ag: not in the record — it ends before maximum force; the value shown is a lower bound.';
+  }
   const [lo, hi] = a.forceMaximum.uniformElongationInterval95;
   const range = `${fixed(lo, 2)} to ${fixed(hi, 2)} %`;
   const laws = a.forceMaximum.lawUniformElongation;

@@ -264,6 +264,7 @@ describe('record bench', () => {
     expect(await page.locator('[data-q="totalElongation"]').innerText()).toMatch(/^≥ \d/);
     expect(await page.locator('#properties').innerText()).toContain('Rm (from the force after the strain ended)');
     expect(await page.locator('#properties').innerText()).toContain('A (strain channel ends before fracture)');
+    expect(await page.locator('#ag-basis').innerText()).toMatch(/^Ag: not in the record — the strain channel ends before maximum force/);
     expect(await page.locator('#cell-properties').innerText()).toMatch(/the strain holds one value from sample \d+/);
     // INVENTED: a clear 8 % yield drop with a 2 % Lüders plateau and little noise.
     const { synthesizeLabRecord } = await import('../../src/core/index.js');
