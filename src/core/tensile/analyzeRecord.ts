@@ -86,14 +86,14 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const N = data.strain.length;
   if (data.stress.length !== N) throw new InputError('stress', data.stress.length, `as many values as strain (${N})`);
   if (N < 10) throw new InputError('points', N, 'at least 10 points in a tensile record');
-  const falls: number[] = [], jumps: number[] = [];
-  let iRaw = finiteArgMax(data.strain, data.stress, falls, jumps);
+  const strainMoves: number[] = [], stressMoves: number[] = [];
+  let iRaw = finiteArgMax(data.strain, data.stress, strainMoves, stressMoves);
   let sMax = data.stress[iRaw]!;
   if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
   // Single samples an acquisition glitch put far off the curve (a spike, a dropped reading) are read as the mean of
   // their neighbours, on a copy, and said: one spike read as the maximum had put Rm 13 % high and "fracture" there.
   const early: TensileWarning[] = [];
-  const glitches = findGlitches(data.strain, data.stress, sMax, { strain: falls.length < MAX_FALLS ? falls : null, stress: jumps.length < MAX_FALLS ? jumps : null });
+  const glitches = findGlitches(data.strain, data.stress, sMax, { strain: strainMoves.length < MAX_CANDIDATES ? strainMoves : null, stress: stressMoves.length < MAX_CANDIDATES ? stressMoves : null });
   let strain = data.strain, stress = data.stress;
   if (glitches.length) {
     const e = Float64Array.from(strain), s = Float64Array.from(stress);
@@ -101,14 +101,14 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     strain = e; stress = s;
     const list = glitches.slice(0, 5).map((g) => `sample ${g.index} (${g.column} ${+g.value.toPrecision(5)}, read as ${+g.readAs.toPrecision(5)})`).join(', ');
     early.push({ code: 'glitch', message: `${glitches.length} single sample${glitches.length > 1 ? 's' : ''} far off ${glitches.length > 1 ? 'their' : 'its'} neighbours, which agree with each other (an acquisition spike or dropped reading; the specimen cannot do that and return the next sample): read as the mean of the neighbours — ${list}${glitches.length > 5 ? ', …' : ''}. Check the export if there are many` });
-    falls.length = 0;
-    iRaw = finiteArgMax(strain, stress, falls);
+    strainMoves.length = 0;
+    iRaw = finiteArgMax(strain, stress, strainMoves);
     sMax = stress[iRaw]!;
   }
   const noise = recordNoiseWide(stress);
   // A strain channel that stops following the specimen (extensometer taken off, reset, out of range): every
   // property that needs strain is read before that point; the force after it still counts for Rm.
-  const end = extensometerEnd(strain, stress, sMax, noise, falls.length < MAX_FALLS ? falls : undefined);
+  const end = extensometerEnd(strain, stress, sMax, noise, strainMoves.length < MAX_CANDIDATES ? strainMoves : undefined);
   if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null, early);
   if (end.index < 10) throw new InputError(`strain[${end.index}]`, strain[end.index]!, `a strain channel that follows the specimen for at least 10 samples; it ${end.kind === 'held' ? 'holds one value' : end.kind === 'reset' ? 'falls back by more than any elastic recovery' : 'jumps by far more than its steps'} from sample ${end.index} while the force goes on (extensometer taken off?)`);
   const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, end.index) : Array.prototype.slice.call(a, 0, end.index) as number[]);
@@ -394,9 +394,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     fracture: force ? force.fracture : {
       index: fi,
       detected: detected || necked,
-      method: detected ? `first fall of stress by more than ${ANALYZE_DEFAULTS.fractureDrop * 100} % between two samples after Rm`
-        : necked ? 'last point of a record that ends after necking (force below 90 % of Fm): the machine stopped at fracture'
-          : finalUnload ? 'end of the record after an elastic unloading (the test was stopped before fracture)' : 'end of the record (no fracture seen)',
+      method: finalUnload ? 'end of the record after an elastic unloading (the test was stopped before fracture)' : fractureMethod(detected, necked),
     },
     lowerBounds,
     strainChannelEnd: tail ? { ...tail.end } : null,
@@ -434,32 +432,38 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
 // the whole function (measured: the finite check and the search for the highest stress took 16 and
 // 11 ms of a 1,000,000-row analysis inside analyzeRecord, bench/RESULTS.md issue 12 E).
 
-/** Most strain falls finiteArgMax collects for extensometerEnd; with more, extensometerEnd makes its own pass. */
-const MAX_FALLS = 64;
+/** Most candidate moves finiteArgMax collects per column; with more, the search they serve makes its own pass. */
+const MAX_CANDIDATES = 64;
+/**
+ * Candidate limits, below every limit they serve so that the candidates hold every hit: a strain move of 0.8 of the
+ * smaller of the reset margin and a strain glitch's offset (the move into a glitch is at least 7/8 of its offset,
+ * the neighbours agreeing within a quarter of it), a stress move of 0.8 of a stress glitch's share of the top.
+ */
+const STRAIN_MOVE = 0.8 * Math.min(EXTENSOMETER_END.resetMargin, GLITCH.strainOff);
+const STRESS_MOVE = 0.8 * GLITCH.stressOff;
 
 /**
  * Index of the first highest stress; throws naming the first non-finite value (strain before stress at each
- * index). With `falls`, also collects (up to MAX_FALLS) the indices i where the strain falls by more than
- * extensometerEnd's reset margin, or rises by more than its jump size, from sample i − 1 (rare: a reset, a jump,
- * a noisy crosshead channel, or a very coarse record).
+ * index). Also collects (up to MAX_CANDIDATES each) the indices i where the strain moved by more than STRAIN_MOVE
+ * from sample i − 1 (`strainMoves`, for extensometerEnd's resets and jumps and findGlitches' strain glitches) and
+ * where the stress moved by more than STRESS_MOVE of the highest stress so far (`stressMoves`, for its stress
+ * glitches); both are rare on a fine record.
  */
-function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>, falls?: number[], leaps?: number[]): number {
+function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>, strainMoves?: number[], stressMoves?: number[]): number {
   const N = strain.length;
   // top starts as 0, not −Infinity: i = 0 sets it anyway, and a non-small-integer start made V8 box every new top.
   let iRaw = 0, top = 0, prev = N > 0 ? strain[0]! : 0, sPrev = N > 0 ? stress[0]! : 0;
-  const margin = EXTENSOMETER_END.resetMargin, jump = EXTENSOMETER_END.jumpMin, leap = GLITCH.stressOff;
   for (let i = 0; i < N; i++) {
     const e = strain[i]!, s = stress[i]!;
     // The throw in a function of its own: inline, its message kept every value boxed for it (measured).
     if (!(e - e === 0 && s - s === 0)) notFinite(strain, stress, i);
     if (i === 0 || s > top) { top = s; iRaw = i; }
-    if ((prev - e > margin || e - prev > jump) && falls && falls.length < MAX_FALLS) falls.push(i);
-    // A move of stress by more than a tenth of the highest so far: a glitch candidate (findGlitches).
-    if (Math.abs(s - sPrev) > leap * top && leaps) {
-      // Full: keep only the moves still larger than a tenth of the highest stress so far (the rest, from the noisy
-      // start of loading, cannot be glitches of a loaded specimen: findGlitches wants a tenth of the final highest).
-      if (leaps.length === MAX_FALLS) compactLeaps(leaps, stress, leap * top);
-      if (leaps.length < MAX_FALLS) leaps.push(i);
+    if (Math.abs(e - prev) > STRAIN_MOVE && strainMoves && strainMoves.length < MAX_CANDIDATES) strainMoves.push(i);
+    if (Math.abs(s - sPrev) > STRESS_MOVE * top && stressMoves) {
+      // Full: keep only the moves still above the limit for the highest stress so far (the rest, from the noisy
+      // start of loading, cannot be glitches of a loaded specimen: findGlitches measures against the final highest).
+      if (stressMoves.length === MAX_CANDIDATES) compactMoves(stressMoves, stress, STRESS_MOVE * top);
+      if (stressMoves.length < MAX_CANDIDATES) stressMoves.push(i);
     }
     prev = e; sPrev = s;
   }
@@ -486,17 +490,23 @@ function elasticUnloading(strain: ArrayLike<number>, stress: ArrayLike<number>, 
   return slope >= 0.5 * E && slope <= 2 * E;
 }
 
+/** How the fracture was placed, in words: a fall found by firstFall, a record that ends after necking, or neither. */
+function fractureMethod(detected: boolean, necked: boolean): string {
+  return detected ? `first fall of stress by more than ${ANALYZE_DEFAULTS.fractureDrop * 100} % between two samples after Rm`
+    : necked ? 'last point of a record that ends after necking (force below 90 % of Fm): the machine stopped at fracture' : 'end of the record (no fracture seen)';
+}
+
 /** True when no stress after index `from` reaches `level` (an unloading that is never reloaded). */
 function neverReloaded(stress: ArrayLike<number>, from: number, level: number): boolean {
   for (let i = from + 1; i < stress.length; i++) if (stress[i]! >= level) return false;
   return true;
 }
 
-/** Keeps the indices i of `leaps` where the stress moved by more than `min` from sample i − 1 (in place). */
-function compactLeaps(leaps: number[], stress: ArrayLike<number>, min: number): void {
+/** Keeps the indices i of `moves` where the stress moved by more than `min` from sample i − 1 (in place). */
+function compactMoves(moves: number[], stress: ArrayLike<number>, min: number): void {
   let k = 0;
-  for (const i of leaps) if (Math.abs(stress[i]! - stress[i - 1]!) > min) leaps[k++] = i;
-  leaps.length = k;
+  for (const i of moves) if (Math.abs(stress[i]! - stress[i - 1]!) > min) moves[k++] = i;
+  moves.length = k;
 }
 
 /** Throws the InputError of finiteArgMax for index i (strain before stress). */
@@ -562,8 +572,7 @@ function forceAfterEnd(tail: ForceTail, from: number, noise: number): { top: Ret
     fracture: {
       index: fi,
       detected: fall >= 0 || necked,
-      method: (fall >= 0 ? `first fall of stress by more than ${ANALYZE_DEFAULTS.fractureDrop * 100} % between two samples after Rm` : necked ? 'last point of a record that ends after necking (force below 90 % of Fm)' : 'end of the record (no fracture seen)')
-        + ' in the force, which goes on past the strain channel\'s end (the index is the whole record\'s)',
+      method: `${fractureMethod(fall >= 0, necked)}; read in the force, which goes on past the strain channel's end (the index is the whole record's)`,
     },
   };
 }

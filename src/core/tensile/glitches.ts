@@ -26,8 +26,9 @@ export const GLITCH = {
  * same way at i by at least a quarter of the elastic amount (an unload–reload reversal caught on one sample). A
  * specimen cannot do that in one sample and return the next: a yield drop or a fracture stays down (its next sample
  * is far from the one before), a serration or the noise is far smaller. Two or more bad samples in a row are not recognised.
- * `candidates` (per column, ascending indices where the value moved by more than the limit from the sample before,
- * collected by a pass the caller makes anyway) limits the search; a column without them has every sample tested.
+ * `candidates` (per column, ascending indices where the value moved from the sample before by more than a limit
+ * below 7/8 of the glitch limit — the move into a glitch is at least that — collected by a pass the caller makes
+ * anyway) limits the search to the same hits; a column without them has every sample tested.
  * Units: strain fraction, stress MPa. Cost: O(candidates), or O(N).
  * @example findGlitches([0, 0.01, 0.02, 0.03, 0.04], [100, 300, 900, 310, 320], 320).map((g) => g.index) // [2]
  */
