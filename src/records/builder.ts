@@ -103,7 +103,7 @@ export class RecordBuilder {
    * of numbers under it; `table` counts the rows still allowed). Any other row of numbers after it makes it the
    * error it is.
    */
-  private footer: { error: unknown; line: number; lastLine: number; rows: number; table: number; results: boolean } | null = null;
+  private footer: { error: unknown; line: number; lastLine: number; rows: number; table: number; results: boolean; first: string } | null = null;
   /** Rows at the end whose strain cell is empty and stress a number (extensometer taken off), stored with the last strain held. */
   private held: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
   /** How a strain column without a unit was read (by its largest value), or null when the unit was known. */
@@ -261,7 +261,7 @@ export class RecordBuilder {
   /** Parses one number cell; errors name the line, the column and what was expected. */
   private cell(f: string[], c: ColumnInfo, line: number): number {
     const raw = f[c.index];
-    if (raw === undefined) this.fail(line, c.index + 1, c.name, `the row has ${f.length} fields; expected ${this.width} as in the header (line ${this.layout.headerLine})`);
+    if (raw === undefined) this.fail(line, c.index + 1, c.name, `the row has ${f.length} field${f.length === 1 ? '' : 's'}; expected ${this.width} as in the header (line ${this.layout.headerLine})`);
     let t = raw.trim();
     if (this.layout.decimalComma) t = t.replace(',', '.');
     if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t)) {
@@ -303,7 +303,7 @@ export class RecordBuilder {
       }
       // Before a record of at least MIN_ROWS rows the row is an error; after it, a footer candidate.
       if (this.n < MIN_ROWS || (this.footer && this.footer.rows === MAX_FOOTER_ROWS)) throw this.footer?.error ?? e;
-      this.footer ??= { error: e, line, lastLine: line, rows: 0, table: 0, results: false };
+      this.footer ??= { error: e, line, lastLine: line, rows: 0, table: 0, results: false, first: f.map((c) => c.trim()).filter((c) => c !== '').join(' ') };
       this.footer.rows++;
       this.footer.lastLine = line;
       // A line of column names in the footer opens a results table ("Rp0.2 [MPa],Rm [MPa],A [%]"): a few rows of
@@ -426,7 +426,7 @@ export class RecordBuilder {
       const why = (ft.error as { problems?: { message: string }[] }).problems?.[0]?.message ?? String(ft.error);
       const span = ft.rows === 1 ? `line ${ft.line}` : `lines ${ft.line}–${ft.lastLine}`;
       this.warnings.push(ft.results
-        ? `${span} after the data hold a results table (first: ${why}): read as a footer and left out; the record ends at line ${this.lastLine}`
+        ? `${span} after the data hold a results table (from ${show(ft.first.slice(0, 40))}): read as a footer and left out; the record ends at line ${this.lastLine}`
         : `${span} after the data ${ft.rows === 1 ? 'is not a row' : 'are not rows'} of numbers (first: ${why}): read as a footer and left out; the record ends at line ${this.lastLine}`);
     }
     const hd = this.held;

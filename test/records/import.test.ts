@@ -232,7 +232,7 @@ describe('parseRecordText(bad record) names the line, the column and what was ex
     ['a broken quoted field', 'Strain [%],Stress [MPa]\n' + ROWS.slice(0, 5).map((r) => r.join(',')).join('\n') + '\n"0.3,606\n' + ROWS.slice(6).map((r) => r.join(',')).join('\n') + '\n', /broken CSV: a quoted field is not closed/, undefined, undefined],
     ['binary content', 'Strain,Stress\n\u0000\u0001\u0002PK\u0003\u0004', /binary content \(character U\+0000\)/, 2, 1],
     ['hostile column names', csv('__proto__,constructor'), /no strain and stress columns, nor force and extension \(or force and strain\); the header has "__proto__", "constructor"/, 1, 1],
-    ['a row shorter than the header', csv('Strain [%],Stress [MPa]').replace('\n0.25,505', '\n0.25'), /the row has 1 fields; expected 2 as in the header \(line 1\)/, 7, 2],
+    ['a row shorter than the header', csv('Strain [%],Stress [MPa]').replace('\n0.25,505', '\n0.25'), /the row has 1 field; expected 2 as in the header \(line 1\)/, 7, 2],
     ['an unknown stress unit', csv('Strain [%],Stress [bar]'), /unit "bar" is not a stress unit; allowed MPa, N\/mm², MN\/m², GPa, kPa, Pa, kN\/cm², ksi, psi \(lbf\/in²\), kgf\/mm²/, 1, 2],
     ['force without a cross-section', csv('Force [kN],Extension [mm]'), /needs the cross-section .* missing the cross-section/, 1, undefined],
     ['numbers with no header', ROWS.map((r) => r.join(',')).join('\n'), /no header line: the file starts with numbers/, 1, 1],

@@ -135,7 +135,7 @@ describe('parseRecordText through the fast scanner gives what an independent par
 
   it('refuses what the located reader refuses, with the same located message (0x10, empty cell, Infinity, a short row)', () => {
     const base = 'strain,stress [MPa]\n' + Array.from({ length: 12 }, (_, i) => `${i * 0.001},${i * 10}`).join('\n') + '\n';
-    for (const [bad, re] of [['0x10', /^b\.csv:14:2: .*got "0x10", expected a number$/], ['', /^b\.csv:14:2: .*got "", expected a number$/], ['Infinity', /^b\.csv:14:2: .*expected a finite number$/], [null, /^b\.csv:14:2: .*the row has 1 fields; expected 2/]] as const) {
+    for (const [bad, re] of [['0x10', /^b\.csv:14:2: .*got "0x10", expected a number$/], ['', /^b\.csv:14:2: .*got "", expected a number$/], ['Infinity', /^b\.csv:14:2: .*expected a finite number$/], [null, /^b\.csv:14:2: .*the row has 1 field; expected 2/]] as const) {
       // A row of numbers follows the bad one, so it is an error (a bad row only at the end is a footer: below).
       const text = base + (bad === null ? '0.02\n' : `0.02,${bad}\n`) + '0.03,130\n';
       let msg = '';
@@ -166,7 +166,7 @@ describe('parseRecordText through the fast scanner gives what an independent par
     // A results table the machine appends (a line of column names, a few rows of numbers) is footer too.
     const res = parseRecordText(base + '\nResults\nRp0.2 [MPa],Rm [MPa]\n108.5,110.0\n', { file: 'r.csv', strainUnit: 'fraction' });
     expect(res.rows).toBe(12);
-    expect(res.warnings.join('\n')).toMatch(/lines 15–17 after the data hold a results table \(first: got "Results", expected a number\): read as a footer and left out; the record ends at line 13/);
+    expect(res.warnings.join('\n')).toMatch(/lines 15–17 after the data hold a results table \(from "Results"\): read as a footer and left out; the record ends at line 13/);
     // …but not the rest of a curve after a line of words: more than a results table's rows is the error it was.
     const rest = Array.from({ length: 25 }, (_, i) => `${0.02 + i * 0.001},${120 + i}`).join('\n');
     expect(() => parseRecordText(base + 'note,here\n' + rest + '\n', { file: 'n.csv', strainUnit: 'fraction' })).toThrow(/^n\.csv:14:1: strain: got "note", expected a number$/);
