@@ -72,8 +72,8 @@ export const ANALYZE_DEFAULTS = {
  * local top model, or by the six hardening laws fitted to the flow curve where their maximum of force lies
  * inside the top model's 95 % interval ({@link lawUniformElongation}; the six are fitted for this even with
  * `fit: false` or fewer `laws`, so Ag does not depend on those options).
- * First, single samples an acquisition glitch put far off their agreeing neighbours are read as the neighbours'
- * mean ({@link findGlitches}, warning `glitch`), and a strain channel that stops following the specimen before
+ * First, samples an acquisition glitch put far off their agreeing neighbours (alone or two in a row) are read on the
+ * line between those neighbours ({@link findGlitches}, warning `glitch`), and a strain channel that stops following the specimen before
  * fracture ({@link extensometerEnd}: held, reset or jump) ends the strain part: strain-based properties are read
  * before it, Rm from the force after it too, and what is only a lower bound is listed in `lowerBounds`. A record
  * that ends with an elastic unloading is a test stopped before fracture (`unloadedBeforeFracture`).
@@ -90,8 +90,8 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   let iRaw = finiteArgMax(data.strain, data.stress, strainMoves, stressMoves);
   let sMax = data.stress[iRaw]!;
   if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
-  // Single samples an acquisition glitch put far off the curve (a spike, a dropped reading) are read as the mean of
-  // their neighbours, on a copy, and said: one spike read as the maximum had put Rm 13 % high and "fracture" there.
+  // Samples an acquisition glitch put far off the curve (a spike, a dropped reading; alone or two in a row) are read on
+  // the line between their neighbours, on a copy, and said: one spike read as the maximum had put Rm 13 % high and "fracture" there.
   const early: TensileWarning[] = [];
   const glitches = findGlitches(data.strain, data.stress, sMax, { strain: strainMoves.length < MAX_CANDIDATES ? strainMoves : null, stress: stressMoves.length < MAX_CANDIDATES ? stressMoves : null });
   let strain = data.strain, stress = data.stress;
@@ -100,7 +100,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     for (const g of glitches) (g.column === 'strain' ? e : s)[g.index] = g.readAs;
     strain = e; stress = s;
     const list = glitches.slice(0, 5).map((g) => `sample ${g.index} (${g.column} ${+g.value.toPrecision(5)}, read as ${+g.readAs.toPrecision(5)})`).join(', ');
-    early.push({ code: 'glitch', message: `${glitches.length} single sample${glitches.length > 1 ? 's' : ''} far off ${glitches.length > 1 ? 'their' : 'its'} neighbours, which agree with each other (an acquisition spike or dropped reading; the specimen cannot do that and return the next sample): read as the mean of the neighbours — ${list}${glitches.length > 5 ? ', …' : ''}. Check the export if there are many` });
+    early.push({ code: 'glitch', message: `${glitches.length} sample${glitches.length > 1 ? 's' : ''} far off the curve between neighbours that agree with each other (alone or two in a row: an acquisition spike or dropped reading; the specimen cannot do that and return): read on the line between those neighbours — ${list}${glitches.length > 5 ? ', …' : ''}. Check the export if there are many` });
     strainMoves.length = 0;
     iRaw = finiteArgMax(strain, stress, strainMoves);
     sMax = stress[iRaw]!;
@@ -180,7 +180,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
 
   // Fracture: first sudden fall after the highest stress, else the end of the record.
   // A fall spread over many samples along the elastic line is the specimen being unloaded, not fracture.
-  const fall0 = firstFall(stress, iRaw, sMax, noise);
+  const fall0 = firstFall(stress, iRaw, sMax, noise, strain, E);
   const fall = fall0 >= 0 && elasticUnloading(strain, stress, iRaw, fall0, sMax, E) ? -1 : fall0;
   const detected = fall >= 0;
   const fi = detected ? fall : N - 1;
@@ -520,18 +520,32 @@ function notFinite(strain: ArrayLike<number>, stress: ArrayLike<number>, i: numb
  * Fracture: the first i ≥ iRaw after which the stress falls by more than fractureDrop or below
  * fractureFloor·sMax, then moved back to where that fall began: a fast-sampled record catches the load on its
  * way down over a few samples, each step far larger than the necking's and the noise's (> max(6σ̂, 3 % of
- * the stress)); the specimen broke at the first of them, not at the one where the fall passes 50 %. −1 if none.
+ * the stress)); the specimen broke at the first of them, not at the one where the fall passes 50 %.
+ * With the strain given, a step counts as part of the fall only where the strain hardly moved while the load fell
+ * (less than Δs/(FALL_SLOPE·E)): a breaking specimen sheds its load at about constant gauge strain (the load path
+ * of an unloading is the elastic slope E, far steeper than any necking), while on a coarse record (tens of points, a
+ * curve read off a chart) each necking step also falls by more than 3 % but over a percent of strain or more; walked
+ * back through them, A had read 8 points short on such a curve. −1 if none.
  */
-function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number, noise: number): number {
+function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number, noise: number, strain?: ArrayLike<number>, E = 0): number {
   const keep = 1 - ANALYZE_DEFAULTS.fractureDrop, floor = ANALYZE_DEFAULTS.fractureFloor * sMax;
+  const minSlope = strain && E > 0 ? FALL_SLOPE * E : 0;
   for (let i = iRaw; i < stress.length - 1; i++) {
     if (stress[i + 1]! < keep * stress[i]! || stress[i + 1]! < floor) {
-      while (i > iRaw && stress[i - 1]! - stress[i]! > Math.max(6 * noise, 0.03 * stress[i - 1]!)) i--;
+      while (i > iRaw) {
+        const drop = stress[i - 1]! - stress[i]!;
+        if (!(drop > Math.max(6 * noise, 0.03 * stress[i - 1]!))) break;
+        if (minSlope > 0 && strain![i]! - strain![i - 1]! >= drop / minSlope) break; // the strain moved on: necking
+        i--;
+      }
       return i;
     }
   }
   return -1;
 }
+
+/** A step of a fracture fall sheds load at least this fraction of E per unit strain (firstFall; an unloading follows E). */
+const FALL_SLOPE = 0.25;
 
 /**
  * True strain, true stress and true plastic strain of samples 0…iMax (toe-compensated, e > −1 only):

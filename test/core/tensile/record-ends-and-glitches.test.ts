@@ -200,7 +200,7 @@ describe('analyzeRecord on INVENTED records of tests stopped and unloaded before
   }, 120_000);
 });
 
-describe('analyzeRecord on INVENTED records with single-sample acquisition glitches', () => {
+describe('analyzeRecord on INVENTED records with acquisition glitches of one or two samples', () => {
   it('findGlitches: a spike and a dropped reading, not a yield drop, a fracture or the start of loading', () => {
     expect(findGlitches([0, 0.01, 0.02, 0.03, 0.04], [100, 300, 900, 310, 320], 320)).toEqual([{ index: 2, column: 'stress', value: 900, readAs: 305 }]);
     expect(findGlitches([0, 0.01, 0.02, 0.03, 0.04], [300, 305, 0, 310, 312], 312).map((g) => g.index)).toEqual([2]);
@@ -214,15 +214,33 @@ describe('analyzeRecord on INVENTED records with single-sample acquisition glitc
     expect(findGlitches([0.1, 0.11, 0, 0.13, 0.14], [400, 401, 402, 403, 404], 404)).toEqual([{ index: 2, column: 'strain', value: 0, readAs: 0.12 }]);
   });
 
-  it('two dropped readings in a row on the plastic part: an error naming the record\'s sample, not a flow-curve index', () => {
+  it('findGlitches: two bad samples in a row, read on the line between their neighbours; not three, not a two-sample reversal', () => {
+    // A spike over two samples between 300 and 309: read as 303 and 306 (the straight line between the neighbours).
+    const spike = findGlitches([0, 0.01, 0.02, 0.03, 0.04, 0.05], [100, 300, 900, 880, 309, 320], 320);
+    expect(spike.map((g) => [g.index, g.column, g.value])).toEqual([[2, 'stress', 900], [3, 'stress', 880]]);
+    expect(spike[0]!.readAs).toBeCloseTo(303, 12);
+    expect(spike[1]!.readAs).toBeCloseTo(306, 12);
+    // Two dropped readings (zero), in stress and, elsewhere, in strain.
+    expect(findGlitches([0, 0.01, 0.02, 0.03, 0.04, 0.05], [300, 305, 0, 0, 311, 312], 312).map((g) => g.index)).toEqual([2, 3]);
+    expect(findGlitches([0.1, 0.11, 0, 0, 0.113, 0.12], [400, 401, 402, 403, 404, 405], 405).map((g) => [g.index, +g.readAs.toFixed(12)])).toEqual([[2, 0.111], [3, 0.112]]);
+    // Three in a row are not read (the analysis refuses a run of zeros on the plastic part instead); a pair that does
+    // not agree in direction (one up, one down) is no glitch; a yield drop over two samples stays down.
+    expect(findGlitches([0, 0.01, 0.02, 0.03, 0.04, 0.05, 0.06], [300, 305, 0, 0, 0, 311, 312], 312)).toEqual([]);
+    expect(findGlitches([0, 0.01, 0.02, 0.03, 0.04, 0.05], [300, 305, 600, 0, 311, 312], 600)).toEqual([]);
+    expect(findGlitches([0, 0.001, 0.002, 0.003, 0.004, 0.005], [250, 300, 280, 265, 266, 267], 300)).toEqual([]);
+    // An unload–reload reversal caught on two samples: a V in stress and in strain (by Δs/E), the specimen's own.
+    expect(findGlitches([0.05, 0.0495, 0.049, 0.049, 0.0495, 0.05], [300, 200, 20, 25, 200, 300], 300)).toEqual([]);
+  });
+
+  it('three dropped readings in a row on the plastic part: an error naming the record\'s sample, not a flow-curve index', () => {
     const rec = synthesizeLabRecord({ law: { law: 'voce', sigma0: 250, Q: 200, b: 12 }, elasticModulus: 205000, rng: xoshiro128ss(2), points: 5000, noise: 0.5 });
     const stress = Float64Array.from(rec.stress);
     const i = 1500; // past the proof point, before maximum force
-    stress[i] = 0; stress[i + 1] = 0;
+    stress[i] = 0; stress[i + 1] = 0; stress[i + 2] = 0;
     expect(() => analyzeRecord({ strain: rec.strain, stress }, { fit: false })).toThrow(new RegExp(`^stress\\[${i}\\]: got 0, allowed a stress > 0 MPa on the plastic part of the record up to maximum force \\(sample ${i}, after [\\d.]+ MPa\\)`));
   });
 
-  it('1–3 spikes (×1.5–3), dropped stress or strain readings in the loaded record: the same Rp0.2, Rm, Ag and A as without them, and said', () => {
+  it('1–3 spikes (×1.5–3), dropped stress or strain readings, each one or two samples long, in the loaded record: the same Rp0.2, Rm, Ag and A as without them, and said', () => {
     const bad: string[] = [];
     const seeds = Array.from({ length: 30 }, (_, i) => 8 * i + 5);
     for (const seed of seeds) {
@@ -236,14 +254,18 @@ describe('analyzeRecord on INVENTED records with single-sample acquisition glitc
       const k = 1 + Math.floor(rng.nextFloat() * 3);
       const at: number[] = [];
       while (at.length < k) {
-        const i = 2 + Math.floor(rng.nextFloat() * (N - 4));
-        if (stress[i - 1]! > 0.3 * sMax && stress[i + 1]! > 0.3 * sMax && at.every((j) => Math.abs(j - i) > 3)) at.push(i);
+        const i = 2 + Math.floor(rng.nextFloat() * (N - 5));
+        if (stress[i - 1]! > 0.3 * sMax && stress[i + 2]! > 0.3 * sMax && at.every((j) => Math.abs(j - i) > 4)) at.push(i);
       }
       for (const i of at) {
         const kind = Math.floor(rng.nextFloat() * 3);
-        if (kind === 0) stress[i] = stress[i]! * (1.5 + 1.5 * rng.nextFloat());
-        else if (kind === 1) stress[i] = 0;
-        else strain[i] = 0;
+        const run = rng.nextFloat() < 0.5 ? 1 : 2;
+        const f = 1.5 + 1.5 * rng.nextFloat();
+        for (let j = i; j < i + run; j++) {
+          if (kind === 0) stress[j] = stress[j]! * f;
+          else if (kind === 1) stress[j] = 0;
+          else strain[j] = 0;
+        }
       }
       const [a, c0] = analyzedPair({ strain, stress }, rec, t.elasticModulus);
       const clean = c0!;
@@ -285,4 +307,41 @@ describe('analyzeSpecimens leaves lower bounds out of the mean and sd, and count
     expect(set.summary.tensileStrength!.n).toBe(3);
     expect(set.summary.tensileStrength!.lowerBoundsLeftOut).toBe(0);
   }, 60_000);
+});
+
+describe('fracture on a coarse record (tens of points, as a curve read off a chart)', () => {
+  // Each necking step of a coarse record falls by more than 3 % of the stress, as the first samples of a fast-sampled
+  // fracture fall do; but the strain moves on by a percent or more with each of them, while a breaking specimen sheds
+  // its load at about constant gauge strain. A at fracture: the plastic elongation at the last sample before the fall
+  // (ISO 6892-1 §3.4.3, percentage elongation after fracture, from memory: the elastic part taken off).
+  it('an INVENTED 28-point curve necking by 5–17 % a step: A at the last sample before the final fall (31.86 %), not 8 points earlier', () => {
+    const e = [0, 0.0003, 0.0006, 0.0009, 0.0012, 0.0015, 0.003, 0.005, 0.008, 0.012, 0.02, 0.03, 0.045, 0.06, 0.08, 0.1, 0.12, 0.15, 0.18, 0.2, 0.22, 0.24, 0.26, 0.28, 0.3, 0.31, 0.32, 0.3205];
+    const s = [0, 60, 120, 180, 240, 300, 308.84, 314.56, 322.88, 333.53, 353.34, 375.58, 404.31, 428.31, 454.28, 474.7, 490.77, 508.68, 521.17, 527.32, 532.16, 525.25, 495.84, 443.88, 369.35, 323.65, 272.31, 5];
+    const a = analyzeRecord({ strain: e, stress: s }, { fit: false, elasticModulus: 200000 });
+    expect(a.fracture.index).toBe(26);
+    expect(a.totalElongationPct).toBeCloseTo((0.32 - 272.31 / 200000) * 100, 2); // within 0.005 point (the toe the analysis takes off)
+  });
+
+  it('INVENTED records thinned to 25–60 points past the elastic rise, with a steep necking branch: fracture at the last sample before the fall, A within 0.5 point of the truth (issue 12\'s tolerance)', () => {
+    const bad: string[] = [];
+    for (let seed = 1; seed <= 12; seed++) {
+      const rng = xoshiro128ss(seed, 5);
+      const full = synthesizeLabRecord({ law: { law: 'swift', K: 500 + 400 * rng.nextFloat(), eps0: 0.005 + 0.02 * rng.nextFloat(), n: 0.12 + 0.2 * rng.nextFloat() }, elasticModulus: 200000, rng: xoshiro128ss(seed), points: 3000, necking: { extraStrain: 0.05 + 0.1 * rng.nextFloat(), dropTo: 0.35 + 0.3 * rng.nextFloat() } });
+      const N = full.strain.length, iFrac = N - 4; // the generator's last sample before fracture, then three after it
+      const want = 25 + Math.floor(35 * rng.nextFloat());
+      const step = Math.max(1, Math.floor(iFrac / want));
+      // The elastic rise as recorded (a chart reader takes points along it too), then every step-th sample.
+      const idx: number[] = [];
+      let i = 0;
+      for (; i < iFrac && full.stress[i]! < 0.9 * full.truth.proofStrength; i++) idx.push(i);
+      for (; i < iFrac; i += step) idx.push(i);
+      for (let k = iFrac; k < N; k++) idx.push(k);
+      const strain = idx.map((k) => full.strain[k]!), stress = idx.map((k) => full.stress[k]!);
+      const a = analyzeRecord({ strain, stress }, { fit: false, elasticModulus: 200000 });
+      const why = `seed ${seed}, ${idx.length} points`;
+      if (a.fracture.index !== idx.indexOf(iFrac)) bad.push(`${why}: fracture at sample ${a.fracture.index}, not ${idx.indexOf(iFrac)} (the last before the fall)`);
+      if (!(Math.abs(a.totalElongationPct - full.truth.totalElongationPct) <= 0.5)) bad.push(`${why}: A ${a.totalElongationPct.toFixed(2)} % vs ${full.truth.totalElongationPct.toFixed(2)} %`);
+    }
+    expect(bad, bad.join('\n')).toEqual([]);
+  });
 });
