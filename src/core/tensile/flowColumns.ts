@@ -51,14 +51,19 @@ export function flowColumns(strain: ArrayLike<number>, stress: ArrayLike<number>
  */
 function envelopePass(strain: ArrayLike<number>, stress: ArrayLike<number>, toe: number, E: number, iMax: number, fromIndex: number, fromTrue: number, xs: Float64Array, ys: Float64Array, st: Float64Array): void {
   let nf = 0, bad = -1;
+  // Samples before fromIndex only raise the envelope (none is kept): their running maximum comes from a loop of its
+  // own. In one loop, the engine compiled it while every sample was still before fromIndex, without the stress
+  // reads, and dropped that code when the first one came (measured: a deoptimisation and a second compilation on
+  // every 1,000,000-row record).
+  const start = Math.max(0, Math.min(Math.ceil(fromIndex), iMax + 1)); // the first i ≥ fromIndex (an index may be fractional)
   // A flag, not runMax = −Infinity: that start made V8 box every new envelope value (one heap number a point).
-  let runMax = 0, any = false;
-  for (let i = 0; i <= iMax; i++) {
+  let runMax = start > 0 ? prefixTop(strain, toe, start) : 0, any = start > 0;
+  for (let i = start; i <= iMax; i++) {
     const e = strain[i]! - toe;
     if (any && e <= runMax) continue;
     any = true;
     runMax = e;
-    if (e <= -1 || i < fromIndex) continue; // no true strain, or before the proof point: not on the flow curve
+    if (e <= -1) continue; // no true strain: not on the flow curve
     const s = stress[i]! * (1 + e);
     const ep = Math.log1p(e) - s / E;
     if (ep >= fromTrue && ep > 0) {
@@ -69,6 +74,13 @@ function envelopePass(strain: ArrayLike<number>, stress: ArrayLike<number>, toe:
   }
   st[0] = nf;
   st[1] = bad;
+}
+
+/** The largest strain[i] − toe over i < to (to ≥ 1): the envelope's height where envelopePass starts keeping points. */
+function prefixTop(strain: ArrayLike<number>, toe: number, to: number): number {
+  let top = strain[0]! - toe;
+  for (let i = 1; i < to; i++) { const e = strain[i]! - toe; if (e > top) top = e; }
+  return top;
 }
 
 /** ln εp and ln σ of the nf kept points, and st[2], st[3] = the smallest and largest εp (plain comparisons from the first). */

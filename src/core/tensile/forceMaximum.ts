@@ -55,8 +55,9 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   if (!(n >= 3)) throw new ComputationError('record.maximumForce', `${n} samples between index ${from} and ${to}; at least 3 are needed to fit the top of the record`);
   let w = Math.max(5, Math.min(20001, Math.round(n / 50))) | 1;
   if (w > n) w = Math.max(1, n) | 1;
-  const ma = movingAverage(stress, from, to, w);
-  const j = indexOfHighest(ma, n);
+  const topAt = new Float64Array(2);
+  const ma = movingAverage(stress, from, to, w, topAt);
+  const j = topAt[0]!; // the first highest average, found in the averaging pass
   const delta = Math.max((3 * noise) / Math.sqrt(w), 0.01 * Math.abs(ma[j]!));
   // Outermost samples whose average is within delta of the top (a contiguous scan would stop at the first
   // noise dip of the average).
@@ -227,7 +228,6 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
     if (Number.isFinite(x)) bestX = x;
   }
   const rmVertex = vertex(0), rmFit = rmVertex.f;
-  if ((globalThis as any).FM_DBG) console.log('DBG', JSON.stringify({ k: kinked.x, kssr: kinked.f?.ssr, s: smoothTop.x, sssr: smoothTop.f?.ssr, bestX, rm: rmVertex.x, nb, xa, xb }));
   let best = from + j;
   if (!bestF) return { stress: ma[j]!, strain: strain[best]!, index: best, points: i1 - i0, span: [xa, xb], flat: false, strainInterval95: [xa, xb] };
   // Profile interval of the vertex: scan xv over the span (G2 steps), keep the outermost xv still within the
@@ -299,13 +299,6 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // Nearest sample (strain rises through the top; scan the span).
   best = nearestSample(strain, i0, i1, xAg);
   return { stress: topStress, strain: xAg, index: best, points: i1 - i0, span: [xa, xb], flat, strainInterval95: [Math.min(ciLo, xAg), Math.max(ciHi, xAg)] };
-}
-
-/** Index of the first highest of a[0..n). Own function: a record-long loop, compiled on its own (DEVELOPERS.md, speed). */
-function indexOfHighest(a: Float64Array, n: number): number {
-  let j = 0, top = a[0]!;
-  for (let k = 1; k < n; k++) { const v = a[k]!; if (v > top) { top = v; j = k; } }
-  return j;
 }
 
 /** Samples [i0, i1) of a column: a view where the column is a typed array (no copy), else a copy. */

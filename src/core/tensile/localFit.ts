@@ -27,14 +27,17 @@ export class QuadraticFit {
 
 /**
  * Centred moving average of y over [from, to) with an odd window w (shrinking at the ends), one pass
- * with a running sum. Units: those of y.
+ * with a running sum. With `top` (a one-element array), also the index of the first highest average into top[0],
+ * found in the same pass (the caller's own pass over a million averages cost a fresh process about 3 ms).
+ * Units: those of y.
  * @example movingAverage([1, 2, 3, 4, 5], 0, 5, 3) // Float64Array [1.5, 2, 3, 4, 4.5]
  */
-export function movingAverage(y: ArrayLike<number>, from: number, to: number, w: number): Float64Array {
+export function movingAverage(y: ArrayLike<number>, from: number, to: number, w: number, top?: Float64Array): Float64Array {
   const n = to - from;
   const out = new Float64Array(Math.max(0, n));
   const half = Math.max(0, (w - 1) >> 1);
   let lo = 0, hi = -1, sum = 0;
+  let best = 0, at = 0; // the first highest average so far (a plain 0 start: see fullWindow)
   // Three stretches with the same additions and subtractions in the same order (so the same numbers): the window
   // growing at the start, the full window (one sample in, one out: no Math.max/min, no inner loops; on a
   // 1,000,000-row record forceMaximum's average over the hardening branch ran slowly unoptimised in the general
@@ -45,13 +48,18 @@ export function movingAverage(y: ArrayLike<number>, from: number, to: number, w:
     while (hi < b) sum += y[from + ++hi]!;
     while (lo < a) sum -= y[from + lo++]!;
     out[i] = sum / (hi - lo + 1);
+    if (i === 0 || out[i]! > best) { best = out[i]!; at = i; }
   }
   if (i <= n - 1 - half) {
     // Here hi = i − 1 + half and lo = i − 1 − half (the previous step's window) and each step moves both by one.
     const full = 2 * half + 1;
     const end = n - 1 - half;
     const first = i;
-    sum = fullWindow(y, from, half, first, end, sum, full, out);
+    if (top) {
+      top[0] = at; top[1] = best;
+      sum = fullWindowTop(y, from, half, first, end, sum, full, out, top);
+      at = top[0]!; best = top[1]!;
+    } else sum = fullWindow(y, from, half, first, end, sum, full, out);
     hi = end + half; lo = end - half;
     i = end + 1;
   }
@@ -60,7 +68,9 @@ export function movingAverage(y: ArrayLike<number>, from: number, to: number, w:
     while (hi < b) sum += y[from + ++hi]!;
     while (lo < a) sum -= y[from + lo++]!;
     out[i] = sum / (hi - lo + 1);
+    if (out[i]! > best) { best = out[i]!; at = i; }
   }
+  if (top) top[0] = at;
   return out;
 }
 
@@ -72,6 +82,23 @@ function fullWindow(y: ArrayLike<number>, from: number, half: number, first: num
     s -= y[from + i - half - 1]!;
     out[i] = s / full;
   }
+  return s;
+}
+
+/**
+ * {@link fullWindow} keeping the first highest average: top holds [index, value] of the highest so far on entry and
+ * on return (a function of its own so that the plain average keeps its loop without the comparison).
+ */
+function fullWindowTop(y: ArrayLike<number>, from: number, half: number, first: number, end: number, sum: number, full: number, out: Float64Array, top: Float64Array): number {
+  let s = sum, at = top[0]!, best = top[1]!;
+  for (let i = first; i <= end; i++) {
+    s += y[from + i + half]!;
+    s -= y[from + i - half - 1]!;
+    const v = s / full;
+    out[i] = v;
+    if (v > best) { best = v; at = i; }
+  }
+  top[0] = at; top[1] = best;
   return s;
 }
 
