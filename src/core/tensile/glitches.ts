@@ -32,8 +32,8 @@ export const GLITCH_RUN = 2;
  * sample after it is far from the one before), a serration or the noise is far smaller. Each sample of a run is read
  * as the line between a and b (for one sample, their mean). Three or more bad samples in a row are not recognised.
  * `candidates` (per column, ascending indices where the value moved from the sample before by more than a limit
- * below 7/8 of the glitch limit — the move into a run is at least 11/12 of its offset — collected by a pass the caller
- * makes anyway) limits the search to the same hits; a column without them has every sample tested.
+ * below 7/8 of the glitch limit — the move into a run is at least 7/8 of its offset for one sample, 11/12 for two —
+ * collected by a pass the caller makes anyway) limits the search to the same hits; a column without them has every sample tested.
  * Units: strain fraction, stress MPa. Cost: O(candidates), or O(N).
  * @example findGlitches([0, 0.01, 0.02, 0.03, 0.04], [100, 300, 900, 310, 320], 320).map((g) => g.index) // [2]
  */
