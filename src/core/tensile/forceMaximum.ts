@@ -57,13 +57,14 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   if (w > n) w = Math.max(1, n) | 1;
   const topAt = new Float64Array(2);
   const ma = movingAverage(stress, from, to, w, topAt);
-  const j = topAt[0]!; // the first highest average, found in the averaging pass
+  // The first highest average, found in the averaging pass; `| 0` keeps it a small integer (read from a Float64Array
+  // it is a double, and the engine then read ma[j] and compared a < j by the slow generic path: 8–20 ms a 1M record).
+  const j = topAt[0]! | 0;
   const delta = Math.max((3 * noise) / Math.sqrt(w), 0.01 * Math.abs(ma[j]!));
   // Outermost samples whose average is within delta of the top (a contiguous scan would stop at the first
   // noise dip of the average).
-  let a = 0, b = n - 1;
-  while (a < j && ma[a]! < ma[j]! - delta) a++;
-  while (b > j && ma[b]! < ma[j]! - delta) b--;
+  const a0 = firstAtLeast(ma, 0, j, ma[j]! - delta), b0 = lastAtLeast(ma, j, n - 1, ma[j]! - delta);
+  let a = a0, b = b0;
   // The averaging window blunts the top: widen the span by w/4 samples on each side.
   a = Math.max(0, a - (w >> 2)); b = Math.min(n - 1, b + (w >> 2));
   while (b - a + 1 < 9 && (a > 0 || b < n - 1)) { if (a > 0) a--; if (b < n - 1) b++; }
@@ -301,6 +302,20 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   return { stress: topStress, strain: xAg, index: best, points: i1 - i0, span: [xa, xb], flat, strainInterval95: [Math.min(ciLo, xAg), Math.max(ciHi, xAg)] };
 }
 
+/** The first k in [from, to) with a[k] ≥ level (a NaN stops it too, as a[k] < level fails), or `to`. A record-long loop in a function of its own, compiled on its own. */
+function firstAtLeast(a: Float64Array, from: number, to: number, level: number): number {
+  let k = from;
+  while (k < to && a[k]! < level) k++;
+  return k;
+}
+
+/** The last k in (from, to] with a[k] ≥ level, or `from`: the scan from the end down to `from`. */
+function lastAtLeast(a: Float64Array, from: number, to: number, level: number): number {
+  let k = to;
+  while (k > from && a[k]! < level) k--;
+  return k;
+}
+
 /** Samples [i0, i1) of a column: a view where the column is a typed array (no copy), else a copy. */
 function columnSpan(a: ArrayLike<number>, i0: number, i1: number): ArrayLike<number> {
   if (a instanceof Float64Array) return a.subarray(i0, i1);
@@ -311,8 +326,11 @@ function columnSpan(a: ArrayLike<number>, i0: number, i1: number): ArrayLike<num
 
 /** Index in [i0, i1) of the sample whose strain is nearest x (the first of equals). */
 function nearestSample(strain: ArrayLike<number>, i0: number, i1: number, x: number): number {
-  let best = i0, bd = Infinity;
-  for (let i = i0; i < i1; i++) { const dd = Math.abs(strain[i]! - x); if (dd < bd) { bd = dd; best = i; } }
+  // From the first sample's distance, not from Infinity: that start made the engine box every new nearest distance
+  // (the same pattern as finiteArgMax's top). NaN distances never win, as before.
+  let best = i0, bd = Math.abs(strain[i0]! - x);
+  if (!(bd === bd)) bd = Infinity;
+  for (let i = i0 + 1; i < i1; i++) { const dd = Math.abs(strain[i]! - x); if (dd < bd) { bd = dd; best = i; } }
   return best;
 }
 
