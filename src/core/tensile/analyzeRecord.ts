@@ -525,17 +525,26 @@ function notFinite(strain: ArrayLike<number>, stress: ArrayLike<number>, i: numb
  * (less than Δs/(FALL_SLOPE·E)): a breaking specimen sheds its load at about constant gauge strain (the load path
  * of an unloading is the elastic slope E, far steeper than any necking), while on a coarse record (tens of points, a
  * curve read off a chart) each necking step also falls by more than 3 % but over a percent of strain or more; walked
- * back through them, A had read 8 points short on such a curve. −1 if none.
+ * back through them, A had read 8 points short on such a curve. A step whose strain moves by more than three times the
+ * record's usual step (the median of the ten before the top) still counts: a crack opening inside the gauge length
+ * reads as strain while the load falls. −1 if none.
  */
 function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number, noise: number, strain?: ArrayLike<number>, E = 0): number {
   const keep = 1 - ANALYZE_DEFAULTS.fractureDrop, floor = ANALYZE_DEFAULTS.fractureFloor * sMax;
   const minSlope = strain && E > 0 ? FALL_SLOPE * E : 0;
+  let usual = -1; // the record's usual strain step before the top, found when first needed
   for (let i = iRaw; i < stress.length - 1; i++) {
     if (stress[i + 1]! < keep * stress[i]! || stress[i + 1]! < floor) {
       while (i > iRaw) {
         const drop = stress[i - 1]! - stress[i]!;
         if (!(drop > Math.max(6 * noise, 0.03 * stress[i - 1]!))) break;
-        if (minSlope > 0 && strain![i]! - strain![i - 1]! >= drop / minSlope) break; // the strain moved on: necking
+        const de = minSlope > 0 ? strain![i]! - strain![i - 1]! : 0;
+        if (de >= drop / minSlope) {
+          // The strain moved on while the load fell, by a usual step (necking on a coarse record): not the fall. A
+          // step far larger than usual is a crack opening inside the gauge as the load falls: part of the fall.
+          if (usual < 0) usual = usualStrainStep(strain!, iRaw);
+          if (de <= FALL_STEP_FACTOR * usual) break;
+        }
         i--;
       }
       return i;
@@ -546,6 +555,16 @@ function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number, noise:
 
 /** A step of a fracture fall sheds load at least this fraction of E per unit strain (firstFall; an unloading follows E). */
 const FALL_SLOPE = 0.25;
+/** A strain step this many times the usual one, during a fall of load, is a crack opening (firstFall). */
+const FALL_STEP_FACTOR = 3;
+
+/** Median of the strain steps |e[i] − e[i−1]| over the ten samples up to `at` (the usual step of the record there). */
+function usualStrainStep(strain: ArrayLike<number>, at: number): number {
+  const steps: number[] = [];
+  for (let i = Math.max(1, at - 9); i <= at; i++) steps.push(Math.abs(strain[i]! - strain[i - 1]!));
+  steps.sort((a, b) => a - b);
+  return steps.length ? steps[(steps.length - 1) >> 1]! : 0;
+}
 
 /**
  * True strain, true stress and true plastic strain of samples 0…iMax (toe-compensated, e > −1 only):
