@@ -181,7 +181,14 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // Fracture: first sudden fall after the highest stress, else the end of the record.
   // A fall spread over many samples along the elastic line is the specimen being unloaded, not fracture.
   const fall0 = firstFall(stress, iRaw, sMax, noise, strain, E);
-  const fall = fall0 >= 0 && elasticUnloading(strain, stress, iRaw, fall0, sMax, E) ? -1 : fall0;
+  // A record that ends while the load is still falling (no sample after fracture, the fall spread over the last few
+  // samples, none of its steps over 50 %): fracture where that fall began, found by the same walk back from the end.
+  // Without it, A was read at the last sample, part-way down the fall, its elastic part s/E too small (A 0.25 point
+  // high on an invented aluminium record whose load fell over its last three samples).
+  const endFall = fall0 < 0 && N >= 2 ? fallStart(stress, N - 1, iRaw, noise, strain, E) : -1;
+  const fallAt = fall0 >= 0 ? fall0 : endFall >= 0 && endFall < N - 1 ? endFall : -1;
+  const fall = fallAt >= 0 && elasticUnloading(strain, stress, iRaw, fallAt, sMax, E) ? -1 : fallAt;
+  const endedInFall = fall >= 0 && fall0 < 0;
   const detected = fall >= 0;
   const fi = detected ? fall : N - 1;
   const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
@@ -394,7 +401,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     fracture: force ? force.fracture : {
       index: fi,
       detected: detected || necked,
-      method: finalUnload ? 'end of the record after an elastic unloading (the test was stopped before fracture)' : fractureMethod(detected, necked),
+      method: finalUnload ? 'end of the record after an elastic unloading (the test was stopped before fracture)' : endedInFall ? 'the record ends while the force falls (no sample after fracture): fracture where that fall began' : fractureMethod(detected, necked),
     },
     lowerBounds,
     strainChannelEnd: tail ? { ...tail.end } : null,
@@ -531,26 +538,33 @@ function notFinite(strain: ArrayLike<number>, stress: ArrayLike<number>, i: numb
  */
 function firstFall(stress: ArrayLike<number>, iRaw: number, sMax: number, noise: number, strain?: ArrayLike<number>, E = 0): number {
   const keep = 1 - ANALYZE_DEFAULTS.fractureDrop, floor = ANALYZE_DEFAULTS.fractureFloor * sMax;
-  const minSlope = strain && E > 0 ? FALL_SLOPE * E : 0;
-  let usual = -1; // the record's usual strain step before the top, found when first needed
   for (let i = iRaw; i < stress.length - 1; i++) {
-    if (stress[i + 1]! < keep * stress[i]! || stress[i + 1]! < floor) {
-      while (i > iRaw) {
-        const drop = stress[i - 1]! - stress[i]!;
-        if (!(drop > Math.max(6 * noise, 0.03 * stress[i - 1]!))) break;
-        const de = minSlope > 0 ? strain![i]! - strain![i - 1]! : 0;
-        if (de >= drop / minSlope) {
-          // The strain moved on while the load fell, by a usual step (necking on a coarse record): not the fall. A
-          // step far larger than usual is a crack opening inside the gauge as the load falls: part of the fall.
-          if (usual < 0) usual = usualStrainStep(strain!, iRaw);
-          if (de <= FALL_STEP_FACTOR * usual) break;
-        }
-        i--;
-      }
-      return i;
-    }
+    if (stress[i + 1]! < keep * stress[i]! || stress[i + 1]! < floor) return fallStart(stress, i, iRaw, noise, strain, E);
   }
   return -1;
+}
+
+/**
+ * Where the fall of load that sample i is part of began: walked back from i through the steps that belong to a
+ * fracture fall (firstFall's rule: each more than max(6σ̂, 3 %) of the stress and, with the strain given, shedding
+ * load at ≥ FALL_SLOPE·E per unit strain unless the strain jumps far beyond its usual step), not past iRaw.
+ */
+function fallStart(stress: ArrayLike<number>, i: number, iRaw: number, noise: number, strain?: ArrayLike<number>, E = 0): number {
+  const minSlope = strain && E > 0 ? FALL_SLOPE * E : 0;
+  let usual = -1; // the record's usual strain step before the top, found when first needed
+  while (i > iRaw) {
+    const drop = stress[i - 1]! - stress[i]!;
+    if (!(drop > Math.max(6 * noise, 0.03 * stress[i - 1]!))) break;
+    const de = minSlope > 0 ? strain![i]! - strain![i - 1]! : 0;
+    if (de >= drop / minSlope) {
+      // The strain moved on while the load fell, by a usual step (necking on a coarse record): not the fall. A
+      // step far larger than usual is a crack opening inside the gauge as the load falls: part of the fall.
+      if (usual < 0) usual = usualStrainStep(strain!, iRaw);
+      if (de <= FALL_STEP_FACTOR * usual) break;
+    }
+    i--;
+  }
+  return i;
 }
 
 /** A step of a fracture fall sheds load at least this fraction of E per unit strain (firstFall; an unloading follows E). */

@@ -339,6 +339,25 @@ describe('fracture on a coarse record (tens of points, as a curve read off a cha
     expect(bad, bad.join('\n')).toEqual([]);
   });
 
+  it('a record that ends while the load still falls (no sample after fracture, no step over 50 %): fracture where the fall began', () => {
+    // The machine stops recording during the fall, spread evenly over the last 3 or 4 samples (to 30 % of the fracture
+    // stress; each step under the 50 % that marks a fracture), the strain about still. A had been read at
+    // the last sample, part-way down, with too small an elastic part s/E.
+    const bad: string[] = [];
+    for (let seed = 1; seed <= 8; seed++) {
+      const full = synthesizeLabRecord({ law: { law: 'swift', K: 500 + 30 * seed, eps0: 0.01, n: 0.2 }, elasticModulus: 70000 + 5000 * seed, rng: xoshiro128ss(seed), points: 5000, noise: seed % 2 ? 0 : 0.2 });
+      const iFrac = full.strain.length - 4, eF = full.strain[iFrac]!, sF = full.stress[iFrac]!;
+      const steps = seed % 2 ? 3 : 4;
+      const strain = [...full.strain.subarray(0, iFrac + 1)], stress = [...full.stress.subarray(0, iFrac + 1)];
+      for (let k = 1; k <= steps; k++) { strain.push(eF + k * 1e-6); stress.push(sF * (1 - (0.7 * k) / steps)); }
+      const a = analyzeRecord({ strain, stress }, { fit: false });
+      if (a.fracture.index !== iFrac) bad.push(`seed ${seed}: fracture at sample ${a.fracture.index}, not ${iFrac} (${a.fracture.method})`);
+      if (!(Math.abs(a.totalElongationPct - full.truth.totalElongationPct) <= 0.02)) bad.push(`seed ${seed}: A ${a.totalElongationPct.toFixed(3)} % vs ${full.truth.totalElongationPct.toFixed(3)} %`);
+      if (!/ends while the force falls/.test(a.fracture.method)) bad.push(`seed ${seed}: method ${a.fracture.method}`);
+    }
+    expect(bad, bad.join('\n')).toEqual([]);
+  });
+
   it('INVENTED records thinned to 25–60 points past the elastic rise, with a steep necking branch: fracture at the last sample before the fall, A within 0.5 point of the truth (issue 12\'s tolerance)', () => {
     const bad: string[] = [];
     for (let seed = 1; seed <= 12; seed++) {
