@@ -324,7 +324,7 @@ describe('fracture on a coarse record (tens of points, as a curve read off a cha
 
   it('a fast-sampled fall during which the extensometer reads a crack opening: fracture still where the load starts to fall', () => {
     // A fracture inside the gauge length: as the load falls over three samples the extensometer reads the crack
-    // opening (1.2 % here, far more than the record's usual 0.003 % step), so the fall's steps are flatter than E/4.
+    // opening (1.2 % here, far more than the record's usual 0.003 % step), so the fall's steps are flatter than E.
     // The specimen broke at the first of them (ISO 6892-1: A where the force drops sharply, from memory).
     const bad: string[] = [];
     for (let seed = 1; seed <= 6; seed++) {
