@@ -185,7 +185,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // samples, none of its steps over 50 %): fracture where that fall began, found by the same walk back from the end.
   // Without it, A was read at the last sample, part-way down the fall, its elastic part s/E too small (A 0.25 point
   // high on an invented aluminium record whose load fell over its last three samples).
-  const endFall = fall0 < 0 && N >= 2 ? fallStart(stress, N - 1, iRaw, noise, strain, E) : -1;
+  const endFall = fall0 < 0 ? fallStart(stress, N - 1, iRaw, noise, strain, E) : -1;
   const fallAt = fall0 >= 0 ? fall0 : endFall >= 0 && endFall < N - 1 ? endFall : -1;
   const fall = fallAt >= 0 && elasticUnloading(strain, stress, iRaw, fallAt, sMax, E) ? -1 : fallAt;
   const endedInFall = fall >= 0 && fall0 < 0;
@@ -576,7 +576,12 @@ const FALL_SLOPE = 1;
 /** A strain step this many times the usual one, during a fall of load, is a crack opening (firstFall). */
 const FALL_STEP_FACTOR = 3;
 
-/** Median of the strain steps |e[i] − e[i−1]| over the ten samples up to `at` (the usual step of the record there). */
+/**
+ * Median of the strain steps |e[i] − e[i−1]| over the ten samples up to `at` (the usual step of the record there). It
+ * is 0 on a fast record whose strain channel is coarser than one sample's stretch; every moving step then counts as
+ * far beyond it, which only matters for a step already too flat to be a fall, and on a fast record only a crack
+ * opening is that (necking never falls 3 % a sample there).
+ */
 function usualStrainStep(strain: ArrayLike<number>, at: number): number {
   const steps: number[] = [];
   for (let i = Math.max(1, at - 9); i <= at; i++) steps.push(Math.abs(strain[i]! - strain[i - 1]!));

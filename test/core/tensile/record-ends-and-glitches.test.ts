@@ -334,6 +334,8 @@ describe('fracture on a coarse record (tens of points, as a curve read off a cha
       const stress = [...full.stress.subarray(0, iFrac + 1), 0.85 * sF, 0.45 * sF, 0.01 * sF, 0.5, 0.4];
       const a = analyzeRecord({ strain, stress }, { fit: false });
       if (a.fracture.index !== iFrac) bad.push(`seed ${seed}: fracture at sample ${a.fracture.index}, not ${iFrac}`);
+      // 0.05 point, a tenth of issue 12's A tolerance: with the fracture at the right sample only the noise (0.3 MPa,
+      // s_f/E ±0.0002 point) and the toe estimate move A; one sample early or late moves it by the 1.2 % opening.
       if (!(Math.abs(a.totalElongationPct - full.truth.totalElongationPct) <= 0.05)) bad.push(`seed ${seed}: A ${a.totalElongationPct.toFixed(3)} % vs ${full.truth.totalElongationPct.toFixed(3)} %`);
     }
     expect(bad, bad.join('\n')).toEqual([]);
@@ -352,6 +354,9 @@ describe('fracture on a coarse record (tens of points, as a curve read off a cha
       for (let k = 1; k <= steps; k++) { strain.push(eF + k * 1e-6); stress.push(sF * (1 - (0.7 * k) / steps)); }
       const a = analyzeRecord({ strain, stress }, { fit: false });
       if (a.fracture.index !== iFrac) bad.push(`seed ${seed}: fracture at sample ${a.fracture.index}, not ${iFrac} (${a.fracture.method})`);
+      // 0.02 point: at the right sample A differs from the truth only by the toe estimate and the noise (≤ 0.2 MPa);
+      // read at the last sample, part-way down, it was 0.1 point or more high (seed 1: 28.945 against 28.830 %, with
+      // the walk from the end removed).
       if (!(Math.abs(a.totalElongationPct - full.truth.totalElongationPct) <= 0.02)) bad.push(`seed ${seed}: A ${a.totalElongationPct.toFixed(3)} % vs ${full.truth.totalElongationPct.toFixed(3)} %`);
       if (!/ends while the force falls/.test(a.fracture.method)) bad.push(`seed ${seed}: method ${a.fracture.method}`);
     }
