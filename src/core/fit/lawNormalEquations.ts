@@ -67,6 +67,8 @@ export interface LawData {
   bad: number;
   /** Block averages of these data for a given block size, made once (see fitLaw). */
   blocks?: { size: number; data: LawData };
+  /** Weighted averages of these data for fitLaw's coarse stage, made once (see coarseData). */
+  coarse?: LawData;
   /** Scratch column for model values, reused by every law fitted to these data (see lawResidualStats). */
   scratch?: Float64Array;
   /** Block moments of these data for the full-curve statistics, made once (see curveResidualStats). */
