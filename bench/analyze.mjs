@@ -18,7 +18,7 @@
 // BEFORE=/path/to/older/bin/strainledger.js also times an older build on the 1M record, interleaved;
 // ONLY_1M=1 stops after part 1)
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { analyzeRecord, lawBounds, LAW_NAMES, startValues, START_SAMPLE } from '../dist/core/index.js';
@@ -108,10 +108,12 @@ console.log(ts.slice(1).join(' '));
 const inproc = (cmd, args) => med(spawnSync(cmd, args, { encoding: 'utf8' }).stdout.trim().split(' ').map(Number));
 const runsO = [], runsN = [], runsB = [], runsP = [], runs1 = [], runsT = [], auto = [];
 const before = process.env.BEFORE;
-// The default picks two threads only when a core is free (load average < cores − 0.5): note what it saw.
+// The default picks two threads only on four or more cores with two free (load average < cores − 1.5) and records
+// of 4 MB or more (src/cli/commands/analyze.ts): note what it saw.
 const cores = (await import('node:os')).availableParallelism();
+const bigBytes = statSync(big).size;
 for (let k = 0; k < 3; k++) {
-  auto.push(loadavg()[0] < cores - 0.5 ? 2 : 1);
+  auto.push(cores >= 4 && bigBytes >= 4 * 1024 * 1024 && loadavg()[0] < cores - 1.5 ? 2 : 1);
   runsO.push(ours(big)); runsP.push(numpyProcess(big)); runsN.push(numpyRead(big));
   runs1.push(ours(big, undefined, ['--threads', '1'])); runsT.push(ours(big, undefined, ['--threads', '2']));
   if (before) runsB.push(ours(big, before));
