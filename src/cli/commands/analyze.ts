@@ -34,7 +34,7 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     converged: f.converged, iterations: f.iterations, strainRange: f.strainRange, points: f.points, ...(residuals ? { residuals: f.residuals } : {}),
   });
   return {
-    record: { file: rec.file, name: rec.name, rows: rec.rows, basis: rec.basis, columns: rec.columns, geometry: rec.geometry, layout: rec.layout },
+    record: { file: rec.file, name: rec.name, rows: rec.rows, basis: rec.basis, columns: rec.columns, geometry: rec.geometry, layout: rec.layout, ...(rec.test ? { test: rec.test } : {}) },
     elasticModulus: a.elasticModulus,
     proofStrength: a.proofStrength,
     upperYield: a.upperYield,
@@ -103,7 +103,7 @@ function paramText(law: LawName, name: string, v: number): string {
 
 function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   const lines: string[] = [];
-  lines.push(`${rec.file}  (${rec.rows} rows, ${rec.basis})`);
+  lines.push(`${rec.file}${rec.test ? `, test ${rec.test.index} of ${rec.test.of} (samples ${rec.test.fromSample}–${rec.test.toSample})` : ''}  (${rec.rows} rows, ${rec.basis})`);
   const w = a.elasticWindow;
   const [ci0, ci1] = a.measuredModulusInterval95;
   if (a.elasticModulusSource === 'given') lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa (given)   measured ${fmt(a.measuredModulus / 1000, 1)} GPa, 95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)}`);
@@ -256,8 +256,8 @@ export const analyze = defineCommand({
     const [{ readRecordFile }, { analyzeRecord }, { analyzeSpecimens }, { withRecordLocation, withStrainUnitHint }] = await Promise.all([
       import('../../records/node.js'), import('../../core/tensile/analyzeRecord.js'), import('../../core/tensile/analyzeSpecimens.js'), import('../recordErrors.js'),
     ]);
-    const records: TensileRecord[] = [];
-    for (const f of positionals) records.push(await readRecordFile(f, { ...ropts, file: f }));
+    const read: TensileRecord[] = [];
+    for (const f of positionals) read.push(await readRecordFile(f, { ...ropts, file: f }));
     const aopts = {
       ...(fitLaws ? { fitLaws } : {}),
       ...(offset !== undefined ? { proofOffsetPct: offset } : {}),
@@ -266,7 +266,11 @@ export const analyze = defineCommand({
       ...(disagreement !== undefined ? { disagreementPct: disagreement } : {}),
       ...(modulus !== undefined ? { elasticModulus: modulus } : {}),
     };
-    const analyses = records.map((r) => withRecordLocation(r.file, () => withStrainUnitHint(r, () => analyzeRecord(r, aopts))));
+    const analyse = (r: TensileRecord) => withRecordLocation(r.file, () => withStrainUnitHint(r, () => analyzeRecord(r, aopts)));
+    // A file that holds several tests (the record starts over) becomes one record per test, each a specimen.
+    const { splitTests } = await import('../splitTests.js');
+    const parts = read.flatMap((r) => splitTests(r, analyse(r), analyse));
+    const records = parts.map((p) => p.record), analyses = parts.map((p) => p.analysis);
     let block: Record<string, unknown> | undefined;
     let out: Record<string, unknown>;
     if (records.length === 1) {

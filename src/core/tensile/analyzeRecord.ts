@@ -16,6 +16,7 @@ import { flowColumns } from './flowColumns.js';
 import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { TensileAnalysis, TensileData, TensileWarning, UnloadCycle } from './types.js';
 import { yieldPoint } from './yieldPoint.js';
+import { TEST_START, testStarts } from './testStarts.js';
 
 export interface AnalyzeOptions {
   /** Offset of the proof strength, % (default 0.2 → Rp0.2). */
@@ -76,7 +77,8 @@ export const ANALYZE_DEFAULTS = {
  * line between those neighbours ({@link findGlitches}, warning `glitch`), and a strain channel that stops following the specimen before
  * fracture ({@link extensometerEnd}: held, reset or jump) ends the strain part: strain-based properties are read
  * before it, Rm from the force after it too, and what is only a lower bound is listed in `lowerBounds`. A record
- * that ends with an elastic unloading is a test stopped before fracture (`unloadedBeforeFracture`).
+ * that ends with an elastic unloading is a test stopped before fracture (`unloadedBeforeFracture`). A record that holds
+ * several tests one after another ({@link testStarts}) is analysed up to the second, with a `secondTest` warning first.
  * Units: strain fraction, stress MPa in; MPa and % out. Valid: a record with an elastic rise and a
  * maximum of force, finite numbers.
  * @throws InputError naming the field and index for non-finite values or too few points.
@@ -87,7 +89,15 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   if (data.stress.length !== N) throw new InputError('stress', data.stress.length, `as many values as strain (${N})`);
   if (N < 10) throw new InputError('points', N, 'at least 10 points in a tensile record');
   const strainMoves: number[] = [], stressMoves: number[] = [];
-  let iRaw = finiteArgMax(data.strain, data.stress, strainMoves, stressMoves);
+  const back = { at: -1 };
+  let iRaw = finiteArgMax(data.strain, data.stress, strainMoves, stressMoves, back);
+  // A further test in the same file (specimens exported one after another): the first is analysed, the rest said.
+  // Read as one test, the second specimen's rise had been taken for an unload–reload cycle of the first (a negative
+  // permanent strain) and its top for Rm. finiteArgMax found where the strain first came back (rare): look there.
+  if (back.at >= 0) {
+    const starts = testStarts(data.strain, data.stress);
+    if (starts.length) return firstTestOnly(data, starts, opts);
+  }
   let sMax = data.stress[iRaw]!;
   if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
   // Samples an acquisition glitch put far off the curve (a spike, a dropped reading; alone or two in a row) are read on
@@ -114,6 +124,24 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, end.index) : Array.prototype.slice.call(a, 0, end.index) as number[]);
   const hs = head(strain), hy = head(stress);
   return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end }, early);
+}
+
+/**
+ * analyzeRecord of the first of several tests in one record ({@link testStarts}: `starts`, the first sample of each
+ * further test), with a `secondTest` warning first that says where the others start and how to analyse them.
+ */
+function firstTestOnly(data: TensileData, starts: number[], opts: AnalyzeOptions): TensileAnalysis {
+  const k = starts[0]!;
+  if (k < 10) throw new InputError('points', k, 'at least 10 points in the first test of a record that holds more than one');
+  const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, k) : Array.prototype.slice.call(a, 0, k) as number[]);
+  const a = analyzeRecord({ strain: head(data.strain), stress: head(data.stress) }, opts);
+  const list = starts.slice(0, 5).map((i) => `sample ${i}`).join(', ');
+  a.warnings.unshift({
+    code: 'secondTest',
+    message: `the record starts over ${starts.length > 1 ? `${starts.length} times` : 'once'} (at ${list}${starts.length > 5 ? ', …' : ''}): strain and stress fall back near zero and the stress rises again, which one specimen cannot do — ` +
+      `read as ${starts.length + 1} tests in one file. Only the first (samples 0–${k - 1}) is analysed here; analyse each test as a record of its own (the command line splits such a file by itself)`,
+  });
+  return a;
 }
 
 /** The force after a strain channel's end ({@link extensometerEnd}): the whole record's stress column and where the strain ends. */
@@ -454,17 +482,21 @@ const STRESS_MOVE = 0.8 * GLITCH.stressOff;
  * index). Also collects (up to MAX_CANDIDATES each) the indices i where the strain moved by more than STRAIN_MOVE
  * from sample i − 1 (`strainMoves`, for extensometerEnd's resets and jumps and findGlitches' strain glitches) and
  * where the stress moved by more than STRESS_MOVE of the highest stress so far (`stressMoves`, for its stress
- * glitches); both are rare on a fine record.
+ * glitches); both are rare on a fine record. With `back`, the first sample where strain and stress are back below
+ * {@link testStarts}' levels (TEST_START) goes into `back.at` (−1: none), so that the full search runs only then.
  */
-function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>, strainMoves?: number[], stressMoves?: number[]): number {
+function finiteArgMax(strain: ArrayLike<number>, stress: ArrayLike<number>, strainMoves?: number[], stressMoves?: number[], back?: { at: number }): number {
   const N = strain.length;
   // top starts as 0, not −Infinity: i = 0 sets it anyway, and a non-small-integer start made V8 box every new top.
-  let iRaw = 0, top = 0, prev = N > 0 ? strain[0]! : 0, sPrev = N > 0 ? stress[0]! : 0;
+  let iRaw = 0, top = 0, prev = N > 0 ? strain[0]! : 0, sPrev = N > 0 ? stress[0]! : 0, eMax = 0;
   for (let i = 0; i < N; i++) {
     const e = strain[i]!, s = stress[i]!;
     // The throw in a function of its own: inline, its message kept every value boxed for it (measured).
     if (!(e - e === 0 && s - s === 0)) notFinite(strain, stress, i);
     if (i === 0 || s > top) { top = s; iRaw = i; }
+    // The first sample back below testStarts' strain and stress levels (a candidate start of a further test).
+    if (e > eMax) eMax = e;
+    else if (e < TEST_START.strainBack * eMax && back && back.at < 0 && eMax >= TEST_START.minStrain && s < TEST_START.stressBack * top) back.at = i;
     if (Math.abs(e - prev) > STRAIN_MOVE && strainMoves && strainMoves.length < MAX_CANDIDATES) strainMoves.push(i);
     if (Math.abs(s - sPrev) > STRESS_MOVE * top && stressMoves) {
       // Full: keep only the moves still above the limit for the highest stress so far (the rest, from the noisy

@@ -4,7 +4,7 @@ export interface ExtensometerEnd {
   index: number;
   /**
    * 'held': the channel keeps one value (an extensometer taken off whose last reading the machine holds, or one at
-   * the end of its range) while the force changes; 'reset': it falls back by more than elastic recovery allows (to
+   * the end of its range), exactly or within its noise, while the force changes; 'reset': it falls back by more than elastic recovery allows (to
    * zero, or to a new origin); 'jump': it rises in one sample by far more than its steps around it (the machine
    * switched the strain to another source, such as the crosshead, when the extensometer came off).
    */
@@ -32,6 +32,12 @@ export const EXTENSOMETER_END = {
   /** A rise of strain in one sample of more than this (0.5 % strain) and jumpRatio times the steps around it is a jump. */
   jumpMin: 0.005,
   jumpRatio: 20,
+  /** Highest Young's modulus of a metal, MPa (common practice: about 450 GPa at most): the least strain a change of force Δs can move a working channel by is Δs/E_HIGH. */
+  highestModulus: 450000,
+  /** Fewest samples of a channel held within its noise (a noisy held run) before the force falls. */
+  noisyHeldSamples: 10,
+  /** Samples before fracture whose second differences give the strain channel's noise. */
+  noiseSamples: 200,
 } as const;
 
 /**
@@ -53,7 +59,15 @@ export const EXTENSOMETER_END = {
  *   5) the stress changes by more than max(2 % of the highest stress, 8σ̂). A working extensometer on a specimen
  *   whose force changes by that much moves (elastically by Δs/E at least); a resolution step of a coarse channel
  *   is held for a few samples in the elastic rise only, and the channel then moves again.
- * A channel that keeps drifting with noise after removal is not recognised. Cost: O(N), one pass; with `moves`
+ * - held within its noise: the exact test finds nothing, yet over the last samples before fracture (or before a
+ *   reset, or to the end) the strain stays within max(8σ̂ₑ, Δs/(2·E_HIGH)) while the force changes by Δs, with
+ *   Δs > max(2 % of the highest stress, 8σ̂) and Δs/(2·E_HIGH) above both that strain range and 8σ̂ₑ, over at least 10
+ *   samples (σ̂ₑ: the strain channel's noise from the median second difference of the last 200 samples before
+ *   fracture, MAD-scaled; E_HIGH = 450 GPa). A working extensometer moves by at least Δs/E_HIGH for a change of force
+ *   Δs: elastically (loading or unloading) or more (plastic flow, necking); a channel that only wanders within its
+ *   noise (and a slow drift) while the force changes by that much has come off (an extensometer taken off whose
+ *   electronics keep reading). Walked back from the last loaded sample while the strain stays within that bound.
+ * Cost: O(N), one pass; with `moves`
  * (every index i, ascending, where |e[i] − e[i−1]| passes a limit no larger than resetMargin: a superset of the
  * resets and jumps) only those and the held run's length.
  * Units: strain fraction, stress and σ̂ (`noise`) MPa. Valid: finite arrays of one length, sMax > 0.
@@ -100,6 +114,8 @@ export function extensometerEnd(strain: ArrayLike<number>, stress: ArrayLike<num
     // The held reading at c is the channel's last true one; the force after it is not matched by strain.
     if (k - c >= L.heldSamples && hi - lo > heldChange) return { index: c + 1, kind: 'held', strain: v, samplesAfter: N - c - 1 };
   }
+  const quiet = noisyHeld(strain, stress, stop, carrying, heldChange, noise);
+  if (quiet >= 0) return { index: quiet + 1, kind: 'held', strain: strain[quiet]!, samplesAfter: N - quiet - 1 };
   if (reset >= 0) {
     // A reset or jump after a held run shorter than the rule (or none): the channel is read to the sample before it.
     return { index: reset, kind: strain[reset]! < strain[reset - 1]! ? 'reset' : 'jump', strain: strain[reset - 1]!, samplesAfter: N - reset };
@@ -128,4 +144,61 @@ function isJump(strain: ArrayLike<number>, stress: ArrayLike<number>, i: number,
 /** The reset test of {@link extensometerEnd} for a strain fall `fall` from the sample with stress `sp` to the one with `s`. */
 function isReset(fall: number, s: number, sp: number, carrying: number, margin: number, lowE: number): boolean {
   return s > carrying && s > 0.5 * sp && fall > margin + Math.max(0, sp - s) / lowE;
+}
+
+/**
+ * The held-within-its-noise test of {@link extensometerEnd} on the samples before `stop` (a reset, or the record's
+ * end): from the last sample still carrying (stress ≥ `carrying`; the samples after fracture and the steps of the
+ * fracture fall, each over max(6σ̂, 3 %) of the stress with σ̂ = `noise`, are passed over),
+ * walked back while the strain's range stays within max(8σ̂ₑ, Δs/(2·E_HIGH)), Δs the stress range walked so far.
+ * Returns the first sample c of that run (the channel's last reading of the specimen) when its samples before the force
+ * falls below half the run's highest (a fracture fall is no evidence: the specimen breaks at about constant strain)
+ * are at least noisyHeldSamples, the force changed over them by more than `heldChange`, and Δs/(2·E_HIGH) exceeds
+ * both the strain's range over them and 8σ̂ₑ (the stall stands clear of the noise); else −1.
+ */
+function noisyHeld(strain: ArrayLike<number>, stress: ArrayLike<number>, stop: number, carrying: number, heldChange: number, noise: number): number {
+  const L = EXTENSOMETER_END;
+  let f = stop;
+  while (f > 0 && !(stress[f - 1]! >= carrying)) f--;
+  // Back over the fracture fall's steps too (each a drop of more than max(6σ̂, 3 %) of the stress, firstFall's size
+  // rule): a sample caught on the way down had let a steadily advancing strain pass as held (hold-out B 5163).
+  while (f > 1 && stress[f - 2]! - stress[f - 1]! > Math.max(6 * noise, 0.03 * stress[f - 2]!)) f--;
+  if (f < L.noisyHeldSamples + 2) return -1;
+  const floor = 8 * strainNoise(strain, Math.max(0, f - L.noiseSamples), f);
+  const perMPa = 1 / (2 * L.highestModulus);
+  let c = f - 1;
+  let lo = strain[c]!, hi = lo, slo = stress[c]!, shi = slo;
+  while (c > 0) {
+    const e = strain[c - 1]!, s = stress[c - 1]!;
+    const nlo = e < lo ? e : lo, nhi = e > hi ? e : hi, nslo = s < slo ? s : slo, nshi = s > shi ? s : shi;
+    if (!(nhi - nlo <= Math.max(floor, (nshi - nslo) * perMPa)) || !(s >= carrying)) break;
+    lo = nlo; hi = nhi; slo = nslo; shi = nshi;
+    c--;
+  }
+  // The evidence is taken before the force falls to half the run's highest (a fracture fall, at about constant strain,
+  // must not count), as the exact test takes it.
+  let top = 0;
+  for (let k = c; k < f; k++) if (stress[k]! > top) top = stress[k]!;
+  let g = c, elo = strain[c]!, ehi = elo, ylo = stress[c]!, yhi = ylo;
+  for (; g < f && stress[g]! >= 0.5 * top; g++) {
+    const e = strain[g]!, s = stress[g]!;
+    if (e < elo) elo = e; else if (e > ehi) ehi = e;
+    if (s < ylo) ylo = s; else if (s > yhi) yhi = s;
+  }
+  const ds = yhi - ylo, bound = ds * perMPa;
+  return g - c >= L.noisyHeldSamples && ds > heldChange && bound > ehi - elo && bound > floor ? c : -1;
+}
+
+/**
+ * Noise of a strain channel on samples [from, to): the median absolute second difference
+ * |e[i+1] − 2e[i] + e[i−1]| over 1.4826·√6 (a MAD-scaled estimate of the sample noise σ that a straight or slowly
+ * curving advance does not inflate; Gasser, Sroka & Jennen-Steinmetz, *Biometrika* 73 (1986) 625–633 — from memory).
+ * 0 for fewer than 3 samples. Units: strain.
+ */
+function strainNoise(strain: ArrayLike<number>, from: number, to: number): number {
+  const d: number[] = [];
+  for (let i = from + 1; i < to - 1; i++) d.push(Math.abs(strain[i + 1]! - 2 * strain[i]! + strain[i - 1]!));
+  if (!d.length) return 0;
+  d.sort((a, b) => a - b);
+  return (1.4826 * d[d.length >> 1]!) / Math.sqrt(6);
 }

@@ -94,6 +94,8 @@ export function holdoutTally(make: (seed: number, noiseScale: number) => Holdout
     if (a.strainChannelEnd !== null) miss('falseStrainEnd', `${rec.what}: strain channel read as ending at sample ${a.strainChannelEnd.index} (${a.strainChannelEnd.kind})`);
     // Nor is any sample read as an acquisition glitch (yield drops, serrations, fracture and noise are the specimen's).
     if (a.warnings.some((w) => w.code === 'glitch')) miss('falseGlitch', `${rec.what}: ${a.warnings.find((w) => w.code === 'glitch')!.message}`);
+    // Nor as a file that starts over with a second test (testStarts): every record here is one specimen.
+    if (a.warnings.some((w) => w.code === 'secondTest')) miss('falseSecondTest', `${rec.what}: ${a.warnings.find((w) => w.code === 'secondTest')!.message}`);
     const [lo, hi] = a.measuredModulusInterval95;
     const warned = a.warnings.some((w) => w.code === 'fewElasticPoints' || w.code === 'uncertainModulus' || w.code === 'elasticBandFallback');
     if (!(lo <= t.E && t.E <= hi) && !warned && Math.abs(a.elasticModulus / t.E - 1) > 0.05 * tol) miss('quietE', `${rec.what}: E ${a.elasticModulus} off by more than 5 % outside its interval, no warning`);
