@@ -38,7 +38,11 @@ export interface TensileRecord {
    * strain column (the stress is force over the cross-section); else 'force-extension'.
    */
   basis: 'stress-strain' | 'force-strain' | 'force-extension';
-  columns: Partial<Record<Role, { name: string; column: number; unit: string }>>;
+  /**
+   * The columns read for each role. `averagedWith`: a second channel of the same quantity whose mean with this one is
+   * read (the two sides of an averaging extensometer, `Ext 1` and `Ext 2`).
+   */
+  columns: Partial<Record<Role, { name: string; column: number; unit: string; averagedWith?: { name: string; column: number } }>>;
   /** Cross-section (mm²) and gauge length (mm) used for a force–extension record; a force–strain record needs no gauge length (null). */
   geometry: { area: number; gaugeLength: number | null } | null;
   /** Metadata lines before the header. */
@@ -47,6 +51,11 @@ export interface TensileRecord {
   strainUnitGuessed?: 'fraction' | 'percent' | null;
   warnings: string[];
   layout: { delimiter: string; decimalComma: boolean; headerLine: number; unitsLine: number | null; dataLine: number };
+  /**
+   * For one of several tests in one file (the record starts over: testStarts in the core): which test, of how many,
+   * and its first and last sample (0-based, in the file's data rows). Absent for a file that holds one test.
+   */
+  test?: { index: number; of: number; fromSample: number; toSample: number };
 }
 
 /** Most data rows a record may have (memory bound: 16 bytes a row). */
@@ -58,6 +67,8 @@ interface Plan {
   /** Stress and strain; force and extension; force and strain (the machine's strain channel, stress = force/area). */
   mode: 'ss' | 'fe' | 'fs';
   a: ColumnInfo; // strain or extension
+  /** A second strain or extension channel read together with `a` (their mean): the other side of an averaging extensometer. */
+  a2: ColumnInfo | null;
   b: ColumnInfo; // stress or force
   fa: number;    // factor to fraction (strain) or mm (extension)
   fb: number;    // factor to MPa (stress) or N (force)
@@ -170,9 +181,22 @@ export class RecordBuilder {
     else this.fail(L.headerLine, 1, 'columns', `no strain and stress columns, nor force and extension (or force and strain); the header has ${names}; expected names such as strain, stress, force, extension (with units like [MPa], [%], [kN], [mm]) or an explicit column mapping`);
     const a = mode === 'fe' ? found.extension! : found.strain!;
     const b = mode === 'ss' ? found.stress! : found.force!;
+    // Two channels of the strain (or extension), alike but for a channel mark and in one unit: the two sides of an
+    // averaging extensometer. Their mean is read (it cancels the bending of a specimen gripped slightly off axis;
+    // common practice, ISO 9513 and ASTM E83 extensometers average both sides — from memory), and said.
+    let a2: ColumnInfo | null = null;
+    for (const t of tied) {
+      if (t.used !== a || t.others.length !== 1) continue;
+      const o = t.others[0]!;
+      if (opts.columns?.[mode === 'fe' ? 'extension' : 'strain'] === undefined && unitOf(o) === unitOf(a) && sameChannel(a, o)) a2 = o;
+    }
     for (const t of tied) {
       if (t.used !== a && t.used !== b) continue;
       const role = t.used === a ? (mode === 'fe' ? 'extension' : 'strain') : (mode === 'ss' ? 'stress' : 'force');
+      if (a2 && t.used === a) {
+        this.warnings.push(`the mean of ${show(a.name)} (column ${a.index + 1}) and ${show(a2.name)} (column ${a2.index + 1}) is read as the ${role}: two channels of one quantity, as an averaging extensometer gives them (the two sides of the specimen; their mean cancels bending); map one with --column ${role}=NAME (or the record bench's ${role} column choice) to read it alone`);
+        continue;
+      }
       this.warnings.push(`${t.others.length + 1} columns could be the ${role}: ${show(t.used.name)} (column ${t.used.index + 1}) is read, ${t.others.map((c) => `${show(c.name)} (column ${c.index + 1})`).join(', ')} ${t.others.length > 1 ? 'are' : 'is'} not; map another with --column ${role}=NAME (or the record bench's ${role} column choice)`);
     }
     const unitCell = (c: ColumnInfo) => ({ line: L.units ? L.unitsLine! : L.headerLine, col: c.index + 1 });
@@ -204,11 +228,11 @@ export class RecordBuilder {
       ({ area, gauge } = this.geometry(opts));
       if (isMachineTravel(a)) this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the modulus (--modulus, or the record bench's modulus field) and prefer an extensometer channel`);
     }
-    this.columns[mode === 'fe' ? 'extension' : 'strain'] = { name: a.name, column: a.index + 1, unit: unitOf(a) };
+    this.columns[mode === 'fe' ? 'extension' : 'strain'] = { name: a.name, column: a.index + 1, unit: unitOf(a), ...(a2 ? { averagedWith: { name: a2.name, column: a2.index + 1 } } : {}) };
     this.columns[mode === 'ss' ? 'stress' : 'force'] = { name: b.name, column: b.index + 1, unit: unitOf(b) };
     const trueValues = mode === 'ss' && a.isTrue && b.isTrue;
     if (trueValues) this.warnings.push('only true stress and true strain columns: converted to engineering values (s = σ/exp(ε), e = exp(ε) − 1); valid to maximum force only');
-    return { mode, a, b, fa, fb, trueValues, area, gauge };
+    return { mode, a, a2, b, fa, fb, trueValues, area, gauge };
   }
 
   private geometry(o: RecordOptions): { area: number; gauge: number } {
@@ -280,17 +304,18 @@ export class RecordBuilder {
   push(f: string[], line: number): void {
     // An empty line, or a row of empty cells (only delimiters, as spreadsheets export blank rows), is no row.
     if (f.every((c) => c.trim() === '')) return;
-    const { a, b } = this.plan;
+    const { a, a2, b } = this.plan;
     let x: number, y: number;
     try {
       x = this.cell(f, a, line);
+      if (a2) x = 0.5 * (x + this.cell(f, a2, line));
       y = this.cell(f, b, line);
     } catch (e) {
       // An extensometer taken off: after the record's first rows, the strain cell empty and the stress a number.
       // The row keeps the strain's last value (as a machine that holds the reading would write it), so the force
       // after it still counts for Rm; the analysis finds where the strain stopped (extensometerEnd) and reads Ag
       // and A before it.
-      if (this.n >= MIN_ROWS && !this.footer && (f[a.index] ?? '').trim() === '' && (f[b.index] ?? '').trim() !== '') {
+      if (this.n >= MIN_ROWS && !this.footer && (f[a.index] ?? '').trim() === '' && (!a2 || (f[a2.index] ?? '').trim() === '') && (f[b.index] ?? '').trim() !== '') {
         let held: number | null = null;
         try { held = this.cell(f, b, line); } catch { /* not a number: a footer row, below */ }
         if (held !== null) {
@@ -331,9 +356,9 @@ export class RecordBuilder {
    * What the fast row scanner needs: the 0-based columns of the two values, the header's width and
    * the decimal mark. Cells it cannot read as the located reader would are left to that reader.
    */
-  get cells(): { a: number; b: number; width: number; decimalComma: boolean; delimiter: string; dataLine: number; fa: number; fb: number } {
+  get cells(): { a: number; a2: number; b: number; width: number; decimalComma: boolean; delimiter: string; dataLine: number; fa: number; fb: number } {
     return {
-      a: this.plan.a.index, b: this.plan.b.index, width: this.width, decimalComma: this.layout.decimalComma, delimiter: this.layout.delimiter, dataLine: this.layout.dataLine,
+      a: this.plan.a.index, a2: this.plan.a2 ? this.plan.a2.index : -1, b: this.plan.b.index, width: this.width, decimalComma: this.layout.decimalComma, delimiter: this.layout.delimiter, dataLine: this.layout.dataLine,
       // The factors rows are stored with (see `early`; 1 when the builder converts in finish): for pushStored.
       fa: this.early ? this.fa : 1, fb: this.early ? this.fb : 1,
     };
@@ -549,4 +574,16 @@ function convertColumns(xs: Float64Array, ys: Float64Array, n: number, p: Plan, 
     maxS = Math.max(maxS, Math.abs(s));
   }
   return maxS;
+}
+
+/**
+ * True when two columns name one quantity on two channels: their names, lower case, are the same but for a channel
+ * mark at the end or the start (a number, a letter A/B or L/R, left/right, front/back, top/bottom, upper/lower, side),
+ * as `Extensometer 1` and `Extensometer 2`, `Strain A` and `Strain B`, `Left extension` and `Right extension`.
+ */
+export function sameChannel(a: ColumnInfo, b: ColumnInfo): boolean {
+  const MARK = '(?:\\d+|[abcdlr]|left|right|front|back|top|bottom|upper|lower|side [ab12])';
+  const strip = (s: string) => s.replace(new RegExp(`(?:(?:^|\\s)(?:ch(?:annel)? ?)?${MARK}|\\d+)$`), '').replace(new RegExp(`^${MARK}\\s`), '').trim();
+  const x = strip(a.base), y = strip(b.base);
+  return x !== '' && x === y && a.base !== b.base;
 }

@@ -105,6 +105,9 @@ export function roleScore(c: ColumnInfo, role: Role, unitHint: string): number {
       if (/\bstrain\b|^epsilon$/.test(b) && lengthUnit) return 0;
       if (/\bstrain\b|^epsilon$/.test(b)) return 10 + eng * 5 + (/^(eng(ineering)? |axial |longitudinal )?strain$/.test(b) ? 2 : 0) - (/rate/.test(b) ? 20 : 0) - (/lateral|transverse|width|thickness/.test(b) ? 9 : 0);
       if (/^elongation$|^elong$/.test(b) && !lengthUnit) return 8;
+      // An extensometer channel written as a strain (`Extensometer [%]`, `Ext. 1 (mm/mm)`): the machine already divided
+      // by the gauge length (common practice in exports), so it is the strain, below a column named strain.
+      if (/\bextension\b|\bextensometer\b|\bext\b/.test(b) && !lengthUnit && sym('strain')) return 9;
       return 0;
     case 'force':
       if (/^f$/.test(b) && sym('force')) return 9;
@@ -114,9 +117,10 @@ export function roleScore(c: ColumnInfo, role: Role, unitHint: string): number {
       if (/\bstrain\b/.test(b) && lengthUnit) return 9;
       // The machine's own travel (crosshead, stroke, actuator position) only when nothing better is there: it holds
       // the compliance of the machine and grips (isMachineTravel; the reader warns).
-      if (isMachineTravel(c) && lengthUnit && !/\bextension\b|\bdisplacement\b|\belongation\b|\bextensometer\b|\bdeformation\b/.test(b)) return 3;
-      if (!/\bextension\b|\bdisplacement\b|\belongation\b|\bextensometer\b|\bdeformation\b/.test(b)) return 0;
+      if (isMachineTravel(c) && lengthUnit && !/\bextension\b|\bdisplacement\b|\belongation\b|\bextensometer\b|\bext\b|\bdeformation\b/.test(b)) return 3;
+      if (!/\bextension\b|\bdisplacement\b|\belongation\b|\bextensometer\b|\bext\b|\bdeformation\b/.test(b)) return 0;
       if (/elongation/.test(b) && !lengthUnit && unitHint !== '') return 0;
+      if (!lengthUnit && sym('strain')) return 0; // in a strain unit: the strain role takes it
       return 10 - (isMachineTravel(c) ? 6 : 0) + (/^(extension|displacement)$/.test(b) ? 2 : 0);
     }
     case 'time': return /^time\b|\btime$/.test(b) ? 10 : 0;

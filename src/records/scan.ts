@@ -29,11 +29,14 @@ export class RowScanner {
   private readonly comma: boolean;
   private readonly dataLine: number;
 
+  private readonly a2: number;
+
   constructor(private readonly builder: RecordBuilder) {
     const c = builder.cells;
     this.a = c.a;
+    this.a2 = c.a2;
     this.b = c.b;
-    this.last = Math.max(c.a, c.b);
+    this.last = Math.max(c.a, c.b, c.a2);
     this.delim = c.delimiter;
     this.comma = c.decimalComma;
     this.dataLine = c.dataLine;
@@ -89,7 +92,7 @@ export class RowScanner {
 
   /** One line [from, to): pushes its two numbers, skips a blank line; false when the line needs the located reader. */
   private row(text: string, from: number, to: number, d: string, line: number): boolean {
-    let x = NaN, y = NaN;
+    let x = NaN, y = NaN, x2 = NaN;
     let start = from;
     for (let col = 0; col <= this.last; col++) {
       let stop = text.indexOf(d, start);
@@ -100,16 +103,18 @@ export class RowScanner {
           return col === 0 && text.slice(from, to).trim() === '';
         }
       }
-      if (col === this.a || col === this.b) {
+      if (col === this.a || col === this.b || col === this.a2) {
         let v: number | null = decimal(text, start, stop, this.comma ? 44 : 46);
         if (v !== v) v = this.number(text.slice(start, stop)); // NaN: not the plain form, ask the general reader
         if (v === null) return false;
         if (col === this.a) x = v;
         if (col === this.b) y = v;
+        if (col === this.a2) x2 = v;
       }
       start = stop + 1;
     }
-    this.builder.pushValues(x, y, line);
+    // Two channels averaged (RecordBuilder.push: the same arithmetic, so the same numbers as the located reader).
+    this.builder.pushValues(this.a2 >= 0 ? 0.5 * (x + x2) : x, y, line);
     return true;
   }
 
@@ -119,7 +124,7 @@ export class RowScanner {
    * plain cell, a quote not closed on the line) is for the located reader. The used cells are read as plain ones.
    */
   private quotedRow(text: string, from: number, to: number, d: string, line: number): boolean {
-    let x = NaN, y = NaN;
+    let x = NaN, y = NaN, x2 = NaN;
     let i = from;
     for (let col = 0; ; col++) {
       while (i < to && (text.charCodeAt(i) === 32 || text.charCodeAt(i) === 9) && text[i] !== d) i++;
@@ -139,11 +144,11 @@ export class RowScanner {
         if (qq !== -1 && qq < e) return false;
         i = e;
       }
-      if (col === this.a || col === this.b) {
+      if (col === this.a || col === this.b || col === this.a2) {
         let v: number | null = decimal(text, s, e, this.comma ? 44 : 46);
         if (v !== v) v = this.number(text.slice(s, e));
         if (v === null) return false;
-        if (col === this.a) x = v; else y = v;
+        if (col === this.a) x = v; else if (col === this.b) y = v; else x2 = v;
       }
       if (i >= to) {
         if (col < this.last) return false; // fewer fields than needed (a blank line has no quote)
@@ -151,7 +156,7 @@ export class RowScanner {
       }
       i++; // past the delimiter
     }
-    this.builder.pushValues(x, y, line);
+    this.builder.pushValues(this.a2 >= 0 ? 0.5 * (x + x2) : x, y, line);
     return true;
   }
 
@@ -336,9 +341,12 @@ export class ByteRowScanner {
   private readonly comma: boolean;
   private readonly dataLine: number;
 
+  private readonly a2: number;
+
   constructor(private readonly builder: RecordBuilder) {
     const c = builder.cells;
     this.a = c.a;
+    this.a2 = c.a2;
     this.b = c.b;
     this.last = Math.max(c.a, c.b);
     this.delim = c.delimiter.charCodeAt(0);
@@ -354,6 +362,7 @@ export class ByteRowScanner {
    * readers must take over.
    */
   scan(bytes: Uint8Array, from: number, to: number, final: boolean): number {
+    if (this.a2 >= 0) return -1; // two channels averaged: RowScanner reads them (its hot loop here stays two cells)
     if (!(to < bytes.length)) throw new RangeError(`ByteRowScanner.scan: to ${to} must be below the buffer's length ${bytes.length} (one spare byte for the end mark)`);
     const kept = bytes[to]!;
     bytes[to] = 10; // the end mark: row() stops there without a bound check

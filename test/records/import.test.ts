@@ -159,11 +159,16 @@ describe('parseRecordText(text) reads what labs export', () => {
     const bad = ['Strain [%],Stress [MPa],Time [s]', ...ROWS.map(([e, s]) => `${e},${s},n/a`)].join('\n') + '\n';
     expect(() => parseRecordText(bad, { file: 'b.csv' })).toThrow(/header only: no rows of numbers/);
   });
-  it('two channels of one kind (Strain 1, Strain 2): the first is read and a warning names both and how to map the other', () => {
-    const r = check(['Strain 1 [%],Strain 2 [%],Stress [MPa]', ...ROWS.map(([e, s]) => `${e},${e * 1.05},${s}`)].join('\n') + '\n');
-    expect(r.columns.strain).toMatchObject({ name: 'Strain 1 [%]' });
-    expect(r.warnings.join(' ')).toMatch(/2 columns could be the strain: "Strain 1 \[%\]" \(column 1\) is read, "Strain 2 \[%\]" \(column 2\) is not; map another with --column strain=NAME/);
-    expect(check(csv('Strain [%],Stress [MPa]')).warnings.join(' ')).not.toMatch(/could be/);
+  it('two channels of one kind (Strain 1, Strain 2, one unit): their mean is read (an averaging extensometer) and a warning says how to map one', () => {
+    const text = ['Strain 1 [%],Strain 2 [%],Stress [MPa]', ...ROWS.map(([e, s]) => `${e},${e * 1.05},${s}`)].join('\n') + '\n';
+    const r = parseRecordText(text, { file: 'x.csv' });
+    expect(r.columns.strain).toMatchObject({ name: 'Strain 1 [%]', averagedWith: { name: 'Strain 2 [%]', column: 2 } });
+    ROWS.forEach(([e], i) => expect(r.strain[i]).toBeCloseTo((0.5 * (e + e * 1.05)) / 100, 14));
+    expect(r.warnings.join(' ')).toMatch(/the mean of "Strain 1 \[%\]" \(column 1\) and "Strain 2 \[%\]" \(column 2\) is read as the strain.*--column strain=NAME/);
+    // Mapped explicitly: that channel alone.
+    const one = parseRecordText(text, { file: 'x.csv', columns: { strain: 'Strain 2 [%]' } });
+    ROWS.forEach(([e], i) => expect(one.strain[i]).toBeCloseTo((e * 1.05) / 100, 14));
+    expect(check(csv('Strain [%],Stress [MPa]')).warnings.join(' ')).not.toMatch(/could be|the mean of/);
   });
   it('a spreadsheet\'s UTF-16 text export: UTF-16 LE or BE with its byte-order mark (Unicode Standard §23.8) reads as the UTF-8 file', async () => {
     const text = csv('Strain [%]\tStress [MPa]', '\t', ',').replace(/\n/g, '\r\n');
