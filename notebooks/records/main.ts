@@ -159,7 +159,7 @@ nb.cell({ name: 'input', fn: () => null })
       const c = p.record.columns;
       return h('div', {},
         p.input.demo ? h('p', { class: 'sl-invented', id: 'demo-note' }, 'INVENTED demo record (generated from a known law, not a test): drop your own export above.') : null,
-        h('p', { id: 'record-summary' }, `${p.input.name}: ${p.record.rows} rows, ${p.record.basis === 'stress-strain' ? 'stress and strain columns' : p.record.basis === 'force-strain' ? `force and strain columns, stress = force / ${p.record.geometry!.area.toPrecision(4)} mm²` : 'force and extension columns'} (${Object.entries(c).map(([k, v]) => `${k}: "${v!.name}" ${v!.unit}`).join('; ')}).`),
+        h('p', { id: 'record-summary' }, `${p.input.name}: ${p.record.rows} rows, ${p.record.basis === 'stress-strain' ? 'stress and strain columns' : p.record.basis === 'force-strain' ? `force and strain columns, stress = force / ${p.record.geometry!.area.toPrecision(4)} mm²` : 'force and extension columns'} (${Object.entries(c).map(([k, v]) => `${k}: ${v!.averagedWith ? `the mean of "${v!.name}" and "${v!.averagedWith.name}"` : `"${v!.name}"`} ${v!.unit}`).join('; ')}).`),
         p.record.warnings.length ? h('ul', { class: 'sl-notice' }, ...p.record.warnings.map((w) => h('li', {}, w))) : null);
     },
   })

@@ -17,15 +17,18 @@ function thin(n: number): number[] {
  * The record as engineering stress against engineering strain (in %), with the elastic window
  * (where E was fitted) drawn thick. Strains are shown as recorded (before toe compensation). Where the
  * strain channel ended before fracture (extensometer taken off) the curve stops there, at a dotted line
- * that says so: the samples after it have force but no strain of the specimen.
+ * that says so: the samples after it have force but no strain of the specimen. Of a record that holds several tests
+ * (`furtherTests`) only the first, the one analysed, is drawn.
  */
 export function recordCurveChart(
   record: { strain: ArrayLike<number>; stress: ArrayLike<number> },
-  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null },
+  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null; furtherTests?: readonly number[] },
   o: { width?: number; height?: number; document?: Document } = {},
 ): SVGSVGElement | HTMLElement {
   const end = analysis.strainChannelEnd ?? null;
-  const idx = thin(end ? end.index : record.strain.length);
+  // A record that holds several tests: the first, the one analysed (a line on to the next test's start would cross the chart).
+  const samples = Math.min(record.strain.length, analysis.furtherTests?.[0] ?? Infinity);
+  const idx = thin(end ? end.index : samples);
   const pts = idx.map((i) => ({ e: record.strain[i]! * 100, s: record.stress[i]! }));
   const w = analysis.elasticWindow;
   const win: { e: number; s: number }[] = [];

@@ -27,7 +27,7 @@ export function splitTests(rec: TensileRecord, first: TensileAnalysis, analyze: 
       test: { index: k + 1, of: m, fromSample: from, toSample: to - 1 },
       warnings: [...rec.warnings, `test ${k + 1} of ${m} in this file: samples ${from}–${to - 1} of its data (the record starts over where strain and stress fall back near zero and the stress rises again; each test is analysed as a specimen of its own)`],
     };
-    out.push({ record, analysis: k === 0 ? { ...first, warnings: first.warnings.slice(1) } : analyze(record) });
+    out.push({ record, analysis: k === 0 ? { ...first, warnings: first.warnings.slice(1), furtherTests: [] } : analyze(record) });
   }
   return out;
 }

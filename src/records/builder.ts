@@ -58,6 +58,12 @@ export interface TensileRecord {
   test?: { index: number; of: number; fromSample: number; toSample: number };
 }
 
+/**
+ * Two averaged channels whose largest values differ by more than this factor are not two sides of one extensometer
+ * (bending moves the sides apart by a few per cent of the strain, common practice; 1.5 leaves a wide margin).
+ */
+export const CHANNEL_RATIO = 1.5;
+
 /** Most data rows a record may have (memory bound: 16 bytes a row). */
 export const MAX_ROWS = 50_000_000;
 /** A strain beyond this (as a fraction) is not a tensile strain: the columns are likely swapped or the unit wrong. */
@@ -119,6 +125,9 @@ export class RecordBuilder {
   private held: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
   /** How a strain column without a unit was read (by its largest value), or null when the unit was known. */
   private strainUnitGuessed: 'fraction' | 'percent' | null = null;
+  /** Two channels averaged: each one's value of largest magnitude so far (see {@link channels}). */
+  private ch1 = 0;
+  private ch2 = 0;
 
   constructor(layout: Layout, opts: RecordOptions) {
     this.file = opts.file ?? 'record';
@@ -308,7 +317,7 @@ export class RecordBuilder {
     let x: number, y: number;
     try {
       x = this.cell(f, a, line);
-      if (a2) x = 0.5 * (x + this.cell(f, a2, line));
+      if (a2) { const x2 = this.cell(f, a2, line); this.channels(x, x2); x = 0.5 * (x + x2); }
       y = this.cell(f, b, line);
     } catch (e) {
       // An extensometer taken off: after the record's first rows, the strain cell empty and the stress a number.
@@ -396,6 +405,15 @@ export class RecordBuilder {
   }
 
   /** Adds the two numbers of one data row found at 1-based `line` (already checked as {@link push} checks cells). */
+  /**
+   * Notes one row's two averaged channels (`a` and `a2`) before their mean is pushed: finish refuses a pair that does
+   * not read one quantity (its largest values of opposite sign or more than CHANNEL_RATIO apart).
+   */
+  channels(x1: number, x2: number): void {
+    if (Math.abs(x1) > Math.abs(this.ch1)) this.ch1 = x1;
+    if (Math.abs(x2) > Math.abs(this.ch2)) this.ch2 = x2;
+  }
+
   pushValues(x: number, y: number, line: number): void {
     if (this.n === this.xs.length) {
       if (this.n >= MAX_ROWS) this.fail(line, 1, '', `more than ${MAX_ROWS} data rows; split the record`);
@@ -453,6 +471,14 @@ export class RecordBuilder {
       this.warnings.push(ft.results
         ? `${span} after the data hold a results table (from ${show(ft.first.slice(0, 40))}): read as a footer and left out; the record ends at line ${this.lastLine}`
         : `${span} after the data ${ft.rows === 1 ? 'is not a row' : 'are not rows'} of numbers (first: ${why}): read as a footer and left out; the record ends at line ${this.lastLine}`);
+    }
+    if (p.a2) {
+      // Two sides of one extensometer agree to within the bending of the specimen (a few per cent); a pair whose largest
+      // values differ in sign or by more than CHANNEL_RATIO is two quantities (an axial and a transverse strain, say).
+      const [u, v] = [Math.abs(this.ch1), Math.abs(this.ch2)];
+      if (this.ch1 * this.ch2 <= 0 || Math.max(u, v) > CHANNEL_RATIO * Math.min(u, v)) {
+        this.fail(L.headerLine, p.a2.index + 1, p.a2.name, `${show(p.a.name)} and ${show(p.a2.name)} look like two channels of one extensometer, but their largest values (${+this.ch1.toPrecision(4)} and ${+this.ch2.toPrecision(4)}) ${this.ch1 * this.ch2 <= 0 ? 'differ in sign' : `differ by more than ${CHANNEL_RATIO}×`}: not the two sides of one specimen; map the axial one with --column ${p.mode === 'fe' ? 'extension' : 'strain'}=NAME (or the record bench's column choice)`);
+      }
     }
     const hd = this.held;
     if (hd) {

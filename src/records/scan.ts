@@ -114,7 +114,8 @@ export class RowScanner {
       start = stop + 1;
     }
     // Two channels averaged (RecordBuilder.push: the same arithmetic, so the same numbers as the located reader).
-    this.builder.pushValues(this.a2 >= 0 ? 0.5 * (x + x2) : x, y, line);
+    if (this.a2 >= 0) { this.builder.channels(x, x2); x = 0.5 * (x + x2); }
+    this.builder.pushValues(x, y, line);
     return true;
   }
 
@@ -156,7 +157,8 @@ export class RowScanner {
       }
       i++; // past the delimiter
     }
-    this.builder.pushValues(this.a2 >= 0 ? 0.5 * (x + x2) : x, y, line);
+    if (this.a2 >= 0) { this.builder.channels(x, x2); x = 0.5 * (x + x2); }
+    this.builder.pushValues(x, y, line);
     return true;
   }
 

@@ -280,4 +280,33 @@ describe('record bench', () => {
     expect(await page.locator('[data-q="tensileStrength"]').innerText()).not.toContain('≥');
     expect(errors).toEqual([]);
   });
+
+  it('two extensometer channels are read as their mean, and a file of three specimens shows the first with the warning and only its curve', async () => {
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    // 46NT71 as force and two extension channels, the specimen bent 4 % at the start of loading (each side off by 4 %).
+    const lines = readFileSync(FIXTURE, 'utf8').split(/\r?\n/);
+    const head = lines.findIndex((l) => l.startsWith('Time\t'));
+    const rows = lines.slice(head + 2).filter((l) => l.trim() !== '').map((l) => l.split('\t'));
+    let two = 'Diameter: 5.003 mm\nGauge length: 25 mm\nTime [s];Force [kN];Extensometer 1 [mm];Extensometer 2 [mm]\n';
+    for (const c of rows) { const d = +c[1]!; const b = 0.04 * Math.max(0, 1 - d / 0.5); two += `${c[0]};${c[2]};${(d * (1 + b)).toFixed(7)};${(d * (1 - b)).toFixed(7)}\n`; }
+    await dropFile(page, 'two-sides.csv', two);
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('two-sides'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expect(await page.locator('#record-summary').innerText()).toContain('the mean of "Extensometer 1 [mm]" and "Extensometer 2 [mm]"');
+    // The published record's E from this page (204.2 GPa in the analyze table; its own strain is that mean).
+    expectRelClose(await num(page, 'elasticModulus'), 204.2, 3e-3, 'E');
+    // Three open records in one file (46NT71, 46NT73, 46NTBL; MaterialDigital, CC BY 4.0): the first is analysed.
+    const data = (n: string) => { const l = readFileSync(join(REPO, 'test', 'fixtures', '42crmos4', `${n}.csv`), 'utf8').split(/\r?\n/); const k = l.findIndex((x) => x.startsWith('Time\t')); return l.slice(k + 2).filter((x) => x.trim() !== '').join('\n'); };
+    await dropFile(page, 'three-specimens.csv', readFileSync(FIXTURE, 'utf8').trimEnd() + '\n' + data('46NT73') + '\n' + data('46NTBL') + '\n');
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('three-specimens'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expectRelClose(await num(page, 'tensileStrength'), 1198.7, 1e-3, 'Rm of the first specimen (46NT71)');
+    expect(await page.locator('#cell-properties').innerText()).toMatch(/the record starts over 2 times .* read as 3 tests in one file\. Only the first/);
+    // Its curve only: one line of 768 vertices (the first test's samples), none back from one test's end to the next.
+    const vertices = await page.locator('#cell-curve-chart svg path').evaluateAll((ps) => Math.max(...ps.map((p) => (p.getAttribute('d') ?? '').split(/[ML]/).filter(Boolean).length)));
+    expect(vertices).toBe(768);
+    await page.screenshot({ path: `${SCREENSHOTS}/records-three-specimens.png`, fullPage: true });
+    expect(errors).toEqual([]);
+  });
 });

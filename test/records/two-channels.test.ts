@@ -83,6 +83,19 @@ describe('a record with two extensometer channels', () => {
     expect(a.strainChannelEnd?.kind).toBe('held');
   });
 
+  it('a pair named alike that is not one quantity (an axial and a transverse strain): refused, located, with how to map one', async () => {
+    // INVENTED: Strain 1 the axial strain, Strain 2 a width strain (−0.3 of it) named only by number.
+    const text = 'Strain 1 [%];Strain 2 [%];Stress [MPa]\n' + Array.from({ length: 40 }, (_, i) => `${(0.1 * i).toFixed(2)};${(-0.03 * i).toFixed(3)};${Math.min(200 * i, 300 + 10 * i)}`).join('\n') + '\n';
+    expect(() => parseRecordText(text, { file: 'x.csv' })).toThrow(/x\.csv:1:2: .*"Strain 1 \[%\]" and "Strain 2 \[%\]" look like two channels of one extensometer, but their largest values \(3\.9 and -1\.17\) differ in sign.*--column strain=NAME/);
+    const dir = mkdtempSync(join(tmpdir(), 'sl-two-'));
+    writeFileSync(join(dir, 'x.csv'), text);
+    await expect(readRecordFile(join(dir, 'x.csv'))).rejects.toThrow(/differ in sign/);
+    // 2.2 times as large on one side: refused too; mapped explicitly, the axial channel reads.
+    const twice = 'Strain 1 [%];Strain 2 [%];Stress [MPa]\n' + Array.from({ length: 40 }, (_, i) => `${(0.1 * i).toFixed(2)};${(0.22 * i).toFixed(3)};${Math.min(200 * i, 300 + 10 * i)}`).join('\n') + '\n';
+    expect(() => parseRecordText(twice, { file: 'x.csv' })).toThrow(/differ by more than 1\.5×/);
+    expect(parseRecordText(text, { file: 'x.csv', columns: { strain: 'Strain 1 [%]' } }).strain[10]).toBeCloseTo(0.01, 12);
+  });
+
   it('channels in different units are not averaged (the first is read, with the old warning)', () => {
     const t = twoSides(0.02).replace('Extensometer 2 [mm]', 'Extensometer 2 [in]');
     const rec = parseRecordText(t, { file: 'two.csv' });

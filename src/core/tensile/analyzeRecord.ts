@@ -135,6 +135,7 @@ function firstTestOnly(data: TensileData, starts: number[], opts: AnalyzeOptions
   if (k < 10) throw new InputError('points', k, 'at least 10 points in the first test of a record that holds more than one');
   const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, k) : Array.prototype.slice.call(a, 0, k) as number[]);
   const a = analyzeRecord({ strain: head(data.strain), stress: head(data.stress) }, opts);
+  a.furtherTests = starts.slice();
   const list = starts.slice(0, 5).map((i) => `sample ${i}`).join(', ');
   a.warnings.unshift({
     code: 'secondTest',
@@ -433,6 +434,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     },
     lowerBounds,
     strainChannelEnd: tail ? { ...tail.end } : null,
+    furtherTests: [],
     forceTop: force && maxInTail ? { stress: force.top.stress, index: force.top.index, points: force.top.points, method: 'top model of the force against sample number (uniform in time) past the strain channel\'s end, fitted as the top against strain is' } : null,
     nValue: nFit?.n ?? null,
     K: nFit?.K ?? null,

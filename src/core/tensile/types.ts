@@ -146,6 +146,11 @@ export interface TensileAnalysis {
   lowerBounds: ('tensileStrength' | 'uniformElongationPct' | 'uniformTotalElongationPct' | 'totalElongationPct')[];
   /** Where the strain channel stopped following the specimen while the force went on (extensometer taken off, reset, out of range); null when it followed it to the end. Strain-based properties are read before it. */
   strainChannelEnd: ExtensometerEnd | null;
+  /**
+   * Where each further test begins in a record that holds several (testStarts; warning `secondTest`): sample indices,
+   * ascending. The analysis is of the samples before the first of them. Empty for a record of one test.
+   */
+  furtherTests: number[];
   /** Rm read from the force alone past the strain channel's end (its top against sample number); null otherwise. `index` is the whole record's. */
   forceTop: { stress: number; index: number; points: number; method: string } | null;
   nValue: number | null;

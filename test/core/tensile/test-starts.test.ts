@@ -6,6 +6,8 @@ import { describe, expect, it } from 'vitest';
 import { analyzeRecord, synthesizeRecord, xoshiro128ss, type LawSpec } from '../../../src/core/index.js';
 import { testStarts } from '../../../src/core/tensile/testStarts.js';
 import { parseRecordText } from '../../../src/records/parse.js';
+import { recordCurveChart } from '../../../src/charts/records.js';
+import { parseHTML } from 'linkedom';
 
 // Several specimens exported one after another into one file, with no header between them. Read as one test, the
 // second specimen's elastic rise had been taken for an unload–reload cycle of the first (chord E 6.8 GPa, a negative
@@ -45,6 +47,13 @@ describe('a record that holds several tests (testStarts)', () => {
     expect(a.warnings[0]!.message).toContain(`sample ${n0}, sample ${n0 + n1}`);
     expect(a.warnings[0]!.message).toContain('3 tests');
     expect(a.cycles).toHaveLength(0);
+    expect(a.furtherTests).toEqual([n0, n0 + n1]);
+    // The record bench's curve chart draws the first test only: one vertex per sample of it (768, under the chart's
+    // 2,000-point thinning), not the 2,212 of the file with lines running back from one test's end to the next start.
+    const { document } = parseHTML('<!doctype html><html><body></body></html>');
+    const svg = recordCurveChart(stacked, a, { document: document as unknown as Document });
+    const paths = [...(svg as unknown as Element).querySelectorAll('path')].map((p) => (p.getAttribute('d') ?? '').split(/[ML]/).filter(Boolean).length);
+    expect(Math.max(...paths)).toBe(n0);
     // Reference: the producers' Rm of 46NT71, "Ultimate tensile strength: 1198.73 MPa" in the file's header (0.1 %, as open-data.test.ts).
     expect(Math.abs(a.tensileStrength / 1198.73 - 1)).toBeLessThan(1e-3);
   });
