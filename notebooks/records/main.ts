@@ -18,7 +18,7 @@ import { sig4 } from '../../src/core/numeric/sig4.js';
 pageChrome('records/', 'Record bench');
 
 interface Input { name: string; text: string; demo?: boolean }
-type Parsed = { ok: true; input: Input; record: TensileRecord; analysis: TensileAnalysis | null; analysisError: unknown } | { ok: false; input: Input; error: unknown };
+type Parsed = { ok: true; input: Input; record: TensileRecord; analysis: TensileAnalysis | null; analysisError: unknown; tests: { count: number; shown: number } } | { ok: false; input: Input; error: unknown };
 
 /** The error a worker sent as data, as the class the error cells know. */
 function rebuild(e: WorkerError): Error {
@@ -35,7 +35,7 @@ function rebuild(e: WorkerError): Error {
 let worker: Worker | null = null;
 let nextId = 0;
 const waiting = new Map<number, (r: WorkerReply) => void>();
-function readInWorker(input: Input, options: RecordOptions): Promise<WorkerReply> {
+function readInWorker(input: Input, options: RecordOptions, test: number): Promise<WorkerReply> {
   if (!worker) {
     worker = new Worker(new URL('./worker.ts', import.meta.url), { type: 'module' });
     worker.onmessage = (e: MessageEvent<WorkerReply>) => { waiting.get(e.data.id)?.(e.data); waiting.delete(e.data.id); };
@@ -49,7 +49,7 @@ function readInWorker(input: Input, options: RecordOptions): Promise<WorkerReply
   const id = ++nextId;
   return new Promise((resolve) => {
     waiting.set(id, resolve);
-    const msg: WorkerRequest = { id, name: input.name, text: input.text, options };
+    const msg: WorkerRequest = { id, name: input.name, text: input.text, options, test };
     worker!.postMessage(msg);
   });
 }
@@ -74,10 +74,10 @@ if (examples.length) {
   byId('record-input').append(h('div', { class: 'sl-input' }, ex, h('button', { type: 'button', id: 'load-example', onclick: () => { const [p, t] = examples[ex.value]!; load({ name: p.split('/').pop()!, text: t, demo: true }, {}); } }, 'open')));
 }
 
-function load(input: Input, opts: RecordOptions): void {
+function load(input: Input, opts: RecordOptions, test = 1): void {
   current = input;
   options = opts;
-  nb.set('input', { input, options: opts });
+  nb.set('input', { input, options: opts, test });
   drawMapping();
 }
 
@@ -135,6 +135,19 @@ function applyMapping(): void {
   load(current, o);
 }
 
+/**
+ * The choice of test in a file that holds several (specimens one after another): which one the page shows, each read
+ * and analysed as a record of its own in the worker.
+ */
+function testChoice(p: Extract<Parsed, { ok: true }>): HTMLElement {
+  const sel = h('select', { id: 'test-choice' }, ...Array.from({ length: p.tests.count }, (_, i) => h('option', { value: String(i + 1) }, `test ${i + 1} of ${p.tests.count}`))) as HTMLSelectElement;
+  sel.value = String(p.tests.shown);
+  sel.addEventListener('change', () => load(p.input, options, Number(sel.value)));
+  return h('div', { class: 'sl-input', id: 'tests' },
+    h('p', {}, `This file holds ${p.tests.count} tests, one after another (the record starts over where strain and stress fall back near zero and the stress rises again). Each is analysed on its own; showing test ${p.tests.shown}.`),
+    h('label', { for: 'test-choice' }, 'test shown '), sel);
+}
+
 /** (max − min)/min·100 over the given stresses, as text; '—' when fewer than two. */
 function spreadAll(xs: (number | undefined)[]): string {
   const v = xs.filter((x): x is number => x !== undefined && x > 0);
@@ -146,11 +159,11 @@ nb.cell({ name: 'input', fn: () => null })
     // Reading and analysing run in the worker. This cell never rejects: a malformed record is shown
     // as an error here while the last good record (and everything computed from it) stays on screen.
     name: 'parsed', inputs: ['input'], into: 'cell-import',
-    fn: async (x: { input: Input; options: RecordOptions } | null): Promise<Parsed | null> => {
+    fn: async (x: { input: Input; options: RecordOptions; test: number } | null): Promise<Parsed | null> => {
       if (!x) return null;
-      const r = await readInWorker(x.input, x.options);
+      const r = await readInWorker(x.input, x.options, x.test);
       if (!r.ok) return { ok: false, input: x.input, error: rebuild(r.error) };
-      return { ok: true, input: x.input, record: r.record, analysis: r.analysis, analysisError: r.analysisError ? rebuild(r.analysisError) : null };
+      return { ok: true, input: x.input, record: r.record, analysis: r.analysis, analysisError: r.analysisError ? rebuild(r.analysisError) : null, tests: r.tests };
     },
     render: (v) => {
       const p = v as Parsed | null;
@@ -160,7 +173,8 @@ nb.cell({ name: 'input', fn: () => null })
       return h('div', {},
         p.input.demo ? h('p', { class: 'sl-invented', id: 'demo-note' }, 'INVENTED demo record (generated from a known law, not a test): drop your own export above.') : null,
         h('p', { id: 'record-summary' }, `${p.input.name}: ${p.record.rows} rows, ${p.record.basis === 'stress-strain' ? 'stress and strain columns' : p.record.basis === 'force-strain' ? `force and strain columns, stress = force / ${p.record.geometry!.area.toPrecision(4)} mm²` : 'force and extension columns'} (${Object.entries(c).map(([k, v]) => `${k}: ${v!.averagedWith ? `the mean of "${v!.name}" and "${v!.averagedWith.name}"` : `"${v!.name}"`} ${v!.unit}`).join('; ')}).`),
-        p.record.warnings.length ? h('ul', { class: 'sl-notice' }, ...p.record.warnings.map((w) => h('li', {}, w))) : null);
+        p.record.warnings.length ? h('ul', { class: 'sl-notice' }, ...p.record.warnings.map((w) => h('li', {}, w))) : null,
+        p.tests.count > 1 ? testChoice(p) : null);
     },
   })
   .cell({

@@ -13,10 +13,25 @@ export type WorkerError =
   | { kind: 'input'; path: string; value: unknown; allowed: string; message: string }
   | { kind: 'other'; message: string };
 
-export interface WorkerRequest { id: number; name: string; text: string; options: RecordOptions }
+/** `test`: which test of a file that holds several (1-based; testStarts in the core), default the first. */
+export interface WorkerRequest { id: number; name: string; text: string; options: RecordOptions; test?: number }
+/** `tests`: how many tests the file holds and which one `record` and `analysis` are (1-based). */
 export type WorkerReply =
-  | { id: number; ok: true; record: TensileRecord; analysis: TensileAnalysis | null; analysisError: WorkerError | null }
+  | { id: number; ok: true; record: TensileRecord; analysis: TensileAnalysis | null; analysisError: WorkerError | null; tests: { count: number; shown: number } }
   | { id: number; ok: false; error: WorkerError };
+
+/**
+ * Test `k` (1-based) of a record whose further tests start at `starts`: its samples as a record of their own, named
+ * `NAME (test k of n)`, with its sample range in `test` (as the command line splits such a file).
+ */
+function testOf(record: TensileRecord, starts: readonly number[], k: number): TensileRecord {
+  const bounds = [0, ...starts, record.strain.length];
+  const from = bounds[k - 1]!, to = bounds[k]!;
+  return {
+    ...record, name: `${record.name} (test ${k} of ${bounds.length - 1})`, strain: record.strain.subarray(from, to), stress: record.stress.subarray(from, to),
+    rows: to - from, test: { index: k, of: bounds.length - 1, fromSample: from, toSample: to - 1 },
+  };
+}
 
 function plain(e: unknown): WorkerError {
   if (e instanceof PlanError) return { kind: 'plan', problems: e.problems };
@@ -43,7 +58,7 @@ export function buffersOf(x: unknown, out: Set<ArrayBuffer> = new Set(), seen: S
 }
 
 self.onmessage = (e: MessageEvent<WorkerRequest>) => {
-  const { id, name, text, options } = e.data;
+  const { id, name, text, options, test } = e.data;
   const post = (r: WorkerReply) => (self as unknown as Worker).postMessage(r, [...buffersOf(r)]);
   let record: TensileRecord;
   try {
@@ -52,8 +67,20 @@ self.onmessage = (e: MessageEvent<WorkerRequest>) => {
     post({ id, ok: false, error: plain(err) });
     return;
   }
+  let tests = { count: 1, shown: 1 };
   try {
-    const analysis = analyzeRecord(record);
+    let analysis = analyzeRecord(record);
+    // A file of several tests: the first is analysed by analyzeRecord (furtherTests says where the others start); another
+    // one asked for is cut out and analysed as a record of its own.
+    if (analysis.furtherTests.length) {
+      const starts = analysis.furtherTests;
+      const k = Math.min(Math.max(1, Math.round(test ?? 1)), starts.length + 1);
+      tests = { count: starts.length + 1, shown: k };
+      if (k > 1) {
+        record = testOf(record, starts, k);
+        analysis = analyzeRecord(record);
+      }
+    }
     // Residuals travel as Float64Arrays (a typed array is copied in one block; a plain array of
     // 100,000 numbers element by element).
     if (analysis.fits) for (const f of analysis.fits.fits) (f as { residuals: unknown }).residuals = Float64Array.from(f.residuals);
@@ -62,12 +89,12 @@ self.onmessage = (e: MessageEvent<WorkerRequest>) => {
     for (const curve of [analysis.trueCurve, analysis.flowCurve] as unknown as Record<string, unknown>[]) {
       for (const [k, v] of Object.entries(curve)) if (Array.isArray(v)) curve[k] = Float64Array.from(v as number[]);
     }
-    post({ id, ok: true, record, analysis, analysisError: null });
+    post({ id, ok: true, record, analysis, analysisError: null, tests });
   } catch (err) {
     // An impossible E from a record whose strain unit was guessed: say that the guess explains it (strainUnitHint).
     const e = err as { path?: unknown; value?: unknown; message?: unknown };
     const hint = e?.path === 'elasticModulus' && typeof e.value === 'number' ? strainUnitHint(record, e.value) : null;
     const p = plain(err);
-    post({ id, ok: true, record, analysis: null, analysisError: hint && p.kind === 'input' ? { ...p, allowed: `${p.allowed}; ${hint}`, message: `${p.message}; ${hint}` } : p });
+    post({ id, ok: true, record, analysis: null, analysisError: hint && p.kind === 'input' ? { ...p, allowed: `${p.allowed}; ${hint}`, message: `${p.message}; ${hint}` } : p, tests });
   }
 };

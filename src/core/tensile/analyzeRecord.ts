@@ -140,7 +140,7 @@ function firstTestOnly(data: TensileData, starts: number[], opts: AnalyzeOptions
   a.warnings.unshift({
     code: 'secondTest',
     message: `the record starts over ${starts.length > 1 ? `${starts.length} times` : 'once'} (at ${list}${starts.length > 5 ? ', …' : ''}): strain and stress fall back near zero and the stress rises again, which one specimen cannot do — ` +
-      `read as ${starts.length + 1} tests in one file. Only the first (samples 0–${k - 1}) is analysed here; analyse each test as a record of its own (the command line splits such a file by itself)`,
+      `read as ${starts.length + 1} tests in one file. Only the first (samples 0–${k - 1}) is analysed here; analyse each test as a record of its own (the command line and the record bench split such a file by themselves)`,
   });
   return a;
 }
