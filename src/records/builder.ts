@@ -477,7 +477,7 @@ export class RecordBuilder {
       // values differ in sign or by more than CHANNEL_RATIO is two quantities (an axial and a transverse strain, say).
       const [u, v] = [Math.abs(this.ch1), Math.abs(this.ch2)];
       if (this.ch1 * this.ch2 <= 0 || Math.max(u, v) > CHANNEL_RATIO * Math.min(u, v)) {
-        this.fail(L.headerLine, p.a2.index + 1, p.a2.name, `${show(p.a.name)} and ${show(p.a2.name)} look like two channels of one extensometer, but their largest values (${+this.ch1.toPrecision(4)} and ${+this.ch2.toPrecision(4)}) ${this.ch1 * this.ch2 <= 0 ? 'differ in sign' : `differ by more than ${CHANNEL_RATIO}×`}: not the two sides of one specimen; map the axial one with --column ${p.mode === 'fe' ? 'extension' : 'strain'}=NAME (or the record bench's column choice)`);
+        this.fail(L.headerLine, p.a2.index + 1, p.a2.name, `${show(p.a.name)} and ${show(p.a2.name)} look like two channels of one extensometer, but their largest values (${+this.ch1.toPrecision(4)} and ${+this.ch2.toPrecision(4)}) ${this.ch1 === 0 || this.ch2 === 0 ? 'show one of them reading zero throughout' : this.ch1 * this.ch2 < 0 ? 'differ in sign' : `differ by more than ${CHANNEL_RATIO}×`}: not the two sides of one specimen; map the axial one with --column ${p.mode === 'fe' ? 'extension' : 'strain'}=NAME (or the record bench's column choice)`);
       }
     }
     const hd = this.held;

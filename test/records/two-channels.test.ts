@@ -93,6 +93,9 @@ describe('a record with two extensometer channels', () => {
     // 2.2 times as large on one side: refused too; mapped explicitly, the axial channel reads.
     const twice = 'Strain 1 [%];Strain 2 [%];Stress [MPa]\n' + Array.from({ length: 40 }, (_, i) => `${(0.1 * i).toFixed(2)};${(0.22 * i).toFixed(3)};${Math.min(200 * i, 300 + 10 * i)}`).join('\n') + '\n';
     expect(() => parseRecordText(twice, { file: 'x.csv' })).toThrow(/differ by more than 1\.5×/);
+    // A dead channel (zero throughout): refused, said so.
+    const dead = 'Strain 1 [%];Strain 2 [%];Stress [MPa]\n' + Array.from({ length: 40 }, (_, i) => `${(0.1 * i).toFixed(2)};0;${Math.min(200 * i, 300 + 10 * i)}`).join('\n') + '\n';
+    expect(() => parseRecordText(dead, { file: 'x.csv' })).toThrow(/one of them reading zero throughout/);
     expect(parseRecordText(text, { file: 'x.csv', columns: { strain: 'Strain 1 [%]' } }).strain[10]).toBeCloseTo(0.01, 12);
   });
 
