@@ -18,12 +18,14 @@ export const TEST_START = {
  * e_max and s_max the largest strain and stress since the previous start, e_max ≥ 1 % (TEST_START.minStrain), the
  * strain at k is back below 10 % of e_max and the stress below 25 % of s_max, and the stress later rises again to
  * at least half of s_max while the strain is still below half of e_max (a new specimen's elastic rise: a dropped
- * reading in the middle of one test, both channels zero for a sample or two, comes back at the strain it left). Why this cannot be an unload–reload cycle of one test: an
- * unloaded specimen keeps its plastic strain, e − s/E; unloaded from e_max ≥ 1 % to a quarter of the highest stress
- * its strain stays above e_max − 0.75·s_max/E, more than a third of e_max for any metal (s_max/E < 0.9 % even for a
- * 600 MPa aluminium alloy at 70 GPa), so it never comes back below a tenth of it (elastic unloading along E, common
- * practice). A strain channel that resets while the specimen is still loaded (extensometer taken off) keeps a
- * high stress and is not a start; the samples after fracture (force near zero) do not rise again and are not one.
+ * reading in the middle of one test, both channels zero for a sample or two, comes back at the strain it left).
+ * Why this cannot be an unload–reload cycle of one test: an unloaded specimen keeps its plastic strain e − s/E
+ * (elastic unloading along E, common practice), so reloaded it reaches half of s_max at about e_max − s_max/(2E),
+ * above half of e_max since e_max ≥ 1 % > s_max/E (s_max/E < 0.9 % even for a 600 MPa aluminium alloy at 70 GPa);
+ * and unloaded to a quarter of the highest stress its strain stays above e_max − 0.75·s_max/E, more than a third of
+ * e_max, so the cheaper first test (strain below a tenth) already passes it by. A strain channel that resets while
+ * the specimen is still loaded (extensometer taken off) keeps a high stress and is not a start; the samples after
+ * fracture (force near zero) do not rise again and are not one.
  * Units: engineering strain (fraction) and stress (MPa). Valid: any finite record (non-finite samples are skipped).
  * @returns the start index of every test after the first, ascending (empty for one test).
  * @example testStarts([0, 0.005, 0.05, 0.1, 0.0001, 0.004, 0.05], [0, 300, 420, 450, 2, 280, 430]) // [4]
