@@ -1,7 +1,7 @@
 // Web worker of the record bench: reads the dropped record and analyses it (properties, every law
 // fit) off the page's thread, with the same parser and core functions as the runner, so a record
 // of 100,000 points never freezes the page.
-import { analyzeRecord, ComputationError, InputError } from '../../src/core/index.js';
+import { analyzeRecord, ComputationError, InputError, testStarts } from '../../src/core/index.js';
 import type { TensileAnalysis } from '../../src/core/index.js';
 import { PlanError } from '../../src/plan/problems.js';
 import { parseRecordText, strainUnitHint } from '../../src/records/index.js';
@@ -69,18 +69,18 @@ self.onmessage = (e: MessageEvent<WorkerRequest>) => {
   }
   let tests = { count: 1, shown: 1 };
   try {
-    let analysis = analyzeRecord(record);
-    // A file of several tests: the first is analysed by analyzeRecord (furtherTests says where the others start); another
-    // one asked for is cut out and analysed as a record of its own.
-    if (analysis.furtherTests.length) {
-      const starts = analysis.furtherTests;
-      const k = Math.min(Math.max(1, Math.round(test ?? 1)), starts.length + 1);
-      tests = { count: starts.length + 1, shown: k };
-      if (k > 1) {
+    // A file of several tests: analyzeRecord analyses the first (furtherTests says where the others start); another one
+    // asked for is cut out first (testStarts, one pass) and analysed as a record of its own.
+    if ((test ?? 1) > 1) {
+      const starts = testStarts(record.strain, record.stress);
+      if (starts.length) {
+        const k = Math.min(Math.round(test!), starts.length + 1);
+        tests = { count: starts.length + 1, shown: k };
         record = testOf(record, starts, k);
-        analysis = analyzeRecord(record);
       }
     }
+    const analysis = analyzeRecord(record);
+    if (analysis.furtherTests.length) tests = { count: analysis.furtherTests.length + 1, shown: 1 };
     // Residuals travel as Float64Arrays (a typed array is copied in one block; a plain array of
     // 100,000 numbers element by element).
     if (analysis.fits) for (const f of analysis.fits.fits) (f as { residuals: unknown }).residuals = Float64Array.from(f.residuals);

@@ -131,6 +131,7 @@ export { forceMaximum } from './tensile/forceMaximum.js';
 export type { ForceMaximum } from './tensile/forceMaximum.js';
 export { extensometerEnd, EXTENSOMETER_END } from './tensile/extensometerEnd.js';
 export type { ExtensometerEnd } from './tensile/extensometerEnd.js';
+export { testStarts, TEST_START } from './tensile/testStarts.js';
 export { findGlitches, GLITCH } from './tensile/glitches.js';
 export type { Glitch } from './tensile/glitches.js';
 export { quadraticFit, movingAverage } from './tensile/localFit.js';
