@@ -120,7 +120,7 @@ export type { RunScatterOptions } from './scatter/run.js';
 // Tensile records: standard properties (issue 3)
 export { analyzeRecord, ANALYZE_DEFAULTS } from './tensile/analyzeRecord.js';
 export type { AnalyzeOptions } from './tensile/analyzeRecord.js';
-export { analyzeSpecimens, SPECIMEN_PROPERTIES } from './tensile/analyzeSpecimens.js';
+export { analyzeSpecimens, summarizeSpecimens, SPECIMEN_PROPERTIES } from './tensile/analyzeSpecimens.js';
 export type { SpecimenSet, PropertySummary, SpecimenProperty } from './tensile/analyzeSpecimens.js';
 export { elasticModulus, ELASTIC_WINDOW } from './tensile/elasticModulus.js';
 export type { ElasticResult } from './tensile/elasticModulus.js';

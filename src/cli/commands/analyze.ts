@@ -253,7 +253,7 @@ export const analyze = defineCommand({
     }
 
     async function analyzeWith(fitLaws: AnalyzeOptions['fitLaws'] | undefined): Promise<number> {
-    const [{ readRecordFile }, { analyzeRecord }, { analyzeSpecimens }, { withRecordLocation, withStrainUnitHint }] = await Promise.all([
+    const [{ readRecordFile }, { analyzeRecord }, { summarizeSpecimens }, { withRecordLocation, withStrainUnitHint }] = await Promise.all([
       import('../../records/node.js'), import('../../core/tensile/analyzeRecord.js'), import('../../core/tensile/analyzeSpecimens.js'), import('../recordErrors.js'),
     ]);
     const read: TensileRecord[] = [];
@@ -278,7 +278,9 @@ export const analyze = defineCommand({
       out = { analyzeVersion: ANALYZE_VERSION, ...analysisJson(r, a, values.residuals!), cautions: CAUTIONS };
       if (values['material-block'] || values['material-out'] !== undefined) block = materialBlock(r.name, a.elasticModulus, chooseFit(a.fits, law, '--material-block'), units, a.modulusDecay, r.file.replace(/^.*[\\/]/, ''));
     } else {
-      const set = withRecordLocation(positionals.join(', '), () => analyzeSpecimens(records.map((r) => ({ name: r.name, strain: r.strain, stress: r.stress })), { ...aopts, law: law ?? 'swift', laws: LAW_NAMES }));
+      // Each record was analysed above with every law (as analyzeSpecimens would, with laws: LAW_NAMES): summarised
+      // from those analyses, not analysed a second time.
+      const set = withRecordLocation(positionals.join(', '), () => summarizeSpecimens(records.map((r, i) => ({ name: r.name, analysis: analyses[i]! })), { law: law ?? 'swift', laws: LAW_NAMES }));
       out = {
         analyzeVersion: ANALYZE_VERSION,
         records: records.map((r, i) => analysisJson(r, set.specimens[i]!.analysis, values.residuals!)),

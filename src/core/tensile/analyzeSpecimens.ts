@@ -53,6 +53,20 @@ export function analyzeSpecimens(records: readonly (TensileData & { name: string
       throw e;
     }
   });
+  return summarizeSpecimens(specimens, { ...opts, law });
+}
+
+/**
+ * The second half of {@link analyzeSpecimens}, for specimens already analysed (the command line analyses each
+ * record once for its own table and summarises those analyses here, rather than analysing them again): the
+ * property summary, the chosen law's parameters over specimens and the joint fit of `opts.laws` (all laws when
+ * absent) to the pooled flow curves. Units as in {@link analyzeRecord}.
+ * @throws InputError when `specimens` is empty.
+ * @example summarizeSpecimens([{ name: 'A', analysis: analyzeRecord(a) }, { name: 'B', analysis: analyzeRecord(b) }], { law: 'voce' }).summary.tensileStrength!.mean
+ */
+export function summarizeSpecimens(specimens: { name: string; analysis: TensileAnalysis }[], opts: { law?: LawName; laws?: readonly LawName[]; fit?: boolean } = {}): SpecimenSet {
+  if (specimens.length === 0) throw new InputError('specimens', 0, 'at least one analysed specimen');
+  const law = opts.law ?? 'swift';
   const summary: Partial<Record<SpecimenProperty, PropertySummary>> = {};
   for (const p of SPECIMEN_PROPERTIES) {
     // A lower bound (a test stopped before maximum force or fracture, a strain channel that ended early) is no

@@ -1,6 +1,6 @@
 import { sampleCorrelation, sampleStandardDeviation, mean } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
-import { analyzeSpecimens, scatterFromSpecimens } from '../../../src/core/index.js';
+import { analyzeRecord, analyzeSpecimens, scatterFromSpecimens, summarizeSpecimens } from '../../../src/core/index.js';
 import { expectAbsClose, expectRelClose } from '../../helpers.js';
 
 // INVENTED specimens: six coupons of one annealed copper heat, each a noise-free record generated
@@ -29,5 +29,18 @@ describe('scatterFromSpecimens(analyzeSpecimens(records).lawParameters)', () => 
   it('refuses a single specimen naming scatter.records', () => {
     const one = analyzeSpecimens(specimens.slice(0, 1), { law: 'hollomon', laws: ['hollomon'] });
     expect(() => scatterFromSpecimens(one.lawParameters!)).toThrow(/scatter\.records: too few fitted specimens for a spread; got 1, allowed at least 2/);
+  });
+});
+
+describe('summarizeSpecimens (specimens analysed once, as the command line does)', () => {
+  it('gives the set analyzeSpecimens gives, from the analyses alone, and K–n against the true laws', () => {
+    const opts = { law: 'hollomon' as const, laws: ['hollomon' as const] };
+    const analysed = specimens.map((r) => ({ name: r.name, analysis: analyzeRecord(r, { laws: opts.laws }) }));
+    const set = summarizeSpecimens(analysed, opts);
+    expect(set).toEqual(analyzeSpecimens(specimens, opts));
+    // The same reference as above (simple-statistics of the TRUE K): the summary is of the analyses given.
+    expectRelClose(set.lawParameters!.mean[0]!, mean(TRUE.map((t) => t.K)), 3e-3, 'mean K');
+    expect(set.specimens[2]!.analysis).toBe(analysed[2]!.analysis);
+    expect(() => summarizeSpecimens([])).toThrow(/specimens: .*at least one analysed specimen/);
   });
 });
