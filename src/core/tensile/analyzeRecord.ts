@@ -6,7 +6,7 @@ import { linearFit } from '../fit/linearFit.js';
 import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus, lowBandToe } from './elasticModulus.js';
 import { EXTENSOMETER_END, extensometerEnd, type ExtensometerEnd } from './extensometerEnd.js';
 import { forceMaximum } from './forceMaximum.js';
-import { findGlitches, GLITCH } from './glitches.js';
+import { droppedRows, findGlitches, glitchRun, GLITCH } from './glitches.js';
 import { recordNoiseWide } from './recordNoise.js';
 import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
 import { lawDataRanged, type LawData } from '../fit/lawNormalEquations.js';
@@ -73,7 +73,7 @@ export const ANALYZE_DEFAULTS = {
  * local top model, or by the six hardening laws fitted to the flow curve where their maximum of force lies
  * inside the top model's 95 % interval ({@link lawUniformElongation}; the six are fitted for this even with
  * `fit: false` or fewer `laws`, so Ag does not depend on those options).
- * First, samples an acquisition glitch put far off their agreeing neighbours (alone or two in a row) are read on the
+ * First, samples an acquisition glitch put far off their agreeing neighbours (alone or a few in a row) are read on the
  * line between those neighbours ({@link findGlitches}, warning `glitch`), and a strain channel that stops following the specimen before
  * fracture ({@link extensometerEnd}: held, reset or jump) ends the strain part: strain-based properties are read
  * before it, Rm from the force after it too, and what is only a lower bound is listed in `lowerBounds`. A record
@@ -100,7 +100,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   }
   let sMax = data.stress[iRaw]!;
   if (!(sMax > 0)) throw new InputError('stress', sMax, 'a record whose highest stress is above 0 MPa');
-  // Samples an acquisition glitch put far off the curve (a spike, a dropped reading; alone or two in a row) are read on
+  // Samples an acquisition glitch put far off the curve (a spike, a dropped reading or row; alone or a few in a row) are read on
   // the line between their neighbours, on a copy, and said: one spike read as the maximum had put Rm 13 % high and "fracture" there.
   const early: TensileWarning[] = [];
   const glitches = findGlitches(data.strain, data.stress, sMax, { strain: strainMoves.length < MAX_CANDIDATES ? strainMoves : null, stress: stressMoves.length < MAX_CANDIDATES ? stressMoves : null });
@@ -110,10 +110,17 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     for (const g of glitches) (g.column === 'strain' ? e : s)[g.index] = g.readAs;
     strain = e; stress = s;
     const list = glitches.slice(0, 5).map((g) => `sample ${g.index} (${g.column} ${+g.value.toPrecision(5)}, read as ${+g.readAs.toPrecision(5)})`).join(', ');
-    early.push({ code: 'glitch', message: `${glitches.length} sample${glitches.length > 1 ? 's' : ''} far off the curve between neighbours that agree with each other (alone or two in a row: an acquisition spike or dropped reading; the specimen cannot do that and return): read on the line between those neighbours — ${list}${glitches.length > 5 ? ', …' : ''}. Check the export if there are many` });
+    early.push({ code: 'glitch', message: `${glitches.length} sample${glitches.length > 1 ? 's' : ''} far off the curve between neighbours that agree with each other (alone or up to ${glitchRun(N)} in a row: an acquisition spike, dropped reading or dropped row; the specimen cannot do that and return): read on the line between those neighbours — ${list}${glitches.length > 5 ? ', …' : ''}. Check the export if there are many` });
     strainMoves.length = 0;
     iRaw = finiteArgMax(strain, stress, strainMoves);
     sMax = stress[iRaw]!;
+  }
+  // A block of rows lost by the acquisition (0 in both columns, too long to read on a line): refused, naming it.
+  const lost = droppedRows(strain, stress, sMax, strainMoves.length < MAX_CANDIDATES ? strainMoves : null);
+  if (lost) {
+    throw new InputError(`strain[${lost.from}]`, 0, `a reading of the loaded specimen: samples ${lost.from}–${lost.to} read 0 in both strain and stress between loaded samples that agree ` +
+      `(${+(100 * strain[lost.from - 1]!).toPrecision(4)} % and ${+(100 * strain[lost.to + 1]!).toPrecision(4)} % at ${+stress[lost.from - 1]!.toPrecision(4)} and ${+stress[lost.to + 1]!.toPrecision(4)} MPa), ` +
+      `which a specimen cannot do: rows lost by the acquisition or the export (up to ${glitchRun(strain.length)} in a row are read on the line between their neighbours). Remove or mend those rows and analyse again`);
   }
   const noise = recordNoiseWide(stress);
   // A strain channel that stops following the specimen (extensometer taken off, reset, out of range): every
