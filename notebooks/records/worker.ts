@@ -4,7 +4,7 @@
 import { analyzeRecord, ComputationError, InputError, testStarts } from '../../src/core/index.js';
 import type { TensileAnalysis } from '../../src/core/index.js';
 import { PlanError } from '../../src/plan/problems.js';
-import { parseRecordText, strainUnitHint } from '../../src/records/index.js';
+import { parseRecordText, sampleLine, strainUnitHint } from '../../src/records/index.js';
 import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
 
 /** An error as plain data (classes do not cross to the page); `recordError` in main.ts rebuilds it. */
@@ -94,7 +94,12 @@ self.onmessage = (e: MessageEvent<WorkerRequest>) => {
     // An impossible E from a record whose strain unit was guessed: say that the guess explains it (strainUnitHint).
     const e = err as { path?: unknown; value?: unknown; message?: unknown };
     const hint = e?.path === 'elasticModulus' && typeof e.value === 'number' ? strainUnitHint(record, e.value) : null;
-    const p = plain(err);
-    post({ id, ok: true, record, analysis: null, analysisError: hint && p.kind === 'input' ? { ...p, allowed: `${p.allowed}; ${hint}`, message: `${p.message}; ${hint}` } : p, tests });
+    let p = plain(err);
+    if (hint && p.kind === 'input') p = { ...p, allowed: `${p.allowed}; ${hint}`, message: `${p.message}; ${hint}` };
+    // An error about one sample (a block of dropped rows, a run of zero stress): its line in the file, as the command line says it.
+    const at = p.kind === 'input' ? /^(strain|stress)\[(\d+)\]$/.exec(p.path) : null;
+    const line = at ? sampleLine(record, Number(at[2])) : undefined;
+    if (p.kind === 'input' && line !== undefined) p = { ...p, message: `${p.message} (line ${line} of ${name})` };
+    post({ id, ok: true, record, analysis: null, analysisError: p, tests });
   }
 };

@@ -56,6 +56,30 @@ export interface TensileRecord {
    * and its first and last sample (0-based, in the file's data rows). Absent for a file that holds one test.
    */
   test?: { index: number; of: number; fromSample: number; toSample: number };
+  /**
+   * Where the samples are in the file: sample `sample` of each run is on line `line` (1-based) and the samples after
+   * it on the lines after it, up to the next run's sample (a new run where lines were skipped: blank rows, a row of
+   * empty cells). One run for most files. {@link sampleLine} reads it.
+   */
+  lineRuns?: { sample: number; line: number }[];
+}
+
+/**
+ * The file line (1-based) of sample `i` of `rec` (of its own samples: for one test of several in a file, `i` counts
+ * from that test's first sample), from `rec.lineRuns`; undefined for an index outside the record (its `rows`) or a
+ * record read from something other than a file of rows (no runs).
+ * @example sampleLine({ lineRuns: [{ sample: 0, line: 26 }, { sample: 374, line: 401 }] }, 380) // 407
+ */
+export function sampleLine(rec: Partial<Pick<TensileRecord, 'lineRuns' | 'test' | 'rows'>>, i: number): number | undefined {
+  const runs = rec.lineRuns;
+  const k = i + (rec.test?.fromSample ?? 0);
+  if (!runs?.length || !(i >= 0) || !Number.isInteger(i)) return undefined;
+  if (rec.rows !== undefined && i >= rec.rows) return undefined;
+  if (rec.test && i > rec.test.toSample - rec.test.fromSample) return undefined;
+  let lo = 0, hi = runs.length - 1;
+  if (k < runs[0]!.sample) return undefined;
+  while (lo < hi) { const mid = (lo + hi + 1) >> 1; if (runs[mid]!.sample <= k) lo = mid; else hi = mid - 1; }
+  return runs[lo]!.line + (k - runs[lo]!.sample);
 }
 
 /**
@@ -96,6 +120,8 @@ export class RecordBuilder {
   private ys = new Float64Array(1024);
   private n = 0;
   private lastLine = 0;
+  /** TensileRecord.lineRuns as the rows come. */
+  private readonly lineRuns: { sample: number; line: number }[] = [];
   private readonly plan: Plan;
   private readonly columns: TensileRecord['columns'] = {};
   private readonly warnings: string[] = [];
@@ -396,6 +422,7 @@ export class RecordBuilder {
       if (this.n >= MAX_ROWS) this.fail(line, 1, '', `more than ${MAX_ROWS} data rows; split the record`);
       this.reserve(this.n * 2);
     }
+    if (line !== this.lastLine + 1) this.lineRuns.push({ sample: this.n, line });
     this.xs[this.n] = this.xs[this.n - 1]!;
     const sy = this.early ? y * this.fb : y;
     this.ys[this.n] = sy;
@@ -430,6 +457,7 @@ export class RecordBuilder {
       this.ys[this.n] = y;
     }
     if (Math.abs(x) > this.maxA) { this.maxA = Math.abs(x); this.maxALine = line; }
+    if (this.n === 0 || line !== this.lastLine + 1) this.lineRuns.push({ sample: this.n, line });
     this.n++;
     this.lastLine = line;
   }
@@ -449,6 +477,12 @@ export class RecordBuilder {
         this.fail(lines[at]!, 1, '', `more than ${MAX_ROWS} data rows; split the record`);
       }
       this.reserve(Math.max(this.xs.length * 2, this.n + count));
+    }
+    // Lines skipped inside the batch (its lines not consecutive) or before it: new runs. The lines only increase, so a
+    // batch whose last line is count − 1 after its first has no gap (the usual case: no pass over the lines).
+    if (this.n === 0 || lines[0] !== this.lastLine + 1) this.lineRuns.push({ sample: this.n, line: lines[0]! });
+    if (lastLine - lines[0]! !== count - 1) {
+      for (let j = 1; j < count; j++) if (lines[j] !== lines[j - 1]! + 1) this.lineRuns.push({ sample: this.n + j, line: lines[j]! });
     }
     this.xs.set(xs.subarray(0, count), this.n);
     this.ys.set(ys.subarray(0, count), this.n);
@@ -526,6 +560,7 @@ export class RecordBuilder {
       strainUnitGuessed: this.strainUnitGuessed,
       warnings: this.warnings,
       layout: { delimiter: L.delimiter, decimalComma: L.decimalComma, headerLine: L.headerLine, unitsLine: L.unitsLine, dataLine: L.dataLine },
+      lineRuns: this.lineRuns,
     };
   }
 }

@@ -311,6 +311,28 @@ describe('strainledger analyze with invalid input exits 2 with a clear message a
     expect(r.stderr).toMatch(/swapped\.csv:13:1: Strain \[%\]: reaches 550 — not a strain/);
     expect(existsSync(out)).toBe(false);
   });
+  it('a block of dropped rows (0 in every column) in the open record 46NT71 names the file line and the strain column, also after a blank line and in a second test', () => {
+    // 46NT71.csv (MaterialDigital, CC BY 4.0): data from line 26, Engineering Strain in column 5. Lines 400–402 zeroed.
+    const lines = readFileSync(join(FIX, '46NT71.csv'), 'utf8').split('\n');
+    const zeroed = lines.map((l, i) => (i >= 399 && i <= 401 ? l.replace(/[^\t\r]+/g, '0') : l));
+    const f = join(dir, 'dropped-rows.csv');
+    writeFileSync(f, zeroed.join('\n'));
+    const r = run('analyze', f);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/dropped-rows\.csv:400:5: strain\[374\]: got 0, allowed a reading of the loaded specimen: samples 374–376 read 0 in both strain and stress/);
+    // A blank line before them: one sample fewer before line 400, the same line named.
+    const g = join(dir, 'dropped-after-blank.csv');
+    writeFileSync(g, zeroed.map((l, i) => (i === 299 ? '' : l)).join('\n'));
+    expect(run('analyze', g).stderr).toMatch(/dropped-after-blank\.csv:400:5: strain\[373\]: got 0/);
+    // The block in the second of two tests in one file (46NT71, then 46NT73's data rows): the line in the whole file.
+    const second = readFileSync(join(FIX, '46NT73.csv'), 'utf8').split('\n').slice(25).filter((l) => l.trim() !== '');
+    const two = join(dir, 'dropped-in-test-2.csv');
+    writeFileSync(two, [...lines.filter((l) => l.trim() !== ''), ...second.map((l, i) => (i >= 379 && i <= 381 ? l.replace(/[^\t\r]+/g, '0') : l))].join('\n') + '\n');
+    const t = run('analyze', two);
+    expect(t.status).toBe(2);
+    const at = lines.filter((l) => l.trim() !== '').length + 380;
+    expect(t.stderr).toMatch(new RegExp(`dropped-in-test-2\\.csv:${at}:5: strain\\[379\\]: got 0`));
+  });
 });
 
 describe('startFitHelper (src/cli/fitThreads.ts): law fits on two threads', () => {

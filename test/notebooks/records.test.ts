@@ -281,7 +281,7 @@ describe('record bench', () => {
     expect(errors).toEqual([]);
   });
 
-  it('two extensometer channels are read as their mean, and a file of three specimens shows the first with the warning and only its curve', async () => {
+  it('two extensometer channels are read as their mean, a file of three specimens shows the first with the warning and only its curve, and a block of dropped rows names its line', async () => {
     const { page, errors } = await openPage(h, '/records/');
     await settled(page, 'records');
     // 46NT71 as force and two extension channels, the specimen bent 4 % at the start of loading (each side off by 4 %).
@@ -316,6 +316,12 @@ describe('record bench', () => {
     expect(await page.locator('#record-summary').innerText()).toContain(`${data('46NT73').split('\n').length} rows`);
     expect(await page.locator('#cell-properties').innerText()).not.toMatch(/starts over/);
     await page.screenshot({ path: `${SCREENSHOTS}/records-three-specimens.png`, fullPage: true });
+
+    // A block of dropped rows (46NT71 with lines 400–402 zeroed): the error names the samples and the file's line.
+    const zeroed = readFileSync(FIXTURE, 'utf8').split('\n').map((l, i) => (i >= 399 && i <= 401 ? l.replace(/[^\t\r]+/g, '0') : l)).join('\n');
+    await dropFile(page, 'dropped-rows.csv', zeroed);
+    await expect.poll(() => page.locator('#cell-properties .sl-error').count(), { timeout: 30_000 }).toBe(1);
+    expect(await page.locator('#cell-properties .sl-error').innerText()).toMatch(/samples 374–376 read 0 in both strain and stress.*\(line 400 of dropped-rows\.csv\)/s);
     expect(errors).toEqual([]);
   });
 });

@@ -266,7 +266,7 @@ export const analyze = defineCommand({
       ...(disagreement !== undefined ? { disagreementPct: disagreement } : {}),
       ...(modulus !== undefined ? { elasticModulus: modulus } : {}),
     };
-    const analyse = (r: TensileRecord) => withRecordLocation(r.file, () => withStrainUnitHint(r, () => analyzeRecord(r, aopts)));
+    const analyse = (r: TensileRecord) => withRecordLocation(r, () => withStrainUnitHint(r, () => analyzeRecord(r, aopts)));
     // A file that holds several tests (the record starts over) becomes one record per test, each a specimen.
     const { splitTests } = await import('../splitTests.js');
     const parts = read.flatMap((r) => splitTests(r, analyse(r), analyse));

@@ -110,7 +110,9 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     for (const g of glitches) (g.column === 'strain' ? e : s)[g.index] = g.readAs;
     strain = e; stress = s;
     const list = glitches.slice(0, 5).map((g) => `sample ${g.index} (${g.column} ${+g.value.toPrecision(5)}, read as ${+g.readAs.toPrecision(5)})`).join(', ');
-    early.push({ code: 'glitch', message: `${glitches.length} sample${glitches.length > 1 ? 's' : ''} far off the curve between neighbours that agree with each other (alone or up to ${glitchRun(N)} in a row: an acquisition spike, dropped reading or dropped row; the specimen cannot do that and return): read on the line between those neighbours — ${list}${glitches.length > 5 ? ', …' : ''}. Check the export if there are many` });
+    // A dropped row is one sample off in both columns: samples are counted once.
+    const count = new Set(glitches.map((g) => g.index)).size;
+    early.push({ code: 'glitch', message: `${count} sample${count > 1 ? 's' : ''} far off the curve between neighbours that agree with each other (alone or up to ${glitchRun(N)} in a row: an acquisition spike, dropped reading or dropped row; the specimen cannot do that and return): read on the line between those neighbours — ${list}${glitches.length > 5 ? ', …' : ''}. Check the export if there are many` });
     strainMoves.length = 0;
     iRaw = finiteArgMax(strain, stress, strainMoves);
     sMax = stress[iRaw]!;
