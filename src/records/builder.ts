@@ -59,7 +59,8 @@ export interface TensileRecord {
   /**
    * Where the samples are in the file: sample `sample` of each run is on line `line` (1-based) and the samples after
    * it on the lines after it, up to the next run's sample (a new run where lines were skipped: blank rows, a row of
-   * empty cells). One run for most files. {@link sampleLine} reads it.
+   * empty cells). One run for most files; at most MAX_LINE_RUNS (then a last run of line −1: not placed).
+   * {@link sampleLine} reads it.
    */
   lineRuns?: { sample: number; line: number }[];
 }
@@ -79,7 +80,7 @@ export function sampleLine(rec: Partial<Pick<TensileRecord, 'lineRuns' | 'test' 
   let lo = 0, hi = runs.length - 1;
   if (k < runs[0]!.sample) return undefined;
   while (lo < hi) { const mid = (lo + hi + 1) >> 1; if (runs[mid]!.sample <= k) lo = mid; else hi = mid - 1; }
-  return runs[lo]!.line + (k - runs[lo]!.sample);
+  return runs[lo]!.line < 0 ? undefined : runs[lo]!.line + (k - runs[lo]!.sample);
 }
 
 /**
@@ -87,6 +88,12 @@ export function sampleLine(rec: Partial<Pick<TensileRecord, 'lineRuns' | 'test' 
  * (bending moves the sides apart by a few per cent of the strain, common practice; 1.5 leaves a wide margin).
  */
 export const CHANNEL_RATIO = 1.5;
+
+/**
+ * Most line runs a record keeps (TensileRecord.lineRuns): a file with a blank line after every row (double-spaced)
+ * would need one a row. Past this, the samples are no longer placed (sampleLine gives undefined for them).
+ */
+export const MAX_LINE_RUNS = 10_000;
 
 /** Most data rows a record may have (memory bound: 16 bytes a row). */
 export const MAX_ROWS = 50_000_000;
@@ -422,13 +429,20 @@ export class RecordBuilder {
       if (this.n >= MAX_ROWS) this.fail(line, 1, '', `more than ${MAX_ROWS} data rows; split the record`);
       this.reserve(this.n * 2);
     }
-    if (line !== this.lastLine + 1) this.lineRuns.push({ sample: this.n, line });
+    if (line !== this.lastLine + 1) this.newRun(this.n, line);
     this.xs[this.n] = this.xs[this.n - 1]!;
     const sy = this.early ? y * this.fb : y;
     this.ys[this.n] = sy;
     if (this.early) this.maxS = Math.max(this.maxS, Math.abs(sy));
     this.n++;
     this.lastLine = line;
+  }
+
+  /** A new line run from sample `sample` at `line`; past MAX_LINE_RUNS one last run of line −1 (not placed), then none. */
+  private newRun(sample: number, line: number): void {
+    const k = this.lineRuns.length;
+    if (k < MAX_LINE_RUNS) this.lineRuns.push({ sample, line });
+    else if (k === MAX_LINE_RUNS) this.lineRuns.push({ sample, line: -1 });
   }
 
   /** Adds the two numbers of one data row found at 1-based `line` (already checked as {@link push} checks cells). */
@@ -457,7 +471,7 @@ export class RecordBuilder {
       this.ys[this.n] = y;
     }
     if (Math.abs(x) > this.maxA) { this.maxA = Math.abs(x); this.maxALine = line; }
-    if (this.n === 0 || line !== this.lastLine + 1) this.lineRuns.push({ sample: this.n, line });
+    if (this.n === 0 || line !== this.lastLine + 1) this.newRun(this.n, line);
     this.n++;
     this.lastLine = line;
   }
@@ -480,9 +494,9 @@ export class RecordBuilder {
     }
     // Lines skipped inside the batch (its lines not consecutive) or before it: new runs. The lines only increase, so a
     // batch whose last line is count − 1 after its first has no gap (the usual case: no pass over the lines).
-    if (this.n === 0 || lines[0] !== this.lastLine + 1) this.lineRuns.push({ sample: this.n, line: lines[0]! });
-    if (lastLine - lines[0]! !== count - 1) {
-      for (let j = 1; j < count; j++) if (lines[j] !== lines[j - 1]! + 1) this.lineRuns.push({ sample: this.n + j, line: lines[j]! });
+    if (this.n === 0 || lines[0] !== this.lastLine + 1) this.newRun(this.n, lines[0]!);
+    if (lastLine - lines[0]! !== count - 1 && this.lineRuns.length <= MAX_LINE_RUNS) {
+      for (let j = 1; j < count; j++) if (lines[j] !== lines[j - 1]! + 1) this.newRun(this.n + j, lines[j]!);
     }
     this.xs.set(xs.subarray(0, count), this.n);
     this.ys.set(ys.subarray(0, count), this.n);

@@ -8,7 +8,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
-import { parseRecordText, sampleLine, type TensileRecord } from '../../src/records/index.js';
+import { MAX_LINE_RUNS, parseRecordText, sampleLine, type TensileRecord } from '../../src/records/index.js';
 import { readRecordFile } from '../../src/records/node.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'sl-lines-'));
@@ -58,6 +58,21 @@ describe('sampleLine: the file line of each sample, through every reader', () =>
           expectLinesHold(parseRecordText(text, { file: 'x.csv' }), text, `parseRecordText, ${what}`);
         }
       }), { numRuns: 25, seed: 12 });
+  });
+
+  it('a double-spaced export (a blank line after every row): the first MAX_LINE_RUNS samples placed, then none (bounded memory)', async () => {
+    const n = 25_000;
+    const text = 'Strain [%],Stress [MPa]\n' + Array.from({ length: n }, (_, i) => `${(i * 0.001).toFixed(3)},${(i < 50 ? i * 4 : 200 + i * 0.01).toFixed(2)}\n`).join('\n');
+    const file = join(dir, 'double.csv');
+    writeFileSync(file, text);
+    for (const rec of [await readRecordFile(file), parseRecordText(text, { file: 'double.csv' })]) {
+      expect(rec.rows).toBe(n);
+      expect(rec.lineRuns!.length).toBe(MAX_LINE_RUNS + 1);
+      // Row i is on line 2 + 2i.
+      for (const i of [0, 1, 777, MAX_LINE_RUNS - 1]) expect(sampleLine(rec, i)).toBe(2 + 2 * i);
+      expect(sampleLine(rec, MAX_LINE_RUNS)).toBeUndefined();
+      expect(sampleLine(rec, n - 1)).toBeUndefined();
+    }
   });
 
   it('a test of several in one file counts from its own first sample; no runs, no line', () => {
