@@ -156,6 +156,8 @@ export class RecordBuilder {
   private footer: { error: unknown; line: number; lastLine: number; rows: number; table: number; results: boolean; first: string } | null = null;
   /** Rows at the end whose strain cell is empty and stress a number (extensometer taken off), stored with the last strain held. */
   private held: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
+  /** Rows with no reading in any used column (empty or NaN cells; see push): the first and last line and how many. */
+  private lost: { line: number; lastLine: number; rows: number } | null = null;
   /** How a strain column without a unit was read (by its largest value), or null when the unit was known. */
   private strainUnitGuessed: 'fraction' | 'percent' | null = null;
   /** Two channels averaged: each one's value of largest magnitude so far (see {@link channels}). */
@@ -347,6 +349,14 @@ export class RecordBuilder {
     // An empty line, or a row of empty cells (only delimiters, as spreadsheets export blank rows), is no row.
     if (f.every((c) => c.trim() === '')) return;
     const { a, a2, b } = this.plan;
+    // A lost sample: every used cell empty or NaN while other columns (time, crosshead) were written. No reading to
+    // keep; left out and said in finish (it had ended the data as a "footer" and then failed on the next row).
+    if (this.n >= MIN_ROWS && noReading(f[a.index]) && (!a2 || noReading(f[a2.index])) && noReading(f[b.index])) {
+      this.lost ??= { line, lastLine: line, rows: 0 };
+      this.lost.rows++;
+      this.lost.lastLine = line;
+      return;
+    }
     let x: number, y: number;
     try {
       x = this.cell(f, a, line);
@@ -528,6 +538,11 @@ export class RecordBuilder {
         this.fail(L.headerLine, p.a2.index + 1, p.a2.name, `${show(p.a.name)} and ${show(p.a2.name)} look like two channels of one extensometer, but their largest values (${+this.ch1.toPrecision(4)} and ${+this.ch2.toPrecision(4)}) ${this.ch1 === 0 || this.ch2 === 0 ? 'show one of them reading zero throughout' : this.ch1 * this.ch2 < 0 ? 'differ in sign' : `differ by more than ${CHANNEL_RATIO}×`}: not the two sides of one specimen; map the axial one with --column ${p.mode === 'fe' ? 'extension' : 'strain'}=NAME (or the record bench's column choice)`);
       }
     }
+    const lo = this.lost;
+    if (lo) {
+      const cols = [p.a, ...(p.a2 ? [p.a2] : []), p.b].map((c) => show(c.name)).join(', ');
+      this.warnings.push(`${lo.rows === 1 ? `line ${lo.line} holds` : `${lo.rows} rows from line ${lo.line} to line ${lo.lastLine} hold`} no reading in ${cols} (empty or NaN, the other columns written): left out as lost samples; check the export if there are many`);
+    }
     const hd = this.held;
     if (hd) {
       this.warnings.push(`the ${p.mode === 'fe' ? 'extension' : 'strain'} column ${show(p.a.name)} is empty from line ${hd.line} to ${hd.lastLine === this.lastLine ? 'the end' : `line ${hd.lastLine}`} (${hd.rows} rows; extensometer taken off?): its last value is held there, so the force still counts for Rm; properties that need strain are read where it still changes`);
@@ -577,6 +592,11 @@ export class RecordBuilder {
       lineRuns: this.lineRuns,
     };
   }
+}
+
+/** An empty or NaN cell, or none (a short row): no reading. */
+function noReading(c: string | undefined): boolean {
+  return c === undefined || /^\s*([+-]?nan)?\s*$/i.test(c);
 }
 
 /**

@@ -317,3 +317,30 @@ describe('unit conversion as rows are stored (speed follow-up K) gives Number(ce
     });
   }
 });
+
+describe('lost samples: rows with no reading in the used columns (empty or NaN) while other columns were written', () => {
+  const dir = mkdtempSync(join(tmpdir(), 'sl-lost-'));
+  // INVENTED record: time, strain %, stress MPa; rows 20–22 lose their strain and stress (the time goes on).
+  const rows = Array.from({ length: 40 }, (_, i) => [`${(i * 0.1).toFixed(1)}`, `${(i * 0.05).toFixed(2)}`, `${(i < 10 ? i * 20 : 200 + i).toFixed(1)}`]);
+  const text = (cell: (i: number, j: number) => string) => 'Time [s],Strain [%],Stress [MPa]\n' + rows.map((r, i) => r.map((c, j) => cell(i, j) ?? c).join(',')).join('\n') + '\n';
+  const whole = parseRecordText(text((i, j) => rows[i]![j]!), { file: 'w.csv' });
+  for (const [what, lost] of [['empty cells', ''], ['NaN', 'NaN'], ['nan with spaces', ' nan ']] as const) {
+    it(`${what} in both used cells: left out, said with the lines, through every reader; the other rows as written`, async () => {
+      const t = text((i, j) => (i >= 20 && i <= 22 && j > 0 ? lost : rows[i]![j]!));
+      const f = join(dir, `lost-${what.replace(/ /g, '-')}.csv`);
+      writeFileSync(f, t);
+      for (const rec of [await readRecordFile(f), parseRecordText(t, { file: 'l.csv' })]) {
+        expect(rec.rows).toBe(37);
+        expect(rec.warnings.join('\n')).toMatch(/3 rows from line 22 to line 24 hold no reading in "Strain \[%\]", "Stress \[MPa\]" \(empty or NaN, the other columns written\): left out as lost samples/);
+        const keep = [...Array(40).keys()].filter((i) => i < 20 || i > 22);
+        expect(Array.from(rec.strain)).toEqual(keep.map((i) => whole.strain[i]));
+        expect(Array.from(rec.stress)).toEqual(keep.map((i) => whole.stress[i]));
+      }
+    });
+  }
+  it('one of the two cells lost, or a lost row among the first rows, is still an error naming line and column', () => {
+    expect(() => parseRecordText(text((i, j) => (i === 20 && j === 2 ? '' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:3: Stress \[MPa\]: got "", expected a number/);
+    expect(() => parseRecordText(text((i, j) => (i === 20 && j === 1 ? 'NaN' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:2: Strain \[%\]: got "NaN", expected a finite number/);
+    expect(() => parseRecordText(text((i, j) => (i === 3 && j > 0 ? '' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:5:2: Strain \[%\]: got "", expected a number/);
+  });
+});
