@@ -35,7 +35,7 @@ function rebuild(e: WorkerError): Error {
 let worker: Worker | null = null;
 let nextId = 0;
 const waiting = new Map<number, (r: WorkerReply) => void>();
-function readInWorker(input: Input, options: RecordOptions, test: number): Promise<WorkerReply> {
+function readInWorker(input: Input, options: RecordOptions, test: number, modulus: number | undefined): Promise<WorkerReply> {
   if (!worker) {
     worker = new Worker(new URL('./worker.ts', import.meta.url), { type: 'module' });
     worker.onmessage = (e: MessageEvent<WorkerReply>) => { waiting.get(e.data.id)?.(e.data); waiting.delete(e.data.id); };
@@ -49,13 +49,15 @@ function readInWorker(input: Input, options: RecordOptions, test: number): Promi
   const id = ++nextId;
   return new Promise((resolve) => {
     waiting.set(id, resolve);
-    const msg: WorkerRequest = { id, name: input.name, text: input.text, options, test };
+    const msg: WorkerRequest = { id, name: input.name, text: input.text, options, test, ...(modulus !== undefined ? { modulus } : {}) };
     worker!.postMessage(msg);
   });
 }
 
 const nb = new Notebook();
 let options: RecordOptions = {};
+/** The specimen's Young's modulus the user gave (MPa), for the analysis: used instead of the measured one. */
+let modulus: number | undefined;
 let current: Input | null = null;
 let lastGood: Extract<Parsed, { ok: true }> | null = null;
 
@@ -74,10 +76,12 @@ if (examples.length) {
   byId('record-input').append(h('div', { class: 'sl-input' }, ex, h('button', { type: 'button', id: 'load-example', onclick: () => { const [p, t] = examples[ex.value]!; load({ name: p.split('/').pop()!, text: t, demo: true }, {}); } }, 'open')));
 }
 
-function load(input: Input, opts: RecordOptions, test = 1): void {
+/** Reads and analyses `input`; a new file starts without a given modulus (it belongs to the specimen, not the page). */
+function load(input: Input, opts: RecordOptions, test = 1, givenModulus: number | undefined = undefined): void {
   current = input;
   options = opts;
-  nb.set('input', { input, options: opts, test });
+  modulus = givenModulus;
+  nb.set('input', { input, options: opts, test, modulus: givenModulus });
   drawMapping();
 }
 
@@ -104,10 +108,13 @@ function drawMapping(): void {
     unitSel('map-forceUnit', 'force unit', shown(['N', 'kN', 'lbf', 'kip', 'kgf'], FORCE_UNITS)), unitSel('map-lengthUnit', 'extension unit', shown(['mm', 'in', 'cm', 'm', 'µm'], LENGTH_UNITS)),
     // Round specimens by diameter, flat ones (strip, sheet) by width and thickness: the cross-section a force column needs.
     num('map-diameter', 'specimen diameter'), num('map-width', 'or width'), num('map-thickness', 'and thickness'), num('map-gaugeLength', 'gauge length'),
+    // The specimen's E, when the record cannot measure it (too few elastic points, the machine's travel as the strain).
+    h('div', { class: 'sl-input' }, h('label', { for: 'map-modulus' }, 'specimen\'s modulus E, if known'), h('input', { type: 'text', inputmode: 'decimal', id: 'map-modulus', class: 'sl-number' }), ' GPa'),
     h('button', { type: 'button', id: 'apply-mapping', onclick: applyMapping }, 'read the record again with these settings'));
   const unitKeys = ['strainUnit', 'stressUnit', 'forceUnit', 'lengthUnit'] as const;
   for (const k of unitKeys) (byId(`map-${k}`) as HTMLSelectElement).value = String(options[k] ?? '');
   for (const k of ['diameter', 'width', 'thickness', 'gaugeLength'] as const) (byId(`map-${k}`) as HTMLInputElement).value = options[k] === undefined ? '' : String(options[k]);
+  (byId('map-modulus') as HTMLInputElement).value = modulus === undefined ? '' : String(modulus / 1000);
 }
 
 /** Unit names as people write them, kept only where the record parser knows them (it compares lower-cased). */
@@ -132,7 +139,9 @@ function applyMapping(): void {
     const t = (byId(`map-${k}`) as HTMLInputElement).value.trim();
     if (t) o[k] = Number(t); // the parser validates the number and names the field when it is wrong
   }
-  load(current, o);
+  // GPa on the page, MPa in the analysis (which validates it and names elasticModulus when it is wrong).
+  const e = (byId('map-modulus') as HTMLInputElement).value.trim().replace(',', '.');
+  load(current, o, 1, e ? Number(e) * 1000 : undefined);
 }
 
 /**
@@ -142,7 +151,7 @@ function applyMapping(): void {
 function testChoice(p: Extract<Parsed, { ok: true }>): HTMLElement {
   const sel = h('select', { id: 'test-choice' }, ...Array.from({ length: p.tests.count }, (_, i) => h('option', { value: String(i + 1) }, `test ${i + 1} of ${p.tests.count}`))) as HTMLSelectElement;
   sel.value = String(p.tests.shown);
-  sel.addEventListener('change', () => load(p.input, options, Number(sel.value)));
+  sel.addEventListener('change', () => load(p.input, options, Number(sel.value), modulus));
   return h('div', { class: 'sl-input', id: 'tests' },
     h('p', {}, `This file holds ${p.tests.count} tests, one after another (the record starts over where strain and stress fall back near zero and the stress rises again). Each is analysed on its own; showing test ${p.tests.shown}.`),
     h('label', { for: 'test-choice' }, 'test shown '), sel);
@@ -159,9 +168,9 @@ nb.cell({ name: 'input', fn: () => null })
     // Reading and analysing run in the worker. This cell never rejects: a malformed record is shown
     // as an error here while the last good record (and everything computed from it) stays on screen.
     name: 'parsed', inputs: ['input'], into: 'cell-import',
-    fn: async (x: { input: Input; options: RecordOptions; test: number } | null): Promise<Parsed | null> => {
+    fn: async (x: { input: Input; options: RecordOptions; test: number; modulus: number | undefined } | null): Promise<Parsed | null> => {
       if (!x) return null;
-      const r = await readInWorker(x.input, x.options, x.test);
+      const r = await readInWorker(x.input, x.options, x.test, x.modulus);
       if (!r.ok) return { ok: false, input: x.input, error: rebuild(r.error) };
       return { ok: true, input: x.input, record: r.record, analysis: r.analysis, analysisError: r.analysisError ? rebuild(r.analysisError) : null, tests: r.tests };
     },

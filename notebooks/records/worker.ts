@@ -14,7 +14,8 @@ export type WorkerError =
   | { kind: 'other'; message: string };
 
 /** `test`: which test of a file that holds several (1-based; testStarts in the core), default the first. */
-export interface WorkerRequest { id: number; name: string; text: string; options: RecordOptions; test?: number }
+/** `modulus`: the specimen's Young's modulus given on the page (MPa), used instead of the measured one. */
+export interface WorkerRequest { id: number; name: string; text: string; options: RecordOptions; test?: number; modulus?: number }
 /** `tests`: how many tests the file holds and which one `record` and `analysis` are (1-based). */
 export type WorkerReply =
   | { id: number; ok: true; record: TensileRecord; analysis: TensileAnalysis | null; analysisError: WorkerError | null; tests: { count: number; shown: number } }
@@ -58,7 +59,7 @@ export function buffersOf(x: unknown, out: Set<ArrayBuffer> = new Set(), seen: S
 }
 
 self.onmessage = (e: MessageEvent<WorkerRequest>) => {
-  const { id, name, text, options, test } = e.data;
+  const { id, name, text, options, test, modulus } = e.data;
   const post = (r: WorkerReply) => (self as unknown as Worker).postMessage(r, [...buffersOf(r)]);
   let record: TensileRecord;
   try {
@@ -79,7 +80,9 @@ self.onmessage = (e: MessageEvent<WorkerRequest>) => {
         record = testOf(record, starts, k);
       }
     }
-    const analysis = analyzeRecord(record);
+    // A given modulus replaces the measured one; with the machine's travel as the strain it also takes the machine's
+    // compliance out (analyzeRecord's machineTravel), as the command line does.
+    const analysis = analyzeRecord(record, { ...(modulus !== undefined ? { elasticModulus: modulus } : {}), ...(record.machineTravel ? { machineTravel: true } : {}) });
     if (analysis.furtherTests.length) tests = { count: analysis.furtherTests.length + 1, shown: 1 };
     // Residuals travel as Float64Arrays (a typed array is copied in one block; a plain array of
     // 100,000 numbers element by element).

@@ -18,24 +18,27 @@ function thin(n: number): number[] {
  * (where E was fitted) drawn thick. Strains are shown as recorded (before toe compensation). Where the
  * strain channel ended before fracture (extensometer taken off) the curve stops there, at a dotted line
  * that says so: the samples after it have force but no strain of the specimen. Of a record that holds several tests
- * (`furtherTests`) only the first, the one analysed, is drawn.
+ * (`furtherTests`) only the first, the one analysed, is drawn. A strain from the machine's travel whose compliance the
+ * analysis took out (`machineCompliance`, c) is drawn as analysed, e − s·c, and the axis says so.
  */
 export function recordCurveChart(
   record: { strain: ArrayLike<number>; stress: ArrayLike<number> },
-  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null; furtherTests?: readonly number[] },
+  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null; furtherTests?: readonly number[]; machineCompliance?: number | null },
   o: { width?: number; height?: number; document?: Document } = {},
 ): SVGSVGElement | HTMLElement {
   const end = analysis.strainChannelEnd ?? null;
   // A record that holds several tests: the first, the one analysed (a line on to the next test's start would cross the chart).
   const samples = Math.min(record.strain.length, analysis.furtherTests?.[0] ?? Infinity);
   const idx = thin(end ? end.index : samples);
-  const pts = idx.map((i) => ({ e: record.strain[i]! * 100, s: record.stress[i]! }));
+  const c = analysis.machineCompliance ?? 0;
+  const at = (i: number) => ({ e: (record.strain[i]! - record.stress[i]! * c) * 100, s: record.stress[i]! });
+  const pts = idx.map(at);
   const w = analysis.elasticWindow;
   const win: { e: number; s: number }[] = [];
-  for (let i = w.fromIndex; i < w.toIndex; i++) win.push({ e: record.strain[i]! * 100, s: record.stress[i]! });
+  for (let i = w.fromIndex; i < w.toIndex; i++) win.push(at(i));
   return Plot.plot({
     ...chartFrame(o, 520, 300),
-    x: { ...X_AXIS, label: 'engineering strain (%)', grid: true },
+    x: { ...X_AXIS, label: c ? 'engineering strain, machine compliance taken out (%)' : 'engineering strain (%)', grid: true },
     y: { label: 'engineering stress (MPa)', grid: true },
     marks: [
       Plot.ruleY([0], { stroke: PALETTE.grid }),

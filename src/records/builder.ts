@@ -49,6 +49,8 @@ export interface TensileRecord {
   metadata: Map<string, { key: string; value: string; unit: string; line: number }>;
   /** How a strain column without a unit was read, by its largest value (more than 1: percent), or null when its unit was known. */
   strainUnitGuessed?: 'fraction' | 'percent' | null;
+  /** True when the extension is the machine's own travel (crosshead, stroke), not an extensometer's (analyzeRecord's `machineTravel`). */
+  machineTravel?: boolean;
   warnings: string[];
   layout: { delimiter: string; decimalComma: boolean; headerLine: number; unitsLine: number | null; dataLine: number };
   /**
@@ -160,6 +162,7 @@ export class RecordBuilder {
   private lost: { line: number; lastLine: number; rows: number } | null = null;
   /** How a strain column without a unit was read (by its largest value), or null when the unit was known. */
   private strainUnitGuessed: 'fraction' | 'percent' | null = null;
+  private machineTravel = false;
   /** Two channels averaged: each one's value of largest magnitude so far (see {@link channels}). */
   private ch1 = 0;
   private ch2 = 0;
@@ -270,7 +273,10 @@ export class RecordBuilder {
       fb = factor('force', b, opts.forceUnit);
       fa = factor('length', a, opts.lengthUnit);
       ({ area, gauge } = this.geometry(opts));
-      if (isMachineTravel(a)) this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the modulus (--modulus, or the record bench's modulus field) and prefer an extensometer channel`);
+      if (isMachineTravel(a)) {
+        this.machineTravel = true;
+        this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the specimen's modulus (--modulus, or the record bench's modulus field) and that compliance is taken out, or prefer an extensometer channel`);
+      }
     }
     this.columns[mode === 'fe' ? 'extension' : 'strain'] = { name: a.name, column: a.index + 1, unit: unitOf(a), ...(a2 ? { averagedWith: { name: a2.name, column: a2.index + 1 } } : {}) };
     this.columns[mode === 'ss' ? 'stress' : 'force'] = { name: b.name, column: b.index + 1, unit: unitOf(b) };
@@ -587,6 +593,7 @@ export class RecordBuilder {
       geometry: p.mode === 'fe' ? { area: p.area, gaugeLength: p.gauge } : p.mode === 'fs' ? { area: p.area, gaugeLength: null } : null,
       metadata: L.metadata,
       strainUnitGuessed: this.strainUnitGuessed,
+      ...(this.machineTravel ? { machineTravel: true } : {}),
       warnings: this.warnings,
       layout: { delimiter: L.delimiter, decimalComma: L.decimalComma, headerLine: L.headerLine, unitsLine: L.unitsLine, dataLine: L.dataLine },
       lineRuns: this.lineRuns,

@@ -311,6 +311,22 @@ describe('strainledger analyze with invalid input exits 2 with a clear message a
     expect(r.stderr).toMatch(/swapped\.csv:13:1: Strain \[%\]: reaches 550 — not a strain/);
     expect(existsSync(out)).toBe(false);
   });
+  it('the machine\'s travel as the strain (46NT71\'s Machine Displacement and Force): refused without E; with the producers\' E, the compliance taken out and Rp0.2 within 1 %', () => {
+    // 46NT71.csv (MaterialDigital, CC BY 4.0): producers' Rp0.2 1132.3 MPa and slope 201,876 MPa (header lines).
+    const lines = readFileSync(join(FIX, '46NT71.csv'), 'utf8').split('\n');
+    const head = lines.findIndex((l) => l.startsWith('Time\t'));
+    const rows = lines.slice(head + 2).filter((l) => l.trim() !== '').map((l) => { const c = l.split('\t'); return [c[0], c[3], c[2]].join('\t'); });
+    const f = join(dir, 'travel.csv');
+    writeFileSync(f, [...lines.slice(0, head), 'Time\tCrosshead\tForce', 's\tmm\tkN', ...rows].join('\n') + '\n');
+    const bare = run('analyze', f);
+    expect(bare.status).toBe(2);
+    expect(bare.stderr).toMatch(/elasticModulus: got 35550, allowed a modulus of a metal \(40–450 GPa\)/);
+    const r = run('analyze', f, '--modulus', '201876', '--format', 'json');
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expectRelClose(j.proofStrength, 1132.3, 0.01, 'Rp0.2 from the travel, compliance taken out');
+    expect(j.warnings.map((w: { code: string }) => w.code)).toContain('machineCompliance');
+  });
   it('a block of dropped rows (0 in every column) in the open record 46NT71 names the file line and the strain column, also after a blank line and in a second test', () => {
     // 46NT71.csv (MaterialDigital, CC BY 4.0): data from line 26, Engineering Strain in column 5. Lines 400–402 zeroed.
     const lines = readFileSync(join(FIX, '46NT71.csv'), 'utf8').split('\n');

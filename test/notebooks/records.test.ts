@@ -138,6 +138,31 @@ describe('record bench', () => {
     expect(errors).toEqual([]);
   });
 
+  it('the machine\'s travel as the strain: E refused, then the modulus field gives the specimen\'s E and the compliance is taken out', async () => {
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    // 46NT71 (MaterialDigital, CC BY 4.0) read through its Machine Displacement and Force columns.
+    const lines = readFileSync(FIXTURE, 'utf8').split(/\r?\n/);
+    const head = lines.findIndex((l) => l.startsWith('Time\t'));
+    const rows = lines.slice(head + 2).filter((l) => l.trim() !== '').map((l) => { const c = l.split('\t'); return [c[0], c[3], c[2]].join('\t'); });
+    await dropFile(page, 'travel.csv', [...lines.slice(0, head), 'Time\tCrosshead\tForce', 's\tmm\tkN', ...rows].join('\n') + '\n');
+    await expect.poll(() => page.locator('#cell-properties .sl-error').count(), { timeout: 30_000 }).toBe(1);
+    expect(await page.locator('#cell-properties .sl-error').innerText()).toMatch(/outside the range of metals .*modulus field/s);
+    await page.fill('#map-modulus', '201.876');
+    await page.click('#apply-mapping');
+    await expect.poll(() => page.locator('#cell-properties .sl-error').count(), { timeout: 30_000 }).toBe(0);
+    await settled(page, 'records');
+    // Producers' Rp0.2 1132.3 MPa (header line of 46NT71.csv); the travel read as it is gives 873 MPa.
+    expectRelClose(await num(page, 'proofStrength'), 1132.3, 0.01, 'Rp0.2 with the compliance taken out');
+    expect(await page.locator('[data-q="elasticModulus"]').innerText()).toMatch(/^201\.9 GPa$/);
+    expect(await page.locator('#cell-properties').innerText()).toMatch(/compliance, taken out as a linear spring/);
+    expect(await page.locator('#map-modulus').inputValue()).toBe('201.876');
+    // The curve as analysed: the axis says the compliance is out, and the elastic rise ends near 0.56 % (Rp0.2/E + 0.2 %), not 4 %.
+    expect(await page.locator('#cell-curve-chart').innerText()).toContain('machine compliance taken out');
+    await page.screenshot({ path: `${SCREENSHOTS}/records-machine-travel.png`, fullPage: true });
+    expect(errors).toEqual([]);
+  });
+
   it('a record whose columns are not recognised reads once its columns and units are mapped', async () => {
     const { page, errors } = await openPage(h, '/records/');
     await settled(page, 'records');

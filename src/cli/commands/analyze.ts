@@ -57,6 +57,7 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     elasticModulusSource: a.elasticModulusSource,
     measuredModulus: a.measuredModulus,
     measuredModulusInterval95: a.measuredModulusInterval95,
+    machineCompliance: a.machineCompliance ?? null,
     noise: a.noise,
     forceMaximum: a.forceMaximum,
     elasticWindow: a.elasticWindow,
@@ -266,7 +267,7 @@ export const analyze = defineCommand({
       ...(disagreement !== undefined ? { disagreementPct: disagreement } : {}),
       ...(modulus !== undefined ? { elasticModulus: modulus } : {}),
     };
-    const analyse = (r: TensileRecord) => withRecordLocation(r, () => withStrainUnitHint(r, () => analyzeRecord(r, aopts)));
+    const analyse = (r: TensileRecord) => withRecordLocation(r, () => withStrainUnitHint(r, () => analyzeRecord(r, r.machineTravel ? { ...aopts, machineTravel: true } : aopts)));
     // A file that holds several tests (the record starts over) becomes one record per test, each a specimen.
     const { splitTests } = await import('../splitTests.js');
     const parts = read.flatMap((r) => splitTests(r, analyse(r), analyse));

@@ -10,7 +10,7 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles' | 'strainChannelEnds' | 'unloadedBeforeFracture' | 'glitch' | 'secondTest'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'machineCompliance' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
   message: string;
 }
 
@@ -95,6 +95,12 @@ export interface TensileAnalysis {
   /** The E measured on the elastic band and its 95 % interval, MPa (also when a given E is used). */
   measuredModulus: number;
   measuredModulusInterval95: [number, number];
+  /**
+   * The machine's and grips' compliance taken out of a strain from the machine's travel (1/MPa: e − s·c; analyzeRecord's
+   * `machineTravel` with a given E, {@link removeMachineCompliance}); every strain-based property is read after it.
+   * null (or absent) when no compliance was taken out.
+   */
+  machineCompliance?: number | null;
   /** Noise of the stress estimated from the data (second differences, robust scale), MPa. */
   noise: number;
   /** How Rm and Ag were read: the local parabola around the top (samples, strain span, flat top). */
