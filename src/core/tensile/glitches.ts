@@ -49,12 +49,13 @@ export function glitchRun(n: number): number {
  * unload–reload reversal caught on a few samples: stress change / strain change between 10 and 1,800 GPa,
  * GLITCH.reversalModulus). A specimen cannot do that for a few samples and return: a yield drop or a fracture stays
  * down (the sample after it is far from the one before), a serration or the noise is far smaller, and an unloading
- * takes the strain back by the elastic amount only (a dropped row, exactly 0 in both columns, is never read as one). Each sample of a run is read as the
- * line between a and b (for one sample, their mean). Longer runs are not recognised (the analysis refuses a run of
- * zero stress on the plastic part, naming the sample).
+ * takes the strain back by the elastic amount only (a dropped row, exactly 0 in both columns, is never read as one).
+ * Each sample of a run is read as the line between a and b (for one sample, their mean). Longer runs are not
+ * recognised (the analysis refuses a run of zero stress on the plastic part, or a block of dropped rows, naming it).
  * `candidates` (per column, ascending indices where the value moved from the sample before by more than a limit
- * below 7/8 of the glitch limit — the move into a run is at least 7/8 of its offset for one sample, 11/12 for two —
- * collected by a pass the caller makes anyway) limits the search to the same hits; a column without them has every sample tested.
+ * below 7/8 of the glitch limit — the move into a run of any length is at least 1 − 1/(4(L + 1)) ≥ 7/8 of its
+ * offset — collected by a pass the caller makes anyway) limits the search to the same hits; a column without them
+ * has every sample tested.
  * Units: strain fraction, stress MPa. Cost: O(candidates), or O(N).
  * @example findGlitches([0, 0.01, 0.02, 0.03, 0.04], [100, 300, 900, 310, 320], 320).map((g) => g.index) // [2]
  */
@@ -79,11 +80,10 @@ export function findGlitches(strain: ArrayLike<number>, stress: ArrayLike<number
       least = Math.min(least, Math.abs(dev));
       // An unload–reload reversal caught on a few samples is a V in stress AND in strain, the same way, in the ratio
       // of an elastic modulus (within a factor of 4 of 40–450 GPa): the specimen's own, not a glitch (the invented
-      // loop record's four reversals had read as glitches). A dropped row (both columns 0) takes the strain back by
-      // all of it, far more than an unloading can: a glitch.
+      // loop record's four reversals had read as glitches). A dropped row reads exactly 0 in both columns: no
+      // reversal reaches both zeros exactly (the permanent strain, the noise), whatever the ratio of the two falls
+      // (one at 2.5 % and 369 MPa falls at 14.8 GPa), so it is a glitch.
       const o = other[k]! - line(other, i, L, k);
-      // A dropped row reads exactly 0 in both columns: no reversal reaches both zeros exactly (the permanent strain,
-      // the noise), whatever the ratio of the two falls (one at 2.5 % and 369 MPa falls at 14.8 GPa).
       if (o * dev > 0 && !(v === 0 && other[k] === 0)) {
         const modulus = isStress ? Math.abs(dev / o) : Math.abs(o / dev);
         if (modulus >= GLITCH.reversalModulus[0] && modulus <= GLITCH.reversalModulus[1]) return null;
