@@ -148,6 +148,11 @@ describe('record bench', () => {
     await dropFile(page, 'travel.csv', [...lines.slice(0, head), 'Time\tCrosshead\tForce', 's\tmm\tkN', ...rows].join('\n') + '\n');
     await expect.poll(() => page.locator('#cell-properties .sl-error').count(), { timeout: 30_000 }).toBe(1);
     expect(await page.locator('#cell-properties .sl-error').innerText()).toMatch(/outside the range of metals .*modulus field/s);
+    // A value that is no modulus is said in the field's words and unit.
+    await page.fill('#map-modulus', 'abc');
+    await page.click('#apply-mapping');
+    await expect.poll(async () => (await page.locator('#cell-properties .sl-error').innerText().catch(() => '')).includes('specimen\'s modulus E'), { timeout: 30_000 }).toBe(true);
+    expect(await page.locator('#cell-properties .sl-error').innerText()).toMatch(/specimen's modulus E: got "?not a number"?, allowed a modulus in GPa above 0/);
     await page.fill('#map-modulus', '201.876');
     await page.click('#apply-mapping');
     await expect.poll(() => page.locator('#cell-properties .sl-error').count(), { timeout: 30_000 }).toBe(0);
