@@ -158,8 +158,17 @@ export class RecordBuilder {
   private footer: { error: unknown; line: number; lastLine: number; rows: number; table: number; results: boolean; first: string } | null = null;
   /** Rows at the end whose strain cell is empty and stress a number (extensometer taken off), stored with the last strain held. */
   private held: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
-  /** Rows with no reading in any used column (empty or NaN cells; see push): the first and last line and how many. */
+  /** Rows with no reading in any used column (empty or NaN cells; see push) between rows with readings: the first and last line and how many. */
   private lost: { line: number; lastLine: number; rows: number } | null = null;
+  /** Such rows since the last row with readings (lost samples once another row comes, else rows after the data). */
+  private pendingLost: { line: number; lastLine: number; rows: number } | null = null;
+  /** Moves pendingLost into lost: a row with readings came after them. */
+  private settleLost(): void {
+    const p = this.pendingLost;
+    if (!p) return;
+    if (this.lost) { this.lost.rows += p.rows; this.lost.lastLine = p.lastLine; } else this.lost = p;
+    this.pendingLost = null;
+  }
   /** How a strain column without a unit was read (by its largest value), or null when the unit was known. */
   private strainUnitGuessed: 'fraction' | 'percent' | null = null;
   private machineTravel = false;
@@ -358,9 +367,11 @@ export class RecordBuilder {
     // A lost sample: every used cell empty or NaN while other columns (time, crosshead) were written. No reading to
     // keep; left out and said in finish (it had ended the data as a "footer" and then failed on the next row).
     if (this.n >= MIN_ROWS && noReading(f[a.index]) && (!a2 || noReading(f[a2.index])) && noReading(f[b.index])) {
-      this.lost ??= { line, lastLine: line, rows: 0 };
-      this.lost.rows++;
-      this.lost.lastLine = line;
+      // Pending until a row with readings follows (then lost samples inside the record) or the file ends (then rows
+      // after the test, such as a machine that logs on after fracture).
+      this.pendingLost ??= { line, lastLine: line, rows: 0 };
+      this.pendingLost.rows++;
+      this.pendingLost.lastLine = line;
       return;
     }
     let x: number, y: number;
@@ -380,6 +391,7 @@ export class RecordBuilder {
           this.held ??= { error: e, line, lastLine: line, rows: 0 };
           this.held.rows++;
           this.held.lastLine = line;
+          this.settleLost();
           this.pushHeld(held, line);
           return;
         }
@@ -407,6 +419,7 @@ export class RecordBuilder {
     // Numbers after a footer, or a strain again after empty strain cells: the first of those rows is the error.
     if (this.footer) throw this.footer.error;
     if (this.held) throw this.held.error;
+    this.settleLost();
     this.pushValues(x, y, line);
   }
 
@@ -544,11 +557,10 @@ export class RecordBuilder {
         this.fail(L.headerLine, p.a2.index + 1, p.a2.name, `${show(p.a.name)} and ${show(p.a2.name)} look like two channels of one extensometer, but their largest values (${+this.ch1.toPrecision(4)} and ${+this.ch2.toPrecision(4)}) ${this.ch1 === 0 || this.ch2 === 0 ? 'show one of them reading zero throughout' : this.ch1 * this.ch2 < 0 ? 'differ in sign' : `differ by more than ${CHANNEL_RATIO}×`}: not the two sides of one specimen; map the axial one with --column ${p.mode === 'fe' ? 'extension' : 'strain'}=NAME (or the record bench's column choice)`);
       }
     }
-    const lo = this.lost;
-    if (lo) {
-      const cols = [p.a, ...(p.a2 ? [p.a2] : []), p.b].map((c) => show(c.name)).join(', ');
-      this.warnings.push(`${lo.rows === 1 ? `line ${lo.line} holds` : `${lo.rows} rows from line ${lo.line} to line ${lo.lastLine} hold`} no reading in ${cols} (empty or NaN, the other columns written): left out as lost samples; check the export if there are many`);
-    }
+    const lo = this.lost, tr = this.pendingLost;
+    const cols = [p.a, ...(p.a2 ? [p.a2] : []), p.b].map((c) => show(c.name)).join(', ');
+    if (lo) this.warnings.push(`${lo.rows === 1 ? `line ${lo.line} holds` : `${lo.rows} rows from line ${lo.line} to line ${lo.lastLine} hold`} no reading in ${cols} (empty or NaN, the other columns written): left out as lost samples; check the export if there are many`);
+    if (tr) this.warnings.push(`${tr.rows === 1 ? `line ${tr.line} after the data holds` : `lines ${tr.line}–${tr.lastLine} after the data hold`} no reading in ${cols} (empty or NaN, the other columns written, as a machine that logs on after the test): left out; the record ends at line ${this.lastLine}`);
     const hd = this.held;
     if (hd) {
       this.warnings.push(`the ${p.mode === 'fe' ? 'extension' : 'strain'} column ${show(p.a.name)} is empty from line ${hd.line} to ${hd.lastLine === this.lastLine ? 'the end' : `line ${hd.lastLine}`} (${hd.rows} rows; extensometer taken off?): its last value is held there, so the force still counts for Rm; properties that need strain are read where it still changes`);

@@ -338,6 +338,21 @@ describe('lost samples: rows with no reading in the used columns (empty or NaN) 
       }
     });
   }
+  it('such rows at the end (a machine that logs the time on after the test): left out as rows after the data', async () => {
+    const t = text((i, j) => (i >= 37 && j > 0 ? '' : rows[i]![j]!));
+    const f = join(dir, 'trailing.csv');
+    writeFileSync(f, t);
+    for (const rec of [await readRecordFile(f), parseRecordText(t, { file: 'l.csv' })]) {
+      expect(rec.rows).toBe(37);
+      expect(rec.warnings.join('\n')).toMatch(/lines 39–41 after the data hold no reading in "Strain \[%\]", "Stress \[MPa\]" .*: left out; the record ends at line 38/);
+      expect(rec.warnings.join('\n')).not.toMatch(/lost samples/);
+    }
+    // Both: a lost sample inside and rows after the data.
+    const both = parseRecordText(text((i, j) => ((i === 20 || i >= 38) && j > 0 ? 'NaN' : rows[i]![j]!)), { file: 'b.csv' });
+    expect(both.rows).toBe(37);
+    expect(both.warnings.join('\n')).toMatch(/line 22 holds no reading in .*lost samples/);
+    expect(both.warnings.join('\n')).toMatch(/lines 40–41 after the data hold no reading/);
+  });
   it('one of the two cells lost, or a lost row among the first rows, is still an error naming line and column', () => {
     expect(() => parseRecordText(text((i, j) => (i === 20 && j === 2 ? '' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:3: Stress \[MPa\]: got "", expected a number/);
     expect(() => parseRecordText(text((i, j) => (i === 20 && j === 1 ? 'NaN' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:2: Strain \[%\]: got "NaN", expected a finite number/);
