@@ -326,6 +326,8 @@ describe('strainledger analyze with invalid input exits 2 with a clear message a
     const j = JSON.parse(r.stdout);
     expectRelClose(j.proofStrength, 1132.3, 0.01, 'Rp0.2 from the travel, compliance taken out');
     expect(j.warnings.map((w: { code: string }) => w.code)).toContain('machineCompliance');
+    expect(j.machineCompliance).toBeCloseTo(1 / j.measuredModulus - 1 / 201876, 12);
+    expect(run('analyze', f, '--modulus', '201876').stdout).toMatch(/E {12}201\.9 GPa \(given\) {3}measured 35\.6 GPa, 95 % [\d.]+–[\d.]+ \(machine and specimen; compliance 2\.32e-5 \/MPa taken out\)/);
   });
   it('a block of dropped rows (0 in every column) in the open record 46NT71 names the file line and the strain column, also after a blank line and in a second test', () => {
     // 46NT71.csv (MaterialDigital, CC BY 4.0): data from line 26, Engineering Strain in column 5. Lines 400–402 zeroed.

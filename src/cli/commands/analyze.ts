@@ -107,7 +107,10 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   lines.push(`${rec.file}${rec.test ? `, test ${rec.test.index} of ${rec.test.of} (samples ${rec.test.fromSample}–${rec.test.toSample})` : ''}  (${rec.rows} rows, ${rec.basis})`);
   const w = a.elasticWindow;
   const [ci0, ci1] = a.measuredModulusInterval95;
-  if (a.elasticModulusSource === 'given') lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa (given)   measured ${fmt(a.measuredModulus / 1000, 1)} GPa, 95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)}`);
+  if (a.elasticModulusSource === 'given') {
+    lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa (given)   measured ${fmt(a.measuredModulus / 1000, 1)} GPa, 95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)}` +
+      (a.machineCompliance ? ` (machine and specimen; compliance ${a.machineCompliance.toExponential(2)} /MPa taken out)` : ''));
+  }
   else lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa   95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)} GPa, band ${fmt(w.fromStress, 0)}–${fmt(w.toStress, 0)} MPa, ${w.points} points, R² ${w.r2.toFixed(5)}`);
   lines.push(`  noise        ${a.noise.toPrecision(2)} MPa (estimated from the record)`);
   lines.push(`  Rp${a.proofOffsetPct}        ${fmt(a.proofStrength)} MPa   Rp0.5 ${fmt(a.proofStrengths[1]?.stress)}   Rp1 ${fmt(a.proofStrengths[2]?.stress)}   Rt0.5 ${fmt(a.totalExtensionStrength)}`);

@@ -186,7 +186,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
       el = elasticModulus(strain, stress, sMax, noise);
       warnings.push({
         code: 'machineCompliance',
-        message: `strain from the machine's travel: its elastic slope ${(apparent.modulus / 1000).toFixed(1)} GPa (band ${apparent.window.fromStress.toFixed(0)}–${apparent.window.toStress.toFixed(0)} MPa) against the given E ${(given / 1000).toFixed(1)} GPa is the machine's and grips' compliance, taken out as a linear spring: e − s·${compliance.toPrecision(3)} /MPa. ` +
+        message: `strain from the machine's travel: its elastic slope ${(apparent.modulus / 1000).toFixed(1)} GPa (band ${apparent.window.fromStress.toFixed(0)}–${apparent.window.toStress.toFixed(0)} MPa) against the given E ${(given / 1000).toFixed(1)} GPa is the machine's and grips' compliance, taken out as a linear spring: e − s·${compliance.toExponential(2)} /MPa. ` +
           'Rp0.2 is then close to an extensometer\'s; Ag and A still count the whole parallel length and the fillets (read high): take them from an extensometer',
       });
     } else {
