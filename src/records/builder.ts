@@ -613,9 +613,12 @@ export class RecordBuilder {
   }
 }
 
-/** An empty or NaN cell, or none (a short row): no reading. */
+/**
+ * An empty or NaN cell: no reading. A cell the row does not have (a short row: a footer line, a line cut short) is
+ * not one — such a row goes on to the footer rules and, inside the data, to the located error.
+ */
 function noReading(c: string | undefined): boolean {
-  return c === undefined || /^\s*([+-]?nan)?\s*$/i.test(c);
+  return c !== undefined && /^\s*([+-]?nan)?\s*$/i.test(c);
 }
 
 /**

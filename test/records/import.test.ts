@@ -353,6 +353,13 @@ describe('lost samples: rows with no reading in the used columns (empty or NaN) 
     expect(both.warnings.join('\n')).toMatch(/line 22 holds no reading in .*lost samples/);
     expect(both.warnings.join('\n')).toMatch(/lines 40–41 after the data hold no reading/);
   });
+  it('a row cut short inside the data is still an error, and a text footer still a footer (their cells are missing, not empty)', () => {
+    const cut = 'Time [s],Strain [%],Stress [MPa]\n' + rows.map((r, i) => (i === 20 ? r[0]! : r.join(','))).join('\n') + '\n';
+    expect(() => parseRecordText(cut, { file: 'c.csv' })).toThrow(/^c\.csv:22:2: Strain \[%\]: the row has 1 field; expected 3 as in the header/);
+    const foot = parseRecordText(text((i, j) => rows[i]![j]!) + 'Results\nMaximum force,23.5\n', { file: 'f.csv' });
+    expect(foot.rows).toBe(40);
+    expect(foot.warnings.join('\n')).toMatch(/lines 42–43 after the data are not rows of numbers .*read as a footer and left out/);
+  });
   it('one of the two cells lost, or a lost row among the first rows, is still an error naming line and column', () => {
     expect(() => parseRecordText(text((i, j) => (i === 20 && j === 2 ? '' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:3: Stress \[MPa\]: got "", expected a number/);
     expect(() => parseRecordText(text((i, j) => (i === 20 && j === 1 ? 'NaN' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:2: Strain \[%\]: got "NaN", expected a finite number/);
