@@ -80,10 +80,10 @@ self.onmessage = (e: MessageEvent<WorkerRequest>) => {
         record = testOf(record, starts, k);
       }
     }
-    // A given modulus replaces the measured one; with the machine's travel as the strain it also takes the machine's
-    // compliance out (analyzeRecord's machineTravel), as the command line does.
     // The page's field is in GPa: a value that is no modulus is said in its words (the core would say elasticModulus, MPa).
     if (modulus !== undefined && !(modulus > 0 && Number.isFinite(modulus))) throw new InputError('specimen\'s modulus E', Number.isNaN(modulus) ? 'not a number' : modulus / 1000, 'a modulus in GPa above 0 (metals: 40–450 GPa), or the field left empty to measure E from the record');
+    // A given modulus replaces the measured one; with the machine's travel as the strain it also takes the machine's
+    // compliance out (analyzeRecord's machineTravel), as the command line does.
     const analysis = analyzeRecord(record, { ...(modulus !== undefined ? { elasticModulus: modulus } : {}), ...(record.machineTravel ? { machineTravel: true } : {}) });
     if (analysis.furtherTests.length) tests = { count: analysis.furtherTests.length + 1, shown: 1 };
     // Residuals travel as Float64Arrays (a typed array is copied in one block; a plain array of
