@@ -269,8 +269,13 @@ export function yieldPoint(
   while (up < endRel && ma[up]! <= level) up++;
   let pa = d + up;
   if (end + 1 - pa < 10) pa = d + Math.max(r0Rel, s0);
-  let ib = end;
-  while (ib < maxIndex && strain[ib]! - strain[end]! < Y.hardeningStrain) ib++;
+  // A plateau that rises (a sloping Lüders plateau; ISO 6892-1 allows yielding at "about" constant force) passes
+  // level + band before it ends: the smoothed plateau is then measured against its own least-squares line, carried
+  // on, so that the hinge fit below sees the knee and the hardening after it.
+  const sEnd = plateauLineEnd(strain, ma, d, pa - d, endRel, band);
+  let ib = Math.max(end, sEnd);
+  const hEnd = ib;
+  while (ib < maxIndex && strain[ib]! - strain[hEnd]! < Y.hardeningStrain) ib++;
   // The hinge is sought in the second half of the plateau found by the smooth (its first half is plateau).
   const h = plateauHinge(strain, stress, pa, ib + 1, noise, 0.5 * (strain[pa]! + strain[end]!));
   let rel = level, endStrain = strain[end]!;
@@ -355,7 +360,8 @@ function riseFallBreak(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b:
 /**
  * The yield plateau and the start of work hardening, fitted together: a level plateau (ISO 6892-1: yielding at
  * about constant force) that turns into a hardening branch at x_k, continuously — y = m + b₁·z + b₂·z²,
- * z = max(0, x − x_k) (a hinge or
+ * z = max(0, x − x_k); or a sloping plateau, y = m + p·(x − x_k) + b₁·z + b₂·z², taken where {@link slopeCounts}
+ * finds it borne out (a hinge or
  * segmented regression, common practice; J. D. Toms and M. L. Lesperance, "Piecewise regression", Ecology 84
  * (2003), from memory). For a fixed x_k the model is linear; x_k is found by a grid and golden-section search on
  * the residual sum, over block averages (≤ 1000, {@link blockAverage}) of the samples [from, to).
@@ -380,45 +386,55 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
   if (nb < 12) return null;
   const x0 = bl.x[0]!, span = bl.x[nb - 1]! - x0;
   if (!(span > 0)) return null;
-  const K = 3, S = new Float64Array(K * K), T = new Float64Array(K), c = new Float64Array(K);
-  const solve = (xk: number) => {
-    // Normal equations of the columns [1, z, z²] (z = max(0, x − xk)/span), weighted by block size.
+  const S = new Float64Array(16), T = new Float64Array(4), c = new Float64Array(4);
+  const solve = (xk: number, sloped: boolean) => {
+    // Normal equations of the columns [1, z, z²] or, for a sloping plateau, [1, u, z, z²] (u = (x − xk)/span,
+    // z = max(0, u)), weighted by block size.
+    const K = sloped ? 4 : 3;
     S.fill(0); T.fill(0);
     let yy = 0;
     for (let b = 0; b < nb; b++) {
       const u = (bl.x[b]! - xk) / span, z = u > 0 ? u : 0, wt = bl.w[b]!, y = bl.y[b]!;
-      c[0] = 1; c[1] = z; c[2] = z * z;
+      if (sloped) { c[0] = 1; c[1] = u; c[2] = z; c[3] = z * z; } else { c[0] = 1; c[1] = z; c[2] = z * z; }
       for (let r = 0; r < K; r++) { T[r]! += wt * c[r]! * y; for (let q = r; q < K; q++) S[r * K + q]! += wt * c[r]! * c[q]!; }
       yy += wt * y * y;
     }
     for (let r = 0; r < K; r++) for (let q = 0; q < r; q++) S[r * K + q] = S[q * K + r]!;
-    const coef = solveSmall(S, T, K, 1e-14);
+    const coef = solveSmall(S.subarray(0, K * K), T.subarray(0, K), K, 1e-14);
     if (!coef) return null;
     let ssr = yy;
     for (let r = 0; r < K; r++) ssr -= coef[r]! * T[r]!;
+    const o = sloped ? 1 : 0;
     // Work hardening rises from the plateau: a branch that leaves it downwards is a serration, not hardening.
-    if (!(coef[1]! > 0)) return null;
-    return { m: coef[0]!, p: 0, b1: coef[1]! / span, c1: coef[1]!, c2: coef[2]!, ssr };
+    if (!(coef[o + 1]! > 0)) return null;
+    return { m: coef[0]!, p: sloped ? coef[1]! / span : 0, b1: coef[o + 1]! / span, c1: coef[o + 1]!, c2: coef[o + 2]!, ssr };
   };
   const lo0 = Math.max(bl.x[3]!, Math.min(earliest, bl.x[nb - 5]!)), hi0 = bl.x[nb - 4]!;
   const G = 60;
-  let best: { xk: number; f: NonNullable<ReturnType<typeof solve>> } | null = null;
-  for (let g = 0; g <= G; g++) {
-    const xk = lo0 + ((hi0 - lo0) * g) / G;
-    const f = solve(xk);
-    if (f && (!best || f.ssr < best.f.ssr)) best = { xk, f };
-  }
+  const search = (sloped: boolean) => {
+    let best: { xk: number; f: NonNullable<ReturnType<typeof solve>> } | null = null;
+    for (let g = 0; g <= G; g++) {
+      const xk = lo0 + ((hi0 - lo0) * g) / G;
+      const f = solve(xk, sloped);
+      if (f && (!best || f.ssr < best.f.ssr)) best = { xk, f };
+    }
+    if (!best) return null;
+    let a = Math.max(lo0, best.xk - (hi0 - lo0) / G), b = Math.min(hi0, best.xk + (hi0 - lo0) / G);
+    const gr = (Math.sqrt(5) - 1) / 2;
+    for (let k = 0; k < 40 && b - a > 1e-12; k++) {
+      const x1 = b - gr * (b - a), x2 = a + gr * (b - a);
+      const f1 = solve(x1, sloped), f2 = solve(x2, sloped);
+      if (!f1 || !f2) break;
+      if (f1.ssr < f2.ssr) b = x2; else a = x1;
+    }
+    const xm = 0.5 * (a + b), fm = solve(xm, sloped);
+    if (fm && fm.ssr <= best.f.ssr) best = { xk: xm, f: fm };
+    return best;
+  };
+  const level = search(false), sloping = search(true);
+  let best = level ?? sloping;
   if (!best) return null;
-  let a = Math.max(lo0, best.xk - (hi0 - lo0) / G), b = Math.min(hi0, best.xk + (hi0 - lo0) / G);
-  const gr = (Math.sqrt(5) - 1) / 2;
-  for (let k = 0; k < 40 && b - a > 1e-12; k++) {
-    const x1 = b - gr * (b - a), x2 = a + gr * (b - a);
-    const f1 = solve(x1), f2 = solve(x2);
-    if (!f1 || !f2) break;
-    if (f1.ssr < f2.ssr) b = x2; else a = x1;
-  }
-  const xm = 0.5 * (a + b), fm = solve(xm);
-  if (fm && fm.ssr <= best.f.ssr) best = { xk: xm, f: fm };
+  if (sloping && (!level || slopeCounts(bl, span, level.f.ssr, sloping.xk, sloping.f))) best = sloping;
   const { xk, f } = best;
   // Spread of the raw plateau samples about the plateau line.
   let m = 0, v = 0;
@@ -432,7 +448,7 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
   for (let i = from; i < to; i++) {
     const z = (strain[i]! - xk) / span;
     if (z <= 0) continue;
-    const r = stress[i]! - (f.m + f.c1 * z + f.c2 * z * z);
+    const r = stress[i]! - (f.m + f.p * (strain[i]! - xk) + f.c1 * z + f.c2 * z * z);
     vh += r * r; mh++;
   }
   const n2 = mh >= 10 ? Math.max(noise * noise, vh / (mh - 3)) : noise * noise;
@@ -443,12 +459,68 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
   // The branch's slope where it leaves the plateau: the larger of its tangent at x_k and its secant over the first
   // 0.3 % strain (a branch fitted flat at x_k and curving up later would otherwise send the back-step far back).
   const zs = Math.min(0.003, strain[to - 1]! - xk) / span;
-  const secant = zs > 0 ? (f.c1 * zs + f.c2 * zs * zs) / (zs * span) : 0;
+  const secant = zs > 0 ? f.p + (f.c1 * zs + f.c2 * zs * zs) / (zs * span) : 0;
   const slope = Math.max(f.p + f.b1, secant);
   const back = slope > 0 ? Math.min(A / 2 / slope, 0.5 * (xk - strain[from]!)) : 0;
   return { lowerYield, hardeningStart: Math.max(strain[from]!, xk - back), level: f.m, slope, spread: A };
 }
 
+
+/** How far a sloping plateau's line is carried above where the level band ended, fraction of the level (Lüders plateaus rise or fall by well under 1 % of ReL — common practice). */
+const PLATEAU_RISE = 0.01;
+/** A sloping plateau is taken only when the hardening branch leaves it at least this many times steeper than it rises or falls (a knee, not a bend of the plateau). */
+const KNEE_RATIO = 3;
+/** …and when the slope lowers the residual sum by more than this many residual variances (widened for serially correlated residuals). */
+const SLOPE_SIGMAS2 = 9;
+
+/**
+ * Whether a sloping plateau (plateauHinge's model with the plateau slope p free) is borne out against a level one:
+ * the branch leaves the plateau at least KNEE_RATIO times steeper than |p|, and the residual sum falls by more than
+ * SLOPE_SIGMAS2 residual variances, the variance taken from the sloping fit and multiplied by (1 + ρ)/(1 − ρ) for the
+ * lag-1 autocorrelation ρ of its residuals (serrations and smooth noise are not independent from block to block;
+ * the same n/n_eff as the elastic band's).
+ */
+function slopeCounts(bl: { x: ArrayLike<number>; y: ArrayLike<number> }, span: number, ssrLevel: number, xk: number, f: { m: number; p: number; c1: number; c2: number; b1: number; ssr: number }): boolean {
+  if (!(f.p + f.b1 >= KNEE_RATIO * Math.abs(f.p))) return false;
+  const nb = bl.x.length;
+  let prev = NaN, s01 = 0, s00 = 0;
+  for (let b = 0; b < nb; b++) {
+    const u = (bl.x[b]! - xk) / span, z = u > 0 ? u : 0;
+    const r = bl.y[b]! - (f.m + f.p * span * u + f.c1 * z + f.c2 * z * z);
+    if (b > 0) s01 += prev * r;
+    s00 += r * r; prev = r;
+  }
+  const rho = s00 > 0 ? Math.min(0.95, Math.max(0, s01 / s00)) : 0;
+  // The residual sum is weighted by block size, Σ w·r², so its expected value is (blocks − 5)·σ² per sample.
+  const variance = (f.ssr / Math.max(1, nb - 5)) * ((1 + rho) / (1 - rho));
+  return ssrLevel - f.ssr > SLOPE_SIGMAS2 * variance;
+}
+
+/**
+ * End of a rising plateau: the least-squares line of the smoothed stress ma over samples [from, to] (relative to
+ * d) against strain, and the last sample where ma stays within `band` of that line carried on. Returns d + to when
+ * the line does not rise (a level or falling plateau ends where the level band says).
+ */
+function plateauLineEnd(strain: ArrayLike<number>, ma: ArrayLike<number>, d: number, from: number, to: number, band: number): number {
+  const n = to - from + 1;
+  if (n < 10) return d + to;
+  let sx = 0, sy = 0;
+  for (let k = from; k <= to; k++) { sx += strain[d + k]!; sy += ma[k]!; }
+  const xb = sx / n, yb = sy / n;
+  let sxx = 0, sxy = 0;
+  for (let k = from; k <= to; k++) { const dx = strain[d + k]! - xb; sxx += dx * dx; sxy += dx * (ma[k]! - yb); }
+  if (!(sxx > 0) || !(sxy > 0)) return d + to;
+  const slope = sxy / sxx;
+  let end = to;
+  for (let k = to; k < ma.length; k++) {
+    const line = yb + slope * (strain[d + k]! - xb);
+    // A plateau rises by little ("about constant force"): past PLATEAU_RISE of its level above where the level
+    // band ended, the line is carried no further (a short plateau's line can be the start of hardening).
+    if (line > ma[to]! + PLATEAU_RISE * yb) break;
+    if (ma[k]! <= line + band) end = k;
+  }
+  return d + end;
+}
 
 /** (1 + ρ)/(1 − ρ) for the lag-1 autocorrelation ρ of the residuals of the line a + b·x over [from, to), ρ in [0, 0.9]. */
 function lag1Factor(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, a: number, b: number): number {

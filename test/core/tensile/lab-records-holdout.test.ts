@@ -33,7 +33,9 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 1000 + i);
 // Fifth session (2026-12-03), the top model bounded to a top that falls away from its vertex, Ag the Akaike-weighted
 // mean of a kinked and a smooth top: Ag off by more than 0.4 point (warned or not) 114 → 52 of 200; outside its
 // interval 4 → 4.
-const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 4, ReH: 2, 'Rp0.2': 1 };
+// Thirteenth session: the plateau–hardening hinge may take a sloping plateau where the data bear it out, and its
+// window follows a rising plateau to its knee (sloping-plateau.test.ts): noisy Ae 4 → 2.
+const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 2, ReH: 2, 'Rp0.2': 1 };
 // Sixth session: the top fit's bound test allows rounding (a side tied to zero end slope, on its bound by
 // construction, had been refused at random): 28 of the 760 noisy records of the four generators moved by 0.01–0.14
 // point either way, and seed 1110 from 0.398 to 0.423 point off: 52 → 53.
