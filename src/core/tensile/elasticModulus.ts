@@ -247,10 +247,10 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
       agrees = lm !== null && Math.abs(lm.slope - low.slope) <= 3 * Math.hypot(low.se, tg.standardError);
     }
     if (tg && agrees && tg.modulus > E && tg.modulus <= W.plausible[1]) {
-      issues.push({ code: 'gradualYield', message: `the rise bends from low stress on (no straight elastic part, as in austenitic stainless steels and many aluminium alloys): E = ${(tg.modulus / 1000).toFixed(1)} GPa is the initial tangent of a Ramberg–Osgood-form curve (exponent ${tg.power}) fitted over ${bandLo.toFixed(0)}–${stress[ib - 1]!.toFixed(0)} MPa; a straight line gives ${(E / 1000).toFixed(1)} GPa, which would overstate Rp0.2. Give the modulus if it is known` });
+      issues.push({ code: 'gradualYield', message: `the rise bends from low stress on (no straight elastic part, as in austenitic stainless steels and many aluminium alloys): E = ${(tg.modulus / 1000).toFixed(1)} GPa is the initial tangent of a Ramberg–Osgood-form curve (exponent ${tg.power.toFixed(1)}) fitted over ${bandLo.toFixed(0)}–${stress[ib - 1]!.toFixed(0)} MPa; a straight line gives ${(E / 1000).toFixed(1)} GPa, which would overstate Rp0.2. Give the modulus if it is known` });
       secant = E;
-      E = tg.modulus; se = tg.standardError; r2 = tg.r2; dof = Math.max(1, tg.points - 2); toeStrain = tg.toeStrain; nUsed = tg.points; i0 = ia; i1 = ib; bandHi = stress[ib - 1]!;
-      method = `initial tangent of ε = a + σ/E + d·(σ/S)^${tg.power} (Ramberg–Osgood form) fitted from the band's lower end to ${W.gradualTop * 100} % of the record's Rp0.2 estimate; toe-compensated`;
+      E = tg.modulus; se = tg.standardError; r2 = tg.r2; dof = Math.max(1, tg.points - 4); toeStrain = tg.toeStrain; nUsed = tg.points; i0 = ia; i1 = ib; bandHi = stress[ib - 1]!;
+      method = `initial tangent of ε = a + σ/E + d·(σ/S)^${tg.power.toFixed(1)} (Ramberg–Osgood form) fitted from the band's lower end to ${W.gradualTop * 100} % of the record's Rp0.2 estimate; toe-compensated`;
     }
   }
   const t = studentTQuantile(0.975, dof);
