@@ -33,14 +33,14 @@ const POWERS = [3, 3.5, 4, 4.5, 5, 5.5, 6, 7, 8, 9, 10, 12, 14, 16, 20, 25, 32, 
  * Model over the band [from, to), in the Ramberg–Osgood form (strain as a function of stress):
  *   ε = a + σ/E + d·(σ/S)^m,  d ≥ 0,  S = the band's highest stress.
  * For each m in {3, 3.5, 4, …, 40} the three coefficients (a, 1/E, d) come from linear least squares; the m with
- * the smallest residual sum wins, refined by golden-section search between its grid neighbours. The bend is taken as real when it lowers the straight line's residual sum
- * by more than `sigmas`² variances (an F-test with the variance known: the larger of the record's stress
+ * the smallest residual sum wins, refined by golden-section search between its grid neighbours. The bend is taken
+ * as real when it lowers the straight line's residual sum by more than `sigmas`² variances (an F-test with the variance known: the larger of the record's stress
  * noise carried into strain, (noise/E)², and the residual variance). The noise sits in the stress, the
  * regressor here, which flattens the fitted 1/E by the factor λ = 1 − noise²/var(σ) (regression dilution;
  * Fuller, Measurement Error Models, 1987, §1.1); 1/E is divided by λ to undo it. E's standard error follows
  * from the least-squares covariance of 1/E (σ̂²·(JᵀJ)⁻¹ with J the columns [1, σ − σ̄, w, d·w·ln(σ/S)], w = (σ/S)^m:
- * the exponent counted as fitted; Bates & Watts, Nonlinear Regression Analysis, 1988, §2.3, from memory), widened by n/n_eff for autocorrelated residuals
- * (n_eff = n(1 − r₁)/(1 + r₁)), carried through 1/x. The toe-compensated origin is
+ * the exponent counted as fitted; Bates & Watts, Nonlinear Regression Analysis, 1988, §2.3, from memory), widened
+ * by n/n_eff for autocorrelated residuals (n_eff = n(1 − r₁)/(1 + r₁)), carried through 1/x. The toe-compensated origin is
  * a, the strain where the fitted curve meets zero stress.
  *
  * Units: strain fraction, stress MPa, E MPa. Valid: at least 12 points in the band, rising.

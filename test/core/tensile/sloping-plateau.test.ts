@@ -9,6 +9,9 @@ import { analyzeRecord, xoshiro128ss } from '../../../src/core/index.js';
 // z = n − a), necking to 80 % of Rm and fracture.
 // Truth by the ISO 6892-1 definitions on the noise-free curve: Ae from ReH to where work hardening starts (eL),
 // ReL the lowest stress during yielding (the plateau's lower end).
+// Tolerances: noise-free, Ae within 0.05 point (an eighth of issue 12's 0.4 point; the samples lie 0.005 point
+// apart) and ReL within 0.1 % (the plateau line is fitted to exact samples); ReH within issue 12's 1.5 %, as the
+// highest sample before the drop stands up to 10 MPa below the true peak at this sample spacing.
 // Before the sloping plateau was fitted, a plateau rising by 0.45 % over 2 % strain read Ae 1.2 points short (the
 // level plateau's band ended part-way up the slope and the hinge fit took the rise for the start of hardening).
 const E = 205_000, RE_L = 280, N = 0.2, A0 = 0.02;
