@@ -108,12 +108,14 @@ function drawMapping(): void {
     unitSel('map-forceUnit', 'force unit', shown(['N', 'kN', 'lbf', 'kip', 'kgf'], FORCE_UNITS)), unitSel('map-lengthUnit', 'extension unit', shown(['mm', 'in', 'cm', 'm', 'µm'], LENGTH_UNITS)),
     // Round specimens by diameter, flat ones (strip, sheet) by width and thickness: the cross-section a force column needs.
     num('map-diameter', 'specimen diameter'), num('map-width', 'or width'), num('map-thickness', 'and thickness'), num('map-gaugeLength', 'gauge length'),
+    // With the machine's travel as the extension: the length its plastic part is read over (Ag, A; see spreadOverParallelLength).
+    num('map-parallelLength', 'parallel length (crosshead records)'),
     // The specimen's E, when the record cannot measure it (too few elastic points, the machine's travel as the strain).
     h('div', { class: 'sl-input' }, h('label', { for: 'map-modulus' }, 'specimen\'s modulus E, if known'), h('input', { type: 'text', inputmode: 'decimal', id: 'map-modulus', class: 'sl-number' }), ' GPa'),
     h('button', { type: 'button', id: 'apply-mapping', onclick: applyMapping }, 'read the record again with these settings'));
   const unitKeys = ['strainUnit', 'stressUnit', 'forceUnit', 'lengthUnit'] as const;
   for (const k of unitKeys) (byId(`map-${k}`) as HTMLSelectElement).value = String(options[k] ?? '');
-  for (const k of ['diameter', 'width', 'thickness', 'gaugeLength'] as const) (byId(`map-${k}`) as HTMLInputElement).value = options[k] === undefined ? '' : String(options[k]);
+  for (const k of ['diameter', 'width', 'thickness', 'gaugeLength', 'parallelLength'] as const) (byId(`map-${k}`) as HTMLInputElement).value = options[k] === undefined ? '' : String(options[k]);
   (byId('map-modulus') as HTMLInputElement).value = modulus === undefined ? '' : String(modulus / 1000);
 }
 
@@ -135,7 +137,7 @@ function applyMapping(): void {
     const v = (byId(`map-${k}`) as HTMLSelectElement).value;
     if (v) o[k] = v;
   }
-  for (const k of ['diameter', 'width', 'thickness', 'gaugeLength'] as const) {
+  for (const k of ['diameter', 'width', 'thickness', 'gaugeLength', 'parallelLength'] as const) {
     const t = (byId(`map-${k}`) as HTMLInputElement).value.trim();
     if (t) o[k] = Number(t); // the parser validates the number and names the field when it is wrong
   }

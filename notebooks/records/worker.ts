@@ -4,7 +4,7 @@
 import { analyzeRecord, ComputationError, InputError, testStarts } from '../../src/core/index.js';
 import type { TensileAnalysis } from '../../src/core/index.js';
 import { PlanError } from '../../src/plan/problems.js';
-import { parseRecordText, sampleLine, strainUnitHint } from '../../src/records/index.js';
+import { parseRecordText, sampleLine, strainUnitHint, travelOptions } from '../../src/records/index.js';
 import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
 
 /** An error as plain data (classes do not cross to the page); `recordError` in main.ts rebuilds it. */
@@ -84,7 +84,7 @@ self.onmessage = (e: MessageEvent<WorkerRequest>) => {
     if (modulus !== undefined && !(modulus > 0 && Number.isFinite(modulus))) throw new InputError('specimen\'s modulus E', Number.isNaN(modulus) ? 'not a number' : modulus / 1000, 'a modulus in GPa above 0 (metals: 40–450 GPa), or the field left empty to measure E from the record');
     // A given modulus replaces the measured one; with the machine's travel as the strain it also takes the machine's
     // compliance out (analyzeRecord's machineTravel), as the command line does.
-    const analysis = analyzeRecord(record, { ...(modulus !== undefined ? { elasticModulus: modulus } : {}), ...(record.machineTravel ? { machineTravel: true } : {}) });
+    const analysis = analyzeRecord(record, { ...(modulus !== undefined ? { elasticModulus: modulus } : {}), ...travelOptions(record) });
     if (analysis.furtherTests.length) tests = { count: analysis.furtherTests.length + 1, shown: 1 };
     // Residuals travel as Float64Arrays (a typed array is copied in one block; a plain array of
     // 100,000 numbers element by element).

@@ -19,11 +19,12 @@ function thin(n: number): number[] {
  * strain channel ended before fracture (extensometer taken off) the curve stops there, at a dotted line
  * that says so: the samples after it have force but no strain of the specimen. Of a record that holds several tests
  * (`furtherTests`) only the first, the one analysed, is drawn. A strain from the machine's travel whose compliance the
- * analysis took out (`machineCompliance`, c) is drawn as analysed, e − s·c, and the axis says so.
+ * analysis took out (`machineCompliance`, c) is drawn as analysed, e − s·c, and the axis says so; where its plastic
+ * part was also spread over the parallel length (`parallelLengthRatio`, r = L0/Lc), as s/E + (e − s·c − s/E)·r.
  */
 export function recordCurveChart(
   record: { strain: ArrayLike<number>; stress: ArrayLike<number> },
-  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null; furtherTests?: readonly number[]; machineCompliance?: number | null },
+  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null; furtherTests?: readonly number[]; machineCompliance?: number | null; parallelLengthRatio?: number | null; elasticModulus?: number },
   o: { width?: number; height?: number; document?: Document } = {},
 ): SVGSVGElement | HTMLElement {
   const end = analysis.strainChannelEnd ?? null;
@@ -31,14 +32,17 @@ export function recordCurveChart(
   const samples = Math.min(record.strain.length, analysis.furtherTests?.[0] ?? Infinity);
   const idx = thin(end ? end.index : samples);
   const c = analysis.machineCompliance ?? 0;
-  const at = (i: number) => ({ e: (record.strain[i]! - record.stress[i]! * c) * 100, s: record.stress[i]! });
+  const r = analysis.parallelLengthRatio ?? 1, E = analysis.elasticModulus ?? 0;
+  const at = r !== 1 && E > 0
+    ? (i: number) => { const s = record.stress[i]!; return { e: (s / E + (record.strain[i]! - s * c - s / E) * r) * 100, s }; }
+    : (i: number) => ({ e: (record.strain[i]! - record.stress[i]! * c) * 100, s: record.stress[i]! });
   const pts = idx.map(at);
   const w = analysis.elasticWindow;
   const win: { e: number; s: number }[] = [];
   for (let i = w.fromIndex; i < w.toIndex; i++) win.push(at(i));
   return Plot.plot({
     ...chartFrame(o, 520, 300),
-    x: { ...X_AXIS, label: c ? 'engineering strain, machine compliance taken out (%)' : 'engineering strain (%)', grid: true },
+    x: { ...X_AXIS, label: c ? (r !== 1 && E > 0 ? 'engineering strain, machine compliance taken out, plastic over Lc (%)' : 'engineering strain, machine compliance taken out (%)') : 'engineering strain (%)', grid: true },
     y: { label: 'engineering stress (MPa)', grid: true },
     marks: [
       Plot.ruleY([0], { stroke: PALETTE.grid }),

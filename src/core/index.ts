@@ -118,7 +118,7 @@ export { runScatter } from './scatter/run.js';
 export type { RunScatterOptions } from './scatter/run.js';
 
 // Tensile records: standard properties (issue 3)
-export { analyzeRecord, ANALYZE_DEFAULTS, removeMachineCompliance } from './tensile/analyzeRecord.js';
+export { analyzeRecord, ANALYZE_DEFAULTS, removeMachineCompliance, spreadOverParallelLength } from './tensile/analyzeRecord.js';
 export type { AnalyzeOptions } from './tensile/analyzeRecord.js';
 export { analyzeSpecimens, summarizeSpecimens, SPECIMEN_PROPERTIES } from './tensile/analyzeSpecimens.js';
 export type { SpecimenSet, PropertySummary, SpecimenProperty } from './tensile/analyzeSpecimens.js';

@@ -24,6 +24,8 @@ export interface RecordOptions {
   diameter?: number;
   /** Extensometer gauge length, mm. */
   gaugeLength?: number;
+  /** The specimen's parallel length Lc, mm (used with the machine's travel as the extension). */
+  parallelLength?: number;
 }
 
 /** A record read from a lab export, converted to engineering strain (fraction) and engineering stress (MPa). */
@@ -44,7 +46,7 @@ export interface TensileRecord {
    */
   columns: Partial<Record<Role, { name: string; column: number; unit: string; averagedWith?: { name: string; column: number } }>>;
   /** Cross-section (mm²) and gauge length (mm) used for a force–extension record; a force–strain record needs no gauge length (null). */
-  geometry: { area: number; gaugeLength: number | null } | null;
+  geometry: { area: number; gaugeLength: number | null; parallelLength?: number } | null;
   /** Metadata lines before the header. */
   metadata: Map<string, { key: string; value: string; unit: string; line: number }>;
   /** How a strain column without a unit was read, by its largest value (more than 1: percent), or null when its unit was known. */
@@ -114,6 +116,8 @@ interface Plan {
   trueValues: boolean;
   area: number;
   gauge: number;
+  /** The specimen's parallel length Lc, mm, where an option or a metadata line gives it (force–extension only). */
+  parallel?: number;
 }
 
 /** Collects rows into growable typed arrays; validates every used cell with its line and column. */
@@ -266,7 +270,7 @@ export class RecordBuilder {
       if (f === undefined) this.fail(override !== undefined ? undefined : unitCell(c).line, override !== undefined ? undefined : unitCell(c).col, c.name, `unit ${show(u)} is not a ${q} unit; allowed ${allowedUnits(q)}`);
       return f;
     };
-    let fa: number, fb: number, area = 0, gauge = 0;
+    let fa: number, fb: number, area = 0, gauge = 0, parallel: number | undefined;
     if (mode === 'ss' || mode === 'fs') {
       fb = mode === 'ss' ? factor('stress', b, opts.stressUnit) : factor('force', b, opts.forceUnit);
       const su = opts.strainUnit ?? unitOf(a);
@@ -284,14 +288,15 @@ export class RecordBuilder {
       ({ area, gauge } = this.geometry(opts));
       if (isMachineTravel(a)) {
         this.machineTravel = true;
-        this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the specimen's modulus (--modulus, or the record bench's modulus field) and that compliance is taken out, or prefer an extensometer channel`);
+        parallel = this.parallelLengthOf(opts, gauge);
+        this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the specimen's modulus (--modulus, or the record bench's modulus field) and that compliance is taken out${parallel === undefined ? ', and its parallel length (--parallel-length, or a metadata line such as "Parallel length: 30 mm") and Ag and A are read over it' : ''}; or prefer an extensometer channel`);
       }
     }
     this.columns[mode === 'fe' ? 'extension' : 'strain'] = { name: a.name, column: a.index + 1, unit: unitOf(a), ...(a2 ? { averagedWith: { name: a2.name, column: a2.index + 1 } } : {}) };
     this.columns[mode === 'ss' ? 'stress' : 'force'] = { name: b.name, column: b.index + 1, unit: unitOf(b) };
     const trueValues = mode === 'ss' && a.isTrue && b.isTrue;
     if (trueValues) this.warnings.push('only true stress and true strain columns: converted to engineering values (s = σ/exp(ε), e = exp(ε) − 1); valid to maximum force only');
-    return { mode, a, a2, b, fa, fb, trueValues, area, gauge };
+    return { mode, a, a2, b, fa, fb, trueValues, area, gauge, ...(parallel !== undefined ? { parallel } : {}) };
   }
 
   private geometry(o: RecordOptions): { area: number; gauge: number } {
@@ -339,6 +344,29 @@ export class RecordBuilder {
     let gauge = pos('gaugeLength', o.gaugeLength);
     if (gauge === undefined) gauge = num(find(/ga(u)?ge length|^(original |initial )?ga(u)?ge$|^l[0o]$|^le$|extensometer (gauge |gage )?length|^(anfangs)?messlänge$/), LENGTH_UNITS);
     return { area, gauge };
+  }
+
+  /**
+   * The specimen's parallel length Lc (mm) from the option, else a metadata line ("Parallel length", "Lc",
+   * "Versuchslänge" as German reports write ISO 6892-1's term; common practice); undefined where neither gives one.
+   */
+  private parallelLengthOf(o: RecordOptions, gauge: number): number | undefined {
+    // The parallel length holds the gauge length (ISO 6892-1 §3.2, common practice): at least L0, at most 10 L0.
+    const want = `a length in mm from the gauge length (${+gauge.toPrecision(6)} mm) to 10 times it`;
+    if (o.parallelLength !== undefined) {
+      if (!(Number.isFinite(o.parallelLength) && o.parallelLength >= gauge && o.parallelLength <= 10 * gauge)) this.fail(undefined, undefined, 'parallelLength', `got ${o.parallelLength}, expected ${want}`);
+      return o.parallelLength;
+    }
+    for (const [k, v] of this.layout.metadata) {
+      if (!/^(specimen |original )?parallel length$|^lc$|^(parallele länge|versuchslänge)$/.test(k)) continue;
+      const x = Number(v.value.replace(',', '.'));
+      const u = normUnit(v.unit || 'mm');
+      const f = Object.prototype.hasOwnProperty.call(LENGTH_UNITS, u) ? LENGTH_UNITS[u] : undefined;
+      const mm = f === undefined ? NaN : x * f;
+      if (!(mm >= gauge && mm <= 10 * gauge)) this.fail(v.line, 2, v.key, `got ${show(v.value + ' ' + v.unit)}, expected ${want}`);
+      return mm;
+    }
+    return undefined;
   }
 
   /** Parses one number cell; errors name the line, the column and what was expected. */
@@ -602,7 +630,7 @@ export class RecordBuilder {
       name, file: this.file, strain, stress, rows: n,
       basis: p.mode === 'ss' ? 'stress-strain' : p.mode === 'fs' ? 'force-strain' : 'force-extension',
       columns: this.columns,
-      geometry: p.mode === 'fe' ? { area: p.area, gaugeLength: p.gauge } : p.mode === 'fs' ? { area: p.area, gaugeLength: null } : null,
+      geometry: p.mode === 'fe' ? { area: p.area, gaugeLength: p.gauge, ...(p.parallel !== undefined ? { parallelLength: p.parallel } : {}) } : p.mode === 'fs' ? { area: p.area, gaugeLength: null } : null,
       metadata: L.metadata,
       strainUnitGuessed: this.strainUnitGuessed,
       ...(this.machineTravel ? { machineTravel: true } : {}),
@@ -611,6 +639,18 @@ export class RecordBuilder {
       lineRuns: this.lineRuns,
     };
   }
+}
+
+/**
+ * What a record says about how to analyse it, as analyzeRecord's options: a strain from the machine's travel
+ * (`machineTravel`) and, where the gauge length and the parallel length are both known, the two lengths its plastic
+ * part is spread over (`travelLengths`; they act only with a given modulus). Empty for an extensometer's record.
+ * @example travelOptions({ machineTravel: true, geometry: { area: 19.6, gaugeLength: 25, parallelLength: 30 } }) // { machineTravel: true, travelLengths: { gaugeLength: 25, parallelLength: 30 } }
+ */
+export function travelOptions(rec: Pick<TensileRecord, 'machineTravel' | 'geometry'>): { machineTravel?: true; travelLengths?: { gaugeLength: number; parallelLength: number } } {
+  if (!rec.machineTravel) return {};
+  const g = rec.geometry;
+  return g && g.gaugeLength !== null && g.parallelLength !== undefined ? { machineTravel: true, travelLengths: { gaugeLength: g.gaugeLength, parallelLength: g.parallelLength } } : { machineTravel: true };
 }
 
 /**

@@ -327,7 +327,25 @@ describe('strainledger analyze with invalid input exits 2 with a clear message a
     expectRelClose(j.proofStrength, 1132.3, 0.01, 'Rp0.2 from the travel, compliance taken out');
     expect(j.warnings.map((w: { code: string }) => w.code)).toContain('machineCompliance');
     expect(j.machineCompliance).toBeCloseTo(1 / j.measuredModulus - 1 / 201876, 12);
-    expect(run('analyze', f, '--modulus', '201876').stdout).toMatch(/E {12}201\.9 GPa \(given\) {3}measured 35\.6 GPa, 95 % [\d.]+–[\d.]+ \(machine and specimen; compliance 2\.32e-5 \/MPa taken out\)/);
+    expect(run('analyze', f, '--modulus', '201876').stdout).toMatch(/E {12}201\.9 GPa \(given\) {3}measured 35\.6 GPa, 95 % [\d.]+–[\d.]+ \(machine and specimen; compliance 2\.32e-5 \/MPa taken out, plastic travel over Lc, L0\/Lc 0\.833\)/);
+    // The parallel length (30 mm) and gauge length (25 mm) from its metadata lines: Ag and A over them, against the
+    // producers' Ag 5.21 % and A 14.60 % (header lines of 46NT71.csv; checked on all ten in machine-compliance.test.ts).
+    expect(j.parallelLengthRatio).toBeCloseTo(25 / 30, 12);
+    expect(Math.abs(j.uniformElongationPct - Number(/Uniform elongation:\t([\d.]+)/.exec(lines.join('\n'))![1]))).toBeLessThan(0.5);
+    expect(Math.abs(j.totalElongationPct - Number(/Elongation after fracture:\t([\d.]+)/.exec(lines.join('\n'))![1]))).toBeLessThan(0.3);
+    // Without the metadata line, --parallel-length gives it; without either, Ag and A over L0 and the warning asks for it.
+    const g = join(dir, 'travel-no-lc.csv');
+    writeFileSync(g, [...lines.slice(0, head).filter((l) => !l.startsWith('Parallel length')), 'Time\tCrosshead\tForce', 's\tmm\tkN', ...rows].join('\n') + '\n');
+    const given = JSON.parse(run('analyze', g, '--modulus', '201876', '--parallel-length', '30', '--format', 'json').stdout);
+    expect(given.uniformElongationPct).toBe(j.uniformElongationPct);
+    expect(given.totalElongationPct).toBe(j.totalElongationPct);
+    const none = JSON.parse(run('analyze', g, '--modulus', '201876', '--format', 'json').stdout);
+    expect(none.parallelLengthRatio).toBeNull();
+    expect(none.uniformElongationPct - j.uniformElongationPct).toBeGreaterThan(0.5);
+    expect(none.warnings.map((w: { message: string }) => w.message).join('\n')).toMatch(/--parallel-length/);
+    const short = run('analyze', g, '--modulus', '201876', '--parallel-length', '20');
+    expect(short.status).toBe(2);
+    expect(short.stderr).toMatch(/parallelLength: got 20, expected a length in mm from the gauge length \(25 mm\) to 10 times it/);
   });
   it('a block of dropped rows (0 in every column) in the open record 46NT71 names the file line and the strain column, also after a blank line and in a second test', () => {
     // 46NT71.csv (MaterialDigital, CC BY 4.0): data from line 26, Engineering Strain in column 5. Lines 400–402 zeroed.

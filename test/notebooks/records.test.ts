@@ -164,7 +164,16 @@ describe('record bench', () => {
     expect(await page.locator('#map-modulus').inputValue()).toBe('201.876');
     // The curve as analysed: the axis says the compliance is out, and the elastic rise ends near 0.56 % (Rp0.2/E + 0.2 %), not 4 %.
     expect(await page.locator('#cell-curve-chart').innerText()).toContain('machine compliance taken out');
+    // The parallel length (30 mm, a metadata line of the file) takes the plastic travel: Ag and A against the
+    // producers' 5.21 % and 14.60 % (header lines of 46NT71.csv), 0.6 and 1.0 point high over the gauge length alone.
+    expect(await page.locator('#cell-curve-chart').innerText()).toContain('plastic over Lc');
+    expect(Math.abs(await num(page, 'uniformElongation') - 5.21)).toBeLessThan(0.5);
+    expect(Math.abs(await num(page, 'totalElongation') - 14.60)).toBeLessThan(0.3);
     await page.screenshot({ path: `${SCREENSHOTS}/records-machine-travel.png`, fullPage: true });
+    // The page's parallel-length field replaces the file's; one shorter than the gauge length is refused, naming both.
+    await page.fill('#map-parallelLength', '20');
+    await page.click('#apply-mapping');
+    await expect.poll(async () => (await page.locator('.sl-error').allInnerTexts()).join('\n'), { timeout: 30_000 }).toMatch(/parallelLength: got 20, expected a length in mm from the gauge length \(25 mm\)/);
     expect(errors).toEqual([]);
   });
 

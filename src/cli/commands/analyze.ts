@@ -12,6 +12,7 @@ import { CAUTIONS } from '../../report/cautions.js';
 import { formatLawParam } from '../../report/numbers.js';
 import { sig4 } from '../../core/numeric/sig4.js';
 import type { RecordOptions, TensileRecord } from '../../records/builder.js';
+import { travelOptions } from '../../records/builder.js';
 import type { Role } from '../../records/columns.js';
 import { defineCommand } from '../command.js';
 
@@ -58,6 +59,7 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     measuredModulus: a.measuredModulus,
     measuredModulusInterval95: a.measuredModulusInterval95,
     machineCompliance: a.machineCompliance ?? null,
+    parallelLengthRatio: a.parallelLengthRatio ?? null,
     noise: a.noise,
     forceMaximum: a.forceMaximum,
     elasticWindow: a.elasticWindow,
@@ -109,7 +111,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   const [ci0, ci1] = a.measuredModulusInterval95;
   if (a.elasticModulusSource === 'given') {
     lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa (given)   measured ${fmt(a.measuredModulus / 1000, 1)} GPa, 95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)}` +
-      (a.machineCompliance ? ` (machine and specimen; compliance ${a.machineCompliance.toExponential(2)} /MPa taken out)` : ''));
+      (a.machineCompliance ? ` (machine and specimen; compliance ${a.machineCompliance.toExponential(2)} /MPa taken out${a.parallelLengthRatio ? `, plastic travel over Lc, L0/Lc ${fmt(a.parallelLengthRatio, 3)}` : ''})` : ''));
   }
   else lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa   95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)} GPa, band ${fmt(w.fromStress, 0)}–${fmt(w.toStress, 0)} MPa, ${w.points} points, R² ${w.r2.toFixed(5)}`);
   lines.push(`  noise        ${a.noise.toPrecision(2)} MPa (estimated from the record)`);
@@ -182,6 +184,7 @@ export const analyze = defineCommand({
     width: { type: 'string', value: 'MM', help: 'flat specimen width (with --thickness), in mm' },
     thickness: { type: 'string', value: 'MM', help: 'flat specimen thickness (with --width), in mm' },
     'gauge-length': { type: 'string', value: 'MM', help: 'extensometer gauge length (for an extension column), in mm' },
+    'parallel-length': { type: 'string', value: 'MM', help: "specimen's parallel length Lc, in mm: with the machine's travel as the extension and --modulus, Ag and A are read over it" },
   },
   async run({ values, positionals }, io) {
     if (positionals.length === 0) throw cliError('RECORD', 'got no record file, allowed one or more tensile record files (CSV or tab-separated)');
@@ -213,7 +216,7 @@ export const analyze = defineCommand({
       if (!['fraction', 'percent', '%', 'permille', '‰', 'microstrain', 'µε'].includes(s)) throw cliError('--strain-unit', `got ${JSON.stringify(s)}, allowed fraction, percent, permille (‰) or microstrain (µε)`);
       ropts.strainUnit = s === 'fraction' ? '-' : s === 'percent' || s === '%' ? '%' : s === 'permille' || s === '‰' ? '‰' : 'µε';
     }
-    for (const [k, name] of [['area', 'area'], ['diameter', 'diameter'], ['width', 'width'], ['thickness', 'thickness'], ['gauge-length', 'gaugeLength']] as const) {
+    for (const [k, name] of [['area', 'area'], ['diameter', 'diameter'], ['width', 'width'], ['thickness', 'thickness'], ['gauge-length', 'gaugeLength'], ['parallel-length', 'parallelLength']] as const) {
       const v = num(k, values[k], 1e-9, 1e9);
       if (v !== undefined) (ropts as Record<string, unknown>)[name] = v;
     }
@@ -270,7 +273,7 @@ export const analyze = defineCommand({
       ...(disagreement !== undefined ? { disagreementPct: disagreement } : {}),
       ...(modulus !== undefined ? { elasticModulus: modulus } : {}),
     };
-    const analyse = (r: TensileRecord) => withRecordLocation(r, () => withStrainUnitHint(r, () => analyzeRecord(r, r.machineTravel ? { ...aopts, machineTravel: true } : aopts)));
+    const analyse = (r: TensileRecord) => withRecordLocation(r, () => withStrainUnitHint(r, () => analyzeRecord(r, { ...aopts, ...travelOptions(r) })));
     // A file that holds several tests (the record starts over) becomes one record per test, each a specimen.
     const { splitTests } = await import('../splitTests.js');
     const parts = read.flatMap((r) => splitTests(r, analyse(r), analyse));

@@ -42,6 +42,13 @@ export interface AnalyzeOptions {
    */
   machineTravel?: boolean;
   /**
+   * With `machineTravel` and a given `elasticModulus`: the gauge length L0 the travel was divided by and the
+   * specimen's parallel length Lc (mm, Lc ≥ L0). Up to maximum force the plastic part of the travel spreads over Lc,
+   * after it into the neck inside L0 ({@link spreadOverParallelLength}); without them Ag and A read high by about
+   * Lc/L0 − 1 of Ag.
+   */
+  travelLengths?: { gaugeLength: number; parallelLength: number };
+  /**
    * The law fitter, default {@link fitAllLaws}. Any replacement must return what fitAllLaws returns
    * for the same arguments (the runner passes one that fits two groups of laws on two threads).
    */
@@ -178,16 +185,31 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // everything read from the corrected strain (the apparent modulus is still reported as the one measured).
   const apparent = el;
   let compliance: number | null = null;
+  // The plastic travel spread over the parallel length (L0/Lc), with the compliance taken out.
+  let lengthRatio: number | null = null;
+  const tl = opts.travelLengths;
+  if (tl !== undefined) {
+    if (!(Number.isFinite(tl.gaugeLength) && tl.gaugeLength > 0)) throw new InputError('travelLengths.gaugeLength', tl.gaugeLength, 'a gauge length > 0 mm');
+    if (!(Number.isFinite(tl.parallelLength) && tl.parallelLength >= tl.gaugeLength && tl.parallelLength <= MAX_PARALLEL_RATIO * tl.gaugeLength)) throw new InputError('travelLengths.parallelLength', tl.parallelLength, `a parallel length from the gauge length (${tl.gaugeLength} mm) to ${MAX_PARALLEL_RATIO}× it`);
+  }
   if (opts.machineTravel && given !== undefined) {
     const c = removeMachineCompliance(strain, stress, el.modulus, given);
     if (c) {
       strain = c.strain;
       compliance = c.compliance;
+      if (tl && tl.parallelLength > tl.gaugeLength) {
+        lengthRatio = tl.gaugeLength / tl.parallelLength;
+        strain = spreadOverParallelLength(strain, stress, given, lengthRatio);
+      }
       el = elasticModulus(strain, stress, sMax, noise);
       warnings.push({
         code: 'machineCompliance',
-        message: `strain from the machine's travel: its elastic slope ${(apparent.modulus / 1000).toFixed(1)} GPa (band ${apparent.window.fromStress.toFixed(0)}–${apparent.window.toStress.toFixed(0)} MPa) against the given E ${(given / 1000).toFixed(1)} GPa is the machine's and grips' compliance, taken out as a linear spring: e − s·${compliance.toExponential(2)} /MPa. ` +
-          'Rp0.2 is then close to an extensometer\'s; Ag and A still count the whole parallel length and the fillets (read high): take them from an extensometer',
+        message: `strain from the machine's travel: its elastic slope ${(apparent.modulus / 1000).toFixed(1)} GPa (band ${apparent.window.fromStress.toFixed(0)}–${apparent.window.toStress.toFixed(0)} MPa) against the given E ${(given / 1000).toFixed(1)} GPa is the machine's and grips' compliance, taken out as a linear spring: e − s·${compliance.toExponential(2)} /MPa. Rp0.2 is then close to an extensometer's; ` +
+          (lengthRatio !== null
+            ? `the plastic travel is spread over the parallel length Lc ${tl!.parallelLength} mm up to maximum force (Ag, the flow curve) and after it taken as the neck's inside the gauge length L0 ${tl!.gaugeLength} mm (A). The fillets still add a little: Ag and A from the travel are estimates, take them from an extensometer for a certificate`
+            : tl
+              ? 'Ag and A count the travel over the gauge length (the parallel length given equals it); the fillets still add a little: take them from an extensometer for a certificate'
+              : 'Ag and A still count the whole parallel length and the fillets over the gauge length (read high by about Lc/L0 − 1 of Ag): give the parallel length (--parallel-length, or a metadata line "Parallel length: 30 mm"), or take them from an extensometer'),
       });
     } else {
       warnings.push({ code: 'machineCompliance', message: `strain from the machine's travel, but its elastic slope ${(apparent.modulus / 1000).toFixed(1)} GPa is not below the given E ${(given / 1000).toFixed(1)} GPa: no compliance to take out, the strain is read as it is` });
@@ -356,7 +378,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
       try { const f = linearFit(strain, stress, fi - k + 1, fi + 1); sF = f.intercept + f.slope * strain[fi]!; } catch { /* keep the sample */ }
     }
   }
-  const A = (strain[fi]! - toe - sF / E) * 100;
+  const aRead = (strain[fi]! - toe - sF / E) * 100;
 
   // Flow curve: monotone envelope (cycles left out), from the end of yield effects to Fm.
   const fromTrue = yp ? Math.log1p(strain[yp.endIndex]! - toe) - (stress[yp.endIndex]! * (1 + strain[yp.endIndex]! - toe)) / E : ANALYZE_DEFAULTS.flowCurveFrom;
@@ -424,6 +446,8 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // Maximum force after the strain channel's end: Ag and Agt at least the plastic and total strain of its last sample.
   const Ag = maxInTail ? (strain[N - 1]! - toe - stress[N - 1]! / E) * 100 : byLaws ?? agTop;
   const Agt = maxInTail ? (strain[N - 1]! - toe) * 100 : Ag + (Rm / E) * 100;
+  // The travel spread over Lc: past maximum force the plastic travel goes into the neck inside L0 (spreadOverParallelLength).
+  const A = lengthRatio !== null ? Ag + (aRead - Ag) / lengthRatio : aRead;
   const agWarnings: TensileWarning[] = [];
   if (maxInTail) { /* Ag is a lower bound (said above); the top model's flatness and interval are not Ag's */ }
   else if ((agCi[1] - agCi[0]) / 2 > AG_SHARP_PCT) agWarnings.push({ code: 'uncertainAg', message: `Ag ${Ag.toFixed(2)} % is uncertain: the top is flat within the noise, so maximum force could lie anywhere from Ag ${agCi[0].toFixed(2)} % to ${agCi[1].toFixed(2)} % (95 % interval, ±${((agCi[1] - agCi[0]) / 2).toFixed(2)} points)${byLaws !== null ? '; the fitted hardening laws place it at the value given' : ''}` });
@@ -444,6 +468,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     measuredModulus: apparent.modulus,
     measuredModulusInterval95: apparent.window.interval95,
     machineCompliance: compliance,
+    parallelLengthRatio: lengthRatio,
     noise,
     forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, topModelUniformElongationPct: agTop, lawUniformElongation: agLaws, method: (byLaws !== null ? 'Ag where the hardening laws fitted to the uniform part of the curve reach maximum engineering stress (Considère with the elastic strain counted), Akaike-weighted over the laws whose maximum lies inside the 95 % interval of the top model below; ' : '') + 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at the Akaike-weighted vertex of this kinked top and a smooth one (one curvature both sides), or at the middle of a top flat within the noise' },
     elasticWindow: el.window,
@@ -700,6 +725,35 @@ function forceAfterEnd(tail: ForceTail, from: number, noise: number): { top: Ret
       method: `${fractureMethod(fall >= 0, necked)}; read in the force, which goes on past the strain channel's end (the index is the whole record's)`,
     },
   };
+}
+
+/** The longest parallel length accepted, as a multiple of the gauge length (ISO 6892-1 specimens: Lc ≈ L0 + d0/2 to L0 + 2b0; common practice). */
+const MAX_PARALLEL_RATIO = 10;
+
+/**
+ * Spreads the plastic part of a strain from the machine's travel (compliance already taken out) over the specimen's
+ * parallel length Lc instead of the gauge length L0 it was divided by:
+ *   e' = s/E + (e − s/E)·r,   r = L0/Lc   (0 < r ≤ 1),
+ * so that up to maximum force — where the reduced section deforms uniformly along Lc — e' is the strain of the
+ * parallel length (Ag, the flow curve, Rp). After maximum force the extension goes into the neck, which lies inside
+ * L0, so A over L0 is Ag' + (A' − Ag')/r with A', Ag' read from e' (analyzeRecord does that). The basis: the
+ * parallel length is the part of the specimen that deforms (ISO 6892-1 §3.2 defines Lc; using it for crosshead
+ * elongation is common practice, from memory); the fillets' small plastic share is not counted. Units: strain
+ * fraction, stress and E MPa. Valid for a specimen whose parallel length is uniform and whose neck forms inside L0.
+ * On the ten open 42CrMoS4 records (L0 25 mm, Lc 30 mm) read through their machine travel: Ag within 0.4 point and A
+ * within 0.3 point of their extensometer's (0.6–0.9 and 0.9–1.2 point high without it;
+ * test/core/tensile/machine-compliance.test.ts).
+ * @example spreadOverParallelLength([0.001, 0.06], [200, 500], 200000, 25 / 30) // [0.001, 0.0504…]
+ */
+export function spreadOverParallelLength(strain: ArrayLike<number>, stress: ArrayLike<number>, modulus: number, ratio: number): Float64Array {
+  if (!(modulus > 0 && Number.isFinite(modulus))) throw new InputError('elasticModulus', modulus, 'a modulus > 0 MPa');
+  if (!(ratio > 0 && ratio <= 1)) throw new InputError('ratio', ratio, 'a ratio L0/Lc in (0, 1]');
+  const out = new Float64Array(strain.length);
+  for (let i = 0; i < out.length; i++) {
+    const el = stress[i]! / modulus;
+    out[i] = el + (strain[i]! - el) * ratio;
+  }
+  return out;
 }
 
 /**

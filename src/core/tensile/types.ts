@@ -101,6 +101,11 @@ export interface TensileAnalysis {
    * null (or absent) when no compliance was taken out.
    */
   machineCompliance?: number | null;
+  /**
+   * L0/Lc when the plastic part of a strain from the machine's travel was spread over the parallel length Lc
+   * (analyzeRecord's `travelLengths`, {@link spreadOverParallelLength}); null (or absent) otherwise.
+   */
+  parallelLengthRatio?: number | null;
   /** Noise of the stress estimated from the data (second differences, robust scale), MPa. */
   noise: number;
   /** How Rm and Ag were read: the local parabola around the top (samples, strain span, flat top). */
