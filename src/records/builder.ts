@@ -123,6 +123,11 @@ interface Plan {
 /** Collects rows into growable typed arrays; validates every used cell with its line and column. */
 /** Fewest rows of a tensile record. */
 const MIN_ROWS = 10;
+/**
+ * Most consecutive rows with one of the pair lost (stress or strain empty or NaN beside the other) left out as lost
+ * samples; a longer run is the error at its first row (a channel fault to look at, which may hide maximum force).
+ */
+const MAX_HALF_LOST_RUN = 10;
 /** Most rows of numbers a results table in the footer may hold under its line of column names. */
 const RESULTS_TABLE_ROWS = 20;
 /** Most non-number rows read as a footer at the end of a record (more is not a footer: the file is not one record); rows with only the strain cell empty (extensometer taken off) are data, not footer. */
@@ -160,18 +165,60 @@ export class RecordBuilder {
    * error it is.
    */
   private footer: { error: unknown; line: number; lastLine: number; rows: number; table: number; results: boolean; first: string } | null = null;
-  /** Rows at the end whose strain cell is empty and stress a number (extensometer taken off), stored with the last strain held. */
-  private held: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
+  /**
+   * Rows whose strain cell is empty or NaN and stress a number, stored with the last strain held: at the end of the
+   * data the extensometer taken off (kept, so the force still counts for Rm); followed by a strain again, lost strain
+   * samples (taken back out, see resumeStrain).
+   */
+  private held: { error: unknown; line: number; lastLine: number; rows: number; nan: boolean } | null = null;
+  /**
+   * Rows inside the data with one of the pair lost (the stress empty or NaN beside a strain, or a short run of held
+   * strains that a strain follows again): left out, said in finish with the columns that had no reading.
+   */
+  private halfLost: { line: number; lastLine: number; rows: number; cols: Set<string> } | null = null;
+  /** Rows whose stress cell is empty or NaN beside a strain, since the last row with readings (`error`: the first one's). */
+  private pendingHalf: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
   /** Rows with no reading in any used column (empty or NaN cells; see push) between rows with readings: the first and last line and how many. */
   private lost: { line: number; lastLine: number; rows: number } | null = null;
   /** Such rows since the last row with readings (lost samples once another row comes, else rows after the data). */
   private pendingLost: { line: number; lastLine: number; rows: number } | null = null;
-  /** Moves pendingLost into lost: a row with readings came after them. */
+  /** Moves pendingLost into lost (and pendingHalf into halfLost): a row with readings came after them. */
   private settleLost(): void {
     const p = this.pendingLost;
-    if (!p) return;
-    if (this.lost) { this.lost.rows += p.rows; this.lost.lastLine = p.lastLine; } else this.lost = p;
-    this.pendingLost = null;
+    if (p) {
+      if (this.lost) { this.lost.rows += p.rows; this.lost.lastLine = p.lastLine; } else this.lost = p;
+      this.pendingLost = null;
+    }
+    const h = this.pendingHalf;
+    if (h) {
+      // A longer run of stresses lost beside strains is a channel fault, not a dropped sample: the first row's error.
+      if (h.rows > MAX_HALF_LOST_RUN) throw h.error;
+      this.noteHalfLost(h.line, h.lastLine, h.rows, this.plan.b.name);
+      this.pendingHalf = null;
+    }
+  }
+
+  private noteHalfLost(line: number, lastLine: number, rows: number, col: string): void {
+    const l = this.halfLost;
+    if (l) { l.rows += rows; l.line = Math.min(l.line, line); l.lastLine = Math.max(l.lastLine, lastLine); l.cols.add(col); }
+    else this.halfLost = { line, lastLine, rows, cols: new Set([col]) };
+  }
+
+  /**
+   * A strain again after held rows (strain cells empty or NaN while the stress went on): those rows were lost strain
+   * samples, not the extensometer's end. Up to MAX_HALF_LOST_RUN of them are taken back out of the record and said;
+   * a longer run stays the error at its first row (a channel that stopped and came back is no dropped sample).
+   */
+  private resumeStrain(): void {
+    const h = this.held;
+    if (!h) return;
+    if (h.rows > MAX_HALF_LOST_RUN) throw h.error;
+    this.n -= h.rows;
+    while (this.lineRuns.length > 0 && this.lineRuns[this.lineRuns.length - 1]!.sample >= this.n) this.lineRuns.pop();
+    // The next sample starts a new line run (its line is past the rows taken out).
+    this.lastLine = h.line - 1;
+    this.noteHalfLost(h.line, h.lastLine, h.rows, this.plan.a.name);
+    this.held = null;
   }
   /** How a strain column without a unit was read (by its largest value), or null when the unit was known. */
   private strainUnitGuessed: 'fraction' | 'percent' | null = null;
@@ -402,6 +449,17 @@ export class RecordBuilder {
       this.pendingLost.lastLine = line;
       return;
     }
+    // One of the pair lost: the stress cell empty or NaN beside a strain (the row has the cell: a row cut short is
+    // the located error below). No sample without a stress; left out and said, as a lost sample.
+    if (this.n >= MIN_ROWS && !this.footer && noReading(f[b.index]) && f[a.index] !== undefined && (!a2 || f[a2.index] !== undefined)) {
+      this.resumeStrain();
+      let error: unknown = null;
+      try { this.cell(f, b, line); } catch (e) { error = e; }
+      this.pendingHalf ??= { error, line, lastLine: line, rows: 0 };
+      this.pendingHalf.rows++;
+      this.pendingHalf.lastLine = line;
+      return;
+    }
     let x: number, y: number;
     try {
       x = this.cell(f, a, line);
@@ -412,11 +470,12 @@ export class RecordBuilder {
       // The row keeps the strain's last value (as a machine that holds the reading would write it), so the force
       // after it still counts for Rm; the analysis finds where the strain stopped (extensometerEnd) and reads Ag
       // and A before it.
-      if (this.n >= MIN_ROWS && !this.footer && (f[a.index] ?? '').trim() === '' && (!a2 || (f[a2.index] ?? '').trim() === '') && (f[b.index] ?? '').trim() !== '') {
+      if (this.n >= MIN_ROWS && !this.footer && noReading(f[a.index]) && (!a2 || noReading(f[a2.index])) && (f[b.index] ?? '').trim() !== '') {
         let held: number | null = null;
         try { held = this.cell(f, b, line); } catch { /* not a number: a footer row, below */ }
         if (held !== null) {
-          this.held ??= { error: e, line, lastLine: line, rows: 0 };
+          this.held ??= { error: e, line, lastLine: line, rows: 0, nan: false };
+          if ((f[a.index] ?? '').trim() !== '') this.held.nan = true;
           this.held.rows++;
           this.held.lastLine = line;
           this.settleLost();
@@ -446,7 +505,7 @@ export class RecordBuilder {
     }
     // Numbers after a footer, or a strain again after empty strain cells: the first of those rows is the error.
     if (this.footer) throw this.footer.error;
-    if (this.held) throw this.held.error;
+    this.resumeStrain();
     this.settleLost();
     this.pushValues(x, y, line);
   }
@@ -588,10 +647,14 @@ export class RecordBuilder {
     const lo = this.lost, tr = this.pendingLost;
     const cols = [p.a, ...(p.a2 ? [p.a2] : []), p.b].map((c) => show(c.name)).join(', ');
     if (lo) this.warnings.push(`${lo.rows === 1 ? `line ${lo.line} holds` : `${lo.rows} rows from line ${lo.line} to line ${lo.lastLine} hold`} no reading in ${cols} (empty or NaN, the other columns written): left out as lost samples; check the export if there are many`);
+    const hl = this.halfLost;
+    if (hl) this.warnings.push(`${hl.rows === 1 ? `line ${hl.line} holds` : `${hl.rows} rows between line ${hl.line} and line ${hl.lastLine} hold`} no reading in ${[...hl.cols].map(show).join(' or ')} (empty or NaN) beside a reading in the other column: left out as lost samples (a sample needs both); check the export if there are many`);
+    const ph = this.pendingHalf;
+    if (ph) this.warnings.push(`${ph.rows === 1 ? `line ${ph.line} after the data holds` : `lines ${ph.line}–${ph.lastLine} after the data hold`} no reading in ${show(p.b.name)} (empty or NaN): left out; the record ends at line ${this.lastLine}`);
     if (tr) this.warnings.push(`${tr.rows === 1 ? `line ${tr.line} after the data holds` : `lines ${tr.line}–${tr.lastLine} after the data hold`} no reading in ${cols} (empty or NaN, the other columns written, as a machine that logs on after the test): left out; the record ends at line ${this.lastLine}`);
     const hd = this.held;
     if (hd) {
-      this.warnings.push(`the ${p.mode === 'fe' ? 'extension' : 'strain'} column ${show(p.a.name)} is empty from line ${hd.line} to ${hd.lastLine === this.lastLine ? 'the end' : `line ${hd.lastLine}`} (${hd.rows} rows; extensometer taken off?): its last value is held there, so the force still counts for Rm; properties that need strain are read where it still changes`);
+      this.warnings.push(`the ${p.mode === 'fe' ? 'extension' : 'strain'} column ${show(p.a.name)} is ${hd.nan ? 'NaN' : 'empty'} from line ${hd.line} to ${hd.lastLine === this.lastLine ? 'the end' : `line ${hd.lastLine}`} (${hd.rows} rows; extensometer taken off?): its last value is held there, so the force still counts for Rm; properties that need strain are read where it still changes`);
     }
     let fa = p.fa;
     if (Number.isNaN(fa)) {

@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { PlanError } from '../../src/plan/problems.js';
-import { parseRecordText, type RecordOptions } from '../../src/records/index.js';
+import { parseRecordText, sampleLine, type RecordOptions } from '../../src/records/index.js';
 import { unitFactor } from '../../src/records/units.js';
 import { readRecordFile } from '../../src/records/node.js';
 import { expectRelClose } from '../helpers.js';
@@ -360,9 +360,44 @@ describe('lost samples: rows with no reading in the used columns (empty or NaN) 
     expect(foot.rows).toBe(40);
     expect(foot.warnings.join('\n')).toMatch(/lines 42–43 after the data are not rows of numbers .*read as a footer and left out/);
   });
-  it('one of the two cells lost, or a lost row among the first rows, is still an error naming line and column', () => {
-    expect(() => parseRecordText(text((i, j) => (i === 20 && j === 2 ? '' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:3: Stress \[MPa\]: got "", expected a number/);
-    expect(() => parseRecordText(text((i, j) => (i === 20 && j === 1 ? 'NaN' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:2: Strain \[%\]: got "NaN", expected a finite number/);
+  // One of the pair lost (a machine that writes NaN for a channel it did not read in time, or leaves the cell empty):
+  // no sample without both, so the row is left out and said, as the rows with both lost are; common practice.
+  for (const [what, cell, col, name] of [['the stress NaN', 'NaN', 2, 'Stress \\[MPa\\]'], ['the stress empty', '', 2, 'Stress \\[MPa\\]'], ['the strain NaN', 'NaN', 1, 'Strain \\[%\\]'], ['the strain empty', '', 1, 'Strain \\[%\\]']] as const) {
+    it(`one of the pair lost inside the data (${what}): the rows left out and said with their lines, through every reader`, async () => {
+      const lostRows = new Set([20, 27, 28]);
+      const t = text((i, j) => (lostRows.has(i) && j === col ? cell : rows[i]![j]!));
+      const f = join(dir, `half-${what.replace(/ /g, '-')}.csv`);
+      writeFileSync(f, t);
+      for (const rec of [await readRecordFile(f), parseRecordText(t, { file: 'h.csv' })]) {
+        expect(rec.rows).toBe(37);
+        expect(rec.warnings.join('\n')).toMatch(new RegExp(`3 rows between line 22 and line 30 hold no reading in "${name}" \\(empty or NaN\\) beside a reading in the other column: left out as lost samples`));
+        const keep = [...Array(40).keys()].filter((i) => !lostRows.has(i));
+        expect(Array.from(rec.strain)).toEqual(keep.map((i) => whole.strain[i]));
+        expect(Array.from(rec.stress)).toEqual(keep.map((i) => whole.stress[i]));
+        // Errors about later samples still name their own file lines (the line runs skip the rows left out).
+        expect(sampleLine(rec, 19)).toBe(21);
+        expect(sampleLine(rec, 20)).toBe(23);
+        expect(sampleLine(rec, 26)).toBe(31);
+      }
+    });
+  }
+  it('one of the pair lost in a run of more than 10 rows, or among the first rows, is still an error naming line and column', () => {
+    const run = (i: number) => i >= 20 && i <= 30;
+    expect(() => parseRecordText(text((i, j) => (run(i) && j === 2 ? 'NaN' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:3: Stress \[MPa\]: got "NaN", expected a finite number/);
+    expect(() => parseRecordText(text((i, j) => (run(i) && j === 1 ? '' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:22:2: Strain \[%\]: got "", expected a number/);
     expect(() => parseRecordText(text((i, j) => (i === 3 && j > 0 ? '' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:5:2: Strain \[%\]: got "", expected a number/);
+    expect(() => parseRecordText(text((i, j) => (i === 3 && j === 2 ? 'NaN' : rows[i]![j]!)), { file: 'o.csv' })).toThrow(/^o\.csv:5:3: Stress \[MPa\]: got "NaN", expected a finite number/);
+    // Ten rows are still lost samples.
+    expect(parseRecordText(text((i, j) => (i >= 20 && i <= 29 && j === 2 ? 'NaN' : rows[i]![j]!)), { file: 'o.csv' }).rows).toBe(30);
+  });
+  it('the strain NaN from a row to the end (an extensometer taken off that writes NaN): held as with empty cells, said as NaN', () => {
+    const rec = parseRecordText(text((i, j) => (i >= 35 && j === 1 ? 'NaN' : rows[i]![j]!)), { file: 'n.csv' });
+    expect(rec.rows).toBe(40);
+    expect(rec.warnings.join('\n')).toMatch(/strain column "Strain \[%\]" is NaN from line 37 to the end \(5 rows; extensometer taken off\?\)/);
+    expect(rec.strain[39]).toBe(rec.strain[34]);
+    // The stress NaN in the last rows: rows after the data.
+    const end = parseRecordText(text((i, j) => (i >= 38 && j === 2 ? 'NaN' : rows[i]![j]!)), { file: 'e.csv' });
+    expect(end.rows).toBe(38);
+    expect(end.warnings.join('\n')).toMatch(/lines 40–41 after the data hold no reading in "Stress \[MPa\]" \(empty or NaN\): left out; the record ends at line 39/);
   });
 });
