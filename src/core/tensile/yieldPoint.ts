@@ -432,9 +432,10 @@ function plateauHinge(strain: ArrayLike<number>, stress: ArrayLike<number>, from
     return best;
   };
   const level = search(false), sloping = search(true);
-  let best = level ?? sloping;
+  // The sloping hinge only where it passes its tests; where the level one found no knee at all (its residual sum
+  // taken as infinite) the knee-ratio test still applies, so a branch that barely leaves a tilted line is no hinge.
+  const best = sloping && slopeCounts(bl, span, level ? level.f.ssr : Infinity, sloping.xk, sloping.f) ? sloping : level;
   if (!best) return null;
-  if (sloping && (!level || slopeCounts(bl, span, level.f.ssr, sloping.xk, sloping.f))) best = sloping;
   const { xk, f } = best;
   // Spread of the raw plateau samples about the plateau line.
   let m = 0, v = 0;
