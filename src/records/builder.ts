@@ -176,8 +176,12 @@ export class RecordBuilder {
    * strains that a strain follows again): left out, said in finish with the columns that had no reading.
    */
   private halfLost: { line: number; lastLine: number; rows: number; cols: Set<string> } | null = null;
-  /** Rows whose stress cell is empty or NaN beside a strain, since the last row with readings (`error`: the first one's). */
-  private pendingHalf: { error: unknown; line: number; lastLine: number; rows: number } | null = null;
+  /**
+   * Rows with one of the pair lost (the stress empty or NaN beside a strain, or one side of an averaging extensometer
+   * beside the other and a stress), since the last row with readings (`error`: the first one's; `cols`: the columns
+   * that had no reading).
+   */
+  private pendingHalf: { error: unknown; line: number; lastLine: number; rows: number; cols: Set<string> } | null = null;
   /** Rows with no reading in any used column (empty or NaN cells; see push) between rows with readings: the first and last line and how many. */
   private lost: { line: number; lastLine: number; rows: number } | null = null;
   /** Such rows since the last row with readings (lost samples once another row comes, else rows after the data). */
@@ -193,15 +197,15 @@ export class RecordBuilder {
     if (h) {
       // A longer run of stresses lost beside strains is a channel fault, not a dropped sample: the first row's error.
       if (h.rows > MAX_HALF_LOST_RUN) throw h.error;
-      this.noteHalfLost(h.line, h.lastLine, h.rows, this.plan.b.name);
+      this.noteHalfLost(h.line, h.lastLine, h.rows, h.cols);
       this.pendingHalf = null;
     }
   }
 
-  private noteHalfLost(line: number, lastLine: number, rows: number, col: string): void {
-    const l = this.halfLost;
-    if (l) { l.rows += rows; l.line = Math.min(l.line, line); l.lastLine = Math.max(l.lastLine, lastLine); l.cols.add(col); }
-    else this.halfLost = { line, lastLine, rows, cols: new Set([col]) };
+  private noteHalfLost(line: number, lastLine: number, rows: number, cols: Iterable<string>): void {
+    const l = this.halfLost ??= { line, lastLine, rows: 0, cols: new Set() };
+    l.rows += rows; l.line = Math.min(l.line, line); l.lastLine = Math.max(l.lastLine, lastLine);
+    for (const c of cols) l.cols.add(c);
   }
 
   /**
@@ -217,7 +221,7 @@ export class RecordBuilder {
     while (this.lineRuns.length > 0 && this.lineRuns[this.lineRuns.length - 1]!.sample >= this.n) this.lineRuns.pop();
     // The next sample starts a new line run (its line is past the rows taken out).
     this.lastLine = h.line - 1;
-    this.noteHalfLost(h.line, h.lastLine, h.rows, this.plan.a.name);
+    this.noteHalfLost(h.line, h.lastLine, h.rows, [this.plan.a.name, ...(this.plan.a2 ? [this.plan.a2.name] : [])]);
     this.held = null;
   }
   /** How a strain column without a unit was read (by its largest value), or null when the unit was known. */
@@ -451,13 +455,20 @@ export class RecordBuilder {
     }
     // One of the pair lost: the stress cell empty or NaN beside a strain (the row has the cell: a row cut short is
     // the located error below). No sample without a stress; left out and said, as a lost sample.
-    if (this.n >= MIN_ROWS && !this.footer && noReading(f[b.index]) && f[a.index] !== undefined && (!a2 || f[a2.index] !== undefined)) {
+    // So is one side of an averaging extensometer lost beside the other and a stress (the mean needs both sides; one
+    // side alone is bent by the specimen's bending).
+    // A reading beside the lost cell must be a number (a text row such as "End of test," is a footer, below).
+    const reading = (c: string | undefined) => c !== undefined && isNumberToken(c.trim(), this.layout.decimalComma) && !/^[+-]?(nan|inf|infinity)$/i.test(c.trim());
+    const sideLost = a2 && reading(f[b.index]) && (reading(f[a.index]) ? noReading(f[a2.index]) : reading(f[a2.index]) && noReading(f[a.index])) ? (reading(f[a.index]) ? a2 : a) : null;
+    if (this.n >= MIN_ROWS && !this.footer && (sideLost || (noReading(f[b.index]) && reading(f[a.index]) && (!a2 || reading(f[a2.index]))))) {
       this.resumeStrain();
+      const col = sideLost ?? b;
       let error: unknown = null;
-      try { this.cell(f, b, line); } catch (e) { error = e; }
-      this.pendingHalf ??= { error, line, lastLine: line, rows: 0 };
+      try { this.cell(f, col, line); } catch (e) { error = e; }
+      this.pendingHalf ??= { error, line, lastLine: line, rows: 0, cols: new Set() };
       this.pendingHalf.rows++;
       this.pendingHalf.lastLine = line;
+      this.pendingHalf.cols.add(col.name);
       return;
     }
     let x: number, y: number;
@@ -650,7 +661,7 @@ export class RecordBuilder {
     const hl = this.halfLost;
     if (hl) this.warnings.push(`${hl.rows === 1 ? `line ${hl.line} holds` : `${hl.rows} rows between line ${hl.line} and line ${hl.lastLine} hold`} no reading in ${[...hl.cols].map(show).join(' or ')} (empty or NaN) beside a reading in the other column: left out as lost samples (a sample needs both); check the export if there are many`);
     const ph = this.pendingHalf;
-    if (ph) this.warnings.push(`${ph.rows === 1 ? `line ${ph.line} after the data holds` : `lines ${ph.line}–${ph.lastLine} after the data hold`} no reading in ${show(p.b.name)} (empty or NaN): left out; the record ends at line ${this.lastLine}`);
+    if (ph) this.warnings.push(`${ph.rows === 1 ? `line ${ph.line} after the data holds` : `lines ${ph.line}–${ph.lastLine} after the data hold`} no reading in ${[...ph.cols].map(show).join(' or ')} (empty or NaN): left out; the record ends at line ${this.lastLine}`);
     if (tr) this.warnings.push(`${tr.rows === 1 ? `line ${tr.line} after the data holds` : `lines ${tr.line}–${tr.lastLine} after the data hold`} no reading in ${cols} (empty or NaN, the other columns written, as a machine that logs on after the test): left out; the record ends at line ${this.lastLine}`);
     const hd = this.held;
     if (hd) {

@@ -133,15 +133,19 @@ describe('parseRecordText through the fast scanner gives what an independent par
     cells.forEach((c, i) => { if (r.stress[i] !== Number(c)) expect(r.stress[i], c).toBe(Number(c)); });
   });
 
-  it('refuses what the located reader refuses, with the same located message (0x10, empty cell, Infinity, a short row)', () => {
+  it('refuses what the located reader refuses, with the same located message (0x10, Infinity, a short row); an empty stress cell is a lost sample', () => {
     const base = 'strain,stress [MPa]\n' + Array.from({ length: 12 }, (_, i) => `${i * 0.001},${i * 10}`).join('\n') + '\n';
-    for (const [bad, re] of [['0x10', /^b\.csv:14:2: .*got "0x10", expected a number$/], ['', /^b\.csv:14:2: .*got "", expected a number$/], ['Infinity', /^b\.csv:14:2: .*expected a finite number$/], [null, /^b\.csv:14:2: .*the row has 1 field; expected 2/]] as const) {
+    for (const [bad, re] of [['0x10', /^b\.csv:14:2: .*got "0x10", expected a number$/], ['Infinity', /^b\.csv:14:2: .*expected a finite number$/], [null, /^b\.csv:14:2: .*the row has 1 field; expected 2/]] as const) {
       // A row of numbers follows the bad one, so it is an error (a bad row only at the end is a footer: below).
       const text = base + (bad === null ? '0.02\n' : `0.02,${bad}\n`) + '0.03,130\n';
       let msg = '';
       try { parseRecordText(text, { file: 'b.csv', strainUnit: 'fraction' }); } catch (e) { msg = (e as Error).message; }
       expect(msg, String(bad)).toMatch(re);
     }
+    // The stress cell empty beside a strain (no reading, not a bad one): left out as a lost sample, and said.
+    const lost = parseRecordText(base + '0.02,\n0.03,130\n', { file: 'b.csv', strainUnit: 'fraction' });
+    expect(lost.rows).toBe(13);
+    expect(lost.warnings.join('\n')).toMatch(/line 14 holds no reading in "stress \[MPa\]" \(empty or NaN\) beside a reading in the other column: left out as lost samples/);
   });
 
   it('rows after the data that are not numbers are a footer (a warning naming the lines), unless numbers follow them', () => {
@@ -157,8 +161,11 @@ describe('parseRecordText through the fast scanner gives what an independent par
     expect(Array.from(off.strain.subarray(11))).toEqual([0.011, 0.011, 0.011, 0.011]);
     expect(Array.from(off.stress.subarray(11))).toEqual([110, 130, 140, 135]);
     expect(off.warnings.join('\n')).toMatch(/strain column "strain" is empty from line 14 to the end \(3 rows; extensometer taken off\?\): its last value is held there/);
-    // A strain again after empty strain cells: the first empty cell is the error, located.
-    expect(() => parseRecordText(base + ',130\n0.02,140\n', { file: 'y.csv', strainUnit: 'fraction' })).toThrow(/^y\.csv:14:1: strain: got "", expected a number$/);
+    // A strain again after empty strain cells: those rows were lost strain samples, left out and said.
+    const again = parseRecordText(base + ',130\n0.02,140\n', { file: 'y.csv', strainUnit: 'fraction' });
+    expect(again.rows).toBe(13);
+    expect(Array.from(again.stress.subarray(11))).toEqual([110, 140]);
+    expect(again.warnings.join('\n')).toMatch(/line 14 holds no reading in "strain" \(empty or NaN\) beside a reading in the other column: left out as lost samples/);
     // A footer after the held rows is still a footer.
     const offEnd = parseRecordText(base + ',130\n,140\nEnd of test,\n', { file: 'z.csv', strainUnit: 'fraction' });
     expect(offEnd.rows).toBe(14);

@@ -83,6 +83,23 @@ describe('a record with two extensometer channels', () => {
     expect(a.strainChannelEnd?.kind).toBe('held');
   });
 
+  it('one side lost on a few rows inside the data (NaN or empty beside the other side and the force): those rows left out and said, the rest as published', async () => {
+    const lines = twoSides(0.02).trimEnd().split('\n');
+    const whole = parseRecordText(lines.join('\n') + '\n', { file: 'two.csv' });
+    // Data from line 4 (index 3); samples 300, 301 lose side 2 (NaN), sample 450 side 1 (empty).
+    const lost = new Map([[300, 3], [301, 3], [450, 2]]);
+    const text = lines.map((l, i) => { const k = lost.get(i - 3); if (k === undefined) return l; const c = l.split(';'); c[k] = k === 3 ? 'NaN' : ''; return c.join(';'); }).join('\n') + '\n';
+    const dir = mkdtempSync(join(tmpdir(), 'sl-side-'));
+    writeFileSync(join(dir, 'side.csv'), text);
+    for (const rec of [parseRecordText(text, { file: 'side.csv' }), await readRecordFile(join(dir, 'side.csv'))]) {
+      expect(rec.rows).toBe(whole.rows - 3);
+      const keep = [...Array(whole.rows).keys()].filter((i) => !lost.has(i));
+      expect(Array.from(rec.strain)).toEqual(keep.map((i) => whole.strain[i]));
+      expect(Array.from(rec.stress)).toEqual(keep.map((i) => whole.stress[i]));
+      expect(rec.warnings.join('\n')).toMatch(/3 rows between line 304 and line 454 hold no reading in "Extensometer 2 \[mm\]" or "Extensometer 1 \[mm\]" \(empty or NaN\) beside a reading in the other column: left out as lost samples/);
+    }
+  });
+
   it('a pair named alike that is not one quantity (an axial and a transverse strain): refused, located, with how to map one', async () => {
     // INVENTED: Strain 1 the axial strain, Strain 2 a width strain (−0.3 of it) named only by number.
     const text = 'Strain 1 [%];Strain 2 [%];Stress [MPa]\n' + Array.from({ length: 40 }, (_, i) => `${(0.1 * i).toFixed(2)};${(-0.03 * i).toFixed(3)};${Math.min(200 * i, 300 + 10 * i)}`).join('\n') + '\n';
