@@ -398,8 +398,9 @@ export class RecordBuilder {
   }
 
   /**
-   * The specimen's parallel length Lc (mm) from the option, else a metadata line ("Parallel length", "Lc",
-   * "Versuchslänge" as German reports write ISO 6892-1's term; common practice); undefined where neither gives one.
+   * The specimen's parallel length Lc (mm) from the option, else a metadata line ("Parallel length", "Lc", ASTM E8's
+   * "Length of reduced section", "Versuchslänge" as German reports write ISO 6892-1's term; common practice);
+   * undefined where neither gives one.
    */
   private parallelLengthOf(o: RecordOptions, gauge: number): number | undefined {
     // The parallel length holds the gauge length (ISO 6892-1 §3.2, common practice): at least L0, at most 10 L0.
@@ -409,7 +410,7 @@ export class RecordBuilder {
       return o.parallelLength;
     }
     for (const [k, v] of this.layout.metadata) {
-      if (!/^(specimen |original )?parallel length$|^lc$|^(parallele länge|versuchslänge)$/.test(k)) continue;
+      if (!/^(specimen |original )?parallel length$|^lc$|^(length of )?reduced section( length)?$|^(parallele länge|parallellänge|versuchslänge)$/.test(k)) continue;
       const x = Number(v.value.replace(',', '.'));
       const u = normUnit(v.unit || 'mm');
       const f = Object.prototype.hasOwnProperty.call(LENGTH_UNITS, u) ? LENGTH_UNITS[u] : undefined;

@@ -147,6 +147,20 @@ describe('parseRecordText(text) reads what labs export', () => {
     const ext = check(fe(meta, 'Load [N],Extensometer position [mm]', ',', (s) => s * 25, (e) => e * 50));
     expect(ext.warnings.join(' ')).not.toMatch(/machine's travel/);
   });
+  it('the crosshead record\'s parallel length from the metadata lines labs write (ISO 6892-1 Lc, ASTM E8 reduced section, German), with units; only for the machine\'s travel', () => {
+    const meta = ['Area: 25 mm²', 'Gauge length: 50 mm'];
+    for (const [line, mm] of [['Parallel length (mm),60', 60], ['Parallel length: 60 mm', 60], ['Lc [mm]: 60', 60], ['Length of reduced section: 2.25 in', 57.15], ['Reduced section (in): 2.25', 57.15], ['Versuchslänge: 60 mm', 60], ['Parallellänge: 60 mm', 60]] as const) {
+      const r = check(fe([...meta, line], 'Load [N],Crosshead [mm]', ',', (x) => x * 25, (e) => e * 50));
+      expect(r.geometry?.parallelLength, line).toBeCloseTo(mm, 9);
+      expect(r.warnings.join(' '), line).not.toMatch(/--parallel-length/);
+    }
+    // Without one the warning asks for it; shorter than the gauge length it is refused at its line.
+    expect(check(fe(meta, 'Load [N],Crosshead [mm]', ',', (x) => x * 25, (e) => e * 50)).warnings.join(' ')).toMatch(/its parallel length \(--parallel-length, or a metadata line/);
+    expect(() => check(fe([...meta, 'Parallel length: 40 mm'], 'Load [N],Crosshead [mm]', ',', (x) => x * 25, (e) => e * 50))).toThrow(/:3:2: Parallel length: got "40 mm", expected a length in mm from the gauge length \(50 mm\) to 10 times it/);
+    // An extensometer's record does not need it (nor is it refused there).
+    const ext = check(fe([...meta, 'Parallel length: 40 mm'], 'Load [N],Extension [mm]', ',', (x) => x * 25, (e) => e * 50));
+    expect(ext.geometry?.parallelLength).toBeUndefined();
+  });
   it('data rows with a text column (a phase or status, common practice of machine exports) read through the text and the file reader', async () => {
     const text = ['Specimen,A-7,steel,', 'Time [s],Strain [%],Stress [MPa],Phase', ...ROWS.map(([e, s], i) => `${i},${e},${s},${i < 4 ? 'elastic' : 'plastic'}`)].join('\n') + '\n';
     const r = check(text);
