@@ -37,7 +37,8 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 5000 + i);
 // (initialTangent.ts): noisy Rp0.2 5 → 2 and quietE 1 → 0 (E's interval, and Rp0.2's with it, now hold the truth
 // where they did not); noise-free quietE 6 → 3 and Rp0.2 2 → 1 (n 3.8–3.9 rises read E 1.3–1.7 % low on the grid).
 // The three left are bands raised by a seating toe (bandLo above 20 % of Rp0.2), where the tangent is not tried.
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 2, Ag: 9, ReH: 1, Ae: 1, missedYield: 2, Rm: 1 };
+// Fourteenth session: ReH's lower bound the peak sample's own less 3σ̂ (lab-records-holdout.test.ts): noisy ReH 1 → 0.
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 2, Ag: 9, Ae: 1, missedYield: 2, Rm: 1 };
 // Thirteenth session: the sloping Lüders plateau (this generator's, ±0.5 %) fitted with its slope where the data
 // bear it out, and the hinge's window carried along a rising plateau to its knee: noise-free Ae 3 → 0 (they were
 // read 1.2–1.9 points short on plateaus rising 0.40–0.49 %); noisy Ae 1 (seed 5014, 0.45 point short; 0.75 before).
