@@ -173,8 +173,9 @@ function noisyHeld(strain: ArrayLike<number>, stress: ArrayLike<number>, stop: n
   if (f < L.noisyHeldSamples + 2) return -1;
   const sigmaE = strainNoise(strain, Math.max(0, f - L.noiseSamples), f);
   // Sample by sample first; then, for a channel too noisy for that (its 8σ̂ₑ above the stall's bound), on means of
-  // `m` consecutive samples, whose noise is σ̂ₑ/√m (white noise; a channel whose noise is correlated from sample to
-  // sample is not helped, and its σ̂ₑ from second differences only makes the test stricter).
+  // `m` consecutive samples, whose noise is σ̂ₑ/√m for white noise (correlated noise leaves the means noisier than
+  // that and the floor too low; the means' own range must still stay below Δs/(2·E_HIGH), which a channel that
+  // follows the specimen cannot do).
   for (const m of L.noisyHeldMeans) {
     if (f < m * L.noisyHeldSamples + 2) break;
     const c = heldRun(strain, stress, f, carrying, heldChange, (8 * sigmaE) / Math.sqrt(m), m);
@@ -203,10 +204,7 @@ function heldRun(strain: ArrayLike<number>, stress: ArrayLike<number>, f: number
     if (m > 1) sum += strain[c - 1]! - strain[c + m - 1]!;
     const e = mean(c - 1), s = stress[c - 1]!;
     const nlo = e < lo ? e : lo, nhi = e > hi ? e : hi, nslo = s < slo ? s : slo, nshi = s > shi ? s : shi;
-    if (!(nhi - nlo <= Math.max(floor, (nshi - nslo) * perMPa)) || !(s >= carrying)) {
-      if (m > 1) sum -= strain[c - 1]! - strain[c + m - 1]!; // the sum back to window c
-      break;
-    }
+    if (!(nhi - nlo <= Math.max(floor, (nshi - nslo) * perMPa)) || !(s >= carrying)) break;
     lo = nlo; hi = nhi; slo = nslo; shi = nshi;
     c--;
   }
