@@ -4,13 +4,14 @@ import { InputError } from '../core/errors.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { LawName } from '../core/flow/types.js';
 import { scatterFromSpecimens } from '../core/scatter/fromSpecimens.js';
-import { analyzeSpecimens } from '../core/tensile/analyzeSpecimens.js';
+import { analyzeRecord } from '../core/tensile/analyzeRecord.js';
+import { summarizeSpecimens } from '../core/tensile/analyzeSpecimens.js';
 import type { Located } from '../plan/parse.js';
 import { PlanError } from '../plan/problems.js';
 import type { PlanDoc } from '../plan/schema.js';
 import { unitsOf } from '../plan/units.js';
 import { parseRecordText } from '../records/parse.js';
-import { MAX_PLAN_RECORD_BYTES } from './recordLaw.js';
+import { MAX_PLAN_RECORD_BYTES, planTravelOptions } from './recordLaw.js';
 
 /**
  * A plan whose `scatter.records` names tensile records of several specimens: reads them (relative
@@ -42,11 +43,23 @@ export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Loc
       const code = (e as NodeJS.ErrnoException).code;
       throw at(['scatter', 'records', i], `got ${JSON.stringify(f)} (${path}): ${code === 'ENOENT' ? 'file not found' : code === undefined ? 'invalid UTF-8' : `cannot read (${code})`}; allowed a tensile record file, relative to the plan's folder`);
     }
-    return { ...parseRecordText(text, { file: path }), name: f };
+    const rec = parseRecordText(text, { file: path });
+    // A record from the machine's travel: compliance out with material.elasticModulus, plastic part over Lc (recordLaw.ts).
+    const travel = planTravelOptions(rec, doc);
+    if (typeof travel === 'string') throw at(['scatter', 'records', i], `the record ${f} ${travel}`);
+    return { name: f, rec, travel };
   });
   let spec;
   try {
-    const set = analyzeSpecimens(records, { law, laws: [law] });
+    const specimens = records.map(({ name, rec, travel }, i) => {
+      try {
+        return { name, analysis: analyzeRecord(rec, { laws: [law], ...travel.options }) };
+      } catch (e) {
+        if (e instanceof InputError) throw new InputError(`records[${i}] (${name}).${e.path}`, e.value, e.allowed);
+        throw e;
+      }
+    });
+    const set = summarizeSpecimens(specimens, { law, laws: [law] });
     if (!set.lawParameters) throw new InputError('scatter.records', sc.records.length, `records whose ${law} fits converge`);
     spec = scatterFromSpecimens(set.lawParameters);
   } catch (e) {
@@ -73,7 +86,7 @@ export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Loc
   const material = { ...doc.material, flowCurve } as PlanDoc['material'];
   return {
     doc: { ...doc, material, scatter: { ...rest, params, correlation } },
-    source: `mean of ${spec.specimens} specimen fits (${sc.records.join(', ')})${spec.notes.length ? `; ${spec.notes.join('; ')}` : ''}`,
+    source: `mean of ${spec.specimens} specimen fits (${sc.records.join(', ')})${spec.notes.length ? `; ${spec.notes.join('; ')}` : ''}${records.map((r) => (r.travel.note ? `; ${r.name}: ${r.travel.note}` : '')).join('')}`,
     notes: spec.notes,
   };
 }

@@ -43,6 +43,7 @@ export const RecordFlowCurveSchema = z.strictObject({
     width: positive('specimen width of a force–extension record, mm').optional(),
     thickness: positive('specimen thickness of a force–extension record, mm').optional(),
     gaugeLength: positive('extensometer gauge length of a force–extension record, mm').optional(),
+    parallelLength: positive("specimen's parallel length Lc of a record whose extension is the machine's travel (crosshead), mm: its plastic part is spread over Lc, its compliance taken out with elasticModulus").optional(),
   }).optional().describe('how to read the record when its header and metadata do not say'),
 }).describe('A law fitted to a tensile record when the plan runs');
 
