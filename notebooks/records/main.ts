@@ -295,6 +295,13 @@ nb.cell({ name: 'input', fn: () => null })
     fn: (a: TensileAnalysis, r: TensileRecord) => {
       const fits = a.fits?.fits.filter((f) => f.converged) ?? [];
       if (!fits.length) return h('p', {}, 'No converged fit to send.');
+      // The machine's travel: its own slope is the machine's and grips' compliance, and its plastic part counts all of
+      // Lc over L0 — a law and E from it would be wrong in every other notebook (as `analyze --material-block` refuses).
+      if (r.machineTravel && (a.elasticModulusSource !== 'given' || a.parallelLengthRatio === null)) {
+        const need = [a.elasticModulusSource !== 'given' ? `the specimen's modulus (the travel's own slope, ${fixed(a.elasticModulus / 1000, 1)} GPa, is the machine's and grips' compliance, not the metal's)` : '',
+          a.parallelLengthRatio === null ? "the specimen's parallel length (the travel's plastic part is spread over it)" : ''].filter(Boolean);
+        return h('p', { id: 'save-state', role: 'status' }, `This record's extension is the machine's travel: give ${need.join(' and ')} in the fields above before a law from it is sent to the other notebooks.`);
+      }
       const pick = choice<LawName>({ label: 'Law', id: 'save-law', options: fits.map((f) => ({ value: f.law, text: LAW_TITLES[f.law] })), value: a.fits!.best ?? fits[0]!.law });
       const out = h('p', { id: 'save-state', role: 'status' });
       const prev = restore(BENCH_MATERIAL_KEY, (x) => x as { name: string });

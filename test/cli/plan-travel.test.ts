@@ -6,7 +6,7 @@
 // test/fixtures/42crmos4/ATTRIBUTION.md) carry both "Machine Displacement" and "Displacement" (extensometer, L0 25 mm)
 // and say "Parallel length: 30 mm" in their metadata.
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -138,5 +138,34 @@ describe('scatter.records of the machine\'s travel', () => {
     const r = run('run', plan('sn.json', { law: 'swift', K: 1600, eps0: 0.01, n: 0.1 }, 'SI', { scatter: { samples: 2000, seed: 7, records: files } }));
     expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/sn\.json:\d+:\d+: scatter\.records\[1\]: the record 46NT99-xh-noLc\.csv takes its extension from the machine's travel .*a metadata line such as "Parallel length: 30 mm" in the record \(the specimen's parallel length Lc in mm, from the gauge length 25 mm to 10 times it\)/);
+  });
+});
+
+describe('analyze --material-block / --material-out from the machine\'s travel', () => {
+  it('needs --modulus (the travel\'s own slope is the machine\'s compliance: 41 GPa on this steel) and a parallel length; exits 2 naming both, writes nothing', () => {
+    const xh = join(dir, writeRecord('46NT99', 'Machine Displacement'));
+    const noLc = join(dir, writeRecord('46NT99', 'Machine Displacement', false));
+    const out = join(dir, 'block.json');
+    const a = run('analyze', xh, '--material-block', '--law', 'swift');
+    expect(a.status).toBe(2);
+    expect(a.stdout).toBe('');
+    expect(a.stderr).toMatch(/--material-block: the record .*46NT99-xh\.csv takes its extension from the machine's travel \(column "Crosshead"\), not an extensometer; a material block from it is allowed with --modulus MPA/);
+    expect(a.stderr).not.toMatch(/--parallel-length/);
+    const b = run('analyze', noLc, '--material-out', out, '--modulus', '205000');
+    expect(b.status).toBe(2);
+    expect(b.stderr).toMatch(/--material-out: .* allowed with --parallel-length MM \(the specimen's parallel length Lc, from the gauge length 25 mm to 10 times it/);
+    expect(existsSync(out)).toBe(false);
+    // Both given: the block carries the given E and the same law a plan naming the record fits (compliance out, over Lc).
+    const c = run('analyze', noLc, '--material-block', '--law', 'swift', '--modulus', '205000', '--parallel-length', '30');
+    expect(c.stderr).toBe('');
+    const block = JSON.parse(c.stdout);
+    expect(block.elasticModulus).toBe(205000);
+    const rep = report(plan('block-plan.json', { record: writeRecord('46NT99', 'Machine Displacement'), law: 'swift' }));
+    expect(block.flowCurve.K / rep.material.flowCurve.K - 1).toBeCloseTo(0, 6);
+    expect(block.flowCurve.n / rep.material.flowCurve.n - 1).toBeCloseTo(0, 6);
+    // The analysis itself (no block) still runs without them, with its warning.
+    const d = run('analyze', xh, '--format', 'json');
+    expect(d.status).toBe(0);
+    expect(JSON.parse(d.stdout).warnings.map((w: { message: string }) => w.message).join('\n')).toMatch(/extension from the machine's travel \(column "Crosshead"\), not an extensometer: .* give the specimen's modulus/);
   });
 });

@@ -177,6 +177,27 @@ describe('record bench', () => {
     expect(errors).toEqual([]);
   });
 
+  it('the machine\'s travel sends no law to the other notebooks until the specimen\'s modulus and parallel length are given', async () => {
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    // 46NT71 (MaterialDigital, CC BY 4.0) through its Machine Displacement, without its "Parallel length" metadata line.
+    const lines = readFileSync(FIXTURE, 'utf8').split(/\r?\n/);
+    const head = lines.findIndex((l) => l.startsWith('Time\t'));
+    const rows = lines.slice(head + 2).filter((l) => l.trim() !== '').map((l) => { const c = l.split('\t'); return [c[0], c[3], c[2]].join('\t'); });
+    await dropFile(page, 'travel-no-lc.csv', [...lines.slice(0, head).filter((l) => !l.startsWith('Parallel length')), 'Time\tCrosshead\tForce', 's\tmm\tkN', ...rows].join('\n') + '\n');
+    await page.fill('#map-modulus', '201.876');
+    await page.click('#apply-mapping');
+    await expect.poll(() => page.locator('#cell-properties .sl-error').count(), { timeout: 30_000 }).toBe(0);
+    await settled(page, 'records');
+    await expect.poll(() => page.locator('#cell-save').innerText(), { timeout: 30_000 }).toMatch(/extension is the machine's travel: give the specimen's parallel length .* before a law from it is sent/);
+    expect(await page.locator('#save-material').count()).toBe(0);
+    await page.fill('#map-parallelLength', '30');
+    await page.click('#apply-mapping');
+    await expect.poll(() => page.locator('#save-material').count(), { timeout: 30_000 }).toBe(1);
+    expect(await page.locator('#cell-curve-chart').innerText()).toContain('plastic over Lc');
+    expect(errors).toEqual([]);
+  });
+
   it('a record whose columns are not recognised reads once its columns and units are mapped', async () => {
     const { page, errors } = await openPage(h, '/records/');
     await settled(page, 'records');

@@ -265,6 +265,19 @@ export const analyze = defineCommand({
     ]);
     const read: TensileRecord[] = [];
     for (const f of positionals) read.push(await readRecordFile(f, { ...ropts, file: f }));
+    // A material block is a plan's input: from the machine's travel it needs the specimen's modulus (the travel's own
+    // slope is the machine's and grips' compliance, E read 33–43 GPa on the open 42CrMoS4 steel records) and the
+    // parallel length (else the law is fitted to the plastic stretch of all of Lc over L0), as a plan naming the record does.
+    const blockFlag = values['material-out'] !== undefined ? '--material-out' : values['material-block'] ? '--material-block' : null;
+    if (blockFlag) {
+      for (const r of read) {
+        const t = travelOptions(r);
+        if (!t.machineTravel || (modulus !== undefined && t.travelLengths)) continue;
+        const missing = [modulus === undefined ? "--modulus MPA (the specimen's Young's modulus: the travel's own slope is the machine's and grips' compliance)" : '',
+          t.travelLengths ? '' : `--parallel-length MM (the specimen's parallel length Lc, from the gauge length${r.geometry?.gaugeLength ? ` ${r.geometry.gaugeLength} mm` : ''} to 10 times it; or a metadata line such as "Parallel length: 30 mm")`].filter(Boolean);
+        throw cliError(blockFlag, `the record ${r.file} takes its extension from the machine's travel (column ${JSON.stringify(r.columns.extension?.name ?? 'extension')}), not an extensometer; a material block from it is allowed with ${missing.join(' and ')}`);
+      }
+    }
     const aopts = {
       ...(fitLaws ? { fitLaws } : {}),
       ...(offset !== undefined ? { proofOffsetPct: offset } : {}),
