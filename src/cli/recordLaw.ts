@@ -7,6 +7,7 @@ import type { Located } from '../plan/parse.js';
 import { PlanError } from '../plan/problems.js';
 import type { PlanDoc } from '../plan/schema.js';
 import { unitsOf } from '../plan/units.js';
+import { decodeRecordBytes } from '../records/decode.js';
 import { parseRecordText } from '../records/parse.js';
 import { travelOptions, type RecordOptions, type TensileRecord } from '../records/builder.js';
 import type { AnalyzeOptions } from '../core/tensile/analyzeRecord.js';
@@ -41,11 +42,11 @@ export function fitRecordFlowCurve(doc: PlanDoc, planFile: string, loc?: Located
   try {
     const size = statSync(path).size;
     if (size > MAX_PLAN_RECORD_BYTES) throw new PlanError([{ ...at('record'), message: `the record ${fc.record} is ${size} bytes; allowed at most ${MAX_PLAN_RECORD_BYTES} for a plan (fit it with \`strainledger analyze --material-block\` instead)` }]);
-    text = new TextDecoder('utf-8', { fatal: true }).decode(readFileSync(path));
+    text = decodeRecordBytes(readFileSync(path));
   } catch (e) {
     if (e instanceof PlanError) throw e;
     const code = (e as NodeJS.ErrnoException).code;
-    const why = code === 'ENOENT' ? 'file not found' : code === 'EISDIR' ? 'is a folder, not a record file' : code === undefined ? 'invalid UTF-8; allowed UTF-8 text' : `cannot read (${code})`;
+    const why = code === 'ENOENT' ? 'file not found' : code === 'EISDIR' ? 'is a folder, not a record file' : `cannot read (${code})`;
     throw new PlanError([{ ...at('record'), message: `got ${JSON.stringify(fc.record)} (${path}): ${why}; allowed a tensile record file, relative to the plan's folder` }]);
   }
   const rec = parseRecordText(text, { ...(fc.options ?? {}), file: path });

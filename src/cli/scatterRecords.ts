@@ -10,6 +10,7 @@ import type { Located } from '../plan/parse.js';
 import { PlanError } from '../plan/problems.js';
 import type { PlanDoc } from '../plan/schema.js';
 import { unitsOf } from '../plan/units.js';
+import { decodeRecordBytes } from '../records/decode.js';
 import { parseRecordText } from '../records/parse.js';
 import { MAX_PLAN_RECORD_BYTES, planTravelOptions } from './recordLaw.js';
 
@@ -37,11 +38,11 @@ export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Loc
     try {
       const size = statSync(path).size;
       if (size > MAX_PLAN_RECORD_BYTES) throw at(['scatter', 'records', i], `the record ${f} is ${size} bytes; allowed at most ${MAX_PLAN_RECORD_BYTES}`);
-      text = new TextDecoder('utf-8', { fatal: true }).decode(readFileSync(path));
+      text = decodeRecordBytes(readFileSync(path));
     } catch (e) {
       if (e instanceof PlanError) throw e;
       const code = (e as NodeJS.ErrnoException).code;
-      throw at(['scatter', 'records', i], `got ${JSON.stringify(f)} (${path}): ${code === 'ENOENT' ? 'file not found' : code === undefined ? 'invalid UTF-8' : `cannot read (${code})`}; allowed a tensile record file, relative to the plan's folder`);
+      throw at(['scatter', 'records', i], `got ${JSON.stringify(f)} (${path}): ${code === 'ENOENT' ? 'file not found' : `cannot read (${code})`}; allowed a tensile record file, relative to the plan's folder`);
     }
     const rec = parseRecordText(text, { file: path });
     // A record from the machine's travel: compliance out with material.elasticModulus, plastic part over Lc (recordLaw.ts).

@@ -7,7 +7,8 @@ import { recordError } from './errors.js';
 import { detectLayout, type Layout } from './layout.js';
 import { ByteRowScanner, RowScanner } from './scan.js';
 import { checkText, csvProblem, headLines, parseRecordText } from './parse.js';
-import { decodeRecordBytes, utf16Mark } from './decode.js';
+import { isUtf8 } from 'node:buffer';
+import { decodeRecord, ENCODING_NOTE, utf16Mark } from './decode.js';
 
 /** Bytes read to find the layout (metadata, header, units row). */
 export const HEAD_BYTES = 256 * 1024;
@@ -36,11 +37,16 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
     closeSync(fd);
   }
   let head = buf.subarray(0, got);
-  if (utf16Mark(head)) {
-    // A spreadsheet's UTF-16 text export (UTF-16 with its mark): decoded whole and read as text (such files come
-    // from a spreadsheet, so they are of a spreadsheet's size).
-    return parseRecordText(decodeRecordBytes(readFileSync(path)), { ...opts, file });
-  }
+  // Read whole and decoded by decodeRecord: a spreadsheet's UTF-16 text export (with its mark; such files come from a
+  // spreadsheet, so they are of a spreadsheet's size), and a file that is not valid UTF-8 (a Windows code page).
+  const whole = (): TensileRecord => {
+    const { text, encoding } = decodeRecord(readFileSync(path));
+    const rec = parseRecordText(text, { ...opts, file });
+    if (encoding === 'windows-1252') rec.warnings.unshift(ENCODING_NOTE);
+    return rec;
+  };
+  if (utf16Mark(head)) return whole();
+  if (!head.includes(0) && !isUtf8(got === HEAD_BYTES ? head.subarray(0, head.lastIndexOf(0x0a) + 1) : head)) return whole();
   if (head.includes(0)) {
     const at = head.indexOf(0);
     const pre = head.subarray(0, at).toString('latin1');
@@ -65,10 +71,16 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
   const b = new RecordBuilder(layout, { ...opts, file });
   // Rows go straight from csv-parse's on_record into the builder (nothing is queued in the stream).
   const BIN = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFD]/;
+  // Bytes that are not UTF-8 past the first HEAD_BYTES (a footer in a code page): the whole file is read again by decodeRecord.
+  const NOT_UTF8 = Symbol('not UTF-8');
   const parser = parse({
     bom: true, delimiter: layout.delimiter, from_line: layout.dataLine, relax_column_count: true, skip_empty_lines: true, trim: true, info: true,
     on_record: (rec: { record: string[]; info: { lines: number } }) => {
-      for (const cell of rec.record) if (BIN.test(cell)) throw recordError(file, rec.info.lines, undefined, '', 'binary content; expected a text export (CSV or tab-separated) in UTF-8');
+      for (const cell of rec.record) {
+        if (!BIN.test(cell)) continue;
+        if (!/[\u0000-\u0008\u000B\u000C\u000E-\u001F]/.test(cell)) throw NOT_UTF8;
+        throw recordError(file, rec.info.lines, undefined, '', 'binary content; expected a text export (CSV or tab-separated) in UTF-8');
+      }
       b.push(rec.record, rec.info.lines);
       return null;
     },
@@ -77,6 +89,7 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
   try {
     await pipeline(createReadStream(path), parser, sink);
   } catch (e) {
+    if (e === NOT_UTF8) return whole();
     throw csvProblem(e, file);
   }
   return b.finish(name);

@@ -124,7 +124,9 @@ export const CORPUS: BadCase[] = [
   recordCase('a named record that is empty', '', /record\.csv:1:1: empty file/),
   recordCase('a named record with a header and no numbers', 'strain,stress\n', /record\.csv:\d+:\d+: .*no rows of numbers/),
   recordCase('a named record with text in a number column', 'strain,stress\n0,0\n0.01,abc\n', /record\.csv:3:\d+: stress: got "abc", expected a number/),
-  recordCase('a named record that is not UTF-8', Buffer.from([0x73, 0x74, 0xff, 0xfe, 0x0a]), /material\.flowCurve\.record: got "record\.csv" .*(UTF-8|ENCODING)/),
+  recordCase('a named record that is binary (NUL bytes, not UTF-8)', Buffer.from([0x73, 0x74, 0xff, 0x00, 0x0a]), /record\.csv:1:\d+: binary content \(character U\+(0000|FFFD)\)/),
+  // bytes that are not UTF-8 and hold no NUL are a Windows code page (decodeRecord): read, and refused for what they say
+  recordCase('a named record in Windows-1252 with no numbers', Buffer.from('Dehnung [%];Spannung [N/mm\xb2]\n', 'latin1'), /record\.csv:\d+:\d+: .*no rows of numbers/),
   // files and folders
   { name: 'a plan file that does not exist', expect: /missing\.json: file not found/, setup: (dir) => ['run', join(dir, 'missing.json')] },
   { name: 'a plan path that is a folder', expect: /is a folder, not a file/, setup: (dir) => ['run', dir] },

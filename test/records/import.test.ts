@@ -3,7 +3,9 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { PlanError } from '../../src/plan/problems.js';
-import { parseRecordText, sampleLine, type RecordOptions } from '../../src/records/index.js';
+import iconv from 'iconv-lite';
+import { decodeWindows1252 } from '../../src/records/decode.js';
+import { decodeRecord, ENCODING_NOTE, parseRecordText, sampleLine, type RecordOptions } from '../../src/records/index.js';
 import { unitFactor } from '../../src/records/units.js';
 import { readRecordFile } from '../../src/records/node.js';
 import { expectRelClose } from '../helpers.js';
@@ -199,6 +201,46 @@ describe('parseRecordText(text) reads what labs export', () => {
     // Without the mark the NUL bytes are refused with their place, and the message says what is read.
     writeFileSync(join(dir, 'nomark.txt'), Buffer.from(text, 'utf16le'));
     await expect(readRecordFile(join(dir, 'nomark.txt'), { file: 'nomark.txt' })).rejects.toThrow(/nomark\.txt:1:2: binary content \(NUL byte\); expected .* in UTF-8, or in UTF-16 with its byte-order mark/);
+  });
+  it('an export in a Windows code page (not UTF-8: "N/mm²" as the single byte B2, "°C", "ü") reads as its UTF-8 twin, with a warning', async () => {
+    // INVENTED rows; the header words are the usual German ones ("Dehnung" strain, "Spannung" stress; common practice).
+    const text = 'Prüfer;Müller\nTemperatur;23 °C\n\n' + csv('Dehnung [%];Spannung [N/mm²]', ';', ',').replace(/\n/g, '\r\n');
+    const dir = mkdtempSync(join(tmpdir(), 'sl-cp1252-'));
+    const want = check(text);
+    expect(want.columns.stress?.unit).toBe('N/mm²');
+    const bytes = Buffer.from(text, 'latin1'); // the same bytes as Windows-1252 for these characters
+    expect(bytes.includes(0xb2)).toBe(true);
+    expect(decodeRecord(bytes)).toEqual({ text, encoding: 'windows-1252' });
+    expect(decodeRecord(Buffer.from(text, 'utf8'))).toEqual({ text, encoding: 'utf-8' });
+    // Every byte 80–FF (and all 256) against the registry's iconv-lite (a general-purpose encoding library): "€" is 80
+    // in Windows-1252, U+0080 in ISO-8859-1.
+    const all = Uint8Array.from({ length: 256 }, (_, i) => i);
+    // iconv-lite leaves the code page's five undefined bytes (81, 8D, 8F, 90, 9D) as U+FFFD; the WHATWG Encoding
+    // Standard (what a browser's TextDecoder does) maps them to the C1 control of the same number, as we do.
+    const ref = [...iconv.decode(Buffer.from(all), 'windows-1252')];
+    expect(ref.filter((c) => c === '\ufffd')).toHaveLength(5);
+    expect([...decodeWindows1252(all)]).toEqual(ref.map((c, i) => (c === '\ufffd' ? String.fromCharCode(i) : c)));
+    expect(decodeRecord(Uint8Array.of(0x80, 0x3b, 0x31)).text).toBe('€;1');
+    writeFileSync(join(dir, 'cp.csv'), bytes);
+    const r = await readRecordFile(join(dir, 'cp.csv'), { file: 'cp.csv' });
+    expect(Array.from(r.strain)).toEqual(Array.from(want.strain));
+    expect(Array.from(r.stress)).toEqual(Array.from(want.stress));
+    expect(r.warnings[0]).toBe(ENCODING_NOTE);
+    writeFileSync(join(dir, 'u8.csv'), text);
+    expect((await readRecordFile(join(dir, 'u8.csv'), { file: 'u8.csv' })).warnings).not.toContain(ENCODING_NOTE);
+    // The only byte that is not UTF-8 past the first 256 KiB the reader looks at first (a footer line): read again whole.
+    const long = Array.from({ length: 30_000 }, (_, i) => `${(i * 1e-4).toFixed(6).replace('.', ',')};${(Math.min(i * 2e-4, 0.3) * 1000).toFixed(3).replace('.', ',')}`);
+    const big = Buffer.from(['Dehnung [%];Spannung [MPa]', ...long, 'Prüfer;Müller', ''].join('\n'), 'latin1');
+    expect(big.length).toBeGreaterThan(256 * 1024);
+    expect(big.subarray(0, 256 * 1024).includes(0xfc)).toBe(false);
+    writeFileSync(join(dir, 'footer.csv'), big);
+    const f = await readRecordFile(join(dir, 'footer.csv'), { file: 'footer.csv' });
+    expect(f.rows).toBe(30_000);
+    expect(f.stress[29_999]).toBeCloseTo(300, 9);
+    expect(f.warnings[0]).toBe(ENCODING_NOTE);
+    // NUL bytes stay binary content, whatever else the bytes hold.
+    writeFileSync(join(dir, 'bin.csv'), Buffer.from([0x53, 0x3b, 0x54, 0x0a, 0xb2, 0x00, 0x31]));
+    await expect(readRecordFile(join(dir, 'bin.csv'), { file: 'bin.csv' })).rejects.toThrow(/binary content/);
   });
   it('force–extension in lbf and in with width × thickness from options (NIST: 1 lbf = 4.4482216152605 N)', () => {
     const A = 12.5 * 2, L0 = 50;
