@@ -90,6 +90,8 @@ function textRows(h: string[], nonEmpty: readonly { l: string }[], at: number, d
       const t = f[j]!;
       if (t === '') { p += '_'; continue; }
       if (isNumberToken(t, dc)) { p += 'n'; nums++; continue; }
+      // A clock time or a time stamp (a time column as some exports write it) is never a strain or a stress.
+      if (CLOCK.test(t)) { p += 't'; continue; }
       const c = describeColumn(h[j]!, j);
       if (ROLES.some((role) => roleScore(c, role, c.unit) > 0)) return false;
       p += 't';
@@ -99,6 +101,13 @@ function textRows(h: string[], nonEmpty: readonly { l: string }[], at: number, d
   }
   return pattern.includes('t');
 }
+
+/**
+ * A clock time ("00:01:23.5", "1:23,5", "10:15 AM") or a time stamp ("2026-03-01 10:15:02.125", "2026-03-01T10:15:02",
+ * "01.03.2026 10:15:02", "3/1/2026 10:15:02"): exports write a time column so (common practice).
+ * @example CLOCK.test('00:01:23.5') // true
+ */
+export const CLOCK = /^(\d{4}-\d{2}-\d{2}[ T]|\d{1,2}[./]\d{1,2}[./]\d{2,4} )?\d{1,3}:\d{2}(:\d{2})?([.,]\d+)?( ?[AP]M)?$/i;
 
 function numericRow(f: string[], dc: boolean): boolean {
   let nums = 0;

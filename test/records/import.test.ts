@@ -175,6 +175,27 @@ describe('parseRecordText(text) reads what labs export', () => {
     const bad = ['Strain [%],Stress [MPa],Time [s]', ...ROWS.map(([e, s]) => `${e},${s},n/a`)].join('\n') + '\n';
     expect(() => parseRecordText(bad, { file: 'b.csv' })).toThrow(/header only: no rows of numbers/);
   });
+  it('a time column of clock times or time stamps (as some exports write it) is read past, through the text and the file reader', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sl-clock-'));
+    const stamps: [string, (i: number) => string, string, string][] = [
+      ['hh:mm:ss.s', (i) => `00:00:${String(i).padStart(2, '0')}.5`, ',', '.'],
+      ['ISO 8601 stamp', (i) => `2026-03-01T10:15:${String(i).padStart(2, '0')}.125`, ',', '.'],
+      ['date and time, decimal comma', (i) => `01.03.2026 10:15:${String(i).padStart(2, '0')},25`, ';', ','],
+      ['12-hour clock', (i) => `10:15:${String(i).padStart(2, '0')} AM`, '\t', '.'],
+    ];
+    for (const [what, stamp, sep, dec] of stamps) {
+      const text = [['Time', 'Strain [%]', 'Stress [MPa]'].join(sep), ...ROWS.map(([e, s], i) => [stamp(i), String(e).replace('.', dec), String(s).replace('.', dec)].join(sep))].join('\n') + '\n';
+      const r = check(text);
+      expect(r.layout.headerLine, what).toBe(1);
+      writeFileSync(join(dir, 'c.csv'), text);
+      const f = await readRecordFile(join(dir, 'c.csv'), { file: 'c.csv' });
+      expect(Array.from(f.stress), what).toEqual(Array.from(r.stress));
+      expect(Array.from(f.strain), what).toEqual(Array.from(r.strain));
+    }
+    // A clock time in the strain or stress column is no reading: refused where it stands.
+    const bad = ['Time [s],Strain [%],Stress [MPa]', ...ROWS.map(([e, s], i) => `${i},${e},${i === 6 ? '10:15:02' : s}`)].join('\n') + '\n';
+    expect(() => parseRecordText(bad, { file: 'b.csv' })).toThrow(/b\.csv:8:3: .*got "10:15:02", expected a number/);
+  });
   it('two channels of one kind (Strain 1, Strain 2, one unit): their mean is read (an averaging extensometer) and a warning says how to map one', () => {
     const text = ['Strain 1 [%],Strain 2 [%],Stress [MPa]', ...ROWS.map(([e, s]) => `${e},${e * 1.05},${s}`)].join('\n') + '\n';
     const r = parseRecordText(text, { file: 'x.csv' });
