@@ -7,6 +7,7 @@ import { recordError } from './errors.js';
 import { detectLayout, type Layout } from './layout.js';
 import { ByteRowScanner, RowScanner } from './scan.js';
 import { checkText, csvProblem, headLines, parseRecordText } from './parse.js';
+import { spaceAligned } from './aligned.js';
 import { isUtf8 } from 'node:buffer';
 import { decodeRecord, ENCODING_NOTE, utf16Mark } from './decode.js';
 
@@ -58,7 +59,14 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
   if (bom) text = text.slice(1);
   if (text.trim() === '' && got < HEAD_BYTES) throw recordError(file, 1, 1, '', 'empty file; expected a header line of column names and rows of numbers below it');
   checkText(text, file);
-  const layout = detectLayout(headLines(text), file, opts);
+  let layout: Layout;
+  try {
+    layout = detectLayout(headLines(text), file, opts);
+  } catch (e) {
+    // Columns aligned by spaces: parseRecordText reads the whole text as tab-separated (aligned.ts).
+    if (!opts.delimiter && spaceAligned(headLines(text))) return whole();
+    throw e;
+  }
   const name = path.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '');
   // Fast paths: the file's bytes, else (non-ASCII text after the header) its decoded text; any doubt,
   // and any error from finish, goes to the located reader below, which words every message.

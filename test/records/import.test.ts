@@ -175,6 +175,33 @@ describe('parseRecordText(text) reads what labs export', () => {
     const bad = ['Strain [%],Stress [MPa],Time [s]', ...ROWS.map(([e, s]) => `${e},${s},n/a`)].join('\n') + '\n';
     expect(() => parseRecordText(bad, { file: 'b.csv' })).toThrow(/header only: no rows of numbers/);
   });
+  it('columns aligned by runs of spaces (a fixed-width text export) read as the comma-separated file, through the text and the file reader', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'sl-aligned-'));
+    const pad = (v: number, dec = '.') => ' ' + String(v).replace('.', dec).padStart(11);
+    const variants: [string, string][] = [
+      ['names with spaces, two or more between columns', ['Strain (%)    Stress (MPa)', ...ROWS.map(([e, s]) => pad(e) + pad(s))].join('\n')],
+      ['one space between names', ['Strain Stress', '% MPa', ...ROWS.map(([e, s]) => pad(e) + pad(s))].join('\n')],
+      ['units row, decimal comma, CRLF', ['      Strain      Stress', '           %         MPa', ...ROWS.map(([e, s]) => pad(e, ',') + pad(s, ','))].join('\r\n')],
+      ['metadata lines kept', ['Specimen:  A-7', 'Operator = J. Doe', '', 'Strain[%]   Stress[MPa]', ...ROWS.map(([e, s]) => ` ${e} ${s}`)].join('\n')],
+    ];
+    for (const [what, text] of variants) {
+      const r = check(text + '\n');
+      writeFileSync(join(dir, 'a.txt'), text + '\n');
+      const f = await readRecordFile(join(dir, 'a.txt'), { file: 'a.txt' });
+      expect(Array.from(f.stress), what).toEqual(Array.from(r.stress));
+      expect(Array.from(f.strain), what).toEqual(Array.from(r.strain));
+      if (what === 'metadata lines kept') expect(r.metadata.get('specimen')?.value).toBe('A-7');
+    }
+    // Force and extension with the specimen's size in metadata lines: the stress from them, as in a CSV.
+    const fe = ['Width: 12.5 mm', 'Thickness: 2 mm', 'Gauge length: 50 mm', '', '   Load [N]   Extension [mm]', ...ROWS.map(([e, s]) => pad(s * 25) + pad((e / 100) * 50))].join('\n') + '\n';
+    const g = check(fe);
+    expect(g.geometry).toMatchObject({ area: 25, gaugeLength: 50 });
+    // A bad cell is named at its own line of the file.
+    const bad = ['Strain (%)    Stress (MPa)', ...ROWS.map(([e, s], i) => pad(e) + (i === 5 ? '        oops' : pad(s)))].join('\n') + '\n';
+    expect(() => parseRecordText(bad, { file: 'b.txt' })).toThrow(/b\.txt:7:\d+: .*got "oops", expected a number/);
+    // One number a line is still one column.
+    expect(() => parseRecordText(['Stress', ...ROWS.map(([, s]) => pad(s))].join('\n') + '\n', { file: 'c.txt' })).toThrow(/only one column found/);
+  });
   it('a time column of clock times or time stamps (as some exports write it) is read past, through the text and the file reader', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'sl-clock-'));
     const stamps: [string, (i: number) => string, string, string][] = [
