@@ -63,7 +63,7 @@ export interface ScatterRun {
  * their means with spreads (src/cli/scatterRecords.ts); both modules load only for such plans.
  * @throws PlanError naming every problem (a `--set` value is marked as such).
  */
-export async function planDocument(src: PlanSource, overrides: readonly Override[] = []): Promise<{ loc: Located; doc: PlanDoc; applied: string[]; source?: string }> {
+export async function planDocument(src: PlanSource, overrides: readonly Override[] = []): Promise<{ loc: Located; doc: PlanDoc; applied: string[]; source?: string; recordCautions: string[] }> {
   const loc: Located = overrides.length ? { data: structuredClone(src.loc.data), locate: src.loc.locate } : src.loc;
   const applied: string[] = [];
   for (const o of overrides) {
@@ -80,17 +80,20 @@ export async function planDocument(src: PlanSource, overrides: readonly Override
     throw e;
   }
   let source: string | undefined;
+  const recordCautions: string[] = [];
   if ('record' in doc.material.flowCurve) {
     const fitted = (await import('./recordLaw.js')).fitRecordFlowCurve(doc, src.file, loc);
     doc = fitted.doc;
     source = fitted.source;
+    recordCautions.push(...(fitted.cautions ?? []));
   }
   if (doc.scatter?.records) {
     const fromRecords = (await import('./scatterRecords.js')).scatterFromRecordFiles(doc, src.file, loc);
     doc = fromRecords.doc;
     source = fromRecords.source ?? source;
+    recordCautions.push(...(fromRecords.cautions ?? []));
   }
-  return { loc, doc, applied, ...(source !== undefined ? { source } : {}) };
+  return { loc, doc, applied, ...(source !== undefined ? { source } : {}), recordCautions };
 }
 
 /**
@@ -100,7 +103,7 @@ export async function planDocument(src: PlanSource, overrides: readonly Override
  * @throws PlanError (exit 2) for invalid input, located in the plan file.
  */
 export async function evaluateSource(src: PlanSource, overrides: readonly Override[] = [], scatter?: ScatterRun): Promise<ReportV1> {
-  const { loc, doc, applied, source } = await planDocument(src, overrides);
+  const { loc, doc, applied, source, recordCautions } = await planDocument(src, overrides);
   const plan: LoadedPlan = { ...resolvePlan(doc, src.file, loc), file: src.file, loc };
   if (source) plan.route.material.source = source;
   const ledger = runPlan(plan);
@@ -111,7 +114,7 @@ export async function evaluateSource(src: PlanSource, overrides: readonly Overri
   }
   const h = createHash('sha256').update(src.text);
   for (const a of applied) h.update(`\n--set ${a}`);
-  const report = buildReport(plan, ledger, { hash: h.digest('hex'), tool: TOOL, ...(summary ? { scatter: summary } : {}) });
+  const report = buildReport(plan, ledger, { hash: h.digest('hex'), tool: TOOL, ...(summary ? { scatter: summary } : {}), recordCautions });
   if (applied.length) report.plan = { ...report.plan, overrides: applied } as ReportV1['plan'];
   return report;
 }

@@ -33,7 +33,7 @@ export function isRecordFlowCurve(fc: unknown): fc is RecordFlowCurve {
  * plus the provenance `fitted from FILE`. Plans with law parameters come back unchanged.
  * @throws PlanError located at `material.flowCurve.record` (missing file: exit 2).
  */
-export function fitRecordFlowCurve(doc: PlanDoc, planFile: string, loc?: Located): { doc: PlanDoc; source?: string } {
+export function fitRecordFlowCurve(doc: PlanDoc, planFile: string, loc?: Located): { doc: PlanDoc; source?: string; cautions?: string[] } {
   const fc = doc.material.flowCurve as unknown;
   if (!isRecordFlowCurve(fc)) return { doc };
   const at = (field: string) => ({ file: planFile, ...(loc?.locate(['material', 'flowCurve', field]) ?? {}), path: `material.flowCurve.${field}` });
@@ -60,7 +60,19 @@ export function fitRecordFlowCurve(doc: PlanDoc, planFile: string, loc?: Located
   const law: Record<string, unknown> = { law: fc.law };
   for (const p of LAW_PARAMETERS[fc.law]) law[p.name] = p.kind === 'stress' ? units.fromMPa(fit.params[p.name]!) : fit.params[p.name]!;
   const material = { ...doc.material, flowCurve: law, fittedStrainRange: doc.material.fittedStrainRange ?? fit.strainRange } as PlanDoc['material'];
-  return { doc: { ...doc, material }, source: `fitted from ${fc.record}${travel.note ? ` (${travel.note})` : ''}` };
+  return { doc: { ...doc, material }, source: `fitted from ${fc.record}${travel.note ? ` (${travel.note})` : ''}`, cautions: recordCautions(fc.record, rec.warnings, a.warnings) };
+}
+
+/**
+ * Warnings about a record that bear on a law fitted to it, as cautions for the plan's report: every warning from
+ * reading it (columns chosen, a strain unit guessed, rows left out, a channel held or ended, the machine's travel),
+ * and the analysis's except those on properties the plan does not take from the record (ReH, Rp0.2, Ag, a fracture
+ * the record does not show: the plan's values come from the law). Each names the file.
+ * @example recordCautions('t.csv', [], [{ code: 'maxAtEnd', message: 'the test stopped before maximum force' }]) // ['record t.csv: the test stopped before maximum force']
+ */
+export function recordCautions(file: string, readWarnings: readonly string[], analysisWarnings: readonly { code: string; message: string }[]): string[] {
+  const NOT_FOR_THE_LAW = new Set(['uncertainAg', 'uncertainReH', 'uncertainRp', 'noProofPoint', 'noFractureDrop', 'flatTop', 'unloadedBeforeFracture', 'nRange']);
+  return [...readWarnings, ...analysisWarnings.filter((w) => !NOT_FOR_THE_LAW.has(w.code)).map((w) => w.message)].map((m) => `record ${file}: ${m}`);
 }
 
 /**

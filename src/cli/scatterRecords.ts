@@ -12,7 +12,7 @@ import type { PlanDoc } from '../plan/schema.js';
 import { unitsOf } from '../plan/units.js';
 import { decodeRecordBytes } from '../records/decode.js';
 import { parseRecordText } from '../records/parse.js';
-import { MAX_PLAN_RECORD_BYTES, planTravelOptions } from './recordLaw.js';
+import { MAX_PLAN_RECORD_BYTES, planTravelOptions, recordCautions } from './recordLaw.js';
 
 /**
  * A plan whose `scatter.records` names tensile records of several specimens: reads them (relative
@@ -24,7 +24,7 @@ import { MAX_PLAN_RECORD_BYTES, planTravelOptions } from './recordLaw.js';
  * @throws PlanError located at `scatter.records[i]` (unreadable file, record that cannot be fitted)
  * or `scatter.params` / `scatter.correlation` (spreads given twice).
  */
-export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Located): { doc: PlanDoc; source?: string; notes?: string[] } {
+export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Located): { doc: PlanDoc; source?: string; notes?: string[]; cautions?: string[] } {
   const sc = doc.scatter;
   if (!sc?.records) return { doc };
   const at = (path: (string | number)[], message: string) =>
@@ -51,10 +51,13 @@ export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Loc
     return { name: f, rec, travel };
   });
   let spec;
+  const cautions: string[] = [];
   try {
     const specimens = records.map(({ name, rec, travel }, i) => {
       try {
-        return { name, analysis: analyzeRecord(rec, { laws: [law], ...travel.options }) };
+        const analysis = analyzeRecord(rec, { laws: [law], ...travel.options });
+        cautions.push(...recordCautions(name, rec.warnings, analysis.warnings));
+        return { name, analysis };
       } catch (e) {
         if (e instanceof InputError) throw new InputError(`records[${i}] (${name}).${e.path}`, e.value, e.allowed);
         throw e;
@@ -89,5 +92,6 @@ export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Loc
     doc: { ...doc, material, scatter: { ...rest, params, correlation } },
     source: `mean of ${spec.specimens} specimen fits (${sc.records.join(', ')})${spec.notes.length ? `; ${spec.notes.join('; ')}` : ''}${records.map((r) => (r.travel.note ? `; ${r.name}: ${r.travel.note}` : '')).join('')}`,
     notes: spec.notes,
+    cautions,
   };
 }

@@ -96,7 +96,7 @@ export interface ReportV1 {
  * Builds the versioned report from a plan and its ledger, converting back to the plan's units.
  * Pure and deterministic: the same plan gives the same report byte for byte.
  */
-export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: string; tool: string; scatter?: ScatterSummary }): ReportV1 {
+export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: string; tool: string; scatter?: ScatterSummary; recordCautions?: readonly string[] }): ReportV1 {
   const u = plan.units;
   const S = u.fromMPa;
   const L = (s: Size): Size => {
@@ -200,6 +200,7 @@ export function buildReport(plan: LoadedPlan, ledger: Ledger, meta: { hash: stri
     coldWorkWindow: ledger.coldWorkWindow,
     // Scatter: computed here on one thread unless the runner already sampled it on worker threads (same numbers).
     ...(plan.scatter ? { scatter: scatterReport(plan.scatter, meta.scatter ?? withLocation(plan.file, plan.loc, () => runScatter(plan.scatter!)), u) } : {}),
-    cautions: m.temperSystem !== undefined ? [...CAUTIONS, TEMPER_CAUTION] : [...CAUTIONS],
+    // What the analysis of a record the law was fitted to warned (src/cli/recordLaw.ts, recordCautions), after the usual ones.
+    cautions: [...CAUTIONS, ...(m.temperSystem !== undefined ? [TEMPER_CAUTION] : []), ...(meta.recordCautions ?? [])],
   };
 }

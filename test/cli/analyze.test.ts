@@ -260,6 +260,25 @@ describe('strainledger analyze --material-block and a plan that names a record',
     const block = JSON.parse(run('analyze', 'examples/stamping-strip-loops.csv', '--material-block', '--law', 'swift').stdout);
     expectRelClose(rep.material.flowCurve.K, block.flowCurve.K, 1e-6, 'same fit as analyze');
   });
+  it('what the record\'s analysis warns about the law\'s basis reaches the plan\'s report as cautions naming the file, in every format', () => {
+    // The INVENTED example record, its strain unit dropped from the header and cut at half its rows (before maximum force).
+    const lines = readFileSync(join(ROOT, 'examples', 'stamping-strip-loops.csv'), 'utf8').trimEnd().split('\n');
+    const hi = lines.findIndex((l) => l.startsWith('Time [s]'));
+    const data = lines.slice(hi + 1);
+    writeFileSync(join(dir, 'cut.csv'), [...lines.slice(0, hi), lines[hi]!.replace('Strain [%]', 'Strain'), ...data.slice(0, data.length >> 1)].join('\n') + '\n');
+    const plan = JSON.parse(readFileSync(join(ROOT, 'examples', 'stamping-strip-from-record.json'), 'utf8'));
+    plan.material.flowCurve.record = 'cut.csv';
+    writeFileSync(join(dir, 'cut.json'), JSON.stringify(plan));
+    const rep = JSON.parse(run('run', join(dir, 'cut.json'), '--format', 'json').stdout);
+    const own = rep.cautions.filter((c: string) => c.startsWith('record cut.csv: '));
+    expect(own).toHaveLength(2);
+    expect(own[0]).toMatch(/no unit for strain column "Strain"; read as percent because its largest value is 17\.29/);
+    expect(own[1]).toMatch(/the test stopped before maximum force/);
+    for (const format of ['md', 'html', 'table']) expect(run('run', join(dir, 'cut.json'), '--format', format).stdout, format).toMatch(/record cut\.csv: .*the test stopped before maximum force/);
+    // The whole record: nothing of its own to say about the law (its Ag warning is not the plan's business).
+    const whole = JSON.parse(run('run', 'examples/stamping-strip-from-record.json', '--format', 'json').stdout);
+    expect(whole.cautions.filter((c: string) => c.startsWith('record '))).toEqual([]);
+  });
   it('a plan naming a missing record exits 2 naming the field and the file', () => {
     const plan = JSON.parse(readFileSync(join(ROOT, 'examples', 'stamping-strip-from-record.json'), 'utf8'));
     plan.material.flowCurve.record = 'no-such-record.csv';

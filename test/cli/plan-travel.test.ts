@@ -129,6 +129,8 @@ describe('scatter.records of the machine\'s travel', () => {
     const ext = report(plan('sx.json', swift, 'SI', scatter(ids.map((id) => writeRecord(id, 'Displacement')))));
     const xh = report(plan('sh.json', swift, 'SI', scatter(ids.map((id) => writeRecord(id, 'Machine Displacement')))));
     expect(xh.material.source).toMatch(/46NT71-xh\.csv: extension from the machine's travel.*46NT99-xh\.csv: extension.*46NTA1-xh\.csv: extension/);
+    // Each specimen's reading and analysis warnings reach the report's cautions, naming its file.
+    for (const id of ids) expect(xh.cautions.join('\n'), id).toMatch(new RegExp(`record ${id}-xh\\.csv: .*compliance, taken out as a linear spring`));
     expect(Math.abs(xh.material.flowCurve.K / ext.material.flowCurve.K - 1)).toBeLessThan(0.01);
     expect(Math.abs(xh.material.flowCurve.n / ext.material.flowCurve.n - 1)).toBeLessThan(0.03);
     expect(Math.abs(xh.steps[0].reloadYield / ext.steps[0].reloadYield - 1)).toBeLessThan(0.005);
