@@ -41,6 +41,16 @@ async function dropUtf16(page: Page, name: string, text: string): Promise<void> 
   await page.dispatchEvent('#record-drop', 'drop', { dataTransfer: dt });
 }
 
+/** Drops `bytes` as they are (a file in a Windows code page, say), made in the page. */
+async function dropBytes(page: Page, name: string, bytes: Uint8Array): Promise<void> {
+  const dt = await page.evaluateHandle(([n, b]) => {
+    const d = new DataTransfer();
+    d.items.add(new File([Uint8Array.from(b as number[])], n as string, { type: 'text/plain' }));
+    return d;
+  }, [name, Array.from(bytes)] as const);
+  await page.dispatchEvent('#record-drop', 'drop', { dataTransfer: dt });
+}
+
 describe('record bench', () => {
   it('shows the INVENTED demo record before any file is dropped (no error cells); a dropped 100,000-point record is read and fitted in a web worker', async () => {
     const workers: string[] = [];
@@ -85,6 +95,28 @@ describe('record bench', () => {
     expect(await page.locator('#record-summary').innerText()).toContain(`${rec.strain.length} rows`);
     expect(await page.locator('#fits-table tr[data-law="swift"]').innerText()).toMatch(/K 60[01]\.?\d*|K 599\.\d+/);
     expect(await page.locator('.sl-error').count()).toBe(0);
+    expect(errors).toEqual([]);
+  });
+
+  it('a fixed-width text export in a Windows code page ("N/mm²" as one byte, columns aligned by spaces) is read as the runner reads it', async () => {
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    // 46NT71 (MaterialDigital, CC BY 4.0) rewritten as such an export: its engineering strain and stress columns.
+    const lines = readFileSync(FIXTURE, 'utf8').split(/\r?\n/);
+    const head = lines.findIndex((l) => l.startsWith('Time\t'));
+    const cols = lines[head]!.split('\t');
+    const [e, s] = ['Engineering Strain', 'Engineering Stress'].map((c) => cols.indexOf(c));
+    const rows = lines.slice(head + 2).filter((l) => l.trim() !== '').map((l) => l.split('\t')).filter((c) => c[e!] !== '' && c[s!] !== '')
+      .map((c) => `${(Number(c[e!]) * 100).toFixed(5).padStart(12)}${Number(c[s!]).toFixed(3).padStart(12)}`);
+    const text = ['Prüfer:  Müller', 'Temperatur:  23 °C', '', '  Dehnung    Spannung', '        %       N/mm²', ...rows].join('\r\n') + '\r\n';
+    await dropBytes(page, 'aligned-cp1252.txt', Uint8Array.from(Buffer.from(text, 'latin1')));
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('aligned-cp1252'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expect(await page.locator('.sl-error').count()).toBe(0);
+    expect(await page.locator('#record-summary').innerText()).toContain(`${rows.length} rows`);
+    // The producers' Rp0.2 1132.3 MPa and Rm 1198.7 MPa (header lines of 46NT71.csv).
+    expectRelClose(await num(page, 'proofStrength'), 1132.3, 0.01, 'Rp0.2');
+    expectRelClose(await num(page, 'tensileStrength'), 1198.7, 0.002, 'Rm');
     expect(errors).toEqual([]);
   });
 
