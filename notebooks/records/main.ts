@@ -2,13 +2,13 @@
 // (src/records) and analysis (analyzeRecord, fitAllLaws) as the runner, computed in a web worker
 // (worker.ts) so that a large record never freezes the page.
 import {
-  Notebook, expose, h, fixed, formatLawParam, DIGITS, fileDrop, readRecordFileText, errorBox, byId, autosave, choice, restore,
+  Notebook, expose, h, fixed, formatLawParam, DIGITS, fileDrop, readRecordFileDecoded, errorBox, byId, autosave, choice, restore,
   widthStream,
 } from '../../src/cells/index.js';
 import { InputError, LAW_PARAMETERS, LAW_TITLES } from '../../src/core/index.js';
 import type { LawName, TensileAnalysis } from '../../src/core/index.js';
 import { PlanError } from '../../src/plan/problems.js';
-import { detectLayout, STRESS_UNITS, FORCE_UNITS, LENGTH_UNITS } from '../../src/records/index.js';
+import { ENCODING_NOTE, layoutOf, STRESS_UNITS, FORCE_UNITS, LENGTH_UNITS, type RecordEncoding } from '../../src/records/index.js';
 import type { WorkerError, WorkerReply, WorkerRequest } from './worker.js';
 import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
 import { recordCurveChart, residualChart } from '../../src/charts/records.js';
@@ -17,7 +17,7 @@ import { sig4 } from '../../src/core/numeric/sig4.js';
 
 pageChrome('records/', 'Record bench');
 
-interface Input { name: string; text: string; demo?: boolean }
+interface Input { name: string; text: string; demo?: boolean; encoding?: RecordEncoding }
 type Parsed = { ok: true; input: Input; record: TensileRecord; analysis: TensileAnalysis | null; analysisError: unknown; tests: { count: number; shown: number } } | { ok: false; input: Input; error: unknown };
 
 /** The error a worker sent as data, as the class the error cells know. */
@@ -65,8 +65,11 @@ let lastGood: Extract<Parsed, { ok: true }> | null = null;
 const EXAMPLE_RECORDS = import.meta.glob('../../examples/*.{csv,tsv,txt}', { query: '?raw', import: 'default', eager: true }) as Record<string, string>;
 const fileInput = h('input', { type: 'file', id: 'record-file', accept: '.csv,.tsv,.txt,text/csv,text/plain' });
 const drop = h('div', { class: 'sl-drop', id: 'record-drop', role: 'button', 'aria-label': 'Record file: drop it here or press Enter to choose' },
-  'Drop a tensile-test export (CSV or tab-separated) here, or ', h('label', { for: 'record-file' }, 'choose one: '), fileInput);
-fileDrop(drop, fileInput, (name, text) => load({ name, text }, {}), (e) => byId('cell-import').replaceChildren(errorBox(e, 'The file could not be read')), readRecordFileText);
+  'Drop a tensile-test export (CSV, tab-separated or fixed-width text) here, or ', h('label', { for: 'record-file' }, 'choose one: '), fileInput);
+// How the dropped file's bytes were read (set by the read step, which fileDrop awaits before it hands over the text).
+let droppedAs: RecordEncoding = 'utf-8';
+const readDropped = async (f: File) => { const d = await readRecordFileDecoded(f); droppedAs = d.encoding; return d.text; };
+fileDrop(drop, fileInput, (name, text) => load({ name, text, encoding: droppedAs }, {}), (e) => byId('cell-import').replaceChildren(errorBox(e, 'The file could not be read')), readDropped);
 byId('record-input').append(drop);
 const examples = Object.entries(EXAMPLE_RECORDS);
 const DEMO_FIRST = 'stamping-strip-loops.csv';
@@ -90,7 +93,7 @@ function drawMapping(): void {
   const box = byId('mapping');
   if (!current) { box.replaceChildren(h('p', {}, 'Open a record first.')); return; }
   let header: string[] = [];
-  try { header = detectLayout(current.text.split(/\r?\n/, 400), current.name).header; } catch { /* the import cell says why */ }
+  try { header = layoutOf(current.text, current.name).layout.header; } catch { /* the import cell says why */ }
   const colSel = (role: 'strain' | 'stress' | 'force' | 'extension', text: string) => {
     const sel = h('select', { id: `map-${role}` }, h('option', { value: '' }, '(recognise by name)'), ...header.map((c, i) => h('option', { value: String(i + 1) }, `${i + 1}: ${c}`)));
     const given = options.columns?.[role];
@@ -178,13 +181,13 @@ nb.cell({ name: 'input', fn: () => null })
     },
     render: (v) => {
       const p = v as Parsed | null;
-      if (!p) return h('p', {}, 'No record yet: drop a tensile-test export above, or open the INVENTED demo record. The bench reads comma-, semicolon- or tab-separated exports with a header line.');
+      if (!p) return h('p', {}, 'No record yet: drop a tensile-test export above, or open the INVENTED demo record. The bench reads comma-, semicolon- or tab-separated exports, or columns aligned by spaces, with a header line.');
       if (!p.ok) return h('div', {}, errorBox(p.error, `${p.input.name} could not be read`), lastGood ? h('p', { class: 'sl-notice' }, `Still showing ${lastGood.record.name}. Map the columns and units below if they were not recognised.`) : null);
       const c = p.record.columns;
       return h('div', {},
         p.input.demo ? h('p', { class: 'sl-invented', id: 'demo-note' }, 'INVENTED demo record (generated from a known law, not a test): drop your own export above.') : null,
         h('p', { id: 'record-summary' }, `${p.input.name}: ${p.record.rows} rows, ${p.record.basis === 'stress-strain' ? 'stress and strain columns' : p.record.basis === 'force-strain' ? `force and strain columns, stress = force / ${p.record.geometry!.area.toPrecision(4)} mm²` : 'force and extension columns'} (${Object.entries(c).map(([k, v]) => `${k}: ${v!.averagedWith ? `the mean of "${v!.name}" and "${v!.averagedWith.name}"` : `"${v!.name}"`} ${v!.unit}`).join('; ')}).`),
-        p.record.warnings.length ? h('ul', { class: 'sl-notice' }, ...p.record.warnings.map((w) => h('li', {}, w))) : null,
+        ((w) => (w.length ? h('ul', { class: 'sl-notice' }, ...w.map((x) => h('li', {}, x))) : null))([...(p.input.encoding === 'windows-1252' ? [ENCODING_NOTE] : []), ...p.record.warnings]),
         p.tests.count > 1 ? testChoice(p) : null);
     },
   })

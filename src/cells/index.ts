@@ -10,6 +10,6 @@ export { widthStream } from './width.js';
 export type { ValueElement, SliderOptions, ChoiceOptions } from './inputs.js';
 export { autosave, restore, forget, UndoHistory } from './store.js';
 export type { Stored } from './store.js';
-export { planText, planFileName, importPlan, downloadText, readFileText, readRecordFileText, fileDrop, MAX_FILE_BYTES, MAX_RECORD_BYTES } from './planio.js';
+export { planText, planFileName, importPlan, downloadText, readFileText, readRecordFileText, readRecordFileDecoded, fileDrop, MAX_FILE_BYTES, MAX_RECORD_BYTES } from './planio.js';
 export { h, append, escapeHtml, byId } from './dom.js';
 export { fixed, DIGITS, quantity, cautionsPanel, formatNumber, formatTargetValue, formatLaw, formatLawParam, flowCurveText, targetUnit, targetLabel, TARGET_LABELS } from './format.js';

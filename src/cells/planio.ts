@@ -1,6 +1,6 @@
 import { loadPlanText, type LoadedPlan } from '../plan/load.js';
 import type { PlanDoc } from '../plan/schema.js';
-import { decodeRecordBytes } from '../records/decode.js';
+import { decodeRecord, type RecordEncoding } from '../records/decode.js';
 
 /**
  * Plan import and export in exactly the runner's format: the plan document (plan units) as JSON,
@@ -55,8 +55,16 @@ export const MAX_RECORD_BYTES = 256 * 1024 * 1024;
  * (a spreadsheet's UTF-16 text export), decoded by decodeRecordBytes as the runner decodes it.
  */
 export async function readRecordFileText(file: File): Promise<string> {
+  return (await readRecordFileDecoded(file)).text;
+}
+
+/**
+ * {@link readRecordFileText} with how the bytes were read (`windows-1252` for a file that is not UTF-8: the page
+ * says so, as the runner's warning does).
+ */
+export async function readRecordFileDecoded(file: File): Promise<{ text: string; encoding: RecordEncoding }> {
   if (file.size > MAX_RECORD_BYTES) throw new Error(`${file.name}: ${file.size} bytes; records up to ${MAX_RECORD_BYTES} bytes are accepted`);
-  return decodeRecordBytes(new Uint8Array(await file.arrayBuffer()));
+  return decodeRecord(new Uint8Array(await file.arrayBuffer()));
 }
 
 /**

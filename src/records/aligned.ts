@@ -1,4 +1,4 @@
-import { isNumberToken } from './layout.js';
+import { detectLayout, isNumberToken, MAX_HEAD_LINES, type Layout } from './layout.js';
 
 /**
  * Columns aligned by runs of spaces (a fixed-width text export, `   0.0125     205.31`, as older testing machines and
@@ -39,4 +39,37 @@ export function spacesToTabs(text: string, k: number): string {
     if (wide.length > 1) return wide.join('\t');
     return f.length === k ? f.join('\t') : t;
   });
+}
+
+/**
+ * The layout of a record's text ({@link detectLayout}) and the text it holds for: the text itself, or for columns
+ * aligned by spaces (no comma, semicolon or tab layout, {@link spaceAligned}) the text with tabs between its columns.
+ * An explicit `delimiter` option is never second-guessed.
+ * @throws PlanError as detectLayout (the error for the text as it is, when it is not space-aligned either).
+ * @example layoutOf('Strain  Stress\n 0 0\n 0.1 20\n 0.2 40\n', 'a.txt').layout.delimiter // '\t'
+ */
+export function layoutOf(text: string, file: string, opts: { delimiter?: Layout['delimiter'] | undefined; decimal?: '.' | ',' | undefined } = {}): { layout: Layout; text: string } {
+  const head = firstLines(text, MAX_HEAD_LINES);
+  try {
+    return { layout: detectLayout(head, file, opts), text };
+  } catch (e) {
+    const k = opts.delimiter ? 0 : spaceAligned(head);
+    if (!k) throw e;
+    const tabbed = spacesToTabs(text, k);
+    return { layout: detectLayout(firstLines(tabbed, MAX_HEAD_LINES), file, opts), text: tabbed };
+  }
+}
+
+/** First `k` lines of a text (CRLF, LF or CR). */
+function firstLines(text: string, k: number): string[] {
+  const out: string[] = [];
+  const re = /\r\n|\n|\r/g;
+  let at = 0;
+  while (out.length < k) {
+    const m = re.exec(text);
+    if (!m) { out.push(text.slice(at)); break; }
+    out.push(text.slice(at, m.index));
+    at = m.index + m[0].length;
+  }
+  return out;
 }

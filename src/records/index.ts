@@ -8,3 +8,4 @@ export type { Layout, Delimiter } from './layout.js';
 export { describeColumn, roleScore, ROLES } from './columns.js';
 export type { Role, ColumnInfo } from './columns.js';
 export { STRESS_UNITS, FORCE_UNITS, LENGTH_UNITS, STRAIN_UNITS, unitFactor } from './units.js';
+export { layoutOf, spaceAligned, spacesToTabs } from './aligned.js';

@@ -1,8 +1,8 @@
 import { parse } from 'csv-parse/browser/esm/sync';
 import { RecordBuilder, type RecordOptions, type TensileRecord } from './builder.js';
 import { recordError } from './errors.js';
-import { detectLayout, MAX_HEAD_LINES, type Layout } from './layout.js';
-import { spaceAligned, spacesToTabs } from './aligned.js';
+import { MAX_HEAD_LINES } from './layout.js';
+import { layoutOf } from './aligned.js';
 import { RowScanner } from './scan.js';
 
 /**
@@ -61,16 +61,10 @@ export function parseRecordText(text: string, opts: RecordOptions = {}): Tensile
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   if (text.trim() === '') throw recordError(file, 1, 1, '', 'empty file; expected a header line of column names and rows of numbers below it');
   checkText(text, file);
-  let layout: Layout;
-  try {
-    layout = detectLayout(headLines(text), file, opts);
-  } catch (e) {
-    // No comma, semicolon or tab layout: columns aligned by spaces are read as tab-separated (line numbers kept).
-    const k = opts.delimiter ? 0 : spaceAligned(headLines(text));
-    if (!k) throw e;
-    text = spacesToTabs(text, k);
-    layout = detectLayout(headLines(text), file, opts);
-  }
+  // No comma, semicolon or tab layout: columns aligned by spaces are read as tab-separated (line numbers kept).
+  const found = layoutOf(text, file, opts);
+  const layout = found.layout;
+  text = found.text;
   const name = file.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '');
   // Fast path (RowScanner); any doubt, including an error from finish, goes to the located reader below.
   const fast = new RecordBuilder(layout, { ...opts, file });

@@ -114,6 +114,11 @@ describe('record bench', () => {
     await settled(page, 'records');
     expect(await page.locator('.sl-error').count()).toBe(0);
     expect(await page.locator('#record-summary').innerText()).toContain(`${rows.length} rows`);
+    // Said as the runner says it; the header's words read right, and the column choices list them.
+    expect(await page.locator('#cell-import').innerText()).toMatch(/read as Windows-1252 text: the file is not valid UTF-8/);
+    expect(await page.locator('#record-summary').innerText()).toMatch(/stress: "Spannung" N\/mm²/);
+    expect(await page.locator('#map-stress option').allInnerTexts()).toEqual(['(recognise by name)', '1: Dehnung', '2: Spannung']);
+    await page.screenshot({ path: `${SCREENSHOTS}/records-code-page-aligned.png`, fullPage: true });
     // The producers' Rp0.2 1132.3 MPa and Rm 1198.7 MPa (header lines of 46NT71.csv).
     expectRelClose(await num(page, 'proofStrength'), 1132.3, 0.01, 'Rp0.2');
     expectRelClose(await num(page, 'tensileStrength'), 1198.7, 0.002, 'Rm');
