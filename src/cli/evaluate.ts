@@ -57,6 +57,9 @@ export interface ScatterRun {
   progressOn: boolean;
 }
 
+/** Most warnings from the records a plan names that its report lists among the cautions (then a count). */
+export const MAX_RECORD_CAUTIONS = 20;
+
 /**
  * A plan's document after `--set` overrides, validation and the runner's file hooks: a flow curve
  * named by a tensile record is fitted (src/cli/recordLaw.ts) and `scatter.records` become the law at
@@ -92,6 +95,11 @@ export async function planDocument(src: PlanSource, overrides: readonly Override
     doc = fromRecords.doc;
     source = fromRecords.source ?? source;
     recordCautions.push(...(fromRecords.cautions ?? []));
+  }
+  // Many records (scatter.records takes up to 1000) would bury the report's own cautions: the first ones, and a count.
+  if (recordCautions.length > MAX_RECORD_CAUTIONS) {
+    const more = recordCautions.length - MAX_RECORD_CAUTIONS;
+    recordCautions.splice(MAX_RECORD_CAUTIONS, more, `… and ${more} more warnings from the records: \`strainledger analyze FILE\` shows each record's own`);
   }
   return { loc, doc, applied, ...(source !== undefined ? { source } : {}), recordCautions };
 }

@@ -135,6 +135,14 @@ describe('scatter.records of the machine\'s travel', () => {
     expect(Math.abs(xh.material.flowCurve.n / ext.material.flowCurve.n - 1)).toBeLessThan(0.03);
     expect(Math.abs(xh.steps[0].reloadYield / ext.steps[0].reloadYield - 1)).toBeLessThan(0.005);
   });
+  it('ten records\' warnings do not bury the report\'s own cautions: the first 20, then a count', () => {
+    const all = ['46NT71', '46NT73', '46NT99', '46NT9B', '46NTA1', '46NTA3', '46NTAT', '46NTAV', '46NTBL', '46NTBN'];
+    const rep = report(plan('s10.json', { law: 'swift', K: 1600, eps0: 0.01, n: 0.1 }, 'SI', { scatter: { samples: 2000, seed: 7, records: all.map((id) => writeRecord(id, 'Machine Displacement')) } }));
+    const own = rep.cautions.filter((c: string) => c.startsWith('record ') || c.startsWith('… and'));
+    expect(own).toHaveLength(21);
+    expect(own[20]).toMatch(/^… and \d+ more warnings from the records: `strainledger analyze FILE` shows each record's own$/);
+    expect(rep.cautions[0]).toMatch(/planning estimates/);
+  });
   it('a travel record without its parallel length exits 2 naming scatter.records[1]', () => {
     const files = [writeRecord('46NT71', 'Machine Displacement'), writeRecord('46NT99', 'Machine Displacement', false)];
     const r = run('run', plan('sn.json', { law: 'swift', K: 1600, eps0: 0.01, n: 0.1 }, 'SI', { scatter: { samples: 2000, seed: 7, records: files } }));
