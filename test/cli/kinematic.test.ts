@@ -91,6 +91,15 @@ describe('strainledger kinematic MATERIAL RECORD', () => {
     expect(c.status).toBe(2);
     for (const x of [a, b, c]) expect(x.stderr).not.toMatch(/\n\s+at /); // no stack trace
   });
+  it('refuses a record whose extension is the machine\'s travel, naming the column (its compliance is in every reversal)', () => {
+    // The closed-form reversal as force and crosshead travel of an INVENTED 20 mm² strip over 50 mm, with a spring in series.
+    const f = join(TMP, 'travel.csv');
+    writeFileSync(f, 'Area: 20 mm²\nGauge length: 50 mm\n\nForce [N],Crosshead [mm]\n' + rec.strain.map((e, i) => `${rec.stress[i]! * 20},${(Math.expm1(e) + rec.stress[i]! * 4e-6) * 50}`).join('\n') + '\n');
+    const r = run('kinematic', matFile, f);
+    expect(r.status).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr).toMatch(/travel\.csv: Crosshead \[mm\]: the extension is the machine's travel, not an extensometer: .*allowed a record from an extensometer or a strain gauge/);
+  });
 });
 
 describe('kinematic --material-out never replaces an input by accident (a user\'s data is kept)', () => {

@@ -52,6 +52,9 @@ export const kinematic = defineCommand({
     }
     const u = plan.units;
     const rec = await readRecordFile(recordFile, { stressUnit: u.stress });
+    // The machine's travel: its compliance (a spring in series, nonlinear at low force) is in every unloading and
+    // reloading, which is what the backstresses are fitted to — refused, not corrected.
+    if (rec.machineTravel) throw new PlanError([{ file: recordFile, path: rec.columns.extension?.name ?? 'extension', message: `the extension is the machine's travel, not an extensometer: its compliance is in every unloading and reloading the backstresses are fitted to; allowed a record from an extensometer or a strain gauge` }]);
     if (kind === 'engineering') {
       for (let i = 0; i < rec.strain.length; i++) {
         if (!(rec.strain[i]! > -1)) throw new PlanError([{ file: recordFile, path: `strain[${i}]`, message: `got ${rec.strain[i]}, allowed an engineering strain > −1 (fraction)` }]);
