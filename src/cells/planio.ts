@@ -64,7 +64,7 @@ export async function readRecordFileText(file: File): Promise<string> {
  */
 export async function readRecordFileDecoded(file: File): Promise<{ text: string; encoding: RecordEncoding }> {
   if (file.size > MAX_RECORD_BYTES) throw new Error(`${file.name}: ${file.size} bytes; records up to ${MAX_RECORD_BYTES} bytes are accepted`);
-  return decodeRecord(new Uint8Array(await file.arrayBuffer()));
+  return decodeRecord(new Uint8Array(await file.arrayBuffer()), file.name);
 }
 
 /**

@@ -42,7 +42,7 @@ export function fitRecordFlowCurve(doc: PlanDoc, planFile: string, loc?: Located
   try {
     const size = statSync(path).size;
     if (size > MAX_PLAN_RECORD_BYTES) throw new PlanError([{ ...at('record'), message: `the record ${fc.record} is ${size} bytes; allowed at most ${MAX_PLAN_RECORD_BYTES} for a plan (fit it with \`strainledger analyze --material-block\` instead)` }]);
-    text = decodeRecordBytes(readFileSync(path));
+    text = decodeRecordBytes(readFileSync(path), path);
   } catch (e) {
     if (e instanceof PlanError) throw e;
     const code = (e as NodeJS.ErrnoException).code;

@@ -38,7 +38,7 @@ export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Loc
     try {
       const size = statSync(path).size;
       if (size > MAX_PLAN_RECORD_BYTES) throw at(['scatter', 'records', i], `the record ${f} is ${size} bytes; allowed at most ${MAX_PLAN_RECORD_BYTES}`);
-      text = decodeRecordBytes(readFileSync(path));
+      text = decodeRecordBytes(readFileSync(path), path);
     } catch (e) {
       if (e instanceof PlanError) throw e;
       const code = (e as NodeJS.ErrnoException).code;

@@ -1,3 +1,5 @@
+import { recordError } from './errors.js';
+
 /** How a record file's bytes were read as text ({@link decodeRecord}). */
 export type RecordEncoding = 'utf-8' | 'utf-16le' | 'utf-16be' | 'windows-1252';
 
@@ -18,7 +20,8 @@ export const ENCODING_NOTE = 'read as Windows-1252 text: the file is not valid U
  * line and column. Pure, for the browser and Node alike.
  * @example decodeRecord(Uint8Array.of(0x4e, 0x2f, 0x6d, 0x6d, 0xb2)) // { text: 'N/mm²', encoding: 'windows-1252' }
  */
-export function decodeRecord(bytes: Uint8Array): { text: string; encoding: RecordEncoding } {
+export function decodeRecord(bytes: Uint8Array, file = 'record'): { text: string; encoding: RecordEncoding } {
+  refuseWorkbook(bytes, file);
   const enc = utf16Mark(bytes);
   if (enc) return { text: new TextDecoder(enc).decode(bytes.subarray(2)), encoding: enc };
   try {
@@ -63,8 +66,27 @@ export function decodeWindows1252(bytes: Uint8Array): string {
  * The text of a record file from its bytes ({@link decodeRecord} without the encoding).
  * @example decodeRecordBytes(Uint8Array.of(0xff, 0xfe, 0x61, 0x00)) // 'a'
  */
-export function decodeRecordBytes(bytes: Uint8Array): string {
-  return decodeRecord(bytes).text;
+export function decodeRecordBytes(bytes: Uint8Array, file = 'record'): string {
+  return decodeRecord(bytes, file).text;
+}
+
+/**
+ * A spreadsheet workbook dropped or named instead of its text export: its signature (the first bytes), said in the
+ * user's words, or null. ZIP's local-file header `PK 03 04` (PKWARE APPNOTE §4.3.7: .xlsx and .ods are ZIP
+ * containers) and the compound-file signature `D0 CF 11 E0 A1 B1 1A E1` of the older binary .xls ([MS-CFB] §2.2).
+ * @example workbookKind(Uint8Array.of(0x50, 0x4b, 3, 4)) // 'a spreadsheet workbook or another ZIP archive (.xlsx, .ods)'
+ */
+export function workbookKind(bytes: Uint8Array): string | null {
+  const starts = (sig: readonly number[]) => bytes.length >= sig.length && sig.every((b, i) => bytes[i] === b);
+  if (starts([0x50, 0x4b, 0x03, 0x04])) return 'a spreadsheet workbook or another ZIP archive (.xlsx, .ods)';
+  if (starts([0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1])) return 'a spreadsheet workbook in the older binary format (.xls)';
+  return null;
+}
+
+/** @throws PlanError at line 1 of `file` when `bytes` are a spreadsheet workbook ({@link workbookKind}), saying how to export it. */
+export function refuseWorkbook(bytes: Uint8Array, file: string): void {
+  const kind = workbookKind(bytes);
+  if (kind) throw recordError(file, 1, 1, '', `${kind}, not a text export; expected CSV or tab-separated text: save the sheet that holds the test's columns as CSV or as tab-delimited text from the spreadsheet, and read that file`);
 }
 
 /** 'utf-16le' or 'utf-16be' when `bytes` start with that byte-order mark, else null. */

@@ -9,7 +9,7 @@ import { ByteRowScanner, RowScanner } from './scan.js';
 import { checkText, csvProblem, headLines, parseRecordText } from './parse.js';
 import { spaceAligned } from './aligned.js';
 import { isUtf8 } from 'node:buffer';
-import { decodeRecord, ENCODING_NOTE, utf16Mark } from './decode.js';
+import { decodeRecord, ENCODING_NOTE, refuseWorkbook, utf16Mark } from './decode.js';
 
 /** Bytes read to find the layout (metadata, header, units row). */
 export const HEAD_BYTES = 256 * 1024;
@@ -41,11 +41,12 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
   // Read whole and decoded by decodeRecord: a spreadsheet's UTF-16 text export (with its mark; such files come from a
   // spreadsheet, so they are of a spreadsheet's size), and a file that is not valid UTF-8 (a Windows code page).
   const whole = (): TensileRecord => {
-    const { text, encoding } = decodeRecord(readFileSync(path));
+    const { text, encoding } = decodeRecord(readFileSync(path), file);
     const rec = parseRecordText(text, { ...opts, file });
     if (encoding === 'windows-1252') rec.warnings.unshift(ENCODING_NOTE);
     return rec;
   };
+  refuseWorkbook(head, file);
   if (utf16Mark(head)) return whole();
   if (!head.includes(0) && !isUtf8(got === HEAD_BYTES ? head.subarray(0, head.lastIndexOf(0x0a) + 1) : head)) return whole();
   if (head.includes(0)) {

@@ -125,6 +125,7 @@ export const CORPUS: BadCase[] = [
   recordCase('a named record with a header and no numbers', 'strain,stress\n', /record\.csv:\d+:\d+: .*no rows of numbers/),
   recordCase('a named record with text in a number column', 'strain,stress\n0,0\n0.01,abc\n', /record\.csv:3:\d+: stress: got "abc", expected a number/),
   recordCase('a named record that is binary (NUL bytes, not UTF-8)', Buffer.from([0x73, 0x74, 0xff, 0x00, 0x0a]), /record\.csv:1:\d+: binary content \(character U\+(0000|FFFD)\)/),
+  recordCase('a named record that is a spreadsheet workbook', Buffer.concat([Buffer.from('PK\x03\x04', 'latin1'), Buffer.alloc(40)]), /record\.csv:1:1: a spreadsheet workbook or another ZIP archive .* save the sheet/),
   // bytes that are not UTF-8 and hold no NUL are a Windows code page (decodeRecord): read, and refused for what they say
   recordCase('a named record in Windows-1252 with no numbers', Buffer.from('Dehnung [%];Spannung [N/mm\xb2]\n', 'latin1'), /record\.csv:\d+:\d+: .*no rows of numbers/),
   // files and folders

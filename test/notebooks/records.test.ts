@@ -122,6 +122,10 @@ describe('record bench', () => {
     // The producers' Rp0.2 1132.3 MPa and Rm 1198.7 MPa (header lines of 46NT71.csv).
     expectRelClose(await num(page, 'proofStrength'), 1132.3, 0.01, 'Rp0.2');
     expectRelClose(await num(page, 'tensileStrength'), 1198.7, 0.002, 'Rm');
+    // A workbook dropped instead of its export: said so, with what to do; the record read before stays.
+    await dropBytes(page, 'results.xlsx', Uint8Array.from([0x50, 0x4b, 0x03, 0x04, ...new Array(60).fill(0)]));
+    await expect.poll(() => page.locator('#cell-import').innerText(), { timeout: 30_000 }).toMatch(/The file could not be read\nline 1, column 1: a spreadsheet workbook or another ZIP archive \(\.xlsx, \.ods\), not a text export; .*save the sheet/s);
+    expectRelClose(await num(page, 'proofStrength'), 1132.3, 0.01, 'Rp0.2 still shown');
     expect(errors).toEqual([]);
   });
 

@@ -286,6 +286,15 @@ describe('parseRecordText(text) reads what labs export', () => {
     expect(f.rows).toBe(30_000);
     expect(f.stress[29_999]).toBeCloseTo(300, 9);
     expect(f.warnings[0]).toBe(ENCODING_NOTE);
+    // A workbook instead of its text export: said so, with what to do (its signature, not "binary content").
+    const zip = Buffer.concat([Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0x00, 0x06, 0x00]), Buffer.alloc(64)]);
+    const ole = Buffer.concat([Buffer.from([0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1]), Buffer.alloc(64)]);
+    for (const [name, bytes, kind] of [['t.xlsx', zip, /spreadsheet workbook or another ZIP archive \(\.xlsx, \.ods\)/], ['t.xls', ole, /spreadsheet workbook in the older binary format \(\.xls\)/]] as const) {
+      writeFileSync(join(dir, name), bytes);
+      const say = new RegExp(`${name.replace('.', '\\.')}:1:1: a ${kind.source}, not a text export; expected CSV or tab-separated text: save the sheet .* as CSV`);
+      await expect(readRecordFile(join(dir, name), { file: name })).rejects.toThrow(say);
+      expect(() => decodeRecord(bytes, name)).toThrow(say);
+    }
     // NUL bytes stay binary content, whatever else the bytes hold.
     writeFileSync(join(dir, 'bin.csv'), Buffer.from([0x53, 0x3b, 0x54, 0x0a, 0xb2, 0x00, 0x31]));
     await expect(readRecordFile(join(dir, 'bin.csv'), { file: 'bin.csv' })).rejects.toThrow(/binary content/);
