@@ -8,7 +8,7 @@ import {
 import { InputError, LAW_PARAMETERS, LAW_TITLES } from '../../src/core/index.js';
 import type { LawName, TensileAnalysis } from '../../src/core/index.js';
 import { PlanError } from '../../src/plan/problems.js';
-import { ENCODING_NOTE, layoutOf, STRESS_UNITS, FORCE_UNITS, LENGTH_UNITS, type RecordEncoding } from '../../src/records/index.js';
+import { ENCODING_NOTE, layoutOf, readingWarnings, STRESS_UNITS, FORCE_UNITS, LENGTH_UNITS, type RecordEncoding } from '../../src/records/index.js';
 import type { WorkerError, WorkerReply, WorkerRequest } from './worker.js';
 import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
 import { recordCurveChart, residualChart } from '../../src/charts/records.js';
@@ -187,7 +187,7 @@ nb.cell({ name: 'input', fn: () => null })
       return h('div', {},
         p.input.demo ? h('p', { class: 'sl-invented', id: 'demo-note' }, 'INVENTED demo record (generated from a known law, not a test): drop your own export above.') : null,
         h('p', { id: 'record-summary' }, `${p.input.name}: ${p.record.rows} rows, ${p.record.basis === 'stress-strain' ? 'stress and strain columns' : p.record.basis === 'force-strain' ? `force and strain columns, stress = force / ${p.record.geometry!.area.toPrecision(4)} mm²` : 'force and extension columns'} (${Object.entries(c).map(([k, v]) => `${k}: ${v!.averagedWith ? `the mean of "${v!.name}" and "${v!.averagedWith.name}"` : `"${v!.name}"`} ${v!.unit}`).join('; ')}).`),
-        ((w) => (w.length ? h('ul', { class: 'sl-notice' }, ...w.map((x) => h('li', {}, x))) : null))([...(p.input.encoding === 'windows-1252' ? [ENCODING_NOTE] : []), ...p.record.warnings]),
+        ((w) => (w.length ? h('ul', { class: 'sl-notice' }, ...w.map((x) => h('li', {}, x))) : null))([...(p.input.encoding === 'windows-1252' ? [ENCODING_NOTE] : []), ...readingWarnings(p.record, p.analysis)]),
         p.tests.count > 1 ? testChoice(p) : null);
     },
   })

@@ -9,7 +9,7 @@ import type { PlanDoc } from '../plan/schema.js';
 import { unitsOf } from '../plan/units.js';
 import { decodeRecordBytes } from '../records/decode.js';
 import { parseRecordText } from '../records/parse.js';
-import { travelOptions, type RecordOptions, type TensileRecord } from '../records/builder.js';
+import { readingWarnings, travelOptions, type RecordOptions, type TensileRecord } from '../records/builder.js';
 import type { AnalyzeOptions } from '../core/tensile/analyzeRecord.js';
 
 /** Largest record a plan may name (the plan path reads it whole; `analyze` streams). */
@@ -60,7 +60,7 @@ export function fitRecordFlowCurve(doc: PlanDoc, planFile: string, loc?: Located
   const law: Record<string, unknown> = { law: fc.law };
   for (const p of LAW_PARAMETERS[fc.law]) law[p.name] = p.kind === 'stress' ? units.fromMPa(fit.params[p.name]!) : fit.params[p.name]!;
   const material = { ...doc.material, flowCurve: law, fittedStrainRange: doc.material.fittedStrainRange ?? fit.strainRange } as PlanDoc['material'];
-  return { doc: { ...doc, material }, source: `fitted from ${fc.record}${travel.note ? ` (${travel.note})` : ''}`, cautions: recordCautions(fc.record, rec.warnings, a.warnings) };
+  return { doc: { ...doc, material }, source: `fitted from ${fc.record}${travel.note ? ` (${travel.note})` : ''}`, cautions: recordCautions(fc.record, readingWarnings(rec, a), a.warnings) };
 }
 
 /**

@@ -12,6 +12,7 @@ import type { PlanDoc } from '../plan/schema.js';
 import { unitsOf } from '../plan/units.js';
 import { decodeRecordBytes } from '../records/decode.js';
 import { parseRecordText } from '../records/parse.js';
+import { readingWarnings } from '../records/builder.js';
 import { MAX_PLAN_RECORD_BYTES, planTravelOptions, recordCautions } from './recordLaw.js';
 
 /**
@@ -56,7 +57,7 @@ export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Loc
     const specimens = records.map(({ name, rec, travel }, i) => {
       try {
         const analysis = analyzeRecord(rec, { laws: [law], ...travel.options });
-        cautions.push(...recordCautions(name, rec.warnings, analysis.warnings));
+        cautions.push(...recordCautions(name, readingWarnings(rec, analysis), analysis.warnings));
         return { name, analysis };
       } catch (e) {
         if (e instanceof InputError) throw new InputError(`records[${i}] (${name}).${e.path}`, e.value, e.allowed);

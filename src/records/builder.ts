@@ -340,7 +340,7 @@ export class RecordBuilder {
       if (isMachineTravel(a)) {
         this.machineTravel = true;
         parallel = this.parallelLengthOf(opts, gauge);
-        this.warnings.push(`extension from the machine's travel (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the specimen's modulus (--modulus, or the record bench's modulus field) and that compliance is taken out${parallel === undefined ? ', and its parallel length (--parallel-length, or a metadata line such as "Parallel length: 30 mm") and Ag and A are read over it' : ''}; or prefer an extensometer channel`);
+        this.warnings.push(`${TRAVEL_WARNING} (column ${show(a.name)}), not an extensometer: it includes the compliance of the machine and grips, so E from it is too low and Rp0.2 and A are uncertain; give the specimen's modulus (--modulus, or the record bench's modulus field) and that compliance is taken out${parallel === undefined ? ', and its parallel length (--parallel-length, or a metadata line such as "Parallel length: 30 mm") and Ag and A are read over it' : ''}; or prefer an extensometer channel`);
       }
     }
     this.columns[mode === 'fe' ? 'extension' : 'strain'] = { name: a.name, column: a.index + 1, unit: unitOf(a), ...(a2 ? { averagedWith: { name: a2.name, column: a2.index + 1 } } : {}) };
@@ -714,6 +714,20 @@ export class RecordBuilder {
       lineRuns: this.lineRuns,
     };
   }
+}
+
+/** How the reader's warning about the machine's travel starts ({@link readingWarnings} finds it by this). */
+const TRAVEL_WARNING = "extension from the machine's travel";
+
+/**
+ * A record's reading warnings as shown beside its analysis: once the analysis took the machine's compliance out with a
+ * given modulus (its `machineCompliance` warning says how), the reader's advice to give the modulus and the parallel
+ * length is cut back to the fact it states — the extension is the machine's travel, from that column.
+ * @example readingWarnings(rec, analysis) // ['extension from the machine\'s travel (column "Crosshead"), not an extensometer']
+ */
+export function readingWarnings(rec: Pick<TensileRecord, 'warnings' | 'machineTravel'>, analysis: { warnings: readonly { code: string }[] } | null | undefined): string[] {
+  if (!rec.machineTravel || !analysis?.warnings.some((w) => w.code === 'machineCompliance')) return rec.warnings;
+  return rec.warnings.map((w) => (w.startsWith(TRAVEL_WARNING) && w.includes(': it includes') ? w.slice(0, w.indexOf(': it includes')) : w));
 }
 
 /**

@@ -173,6 +173,12 @@ describe('analyze --material-block / --material-out from the machine\'s travel',
     const rep = report(plan('block-plan.json', { record: writeRecord('46NT99', 'Machine Displacement'), law: 'swift' }));
     expect(block.flowCurve.K / rep.material.flowCurve.K - 1).toBeCloseTo(0, 6);
     expect(block.flowCurve.n / rep.material.flowCurve.n - 1).toBeCloseTo(0, 6);
+    // With the modulus given the reader's advice to give it is cut back to the fact (the analysis says what it did).
+    const given = JSON.parse(run('analyze', xh, '--format', 'json', '--modulus', '205000').stdout).warnings.map((w: { message: string }) => w.message);
+    expect(given).toContain('extension from the machine\'s travel (column "Crosshead"), not an extensometer');
+    expect(given.join('\n')).not.toMatch(/give the specimen's modulus/);
+    expect(given.join('\n')).toMatch(/compliance, taken out as a linear spring/);
+    expect(rep.cautions.join('\n')).not.toMatch(/give the specimen's modulus/);
     // The analysis itself (no block) still runs without them, with its warning.
     const d = run('analyze', xh, '--format', 'json');
     expect(d.status).toBe(0);

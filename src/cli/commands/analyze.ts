@@ -12,7 +12,7 @@ import { CAUTIONS } from '../../report/cautions.js';
 import { formatLawParam } from '../../report/numbers.js';
 import { sig4 } from '../../core/numeric/sig4.js';
 import type { RecordOptions, TensileRecord } from '../../records/builder.js';
-import { travelOptions } from '../../records/builder.js';
+import { readingWarnings, travelOptions } from '../../records/builder.js';
 import type { Role } from '../../records/columns.js';
 import { defineCommand } from '../command.js';
 
@@ -50,7 +50,7 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     fits: a.fits ? a.fits.fits.map(fit) : [],
     // Cycle fields keep their names (true stress, true strain: `basis`); `engineering` gives the test-report basis.
     cycles: a.cycles.map((c) => ({ basis: c.basis, unloadModulus: c.unloadModulus, permanentStrain: c.permanentStrain, recoveredStrain: c.recoveredStrain, reloadProofStrength: c.reloadProofStrength, unloadStress: c.unloadStress, engineering: c.engineering })),
-    warnings: [...rec.warnings.map((message) => ({ code: 'import', message })), ...a.warnings],
+    warnings: [...readingWarnings(rec, a).map((message) => ({ code: 'import', message })), ...a.warnings],
     proofOffsetPct: a.proofOffsetPct,
     proofStrengths: a.proofStrengths,
     totalExtensionStrength: a.totalExtensionStrength,
@@ -149,7 +149,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
     for (const e of a.fits.extrapolation) lines.push(`  at εp ${e.strain.toPrecision(3)} (${e.note}): spread ${e.spreadPct.toFixed(1)} % over laws that fit well`);
   }
   for (const c of a.cycles) lines.push(`  cycle at ${fmt(c.engineering.unloadStress)} MPa eng. (${fmt(c.unloadStress)} true): chord E ${fmt(c.unloadModulus / 1000, 1)} GPa, permanent ${(c.engineering.permanentStrain * 100).toFixed(3)} % eng. (${(c.permanentStrain * 100).toFixed(3)} % true), recovered ${(c.recoveredStrain * 100).toFixed(3)} % true, reload Rp0.2 ${fmt(c.engineering.reloadProofStrength)} MPa eng. (${fmt(c.reloadProofStrength)} true)`);
-  for (const m of rec.warnings) lines.push(`  warning: ${m}`);
+  for (const m of readingWarnings(rec, a)) lines.push(`  warning: ${m}`);
   for (const m of a.warnings) lines.push(`  warning: ${m.message}`);
   return lines.join('\n') + '\n';
 }
