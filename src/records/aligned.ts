@@ -1,4 +1,16 @@
-import { detectLayout, isNumberToken, MAX_HEAD_LINES, type Layout } from './layout.js';
+import { CLOCK, detectLayout, isNumberToken, MAX_HEAD_LINES, type Layout } from './layout.js';
+
+/** A line of numbers (at least two), with clock times or time stamps among them, separated by runs of spaces: its fields, else null. */
+function numberFields(t: string): string[] | null {
+  // A time stamp's date and time are one field ("2026-03-01 10:15:02", "01.03.2026 10:15:02").
+  const f = t.replace(/(\d{4}-\d{2}-\d{2}|\d{1,2}[./]\d{1,2}[./]\d{2,4}) (?=\d{1,3}:\d{2})/g, '$1\u0000').replace(/(\d) (AM|PM)\b/gi, '$1\u0000$2').split(/[ \t]+/).map((x) => x.replace(/\u0000/g, ' '));
+  if (f.length < 2) return null;
+  for (const dc of [false, true]) {
+    let nums = 0;
+    if (f.every((x) => (isNumberToken(x, dc) ? ++nums : CLOCK.test(x))) && nums >= 2) return f;
+  }
+  return null;
+}
 
 /**
  * Columns aligned by runs of spaces (a fixed-width text export, `   0.0125     205.31`, as older testing machines and
@@ -12,8 +24,8 @@ export function spaceAligned(lines: readonly string[]): number {
   for (const line of lines) {
     const t = line.trim();
     if (t === '') continue;
-    const f = t.split(/[ \t]+/);
-    if (f.length < 2 || !(f.every((x) => isNumberToken(x, false)) || f.every((x) => isNumberToken(x, true)))) continue;
+    const f = numberFields(t);
+    if (!f) continue;
     if (k && f.length !== k) return 0;
     k = f.length;
     if (++seen >= 3) return k;
@@ -23,7 +35,8 @@ export function spaceAligned(lines: readonly string[]): number {
 
 /**
  * The text of a space-aligned export ({@link spaceAligned}, `k` columns) with its columns separated by tabs, line
- * for line (line numbers stay those of the file): a line of numbers is split at every run of spaces; a header or
+ * for line (line numbers stay those of the file): a line of numbers (with clock times or time stamps among them, a
+ * stamp's date and time kept together) is split at every run of spaces; a header or
  * units line at runs of two or more spaces (names such as `Stress (MPa)` hold one), or at every run where that gives
  * exactly `k` fields (`Strain Stress`); a line with ":" or "=" (a metadata line, `Gauge length: 50 mm`) is kept.
  * @example spacesToTabs('Strain  Stress\n 0.1   20.5\n', 2) // 'Strain\tStress\n0.1\t20.5\n'
@@ -32,9 +45,10 @@ export function spacesToTabs(text: string, k: number): string {
   return text.replace(/[^\r\n]+/g, (line) => {
     const t = line.trim();
     if (t === '') return t;
-    const f = t.split(/[ \t]+/);
-    if (f.length >= 2 && (f.every((x) => isNumberToken(x, false)) || f.every((x) => isNumberToken(x, true)))) return f.join('\t');
+    const nf = numberFields(t);
+    if (nf) return nf.join('\t');
     if (/[:=]/.test(t)) return t;
+    const f = t.split(/[ \t]+/);
     const wide = t.split(/ {2,}|\t/);
     if (wide.length > 1) return wide.join('\t');
     return f.length === k ? f.join('\t') : t;

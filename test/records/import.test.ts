@@ -183,6 +183,8 @@ describe('parseRecordText(text) reads what labs export', () => {
       ['one space between names', ['Strain Stress', '% MPa', ...ROWS.map(([e, s]) => pad(e) + pad(s))].join('\n')],
       ['units row, decimal comma, CRLF', ['      Strain      Stress', '           %         MPa', ...ROWS.map(([e, s]) => pad(e, ',') + pad(s, ','))].join('\r\n')],
       ['metadata lines kept', ['Specimen:  A-7', 'Operator = J. Doe', '', 'Strain[%]   Stress[MPa]', ...ROWS.map(([e, s]) => ` ${e} ${s}`)].join('\n')],
+      ['a time stamp column', ['Time                      Strain [%]   Stress [MPa]', ...ROWS.map(([e, s], i) => `2026-03-01 10:15:${String(i).padStart(2, '0')}.5 ${pad(e)}${pad(s)}`)].join('\n')],
+      ['a clock column, 12-hour', ['Time          Strain [%]   Stress [MPa]', ...ROWS.map(([e, s], i) => `10:15:${String(i).padStart(2, '0')} AM ${pad(e)}${pad(s)}`)].join('\n')],
     ];
     for (const [what, text] of variants) {
       const r = check(text + '\n');
