@@ -1,4 +1,4 @@
-import { CLOCK, detectLayout, isNumberToken, MAX_HEAD_LINES, type Layout } from './layout.js';
+import { CLOCK, detectLayout, headLines, isNumberToken, type Layout } from './layout.js';
 
 /** A line of numbers (at least two), with clock times or time stamps among them, separated by runs of spaces: its fields, else null. */
 function numberFields(t: string): string[] | null {
@@ -63,27 +63,13 @@ export function spacesToTabs(text: string, k: number): string {
  * @example layoutOf('Strain  Stress\n 0 0\n 0.1 20\n 0.2 40\n', 'a.txt').layout.delimiter // '\t'
  */
 export function layoutOf(text: string, file: string, opts: { delimiter?: Layout['delimiter'] | undefined; decimal?: '.' | ',' | undefined } = {}): { layout: Layout; text: string } {
-  const head = firstLines(text, MAX_HEAD_LINES);
+  const head = headLines(text);
   try {
     return { layout: detectLayout(head, file, opts), text };
   } catch (e) {
     const k = opts.delimiter ? 0 : spaceAligned(head);
     if (!k) throw e;
     const tabbed = spacesToTabs(text, k);
-    return { layout: detectLayout(firstLines(tabbed, MAX_HEAD_LINES), file, opts), text: tabbed };
+    return { layout: detectLayout(headLines(tabbed), file, opts), text: tabbed };
   }
-}
-
-/** First `k` lines of a text (CRLF, LF or CR). */
-function firstLines(text: string, k: number): string[] {
-  const out: string[] = [];
-  const re = /\r\n|\n|\r/g;
-  let at = 0;
-  while (out.length < k) {
-    const m = re.exec(text);
-    if (!m) { out.push(text.slice(at)); break; }
-    out.push(text.slice(at, m.index));
-    at = m.index + m[0].length;
-  }
-  return out;
 }

@@ -21,6 +21,20 @@ export interface Layout {
 /** Lines examined to find the header: metadata blocks longer than this are not supported. */
 export const MAX_HEAD_LINES = 400;
 
+/** First `k` lines of a text (CRLF, LF or CR). */
+export function headLines(text: string, k = MAX_HEAD_LINES): string[] {
+  const out: string[] = [];
+  let i = 0;
+  while (out.length < k && i <= text.length) {
+    let j = i;
+    while (j < text.length && text[j] !== '\n' && text[j] !== '\r') j++;
+    out.push(text.slice(i, j));
+    if (j >= text.length) break;
+    i = text[j] === '\r' && text[j + 1] === '\n' ? j + 2 : j + 1;
+  }
+  return out;
+}
+
 /** Splits one line on `d`, honouring double quotes (RFC 4180 quoting). */
 export function splitLine(line: string, d: string): string[] {
   const out: string[] = [];

@@ -1,7 +1,6 @@
 import { parse } from 'csv-parse/browser/esm/sync';
 import { RecordBuilder, type RecordOptions, type TensileRecord } from './builder.js';
 import { recordError } from './errors.js';
-import { MAX_HEAD_LINES } from './layout.js';
 import { layoutOf } from './aligned.js';
 import { RowScanner } from './scan.js';
 
@@ -19,19 +18,7 @@ export function checkText(text: string, file: string): void {
   throw recordError(file, line, col, '', `binary content (character U+${code}); expected a text export (CSV or tab-separated) in UTF-8`);
 }
 
-/** First `k` lines of a text (CRLF, LF or CR). */
-export function headLines(text: string, k = MAX_HEAD_LINES): string[] {
-  const out: string[] = [];
-  let i = 0;
-  while (out.length < k && i <= text.length) {
-    let j = i;
-    while (j < text.length && text[j] !== '\n' && text[j] !== '\r') j++;
-    out.push(text.slice(i, j));
-    if (j >= text.length) break;
-    i = text[j] === '\r' && text[j + 1] === '\n' ? j + 2 : j + 1;
-  }
-  return out;
-}
+export { headLines } from './layout.js';
 
 /** Maps a csv-parse error to a located record error. */
 export function csvProblem(e: unknown, file: string): Error {
