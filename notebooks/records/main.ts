@@ -107,8 +107,8 @@ function drawMapping(): void {
   const num = (id: string, text: string) => h('div', { class: 'sl-input' }, h('label', { for: id }, text), h('input', { type: 'text', inputmode: 'decimal', id, class: 'sl-number' }), ' mm');
   box.replaceChildren(
     colSel('strain', 'strain column'), colSel('stress', 'stress column'), colSel('force', 'force column'), colSel('extension', 'extension column'),
-    unitSel('map-strainUnit', 'strain unit', ['fraction', 'percent']), unitSel('map-stressUnit', 'stress unit', shown(['MPa', 'N/mm²', 'GPa', 'ksi', 'psi', 'kgf/mm²', 'kN/cm²'], STRESS_UNITS)),
-    unitSel('map-forceUnit', 'force unit', shown(['N', 'kN', 'lbf', 'kip', 'kgf'], FORCE_UNITS)), unitSel('map-lengthUnit', 'extension unit', shown(['mm', 'in', 'cm', 'm', 'µm'], LENGTH_UNITS)),
+    unitSel('map-strainUnit', 'strain unit', ['fraction', 'percent']), unitSel('map-stressUnit', 'stress unit', shown(['MPa', 'N/mm²', 'GPa', 'ksi', 'psi', 'kgf/mm²', 'daN/mm²', 'kN/cm²'], STRESS_UNITS)),
+    unitSel('map-forceUnit', 'force unit', shown(['N', 'kN', 'daN', 'lbf', 'kip', 'kgf'], FORCE_UNITS)), unitSel('map-lengthUnit', 'extension unit', shown(['mm', 'in', 'cm', 'm', 'µm'], LENGTH_UNITS)),
     // Round specimens by diameter, flat ones (strip, sheet) by width and thickness: the cross-section a force column needs.
     num('map-diameter', 'specimen diameter'), num('map-width', 'or width'), num('map-thickness', 'and thickness'), num('map-gaugeLength', 'gauge length'),
     // With the machine's travel as the extension: the length its plastic part is read over (Ag, A; see spreadOverParallelLength).

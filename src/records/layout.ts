@@ -123,6 +123,15 @@ function textRows(h: string[], nonEmpty: readonly { l: string }[], at: number, d
  */
 export const CLOCK = /^(\d{4}-\d{2}-\d{2}[ T]|\d{1,2}[./]\d{1,2}[./]\d{2,4} )?\d{1,3}:\d{2}(:\d{2})?([.,]\d+)?( ?[AP]M)?$/i;
 
+/** True when a comma-separated line among the 50 from `from` holds a quoted cell that is a decimal-comma number and no thousands group ("0,5", "12,25", "1,2345"). */
+function quotedDecimalComma(nonEmpty: readonly { l: string }[], from: number): boolean {
+  for (const row of nonEmpty.slice(from, from + 50)) {
+    if (!row.l.includes('"')) continue;
+    if (splitLine(row.l, ',').some((t) => /^[+-]?\d*,\d+([eE][+-]?\d+)?$/.test(t) && (/^[+-]?0?,/.test(t) || !/^[+-]?\d{1,3},\d{3}$/.test(t)))) return true;
+  }
+  return false;
+}
+
 function numericRow(f: string[], dc: boolean): boolean {
   let nums = 0;
   for (const t of f) {
@@ -195,7 +204,10 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
         }
         return null;
       };
-      const decimalOrder: boolean[] = opts.decimal ? [opts.decimal === ','] : d === ',' ? [false] : [false, true];
+      // With commas between the fields a decimal comma can only stand inside quotes ("0,1234","205,3", as a
+      // spreadsheet in a decimal-comma locale may write it): tried only where such a cell cannot be a thousands
+      // group (a leading 0, or not three digits after the comma).
+      const decimalOrder: boolean[] = opts.decimal ? [opts.decimal === ','] : d === ',' ? (quotedDecimalComma(nonEmpty, k + 1) ? [true, false] : [false]) : [false, true];
       for (const dc of decimalOrder) {
         const r = tryDc(dc);
         if (!r) continue;

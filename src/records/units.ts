@@ -14,12 +14,20 @@ export const STRESS_UNITS: Readonly<Record<string, number>> = {
   // Appendix B.8), so 1 kgf/mm² = 9.80665 MPa; 'kg/mm²' as such certificates write it (common practice).
   'kgf/mm²': 9.80665, 'kgf/mm2': 9.80665, 'kgf/mm^2': 9.80665, 'kg/mm²': 9.80665, 'kg/mm2': 9.80665, 'kg/mm^2': 9.80665,
   'kgf/cm²': 0.0980665, 'kgf/cm2': 0.0980665, 'kgf/cm^2': 0.0980665, 'kg/cm²': 0.0980665, 'kg/cm2': 0.0980665, 'kg/cm^2': 0.0980665,
+  // The kilopond (kp) is the kilogram-force under its older German name: 1 kp/mm² = 9.80665 MPa (DIN 1301 before
+  // SI; common practice). The decanewton (daN = 10 N, SI prefix deca) per mm² of French certificates is 10 MPa, as
+  // is the hectobar (hbar = 10⁷ Pa) they also write (SI Brochure, prefixes; common practice).
+  'kp/mm²': 9.80665, 'kp/mm2': 9.80665, 'kp/mm^2': 9.80665,
+  'dan/mm²': 10, 'dan/mm2': 10, 'dan/mm^2': 10, 'dan/cm²': 0.1, 'dan/cm2': 0.1, 'dan/cm^2': 0.1, hbar: 10,
 };
 export const FORCE_UNITS: Readonly<Record<string, number>> = {
   // 1 lbf = 4.4482216152605 N, 1 kgf = 9.80665 N (NIST SP 811, Appendix B.8); 'lb'/'lbs' as US exports
   // write pound-force (common practice).
   n: 1, kn: 1000, lbf: 4.4482216152605, lb: 4.4482216152605, lbs: 4.4482216152605,
   kip: 4448.2216152605, kips: 4448.2216152605, klbf: 4448.2216152605, kgf: 9.80665,
+  // The decanewton of French and other European machine exports (daN = 10 N, SI prefix deca) and the kilopond
+  // (kp = kgf) of older German ones (common practice).
+  dan: 10, kp: 9.80665,
 };
 export const LENGTH_UNITS: Readonly<Record<string, number>> = {
   mm: 1, in: 25.4, inch: 25.4, inches: 25.4, '"': 25.4, m: 1000, cm: 10, µm: 1e-3, μm: 1e-3, um: 1e-3,
@@ -78,8 +86,8 @@ export function unitFactor(q: Exclude<Quantity, 'time'>, unit: string): number |
 /** Allowed unit names of a quantity, for messages. */
 export function allowedUnits(q: Exclude<Quantity, 'time'>): string {
   switch (q) {
-    case 'stress': return 'MPa, N/mm², MN/m², GPa, kPa, Pa, kN/cm², ksi, psi (lbf/in²), kgf/mm²';
-    case 'force': return 'N, kN, lbf, kip, kgf';
+    case 'stress': return 'MPa, N/mm², MN/m², GPa, kPa, Pa, kN/cm², ksi, psi (lbf/in²), kgf/mm² (kp/mm²), daN/mm² (hbar)';
+    case 'force': return 'N, kN, daN, lbf, kip, kgf (kp)';
     case 'length': return 'mm, in, m, cm, µm';
     case 'strain': return 'a fraction (-, mm/mm, in/in), %, ‰ (mm/m) or µε (microstrain)';
   }

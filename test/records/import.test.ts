@@ -204,6 +204,18 @@ describe('parseRecordText(text) reads what labs export', () => {
     // One number a line is still one column.
     expect(() => parseRecordText(['Stress', ...ROWS.map(([, s]) => pad(s))].join('\n') + '\n', { file: 'c.txt' })).toThrow(/only one column found/);
   });
+  it('commas between fields and a decimal comma inside quotes ("0,05","505,0") read as the semicolon file; a quoted thousands group alone is not guessed', async () => {
+    const quoted = ['"Strain [%]","Stress [MPa]"', ...ROWS.map(([e, s]) => `"${String(e).replace('.', ',')}","${String(s).replace('.', ',')}"`)].join('\n') + '\n';
+    const r = check(quoted);
+    expect(r.layout).toMatchObject({ delimiter: ',', decimalComma: true });
+    const dir = mkdtempSync(join(tmpdir(), 'sl-qdc-'));
+    writeFileSync(join(dir, 'q.csv'), quoted);
+    const f = await readRecordFile(join(dir, 'q.csv'), { file: 'q.csv' });
+    expect(Array.from(f.stress)).toEqual(Array.from(r.stress));
+    // "1,205" quoted in every row could be a thousands group: refused as before, not read as 1.205.
+    const grouped = ['"Strain [%]","Force [N]"', ...ROWS.map(([e], i) => `"${e}","${1 + (i % 9)},${String(100 + i * 7).padStart(3, '0')}"`)].join('\n') + '\n';
+    expect(() => parseRecordText(grouped, { file: 'g.csv', area: 20 })).toThrow(/g\.csv:2:1: .* holds whole numbers with a comma \("1,205"\): a thousands separator or a decimal comma\?/);
+  });
   it('a time column of clock times or time stamps (as some exports write it) is read past, through the text and the file reader', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'sl-clock-'));
     const stamps: [string, (i: number) => string, string, string][] = [

@@ -68,6 +68,16 @@ describe('unitFactor(quantity, unit) for the units labs write', () => {
     expect(unitFactor('stress', 'mN/m²')).toBeUndefined();
     expect(unitFactor('stress', 'mn/m2')).toBeUndefined();
   });
+  it('European units of older and French certificates: daN = 10 N and daN/mm² = hbar = 10 MPa (SI prefixes deca, hecto); kp = kgf, kp/mm² = 9.80665 MPa (NIST SP 811 B.8)', () => {
+    for (const u of ['daN', '[daN]', '(DAN)']) expect(unitFactor('force', u), u).toBe(10);
+    for (const u of ['daN/mm²', '(daN/mm2)', 'daN/mm^2', 'hbar']) expect(unitFactor('stress', u), u).toBe(10);
+    expect(unitFactor('stress', 'daN/cm²')).toBeCloseTo(0.1, 15);
+    expect(unitFactor('force', 'kp')).toBe(9.80665);
+    for (const u of ['kp/mm²', '[kp/mm2]']) expect(unitFactor('stress', u), u).toBe(9.80665);
+    // Through the reader: a force column in daN over 20 mm² gives the stress in MPa.
+    const r = parseRecordText('Area: 20 mm²\n\nStrain [%],Force [daN]\n' + Array.from({ length: 12 }, (_, i) => `${i * 0.05},${i * 40}`).join('\n') + '\n', { file: 'dan.csv' });
+    expect(r.stress[5]).toBeCloseTo((5 * 40 * 10) / 20, 12);
+  });
   it('force: lbf = 4.448222 N (NIST SP 811 B.8), kN = 1000 N; length: in = 25.4 mm', () => {
     expectRelClose(unitFactor('force', 'lbf')!, 4.448222, 1e-6, 'lbf');
     expect(unitFactor('force', '[kN]')).toBe(1000);
