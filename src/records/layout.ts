@@ -1,5 +1,6 @@
 import { recordError } from './errors.js';
 import { describeColumn, roleScore, ROLES } from './columns.js';
+import { unitFactor } from './units.js';
 
 export type Delimiter = ',' | ';' | '\t';
 export const DELIMITERS: readonly Delimiter[] = ['\t', ';', ','];
@@ -132,6 +133,38 @@ function quotedDecimalComma(nonEmpty: readonly { l: string }[], from: number): b
   return false;
 }
 
+/**
+ * The third pass of {@link detectLayout}: after the header at nonEmpty[k], exactly two rows of text only (no cell a
+ * number, no wider than the header), then a row of numbers. The one made of bare units (`s;%;MPa`), else the first
+ * made of unit-like tokens, is the units row; the other is passed over (channel names such as `Ch0;Ch1;Ch2`).
+ */
+function extraRows(h: string[], nonEmpty: readonly { l: string; i: number }[], k: number, d: string, dc: boolean): { units: string[] | null; unitsAt?: number; data: { l: string; i: number } } | null {
+  let units: string[] | null = null, unitsAt: number | undefined, bare = false;
+  for (let j = 1; j <= 2; j++) {
+    const row = nonEmpty[k + j];
+    if (!row) return null;
+    const f = splitLine(row.l, d);
+    if (f.length > h.length || f.every((t) => t === '') || f.some((t) => t !== '' && isNumberToken(t, dc))) return null;
+    // A row of bare units (s;%;MPa) is the units row, before one that merely looks like units (Ch0;Ch1).
+    const isBare = f.every((t) => t === '' || bareUnit(t));
+    if (f.every(isUnitToken) && (!units || (isBare && !bare))) { units = f; unitsAt = row.i; bare = isBare; }
+  }
+  const data = nonEmpty[k + 3];
+  if (!data) return null;
+  const f = splitLine(data.l, d);
+  return f.length === h.length && numericRow(f, dc) ? { units, ...(unitsAt !== undefined ? { unitsAt } : {}), data } : null;
+}
+
+/** True when a header row names a quantity in one of its columns (strain, stress, force, extension or time). */
+function namesQuantity(h: readonly string[]): boolean {
+  return h.some((t, j) => { const c = describeColumn(t, j); return ROLES.some((role) => roleScore(c, role, c.unit) > 0); });
+}
+
+/** A cell that is a unit alone (`MPa`, `%`, `[kN]`, `s`): a unit of stress, force, length or strain, or of time. */
+function bareUnit(t: string): boolean {
+  return (['stress', 'force', 'length', 'strain'] as const).some((q) => unitFactor(q, t) !== undefined && t.trim() !== '') || /^[[(]?(s|sec|ms|min|h)[\])]?$/i.test(t.trim());
+}
+
 function numericRow(f: string[], dc: boolean): boolean {
   let nums = 0;
   for (const t of f) {
@@ -186,15 +219,31 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
   // Two passes: data rows of numbers only; then, when none is found, rows whose text cells (a status or phase column,
   // `0.1,205.3,OK`) sit only in columns that are no strain, stress, force, extension or time, with three rows alike
   // (textRows), so that a metadata line is not taken for data.
-  for (const relaxed of [false, true]) for (const d of cands) {
+  // A third pass, only where neither found a layout: a header that names a quantity, then two text rows (a units
+  // row and a row of channel names or descriptions, either order) before the numbers (extraRows).
+  for (const pass of ['strict', 'relaxed', 'extra'] as const) for (const d of cands) {
+    const relaxed = pass === 'relaxed';
     for (let k = 0; k < nonEmpty.length; k++) {
       const h = splitLine(nonEmpty[k]!.l, d);
       // A header names columns: at least 2 fields, none of them a number.
       if (h.length < 2 || h.some((t) => t !== '' && isNumberToken(t, d !== ',')) || h.every((t) => t === '')) continue;
       const next = nonEmpty[k + 1];
       if (!next) continue;
+      if (pass === 'extra' && !namesQuantity(h)) continue;
+      // A row of bare units (s;%;MPa) under a header of the same width that names a quantity is that header's units
+      // row, not a header: such a file is read by the third pass (a channel row below the units threw the first off).
+      // So is a row naming no quantity (channel names Ch0;Ch1;Ch2) one or two rows under such a header.
+      if (pass !== 'extra' && k > 0 && (h.every((t) => t === '' || bareUnit(t)) || !namesQuantity(h))) {
+        const under = [1, 2].some((up) => {
+          if (k - up < 0) return false;
+          const above = splitLine(nonEmpty[k - up]!.l, d);
+          return above.length === h.length && namesQuantity(above) && !above.some((t) => t !== '' && isNumberToken(t, d !== ','));
+        });
+        if (under) continue;
+      }
       const dataRow = (f: string[], dc: boolean, at: number) => (relaxed ? textRows(h, nonEmpty, at, d, dc) : numericRow(f, dc));
       const tryDc = (dc: boolean) => {
+        if (pass === 'extra') return extraRows(h, nonEmpty, k, d, dc);
         const f1 = splitLine(next.l, d);
         if (f1.length === h.length && dataRow(f1, dc, k + 1)) return { units: null as string[] | null, data: next };
         const after = nonEmpty[k + 2];
@@ -229,7 +278,7 @@ export function detectLayout(lines: readonly string[], file: string, opts: { del
         return {
           delimiter: d, decimalComma,
           headerLine: nonEmpty[k]!.i + 1,
-          unitsLine: r.units ? nonEmpty[k + 1]!.i + 1 : null,
+          unitsLine: r.units ? ('unitsAt' in r && r.unitsAt !== undefined ? r.unitsAt : nonEmpty[k + 1]!.i) + 1 : null,
           dataLine: r.data.i + 1,
           header: h,
           units: r.units ? h.map((_, j) => r.units![j] ?? '') : null,

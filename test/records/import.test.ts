@@ -216,6 +216,23 @@ describe('parseRecordText(text) reads what labs export', () => {
     const grouped = ['"Strain [%]","Force [N]"', ...ROWS.map(([e], i) => `"${e}","${1 + (i % 9)},${String(100 + i * 7).padStart(3, '0')}"`)].join('\n') + '\n';
     expect(() => parseRecordText(grouped, { file: 'g.csv', area: 20 })).toThrow(/g\.csv:2:1: .* holds whole numbers with a comma \("1,205"\): a thousands separator or a decimal comma\?/);
   });
+  it('a header, its units row and a row of channel names (either order) before the numbers read as the two-row header', async () => {
+    const rows = ROWS.map(([e, s], i) => `${i};${e};${s}`);
+    const want = check(['Time;Strain;Stress', 's;%;MPa', ...rows].join('\n') + '\n');
+    for (const [what, head] of [['units, then channels', ['Time;Strain;Stress', 's;%;MPa', 'Ch0;Ch1;Ch2']], ['channels, then units', ['Time;Strain;Stress', 'Ch0;Ch1;Ch2', 's;%;MPa']],
+      ['metadata lines first', ['Operator;J. Doe', 'Material;steel', 'Time;Strain;Stress', 's;%;MPa', 'Ch0;Ch1;Ch2']]] as const) {
+      const text = [...head, ...rows].join('\n') + '\n';
+      const r = check(text);
+      expect(r.layout.headerLine, what).toBe(head.indexOf('Time;Strain;Stress') + 1);
+      expect(r.layout.unitsLine, what).toBe(head.indexOf('s;%;MPa') + 1);
+      expect(r.layout.dataLine, what).toBe(head.length + 1);
+      expect(r.columns.stress?.unit, what).toBe('MPa');
+      expect(Array.from(r.stress), what).toEqual(Array.from(want.stress));
+      const dir = mkdtempSync(join(tmpdir(), 'sl-3rows-'));
+      writeFileSync(join(dir, 'r.csv'), text);
+      expect(Array.from((await readRecordFile(join(dir, 'r.csv'), { file: 'r.csv' })).strain), what).toEqual(Array.from(want.strain));
+    }
+  });
   it('a time column of clock times or time stamps (as some exports write it) is read past, through the text and the file reader', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'sl-clock-'));
     const stamps: [string, (i: number) => string, string, string][] = [
