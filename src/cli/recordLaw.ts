@@ -99,6 +99,6 @@ export function planTravelOptions(rec: Pick<TensileRecord, 'machineTravel' | 'ge
   const E = doc.material.elasticModulus;
   return {
     options: { ...travel, elasticModulus: units.toMPa(E) },
-    note: `extension from the machine's travel, column ${JSON.stringify(column)}: its compliance taken out with material.elasticModulus ${E} ${units.stress} and the plastic part spread over the parallel length ${travel.travelLengths.parallelLength} mm, gauge length ${travel.travelLengths.gaugeLength} mm`,
+    note: `extension from the machine's travel, column ${JSON.stringify(column)}: its compliance taken out with material.elasticModulus ${+E.toPrecision(6)} ${units.stress} and the plastic part spread over the parallel length ${travel.travelLengths.parallelLength} mm, gauge length ${travel.travelLengths.gaugeLength} mm`,
   };
 }

@@ -4,8 +4,7 @@ import { InputError } from '../core/errors.js';
 import { LAW_PARAMETERS } from '../core/flow/params.js';
 import type { LawName } from '../core/flow/types.js';
 import { scatterFromSpecimens } from '../core/scatter/fromSpecimens.js';
-import { analyzeRecord } from '../core/tensile/analyzeRecord.js';
-import { summarizeSpecimens } from '../core/tensile/analyzeSpecimens.js';
+import { analyzeSpecimens } from '../core/tensile/analyzeSpecimens.js';
 import type { Located } from '../plan/parse.js';
 import { PlanError } from '../plan/problems.js';
 import type { PlanDoc } from '../plan/schema.js';
@@ -54,17 +53,8 @@ export function scatterFromRecordFiles(doc: PlanDoc, planFile: string, loc?: Loc
   let spec;
   const cautions: string[] = [];
   try {
-    const specimens = records.map(({ name, rec, travel }, i) => {
-      try {
-        const analysis = analyzeRecord(rec, { laws: [law], ...travel.options });
-        cautions.push(...recordCautions(name, readingWarnings(rec, analysis), analysis.warnings));
-        return { name, analysis };
-      } catch (e) {
-        if (e instanceof InputError) throw new InputError(`records[${i}] (${name}).${e.path}`, e.value, e.allowed);
-        throw e;
-      }
-    });
-    const set = summarizeSpecimens(specimens, { law, laws: [law] });
+    const set = analyzeSpecimens(records.map((r) => ({ ...r.rec, name: r.name })), { law, laws: [law], recordOptions: records.map((r) => r.travel.options) });
+    set.specimens.forEach((s, i) => cautions.push(...recordCautions(s.name, readingWarnings(records[i]!.rec, s.analysis), s.analysis.warnings)));
     if (!set.lawParameters) throw new InputError('scatter.records', sc.records.length, `records whose ${law} fits converge`);
     spec = scatterFromSpecimens(set.lawParameters);
   } catch (e) {

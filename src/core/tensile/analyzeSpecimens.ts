@@ -38,16 +38,18 @@ export interface SpecimenSet {
  * measured it (a lower bound — a test stopped early, a strain channel ended early — is left out and counted), the mean, sd and
  * Pearson correlations (`sampleCorrelation`) of the chosen law's parameters across specimens, and a
  * joint fit of every law to all flow curves pooled. This is the input scatter analysis uses.
- * Units as in {@link analyzeRecord}. Valid: at least one record; sd needs two, correlations three.
+ * Units as in {@link analyzeRecord}. `recordOptions[i]`, where given, adds to `opts` for record i alone (a machine-travel
+ * record's modulus and lengths). Valid: at least one record; sd needs two, correlations three.
  * @throws InputError naming the specimen for an invalid record.
  * @example analyzeSpecimens([{ name: 'A', strain, stress }, { name: 'B', strain: s2, stress: t2 }], { law: 'swift' }).summary.proofStrength
  */
-export function analyzeSpecimens(records: readonly (TensileData & { name: string })[], opts: AnalyzeOptions & { law?: LawName } = {}): SpecimenSet {
+export function analyzeSpecimens(records: readonly (TensileData & { name: string })[], opts: AnalyzeOptions & { law?: LawName; recordOptions?: readonly AnalyzeOptions[] } = {}): SpecimenSet {
   if (records.length === 0) throw new InputError('records', 0, 'at least one record');
   const law = opts.law ?? 'swift';
+  const { recordOptions, ...common } = opts;
   const specimens = records.map((r, i) => {
     try {
-      return { name: r.name, analysis: analyzeRecord(r, { ...opts, laws: opts.laws ?? [law] }) };
+      return { name: r.name, analysis: analyzeRecord(r, { ...common, ...recordOptions?.[i], laws: opts.laws ?? [law] }) };
     } catch (e) {
       if (e instanceof InputError) throw new InputError(`records[${i}] (${r.name}).${e.path}`, e.value, e.allowed);
       throw e;
