@@ -72,8 +72,8 @@ export function decodeRecordBytes(bytes: Uint8Array, file = 'record'): string {
 
 /**
  * A spreadsheet workbook dropped or named instead of its text export: its signature (the first bytes), said in the
- * user's words, or null. ZIP's local-file header `PK 03 04` (PKWARE APPNOTE §4.3.7: .xlsx and .ods are ZIP
- * containers) and the compound-file signature `D0 CF 11 E0 A1 B1 1A E1` of the older binary .xls ([MS-CFB] §2.2).
+ * user's words, or null. ZIP's local-file header `PK 03 04` (PKWARE APPNOTE, from memory: .xlsx and .ods are ZIP
+ * containers) and the compound-file signature `D0 CF 11 E0 A1 B1 1A E1` of the older binary .xls ([MS-CFB], from memory).
  * @example workbookKind(Uint8Array.of(0x50, 0x4b, 3, 4)) // 'a spreadsheet workbook or another ZIP archive (.xlsx, .ods)'
  */
 export function workbookKind(bytes: Uint8Array): string | null {

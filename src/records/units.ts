@@ -15,7 +15,7 @@ export const STRESS_UNITS: Readonly<Record<string, number>> = {
   'kgf/mm²': 9.80665, 'kgf/mm2': 9.80665, 'kgf/mm^2': 9.80665, 'kg/mm²': 9.80665, 'kg/mm2': 9.80665, 'kg/mm^2': 9.80665,
   'kgf/cm²': 0.0980665, 'kgf/cm2': 0.0980665, 'kgf/cm^2': 0.0980665, 'kg/cm²': 0.0980665, 'kg/cm2': 0.0980665, 'kg/cm^2': 0.0980665,
   // The kilopond (kp) is the kilogram-force under its older German name: 1 kp/mm² = 9.80665 MPa (DIN 1301 before
-  // SI; common practice). The decanewton (daN = 10 N, SI prefix deca) per mm² of French certificates is 10 MPa, as
+  // SI, from memory; common practice). The decanewton (daN = 10 N, SI prefix deca) per mm² of French certificates is 10 MPa, as
   // is the hectobar (hbar = 10⁷ Pa) they also write (SI Brochure, prefixes; common practice).
   'kp/mm²': 9.80665, 'kp/mm2': 9.80665, 'kp/mm^2': 9.80665,
   'dan/mm²': 10, 'dan/mm2': 10, 'dan/mm^2': 10, 'dan/cm²': 0.1, 'dan/cm2': 0.1, 'dan/cm^2': 0.1, hbar: 10,
