@@ -251,17 +251,30 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   if (!(offPct > 0 && offPct <= 5)) throw new InputError('proofOffsetPct', offPct, 'a number in (0, 5] %');
   // The elastic line's error (slope and toe) enters Rp's interval; a given E is taken as exact.
   const lineVar = given === undefined ? elasticLineVariance(strain, stress, el.window, E) : () => 0;
+  // Unload–reload cycles (found here: a last unloading that is never reloaded is the end of the test, below).
+  const cycles = findCycles(strain, stress, E, toe, el.window.toIndex, noise);
+  // Proof strengths and the yield point are read on the loading alone (ISO 6892-1 reads them on the rising curve):
+  // an unloading just past yield (a loop to measure E or the permanent set, common practice) fell along the elastic
+  // slope, below the elastic line and along the offset line, and was read as a yield drop with ReL at the loop's
+  // bottom (an invented loop on 46NT71 at 0.75 % strain gave "ReH / ReL 1124.5 / 199.1 MPa") or moved Rp0.2 by
+  // 8–17 % (loops at 0.1 and 0.2 % plastic strain). Cycles start past the elastic band, so indices up to its end are
+  // the same in both; the view's indices (`ls`, `ss`) are mapped back to the record's for the rest.
+  const loading = cycles.length ? withoutCycles(strain, stress, cycles) : null;
+  const ls = loading ? loading.strain : strain, ss = loading ? loading.stress : stress, NL = ss.length;
+  const toView = (i: number) => (loading ? loading.toView(i) : i);
+  const toRecord = (j: number) => (loading ? loading.kept[Math.floor(j)]! + (j - Math.floor(j)) : j);
   // Each offset's proof strength once (it was computed twice per listed offset and again for the asked one).
   const rpMemo = new Map<number, ReturnType<typeof proofStrength>>();
   const rp = (pct: number) => {
-    if (!rpMemo.has(pct)) rpMemo.set(pct, proofStrength(strain, stress, E, toe, pct / 100, el.window.fromIndex, N, noise));
+    if (!rpMemo.has(pct)) rpMemo.set(pct, proofStrength(ls, ss, E, toe, pct / 100, el.window.fromIndex, NL, noise));
     return rpMemo.get(pct)!;
   };
-  let proof = proofStrength(strain, stress, E, toe, offPct / 100, el.window.fromIndex, N, noise, lineVar);
+  // proof.index is on the loading's view (toRecord for the record's).
+  let proof = proofStrength(ls, ss, E, toe, offPct / 100, el.window.fromIndex, NL, noise, lineVar);
   rpMemo.set(offPct, proof); // the same crossing; the listed offsets reuse it
   if (!proof) warnings.push({ code: 'noProofPoint', message: `the curve never meets the ${offPct} % offset line; no proof strength` });
   const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null, index: rp(p)?.index ?? -1 }));
-  const rt = totalExtensionStrength(strain, stress, toe, 0.005, N);
+  const rt = totalExtensionStrength(ls, ss, toe, 0.005, NL);
 
   // Fracture: first sudden fall after the highest stress, else the end of the record.
   // A fall spread over many samples along the elastic line is the specimen being unloaded, not fracture.
@@ -276,12 +289,15 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const endedInFall = fall >= 0 && fall0 < 0;
   const detected = fall >= 0;
   const fi = detected ? fall : N - 1;
-  const yp = yieldPoint(strain, stress, E, toe, el.window.fromIndex, fi, noise);
+  const ypView = yieldPoint(ls, ss, E, toe, toView(el.window.fromIndex), toView(fi), noise);
+  const yp = ypView && loading ? { ...ypView, peakIndex: loading.kept[ypView.peakIndex]!, plateauFrom: loading.kept[ypView.plateauFrom]!, endIndex: loading.kept[ypView.endIndex]! } : ypView;
   if (yp && (yp.upperYieldRange[1] - yp.upperYieldRange[0]) / 2 > UNCERTAIN_REH * yp.upperYield) warnings.push({ code: 'uncertainReH', message: `ReH ${yp.upperYield.toFixed(1)} MPa is uncertain: the peak falls between samples or within the noise, so the record supports ReH anywhere from ${yp.upperYieldRange[0].toFixed(1)} to ${yp.upperYieldRange[1].toFixed(1)} MPa` });
   // A proof point on a yield plateau is read from the plateau (serrations handled: plateauProofStrength).
   let proofRange: [number, number] | null = null;
   if (yp) {
-    const onPlateau = (index: number) => (index >= yp.plateauFrom && index < yp.endIndex ? plateauProofStrength(strain, stress, Math.round(index), yp.plateauFrom, yp.endIndex, noise) : null);
+    // On the loading alone too (a loop on the plateau is no part of it).
+    const v = ypView!;
+    const onPlateau = (index: number) => (index >= v.plateauFrom && index < v.endIndex ? plateauProofStrength(ls, ss, Math.round(index), v.plateauFrom, v.endIndex, noise) : null);
     if (proof) {
       const pp = onPlateau(proof.index);
       if (pp) {
@@ -306,7 +322,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     if (given === undefined) {
       const [eLo, eHi] = el.window.interval95;
       const mid = 0.5 * (el.window.fromStress + el.window.toStress);
-      const rpAt = (Ei: number) => (Ei > 0 ? proofStrength(strain, stress, Ei, toe + mid / E - mid / Ei, offPct / 100, el.window.fromIndex, N, noise)?.stress ?? null : null);
+      const rpAt = (Ei: number) => (Ei > 0 ? proofStrength(ls, ss, Ei, toe + mid / E - mid / Ei, offPct / 100, el.window.fromIndex, NL, noise)?.stress ?? null : null);
       for (const v of [rpAt(eLo), rpAt(eHi)]) if (v !== null) { dLo = Math.max(dLo, proof.stress - v); dHi = Math.max(dHi, v - proof.stress); }
     }
     const lo = proof.stress - Math.sqrt(dLo * dLo + hw * hw), hi = proof.stress + Math.sqrt(dHi * dHi + hw * hw);
@@ -316,8 +332,6 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // Rm: local parabola around the top, after the yield plateau when there is one (ISO 6892-1 §3.10.1).
   // At least 3 samples for the top's fit (a record that ends on its yield plateau still gets one).
   const topFrom = Math.max(0, Math.min(yp ? yp.endIndex : el.window.toIndex, fi - 2));
-  // Unload–reload cycles (found here: a last unloading that is never reloaded is the end of the test, below).
-  const cycles = findCycles(strain, stress, E, toe, el.window.toIndex, noise);
   // A record that ends with an elastic unloading and no reload: the test was stopped and the specimen unloaded
   // before it broke (no fracture fall). That unloading is no unload–reload cycle, the loading ended where it
   // began, and A is the permanent elongation at the stop — a lower bound of the elongation after fracture.
@@ -385,7 +399,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // The flow curve in one pass (ln(1 + e) only for the points of the envelope), into arrays sized
   // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
   // true curve that `analyze` never prints were a tenth of the command (bench/RESULTS.md, issue 12 D).
-  const flow = flowColumns(strain, stress, toe, E, iMax, proof ? proof.index : 0, fromTrue);
+  const flow = flowColumns(strain, stress, toe, E, iMax, proof ? toRecord(proof.index) : 0, fromTrue);
   const { strain: fStrain, stress: fStress, logStrain, logStress } = flow;
   const nf = fStrain.length;
   // ln εp once, for the n-value and every law fit, and the range and first bad point the fits check (all taken
@@ -394,7 +408,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // A flow-curve point with no positive stress (a run of zero or negative readings on the plastic part, which no
   // specimen gives): say where it is in the record, not in the flow curve the user never sees.
   if (packed && packed.bad >= 0) {
-    let i = proof ? Math.max(0, Math.floor(proof.index)) : 0;
+    let i = proof ? Math.max(0, Math.floor(toRecord(proof.index))) : 0;
     while (i < iMax && stress[i]! > 0 && stress[i]! < Infinity) i++;
     throw new InputError(`stress[${i}]`, stress[i]!, `a stress > 0 MPa on the plastic part of the record up to maximum force (sample ${i}${i > 0 ? `, after ${+stress[i - 1]!.toPrecision(5)} MPa` : ''}); a run of zero readings there is an acquisition fault: check the export`);
   }
@@ -595,6 +609,31 @@ function elasticUnloading(strain: ArrayLike<number>, stress: ArrayLike<number>, 
 function fractureMethod(detected: boolean, necked: boolean): string {
   return detected ? `first fall of stress by more than ${ANALYZE_DEFAULTS.fractureDrop * 100} % between two samples after Rm`
     : necked ? 'last point of a record that ends after necking (force below 90 % of Fm): the machine stopped at fracture' : 'end of the record (no fracture seen)';
+}
+
+/**
+ * The record with its unload–reload cycles left out: for each cycle the samples after the start of unloading up to
+ * where the reload is back at the unloading's stress or strain (all the rest for an unloading never reloaded).
+ * `kept[j]` is the record index of sample j of the view; `toView(i)` the view index of the last kept sample at or
+ * before record index i. O(n), only for a record with cycles.
+ */
+function withoutCycles(strain: ArrayLike<number>, stress: ArrayLike<number>, cycles: readonly UnloadCycle[]): { strain: Float64Array; stress: Float64Array; kept: Int32Array; toView: (i: number) => number } {
+  const n = stress.length;
+  const drop = new Uint8Array(n);
+  for (const c of cycles) {
+    const u = c.unloadIndex, su = stress[u]!, eu = strain[u]!;
+    let j = c.reversalIndex + 1;
+    while (j < n && stress[j]! < su && strain[j]! <= eu) j++;
+    for (let i = u + 1; i < j; i++) drop[i] = 1;
+  }
+  let m = 0;
+  for (let i = 0; i < n; i++) if (!drop[i]) m++;
+  const kept = new Int32Array(m), view = new Int32Array(n), xs = new Float64Array(m), ys = new Float64Array(m);
+  for (let i = 0, j = -1; i < n; i++) {
+    if (!drop[i]) { j++; kept[j] = i; xs[j] = strain[i]!; ys[j] = stress[i]!; }
+    view[i] = Math.max(0, j);
+  }
+  return { strain: xs, stress: ys, kept, toView: (i) => view[Math.max(0, Math.min(n - 1, i))]! };
 }
 
 /** True when no stress after index `from` reaches `level` (an unloading that is never reloaded). */
