@@ -279,6 +279,17 @@ export class RecordBuilder {
     const found: Partial<Record<Role, ColumnInfo>> = {};
     for (const r of ROLES) { const c = pick(r); if (c) found[r] = c; }
     const names = cols.map((x) => show(x.name)).join(', ');
+    // Channels named only by their number (`Kanal 1 (MPa)`, `Channel 2 [%]`, `CH3 / kN`: many acquisition systems
+    // export the channel, not the quantity) are read by their unit when the names give no pair of columns to read.
+    const pairOf = (f: Partial<Record<Role, ColumnInfo>>) => (f.strain && f.stress && f.strain.index !== f.stress.index) || (f.force && (f.extension ?? f.strain) && f.force.index !== (f.extension ?? f.strain)!.index);
+    let unitOnly = '';
+    if (!pairOf(found)) {
+      const r = rolesFromUnits(cols, found, unitOf, opts.columns);
+      if (pairOf({ ...found, ...r.roles })) {
+        Object.assign(found, r.roles);
+        this.warnings.push(`no column is named as a quantity; read by their units: ${Object.entries(r.roles).map(([role, c]) => `${show(c!.name)} (column ${c!.index + 1}) as the ${role}`).join(', ')}; map columns with --column ROLE=NAME (or the record bench's column choices) if that is wrong`);
+      } else unitOnly = r.clash;
+    }
     let mode: 'ss' | 'fe' | 'fs';
     // A force column with the machine's strain channel (no stress column) is as common in exports as force with
     // extension: stress = force / cross-section, no gauge length needed. With both an extension and a strain column
@@ -289,7 +300,7 @@ export class RecordBuilder {
     else if (fs) mode = 'fs';
     else if (found.stress && !found.strain) this.fail(L.headerLine, found.stress.index + 1, 'strain', `no strain column (nor force and extension); the header has ${names}; expected a column named like "Strain [%]" or map it explicitly`);
     else if (found.strain && !found.stress) this.fail(L.headerLine, found.strain.index + 1, 'stress', `no stress column (nor a force column); the header has ${names}; expected a column named like "Stress [MPa]" or "Force [kN]", or map it explicitly`);
-    else this.fail(L.headerLine, 1, 'columns', `no strain and stress columns, nor force and extension (or force and strain); the header has ${names}; expected names such as strain, stress, force, extension (with units like [MPa], [%], [kN], [mm]) or an explicit column mapping`);
+    else this.fail(L.headerLine, 1, 'columns', `no strain and stress columns, nor force and extension (or force and strain); the header has ${names}${unitOnly}; expected names such as strain, stress, force, extension (with units like [MPa], [%], [kN], [mm]) or an explicit column mapping`);
     const a = mode === 'fe' ? found.extension! : found.strain!;
     const b = mode === 'ss' ? found.stress! : found.force!;
     // Two channels of the strain (or extension), alike but for a channel mark and in one unit: the two sides of an
@@ -832,4 +843,34 @@ export function sameChannel(a: ColumnInfo, b: ColumnInfo): boolean {
   const strip = (s: string) => s.replace(new RegExp(`(?:(?:^|\\s)(?:ch(?:annel)? ?)?${MARK}|\\d+)$`), '').replace(new RegExp(`^${MARK}\\s`), '').trim();
   const x = strip(a.base), y = strip(b.base);
   return x !== '' && x === y && a.base !== b.base;
+}
+
+/**
+ * Roles of columns that no name reads (a score of 0 for every role: `Kanal 1`, `Channel 2`, `CH3`, `Input 4`), from
+ * their units alone: a stress unit (MPa, ksi…) the stress, a force unit the force, a strain unit other than a bare
+ * fraction mark (%, mm/mm, µε…) the strain, a length unit the extension, s or min the time. A role is filled only
+ * where no column was found for it by name or mapped, and only when exactly one such column has its unit; `clash`
+ * says (for the error) where two or more had.
+ */
+function rolesFromUnits(cols: readonly ColumnInfo[], found: Partial<Record<Role, ColumnInfo>>, unitOf: (c: ColumnInfo) => string, mapped: RecordOptions['columns']): { roles: Partial<Record<Role, ColumnInfo>>; clash: string } {
+  const taken = new Set(Object.values(found).map((c) => c!.index));
+  const generic = cols.filter((c) => !taken.has(c.index) && ROLES.every((r) => roleScore(c, r, unitOf(c)) === 0));
+  const roleOf = (u: string): Role | null => {
+    if (u === '') return null;
+    if (unitFactor('stress', u) !== undefined) return 'stress';
+    if (unitFactor('force', u) !== undefined) return 'force';
+    if (!/^(-|1|fraction)$/i.test(normUnit(u)) && unitFactor('strain', u) !== undefined) return 'strain';
+    if (unitFactor('length', u) !== undefined) return 'extension';
+    return /^(s|sec|min)$/i.test(normUnit(u)) ? 'time' : null;
+  };
+  const by = new Map<Role, ColumnInfo[]>();
+  for (const c of generic) { const r = roleOf(unitOf(c)); if (r) by.set(r, [...(by.get(r) ?? []), c]); }
+  const roles: Partial<Record<Role, ColumnInfo>> = {};
+  const clashes: string[] = [];
+  for (const [r, cs] of by) {
+    if (found[r] || mapped?.[r] !== undefined) continue;
+    if (cs.length === 1) roles[r] = cs[0]!;
+    else clashes.push(`${cs.map((c) => show(c.name)).join(' and ')} are each in a ${r} unit`);
+  }
+  return { roles, clash: clashes.length ? ` (${clashes.join('; ')}: name the ${clashes.length > 1 ? 'columns' : 'column'} to read with --column)` : '' };
 }

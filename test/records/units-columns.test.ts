@@ -162,3 +162,36 @@ describe('parseRecordText on US-style and microstrain exports (INVENTED rows)', 
     expect(describeColumn('constructor', 0).isTrue).toBe(false);
   });
 });
+
+// Acquisition systems that export channels by number (common practice): the unit is the only sign of the quantity.
+describe('parseRecordText: channels named only by number are read by their units (INVENTED rows)', () => {
+  const rows = (f: (e: number, s: number) => string) => Array.from({ length: 20 }, (_, i) => f(i * 1e-4, i * 20)).join('\n');
+  it('stress first, strain in % second ("Kanal 1 (MPa)", "Kanal 2 (%)"): read by unit, and said', () => {
+    const r = parseRecordText('Kanal 1 (MPa),Kanal 2 (%)\n' + rows((e, s) => `${s},${e * 100}`), { file: 'ch.csv' });
+    expect(r.columns.stress!.name).toBe('Kanal 1 (MPa)');
+    expect(r.columns.strain!.name).toBe('Kanal 2 (%)');
+    expectRelClose(r.strain[10]!, 1e-3, 1e-12, 'strain');
+    expectRelClose(r.stress[10]!, 200, 1e-12, 'stress');
+    expect(r.warnings.some((w) => /read by their units/.test(w) && /"Kanal 1 \(MPa\)" \(column 1\) as the stress/.test(w))).toBe(true);
+  });
+  it('time, extension and force channels in a units row (Channel 1/2/3 over s, mm, kN) with the specimen given', () => {
+    const text = 'Channel 1;Channel 2;Channel 3\ns;mm;kN\n' + rows((e, s) => `${e * 1e4};${e * 50};${(s * 20) / 1000}`);
+    const r = parseRecordText(text, { file: 'ch3.csv', area: 20, gaugeLength: 50 });
+    expect(r.basis).toBe('force-extension');
+    expect(r.columns.force!.name).toBe('Channel 3');
+    expectRelClose(r.strain[10]!, 1e-3, 1e-9, 'strain');
+    expectRelClose(r.stress[10]!, 200, 1e-9, 'stress');
+  });
+  it('a named column keeps its role; only the missing one is read by unit ("Stress [MPa]" with "CH2 [µε]")', () => {
+    const r = parseRecordText('Stress [MPa],CH2 [µε]\n' + rows((e, s) => `${s},${e * 1e6}`), { file: 'mix.csv' });
+    expect(r.columns.strain!.name).toBe('CH2 [µε]');
+    expectRelClose(r.strain[10]!, 1e-3, 1e-12, 'strain');
+  });
+  it('two channels in one stress unit are not guessed: refused, naming both and --column', () => {
+    expect(() => parseRecordText('Ch1 [MPa],Ch2 [MPa],Ch3 [%]\n' + rows((e, s) => `${s},${s},${e * 100}`), { file: 'two.csv' }))
+      .toThrow(/"Ch1 \[MPa\]" and "Ch2 \[MPa\]" are each in a stress unit.*--column/);
+  });
+  it('a bare fraction mark ("-") is no sign of a strain: not guessed', () => {
+    expect(() => parseRecordText('Ch1 [MPa],Ch2 [-]\n' + rows((e, s) => `${s},${e}`), { file: 'dash.csv' })).toThrow(/no strain and stress columns/);
+  });
+});
