@@ -1,3 +1,4 @@
+import { recordError } from './errors.js';
 import { CLOCK, detectLayout, headLines, isNumberToken, type Layout } from './layout.js';
 
 /** A line of numbers (at least two), with clock times or time stamps among them, separated by runs of spaces: its fields, else null. */
@@ -62,14 +63,22 @@ export function spacesToTabs(text: string, k: number): string {
  * @throws PlanError as detectLayout (the error for the text as it is, when it is not space-aligned either).
  * @example layoutOf('Strain  Stress\n 0 0\n 0.1 20\n 0.2 40\n', 'a.txt').layout.delimiter // '\t'
  */
-export function layoutOf(text: string, file: string, opts: { delimiter?: Layout['delimiter'] | undefined; decimal?: '.' | ',' | undefined } = {}): { layout: Layout; text: string } {
+export function layoutOf(text: string, file: string, opts: { delimiter?: Layout['delimiter'] | ' ' | undefined; decimal?: '.' | ',' | undefined } = {}): { layout: Layout; text: string } {
   const head = headLines(text);
+  // Asked for columns aligned by spaces (`--delimiter space`): read as such, or say why not.
+  if (opts.delimiter === ' ') {
+    const k = spaceAligned(head);
+    if (!k) throw recordError(file, 1, 1, 'delimiter', 'columns aligned by spaces were asked for, but no three lines of the first ones hold the same number (two or more) of numbers separated by spaces; check the file, or leave the separator to be detected');
+    const tabbed = spacesToTabs(text, k);
+    return { layout: detectLayout(headLines(tabbed), file, { ...opts, delimiter: '\t' }), text: tabbed };
+  }
+  const sep = opts.delimiter;
   try {
-    return { layout: detectLayout(head, file, opts), text };
+    return { layout: detectLayout(head, file, { ...opts, delimiter: sep }), text };
   } catch (e) {
-    const k = opts.delimiter ? 0 : spaceAligned(head);
+    const k = sep ? 0 : spaceAligned(head);
     if (!k) throw e;
     const tabbed = spacesToTabs(text, k);
-    return { layout: detectLayout(headLines(tabbed), file, opts), text: tabbed };
+    return { layout: detectLayout(headLines(tabbed), file, { ...opts, delimiter: sep }), text: tabbed };
   }
 }

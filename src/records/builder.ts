@@ -7,7 +7,8 @@ import { allowedUnits, AREA_UNITS, LENGTH_UNITS, normUnit, unitFactor } from './
 export interface RecordOptions {
   /** Name used in messages (the file name). */
   file?: string;
-  delimiter?: ',' | ';' | '\t';
+  /** Field separator; ' ' for columns aligned by runs of spaces (a fixed-width export). Default: detected. */
+  delimiter?: ',' | ';' | '\t' | ' ';
   decimal?: '.' | ',';
   /** Explicit column for a role: its header name or its 1-based number. */
   columns?: Partial<Record<Role, string | number>>;

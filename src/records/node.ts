@@ -60,9 +60,12 @@ export async function readRecordFile(path: string, opts: RecordOptions = {}): Pr
   if (bom) text = text.slice(1);
   if (text.trim() === '' && got < HEAD_BYTES) throw recordError(file, 1, 1, '', 'empty file; expected a header line of column names and rows of numbers below it');
   checkText(text, file);
+  // Columns aligned by spaces, asked for: read whole as tab-separated (aligned.ts).
+  if (opts.delimiter === ' ') return whole();
+  const delimiter = opts.delimiter;
   let layout: Layout;
   try {
-    layout = detectLayout(headLines(text), file, opts);
+    layout = detectLayout(headLines(text), file, { ...opts, delimiter });
   } catch (e) {
     // Columns aligned by spaces: parseRecordText reads the whole text as tab-separated (aligned.ts).
     if (!opts.delimiter && spaceAligned(headLines(text))) return whole();

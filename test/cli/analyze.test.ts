@@ -158,6 +158,23 @@ describe('strainledger analyze RECORD --format json', () => {
     expect(j.lowerYield).toBeLessThan(j.upperYield);
     expect(j.yieldPointElongationPct).toBeGreaterThan(0.8);
   });
+  it('--delimiter space reads a fixed-width export as detection does; an unknown separator is refused naming the choices', () => {
+    // The open 46NT9B record (MaterialDigital, CC BY 4.0) rewritten as columns aligned by spaces.
+    const lines = readFileSync(join(FIX, '46NT9B.csv'), 'utf8').split(/\r?\n/);
+    const h = lines.findIndex((l) => l.startsWith('Time\t'));
+    const rows = lines.slice(h + 2).filter((l) => l.trim()).map((l) => l.split('\t')).map((c) => `  ${c[4]!.padStart(24)}  ${c[5]!.padStart(22)}`);
+    const f = join(dir, 'aligned-46NT9B.txt');
+    writeFileSync(f, ['Engineering Strain    Engineering Stress [MPa]', ...rows].join('\n') + '\n');
+    const asked = run('analyze', f, '--format', 'json', '--delimiter', 'space');
+    expect(asked.status, asked.stderr).toBe(0);
+    const detected = JSON.parse(run('analyze', f, '--format', 'json').stdout);
+    const j = JSON.parse(asked.stdout);
+    expect(j.tensileStrength).toBe(detected.tensileStrength);
+    expectRelClose(j.tensileStrength, 1192.4, 1e-3, 'Rm (the producers\' value, as above)');
+    const bad = run('analyze', f, '--delimiter', 'pipe');
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/--delimiter: got "pipe", allowed , ; tab or space/);
+  });
   it('several records: per-record analyses, mean and sd over specimens, and a joint fit', () => {
     const files = ['46NT71.csv', '46NT73.csv', '46NT99.csv'].map((f) => join(FIX, f));
     const j = JSON.parse(run('analyze', ...files, '--format', 'json', '--law', 'voce').stdout);

@@ -203,6 +203,15 @@ describe('parseRecordText(text) reads what labs export', () => {
     expect(() => parseRecordText(bad, { file: 'b.txt' })).toThrow(/b\.txt:7:\d+: .*got "oops", expected a number/);
     // One number a line is still one column.
     expect(() => parseRecordText(['Stress', ...ROWS.map(([, s]) => pad(s))].join('\n') + '\n', { file: 'c.txt' })).toThrow(/only one column found/);
+    // Asked for (`--delimiter space`): the same record through the text and the file reader; a comma-separated
+    // file asked for as aligned is refused at its first line, saying why.
+    const aligned = ['Strain (%)    Stress (MPa)', ...ROWS.map(([e, s]) => pad(e) + pad(s))].join('\n') + '\n';
+    const asked = parseRecordText(aligned, { file: 'a.txt', delimiter: ' ' });
+    expect(Array.from(asked.stress)).toEqual(Array.from(check(aligned).stress));
+    writeFileSync(join(dir, 'asked.txt'), aligned);
+    expect(Array.from((await readRecordFile(join(dir, 'asked.txt'), { file: 'asked.txt', delimiter: ' ' })).strain)).toEqual(Array.from(asked.strain));
+    const csv = ['Strain [%],Stress [MPa]', ...ROWS.map(([e, s]) => `${e},${s}`)].join('\n') + '\n';
+    expect(() => parseRecordText(csv, { file: 'c.csv', delimiter: ' ' })).toThrow(/c\.csv:1:1: delimiter: columns aligned by spaces were asked for, but no three lines/);
   });
   it('commas between fields and a decimal comma inside quotes ("0,05","505,0") read as the semicolon file; a quoted thousands group alone is not guessed', async () => {
     const quoted = ['"Strain [%]","Stress [MPa]"', ...ROWS.map(([e, s]) => `"${String(e).replace('.', ',')}","${String(s).replace('.', ',')}"`)].join('\n') + '\n';

@@ -173,7 +173,7 @@ export const analyze = defineCommand({
     residuals: { type: 'boolean', default: false, help: 'include each fit\'s residuals in the JSON output' },
     threads: { type: 'string', value: 'N', help: 'threads for the law fits of a large record, 1 or 2 (default: 2 on a machine with four or more cores, two of them free, when the records hold 4 MB or more; else 1); the results are the same either way' },
     column: { type: 'string', multiple: true, default: [], value: 'ROLE=NAME', help: 'which column holds a role (strain, stress, force, extension, time), by header name or number' },
-    delimiter: { type: 'string', value: ', ; tab', help: 'field separator of the record (default: detected)' },
+    delimiter: { type: 'string', value: ', ; tab space', help: 'field separator of the record; space: columns aligned by runs of spaces (default: detected)' },
     decimal: { type: 'string', value: '. ,', help: 'decimal mark of the record (default: detected)' },
     'stress-unit': { type: 'string', value: 'UNIT', help: 'unit of the stress column when the record does not say, e.g. MPa, ksi' },
     'force-unit': { type: 'string', value: 'UNIT', help: 'unit of the force column when the record does not say, e.g. N, kN, lbf' },
@@ -200,8 +200,8 @@ export const analyze = defineCommand({
     }
     const ropts: RecordOptions = {};
     if (values.delimiter !== undefined) {
-      const d = values.delimiter === 'tab' || values.delimiter === '\\t' ? '\t' : values.delimiter;
-      if (d !== ',' && d !== ';' && d !== '\t') throw cliError('--delimiter', `got ${JSON.stringify(values.delimiter)}, allowed , ; or tab`);
+      const d = values.delimiter === 'tab' || values.delimiter === '\\t' ? '\t' : values.delimiter === 'space' ? ' ' : values.delimiter;
+      if (d !== ',' && d !== ';' && d !== '\t' && d !== ' ') throw cliError('--delimiter', `got ${JSON.stringify(values.delimiter)}, allowed , ; tab or space (columns aligned by runs of spaces)`);
       ropts.delimiter = d;
     }
     if (values.decimal !== undefined) {

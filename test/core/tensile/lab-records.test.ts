@@ -114,10 +114,11 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // just outside its 95 % interval (247.87–255.42 MPa against 247.81 since the slope's and the noise's half-widths
     // add in quadrature; the expected non-coverage of a 95 % interval, not a bias).
     expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(1);
-    // Ag off by more than 0.4 point with no 95 % interval holding the truth on 5 (seeds 57, 122, 143, 168, 187: coarse,
+    // Ag off by more than 0.4 point with no 95 % interval holding the truth on 4 (seeds 57, 122, 168, 187: coarse,
     // noisy tops; the truth lies 0.02–0.3 point outside the interval — the expected few percent of a 95 % interval's
-    // non-coverage, but not zero).
-    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(5);
+    // non-coverage, but not zero). Seed 143 left this list when the top was fitted with the noise of its own span
+    // (sixteenth session): its interval now holds the truth (it is among the accepted below).
+    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(4);
     // The raw accuracy, warned or not: Ag off by more than 0.4 point on 51 of 240 records (110 before the top model
     // was bounded to a top that falls away from its vertex on both sides — an unbounded side rose past the vertex and
     // read Ag up to 7 points early — and Ag became the Akaike-weighted mean of a kinked and a smooth top). Almost all
@@ -126,9 +127,9 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // model's interval (lawTop.ts), and the truth at the curve's own maximum of force (the generator had read it at the
     // rigid-plastic Considère strain, 0.03–0.17 point late): 51 → 16 (44 for the top model alone against that truth).
     expect(r.agOff).toBeLessThanOrEqual(16);
-    // Of those, warned with a 95 % interval wider than ±0.4 point that holds the truth: 11 (46 before the laws, 107
-    // before the bounded top model).
-    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(11);
+    // Of those, warned with a 95 % interval wider than ±0.4 point that holds the truth: 12 (11 and seed 143 above; 46
+    // before the laws, 107 before the bounded top model).
+    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(12);
     // The acceptances stay the exception, and each kind is exercised (so the conditions above can fail).
     expect(r.accepted['E refused']?.length ?? 0).toBeLessThanOrEqual(6);
     expect(r.accepted[`drop not reported (evidence < ${MIN_EVIDENCE})`]?.length ?? 0).toBeLessThanOrEqual(8);

@@ -58,6 +58,13 @@ describe('analyzeRecord on the ten 42CrMoS4 records (MaterialDigital open data, 
         expect(agRef, `${f} Ag ${agRef} inside [${x0}, ${x1}]`).toBeLessThanOrEqual(x1! + 0.05);
         expectAbsClose(a.uniformElongationPct, agRef, Math.max(0.05, (x1! - x0!) / 2), `${f} Ag`);
       }
+      // The top is fitted with its own noise (forceMaximum): these tops scatter 0.1–0.5 MPa about a local smooth while
+      // 46NT71 and 46NT73 scatter 1–3 MPa on their elastic rise and while they neck (a control oscillation), and the
+      // record-wide figure (1.7 and 1.1 MPa) had warned their Ag as uncertain by ±0.98 and ±0.43 point. Measured now:
+      // every interval within ±0.34 point, no warning.
+      const [agLo, agHi] = a.forceMaximum.uniformElongationInterval95;
+      expect((agHi - agLo) / 2, `${f} Ag interval ${agLo}–${agHi}`).toBeLessThan(0.4);
+      expect(a.warnings.map((w) => w.code)).not.toContain('uncertainAg');
       // A in %: one sample step is ~0.02 % strain; 0.05 % (absolute) covers one step plus the E difference in s_f/E.
       expectAbsClose(a.totalElongationPct, ref('elongation after fracture'), 0.05, `${f} A`);
       expect(a.fracture.detected).toBe(true);
