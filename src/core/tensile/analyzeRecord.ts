@@ -137,7 +137,14 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
       `(${+(100 * strain[lost.from - 1]!).toPrecision(4)} % and ${+(100 * strain[lost.to + 1]!).toPrecision(4)} % at ${+stress[lost.from - 1]!.toPrecision(4)} and ${+stress[lost.to + 1]!.toPrecision(4)} MPa), ` +
       `which a specimen cannot do: rows lost by the acquisition or the export (up to ${glitchRun(strain.length)} in a row are read on the line between their neighbours). Remove or mend those rows and analyse again`);
   }
-  const noise = recordNoiseWide(stress);
+  // The noise of the loaded specimen: the runs of samples below 5 % of the highest stress at the start (before the
+  // load is taken up) and at the end (after fracture) are left out. A long quiet tail had pulled the blocks' median
+  // down: 300 samples of a broken specimen after the open 46NT71 record read its noise as 0.48 MPa instead of 1.7,
+  // and every threshold tied to it (yield drop, Rp's range, the fracture) with it.
+  let lo = 0, hi = N;
+  while (lo < N && !(stress[lo]! >= LOADED * sMax)) lo++;
+  while (hi > lo && !(stress[hi - 1]! >= LOADED * sMax)) hi--;
+  const noise = hi - lo >= 16 ? recordNoiseWide(stress, lo, hi) : recordNoiseWide(stress);
   // A strain channel that stops following the specimen (extensometer taken off, reset, out of range): every
   // property that needs strain is read before that point; the force after it still counts for Rm.
   const end = extensometerEnd(strain, stress, sMax, noise, strainMoves.length < MAX_CANDIDATES ? strainMoves : undefined);
@@ -635,6 +642,9 @@ function withoutCycles(strain: ArrayLike<number>, stress: ArrayLike<number>, cyc
   }
   return { strain: xs, stress: ys, kept, toView: (i) => view[Math.max(0, Math.min(n - 1, i))]! };
 }
+
+/** A sample below this fraction of the highest stress, before the first or after the last above it, is of an unloaded specimen (the record's noise leaves those runs out). */
+const LOADED = 0.05;
 
 /** True when no stress after index `from` reaches `level` (an unloading that is never reloaded). */
 function neverReloaded(stress: ArrayLike<number>, from: number, level: number): boolean {
