@@ -1,5 +1,9 @@
 import { studentTQuantile } from '../fit/studentT.js';
 import { movingAverage, polynomialFit } from './localFit.js';
+import { recordNoiseWide } from './recordNoise.js';
+
+/** Half the samples around the offset crossing its noise is estimated from. */
+const RP_NOISE_HALF = 64;
 
 /**
  * Proof strength, plastic extension: the stress where the line parallel to the elastic line, offset by
@@ -10,7 +14,10 @@ import { movingAverage, polynomialFit } from './localFit.js';
  * whose plastic strain is within [offset/2, 2·offset] (at least 7), not from two noisy samples, with its standard
  * error when `lineVariance` is given (the parabola's prediction error at the crossing, widened for correlated residuals, and `lineVariance`, the
  * variance of the elastic line's strain at a stress (strain², from {@link elasticLineVariance}), carried through the
- * offset line).
+ * offset line). The noise of that error is the one about the crossing: `recordNoiseWide` over the 64 samples before
+ * and after the first sign change where the record holds them, else `noise` (the open 46NT71 scatters 2 MPa about a
+ * local smooth on its elastic rise and while it necks, 1 MPa about its offset crossing; with the record-wide figure
+ * its Rp0.2 was warned uncertain, 1113–1151 MPa).
  * Units: strain fraction, stresses and E in MPa. Valid: offset > 0.
  * @returns the stress in MPa and the (fractional) index, or null when the curve never crosses the line.
  * @example proofStrength([0, 0.002, 0.004, 0.006], [0, 400, 440, 450], 200000, 0, 0.002) // ≈ 436.4 MPa
@@ -23,7 +30,12 @@ export function proofStrength(
   const prev = stress[i - 1]! - E * (strain[i - 1]! - toe - offset), cur = stress[i]! - E * (strain[i]! - toe - offset);
   const t = prev / (prev - cur);
   const raw = { stress: stress[i - 1]! + t * (stress[i]! - stress[i - 1]!), index: i - 1 + t };
-  return noise > 0 ? smoothCrossing(strain, stress, E, toe, offset, i, toIndex, noise, lineVariance) ?? raw : raw;
+  if (!(noise > 0)) return raw;
+  // The noise where the curve meets the offset line: the samples from RP_NOISE_HALF before the crossing to as many
+  // after it (8 blocks of 16 at least for recordNoiseWide), else the record's.
+  const a = Math.max(0, i - RP_NOISE_HALF), b = Math.min(toIndex, i + RP_NOISE_HALF);
+  const local = b - a >= 2 * RP_NOISE_HALF ? recordNoiseWide(stress, a, b) : noise;
+  return smoothCrossing(strain, stress, E, toe, offset, i, toIndex, local, lineVariance) ?? raw;
 }
 
 // The record-long loops below are small functions of their own, without closures: proofStrength runs five

@@ -65,6 +65,9 @@ describe('analyzeRecord on the ten 42CrMoS4 records (MaterialDigital open data, 
       const [agLo, agHi] = a.forceMaximum.uniformElongationInterval95;
       expect((agHi - agLo) / 2, `${f} Ag interval ${agLo}–${agHi}`).toBeLessThan(0.4);
       expect(a.warnings.map((w) => w.code)).not.toContain('uncertainAg');
+      // Rp0.2 likewise, with the noise of the 128 samples about the offset crossing (proofStrength): 46NT71's was warned
+      // 1113–1151 MPa with the record-wide 2.0 MPa; about its crossing the record scatters 1.0 MPa.
+      expect(a.warnings.map((w) => w.code)).not.toContain('uncertainRp');
       // A in %: one sample step is ~0.02 % strain; 0.05 % (absolute) covers one step plus the E difference in s_f/E.
       expectAbsClose(a.totalElongationPct, ref('elongation after fracture'), 0.05, `${f} A`);
       expect(a.fracture.detected).toBe(true);
