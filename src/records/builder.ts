@@ -288,7 +288,7 @@ export class RecordBuilder {
       const r = rolesFromUnits(cols, found, unitOf, opts.columns);
       if (pairOf({ ...found, ...r.roles })) {
         Object.assign(found, r.roles);
-        this.warnings.push(`no column is named as a quantity; read by their units: ${Object.entries(r.roles).map(([role, c]) => `${show(c!.name)} (column ${c!.index + 1}) as the ${role}`).join(', ')}; map columns with --column ROLE=NAME (or the record bench's column choices) if that is wrong`);
+        this.warnings.push(`${Object.keys(r.roles).length > 1 ? 'columns' : 'a column'} named by channel only, read by ${Object.keys(r.roles).length > 1 ? 'their units' : 'its unit'}: ${Object.entries(r.roles).map(([role, c]) => `${show(c!.name)} (column ${c!.index + 1}) as the ${role}`).join(', ')}; map columns with --column ROLE=NAME (or the record bench's column choices) if that is wrong`);
       } else unitOnly = r.clash;
     }
     let mode: 'ss' | 'fe' | 'fs';
@@ -873,5 +873,5 @@ function rolesFromUnits(cols: readonly ColumnInfo[], found: Partial<Record<Role,
     if (cs.length === 1) roles[r] = cs[0]!;
     else clashes.push(`${cs.map((c) => show(c.name)).join(' and ')} are each in a ${r} unit`);
   }
-  return { roles, clash: clashes.length ? ` (${clashes.join('; ')}: name the ${clashes.length > 1 ? 'columns' : 'column'} to read with --column)` : '' };
+  return { roles, clash: clashes.length ? ` (${clashes.join('; ')}: map the one to read with --column ROLE=NAME, or the record bench's column choices)` : '' };
 }

@@ -172,7 +172,7 @@ describe('parseRecordText: channels named only by number are read by their units
     expect(r.columns.strain!.name).toBe('Kanal 2 (%)');
     expectRelClose(r.strain[10]!, 1e-3, 1e-12, 'strain');
     expectRelClose(r.stress[10]!, 200, 1e-12, 'stress');
-    expect(r.warnings.some((w) => /read by their units/.test(w) && /"Kanal 1 \(MPa\)" \(column 1\) as the stress/.test(w))).toBe(true);
+    expect(r.warnings.some((w) => /columns named by channel only, read by their units/.test(w) && /"Kanal 1 \(MPa\)" \(column 1\) as the stress/.test(w))).toBe(true);
   });
   it('time, extension and force channels in a units row (Channel 1/2/3 over s, mm, kN) with the specimen given', () => {
     const text = 'Channel 1;Channel 2;Channel 3\ns;mm;kN\n' + rows((e, s) => `${e * 1e4};${e * 50};${(s * 20) / 1000}`);
@@ -185,11 +185,12 @@ describe('parseRecordText: channels named only by number are read by their units
   it('a named column keeps its role; only the missing one is read by unit ("Stress [MPa]" with "CH2 [µε]")', () => {
     const r = parseRecordText('Stress [MPa],CH2 [µε]\n' + rows((e, s) => `${s},${e * 1e6}`), { file: 'mix.csv' });
     expect(r.columns.strain!.name).toBe('CH2 [µε]');
+    expect(r.warnings.some((w) => w.startsWith('a column named by channel only, read by its unit: "CH2 [µε]" (column 2) as the strain'))).toBe(true);
     expectRelClose(r.strain[10]!, 1e-3, 1e-12, 'strain');
   });
   it('two channels in one stress unit are not guessed: refused, naming both and --column', () => {
     expect(() => parseRecordText('Ch1 [MPa],Ch2 [MPa],Ch3 [%]\n' + rows((e, s) => `${s},${s},${e * 100}`), { file: 'two.csv' }))
-      .toThrow(/"Ch1 \[MPa\]" and "Ch2 \[MPa\]" are each in a stress unit.*--column/);
+      .toThrow(/"Ch1 \[MPa\]" and "Ch2 \[MPa\]" are each in a stress unit: map the one to read with --column ROLE=NAME/);
   });
   it('a bare fraction mark ("-") is no sign of a strain: not guessed', () => {
     expect(() => parseRecordText('Ch1 [MPa],Ch2 [-]\n' + rows((e, s) => `${s},${e}`), { file: 'dash.csv' })).toThrow(/no strain and stress columns/);
