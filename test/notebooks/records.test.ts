@@ -425,4 +425,33 @@ describe('record bench', () => {
     expect(await page.locator('#cell-properties .sl-error').innerText()).toMatch(/samples 374–376 read 0 in both strain and stress.*\(line 400 of dropped-rows\.csv\)/s);
     expect(errors).toEqual([]);
   });
+  it('46NT71 exported by channel number with an unload–reload loop past yield: read by units and said; no yield drop, the producers\' Rp0.2 and Rm', async () => {
+    // The open record (as above) rewritten as a channel-numbered export, with an INVENTED loop at 0.75 % strain
+    // (unloaded along the producers' slope 201,876 MPa to a tenth of the stress and reloaded).
+    const lines = readFileSync(FIXTURE, 'utf8').split('\n');
+    const head = lines.findIndex((l) => l.startsWith('Time\t'));
+    const out = ['Kanal 1 (MPa),Kanal 2 (%)'];
+    let done = false;
+    for (const l of lines.slice(head + 2)) {
+      if (!l.trim()) continue;
+      const c = l.split('\t'), e = Number(c[4]), st = Number(c[5]);
+      out.push(`${st},${e * 100}`);
+      if (!done && e > 0.0075) {
+        done = true;
+        for (let k = 1; k < 30; k++) { const x = st - (0.9 * st * k) / 29; out.push(`${x},${(e - (st - x) / 201876) * 100}`); }
+        for (let k = 1; k < 30; k++) { const x = 0.1 * st + (0.9 * st * k) / 29; out.push(`${x},${(e - (st - x) / 201876) * 100}`); }
+      }
+    }
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    await dropFile(page, 'kanal-loop.csv', out.join('\n') + '\n');
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('kanal-loop'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expect(await page.locator('.sl-notice').first().innerText()).toMatch(/columns named by channel only, read by their units: "Kanal 1 \(MPa\)" \(column 1\) as the stress, "Kanal 2 \(%\)" \(column 2\) as the strain/);
+    expect(await page.locator('[data-q="upperYield"]').innerText()).toBe('none (continuous yielding)');
+    expectRelClose(await num(page, 'proofStrength'), 1132.33, 0.01, 'Rp0.2');
+    expectRelClose(await num(page, 'tensileStrength'), 1198.73, 0.001, 'Rm');
+    await page.screenshot({ path: `${SCREENSHOTS}/records-kanal-loop.png`, fullPage: true });
+    expect(errors).toEqual([]);
+  });
 });
