@@ -21,13 +21,16 @@ function thin(n: number): number[] {
  * (`furtherTests`) only the first, the one analysed, is drawn. A strain from the machine's travel whose compliance the
  * analysis took out (`machineCompliance`, c) is drawn as analysed, e − s·c, and the axis says so; where its plastic
  * part was also spread over the parallel length (`parallelLengthRatio`, r = L0/Lc), as s/E + (e − s·c − s/E)·r.
+ * A change of the test rate (`rateChange`) is a dashed line labelled with the rate's factor and, where a step of the
+ * flow stress was taken out before the laws were fitted, its size.
  */
 export function recordCurveChart(
   record: { strain: ArrayLike<number>; stress: ArrayLike<number> },
-  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null; furtherTests?: readonly number[]; machineCompliance?: number | null; parallelLengthRatio?: number | null; elasticModulus?: number },
+  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null; furtherTests?: readonly number[]; machineCompliance?: number | null; parallelLengthRatio?: number | null; elasticModulus?: number; rateChange?: { index: number; ratio: number; step: number | null; stressBefore: number; clear: boolean } | null },
   o: { width?: number; height?: number; document?: Document } = {},
 ): SVGSVGElement | HTMLElement {
   const end = analysis.strainChannelEnd ?? null;
+  const rc = analysis.rateChange ?? null;
   // A record that holds several tests: the first, the one analysed (a line on to the next test's start would cross the chart).
   const samples = Math.min(record.strain.length, analysis.furtherTests?.[0] ?? Infinity);
   const idx = thin(end ? end.index : samples);
@@ -52,6 +55,11 @@ export function recordCurveChart(
         Plot.ruleX([end.strain * 100], { stroke: PALETTE.ink, strokeDasharray: '1,3' }),
         Plot.text([end.strain * 100], { x: (d: number) => d, text: () => 'strain ends (extensometer off)', frameAnchor: 'bottom', textAnchor: 'end', dx: -4, dy: -8, fill: PALETTE.ink, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
       ] : []),
+      // A change of the test rate (findRateChange): where, how much, and the step of the flow stress when one was taken out.
+      ...(rc && rc.index < (end ? end.index : samples) ? [
+        Plot.ruleX([at(rc.index).e], { stroke: PALETTE.ink, strokeDasharray: '2,4' }),
+        Plot.text([at(rc.index).e], { x: (d: number) => d, text: () => rateLabel(rc), frameAnchor: 'top', textAnchor: 'start', dx: 4, dy: 10, fill: PALETTE.ink, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
+      ] : []),
       ...(analysis.proofStrength !== null ? [
         Plot.ruleY([analysis.proofStrength], { stroke: PALETTE.elastic, strokeDasharray: '4,3' }),
         Plot.text([analysis.proofStrength], { y: (d: number) => d, text: (d: number) => `Rp0.2 ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: 9, fill: PALETTE.elastic, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
@@ -61,6 +69,14 @@ export function recordCurveChart(
       Plot.text([analysis.tensileStrength], { y: (d: number) => d, text: (d: number) => `Rm ${d.toFixed(0)} MPa`, frameAnchor: 'right', textAnchor: 'end', dx: -24, dy: -9, fill: PALETTE.ductility, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
     ],
   });
+}
+
+/** The rate change's label: `rate ×8.0` (or `rate ÷4.0`), with the step of the flow stress when one was taken out. */
+function rateLabel(rc: { ratio: number; step: number | null; stressBefore: number; clear: boolean }): string {
+  const how = rc.ratio >= 1 ? `rate ×${rc.ratio.toFixed(1)}` : `rate ÷${(1 / rc.ratio).toFixed(1)}`;
+  if (!rc.clear || rc.step === null) return how;
+  const pct = (rc.step / rc.stressBefore) * 100;
+  return `${how}, flow stress ${pct >= 0 ? '+' : '−'}${Math.abs(pct).toFixed(1)} %`;
 }
 
 /** Residuals (fit − data, MPa) of each law against true plastic strain. */

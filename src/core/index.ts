@@ -129,6 +129,8 @@ export { yieldPoint, YIELD_DROP } from './tensile/yieldPoint.js';
 export { recordNoise, recordNoiseWide } from './tensile/recordNoise.js';
 export { forceMaximum } from './tensile/forceMaximum.js';
 export type { ForceMaximum } from './tensile/forceMaximum.js';
+export { findRateChange, rateStep, RATE_CHANGE } from './tensile/rateChange.js';
+export type { RateJump, RateStep } from './tensile/rateChange.js';
 export { extensometerEnd, EXTENSOMETER_END } from './tensile/extensometerEnd.js';
 export type { ExtensometerEnd } from './tensile/extensometerEnd.js';
 export { testStarts, TEST_START } from './tensile/testStarts.js';

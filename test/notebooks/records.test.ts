@@ -454,4 +454,29 @@ describe('record bench', () => {
     await page.screenshot({ path: `${SCREENSHOTS}/records-kanal-loop.png`, fullPage: true });
     expect(errors).toEqual([]);
   });
+  it('46NT71 with an INVENTED rate change (×8 at 1 % strain, the flow stress 2.1 % higher after it): said with its step, marked on the curve chart, Rp0.2 as the producers\' and Rm as recorded', async () => {
+    // The open record (as above) with every 8th sample kept past 1 % strain and the stress there times 8^0.01 (m = 0.01).
+    const lines = readFileSync(FIXTURE, 'utf8').split('\n');
+    const head = lines.findIndex((l) => l.startsWith('Time\t'));
+    const out = ['strain (%),stress (MPa)'];
+    let k = 0;
+    for (const l of lines.slice(head + 2)) {
+      if (!l.trim()) continue;
+      const c = l.split('\t'), e = Number(c[4]), st = Number(c[5]);
+      if (e < 0.01) out.push(`${e * 100},${st}`);
+      else if (k++ % 8 === 0) out.push(`${e * 100},${st * 8 ** 0.01}`);
+    }
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    await dropFile(page, 'rate-change.csv', out.join('\n') + '\n');
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('rate-change'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expect(await page.locator('#cell-properties').innerText()).toMatch(/the strain per sample rises 7\.\d× at 1\.0\d % strain \(sample \d+\) and the flow stress steps up there by 2\d\.\d MPa \(2\.\d %/);
+    expect(await page.locator('#cell-curve-chart').innerText()).toMatch(/rate ×7\.\d, flow stress \+2\.\d %/);
+    // Rp0.2 lies before the change: the producers' 1132.33 MPa. Rm after it, at the later rate: theirs times 8^0.01.
+    expectRelClose(await num(page, 'proofStrength'), 1132.33, 0.01, 'Rp0.2');
+    expectRelClose(await num(page, 'tensileStrength'), 1198.73 * 8 ** 0.01, 0.002, 'Rm');
+    await page.screenshot({ path: `${SCREENSHOTS}/records-rate-change.png`, fullPage: true });
+    expect(errors).toEqual([]);
+  });
 });

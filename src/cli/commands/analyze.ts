@@ -66,6 +66,7 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     toeStrain: a.toeStrain,
     fracture: a.fracture,
     strainChannelEnd: a.strainChannelEnd,
+    rateChange: a.rateChange,
     forceTop: a.forceTop,
     nFit: a.nFit,
     bestLaw: a.fits?.best ?? null,

@@ -14,9 +14,10 @@ import { LAW_NAMES } from '../flow/params.js';
 import { lawUniformElongation } from './lawTop.js';
 import { flowColumns } from './flowColumns.js';
 import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
-import type { TensileAnalysis, TensileData, TensileWarning, UnloadCycle } from './types.js';
+import type { RateChange, TensileAnalysis, TensileData, TensileWarning, UnloadCycle } from './types.js';
 import { yieldPoint } from './yieldPoint.js';
 import { TEST_START, testStarts } from './testStarts.js';
+import { findRateChange, firstAtOrPast, RATE_CHANGE, rateStep } from './rateChange.js';
 
 export interface AnalyzeOptions {
   /** Offset of the proof strength, % (default 0.2 → Rp0.2). */
@@ -409,6 +410,33 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const flow = flowColumns(strain, stress, toe, E, iMax, proof ? toRecord(proof.index) : 0, fromTrue);
   const { strain: fStrain, stress: fStress, logStrain, logStress } = flow;
   const nf = fStrain.length;
+  // A change of the test rate on the plastic part (ISO 6892-1 method A raises it after yield): the flow stress steps
+  // with the rate, and the laws fitted across the step bent to bridge it (an invented ×8 at 1 % on 46NT71: every
+  // law's RMSE 0.7 → 4.5 MPa, "laws disagree"). Where the step is clear of the noise, the flow curve after it is
+  // scaled to the first rate — the lower, safer level — before the n-value and the laws are fitted; Rm, Ag and A
+  // stay as recorded (the standard reads them at the later rate). Searched on the loading alone, from the proof
+  // point (or the end of the yield plateau) to maximum force.
+  const jump = findRateChange(ls, ss, Math.max(proof ? proof.index : 0, yp ? ypView!.endIndex : 0), toView(iMax), E);
+  let rateChange: TensileAnalysis['rateChange'] = null;
+  if (jump) {
+    const at = Math.round(toRecord(jump.index));
+    const e = strain[at]! - toe;
+    const epAt = Math.log1p(e) - (stress[at]! * (1 + e)) / E;
+    const st = nf > 0 && flow.bad < 0 ? rateStep(fStrain, fStress, epAt, noise) : null;
+    const before = st ? st.stressAt / (1 + e) : stress[Math.max(0, at - 1)]!;
+    const step = st ? before * (1 / st.factor - 1) : null;
+    // Taken out only when it goes the way the rate went: the flow stress of metals at room temperature rises with the
+    // rate (m > 0, common practice; the small negative m of some Al–Mg alloys stays below RATE_CHANGE.minStep). A step
+    // against it is the noise or the law's misfit (hold-out A seed 1015: −0.9 % at a ×4 rise, on a curve with no step).
+    const against = !!st && st.clear && step !== null && (step > 0) !== (jump.ratio > 1);
+    const clear = !!st && st.clear && !against;
+    rateChange = {
+      index: at, strain: strain[at]!, ratio: jump.ratio, stressBefore: before, step, stepHalfWidth95: st ? (before * st.halfWidth95) / (st.factor * st.factor) : null, clear,
+      sensitivity: clear && step !== null ? Math.log1p(step / before) / Math.log(jump.ratio) : null, law: st?.law ?? null, flowCurveFactor: clear ? st!.factor : null,
+    };
+    if (clear) scaleFlowAfter(fStrain, fStress, logStress, epAt, st!.factor);
+    warnings.push({ code: 'rateChange', message: rateChangeMessage(rateChange, toe, against) });
+  }
   // ln εp once, for the n-value and every law fit, and the range and first bad point the fits check (all taken
   // in flowColumns' pass: the same operations on the same values as a pass of lawDataLogged; speed follow-up K).
   const packed = nf > 0 ? lawDataRanged(fStrain, fStress, logStrain, flow.lo, flow.hi, flow.bad) : null;
@@ -516,6 +544,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     lowerBounds,
     strainChannelEnd: tail ? { ...tail.end } : null,
     furtherTests: [],
+    rateChange,
     forceTop: force && maxInTail ? { stress: force.top.stress, index: force.top.index, points: force.top.points, method: 'top model of the force against sample number (uniform in time) past the strain channel\'s end, fitted as the top against strain is' } : null,
     nValue: nFit?.n ?? null,
     K: nFit?.K ?? null,
@@ -641,6 +670,27 @@ function withoutCycles(strain: ArrayLike<number>, stress: ArrayLike<number>, cyc
     view[i] = Math.max(0, j);
   }
   return { strain: xs, stress: ys, kept, toView: (i) => view[Math.max(0, Math.min(n - 1, i))]! };
+}
+
+/** Multiplies the flow points from the first at or past true plastic strain `from` on by `factor` (σ, and ln σ by ln factor), in place. */
+function scaleFlowAfter(xs: Float64Array, ys: Float64Array, lys: Float64Array, from: number, factor: number): void {
+  const lf = Math.log(factor);
+  for (let i = firstAtOrPast(xs, from); i < xs.length; i++) { ys[i]! *= factor; lys[i]! += lf; }
+}
+
+/** The `rateChange` warning's words: where, how much faster, the step and what was done with it (`against`: a clear step the other way from the rate's change). */
+function rateChangeMessage(r: RateChange, toe: number, against: boolean): string {
+  const faster = r.ratio >= 1;
+  const jump = faster ? r.ratio : 1 / r.ratio;
+  const where = `the strain per sample ${faster ? 'rises' : 'falls'} ${jump.toFixed(1)}× at ${((r.strain - toe) * 100).toFixed(2)} % strain (sample ${r.index})`;
+  if (r.step === null) return `${where}: a change of the test rate or of the logging rate, too near the end of the uniform part to measure its effect on the flow stress; the flow curve is used as recorded`;
+  const size = `${r.step >= 0 ? '+' : '−'}${Math.abs(r.step).toFixed(1)} MPa, 95 % ±${r.stepHalfWidth95!.toFixed(1)} MPa`;
+  if (against) return `${where} and the flow stress steps ${r.step >= 0 ? 'up' : 'down'} there (${size}), against the change of rate: the flow stress of metals at room temperature rises with the rate, so this is read as the noise or the laws' misfit, not taken out; the flow curve is used as recorded`;
+  if (r.flowCurveFactor === null) return `${where} with no step in the flow stress to take out (${size}; one is taken out when at least ${RATE_CHANGE.clearWidths} times its 95 % half-width and ${RATE_CHANGE.minStep * 100} % of the flow stress): a change of the logging rate, or of the test rate with too small an effect to measure here; the flow curve is used as recorded`;
+  const pct = (r.step / r.stressBefore) * 100;
+  return `${where} and the flow stress steps ${r.step >= 0 ? 'up' : 'down'} there by ${Math.abs(r.step).toFixed(1)} MPa (${Math.abs(pct).toFixed(1)} %, 95 % ±${r.stepHalfWidth95!.toFixed(1)} MPa): the test rate was ${faster ? 'raised (ISO 6892-1 method A allows a higher rate after yield, from memory)' : 'lowered'} and the flow stress followed it` +
+    (r.sensitivity !== null ? ` (a rate sensitivity m ≈ ${r.sensitivity.toFixed(3)} if the samples are uniform in time)` : '') +
+    `. Rm, Ag and A are read as recorded, at the later rate; the n-value and the hardening laws are fitted to the flow curve with its part after the change scaled by ${r.flowCurveFactor.toFixed(4)} to the first rate${faster ? ' (the lower level: the strength a slow test would find after forming)' : ''}. Forming runs faster than either rate: its flow stress and the pass loads are higher by about (forming rate / test rate)^m`;
 }
 
 /** A sample below this fraction of the highest stress, before the first or after the last above it, is of an unloaded specimen (the record's noise leaves those runs out). */

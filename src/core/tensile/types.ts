@@ -1,3 +1,4 @@
+import type { LawName } from '../flow/types.js';
 import type { LawTop } from './lawTop.js';
 import type { ExtensometerEnd } from './extensometerEnd.js';
 import type { LawComparison } from '../fit/fitAllLaws.js';
@@ -10,8 +11,30 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles' | 'strainChannelEnds' | 'unloadedBeforeFracture' | 'glitch' | 'secondTest'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'machineCompliance' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'machineCompliance' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp' | 'rateChange';
   message: string;
+}
+
+/** A change of the test rate on the plastic part of a record (findRateChange, rateStep; warning `rateChange`). */
+export interface RateChange {
+  /** Record index of the first sample at the new rate, and its engineering strain as recorded (fraction). */
+  index: number;
+  strain: number;
+  /** Strain per sample after over before (> 1: faster); with samples uniform in time, the ratio of the rates. */
+  ratio: number;
+  /** Engineering stress just before the change, MPa. */
+  stressBefore: number;
+  /** Step of the engineering stress at the change, MPa, and its 95 % half-width; null when it could not be measured. */
+  step: number | null;
+  stepHalfWidth95: number | null;
+  /** True when the step is clear of its 95 % interval. */
+  clear: boolean;
+  /** Strain-rate sensitivity m = ln(1 + step/stressBefore)/ln(ratio), if the samples are uniform in time; null unless clear. */
+  sensitivity: number | null;
+  /** The law whose shape carried the flow curve across the change to measure the step; null when not measured. */
+  law: LawName | null;
+  /** Factor the flow curve after the change was scaled by before the n-value and the laws were fitted; null when used as recorded. */
+  flowCurveFactor: number | null;
 }
 
 /** How E was found: the least-squares window on the initial loading branch. */
@@ -162,6 +185,12 @@ export interface TensileAnalysis {
    * ascending. The analysis is of the samples before the first of them. Empty for a record of one test.
    */
   furtherTests: number[];
+  /**
+   * A change of the test rate on the plastic part (findRateChange; warning `rateChange`), `index` the record's;
+   * `flowCurveFactor` the factor the flow curve after it was scaled by before the n-value and the laws were fitted
+   * (the step, clear of the noise, taken out to the first rate), null when it was used as recorded. Null when none.
+   */
+  rateChange: RateChange | null;
   /** Rm read from the force alone past the strain channel's end (its top against sample number); null otherwise. `index` is the whole record's. */
   forceTop: { stress: number; index: number; points: number; method: string } | null;
   nValue: number | null;

@@ -14,12 +14,16 @@ export interface HoldoutTruthLike {
   elasticPoints: number;
   /** Signal-to-noise of a recorded drop (matched filter), when the generator gives it. */
   dropEvidence?: number | null;
+  /** The strain rate raised this many times after the yield region (the flow stress not following it); 1 or absent: one rate. */
+  rateRatio?: number;
 }
 export interface HoldoutRecordLike { strain: Float64Array; stress: Float64Array; truth: HoldoutTruthLike; what: string }
 
 export interface HoldoutTally { fails: string[]; count: Record<string, number>; refused: number; drops: number; continuous: number; agWarned: number; rpWarned: number; lowEvidence: number;
   /** Records whose Ag is off by more than the tolerance, warned or not (the raw accuracy, before any acceptance). */
-  agOff: number }
+  agOff: number;
+  /** Records made with a change of rate, and those in which the analysis found it. */
+  rateChanges: number; rateFound: number }
 
 /**
  * Runs the analysis on every hold-out seed of `make` and tallies the misses by property, at issue 12's tolerances
@@ -30,7 +34,7 @@ export interface HoldoutTally { fails: string[]; count: Record<string, number>; 
 export function holdoutTally(make: (seed: number, noiseScale: number) => HoldoutRecordLike, seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
   const fails: string[] = [];
   const count: Record<string, number> = {};
-  let refused = 0, drops = 0, continuous = 0, agWarned = 0, rpWarned = 0, lowEvidence = 0, agOff = 0;
+  let refused = 0, drops = 0, continuous = 0, agWarned = 0, rpWarned = 0, lowEvidence = 0, agOff = 0, rateChanges = 0, rateFound = 0;
   const miss = (k: string, msg: string) => { fails.push(msg); count[k] = (count[k] ?? 0) + 1; };
   for (const seed of seeds) {
     const rec = make(seed, noiseScale);
@@ -96,11 +100,18 @@ export function holdoutTally(make: (seed: number, noiseScale: number) => Holdout
     if (a.warnings.some((w) => w.code === 'glitch')) miss('falseGlitch', `${rec.what}: ${a.warnings.find((w) => w.code === 'glitch')!.message}`);
     // Nor as a file that starts over with a second test (testStarts): every record here is one specimen.
     if (a.warnings.some((w) => w.code === 'secondTest')) miss('falseSecondTest', `${rec.what}: ${a.warnings.find((w) => w.code === 'secondTest')!.message}`);
+    // A change of rate only where the generator made one; and no step of the flow stress there (its m is 0): a step
+    // read from the noise would scale the flow curve the laws and Ag are read from.
+    const rate = rec.truth.rateRatio ?? 1;
+    const said = a.warnings.find((w) => w.code === 'rateChange')?.message;
+    if (a.rateChange !== null && rate === 1) miss('falseRateChange', `${rec.what}: ${said}`);
+    if (a.rateChange !== null && a.rateChange.clear) miss('falseRateStep', `${rec.what}: ${said}`);
+    if (rate > 1) { rateChanges++; if (a.rateChange !== null) rateFound++; }
     const [lo, hi] = a.measuredModulusInterval95;
     const warned = a.warnings.some((w) => w.code === 'fewElasticPoints' || w.code === 'uncertainModulus' || w.code === 'elasticBandFallback');
     if (!(lo <= t.E && t.E <= hi) && !warned && Math.abs(a.elasticModulus / t.E - 1) > 0.05 * tol) miss('quietE', `${rec.what}: E ${a.elasticModulus} off by more than 5 % outside its interval, no warning`);
   }
-  return { fails, count, refused, drops, continuous, agWarned, rpWarned, lowEvidence, agOff };
+  return { fails, count, refused, drops, continuous, agWarned, rpWarned, lowEvidence, agOff, rateChanges, rateFound };
 }
 
 /** Holds every miss count at or below its ceiling (0 where none is named), listing the misses on failure. */

@@ -24,6 +24,8 @@ export interface HoldoutBTruth {
   serration: number;
   /** Samples on the rise below 0.9 of the yield stress (the elastic line). */
   elasticPoints: number;
+  /** The strain rate after the yield region over that before it (sampling uniform in time); the flow stress does not follow it (m = 0). */
+  rateRatio: number;
 }
 
 export interface HoldoutBRecord { strain: Float64Array; stress: Float64Array; truth: HoldoutBTruth; what: string }
@@ -220,6 +222,7 @@ export function holdoutBRecord(seed: number, noiseScale = 1): HoldoutBRecord {
     aePct: recorded ? (lud.eL - eTop) * 100 : null,
     serration: serrMax,
     elasticPoints,
+    rateRatio: kRate,
   };
   const what = `holdout-b ${seed}: ${f.name}, ${total} points (rate ×${kRate} after ${(yieldEnd * 100).toFixed(2)} %), noise ${kind} ${(sn / rm * 100).toFixed(2)} % Rm window ${win}, strain step ${qStrain}, toe ${xt.toExponential(1)}${f.drop ? `, drop ${((lud.reH / lud.reL - 1) * 100).toFixed(1)} % slope ${(lud.slope * 100).toFixed(2)} % serration ${(lud.amp * 100).toFixed(2)} % round ${lud.round.toFixed(2)}${recorded ? '' : ' (peak not caught)'}` : ''}, fracture fall ${fallN}, trailing ${trailing}`;
   return { strain, stress, truth, what };

@@ -50,13 +50,13 @@ const AG_OFF_NOISY = 20, AG_OFF_CLEAN = 5;
 describe('record analysis on 200 hold-out B INVENTED records (a second generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point)", () => {
     const r = holdoutTally(holdoutBRecord, SEEDS);
-    console.log(`hold-out B, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, Rp warned ${r.rpWarned}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out B, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, Rp warned ${r.rpWarned}, rate changes found ${r.rateFound} of ${r.rateChanges}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_NOISY);
     expect(r.agOff).toBeLessThanOrEqual(AG_OFF_NOISY);
   }, 180_000);
   it('noise-free: a quarter of those tolerances', () => {
     const r = holdoutTally(holdoutBRecord, SEEDS, 0, 0.25);
-    console.log(`hold-out B, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out B, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}, rate changes found ${r.rateFound} of ${r.rateChanges}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_CLEAN);
     expect(r.agOff).toBeLessThanOrEqual(AG_OFF_CLEAN);
   }, 180_000);

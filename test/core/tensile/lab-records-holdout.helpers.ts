@@ -29,6 +29,8 @@ export interface HoldoutTruth {
    * ratio lower still, so this overstates it (acceptances are rarer). Null without a recorded drop.
    */
   dropEvidence: number | null;
+  /** The strain rate after the switch over that before it (sampling uniform in time); the flow stress does not follow it (m = 0). */
+  rateRatio: number;
 }
 
 export interface HoldoutRecord { strain: Float64Array; stress: Float64Array; truth: HoldoutTruth; what: string }
@@ -198,6 +200,7 @@ export function holdoutRecord(seed: number, noiseScale = 1): HoldoutRecord {
     aePct: recorded ? (eL - eH) * 100 : null,
     serration: serrMax,
     elasticPoints,
+    rateRatio: kRate,
     dropEvidence: recorded && noiseScale > 0 ? Math.sqrt(ev) / (noiseScale * Math.sqrt(sn * sn + (quant * quant) / 12)) : null,
   };
   const what = `holdout ${seed}: ${law.name}, E ${E.toFixed(0)}, ${total} points (rate ×${kRate} after ${xSwitch.toFixed(4)}), noise ${(sn / rm0 * 100).toFixed(2)} % Rm ρ ${rho.toFixed(2)} quant ${quant.toFixed(2)} MPa, extensometer sd ${sx.toExponential(1)}, toe ${x0.toExponential(1)}${drop ? `, drop ${(dropFrac * 100).toFixed(1)} % Lüders ${(luders * 100).toFixed(2)} % serration ${(amp * 100).toFixed(2)} % undershoot ${(undershoot * 100).toFixed(1)} %${recorded ? '' : ' (peak not caught)'}` : ''}, trailing ${trailing}`;

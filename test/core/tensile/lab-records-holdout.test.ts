@@ -53,7 +53,7 @@ const CEILINGS_CLEAN: Record<string, number> = {};
 describe('record analysis on 200 hold-out INVENTED records (a generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point)", () => {
     const r = holdoutTally(holdoutRecord, SEEDS);
-    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, drops not found with evidence < 6: ${r.lowEvidence}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, drops not found with evidence < 6: ${r.lowEvidence}; rate changes found ${r.rateFound} of ${r.rateChanges}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_NOISY);
     expect(r.agOff).toBeLessThanOrEqual(AG_OFF_NOISY);
     // Drops too weak for any test to find reliably (evidence below 6: seeds 1128 at 2.6 and 1059 at 5.5 when this was
@@ -62,7 +62,7 @@ describe('record analysis on 200 hold-out INVENTED records (a generator the anal
   }, 180_000);
   it('noise-free: a quarter of those tolerances (the estimators are unbiased on clean data)', () => {
     const r = holdoutTally(holdoutRecord, SEEDS, 0, 0.25);
-    console.log(`hold-out, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}, rate changes found ${r.rateFound} of ${r.rateChanges}\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_CLEAN);
     expect(r.agOff).toBe(0);
   }, 180_000);
