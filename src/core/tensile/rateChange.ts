@@ -121,7 +121,7 @@ export interface RateStep {
  *    fit's residual sum of squares S(f) within [1 − range, 1 + range] by successive parabolas (Press et al.,
  *    *Numerical Recipes*, 3rd ed., §10.3), the law refitted at each f from the last fit, for each of
  *    RATE_CHANGE.laws; the one with the lower RMSE gives f. Straight lines or parabolas fitted next to the change
- *    alone mistook the bend of the curve near yield for a step on coarse records (46NTA3 with a ×5 change and no step:
+ *    alone mistook the bend of the curve near yield for a step on coarse records (46NT71 with a ×5 change and no step:
  *    +0.8 %).
  * 2. its 95 % half-width, three parts in quadrature: S's curvature at f (profile least squares with one parameter,
  *    S(f) − S(f̂) = t²·s², s² = S/(n − k − 1); Bates & Watts, *Nonlinear Regression Analysis*, §6.1, from memory),
