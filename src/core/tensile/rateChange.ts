@@ -211,7 +211,7 @@ export function rateStep(flowStrain: ArrayLike<number>, flowStress: ArrayLike<nu
   for (let i = 0; i < n; i++) res[i] = cur[i]! - L(xs[i]!);
   const local = stepFit(xs, res, i0, nb, nb, j1, from, noise / Math.sqrt(size));
   if (!local) return null;
-  const before = L(from) / best.f > 0 ? (L(from) + local.before) : NaN;
+  const before = L(from) + local.before; // the flow stress just before the change, from the law and the local fit
   if (!(before > 0)) return null;
   const factor = best.f;
   const hwLocal = (factor * studentTQuantile(0.975, local.dof) * local.se) / before;
