@@ -1,7 +1,7 @@
 // The cost of the rate change's step (rateStep) on an INVENTED 100,000-sample record with a ×8 change at 1.2 % strain
 // (every 8th sample kept past it, the stress there × 8^0.01), and analyzeRecord on it and on the record without it.
 // Run: npm run build && node bench/rate-step.mjs
-import { synthesizeLabRecord, xoshiro128ss, analyzeRecord } from '../dist/core/index.js';
+import { analyzeRecord, rateStep, synthesizeLabRecord, xoshiro128ss } from '../dist/core/index.js';
 const lab = synthesizeLabRecord({ law: { law: 'swift', K: 600, eps0: 0.01, n: 0.22 }, elasticModulus: 205000, points: 100000, noise: 1.5, rng: xoshiro128ss(7) });
 const at = 0.012;
 const e = [], s = []; let k = 0;
@@ -15,7 +15,6 @@ for (const [name, r] of [['plain', plain], ['changed', changed]]) {
   const a = analyzeRecord(r, {});
   console.log(name, r.strain.length, 'points: median', t[2].toFixed(0), 'ms', a.rateChange ? `step ${(a.rateChange.step / a.rateChange.stressBefore * 100).toFixed(2)} ± ${(a.rateChange.stepHalfWidth95 / a.rateChange.stressBefore * 100).toFixed(2)} %` : '');
 }
-import { rateStep } from '../dist/core/index.js';
 {
   const a = analyzeRecord(changed, {});
   const fs = Float64Array.from(a.flowCurve.strain), fy = Float64Array.from(a.flowCurve.stress);
