@@ -222,7 +222,8 @@ nb.cell({ name: 'input', fn: () => null })
       // Lower bounds (the test stopped before maximum force, or the strain channel ended before fracture): ≥.
       const lower = (k: TensileAnalysis['lowerBounds'][number]) => (a.lowerBounds.includes(k) ? { prefix: '≥' } : {});
       const stopped = a.lowerBounds.includes('tensileStrength');
-      const continuous = 'none (continuous yielding)';
+      // A plateau without a peak clear of the noise is not continuous yielding: say what it is (yieldPlateau).
+      const continuous = a.yieldPlateau ? 'none clear of the noise (yield plateau, see below)' : 'none (continuous yielding)';
       return h('div', {},
         h('dl', { class: 'sl-quantities', id: 'properties' },
           q(`Rp${a.proofOffsetPct}`, a.proofStrength, DIGITS.stress, 'MPa', 'proofStrength', { none: 'not reached' }),

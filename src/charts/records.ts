@@ -22,15 +22,17 @@ function thin(n: number): number[] {
  * analysis took out (`machineCompliance`, c) is drawn as analysed, e − s·c, and the axis says so; where its plastic
  * part was also spread over the parallel length (`parallelLengthRatio`, r = L0/Lc), as s/E + (e − s·c − s/E)·r.
  * A change of the test rate (`rateChange`) is a dashed line labelled with the rate's factor and, where a step of the
- * flow stress was taken out before the laws were fitted, its size.
+ * flow stress was taken out before the laws were fitted, its size. The end of a yield plateau whose drop was not
+ * reported (`yieldPlateau`), where the laws' flow curve starts, is a dashed line that says so.
  */
 export function recordCurveChart(
   record: { strain: ArrayLike<number>; stress: ArrayLike<number> },
-  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null; furtherTests?: readonly number[]; machineCompliance?: number | null; parallelLengthRatio?: number | null; elasticModulus?: number; rateChange?: { index: number; ratio: number; step: number | null; stressBefore: number; clear: boolean } | null },
+  analysis: { elasticWindow: { fromIndex: number; toIndex: number }; proofStrength: number | null; tensileStrength: number; strainChannelEnd?: { index: number; strain: number } | null; furtherTests?: readonly number[]; machineCompliance?: number | null; parallelLengthRatio?: number | null; elasticModulus?: number; rateChange?: { index: number; ratio: number; step: number | null; stressBefore: number; clear: boolean } | null; yieldPlateau?: { endIndex: number } | null },
   o: { width?: number; height?: number; document?: Document } = {},
 ): SVGSVGElement | HTMLElement {
   const end = analysis.strainChannelEnd ?? null;
   const rc = analysis.rateChange ?? null;
+  const pl = analysis.yieldPlateau ?? null;
   // A record that holds several tests: the first, the one analysed (a line on to the next test's start would cross the chart).
   const samples = Math.min(record.strain.length, analysis.furtherTests?.[0] ?? Infinity);
   const idx = thin(end ? end.index : samples);
@@ -59,6 +61,11 @@ export function recordCurveChart(
       ...(rc && rc.index < (end ? end.index : samples) ? [
         Plot.ruleX([at(rc.index).e], { stroke: PALETTE.ink, strokeDasharray: '2,4' }),
         Plot.text([at(rc.index).e], { x: (d: number) => d, text: () => rateLabel(rc), frameAnchor: 'top', textAnchor: 'start', dx: 4, dy: 10, fill: PALETTE.ink, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
+      ] : []),
+      // A yield plateau without a reported drop (yieldPlateau): the laws are fitted from its end.
+      ...(pl && pl.endIndex < (end ? end.index : samples) ? [
+        Plot.ruleX([at(pl.endIndex).e], { stroke: PALETTE.ink, strokeDasharray: '2,4' }),
+        Plot.text([at(pl.endIndex).e], { x: (d: number) => d, text: () => 'yield plateau ends: laws fitted from here', frameAnchor: 'bottom', textAnchor: 'start', dx: 4, dy: -24, fill: PALETTE.ink, stroke: 'white', strokeWidth: 3, paintOrder: 'stroke' }),
       ] : []),
       ...(analysis.proofStrength !== null ? [
         Plot.ruleY([analysis.proofStrength], { stroke: PALETTE.elastic, strokeDasharray: '4,3' }),

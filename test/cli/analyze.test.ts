@@ -64,6 +64,22 @@ describe('strainledger analyze RECORD --format json', () => {
     const k = JSON.parse(run('analyze', file, '--format', 'json').stdout);
     expect(Math.abs(k.uniformElongationPct - rec.truth.uniformElongationPct)).toBeLessThan(0.1);
   });
+  it('an INVENTED steel record with a Lüders plateau and no peak clear of its noise: the table says so, the JSON gives yieldPlateau, ReH null', () => {
+    // As test/core/tensile/yield-plateau.test.ts: Swift past a 2 % plateau, a drop of 0.4 % under noise of 0.6 % of Rm.
+    const rec = synthesizeLabRecord({ law: { law: 'swift', K: 760, eps0: 0.012, n: 0.21 }, elasticModulus: 205000, points: 4000, noise: 0.006 * 480, rng: xoshiro128ss(31), yieldDrop: { drop: 0.004, luedersStrain: 0.02, serration: 0.003, serrationPeriod: 0.001 } });
+    const file = join(dir, 'invented-plateau.csv');
+    writeFileSync(file, 'strain,stress_MPa\n' + Array.from(rec.strain, (e, i) => `${e},${rec.stress[i]}`).join('\n') + '\n');
+    const t = run('analyze', file);
+    expect(t.status).toBe(0);
+    expect(t.stdout).toMatch(/^ {2}ReH {10}none clear of the noise; yield plateau at 3\d\d\.\d MPa from 0\.\d\d to 2\.\d\d % \(laws fitted from its end\)$/m);
+    const j = JSON.parse(run('analyze', file, '--format', 'json').stdout);
+    expect(j.upperYield).toBeNull();
+    expect(j.yieldPlateau.endStrain).toBeGreaterThan(0.018);
+    expect(j.yieldPlateau.endStrain).toBeLessThan(0.026);
+    expect(j.warnings.some((w: { code: string }) => w.code === 'yieldPlateau')).toBe(true);
+    // The continuous open record: no plateau.
+    expect(JSON.parse(run('analyze', join(FIX, '46NT9B.csv'), '--format', 'json').stdout).yieldPlateau).toBeNull();
+  });
   it('table: a continuous record says "none (continuous yielding)"; a record cut before maximum force marks Rm, Ag and A as lower bounds', () => {
     const full = run('analyze', join(FIX, '46NT9B.csv'));
     expect(full.status).toBe(0);

@@ -2,7 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { synthesizeRecord, xoshiro128ss } from '../../src/core/index.js';
+import { synthesizeLabRecord, synthesizeRecord, xoshiro128ss } from '../../src/core/index.js';
 import { expectRelClose } from '../helpers.js';
 import { openPage, settled, startHarness, REPO, SCREENSHOTS, type Harness } from './browser.js';
 
@@ -477,6 +477,22 @@ describe('record bench', () => {
     expectRelClose(await num(page, 'proofStrength'), 1132.33, 0.01, 'Rp0.2');
     expectRelClose(await num(page, 'tensileStrength'), 1198.73 * 8 ** 0.01, 0.002, 'Rm');
     await page.screenshot({ path: `${SCREENSHOTS}/records-rate-change.png`, fullPage: true });
+    expect(errors).toEqual([]);
+  });
+  it('an INVENTED steel record with a Lüders plateau and no upper yield point clear of its noise: the plateau said, no ReH, the laws fitted from its end', async () => {
+    // As in test/core/tensile/yield-plateau.test.ts: Swift past a 2 % plateau, a drop of 0.4 % under noise of 0.6 % of Rm.
+    const rec = synthesizeLabRecord({ law: { law: 'swift', K: 760, eps0: 0.012, n: 0.21 }, elasticModulus: 205000, points: 4000, noise: 0.006 * 480, rng: xoshiro128ss(31), yieldDrop: { drop: 0.004, luedersStrain: 0.02, serration: 0.003, serrationPeriod: 0.001 } });
+    const out = ['strain (%),stress (MPa)'];
+    for (let i = 0; i < rec.strain.length; i++) out.push(`${(rec.strain[i]! * 100).toFixed(5)},${rec.stress[i]!.toFixed(2)}`);
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    await dropFile(page, 'plateau-steel.csv', out.join('\n') + '\n');
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('plateau-steel'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    expect(await page.locator('[data-q="upperYield"]').innerText()).toBe('none clear of the noise (yield plateau, see below)');
+    expect(await page.locator('#cell-curve-chart').innerText()).toContain('yield plateau ends: laws fitted from here');
+    expect(await page.locator('#cell-properties').innerText()).toMatch(/yields at about constant force \(\d+\.\d MPa over [12]\.\d\d % strain.*no upper yield point.*ReH, ReL and Ae are not reported/s);
+    await page.screenshot({ path: `${SCREENSHOTS}/records-yield-plateau.png`, fullPage: true });
     expect(errors).toEqual([]);
   });
 });

@@ -67,6 +67,7 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     fracture: a.fracture,
     strainChannelEnd: a.strainChannelEnd,
     rateChange: a.rateChange,
+    yieldPlateau: a.yieldPlateau,
     forceTop: a.forceTop,
     nFit: a.nFit,
     bestLaw: a.fits?.best ?? null,
@@ -118,6 +119,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   lines.push(`  noise        ${a.noise.toPrecision(2)} MPa (estimated from the record)`);
   lines.push(`  Rp${a.proofOffsetPct}        ${fmt(a.proofStrength)} MPa   Rp0.5 ${fmt(a.proofStrengths[1]?.stress)}   Rp1 ${fmt(a.proofStrengths[2]?.stress)}   Rt0.5 ${fmt(a.totalExtensionStrength)}`);
   if (a.upperYield !== null) lines.push(`  ReH / ReL    ${fmt(a.upperYield)} / ${fmt(a.lowerYield)} MPa   Ae ${fmt(a.yieldPointElongationPct, 2)} %`);
+  else if (a.yieldPlateau) lines.push(`  ReH          none clear of the noise; yield plateau at ${fmt(a.yieldPlateau.level)} MPa from ${fmt(a.yieldPlateau.startStrain * 100, 2)} to ${fmt(a.yieldPlateau.endStrain * 100, 2)} % (laws fitted from its end)`);
   else lines.push('  ReH          none (continuous yielding)');
   // Lower bounds (a record that stops before maximum force, or whose strain channel ends before fracture) are
   // marked ≥ (the warning below says why).

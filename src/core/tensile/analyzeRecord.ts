@@ -15,7 +15,7 @@ import { lawUniformElongation } from './lawTop.js';
 import { flowColumns } from './flowColumns.js';
 import { plateauProofStrength, proofStrength, totalExtensionStrength } from './proofStrength.js';
 import type { RateChange, TensileAnalysis, TensileData, TensileWarning, UnloadCycle } from './types.js';
-import { yieldPoint } from './yieldPoint.js';
+import { yieldPlateau, yieldPoint } from './yieldPoint.js';
 import { TEST_START, testStarts } from './testStarts.js';
 import { findRateChange, firstAtOrPast, RATE_CHANGE, rateStep } from './rateChange.js';
 
@@ -299,6 +299,11 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const fi = detected ? fall : N - 1;
   const ypView = yieldPoint(ls, ss, E, toe, toView(el.window.fromIndex), toView(fi), noise);
   const yp = ypView && loading ? { ...ypView, peakIndex: loading.kept[ypView.peakIndex]!, plateauFrom: loading.kept[ypView.plateauFrom]!, endIndex: loading.kept[ypView.endIndex]! } : ypView;
+  // A yield plateau with no upper yield point clear of the noise (a coarse or noisy record that missed the peak):
+  // ReH, ReL and Ae are not reported, but the flow curve the laws are fitted to starts at its end (yieldPlateau).
+  const plView = ypView ? null : yieldPlateau(ls, ss, E, toe, toView(el.window.fromIndex), toView(fi), noise);
+  const plateau = plView && loading ? { ...plView, startIndex: loading.kept[plView.startIndex]!, endIndex: loading.kept[plView.endIndex]! } : plView;
+  if (plateau) warnings.push({ code: 'yieldPlateau', message: `the record yields at about constant force (${plateau.level.toFixed(1)} MPa over ${plateau.lengthPct.toFixed(2)} % strain, from ${((strain[plateau.startIndex]! - toe) * 100).toFixed(2)} to ${((strain[plateau.endIndex]! - toe) * 100).toFixed(2)} %) with no upper yield point the record shows clear of its noise: ReH, ReL and Ae are not reported; the n-value and the hardening laws are fitted from the plateau's end` });
   if (yp && (yp.upperYieldRange[1] - yp.upperYieldRange[0]) / 2 > UNCERTAIN_REH * yp.upperYield) warnings.push({ code: 'uncertainReH', message: `ReH ${yp.upperYield.toFixed(1)} MPa is uncertain: the peak falls between samples or within the noise, so the record supports ReH anywhere from ${yp.upperYieldRange[0].toFixed(1)} to ${yp.upperYieldRange[1].toFixed(1)} MPa` });
   // A proof point on a yield plateau is read from the plateau (serrations handled: plateauProofStrength).
   let proofRange: [number, number] | null = null;
@@ -403,7 +408,8 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const aRead = (strain[fi]! - toe - sF / E) * 100;
 
   // Flow curve: monotone envelope (cycles left out), from the end of yield effects to Fm.
-  const fromTrue = yp ? Math.log1p(strain[yp.endIndex]! - toe) - (stress[yp.endIndex]! * (1 + strain[yp.endIndex]! - toe)) / E : ANALYZE_DEFAULTS.flowCurveFrom;
+  const flowStart = yp ? yp.endIndex : plateau ? plateau.endIndex : -1;
+  const fromTrue = flowStart >= 0 ? Math.log1p(strain[flowStart]! - toe) - (stress[flowStart]! * (1 + strain[flowStart]! - toe)) / E : ANALYZE_DEFAULTS.flowCurveFrom;
   // The flow curve in one pass (ln(1 + e) only for the points of the envelope), into arrays sized
   // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
   // true curve that `analyze` never prints were a tenth of the command (bench/RESULTS.md, issue 12 D).
@@ -416,7 +422,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // scaled to the first rate — the lower, safer level — before the n-value and the laws are fitted; Rm, Ag and A
   // stay as recorded (the standard reads them at the later rate). Searched on the loading alone, from the proof
   // point (or the end of the yield plateau) to maximum force.
-  const jump = findRateChange(ls, ss, Math.max(proof ? proof.index : 0, yp ? ypView!.endIndex : 0), toView(iMax), E);
+  const jump = findRateChange(ls, ss, Math.max(proof ? proof.index : 0, yp ? ypView!.endIndex : 0, plView ? plView.endIndex : 0), toView(iMax), E);
   let rateChange: TensileAnalysis['rateChange'] = null;
   if (jump) {
     const at = Math.round(toRecord(jump.index));
@@ -489,12 +495,17 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     if (!six) {
       try { six = fitAllLaws(fStrain, fStress, { packed }).fits; } catch { six = null; }
     }
-    if (six) agLaws = lawUniformElongation(six, E, agCi);
+    // Gated by the top model's 99.9 % interval (LAW_GATE_CHI2): only where the samples near the top clearly rule it out.
+    const g = fm.strainInterval999;
+    if (six) agLaws = lawUniformElongation(six, E, [(g[0] - toe - fm.stress / E) * 100, (g[1] - toe - fm.stress / E) * 100]);
   }
   const byLaws = agLaws?.pct ?? null;
   // Maximum force after the strain channel's end: Ag and Agt at least the plastic and total strain of its last sample.
   const Ag = maxInTail ? (strain[N - 1]! - toe - stress[N - 1]! / E) * 100 : byLaws ?? agTop;
   const Agt = maxInTail ? (strain[N - 1]! - toe) * 100 : Ag + (Rm / E) * 100;
+  // The laws' Ag may lie outside the top model's 95 % interval (inside its 99.9 % one): the two readings disagree and
+  // either may be right, so the interval reported holds both.
+  if (byLaws !== null && !maxInTail) { agCi[0] = Math.min(agCi[0], Ag); agCi[1] = Math.max(agCi[1], Ag); }
   // The travel spread over Lc: past maximum force the plastic travel goes into the neck inside L0 (spreadOverParallelLength).
   const A = lengthRatio !== null ? Ag + (aRead - Ag) / lengthRatio : aRead;
   const agWarnings: TensileWarning[] = [];
@@ -519,7 +530,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     machineCompliance: compliance,
     parallelLengthRatio: lengthRatio,
     noise,
-    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, topModelUniformElongationPct: agTop, lawUniformElongation: agLaws, method: (byLaws !== null ? 'Ag where the hardening laws fitted to the uniform part of the curve reach maximum engineering stress (Considère with the elastic strain counted), Akaike-weighted over the laws whose maximum lies inside the 95 % interval of the top model below; ' : '') + 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at the Akaike-weighted vertex of this kinked top and a smooth one (one curvature both sides), or at the middle of a top flat within the noise' },
+    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, topModelUniformElongationPct: agTop, lawUniformElongation: agLaws, method: (byLaws !== null ? 'Ag where the hardening laws fitted to the uniform part of the curve reach maximum engineering stress (Considère with the elastic strain counted), Akaike-weighted over the laws whose maximum lies inside the 99.9 % interval of the top model below (the 95 % interval given is the top model\'s, widened to hold that Ag); ' : '') + 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at the Akaike-weighted vertex of this kinked top and a smooth one (one curvature both sides), or at the middle of a top flat within the noise' },
     elasticWindow: el.window,
     toeStrain: toe,
     proofStrength: proof?.stress ?? null,
@@ -545,6 +556,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     strainChannelEnd: tail ? { ...tail.end } : null,
     furtherTests: [],
     rateChange,
+    yieldPlateau: plateau ? { level: plateau.level, startStrain: strain[plateau.startIndex]! - toe, endStrain: strain[plateau.endIndex]! - toe, startIndex: plateau.startIndex, endIndex: plateau.endIndex } : null,
     forceTop: force && maxInTail ? { stress: force.top.stress, index: force.top.index, points: force.top.points, method: 'top model of the force against sample number (uniform in time) past the strain channel\'s end, fitted as the top against strain is' } : null,
     nValue: nFit?.n ?? null,
     K: nFit?.K ?? null,

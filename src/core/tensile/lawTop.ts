@@ -29,7 +29,7 @@ export function lawTopPlasticStrain(law: { stress(e: number): number; slope(e: n
 /** What {@link lawUniformElongation} found. */
 export interface LawTop {
   /**
-   * Ag, %: the Akaike-weighted mean of the Ag of the laws whose Ag lies inside the top model's interval;
+   * Ag, %: the Akaike-weighted mean of the Ag of the laws whose Ag lies inside `interval` (the top model's 99.9 % one);
    * null when those laws hold less than LAW_TOP_MIN_WEIGHT of the weight (the top model's Ag is reported).
    */
   pct: number | null;
@@ -46,8 +46,8 @@ export const LAW_TOP_MIN_WEIGHT = 0.5;
  * ({@link lawTopPlasticStrain}) read as e − s/E with e = exp(εp + σ/E) − 1 and s = σ/(1 + e). A law uses
  * the whole uniform part of the curve, so on a flat noisy top it places maximum force far more tightly
  * than the few samples near the top do, but only if it describes the curve up there. So a law counts only
- * when its Ag lies inside `interval` (the local top model's 95 % interval: where the data near the top
- * allow maximum force to be), the laws inside must together hold at least LAW_TOP_MIN_WEIGHT of the
+ * when its Ag lies inside `interval` (the local top model's 99.9 % interval, LAW_GATE_CHI2: where the data near
+ * the top do not clearly rule maximum force out), the laws inside must together hold at least LAW_TOP_MIN_WEIGHT of the
  * Akaike weights exp(−ΔAIC/2) of all converged laws (Burnham & Anderson, *Model Selection and Multimodel
  * Inference*, 2002, §2.9), and their Ag is averaged with those weights. Otherwise `pct` is null (the caller
  * keeps the top model's Ag): on the open 42CrMoS4 records every law puts maximum force above the top's

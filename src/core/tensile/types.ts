@@ -11,7 +11,7 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles' | 'strainChannelEnds' | 'unloadedBeforeFracture' | 'glitch' | 'secondTest'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'machineCompliance' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp' | 'rateChange';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'machineCompliance' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp' | 'rateChange' | 'yieldPlateau';
   message: string;
 }
 
@@ -134,13 +134,16 @@ export interface TensileAnalysis {
   /** How Rm and Ag were read: the local parabola around the top (samples, strain span, flat top). */
   forceMaximum: {
     points: number; span: [number, number]; flat: boolean; method: string;
-    /** 95 % interval of Ag, % (profile of the top fit over the position of maximum force; see `forceMaximum`). */
+    /**
+     * 95 % interval of Ag, % (profile of the top fit over the position of maximum force; see `forceMaximum`), widened
+     * to hold the laws' Ag where that is reported and lies outside it.
+     */
     uniformElongationInterval95: [number, number];
     /** Ag of the local top model alone, % (the reported Ag where no law applies). */
     topModelUniformElongationPct: number;
     /**
      * Ag from the six hardening laws fitted to the flow curve (lawUniformElongation): each law's own Ag, Akaike
-     * weight and whether it lies inside the interval above, and their weighted mean over those inside (the
+     * weight and whether it lies inside the top fit's 99.9 % interval (`LAW_GATE_CHI2`), and their weighted mean over those inside (the
      * reported Ag; null when they hold less than half the weight); null where the record ends before maximum
      * force or no law was fitted.
      */
@@ -191,6 +194,13 @@ export interface TensileAnalysis {
    * (the step, clear of the noise, taken out to the first rate), null when it was used as recorded. Null when none.
    */
   rateChange: RateChange | null;
+  /**
+   * A yield plateau with no upper yield point clear of the noise (yieldPlateau; warning `yieldPlateau`): its level
+   * (MPa), its start and end as engineering strain, toe removed (fraction), and as the record's sample indices. The
+   * flow curve, the n-value and the laws start at its end; ReH, ReL and Ae stay null. Null when there is none or the
+   * drop was reported.
+   */
+  yieldPlateau: { level: number; startStrain: number; endStrain: number; startIndex: number; endIndex: number } | null;
   /** Rm read from the force alone past the strain channel's end (its top against sample number); null otherwise. `index` is the whole record's. */
   forceTop: { stress: number; index: number; points: number; method: string } | null;
   nValue: number | null;

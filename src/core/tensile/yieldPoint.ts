@@ -75,29 +75,7 @@ export function yieldPoint(
   strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, fromIndex: number, maxIndex: number, noise: number,
 ): YieldPointResult | null {
   const Y = YIELD_DROP;
-  // Departure from the elastic line. The line starts as σ = E(e − e0); a modulus a few per cent off (few
-  // elastic samples, or a band that reached into the knee) makes the line leave the data early, so the line is
-  // refitted through the rising samples before the departure found (above a fifth of the stress there) and
-  // the search repeated, until the departure stays put (at most 4 rounds).
-  let lineA = -E * toe, lineB = E;
-  // The line is known only to about σ̂·√(4/k) at the end of the k samples it rests on (prediction error just
-  // past a least-squares line's range): the departure tolerance includes it, so a good sample at the peak of
-  // a short rise is not taken for the fall.
-  let lineFrom = fromIndex;
-  const depart = (start: number) => departure(strain, stress, lineA, lineB, lineFrom, Y.departSigmas * noise, start, maxIndex);
-  let d = depart(fromIndex);
-  for (let round = 0; round < 4 && d > 0; round++) {
-    let a = d;
-    while (a > fromIndex && stress[a - 1]! >= 0.2 * stress[d - 1]! && stress[a - 1]! <= stress[a]! + 3 * noise) a--;
-    if (d - a < 3) break;
-    let f;
-    try { f = linearFit(strain, stress, a, d); } catch { break; }
-    if (!(f.slope > 0)) break;
-    lineA = f.intercept; lineB = f.slope; lineFrom = a;
-    const nd = depart(a);
-    if (nd === d || nd < 1) break;
-    d = nd;
-  }
+  const d = elasticDeparture(strain, stress, E, toe, fromIndex, maxIndex, noise);
   if (d < 1) return null;
   // Maximum force after the departure (ISO 6892-1: Fm after work hardening begins) bounds the plateau.
   // The search starts where the fall after the departure ends (the first sample that does not fall further
@@ -241,51 +219,94 @@ export function yieldPoint(
   // step) must fit the samples clearly better than one that starts on it (a hinge, as a continuous curve bends at
   // its knee) — by more than 5² noise variances of the residual sum (common practice for a change-point test).
   if (rise && !isStepDown(strain, stress, rise.a, rise.b, Math.max(k0, q - 50), pEnd, Math.max(k0 + 1, q - 10), Math.min(pEnd - 3, Math.max(d, lastUpper) + 10), noise, q, lastUpper)) return null;
-  // Smoothed plateau from the departure to maximum force.
-  const to = Math.max(d + 1, maxIndex + 1);
-  const wNoise = Math.ceil(((noise / (0.0015 * level)) ** 2));
-  // Rough plateau length for the cap: points until the raw stress first passes level + 5 %.
-  let rough = r0;
-  while (rough < maxIndex && !(stress[rough]! >= 1.05 * level && (rough + 1 > maxIndex || stress[rough + 1]! >= 1.05 * level) && (rough + 2 > maxIndex || stress[rough + 2]! >= 1.05 * level))) rough++;
-  const cap = Math.max(1, Math.floor((rough - r0) / 6));
-  const w1 = Math.max(1, Math.min(wNoise, cap)) | 1;
-  // The window is sized from the scatter of the plateau about a first smooth (noise and serrations too fast
-  // for that smooth), so the smoothed plateau's own scatter is about 0.15 % of the level.
-  let scatter = noise;
-  if (w1 > 1 && rough - r0 >= 10) {
-    const ma1 = movingAverage(stress, r0, rough, w1);
-    let v = 0;
-    for (let i = r0; i < rough; i++) v += (stress[i]! - ma1[i - r0]!) ** 2;
-    scatter = Math.max(noise, Math.sqrt((v / (rough - r0)) * (w1 / (w1 - 1))));
-  }
-  const w = Math.max(1, Math.min(Math.ceil((scatter / (0.0015 * level)) ** 2), cap)) | 1;
-  const ma = movingAverage(stress, d, to, w);
-  const band = Math.max((3 * scatter) / Math.sqrt(w), Y.plateauBand * level);
-  let s0 = 0;
-  while (s0 < ma.length - 1 && ma[s0]! > level + band) s0++;
-  let endRel = s0;
-  for (let k = s0; k < ma.length; k++) if (ma[k]! <= level + band) endRel = k;
-  const end = d + endRel;
-  // ReL (ISO 6892-1 §3.10.2.2: the lowest stress during yielding, the initial transient ignored). The initial
-  // transient is the fall and the first trough after it: it ends where the smoothed plateau first rises back
-  // above its median after reaching it (ISO 6892-1 practice, from memory: the first minimum is ignored).
-  const r0Rel = Math.max(0, r0 - d);
-  let up = Math.max(r0Rel, s0);
-  while (up < endRel && ma[up]! <= level) up++;
-  let pa = d + up;
-  if (end + 1 - pa < 10) pa = d + Math.max(r0Rel, s0);
-  // A plateau that rises (a sloping Lüders plateau; ISO 6892-1 allows yielding at "about" constant force) passes
-  // level + band before it ends: the smoothed plateau is then measured against its own least-squares line, carried
-  // on, so that the hinge fit below sees the knee and the hardening after it.
-  const sEnd = plateauLineEnd(strain, ma, d, pa - d, endRel, band);
-  let ib = Math.max(end, sEnd);
-  const hEnd = ib;
-  while (ib < maxIndex && strain[ib]! - strain[hEnd]! < Y.hardeningStrain) ib++;
-  // The hinge is sought in the second half of the plateau found by the smooth (its first half is plateau).
-  const h = plateauHinge(strain, stress, pa, ib + 1, noise, 0.5 * (strain[pa]! + strain[end]!));
+  const { end, pa, h } = plateauExtent(strain, stress, d, r0, maxIndex, level, noise);
   let rel = level, endStrain = strain[end]!;
   if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
   return { upperYield: reh, upperYieldRange: [Math.min(lo, reh), Math.max(hi, reh)], lowerYield: Math.min(rel, reh), peakIndex: q, plateauFrom: pa, endIndex: end, elongationPct: (endStrain - strain[q]!) * 100, drop, dropThreshold: threshold };
+}
+
+/** A yield plateau with no upper yield point clear of the noise ({@link yieldPlateau}). */
+export interface YieldPlateau {
+  /** Departure from the elastic line (the plateau's start) and the plateau's end (where the hardening leaves it), sample indices. */
+  startIndex: number;
+  endIndex: number;
+  /** The plateau's level (median over its first 0.3 % strain), MPa. */
+  level: number;
+  /** Engineering strain from the start to the end, %. */
+  lengthPct: number;
+  /** Slope of the hardening after the plateau (over a stretch as long as the plateau, at least 0.5 % strain) over the plateau's own slope (Infinity for a level or falling plateau). */
+  kneeRatio: number;
+}
+
+/** Thresholds of {@link yieldPlateau}, stated once. */
+export const YIELD_PLATEAU = {
+  /** The plateau spans at least this engineering strain (the window its level is read over; Lüders strains of mild steels run 0.5–4 %, common practice). */
+  minStrain: 0.003,
+  /** The hardening after it is at least this many times steeper than the plateau… */
+  kneeRatio: 3,
+  /** …by this many standard errors of the difference (serrations counted through the residuals' lag-1 correlation). */
+  sigmas: 4,
+} as const;
+
+/**
+ * A yield plateau (yielding at about constant force, ISO 6892-1 §3.10.2) whose upper yield point the record does not
+ * show clear of its noise — a coarse or noisy record that missed the short peak, or steel that yields without one.
+ * ReH, ReL and Ae are not reported for it ({@link yieldPoint} reports them only for a drop that stands clear of the
+ * noise), but the plateau is no part of work hardening: the hardening laws fitted through it bend to bridge a flat
+ * stretch their forms cannot hold (an invented Swift steel with a 2.8 % plateau: the best law 4.4 % off at 3 % strain).
+ *
+ * The plateau is found as yieldPoint finds it after a drop ({@link plateauExtent}: from the departure from the elastic
+ * line to where the hardening branch of the plateau–hardening hinge leaves it) and counted only when it spans at least
+ * YIELD_PLATEAU.minStrain and the curve turns upward at its end: the hardening over the next stretch (as long as the
+ * plateau, at least 0.5 % strain) at least YIELD_PLATEAU.kneeRatio times steeper than the plateau
+ * by YIELD_PLATEAU.sigmas standard errors (least-squares slopes, Draper & Smith ch. 1; the standard errors widened by
+ * √((1 + ρ)/(1 − ρ)) for the lag-1 correlation ρ of each line's residuals). A continuous curve's hardening falls as
+ * the strain grows (every law here is concave), so the test cannot pass on one, whatever its noise.
+ * Units: strain fraction (toe by `toe`), stress MPa, noise MPa. Cost O(maxIndex − fromIndex).
+ * @returns null when there is no such plateau.
+ * @example yieldPlateau(e, s, 205000, 0, 0, e.length - 1, 2)?.endIndex
+ */
+export function yieldPlateau(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, fromIndex: number, maxIndex: number, noise: number): YieldPlateau | null {
+  const Y = YIELD_DROP, P = YIELD_PLATEAU;
+  const d = elasticDeparture(strain, stress, E, toe, fromIndex, maxIndex, noise);
+  if (d < 1) return null;
+  let r = d;
+  while (r < maxIndex && stress[r + 1]! < stress[r]! + noise) r++;
+  maxIndex = firstHighest(stress, r, maxIndex);
+  let pEnd = d;
+  while (pEnd < maxIndex && (strain[pEnd]! - strain[d]! < Y.plateauStrain || pEnd - d < 5)) pEnd++;
+  const nLevel = pEnd - d;
+  if (nLevel < 5) return null;
+  const lv = Float64Array.from({ length: nLevel }, (_, k) => stress[d + k]!).sort();
+  const level = lv[nLevel >> 1]!;
+  // Cheap refusal first (most curves are continuous; the smooth below costs 10–30 ms on 1,000,000 rows): a plateau
+  // at least minStrain long keeps the median of the next half window within 1 % of its level (a sloping plateau rises
+  // a few tenths of a percent over its whole length; serrations are symmetric about it).
+  let w1 = pEnd;
+  while (w1 < maxIndex && strain[w1]! - strain[pEnd]! < 0.5 * Y.plateauStrain) w1++;
+  if (w1 - pEnd >= 3) {
+    const nx = Float64Array.from({ length: w1 - pEnd }, (_, k) => stress[pEnd + k]!).sort();
+    if (nx[nx.length >> 1]! > 1.01 * level + (3 * noise) / Math.sqrt(nx.length)) return null;
+  }
+  let r0 = d;
+  while (r0 < maxIndex && !(stress[r0]! <= level + 3 * noise && (r0 + 1 > maxIndex || stress[r0 + 1]! <= level + 3 * noise))) r0++;
+  const ext = plateauExtent(strain, stress, d, r0, maxIndex, level, noise);
+  // The plateau ends where the hardening branch leaves it (the hinge), not where the moving average leaves the band
+  // (that average reaches into the hardening: the band's end came 0.4 point early on an invented 2 % plateau).
+  let end = ext.end;
+  if (ext.h) { end = ext.pa; while (end < maxIndex && strain[end]! < ext.h.hardeningStart) end++; }
+  if (!(strain[end]! - strain[d]! >= P.minStrain) || end - r0 < 5) return null;
+  const span = Math.max(Y.hardeningStrain, strain[end]! - strain[d]!);
+  let k = end;
+  while (k < maxIndex && strain[k]! - strain[end]! < span) k++;
+  if (k - end < 5) return null;
+  let fp, fh;
+  try { fp = linearFit(strain, stress, r0, end + 1); fh = linearFit(strain, stress, end, k + 1); } catch { return null; }
+  const se = Math.hypot(P.kneeRatio * fp.slopeStandardError * Math.sqrt(lag1Factor(strain, stress, r0, end + 1, fp.intercept, fp.slope)),
+    fh.slopeStandardError * Math.sqrt(lag1Factor(strain, stress, end, k + 1, fh.intercept, fh.slope)));
+  const pSlope = Math.max(0, fp.slope);
+  if (!(fh.slope - P.kneeRatio * pSlope > P.sigmas * se)) return null;
+  return { startIndex: d, endIndex: end, level, lengthPct: (strain[end]! - strain[d]!) * 100, kneeRatio: pSlope > 0 ? fh.slope / pSlope : Infinity };
 }
 
 /**
@@ -532,6 +553,91 @@ function plateauLineEnd(strain: ArrayLike<number>, ma: ArrayLike<number>, d: num
 function lag1Factor(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, a: number, b: number): number {
   const rho = lineResidualLag1(x, y, from, to, a, b);
   return (1 + rho) / (1 - rho);
+}
+
+/**
+ * The yield plateau from the departure d (the fall ending at r0) to its end: a moving average (window from the
+ * plateau's scatter) against the band level ± max(3·scatter/√w, 0.3 % of the level), carried on along the plateau's
+ * own line where it rises (plateauLineEnd), and the plateau and hardening fitted together (plateauHinge).
+ * Units: strain fraction, stress MPa. Cost O(maxIndex − d).
+ */
+function plateauExtent(strain: ArrayLike<number>, stress: ArrayLike<number>, d: number, r0: number, maxIndex: number, level: number, noise: number): { end: number; pa: number; ib: number; h: ReturnType<typeof plateauHinge> } {
+  const Y = YIELD_DROP;
+  // Smoothed plateau from the departure to maximum force.
+  const to = Math.max(d + 1, maxIndex + 1);
+  const wNoise = Math.ceil(((noise / (0.0015 * level)) ** 2));
+  // Rough plateau length for the cap: points until the raw stress first passes level + 5 %.
+  let rough = r0;
+  while (rough < maxIndex && !(stress[rough]! >= 1.05 * level && (rough + 1 > maxIndex || stress[rough + 1]! >= 1.05 * level) && (rough + 2 > maxIndex || stress[rough + 2]! >= 1.05 * level))) rough++;
+  const cap = Math.max(1, Math.floor((rough - r0) / 6));
+  const w1 = Math.max(1, Math.min(wNoise, cap)) | 1;
+  // The window is sized from the scatter of the plateau about a first smooth (noise and serrations too fast
+  // for that smooth), so the smoothed plateau's own scatter is about 0.15 % of the level.
+  let scatter = noise;
+  if (w1 > 1 && rough - r0 >= 10) {
+    const ma1 = movingAverage(stress, r0, rough, w1);
+    let v = 0;
+    for (let i = r0; i < rough; i++) v += (stress[i]! - ma1[i - r0]!) ** 2;
+    scatter = Math.max(noise, Math.sqrt((v / (rough - r0)) * (w1 / (w1 - 1))));
+  }
+  const w = Math.max(1, Math.min(Math.ceil((scatter / (0.0015 * level)) ** 2), cap)) | 1;
+  const ma = movingAverage(stress, d, to, w);
+  const band = Math.max((3 * scatter) / Math.sqrt(w), Y.plateauBand * level);
+  let s0 = 0;
+  while (s0 < ma.length - 1 && ma[s0]! > level + band) s0++;
+  let endRel = s0;
+  for (let k = s0; k < ma.length; k++) if (ma[k]! <= level + band) endRel = k;
+  const end = d + endRel;
+  // ReL (ISO 6892-1 §3.10.2.2: the lowest stress during yielding, the initial transient ignored). The initial
+  // transient is the fall and the first trough after it: it ends where the smoothed plateau first rises back
+  // above its median after reaching it (ISO 6892-1 practice, from memory: the first minimum is ignored).
+  const r0Rel = Math.max(0, r0 - d);
+  let up = Math.max(r0Rel, s0);
+  while (up < endRel && ma[up]! <= level) up++;
+  let pa = d + up;
+  if (end + 1 - pa < 10) pa = d + Math.max(r0Rel, s0);
+  // A plateau that rises (a sloping Lüders plateau; ISO 6892-1 allows yielding at "about" constant force) passes
+  // level + band before it ends: the smoothed plateau is then measured against its own least-squares line, carried
+  // on, so that the hinge fit below sees the knee and the hardening after it.
+  const sEnd = plateauLineEnd(strain, ma, d, pa - d, endRel, band);
+  let ib = Math.max(end, sEnd);
+  const hEnd = ib;
+  while (ib < maxIndex && strain[ib]! - strain[hEnd]! < Y.hardeningStrain) ib++;
+  // The hinge is sought in the second half of the plateau found by the smooth (its first half is plateau).
+  const h = plateauHinge(strain, stress, pa, ib + 1, noise, 0.5 * (strain[pa]! + strain[end]!));
+  return { end, pa, ib, h };
+}
+
+/**
+ * Where the loading leaves the elastic line for good (the sample index; −1 if it never does): {@link departure} from
+ * σ = E(e − toe), the line refitted as below. Units: strain fraction, stress MPa, noise MPa.
+ */
+function elasticDeparture(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, fromIndex: number, maxIndex: number, noise: number): number {
+  const Y = YIELD_DROP;
+  // Departure from the elastic line. The line starts as σ = E(e − e0); a modulus a few per cent off (few
+  // elastic samples, or a band that reached into the knee) makes the line leave the data early, so the line is
+  // refitted through the rising samples before the departure found (above a fifth of the stress there) and
+  // the search repeated, until the departure stays put (at most 4 rounds).
+  let lineA = -E * toe, lineB = E;
+  // The line is known only to about σ̂·√(4/k) at the end of the k samples it rests on (prediction error just
+  // past a least-squares line's range): the departure tolerance includes it, so a good sample at the peak of
+  // a short rise is not taken for the fall.
+  let lineFrom = fromIndex;
+  const depart = (start: number) => departure(strain, stress, lineA, lineB, lineFrom, Y.departSigmas * noise, start, maxIndex);
+  let d = depart(fromIndex);
+  for (let round = 0; round < 4 && d > 0; round++) {
+    let a = d;
+    while (a > fromIndex && stress[a - 1]! >= 0.2 * stress[d - 1]! && stress[a - 1]! <= stress[a]! + 3 * noise) a--;
+    if (d - a < 3) break;
+    let f;
+    try { f = linearFit(strain, stress, a, d); } catch { break; }
+    if (!(f.slope > 0)) break;
+    lineA = f.intercept; lineB = f.slope; lineFrom = a;
+    const nd = depart(a);
+    if (nd === d || nd < 1) break;
+    d = nd;
+  }
+  return d;
 }
 
 // yieldPoint's record-long loops as small functions without closures (the same operations in the same order, so

@@ -23,7 +23,9 @@ export interface HoldoutTally { fails: string[]; count: Record<string, number>; 
   /** Records whose Ag is off by more than the tolerance, warned or not (the raw accuracy, before any acceptance). */
   agOff: number;
   /** Records made with a change of rate, and those in which the analysis found it. */
-  rateChanges: number; rateFound: number }
+  rateChanges: number; rateFound: number;
+  /** Records with a yield drop the analysis did not report, and those in which it found the yield plateau (yieldPlateau). */
+  unreportedDrops: number; plateauFound: number }
 
 /**
  * Runs the analysis on every hold-out seed of `make` and tallies the misses by property, at issue 12's tolerances
@@ -34,7 +36,7 @@ export interface HoldoutTally { fails: string[]; count: Record<string, number>; 
 export function holdoutTally(make: (seed: number, noiseScale: number) => HoldoutRecordLike, seeds: number[], noiseScale = 1, tol = 1): HoldoutTally {
   const fails: string[] = [];
   const count: Record<string, number> = {};
-  let refused = 0, drops = 0, continuous = 0, agWarned = 0, rpWarned = 0, lowEvidence = 0, agOff = 0, rateChanges = 0, rateFound = 0;
+  let refused = 0, drops = 0, continuous = 0, agWarned = 0, rpWarned = 0, lowEvidence = 0, agOff = 0, rateChanges = 0, rateFound = 0, unreportedDrops = 0, plateauFound = 0;
   const miss = (k: string, msg: string) => { fails.push(msg); count[k] = (count[k] ?? 0) + 1; };
   for (const seed of seeds) {
     const rec = make(seed, noiseScale);
@@ -73,6 +75,9 @@ export function holdoutTally(make: (seed: number, noiseScale: number) => Holdout
       if (rec.what.includes('peak not caught')) { /* either answer is acceptable */ } else {
         continuous++;
         if (a.upperYield !== null) miss('falseYield', `${rec.what}: continuous curve reported ReH ${a.upperYield}`);
+        // Nor a yield plateau: the laws would be fitted from a false plateau's end, the curve before it left out.
+        const pl = a.warnings.find((w) => w.code === 'yieldPlateau');
+        if (pl) miss('falsePlateau', `${rec.what}: ${pl.message}`);
       }
     } else {
       drops++;
@@ -80,6 +85,8 @@ export function holdoutTally(make: (seed: number, noiseScale: number) => Holdout
       // continuous curves free of false yield points (about 3.7 noise sd at a false-alarm rate of 10⁻⁴) finds a drop of
       // evidence 6 with probability ≥ 99 % and one of evidence 4 about half the time (the same rule as the property test).
       if (a.upperYield === null) {
+        unreportedDrops++;
+        if (a.warnings.some((w) => w.code === 'yieldPlateau')) plateauFound++;
         if (t.dropEvidence != null && t.dropEvidence < 6) lowEvidence++;
         else miss('missedYield', `${rec.what}: yield drop ${t.reH.toFixed(1)}/${t.reL!.toFixed(1)} (evidence ${t.dropEvidence?.toFixed(1)}) not found`);
       } else {
@@ -111,7 +118,7 @@ export function holdoutTally(make: (seed: number, noiseScale: number) => Holdout
     const warned = a.warnings.some((w) => w.code === 'fewElasticPoints' || w.code === 'uncertainModulus' || w.code === 'elasticBandFallback');
     if (!(lo <= t.E && t.E <= hi) && !warned && Math.abs(a.elasticModulus / t.E - 1) > 0.05 * tol) miss('quietE', `${rec.what}: E ${a.elasticModulus} off by more than 5 % outside its interval, no warning`);
   }
-  return { fails, count, refused, drops, continuous, agWarned, rpWarned, lowEvidence, agOff, rateChanges, rateFound };
+  return { fails, count, refused, drops, continuous, agWarned, rpWarned, lowEvidence, agOff, rateChanges, rateFound, unreportedDrops, plateauFound };
 }
 
 /** Holds every miss count at or below its ceiling (0 where none is named), listing the misses on failure. */

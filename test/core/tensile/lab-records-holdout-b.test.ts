@@ -38,25 +38,31 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 5000 + i);
 // where they did not); noise-free quietE 6 → 3 and Rp0.2 2 → 1 (n 3.8–3.9 rises read E 1.3–1.7 % low on the grid).
 // The three left are bands raised by a seating toe (bandLo above 20 % of Rp0.2), where the tangent is not tried.
 // Fourteenth session: ReH's lower bound the peak sample's own less 3σ̂ (lab-records-holdout.test.ts): noisy ReH 1 → 0.
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 2, Ag: 9, Ae: 1, missedYield: 2, Rm: 1 };
+// Eighteenth session: the laws' Ag gated at the top model's 99.9 % interval (LAW_GATE_CHI2) with the interval given
+// widened to hold it: noisy Ag 9 → 2, Ag off by more than 0.4 point 20 → 10 (11 with the gate alone; the yield plateau
+// of an unreported drop, yieldPlateau, found on both missed drops, one more). missedYield stays 2: those drops are
+// not reported, but their plateaus are found and the laws fitted from their ends.
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 2, Ag: 2, Ae: 1, missedYield: 2, Rm: 1 };
 // Thirteenth session: the sloping Lüders plateau (this generator's, ±0.5 %) fitted with its slope where the data
 // bear it out, and the hinge's window carried along a rising plateau to its knee: noise-free Ae 3 → 0 (they were
 // read 1.2–1.9 points short on plateaus rising 0.40–0.49 %); noisy Ae 1 (seed 5014, 0.45 point short; 0.75 before).
 // The noise-free A ceiling (3) is gone: measured 0 since the fracture point moved to where the fall begins.
 const CEILINGS_CLEAN: Record<string, number> = { quietE: 3, 'Rp0.2': 1 };
-const AG_OFF_NOISY = 20, AG_OFF_CLEAN = 5;
+const AG_OFF_NOISY = 10, AG_OFF_CLEAN = 5;
 
 
 describe('record analysis on 200 hold-out B INVENTED records (a second generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point)", () => {
     const r = holdoutTally(holdoutBRecord, SEEDS);
-    console.log(`hold-out B, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, Rp warned ${r.rpWarned}, rate changes found ${r.rateFound} of ${r.rateChanges}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out B, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, Rp warned ${r.rpWarned}, rate changes found ${r.rateFound} of ${r.rateChanges}; yield plateaus found ${r.plateauFound} of ${r.unreportedDrops} unreported drops\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_NOISY);
     expect(r.agOff).toBeLessThanOrEqual(AG_OFF_NOISY);
+    // Unreported drops whose yield plateau was found (yieldPlateau), the laws fitted from its end: 2 of 2 when measured.
+    expect(r.plateauFound).toBeGreaterThanOrEqual(2);
   }, 180_000);
   it('noise-free: a quarter of those tolerances', () => {
     const r = holdoutTally(holdoutBRecord, SEEDS, 0, 0.25);
-    console.log(`hold-out B, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}, rate changes found ${r.rateFound} of ${r.rateChanges}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out B, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}, rate changes found ${r.rateFound} of ${r.rateChanges}; yield plateaus found ${r.plateauFound} of ${r.unreportedDrops} unreported drops\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_CLEAN);
     expect(r.agOff).toBeLessThanOrEqual(AG_OFF_CLEAN);
   }, 180_000);

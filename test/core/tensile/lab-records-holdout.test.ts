@@ -38,13 +38,15 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 1000 + i);
 // Fourteenth session: ReH's lower bound is the peak sample's own less 3σ̂, not the rise line one sample before it (on
 // a fall gentle against the noise that sample may be past the peak too): noisy ReH 2 → 0, both now warned
 // `uncertainReH` with a range that holds the truth (1002: 150.7–159.7 MPa about 153.6; the value itself unchanged).
-const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 2, 'Rp0.2': 1 };
+// Eighteenth session: the laws' Ag gated at the top model's 99.9 % interval, the interval given widened to hold it:
+// Ag 4 → 3.
+const CEILINGS_NOISY: Record<string, number> = { Ag: 3, Ae: 2, 'Rp0.2': 1 };
 // Sixth session: the top fit's bound test allows rounding (a side tied to zero end slope, on its bound by
 // construction, had been refused at random): 28 of the 760 noisy records of the four generators moved by 0.01–0.14
 // point either way, and seed 1110 from 0.398 to 0.423 point off: 52 → 53.
 // Seventh session: Ag from the fitted hardening laws where their maximum lies inside the top model's interval
-// (lawTop.ts): 53 → 29; outside the interval unchanged (4).
-const AG_OFF_NOISY = 29;
+// (lawTop.ts): 53 → 29; outside the interval unchanged (4). Eighteenth session, gated at 99.9 %: 29 → 25.
+const AG_OFF_NOISY = 25;
 // Noise-free: met on every seed (ReH was read at a moving average on 3 clean records whose peak sample sat just past
 // the peak, 0.5–0.7 % low: the knee test now leaves the peak sample out).
 const CEILINGS_CLEAN: Record<string, number> = {};
@@ -53,16 +55,18 @@ const CEILINGS_CLEAN: Record<string, number> = {};
 describe('record analysis on 200 hold-out INVENTED records (a generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances (Rp0.2 1 %, Rm 0.4 %, Ag 0.4 point, A 0.5 point, ReH/ReL 1.5 %, Ae 0.4 point)", () => {
     const r = holdoutTally(holdoutRecord, SEEDS);
-    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, drops not found with evidence < 6: ${r.lowEvidence}; rate changes found ${r.rateFound} of ${r.rateChanges}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out, noisy: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off by more than the tolerance ${r.agOff}, drops not found with evidence < 6: ${r.lowEvidence}; rate changes found ${r.rateFound} of ${r.rateChanges}; yield plateaus found ${r.plateauFound} of ${r.unreportedDrops} unreported drops\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_NOISY);
     expect(r.agOff).toBeLessThanOrEqual(AG_OFF_NOISY);
+    // Unreported drops whose yield plateau was found (yieldPlateau), the laws fitted from its end: 1 of 2 when measured.
+    expect(r.plateauFound).toBeGreaterThanOrEqual(1);
     // Drops too weak for any test to find reliably (evidence below 6: seeds 1128 at 2.6 and 1059 at 5.5 when this was
     // written) stay the exception.
     expect(r.lowEvidence).toBeLessThanOrEqual(2);
   }, 180_000);
   it('noise-free: a quarter of those tolerances (the estimators are unbiased on clean data)', () => {
     const r = holdoutTally(holdoutRecord, SEEDS, 0, 0.25);
-    console.log(`hold-out, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}, rate changes found ${r.rateFound} of ${r.rateChanges}\n${r.fails.slice(0, 60).join('\n')}`);
+    console.log(`hold-out, noise-free: ${r.fails.length} misses ${JSON.stringify(r.count)}, Ag off ${r.agOff}, rate changes found ${r.rateFound} of ${r.rateChanges}; yield plateaus found ${r.plateauFound} of ${r.unreportedDrops} unreported drops\n${r.fails.slice(0, 60).join('\n')}`);
     holdCeilings(r, CEILINGS_CLEAN);
     expect(r.agOff).toBe(0);
   }, 180_000);

@@ -73,9 +73,12 @@ function tally(seeds: number[]): Tally {
     } else if (t.upperYield === null) {
       continuous++;
       if (a.upperYield !== null) miss('falseYield', `${c.what}: continuous curve reported ReH ${a.upperYield}`);
+      // Nor a yield plateau (yieldPlateau): the laws would be fitted from a false plateau's end.
+      if (has('yieldPlateau')) miss('falsePlateau', `${c.what}: ${a.warnings.find((w) => w.code === 'yieldPlateau')!.message}`);
     } else {
       drops++;
       if (a.upperYield === null) {
+        if (has('yieldPlateau')) accept('drop not reported, its plateau found', seed);
         if (t.yieldDropEvidence! < MIN_EVIDENCE) accept(`drop not reported (evidence < ${MIN_EVIDENCE})`, seed);
         else miss('missedYield', `${c.what}: drop ${t.upperYield}/${t.lowerYield} (evidence ${t.yieldDropEvidence!.toFixed(1)}) not found`);
       } else {
@@ -110,17 +113,18 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     const list = r.fails.join('\n');
     console.log(`${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous; Ag off by more than 0.4 point (warned or not) ${r.agOff}; accepted (the record cannot support the tolerance, the analysis says so): ${JSON.stringify(r.accepted)}\n${list}`);
     // Met on every seed.
-    for (const k of ['threw', 'Rm', 'A', 'falseYield', 'silentE', 'quietE', 'ReH', 'ReL', 'Ae', 'missedYield', 'falseStrainEnd', 'falseGlitch', 'falseSecondTest', 'falseRateChange']) expect(r.count[k] ?? 0, `${k}\n${list}`).toBe(0);
+    for (const k of ['threw', 'Rm', 'A', 'falseYield', 'falsePlateau', 'silentE', 'quietE', 'ReH', 'ReL', 'Ae', 'missedYield', 'falseStrainEnd', 'falseGlitch', 'falseSecondTest', 'falseRateChange']) expect(r.count[k] ?? 0, `${k}\n${list}`).toBe(0);
     // NOT met on every seed (measured, held as ceilings so a regression fails; see docs/records-and-fits.md):
     // Rp0.2 1.55 % high on seed 147 (2019 points, noise 0.97 % of Rm, 7 elastic samples): warned, but the truth lies
     // just outside its 95 % interval (247.87–255.42 MPa against 247.81 since the slope's and the noise's half-widths
     // add in quadrature; the expected non-coverage of a 95 % interval, not a bias).
     expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(1);
-    // Ag off by more than 0.4 point with no 95 % interval holding the truth on 4 (seeds 57, 122, 168, 187: coarse,
-    // noisy tops; the truth lies 0.02–0.3 point outside the interval — the expected few percent of a 95 % interval's
-    // non-coverage, but not zero). Seed 143 left this list when the top was fitted with the noise of its own span
-    // (sixteenth session): its interval now holds the truth (it is among the accepted below).
-    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(4);
+    // Ag off by more than 0.4 point with no 95 % interval holding the truth: none. (Seventeenth session 4: seeds 57,
+    // 122, 168 and 187, coarse noisy tops whose 95 % interval left the truth 0.02–0.3 point out, while the laws, refused
+    // at 95 %, read it within 0.03–0.6 point. Eighteenth session: the laws gated at the top model's 99.9 % interval,
+    // LAW_GATE_CHI2, and the interval given widened to hold their Ag; seed 187 is off by 0.2 point now, 57 and 122
+    // by 0.43–0.58 inside the widened interval.)
+    expect(r.count.Ag ?? 0, list).toBeLessThanOrEqual(0);
     // The raw accuracy, warned or not: Ag off by more than 0.4 point on 51 of 240 records (110 before the top model
     // was bounded to a top that falls away from its vertex on both sides — an unbounded side rose past the vertex and
     // read Ag up to 7 points early — and Ag became the Akaike-weighted mean of a kinked and a smooth top). Almost all
@@ -128,10 +132,14 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // Seventh session: Ag from the hardening laws fitted to the uniform part where their maximum lies inside the top
     // model's interval (lawTop.ts), and the truth at the curve's own maximum of force (the generator had read it at the
     // rigid-plastic Considère strain, 0.03–0.17 point late): 51 → 16 (44 for the top model alone against that truth).
-    expect(r.agOff).toBeLessThanOrEqual(16);
-    // Of those, warned with a 95 % interval wider than ±0.4 point that holds the truth: 12 (11 and seed 143 above; 46
+    // Eighteenth session: the laws gated at 99.9 % (16 → 17: better on 5, worse on 4 where the laws disagree among
+    // themselves), then the flow curve from the end of a yield plateau whose drop is not reported (yieldPlateau): 13.
+    expect(r.agOff).toBeLessThanOrEqual(13);
+    // Of those, warned with a 95 % interval wider than ±0.4 point that holds the truth: 13 (12 before the gate, 46
     // before the laws, 107 before the bounded top model).
-    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(12);
+    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(13);
+    // Unreported drops whose plateau was found (yieldPlateau): 5 of the 7.
+    expect(r.accepted['drop not reported, its plateau found']?.length ?? 0).toBeGreaterThanOrEqual(5);
     // The acceptances stay the exception, and each kind is exercised (so the conditions above can fail).
     expect(r.accepted['E refused']?.length ?? 0).toBeLessThanOrEqual(6);
     expect(r.accepted[`drop not reported (evidence < ${MIN_EVIDENCE})`]?.length ?? 0).toBeLessThanOrEqual(8);
