@@ -153,12 +153,10 @@ export function yieldPoint(
     } catch { /* keep the sample */ }
   }
   // Plateau level after the departure: median over 0.3 % strain (robust to the fall's samples at its start).
-  let pEnd = d;
-  while (pEnd < maxIndex && (strain[pEnd]! - strain[d]! < Y.plateauStrain || pEnd - d < 5)) pEnd++;
+  const pEnd = windowEnd(strain, d, maxIndex, Y.plateauStrain, 5);
   const nLevel = pEnd - d;
   if (nLevel < 3) return null;
-  const lv = Float64Array.from({ length: nLevel }, (_, k) => stress[d + k]!).sort();
-  const level = lv[nLevel >> 1]!;
+  const level = medianOf(stress, d, pEnd);
   // The fall: samples from the departure until the stress first comes within 3 noise sd of the level.
   // (three samples in a row, so one noisy sample part-way down the fall does not end it).
   const below = (i: number, v: number) => stress[i]! <= v && (i + 1 > maxIndex || stress[i + 1]! <= v) && (i + 2 > maxIndex || stress[i + 2]! <= v);
@@ -273,21 +271,14 @@ export function yieldPlateau(strain: ArrayLike<number>, stress: ArrayLike<number
   let r = d;
   while (r < maxIndex && stress[r + 1]! < stress[r]! + noise) r++;
   maxIndex = firstHighest(stress, r, maxIndex);
-  let pEnd = d;
-  while (pEnd < maxIndex && (strain[pEnd]! - strain[d]! < Y.plateauStrain || pEnd - d < 5)) pEnd++;
-  const nLevel = pEnd - d;
-  if (nLevel < 5) return null;
-  const lv = Float64Array.from({ length: nLevel }, (_, k) => stress[d + k]!).sort();
-  const level = lv[nLevel >> 1]!;
+  const pEnd = windowEnd(strain, d, maxIndex, Y.plateauStrain, 5);
+  if (pEnd - d < 5) return null;
+  const level = medianOf(stress, d, pEnd);
   // Cheap refusal first (most curves are continuous; the smooth below costs 10–30 ms on 1,000,000 rows): a plateau
   // at least minStrain long keeps the median of the next half window within 1 % of its level (a sloping plateau rises
   // a few tenths of a percent over its whole length; serrations are symmetric about it).
-  let w1 = pEnd;
-  while (w1 < maxIndex && strain[w1]! - strain[pEnd]! < 0.5 * Y.plateauStrain) w1++;
-  if (w1 - pEnd >= 3) {
-    const nx = Float64Array.from({ length: w1 - pEnd }, (_, k) => stress[pEnd + k]!).sort();
-    if (nx[nx.length >> 1]! > 1.01 * level + (3 * noise) / Math.sqrt(nx.length)) return null;
-  }
+  const w1 = windowEnd(strain, pEnd, maxIndex, 0.5 * Y.plateauStrain, 0);
+  if (w1 - pEnd >= 3 && medianOf(stress, pEnd, w1) > 1.01 * level + (3 * noise) / Math.sqrt(w1 - pEnd)) return null;
   let r0 = d;
   while (r0 < maxIndex && !(stress[r0]! <= level + 3 * noise && (r0 + 1 > maxIndex || stress[r0 + 1]! <= level + 3 * noise))) r0++;
   const ext = plateauExtent(strain, stress, d, r0, maxIndex, level, noise);
@@ -606,6 +597,19 @@ function plateauExtent(strain: ArrayLike<number>, stress: ArrayLike<number>, d: 
   // The hinge is sought in the second half of the plateau found by the smooth (its first half is plateau).
   const h = plateauHinge(strain, stress, pa, ib + 1, noise, 0.5 * (strain[pa]! + strain[end]!));
   return { end, pa, ib, h };
+}
+
+/** First index j ≥ from (at most maxIndex) with strain[j] − strain[from] ≥ span and j − from ≥ minCount. */
+function windowEnd(strain: ArrayLike<number>, from: number, maxIndex: number, span: number, minCount: number): number {
+  let j = from;
+  while (j < maxIndex && (strain[j]! - strain[from]! < span || j - from < minCount)) j++;
+  return j;
+}
+
+/** Median (upper of the middle two) of y[from..to). */
+function medianOf(y: ArrayLike<number>, from: number, to: number): number {
+  const v = Float64Array.from({ length: to - from }, (_, k) => y[from + k]!).sort();
+  return v[v.length >> 1]!;
 }
 
 /**
