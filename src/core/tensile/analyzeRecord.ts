@@ -495,7 +495,8 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     if (!six) {
       try { six = fitAllLaws(fStrain, fStress, { packed }).fits; } catch { six = null; }
     }
-    // Gated by the top model's 99.9 % interval (LAW_GATE_CHI2): only where the samples near the top clearly rule it out.
+    // A law's Ag is refused only where the samples near the top clearly rule it out: outside the top model's 99.9 %
+    // interval (LAW_GATE_CHI2), not its 95 % one.
     const g = fm.strainInterval999;
     if (six) agLaws = lawUniformElongation(six, E, [(g[0] - toe - fm.stress / E) * 100, (g[1] - toe - fm.stress / E) * 100]);
   }
