@@ -9,7 +9,12 @@ import type { LawFit } from '../fit/types.js';
  * σ' = σ with the elastic strain counted; conversions as Dowling, *Mechanical Behavior of Materials*,
  * §4.5). Found by bisection on [1e-9, 5] to 1e-13. Units: εp true plastic strain, E in MPa.
  * Valid: a law whose left side changes sign once from + to − (every law here that hardens more slowly
- * than it strengthens); null when it does not change sign in the bracket.
+ * than it strengthens); null when it does not change sign in the bracket — also for a law whose hardening rate
+ * starts at zero (Hockett–Sherby with p > 1: the left side is negative at first), which is thus left out of Ag from
+ * the laws. Deliberately: bracketed past that start, the Hockett–Sherby fits (p 1.25–1.28) of the open 42CrMoS4
+ * records 46NT71 and 46NT73 put Ag at 5.50 and 5.57 % against the producers' 5.21 % (the top model reads 5.16 and
+ * 5.20), and held all the Akaike weight there.
+ * @example lawTopPlasticStrain(makeLaw({ law: 'hockettSherby', sigmaSat: 1303, sigma0: 1133, a: 73, p: 1.28 }), 200000) // null
  * @example lawTopPlasticStrain(makeLaw({ law: 'hollomon', K: 530, n: 0.2 }), 200000) // ≈ 0.1993 (0.2 rigid-plastic)
  */
 export function lawTopPlasticStrain(law: { stress(e: number): number; slope(e: number): number }, E: number): number | null {

@@ -35,6 +35,17 @@ describe('lawTopPlasticStrain: where a law with elastic strain reaches maximum e
   }
 });
 
+describe('lawTopPlasticStrain: a law whose hardening rate starts at zero is left out', () => {
+  it('Hockett–Sherby with p > 1 (as fitted to the open 42CrMoS4 record 46NT71): null, though its engineering stress has a maximum', () => {
+    const L = makeLaw({ law: 'hockettSherby', sigmaSat: 1303, sigma0: 1133, a: 73, p: 1.28 });
+    expect(lawTopPlasticStrain(L, E)).toBeNull();
+    // The maximum exists (past the start where σ' < σ): the null is a choice, documented in lawTop.ts.
+    let up = false;
+    for (let k = 1; k <= 2000 && !up; k++) { const ep = k * 1e-4; up = L.slope(ep) * (1 - L.stress(ep) / E) > L.stress(ep); }
+    expect(up).toBe(true);
+  });
+});
+
 describe('lawUniformElongation: Ag from the fitted laws, only inside the top model\'s interval', () => {
   const fit = (spec: LawSpec, aic: number) => ({ law: spec.law, params: { ...spec }, converged: true, aic } as unknown as LawFit);
   const agOf = (spec: LawSpec) => { const L = makeLaw(spec); const ep = lawTopPlasticStrain(L, E)!; const s = L.stress(ep); const e = Math.expm1(ep + s / E); return (e - s / (1 + e) / E) * 100; };
