@@ -35,5 +35,5 @@ describe('Rp0.2 with the modulus given (continuous INVENTED records)', () => {
     expect(worst.P0).toBeLessThan(0.25);
     expect(worst.B0).toBeLessThan(0.25);
     expect(bOff).toBeLessThanOrEqual(1);
-  }, 300_000);
+  }, 900_000); // 640 analyses with the six laws fitted for Ag: 214–296 s on this 2-core machine, 575 s under load
 });

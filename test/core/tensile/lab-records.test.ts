@@ -145,7 +145,7 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     expect(r.accepted[`drop not reported (evidence < ${MIN_EVIDENCE})`]?.length ?? 0).toBeLessThanOrEqual(8);
     expect(r.drops).toBeGreaterThanOrEqual(60);
     expect(r.continuous).toBeGreaterThanOrEqual(150);
-  }, 180_000);
+  }, 600_000); // a tally of hundreds of analyses: 50–130 s in CI on 2 cores, more under load
 });
 
 describe('an impossible E is never used silently', () => {
