@@ -232,8 +232,8 @@ export interface YieldPlateau {
   level: number;
   /** Engineering strain from the start to the end, %. */
   lengthPct: number;
-  /** Slope of the hardening after the plateau (over a stretch as long as the plateau, at least 0.5 % strain) over the plateau's own slope (Infinity for a level or falling plateau). */
-  kneeRatio: number;
+  /** Slope of the hardening after the plateau (over a stretch as long as the plateau, at least 0.5 % strain) over the plateau's own slope (null for a level or falling plateau: no finite ratio). */
+  kneeRatio: number | null;
 }
 
 /** Thresholds of {@link yieldPlateau}, stated once. */
@@ -301,7 +301,7 @@ export function yieldPlateau(strain: ArrayLike<number>, stress: ArrayLike<number
     fh.slopeStandardError * Math.sqrt(lag1Factor(strain, stress, end, k + 1, fh.intercept, fh.slope)));
   const pSlope = Math.max(0, fp.slope);
   if (!(fh.slope - P.kneeRatio * pSlope > P.sigmas * se)) return null;
-  return { startIndex: d, endIndex: end, level, lengthPct: (strain[end]! - strain[d]!) * 100, kneeRatio: pSlope > 0 ? fh.slope / pSlope : Infinity };
+  return { startIndex: d, endIndex: end, level, lengthPct: (strain[end]! - strain[d]!) * 100, kneeRatio: pSlope > 0 ? fh.slope / pSlope : null };
 }
 
 /**

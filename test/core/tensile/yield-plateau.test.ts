@@ -110,5 +110,7 @@ describe('yieldPlateau: a Lüders plateau without an upper yield point clear of 
     const p = yieldPlateau(x, y, E, 0, 0, n - 1, 0.5);
     expect(p).not.toBeNull();
     expect(Math.abs(x[p!.endIndex]! - 0.02)).toBeLessThan(0.002);
+    // A level plateau has no finite slope ratio: null, not Infinity (nothing infinite leaves the core).
+    expect(p!.kneeRatio).toBeNull();
   });
 });
