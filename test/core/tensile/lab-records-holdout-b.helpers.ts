@@ -26,6 +26,8 @@ export interface HoldoutBTruth {
   elasticPoints: number;
   /** The strain rate after the yield region over that before it (sampling uniform in time); the flow stress does not follow it (m = 0). */
   rateRatio: number;
+  /** Signal-to-noise ratio of a recorded drop (see the truth's computation); null without a drop or without noise. */
+  dropEvidence: number | null;
 }
 
 export interface HoldoutBRecord { strain: Float64Array; stress: Float64Array; truth: HoldoutBTruth; what: string }
@@ -213,6 +215,20 @@ export function holdoutBRecord(seed: number, noiseScale = 1): HoldoutBRecord {
     if (e > 0 && s < 0.9 * (f.drop ? lud.reH : rp02) && Math.abs(s - E * e) < 0.01 * s + 1e-9) elasticPoints++;
   }
   const recorded = f.drop && reHrec > reLrec + 0.5 * (lud.reH - lud.reL);
+  // How clearly the samples show the drop (as the other two generators give it): √Σ(sᵢ − ReL)² over the recorded
+  // noise-free samples above ReL from the rise through the rounded top and the fall to the transient's end, over the
+  // noise sd at ReL (the matched filter's signal-to-noise ratio for white noise; the fall's samples counted too,
+  // and filtered noise treated as white, both of which make it larger, so the acceptance stricter). Null without noise.
+  let dropEvidence: number | null = null;
+  if (recorded && noiseScale > 0) {
+    let ss = 0;
+    for (let i = 0; i < nCurve; i++) {
+      const e = xs[i]! - xt;
+      if (e > 0.5 * lud.eH && e < transientEnd) { const d = measuredAt(xs[i]!) - reLrec; if (d > 0) ss += d * d; }
+    }
+    const sdL = (kind === 'proportional' ? sn * (0.15 + 0.85 * reLrec / rm) : sn) * noiseScale;
+    dropEvidence = Math.sqrt(ss) / sdL;
+  }
   const truth: HoldoutBTruth = {
     E, rp02, rm,
     agPct: (eU - rm / E) * 100,
@@ -223,6 +239,7 @@ export function holdoutBRecord(seed: number, noiseScale = 1): HoldoutBRecord {
     serration: serrMax,
     elasticPoints,
     rateRatio: kRate,
+    dropEvidence,
   };
   const what = `holdout-b ${seed}: ${f.name}, ${total} points (rate ×${kRate} after ${(yieldEnd * 100).toFixed(2)} %), noise ${kind} ${(sn / rm * 100).toFixed(2)} % Rm window ${win}, strain step ${qStrain}, toe ${xt.toExponential(1)}${f.drop ? `, drop ${((lud.reH / lud.reL - 1) * 100).toFixed(1)} % slope ${(lud.slope * 100).toFixed(2)} % serration ${(lud.amp * 100).toFixed(2)} % round ${lud.round.toFixed(2)}${recorded ? '' : ' (peak not caught)'}` : ''}, fracture fall ${fallN}, trailing ${trailing}`;
   return { strain, stress, truth, what };
