@@ -4,11 +4,14 @@ import type { ModulusDecayFit, UnloadCycle } from './types.js';
 
 /** A fall of stress counts as an unloading when it is at least this fraction of the stress it starts from. */
 export const UNLOAD_MIN_DROP = 0.3;
+/** An unloading that is never reloaded counts only when it takes at least this many samples (fracture takes 1–4). */
+export const UNLOAD_MIN_SAMPLES = 6;
 
 /**
  * Finds unload–reload cycles: a stress peak followed by a fall of at least UNLOAD_MIN_DROP of the
  * peak stress while the strain also falls (elastic recovery; a fall at rising strain is necking or
- * fracture, not unloading). Everything is computed on true stress σ = s(1+e) and true strain
+ * fracture, not unloading), and that is either reloaded or spread over UNLOAD_MIN_SAMPLES samples or more (a
+ * fracture's fall, even with the elastic strain read coming back, takes a few samples and is never reloaded). Everything is computed on true stress σ = s(1+e) and true strain
  * ε = ln(1+e) (toe-compensated), the basis of the chord-modulus law. For each cycle: the chord modulus
  * between the start of unloading and the reversal (ASTM E111 chord modulus), the true plastic strain
  * left ε_u − σ_u/E_u, the true elastic strain recovered σ_u/E_u, and the reload 0.2 % proof strength
@@ -38,11 +41,25 @@ export function findCycles(engStrain: ArrayLike<number>, engStress: ArrayLike<nu
       k++;
     }
     const drop = stress[i]! - stress[r]!;
-    if (!(drop >= UNLOAD_MIN_DROP * stress[i]!) || !(ts(r) < ts(i) - (0.3 * drop) / E)) { i++; continue; }
+    // The fall must also stand far clear of the noise (10 sd): after fracture the load reads about zero, and 30 % of a
+    // noise peak there is less than the noise.
+    if (!(drop >= Math.max(UNLOAD_MIN_DROP * stress[i]!, 10 * noise)) || !(ts(r) < ts(i) - (0.3 * drop) / E)) { i++; continue; }
     // Unloading starts where the strain turns back: the largest strain between the peak and the reversal.
     let u = i;
     for (let q = i; q <= r; q++) if (ts(q) > ts(u)) u = q;
     if (!(ts(u) > ts(r))) { i = r + 1; continue; }
+    // Fracture is no unloading, though the extensometer may read the specimen's elastic strain coming back as the
+    // load falls (an invented noisy record counted one "cycle" at fracture on every noisy record of hold-out C):
+    // an unloading is reloaded (the stress rises again by half the fall) or, for a last unloading never reloaded,
+    // spread over at least 6 samples along the elastic line, as the end of the test is told from fracture
+    // (elasticUnloading in analyzeRecord.ts). A fracture's fall takes 1–4 samples and nothing follows it.
+    let bottom = u;
+    while (bottom < r && stress[bottom]! > stress[r]! + Math.max(tol, 0.1 * drop)) bottom++; // samples at about zero load after fracture are not the fall
+    if (bottom - u < UNLOAD_MIN_SAMPLES) {
+      let reloaded = false;
+      for (let q = r + 1; q < n && !reloaded; q++) reloaded = stress[q]! >= stress[r]! + 0.5 * drop;
+      if (!reloaded) { i = r + 1; continue; }
+    }
     const Eu = (stress[u]! - stress[r]!) / (ts(u) - ts(r));
     const su = stress[u]!;
     // Reload: from the reversal until the strain passes the start of unloading by 0.5 % or the next unloading.

@@ -107,6 +107,9 @@ export function holdoutTally(make: (seed: number, noiseScale: number) => Holdout
     if (a.warnings.some((w) => w.code === 'glitch')) miss('falseGlitch', `${rec.what}: ${a.warnings.find((w) => w.code === 'glitch')!.message}`);
     // Nor as a file that starts over with a second test (testStarts): every record here is one specimen.
     if (a.warnings.some((w) => w.code === 'secondTest')) miss('falseSecondTest', `${rec.what}: ${a.warnings.find((w) => w.code === 'secondTest')!.message}`);
+    // Nor is fracture read as an unloading (no record here is unloaded before it breaks): hold-out C's extensometer reads
+    // the specimen's elastic strain coming back as the load falls, and noise peaks on the samples after fracture.
+    if (a.cycles.length) miss('falseCycle', `${rec.what}: ${a.cycles.length} unload–reload cycle(s) read, the first at sample ${a.cycles[0]!.unloadIndex}`);
     // A change of rate only where the generator made one; and no step of the flow stress there (its m is 0): a step
     // read from the noise would scale the flow curve the laws and Ag are read from.
     const rate = rec.truth.rateRatio ?? 1;

@@ -40,7 +40,10 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 1000 + i);
 // `uncertainReH` with a range that holds the truth (1002: 150.7–159.7 MPa about 153.6; the value itself unchanged).
 // Eighteenth session: the laws' Ag gated at the top model's 99.9 % interval, the interval given widened to hold it:
 // Ag 4 → 3.
-const CEILINGS_NOISY: Record<string, number> = { Ag: 3, Ae: 2, 'Rp0.2': 1 };
+// Nineteenth session: the plateau–hardening hinge's branch kept from bending upward (yieldPoint.ts): Ae 2 → 1 (1152,
+// 0.42 point short, now 0.01; 1110 stays 0.52 long: a Hockett–Sherby branch rising 10 MPa a per cent from the plateau
+// against 2 MPa of noise and 1.5 % serrations, sampled 4× sparser after it).
+const CEILINGS_NOISY: Record<string, number> = { Ag: 3, Ae: 1, 'Rp0.2': 1 };
 // Sixth session: the top fit's bound test allows rounding (a side tied to zero end slope, on its bound by
 // construction, had been refused at random): 28 of the 760 noisy records of the four generators moved by 0.01–0.14
 // point either way, and seed 1110 from 0.398 to 0.423 point off: 52 → 53.

@@ -398,6 +398,30 @@ describe('fracture on a coarse record (tens of points, as a curve read off a cha
     expect(bad, bad.join('\n')).toEqual([]);
   });
 
+  it('a fracture whose extensometer reads the elastic strain coming back, then samples at about zero load: no unload–reload cycle, A at fracture', () => {
+    // INVENTED: as the load falls in one or two samples the extensometer reads the specimen's elastic strain s_f/E
+    // coming back, and 0–40 samples follow at zero load with the record's noise in both channels. Without a reload,
+    // and with a fall of one or two samples, this is fracture, not an unloading (findCycles had counted one "cycle"
+    // on every noisy record of hold-out C, some of them between noise peaks after fracture). A stays the plastic
+    // elongation at the last sample before the fall (0.05 point, a tenth of issue 12's tolerance).
+    const bad: string[] = [];
+    for (let seed = 1; seed <= 8; seed++) {
+      const E = 205000, noise = 0.5 + 0.5 * seed;
+      const full = synthesizeLabRecord({ law: { law: 'voce', sigma0: 250 + 20 * seed, Q: 200, b: 12 }, elasticModulus: E, rng: xoshiro128ss(seed), points: 4000 * seed, noise });
+      const rng = xoshiro128ss(seed, 11);
+      const g = () => (rng.nextFloat() + rng.nextFloat() + rng.nextFloat() - 1.5) * 2; // about unit sd
+      const N = full.strain.length, iFrac = N - 4, eF = full.strain[iFrac]!, sF = full.stress[iFrac]!;
+      const strain = [...full.strain.subarray(0, iFrac + 1)], stress = [...full.stress.subarray(0, iFrac + 1)];
+      if (seed % 2) { strain.push(eF - 0.6 * sF / E); stress.push(0.4 * sF); }
+      for (let k = 0; k <= 5 * (seed - 1); k++) { strain.push(eF - sF / E + 2e-6 * g()); stress.push(noise * g()); }
+      const a = analyzeRecord({ strain, stress }, { fit: false });
+      if (a.cycles.length || a.warnings.some((w) => w.code === 'cycles')) bad.push(`seed ${seed}: ${a.cycles.length} cycle(s), the first unloading at sample ${a.cycles[0]?.unloadIndex} of ${strain.length}`);
+      if (a.fracture.index !== iFrac) bad.push(`seed ${seed}: fracture at sample ${a.fracture.index}, not ${iFrac}`);
+      if (!(Math.abs(a.totalElongationPct - full.truth.totalElongationPct) <= 0.05)) bad.push(`seed ${seed}: A ${a.totalElongationPct.toFixed(3)} % vs ${full.truth.totalElongationPct.toFixed(3)} %`);
+    }
+    expect(bad, bad.join('\n')).toEqual([]);
+  });
+
   it('a record that ends while the load still falls (no sample after fracture, no step over 50 %): fracture where the fall began', () => {
     // The machine stops recording during the fall, spread evenly over the last 3 or 4 samples (to 30 % of the fracture
     // stress; each step under the 50 % that marks a fracture), the strain about still. A had been read at
