@@ -19,9 +19,10 @@ export interface ForceMaximum {
   /**
    * 95 % interval of the strain at maximum force (as `strain`, toe not removed), from the profile of the
    * residual sum over the vertex position: every xv whose best fit has ssr ≤ ssr_min + 3.84·s², with
-   * s² = max(σ̂², ssr_min/(bins − p − 1))·(1 + ρ)/(1 − ρ) (profile-likelihood interval for one parameter,
-   * χ²₁(0.95) = 3.84; Bates & Watts, *Nonlinear Regression Analysis and Its Applications*, §6.1, from memory; ρ the
-   * lag-1 autocorrelation of the residuals), for the kinked and the Rm model, joined with the vertices of the smooth
+   * s² = max(σ̂², ssr_min/(bins − p − 1))·max((1 + ρ)/(1 − ρ), batch-means factor) (profile-likelihood interval for
+   * one parameter, χ²₁(0.95) = 3.84; Bates & Watts, *Nonlinear Regression Analysis and Its Applications*, §6.1, from
+   * memory; ρ the lag-1 autocorrelation of the residuals; the batch-means factor the long-run variance of the residuals
+   * over their variance, for slow disturbances such as hum), for the kinked and the Rm model, joined with the vertices of the smooth
    * and the d⁴ model, and of the smooth d⁴ model where the data do not reject it (Akaike difference ≤ 4).
    */
   strainInterval95: [number, number];
@@ -277,16 +278,37 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   // ρ clamped to [0, 0.9].
   const residualInflation = (xv: number, f: { Rm: number; aL: number; bL: number; aR: number; bR: number; pR: number }) => {
     let num = 0, den = 0, prev = 0;
+    const R = new Float64Array(nb);
     for (let b = 0; b < nb; b++) {
       const u = (bx[b]! - xv) / h, u2 = u * u;
       const r = by[b]! - (f.Rm - (u < 0 ? f.aL * u2 - f.bL * u2 * u : f.aR * u2 - f.bR * u ** f.pR));
       const wr = Math.sqrt(bw[b]!) * r;
+      R[b] = wr;
       den += wr * wr;
       if (b > 0) num += wr * prev;
       prev = wr;
     }
     const rho = den > 0 ? Math.min(0.9, Math.max(0, num / den)) : 0;
-    return (1 + rho) / (1 - rho);
+    let fac = (1 + rho) / (1 - rho);
+    // A slow disturbance (mains hum aliased to a period of a few hundred samples, a drift) is correlated far beyond
+    // lag 1 and bends the top's samples as a whole: the lag-1 factor misses it. The long-run variance by batch means
+    // (the residuals cut into 8 and 16 consecutive batches of at least 8 bins; b·Var(batch mean) over the residual
+    // variance, 1 for independent residuals; Law & Kelton, *Simulation Modeling and Analysis*, §9.5.3, from memory)
+    // is taken where larger, capped at 25. Hold-out C (hum of 0.2–0.3 % of Rm on 4 of its noisy Ag misses, whose
+    // intervals were too narrow and refused the laws): Ag off by more than 0.4 point 13 → 11, outside the interval 4 → 1;
+    // hold-out B 10 → 9 and 2 → 1; the property test and hold-out A unchanged; mean half-width +1–2 %.
+    if (den > 0) {
+      const v0 = den / nb;
+      for (const K of [8, 16]) {
+        const bsz = Math.floor(nb / K);
+        if (bsz < 8) continue;
+        let sm = 0, ss = 0;
+        for (let k = 0; k < K; k++) { let m = 0; for (let q = k * bsz; q < (k + 1) * bsz; q++) m += R[q]!; m /= bsz; sm += m; ss += m * m; }
+        const vm = (ss - (sm * sm) / K) / (K - 1);
+        fac = Math.max(fac, Math.min(25, (bsz * vm) / v0));
+      }
+    }
+    return fac;
   };
   let ciLo = bestX, ciHi = bestX, gLo = bestX, gHi = bestX;
   const G2 = 120;

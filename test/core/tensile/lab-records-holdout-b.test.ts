@@ -47,13 +47,15 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 5000 + i);
 // missed drops are 5042 (4.3: one sample above ReL on the rise, a fall over five) and 5090 (5.5); every other
 // recorded drop is ≥ 9.7 and found: missedYield 2 → 0, lowEvidence 2.
 // The hinge's branch kept from bending upward (yieldPoint.ts): Ae 1 → 0 (5014, 0.45 point short, now inside).
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 2, Ag: 2 };
+// Ag's interval widened by the residuals' long-run variance (batch means) where a slow disturbance bends the top
+// (forceMaximum.ts): Ag 2 → 1 (5126 now inside), Ag off 10 → 9.
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 2, Ag: 1 };
 // Thirteenth session: the sloping Lüders plateau (this generator's, ±0.5 %) fitted with its slope where the data
 // bear it out, and the hinge's window carried along a rising plateau to its knee: noise-free Ae 3 → 0 (they were
 // read 1.2–1.9 points short on plateaus rising 0.40–0.49 %); noisy Ae 1 (seed 5014, 0.45 point short; 0.75 before).
 // The noise-free A ceiling (3) is gone: measured 0 since the fracture point moved to where the fall begins.
 const CEILINGS_CLEAN: Record<string, number> = { quietE: 3, 'Rp0.2': 1 };
-const AG_OFF_NOISY = 10, AG_OFF_CLEAN = 5;
+const AG_OFF_NOISY = 9, AG_OFF_CLEAN = 5;
 
 
 describe('record analysis on 200 hold-out B INVENTED records (a second generator the analysis was not tuned on)', () => {

@@ -43,8 +43,7 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 9000 + i);
 //   back; noise peaks after fracture): now tallied as `falseCycle` (0), see cycles.ts.
 // - Ae: the plateau–hardening hinge's branch no longer bends upward (a convex branch slid the knee early along the
 //   plateau): noisy 9080 −1.29 → −0.40 and 9148 −1.47 → −0.93 point.
-// Left (measured): noisy Ag 9040, 9061, 9067, 9073 (coarse, flat tops; 9061 2.8 points low with its interval
-// 14.12–15.47 % — the laws refused, the top model's interval too narrow); Ae 9080 (0.40 short) and 9148 (0.93 short:
+// Left (measured): noisy Ag 9061 (2.8 points low; the laws still refused); Ae 9080 (0.40 short) and 9148 (0.93 short:
 // a random-walk plateau that wanders by 1.8 %, read as hardening at its first rise); missedYield 9084 (evidence 8.4:
 // the last 8 samples of the rise fell 3.6 standard errors below the line by chance, the knee test fired and ReH was
 // read on a moving average, below the drop threshold). Noise-free: Ae 22, short by 0.1–0.35 point on 19 (this
@@ -53,9 +52,13 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 9000 + i);
 // from memory — while these serrations fade to nothing before the plateau ends) and by 0.9–1.0 on 9025, 9084, 9148
 // (plateaus that wander by 1.6–1.8 %); Ag 10, 0.10–0.19 point high (a necking side s = Rm − c·u^q with q down to 1.8,
 // sharper than any smooth top); ReL 9025, 9148 (wandering plateaus); quietE 9116 (a 0.244 % seating toe).
-const CEILINGS_NOISY: Record<string, number> = { Ag: 4, Ae: 2, missedYield: 1 };
-const AG_OFF_NOISY = 13;
-const CEILINGS_CLEAN: Record<string, number> = { Ag: 10, ReL: 2, Ae: 22, quietE: 1 };
+// Then Ag's interval widened by the residuals' long-run variance from batch means (forceMaximum.ts): the four noisy
+// Ag misses all had hum of 0.2–0.3 % of Rm, which the top's vertex followed while its interval, widened for lag-1
+// correlation only, refused the laws. Noisy Ag 4 → 1 (9061 left: 14.93 against 17.74, interval 13.99–15.72), Ag off
+// 13 → 11; noise-free Ag 10 → 8.
+const CEILINGS_NOISY: Record<string, number> = { Ag: 1, Ae: 2, missedYield: 1 };
+const AG_OFF_NOISY = 11;
+const CEILINGS_CLEAN: Record<string, number> = { Ag: 8, ReL: 2, Ae: 22, quietE: 1 };
 
 describe('record analysis on 200 hold-out C INVENTED records (a third generator the analysis was not tuned on)', () => {
   it("with noise: issue 12's tolerances", () => {
