@@ -50,6 +50,14 @@ export const YIELD_DROP = {
   kneeMinRel: 0.001,
   /** A fall of at least this many samples is located as a change point; fewer are read as recorded. */
   fallPoints: 3,
+  /**
+   * Walking back down the rise (to fit the elastic line, or the rise line that ReH is read on), an earlier peak is a
+   * sample this many noise sd above the one after it. The difference of two noisy samples has sd √2·σ̂, and a rise
+   * logged at a constant stress rate (ISO 6892-1 method B) holds thousands of samples, among which a step back of 3σ̂
+   * was sure to occur: the walk stopped a few samples before the peak and the line refitted there was the noise's
+   * (an invented 79,008-point record with a 5 % yield drop of evidence 21 went unreported; hold-out C).
+   */
+  riseStepSigmas: 8,
 } as const;
 
 /**
@@ -98,10 +106,8 @@ export function yieldPoint(
   if (strain[q]! - toe - stress[q]! / E > Y.maxPeakPlastic) return null;
   // ReH from a line through the rising samples above half the peak stress, read at the peak.
   let k0 = q;
-  // (Stopping only at a sample 8 noise sd above the next, as in elasticDeparture: a rise logged at a constant stress
-  // rate has far more samples than the noise allows a 3σ̂ rule to pass, and a short line made the knee test below fire
-  // on a sharp peak.)
-  while (k0 > fromIndex && stress[k0 - 1]! >= 0.5 * stress[q]! && stress[k0 - 1]! < stress[k0]! + 8 * noise) k0--;
+  // (Stopping at an earlier peak, YIELD_DROP.riseStepSigmas: a short line made the knee test below fire on a sharp peak.)
+  while (k0 > fromIndex && stress[k0 - 1]! >= 0.5 * stress[q]! && stress[k0 - 1]! < stress[k0]! + Y.riseStepSigmas * noise) k0--;
   let reh = stress[q]!;
   let seReh = noise;
   let rise: { a: number; b: number } | null = null;
@@ -654,13 +660,9 @@ function elasticDeparture(strain: ArrayLike<number>, stress: ArrayLike<number>, 
   const depart = (start: number) => departure(strain, stress, lineA, lineB, lineFrom, Y.departSigmas * noise, start, maxIndex);
   let d = depart(fromIndex);
   for (let round = 0; round < 4 && d > 0; round++) {
-    // Back down the rise to a fifth of the stress, stopping at an earlier peak (a sample clearly above the one after
-    // it). "Clearly" is 8 noise sd: the difference of two noisy samples has sd √2·σ̂, and a rise logged at a constant
-    // stress rate holds thousands of samples (ISO 6892-1 method B), among which a 3σ̂ step back was sure to occur —
-    // the walk stopped a few samples before the peak, the line refitted there was the noise's, and the departure
-    // went to the neck (an invented 79,008-point record, yield drop 5 %, evidence 21: not reported).
+    // Back down the rise to a fifth of the stress, stopping at an earlier peak (YIELD_DROP.riseStepSigmas).
     let a = d;
-    while (a > fromIndex && stress[a - 1]! >= 0.2 * stress[d - 1]! && stress[a - 1]! <= stress[a]! + 8 * noise) a--;
+    while (a > fromIndex && stress[a - 1]! >= 0.2 * stress[d - 1]! && stress[a - 1]! <= stress[a]! + Y.riseStepSigmas * noise) a--;
     if (d - a < 3) break;
     let f;
     try { f = linearFit(strain, stress, a, d); } catch { break; }
