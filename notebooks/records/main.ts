@@ -341,6 +341,6 @@ function agBasis(a: { forceMaximum: { uniformElongationInterval95: [number, numb
   const [lo, hi] = a.forceMaximum.uniformElongationInterval95;
   const range = `${fixed(lo, 2)} to ${fixed(hi, 2)} %`;
   const laws = a.forceMaximum.lawUniformElongation;
-  if (laws?.pct != null) return `Ag: where the fitted hardening laws reach maximum force, inside the range the samples near the top allow (95 %: ${range}).`;
-  return `Ag: from a local fit of the samples near the top (95 %: ${range})${laws ? '; the fitted laws put maximum force outside that range, so they are not used' : ''}.`;
+  if (laws?.pct != null) return `Ag: where the fitted hardening laws reach maximum force, which the samples near the top do not rule out (95 %: ${range}).`;
+  return `Ag: from a local fit of the samples near the top (95 %: ${range})${laws ? '; the fitted laws put maximum force where the samples near the top rule it out, so they are not used' : ''}.`;
 }

@@ -60,7 +60,7 @@ describe('strainledger analyze RECORD --format json', () => {
     const file = join(dir, 'invented-swift.csv');
     writeFileSync(file, 'strain,stress_MPa\n' + Array.from(rec.strain, (e, i) => `${e},${rec.stress[i]}`).join('\n') + '\n');
     const inv = run('analyze', file);
-    expect(inv.stdout).toContain('(Ag where the fitted laws reach maximum force, inside the top');
+    expect(inv.stdout).toContain('(Ag where the fitted laws reach maximum force, which the samples near the top do not rule out; 95 % range');
     const k = JSON.parse(run('analyze', file, '--format', 'json').stdout);
     expect(Math.abs(k.uniformElongationPct - rec.truth.uniformElongationPct)).toBeLessThan(0.1);
   });

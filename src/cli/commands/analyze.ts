@@ -128,7 +128,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
   const agCi = a.forceMaximum.uniformElongationInterval95;
   const agHow = ge('tensileStrength') ? '   (the record ends before maximum force)'
     : ge('uniformElongationPct') ? '   (the strain channel ends before maximum force)'
-      : (a.forceMaximum.lawUniformElongation?.pct != null ? `   (Ag where the fitted laws reach maximum force, inside the top's 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`
+      : (a.forceMaximum.lawUniformElongation?.pct != null ? `   (Ag where the fitted laws reach maximum force, which the samples near the top do not rule out; 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`
         : `   (Ag from the samples near the top, 95 % range ${fmt(agCi[0], 2)}–${fmt(agCi[1], 2)} %)`) + (!ge('totalElongationPct') ? '' : a.strainChannelEnd ? '; A: the strain channel ends before fracture' : '; A: the test was stopped before fracture');
   lines.push(`  Ag / Agt / A ${ge('uniformElongationPct')}${fmt(a.uniformElongationPct, 2)} / ${ge('uniformTotalElongationPct')}${fmt(a.uniformTotalElongationPct, 2)} / ${ge('totalElongationPct')}${fmt(a.totalElongationPct, 2)} %${agHow}`);
   // The basis of every stress, as a certificate reader checks it first (docs/bases-and-units.md).

@@ -85,7 +85,8 @@ export const ANALYZE_DEFAULTS = {
  * σ = s·(1 + e), ε = ln(1 + e), εp = ε − σ/E. Ag = e(Fm) − Rm/E, Agt = Ag + Rm/E, A = e_f − s_f/E
  * (ISO 6892-1 §3.6.4–3.6.6 read from the extensometer record), all toe-compensated. Fm is placed by the
  * local top model, or by the six hardening laws fitted to the flow curve where their maximum of force lies
- * inside the top model's 95 % interval ({@link lawUniformElongation}; the six are fitted for this even with
+ * inside the top model's 99.9 % interval (LAW_GATE_CHI2; the 95 % interval reported is then widened to hold it;
+ * {@link lawUniformElongation}; the six are fitted for this even with
  * `fit: false` or fewer `laws`, so Ag does not depend on those options).
  * First, samples an acquisition glitch put far off their agreeing neighbours (alone or a few in a row) are read on the
  * line between those neighbours ({@link findGlitches}, warning `glitch`), and a strain channel that stops following the specimen before
@@ -486,7 +487,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     }
   }
   // Ag from the hardening laws fitted to the uniform part of the curve (their maximum of engineering stress, used
-  // where it lies inside the top model's 95 % interval, Akaike-weighted; lawTop.ts). Always the six laws, whichever laws were
+  // where it lies inside the top model's 99.9 % interval, Akaike-weighted; lawTop.ts). Always the six laws, whichever laws were
   // asked for (or none, fit: false), so that Ag does not depend on that choice; not where the record ends before
   // maximum force (the laws would extrapolate) or the flow curve is too short to fit.
   let agLaws = null;
