@@ -133,6 +133,8 @@ export { findRateChange, rateStep, RATE_CHANGE } from './tensile/rateChange.js';
 export type { RateJump, RateStep } from './tensile/rateChange.js';
 export { extensometerEnd, EXTENSOMETER_END } from './tensile/extensometerEnd.js';
 export type { ExtensometerEnd } from './tensile/extensometerEnd.js';
+export { strainSteps, spreadStrainSteps, STRAIN_STEPS } from './tensile/strainSteps.js';
+export type { StrainSteps } from './tensile/strainSteps.js';
 export { testStarts, TEST_START } from './tensile/testStarts.js';
 export { droppedRows, findGlitches, glitchRun, GLITCH } from './tensile/glitches.js';
 export type { DroppedRows, Glitch } from './tensile/glitches.js';

@@ -66,6 +66,7 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     toeStrain: a.toeStrain,
     fracture: a.fracture,
     strainChannelEnd: a.strainChannelEnd,
+    strainSteps: a.strainSteps,
     rateChange: a.rateChange,
     yieldPlateau: a.yieldPlateau,
     forceTop: a.forceTop,

@@ -8,6 +8,7 @@ import { EXTENSOMETER_END, extensometerEnd, type ExtensometerEnd } from './exten
 import { forceMaximum } from './forceMaximum.js';
 import { droppedRows, findGlitches, glitchRun, GLITCH } from './glitches.js';
 import { recordNoiseWide } from './recordNoise.js';
+import { spreadStrainSteps, strainSteps, STRAIN_STEPS, type StrainSteps } from './strainSteps.js';
 import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
 import { lawDataRanged, type LawData } from '../fit/lawNormalEquations.js';
 import { LAW_NAMES } from '../flow/params.js';
@@ -147,14 +148,26 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   while (lo < N && !(stress[lo]! >= LOADED * sMax)) lo++;
   while (hi > lo && !(stress[hi - 1]! >= LOADED * sMax)) hi--;
   const noise = hi - lo >= 16 ? recordNoiseWide(stress, lo, hi) : recordNoiseWide(stress);
+  // A strain column written with too few digits (percent with two decimals: steps of 1e-4) holds each reading while
+  // the stress climbs by E·q: on the elastic rise a staircase that read as a bend ("gradual yielding") and hid a
+  // yield drop of evidence 366 on an invented record. Read between its steps (each value inside its recorded step).
+  // (the rise: to the first sample at half the highest stress)
+  let rise = lo;
+  while (rise < hi && !(stress[rise]! >= 0.5 * sMax)) rise++;
+  const steps = strainSteps(strain, lo, hi, rise);
+  if (steps?.coarse) {
+    strain = spreadStrainSteps(strain, steps.step);
+    strainMoves.length = 0;
+    iRaw = finiteArgMax(strain, stress, strainMoves);
+  }
   // A strain channel that stops following the specimen (extensometer taken off, reset, out of range): every
   // property that needs strain is read before that point; the force after it still counts for Rm.
-  const end = extensometerEnd(strain, stress, sMax, noise, strainMoves.length < MAX_CANDIDATES ? strainMoves : undefined);
-  if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null, early);
+  const end = extensometerEnd(strain, stress, sMax, noise, strainMoves.length < MAX_CANDIDATES ? strainMoves : undefined, steps?.step ?? 0);
+  if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null, early, steps);
   if (end.index < 10) throw new InputError(`strain[${end.index}]`, strain[end.index]!, `a strain channel that follows the specimen for at least 10 samples; it ${end.kind === 'held' ? 'holds one value' : end.kind === 'reset' ? 'falls back by more than any elastic recovery' : 'jumps by far more than its steps'} from sample ${end.index} while the force goes on (extensometer taken off?)`);
   const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, end.index) : Array.prototype.slice.call(a, 0, end.index) as number[]);
   const hs = head(strain), hy = head(stress);
-  return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end }, early);
+  return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end }, early, steps);
 }
 
 /**
@@ -183,11 +196,15 @@ interface ForceTail { stress: ArrayLike<number>; end: ExtensometerEnd }
  * analyzeRecord on the samples whose strain follows the specimen (all of them, or those before the strain
  * channel's end, with the whole record's stress in `tail`).
  */
-function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, noise: number, opts: AnalyzeOptions, tail: ForceTail | null, early: TensileWarning[]): TensileAnalysis {
+function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, noise: number, opts: AnalyzeOptions, tail: ForceTail | null, early: TensileWarning[], steps: StrainSteps | null): TensileAnalysis {
   const N = strain.length;
   const warnings: TensileWarning[] = [...early];
   const sMax = stress[iRaw]!;
   let el = elasticModulus(strain, stress, sMax, noise);
+  // A strain column in steps whose rounding on the rise matters (E·q/√12 above half the load's noise): E again,
+  // each line's scatter with that rounding (what is left of it where the strain was read between its steps).
+  const xRounding = steps ? steps.step / Math.sqrt(12) / (steps.coarse ? Math.max(1, steps.riseSamplesPerReading) : 1) : 0;
+  if (steps && (el.modulus * steps.step) / Math.sqrt(12) > STRAIN_STEPS.materialShare * noise) el = elasticModulus(strain, stress, sMax, noise, xRounding);
   const given = opts.elasticModulus;
   if (given !== undefined && !(given > 0 && Number.isFinite(given))) throw new InputError('elasticModulus', given, 'a modulus > 0 MPa');
   // Strain from the machine's travel with the specimen's E given: the machine's and grips' compliance taken out, then
@@ -210,7 +227,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
         lengthRatio = tl.gaugeLength / tl.parallelLength;
         strain = spreadOverParallelLength(strain, stress, given, lengthRatio);
       }
-      el = elasticModulus(strain, stress, sMax, noise);
+      el = elasticModulus(strain, stress, sMax, noise, xRounding);
       warnings.push({
         code: 'machineCompliance',
         message: `strain from the machine's travel: its elastic slope ${(apparent.modulus / 1000).toFixed(1)} GPa (band ${apparent.window.fromStress.toFixed(0)}–${apparent.window.toStress.toFixed(0)} MPa) against the given E ${(given / 1000).toFixed(1)} GPa is the machine's and grips' compliance, taken out as a linear spring: e − s·${compliance.toExponential(2)} /MPa. Rp0.2 is then close to an extensometer's; ` +
@@ -298,7 +315,22 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const endedInFall = fall >= 0 && fall0 < 0;
   const detected = fall >= 0;
   const fi = detected ? fall : N - 1;
-  const ypView = yieldPoint(ls, ss, E, toe, toView(el.window.fromIndex), toView(fi), noise);
+  // A strain column on steps too coarse for the rise (not spread: it moves every sample or so) puts E·q/√12 of stress
+  // error on each rise sample, the uniform rounding error's (common practice): with steps of 1e-4 on steel, 6 MPa
+  // against a load noise of 0.5 MPa, and the knee test read a sharp 7.7 % peak as a rounded knee, ReH 2.6 % low.
+  // Read between its steps (spreadStrainSteps), a reading held over m samples of the rise is placed to about q/m.
+  const rounding = steps ? (E * steps.step) / Math.sqrt(12) : 0;
+  const riseRounding = steps ? rounding / (steps.coarse ? Math.max(1, steps.riseSamplesPerReading) : 1) : 0;
+  const keptSteps = steps && rounding > STRAIN_STEPS.materialShare * noise ? steps : null;
+  if (keptSteps) {
+    warnings.push({
+      code: 'coarseStrain',
+      message: `the strain column is written in steps of ${+(100 * keptSteps.step).toPrecision(3)} % (its resolution in this file): on the elastic rise a step is ${(E * keptSteps.step).toPrecision(3)} MPa of stress, its rounding (${rounding.toPrecision(2)} MPa sd) ${rounding > noise ? 'above' : 'near'} the load's noise (${noise.toPrecision(2)} MPa). ` +
+        (keptSteps.coarse ? `The column holds each reading for ${keptSteps.samplesPerReading.toFixed(1)} samples on average (${keptSteps.riseSamplesPerReading.toFixed(1)} on the rise): between its steps the strain is read on a line in sample order, each value inside its recorded step (taken as exact, the steps read as a staircase on the rise). ` : '') +
+        `The tests on the rise allow for what rounding is left; E, Rp0.2 and ReH carry it. Export the strain with more digits if the machine records them`,
+    });
+  }
+  const ypView = yieldPoint(ls, ss, E, toe, toView(el.window.fromIndex), toView(fi), noise, keptSteps ? riseRounding : 0);
   const yp = ypView && loading ? { ...ypView, peakIndex: loading.kept[ypView.peakIndex]!, plateauFrom: loading.kept[ypView.plateauFrom]!, endIndex: loading.kept[ypView.endIndex]! } : ypView;
   // A yield plateau with no upper yield point clear of the noise (a coarse or noisy record that missed the peak):
   // ReH, ReL and Ae are not reported, but the flow curve the laws are fitted to starts at its end (yieldPlateau).
@@ -557,6 +589,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     lowerBounds,
     strainChannelEnd: tail ? { ...tail.end } : null,
     furtherTests: [],
+    strainSteps: keptSteps,
     rateChange,
     yieldPlateau: plateau ? { level: plateau.level, startStrain: strain[plateau.startIndex]! - toe, endStrain: strain[plateau.endIndex]! - toe, startIndex: plateau.startIndex, endIndex: plateau.endIndex } : null,
     forceTop: force && maxInTail ? { stress: force.top.stress, index: force.top.index, points: force.top.points, method: 'top model of the force against sample number (uniform in time) past the strain channel\'s end, fitted as the top against strain is' } : null,

@@ -62,7 +62,7 @@ interface Line { slope: number; intercept: number; n: number; se: number; ssr: n
  * 1,000,000-row record). `se` is the slope's standard error with the residual scale floored at the record's
  * noise: max(σ̂, s)/√Sxx, so 4 points that happen to lie on a line do not claim a tiny interval.
  */
-function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, noise: number, stride = 1): Line | null {
+function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: number, noise: number, stride = 1, xNoise = 0): Line | null {
   let xs: ArrayLike<number> = x, ys: ArrayLike<number> = y, a = from, b = to;
   if (stride > 1) {
     const m = Math.ceil((to - from) / stride);
@@ -83,7 +83,9 @@ function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: numb
     for (let i = a; i < b; i++) sxx += (xs[i]! - mx) ** 2;
     invRootSxx = 1 / Math.sqrt(sxx);
   }
-  return { slope: f.slope, intercept: f.intercept, n: f.n, ssr: f.ssr, r2: f.r2, se: Math.max(noise, s) * invRootSxx };
+  // The strain's own rounding (xNoise, a coarse column's) moves each sample off the line by slope·xNoise as well.
+  const floor = xNoise > 0 ? Math.hypot(noise, f.slope * xNoise) : noise;
+  return { slope: f.slope, intercept: f.intercept, n: f.n, ssr: f.ssr, r2: f.r2, se: Math.max(floor, s) * invRootSxx };
 }
 
 /**
@@ -128,6 +130,9 @@ function trimCurvature(x: ArrayLike<number>, y: ArrayLike<number>, from: number,
  *    curve is fitted from there to 70 % of Rp0.2 ({@link initialTangent}); a significant bend that agrees with
  *    the band's lowest part and whose initial tangent is above the line's slope makes the tangent E
  *    (`gradualYield`), its interval reaching down to the line's secant.
+ * With `strainRounding` (sd of a coarse strain column's rounding, strain fraction: q/√12 for steps of q, less where
+ * the strain was read between its steps) every line's noise floor is √(σ̂² + (slope·strainRounding)²), and the toe,
+ * curvature and bend tests use that scatter: a band of four rounded samples no longer wins on a lucky slope.
  * The 95 % interval is E ± t(0.975, n − 2)·SE (Student t). Issues are returned, not thrown: E outside
  * 40–450 GPa (common practice), fewer than 8 points, an interval wider than ±10 %.
  * Units: strain fraction, stress MPa, E MPa. Valid: at least 4 points on the rising branch.
@@ -135,7 +140,7 @@ function trimCurvature(x: ArrayLike<number>, y: ArrayLike<number>, from: number,
  * @throws InputError when no band holds 4 points.
  * @example elasticModulus([0, 0.001, 0.002, 0.003, 0.004, 0.005], [0, 200, 400, 600, 800, 1000]).modulus // 200000
  */
-export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<number>, rm?: number, noiseIn?: number): ElasticResult {
+export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<number>, rm?: number, noiseIn?: number, strainRounding = 0): ElasticResult {
   const n = stress.length;
   let top = rm ?? 0;
   if (rm === undefined) for (let i = 0; i < n; i++) top = Math.max(top, stress[i]!);
@@ -160,7 +165,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
       const i0 = firstAt(a * top), i1 = firstAt(b * top);
       if (i1 - i0 < W.minPoints) continue;
       // A first line only: bands of many samples are thinned to about 2000 (keeps the search O(n) overall).
-      const f = line(strain, stress, i0, i1, noise, Math.max(1, Math.floor((i1 - i0) / 2000)));
+      const f = line(strain, stress, i0, i1, noise, Math.max(1, Math.floor((i1 - i0) / 2000)), strainRounding);
       if (!f || !(f.slope > 0)) continue;
       const score = f.slope - 2 * seOf(f);
       if (!best || score > best.score) best = { score, f, i0, i1 };
@@ -173,6 +178,8 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   // 3–4. Final band tied to Rp0.2, refitted once if Rp0.2 moves.
   for (let pass = 0; pass < 2; pass++) {
     const E1 = fit.slope, toe1 = -fit.intercept / E1;
+    // The scatter of a rise sample about the line: the load's noise and the strain's rounding through the slope.
+    const noiseX = strainRounding > 0 ? Math.hypot(noise, E1 * strainRounding) : noise;
     const p = proofStrength(strain, stress, E1, toe1, 0.002, i0, n);
     const P = p ? p.stress : top;
     if (pass === 1 && Math.abs(P - proofEst) <= 0.02 * proofEst) break;
@@ -180,7 +187,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     // Toe: the run of samples from the start lying clearly above the line (ends at the first two in a row
     // that do not); a single noisy sample higher up is not a toe.
     let toeTop = 0;
-    const tol = W.toeResidual * Math.max(noise, 1e-9 * top);
+    const tol = W.toeResidual * Math.max(noiseX, 1e-9 * top);
     const lim = firstAt(W.band[1] * P);
     for (let i = 0; i < lim; i++) {
       const above = stress[i]! - E1 * (strain[i]! - toe1) > tol;
@@ -196,9 +203,9 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
     for (const need of [W.fewPoints, W.minPoints]) {
       for (const frac of [W.band[1], ...W.widerTops]) {
         const hi = Math.max(frac * P, lo + 0.1 * P);
-        const [j0, j1] = trimCurvature(strain, stress, firstAt(lo), firstAt(hi), noise);
+        const [j0, j1] = trimCurvature(strain, stress, firstAt(lo), firstAt(hi), noiseX);
         if (j1 - j0 < need) continue;
-        const f = line(strain, stress, j0, j1, noise);
+        const f = line(strain, stress, j0, j1, noise, 1, strainRounding);
         if (f && f.slope > 0 && (!chosen || f.se < chosen.f.se)) chosen = { f, i0: j0, i1: j1, hi: stress[j1 - 1]! };
       }
       if (chosen) break;
@@ -232,12 +239,13 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   // open records such a band gave tangents 4–6 % above the producers' E).
   if (!fallback && bandLo <= W.gradualFrom * proofEst) {
     const ia = firstAt(bandLo), ib = firstAt(W.gradualTop * proofEst);
-    const tg = initialTangent(strain, stress, ia, ib, noise, W.curvatureSigmas);
+    const noiseX = strainRounding > 0 ? Math.hypot(noise, E * strainRounding) : noise;
+    const tg = initialTangent(strain, stress, ia, ib, noiseX, W.curvatureSigmas);
     // The bent fit must also agree with the band's lowest part (10–30 % of Rp0.2): the slope of a line through
     // its own values there must match the data's line within 3 SE; a tangent far above the data is the bend
     // term fitting noise, not the material.
     const jb = Math.min(ib, Math.max(ia + W.fewPoints, firstAt(0.3 * proofEst)));
-    const low = line(strain, stress, ia, jb, noise);
+    const low = line(strain, stress, ia, jb, noise, 1, strainRounding);
     let agrees = true;
     if (tg && low) {
       const xm = new Float64Array(jb - ia);

@@ -74,6 +74,10 @@ export const EXTENSOMETER_END = {
  *   samples early). On the open 42CrMoS4 records held after maximum force this finds channels 2–10 × 1e-4 peak to
  *   peak that the samples alone did not, and never fires on the ten records with that much noise added to a channel
  *   that follows the specimen (test/core/tensile/noisy-held.test.ts).
+ * - on a coarse channel (`resolution` q > 0: the strain written in steps of q, {@link strainSteps}) both held tests
+ *   also need Δs/(2·E_HIGH) > q: a working channel holds each reading until the specimen has moved by a step, over
+ *   the last samples of necking too (steps of 1e-4 held 13 samples there on an invented record and read as the
+ *   extensometer taken off).
  * Cost: O(N), one pass; with `moves`
  * (every index i, ascending, where |e[i] − e[i−1]| passes a limit no larger than resetMargin: a superset of the
  * resets and jumps) only those and the held run's length.
@@ -81,7 +85,7 @@ export const EXTENSOMETER_END = {
  * @example extensometerEnd([0, 0.001, 0.002, 0.003, 0.004, 0.004, 0.004, 0.004, 0.004, 0.004], [0, 200, 300, 350, 380, 390, 400, 405, 402, 0], 405, 1)
  *   // { index: 5, kind: 'held', strain: 0.004, samplesAfter: 5 }
  */
-export function extensometerEnd(strain: ArrayLike<number>, stress: ArrayLike<number>, sMax: number, noise: number, moves?: readonly number[]): ExtensometerEnd | null {
+export function extensometerEnd(strain: ArrayLike<number>, stress: ArrayLike<number>, sMax: number, noise: number, moves?: readonly number[], resolution = 0): ExtensometerEnd | null {
   const N = strain.length;
   const L = EXTENSOMETER_END;
   const carrying = L.carrying * sMax;
@@ -114,14 +118,19 @@ export function extensometerEnd(strain: ArrayLike<number>, stress: ArrayLike<num
     let lo = stress[c]!, hi = lo, k = c + 1, top = lo;
     for (; k < stop; k++) {
       const s = stress[k]!;
-      if (s < carrying || s < 0.5 * top) break;
+      // The fracture fall's steps (each a drop of more than max(6σ̂, 3 %) of the stress, noisyHeld's rule) are no
+      // evidence either: the specimen breaks at about constant strain (a coarse channel's reading held through a
+      // fall of 476 → 283 MPa had read as the channel ending, invented hold-out B records in steps of 1e-4).
+      if (s < carrying || s < 0.5 * top || stress[k - 1]! - s > Math.max(6 * noise, 0.03 * stress[k - 1]!)) break;
       if (s > top) top = s;
       if (s < lo) lo = s; else if (s > hi) hi = s;
     }
     // The held reading at c is the channel's last true one; the force after it is not matched by strain.
-    if (k - c >= L.heldSamples && hi - lo > heldChange) return { index: c + 1, kind: 'held', strain: v, samplesAfter: N - c - 1 };
+    // On a coarse channel (steps of `resolution`) a working extensometer holds a reading until the specimen has moved
+    // by a step: the change of force must move it by more than that (Δs/(2·E_HIGH), as for the noisy test below).
+    if (k - c >= L.heldSamples && hi - lo > heldChange && (hi - lo) / (2 * L.highestModulus) > resolution) return { index: c + 1, kind: 'held', strain: v, samplesAfter: N - c - 1 };
   }
-  const quiet = noisyHeld(strain, stress, stop, carrying, heldChange, noise);
+  const quiet = noisyHeld(strain, stress, stop, carrying, heldChange, noise, resolution);
   if (quiet >= 0) return { index: quiet + 1, kind: 'held', strain: strain[quiet]!, samplesAfter: N - quiet - 1 };
   if (reset >= 0) {
     // A reset or jump after a held run shorter than the rule (or none): the channel is read to the sample before it.
@@ -163,7 +172,7 @@ function isReset(fall: number, s: number, sp: number, carrying: number, margin: 
  * are at least noisyHeldSamples, the force changed over them by more than `heldChange`, and Δs/(2·E_HIGH) exceeds
  * both the strain's range over them and 8σ̂ₑ (the stall stands clear of the noise); else −1.
  */
-function noisyHeld(strain: ArrayLike<number>, stress: ArrayLike<number>, stop: number, carrying: number, heldChange: number, noise: number): number {
+function noisyHeld(strain: ArrayLike<number>, stress: ArrayLike<number>, stop: number, carrying: number, heldChange: number, noise: number, resolution = 0): number {
   const L = EXTENSOMETER_END;
   let f = stop;
   while (f > 0 && !(stress[f - 1]! >= carrying)) f--;
@@ -178,7 +187,8 @@ function noisyHeld(strain: ArrayLike<number>, stress: ArrayLike<number>, stop: n
   // follows the specimen cannot do).
   for (const m of L.noisyHeldMeans) {
     if (f < m * L.noisyHeldSamples + 2) break;
-    const c = heldRun(strain, stress, f, carrying, heldChange, (8 * sigmaE) / Math.sqrt(m), m);
+    // A coarse channel's step is a floor no mean lowers (a held reading is the same in every window).
+    const c = heldRun(strain, stress, f, carrying, heldChange, Math.max((8 * sigmaE) / Math.sqrt(m), resolution), m);
     if (c >= 0) return c;
   }
   return -1;

@@ -1,6 +1,7 @@
 import type { LawName } from '../flow/types.js';
 import type { LawTop } from './lawTop.js';
 import type { ExtensometerEnd } from './extensometerEnd.js';
+import type { StrainSteps } from './strainSteps.js';
 import type { LawComparison } from '../fit/fitAllLaws.js';
 
 /** A tensile record as the core takes it: engineering strain (fraction) and engineering stress (MPa), same length. */
@@ -11,7 +12,7 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles' | 'strainChannelEnds' | 'unloadedBeforeFracture' | 'glitch' | 'secondTest'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'machineCompliance' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp' | 'rateChange' | 'yieldPlateau';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'machineCompliance' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp' | 'rateChange' | 'yieldPlateau' | 'coarseStrain';
   message: string;
 }
 
@@ -188,6 +189,14 @@ export interface TensileAnalysis {
    * ascending. The analysis is of the samples before the first of them. Empty for a record of one test.
    */
   furtherTests: number[];
+  /**
+   * The steps the strain column is written in, where they matter (strainSteps; warning `coarseStrain`): a coarse
+   * channel, one that holds each reading over several samples and then moves by a whole step, whose strain was read
+   * between its steps (spreadStrainSteps) before anything else; or one that moves every sample or so in steps whose
+   * rounding on the elastic rise (E·q/√12) exceeds half the load's noise, allowed for by the rise's tests. Null
+   * otherwise (a fine or continuous channel).
+   */
+  strainSteps: StrainSteps | null;
   /**
    * A change of the test rate on the plastic part (findRateChange; warning `rateChange`), `index` the record's;
    * `flowCurveFactor` the factor the flow curve after it was scaled by before the n-value and the laws were fitted

@@ -83,15 +83,22 @@ export const YIELD_DROP = {
  *   one). The plateau after it and the start of hardening are fitted together ({@link plateauHinge}); ReL is the
  *   plateau's trough level, Ae ends where the hardening branch leaves it (the ASTM E8 YPE construction takes the
  *   hardening branch's meeting with the plateau, from memory).
+ * On a strain column written in coarse steps q (not read between them), `riseRounding` = E·q/√12 (MPa) joins σ̂ in
+ * quadrature for the rise: its line, the peak's place on it and the knee test.
  * Units: strain fraction (toe-compensated by `toe`), stress MPa; σ̂ = `noise` in MPa. `maxIndex`: the
  * last index to look at (fracture); the plateau ends before the highest stress after the departure.
  * Cost: O(n). @returns null for continuous yielding.
  */
 export function yieldPoint(
   strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, fromIndex: number, maxIndex: number, noise: number,
+  riseRounding = 0,
 ): YieldPointResult | null {
   const Y = YIELD_DROP;
   const d = elasticDeparture(strain, stress, E, toe, fromIndex, maxIndex, noise);
+  // The scatter of a rise sample about the rise line: the load's noise and, on a strain column written in coarse
+  // steps, the strain's rounding seen through the rise's slope (E·q/√12). The rise line, the peak's place on it and
+  // the knee test use it; the plateau and the fall, nearly flat in strain, the load's noise alone.
+  const noiseR = Math.hypot(noise, riseRounding);
   if (d < 1) return null;
   // Maximum force after the departure (ISO 6892-1: Fm after work hardening begins) bounds the plateau.
   // The search starts where the fall after the departure ends (the first sample that does not fall further
@@ -107,13 +114,13 @@ export function yieldPoint(
   // ReH from a line through the rising samples above half the peak stress, read at the peak.
   let k0 = q;
   // (Stopping at an earlier peak, YIELD_DROP.riseStepSigmas: a short line made the knee test below fire on a sharp peak.)
-  while (k0 > fromIndex && stress[k0 - 1]! >= 0.5 * stress[q]! && stress[k0 - 1]! < stress[k0]! + Y.riseStepSigmas * noise) k0--;
+  while (k0 > fromIndex && stress[k0 - 1]! >= 0.5 * stress[q]! && stress[k0 - 1]! < stress[k0]! + Y.riseStepSigmas * noiseR) k0--;
   let reh = stress[q]!;
-  let seReh = noise;
+  let seReh = noiseR;
   let rise: { a: number; b: number } | null = null;
   // Bounds on the highest noise-free sample (ReH as the record shows it), ±3 sd of each reading. On a coarse
   // record the peak sample may sit on the line or already part-way down the fall: one noisy sample cannot tell.
-  let lo = reh - 3 * noise, hi = reh + 3 * noise;
+  let lo = reh - 3 * noiseR, hi = reh + 3 * noiseR;
   if (q - k0 >= 3) {
     try {
       // The line through the rise with the peak sample left out, so a sample already on the fall cannot pull
@@ -125,17 +132,21 @@ export function yieldPoint(
       rise = { a: f.intercept, b: f.slope };
       const v = f.intercept + f.slope * strain[q]!;
       const before = f.intercept + f.slope * strain[q - 1]!;
-      if (stress[q]! >= v - 1.5 * noise * Math.sqrt(1 + 4 / k)) {
-        reh = v; seReh = noise * Math.sqrt(4 / k);
+      if (stress[q]! >= v - 1.5 * noiseR * Math.sqrt(1 + 4 / k)) {
+        // On a strain column in coarse steps the line read at the peak's rounded strain carries that rounding
+        // (riseRounding) however many samples it rests on; the peak sample, a force reading, only the load's noise.
+        // The more precise of the two is ReH.
+        const seLine = Math.hypot(noise * Math.sqrt(4 / k), riseRounding);
+        if (riseRounding > 0 && seLine > noise) { reh = stress[q]!; seReh = noise; } else { reh = v; seReh = seLine; }
         // The lower bound is the peak sample's own (the highest noise-free sample is at least what q shows, less 3σ̂),
         // not the line at q − 1: on a fall gentle against the noise the highest sample may lie two or more samples
         // past the peak, and the line there stands above every noise-free sample.
-        lo = Math.min(v, stress[q]!) - 3 * noise; hi = v + 3 * seReh;
+        lo = Math.min(v, stress[q]!) - 3 * noiseR; hi = v + 3 * seReh;
       } else {
         reh = Math.max(before, stress[q]!);
         // As above: q − 1 may be past the peak too, so the line there bounds nothing (hold-out A 1002: ReH read on it
         // 2.3 % high, with a range 157.2–159.7 MPa wholly above the truth, 153.6).
-        lo = Math.min(before, stress[q]! - 3 * noise); hi = stress[q]! + 3 * noise;
+        lo = Math.min(before, stress[q]! - 3 * noiseR); hi = stress[q]! + 3 * noiseR;
       }
       // A rounded knee is not a sharp peak: when the last m samples of the rise (m = 4, 8, 16 and a quarter of
       // the rise, each tried) lie below the line through the samples before them by more than 3 standard errors,
@@ -145,7 +156,7 @@ export function yieldPoint(
       // the fall is not a bend of the rise (it made clean records with a sample just past the peak read ReH at the
       // moving average, 0.5–0.7 % low). The noise is floored at 10⁻⁹ of the stress, the arithmetic's own
       // resolution, so the rounding of an exact line does not read as a bend on a noise-free record.
-      const noiseK = Math.max(noise, 1e-9 * Math.abs(stress[q]!));
+      const noiseK = Math.max(noiseR, 1e-9 * Math.abs(stress[q]!));
       for (const m of new Set([4, 8, 16, Math.min(20, Math.round(k / 4))])) {
         // The line the run is compared with rests on at least as many samples as the run (a run of 16 against a line
         // through 9, extrapolated under correlated noise, read a sharp 3.5 % drop as a rounded knee).
