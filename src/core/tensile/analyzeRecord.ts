@@ -150,8 +150,8 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   const noise = hi - lo >= 16 ? recordNoiseWide(stress, lo, hi) : recordNoiseWide(stress);
   // A strain column written with too few digits (percent with two decimals: steps of 1e-4) holds each reading while
   // the stress climbs by E·q: on the elastic rise a staircase that read as a bend ("gradual yielding") and hid a
-  // yield drop of evidence 366 on an invented record. Read between its steps (each value inside its recorded step).
-  // (the rise: to the first sample at half the highest stress)
+  // yield drop of evidence 366 on an invented record. Read between its steps (each value inside its recorded step);
+  // the samples per reading are also counted on the rise (to the first sample at half the highest stress).
   let rise = lo;
   while (rise < hi && !(stress[rise]! >= 0.5 * sMax)) rise++;
   const steps = strainSteps(strain, lo, hi, rise);
@@ -201,10 +201,14 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const warnings: TensileWarning[] = [...early];
   const sMax = stress[iRaw]!;
   let el = elasticModulus(strain, stress, sMax, noise);
-  // A strain column in steps whose rounding on the rise matters (E·q/√12 above half the load's noise): E again,
-  // each line's scatter with that rounding (what is left of it where the strain was read between its steps).
+  // A strain column in steps whose rounding on the rise matters (E·q/√12, the uniform rounding error's sd — common
+  // practice — above half the load's noise): E again, each line's scatter with what rounding is left on the rise
+  // (xRounding, strain: all of it where the column moves every sample or so; read between its steps, a reading held
+  // over m samples of the rise is placed to about q/m).
   const xRounding = steps ? steps.step / Math.sqrt(12) / (steps.coarse ? Math.max(1, steps.riseSamplesPerReading) : 1) : 0;
-  if (steps && (el.modulus * steps.step) / Math.sqrt(12) > STRAIN_STEPS.materialShare * noise) el = elasticModulus(strain, stress, sMax, noise, xRounding);
+  const roundingMatters = (modulus: number) => steps !== null && (modulus * steps.step) / Math.sqrt(12) > STRAIN_STEPS.materialShare * noise;
+  const xr = roundingMatters(el.modulus) ? xRounding : 0;
+  if (xr > 0) el = elasticModulus(strain, stress, sMax, noise, xr);
   const given = opts.elasticModulus;
   if (given !== undefined && !(given > 0 && Number.isFinite(given))) throw new InputError('elasticModulus', given, 'a modulus > 0 MPa');
   // Strain from the machine's travel with the specimen's E given: the machine's and grips' compliance taken out, then
@@ -227,7 +231,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
         lengthRatio = tl.gaugeLength / tl.parallelLength;
         strain = spreadOverParallelLength(strain, stress, given, lengthRatio);
       }
-      el = elasticModulus(strain, stress, sMax, noise, xRounding);
+      el = elasticModulus(strain, stress, sMax, noise, xr);
       warnings.push({
         code: 'machineCompliance',
         message: `strain from the machine's travel: its elastic slope ${(apparent.modulus / 1000).toFixed(1)} GPa (band ${apparent.window.fromStress.toFixed(0)}–${apparent.window.toStress.toFixed(0)} MPa) against the given E ${(given / 1000).toFixed(1)} GPa is the machine's and grips' compliance, taken out as a linear spring: e − s·${compliance.toExponential(2)} /MPa. Rp0.2 is then close to an extensometer's; ` +
@@ -315,14 +319,11 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const endedInFall = fall >= 0 && fall0 < 0;
   const detected = fall >= 0;
   const fi = detected ? fall : N - 1;
-  // A strain column on steps too coarse for the rise (not spread: it moves every sample or so) puts E·q/√12 of stress
-  // error on each rise sample, the uniform rounding error's (common practice): with steps of 1e-4 on steel, 6 MPa
-  // against a load noise of 0.5 MPa, and the knee test read a sharp 7.7 % peak as a rounded knee, ReH 2.6 % low.
-  // Read between its steps (spreadStrainSteps), a reading held over m samples of the rise is placed to about q/m.
-  const rounding = steps ? (E * steps.step) / Math.sqrt(12) : 0;
-  const riseRounding = steps ? rounding / (steps.coarse ? Math.max(1, steps.riseSamplesPerReading) : 1) : 0;
-  const keptSteps = steps && rounding > STRAIN_STEPS.materialShare * noise ? steps : null;
+  // The same rounding on the yield point's rise (E·xRounding of stress on each sample): with steps of 1e-4 on steel,
+  // 6 MPa against a load noise of 0.5 MPa, the knee test read a sharp 7.7 % peak as a rounded knee, ReH 2.6 % low.
+  const keptSteps = roundingMatters(E) ? steps : null;
   if (keptSteps) {
+    const rounding = (E * keptSteps.step) / Math.sqrt(12);
     warnings.push({
       code: 'coarseStrain',
       message: `the strain column is written in steps of ${+(100 * keptSteps.step).toPrecision(3)} % (its resolution in this file): on the elastic rise a step is ${(E * keptSteps.step).toPrecision(3)} MPa of stress, its rounding (${rounding.toPrecision(2)} MPa sd) ${rounding > noise ? 'above' : 'near'} the load's noise (${noise.toPrecision(2)} MPa). ` +
@@ -330,7 +331,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
         `The tests on the rise allow for what rounding is left; E, Rp0.2 and ReH carry it. Export the strain with more digits if the machine records them`,
     });
   }
-  const ypView = yieldPoint(ls, ss, E, toe, toView(el.window.fromIndex), toView(fi), noise, keptSteps ? riseRounding : 0);
+  const ypView = yieldPoint(ls, ss, E, toe, toView(el.window.fromIndex), toView(fi), noise, keptSteps ? E * xRounding : 0);
   const yp = ypView && loading ? { ...ypView, peakIndex: loading.kept[ypView.peakIndex]!, plateauFrom: loading.kept[ypView.plateauFrom]!, endIndex: loading.kept[ypView.endIndex]! } : ypView;
   // A yield plateau with no upper yield point clear of the noise (a coarse or noisy record that missed the peak):
   // ReH, ReL and Ae are not reported, but the flow curve the laws are fitted to starts at its end (yieldPlateau).

@@ -84,8 +84,7 @@ function line(x: ArrayLike<number>, y: ArrayLike<number>, from: number, to: numb
     invRootSxx = 1 / Math.sqrt(sxx);
   }
   // The strain's own rounding (xNoise, a coarse column's) moves each sample off the line by slope·xNoise as well.
-  const floor = xNoise > 0 ? Math.hypot(noise, f.slope * xNoise) : noise;
-  return { slope: f.slope, intercept: f.intercept, n: f.n, ssr: f.ssr, r2: f.r2, se: Math.max(floor, s) * invRootSxx };
+  return { slope: f.slope, intercept: f.intercept, n: f.n, ssr: f.ssr, r2: f.r2, se: Math.max(Math.hypot(noise, f.slope * xNoise), s) * invRootSxx };
 }
 
 /**
@@ -179,7 +178,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   for (let pass = 0; pass < 2; pass++) {
     const E1 = fit.slope, toe1 = -fit.intercept / E1;
     // The scatter of a rise sample about the line: the load's noise and the strain's rounding through the slope.
-    const noiseX = strainRounding > 0 ? Math.hypot(noise, E1 * strainRounding) : noise;
+    const noiseX = Math.hypot(noise, E1 * strainRounding);
     const p = proofStrength(strain, stress, E1, toe1, 0.002, i0, n);
     const P = p ? p.stress : top;
     if (pass === 1 && Math.abs(P - proofEst) <= 0.02 * proofEst) break;
@@ -239,7 +238,7 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   // open records such a band gave tangents 4–6 % above the producers' E).
   if (!fallback && bandLo <= W.gradualFrom * proofEst) {
     const ia = firstAt(bandLo), ib = firstAt(W.gradualTop * proofEst);
-    const noiseX = strainRounding > 0 ? Math.hypot(noise, E * strainRounding) : noise;
+    const noiseX = Math.hypot(noise, E * strainRounding);
     const tg = initialTangent(strain, stress, ia, ib, noiseX, W.curvatureSigmas);
     // The bent fit must also agree with the band's lowest part (10–30 % of Rp0.2): the slope of a line through
     // its own values there must match the data's line within 3 SE; a tangent far above the data is the bend

@@ -83,8 +83,9 @@ export const YIELD_DROP = {
  *   one). The plateau after it and the start of hardening are fitted together ({@link plateauHinge}); ReL is the
  *   plateau's trough level, Ae ends where the hardening branch leaves it (the ASTM E8 YPE construction takes the
  *   hardening branch's meeting with the plateau, from memory).
- * On a strain column written in coarse steps q (not read between them), `riseRounding` = E·q/√12 (MPa) joins σ̂ in
- * quadrature for the rise: its line, the peak's place on it and the knee test.
+ * On a strain column written in coarse steps q, `riseRounding` (MPa: E·q/√12, less where the strain was read between
+ * its steps) joins σ̂ in quadrature for the rise — its line, the peak's place on it and the knee test — and the peak
+ * sample, a force reading, is ReH where the line read at its rounded strain is less precise.
  * Units: strain fraction (toe-compensated by `toe`), stress MPa; σ̂ = `noise` in MPa. `maxIndex`: the
  * last index to look at (fracture); the plateau ends before the highest stress after the departure.
  * Cost: O(n). @returns null for continuous yielding.
@@ -137,11 +138,12 @@ export function yieldPoint(
         // (riseRounding) however many samples it rests on; the peak sample, a force reading, only the load's noise.
         // The more precise of the two is ReH.
         const seLine = Math.hypot(noise * Math.sqrt(4 / k), riseRounding);
-        if (riseRounding > 0 && seLine > noise) { reh = stress[q]!; seReh = noise; } else { reh = v; seReh = seLine; }
+        const bySample = riseRounding > 0 && seLine > noise;
+        if (bySample) { reh = stress[q]!; seReh = noise; } else { reh = v; seReh = seLine; }
         // The lower bound is the peak sample's own (the highest noise-free sample is at least what q shows, less 3σ̂),
         // not the line at q − 1: on a fall gentle against the noise the highest sample may lie two or more samples
-        // past the peak, and the line there stands above every noise-free sample.
-        lo = Math.min(v, stress[q]!) - 3 * noiseR; hi = v + 3 * seReh;
+        // past the peak, and the line there stands above every noise-free sample. The upper bound holds both readings.
+        lo = Math.min(v, stress[q]!) - 3 * noiseR; hi = bySample ? Math.max(v + 3 * seLine, reh + 3 * noise) : v + 3 * seReh;
       } else {
         reh = Math.max(before, stress[q]!);
         // As above: q − 1 may be past the peak too, so the line there bounds nothing (hold-out A 1002: ReH read on it

@@ -121,11 +121,15 @@ describe('analyzeRecord on records whose strain is written in steps of 1e-4 (INV
       expect(Math.abs(a.totalElongationPct - r.truth.aPct), String(seed)).toBeLessThan(0.5);
     }
   });
-  it('the strain written with 6 decimals changes nothing', () => {
+  it('the strain written with 6 decimals: nothing said, the properties as unrounded', () => {
     const r = holdoutRecord(1047, 1);
     const fine = analyzeRecord(rounded(r, 1e-6, 0.01), { fit: false });
+    const raw = analyzeRecord(r, { fit: false });
     expect(fine.strainSteps).toBeNull();
     expect(fine.warnings.some((w) => w.code === 'coarseStrain')).toBe(false);
+    // Rounding of 1e-6 strain and 0.01 MPa moves nothing by more than a few hundredths of a percent.
+    for (const k of ['proofStrength', 'upperYield', 'lowerYield', 'tensileStrength', 'elasticModulus'] as const) expect(Math.abs(fine[k]! / raw[k]! - 1), k).toBeLessThan(5e-4);
+    expect(Math.abs(fine.yieldPointElongationPct! - raw.yieldPointElongationPct!)).toBeLessThan(0.01);
   });
 });
 
