@@ -67,6 +67,7 @@ export function analysisJson(rec: TensileRecord, a: TensileAnalysis, residuals: 
     fracture: a.fracture,
     strainChannelEnd: a.strainChannelEnd,
     strainSteps: a.strainSteps,
+    stressSteps: a.stressSteps,
     rateChange: a.rateChange,
     yieldPlateau: a.yieldPlateau,
     forceTop: a.forceTop,
@@ -117,7 +118,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
       (a.machineCompliance ? ` (machine and specimen; compliance ${a.machineCompliance.toExponential(2)} /MPa taken out${a.parallelLengthRatio ? `, plastic travel over Lc, L0/Lc ${fmt(a.parallelLengthRatio, 3)}` : ''})` : ''));
   }
   else lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa   95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)} GPa, band ${fmt(w.fromStress, 0)}–${fmt(w.toStress, 0)} MPa, ${w.points} points, R² ${w.r2.toFixed(5)}`);
-  lines.push(`  noise        ${a.noise.toPrecision(2)} MPa (estimated from the record)`);
+  lines.push(`  noise        ${a.noise.toPrecision(2)} MPa (estimated from the record${a.stressSteps ? `; at least the rounding of its stress steps of ${+a.stressSteps.step.toPrecision(3)} MPa, step/√12` : ''})`);
   lines.push(`  Rp${a.proofOffsetPct}        ${fmt(a.proofStrength)} MPa   Rp0.5 ${fmt(a.proofStrengths[1]?.stress)}   Rp1 ${fmt(a.proofStrengths[2]?.stress)}   Rt0.5 ${fmt(a.totalExtensionStrength)}`);
   if (a.upperYield !== null) lines.push(`  ReH / ReL    ${fmt(a.upperYield)} / ${fmt(a.lowerYield)} MPa   Ae ${fmt(a.yieldPointElongationPct, 2)} %`);
   else if (a.yieldPlateau) lines.push(`  ReH          none clear of the noise; yield plateau at ${fmt(a.yieldPlateau.level)} MPa from ${fmt(a.yieldPlateau.startStrain * 100, 2)} to ${fmt(a.yieldPlateau.endStrain * 100, 2)} % (laws fitted from its end)`);

@@ -147,7 +147,7 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   let lo = 0, hi = N;
   while (lo < N && !(stress[lo]! >= LOADED * sMax)) lo++;
   while (hi > lo && !(stress[hi - 1]! >= LOADED * sMax)) hi--;
-  const noise = hi - lo >= 16 ? recordNoiseWide(stress, lo, hi) : recordNoiseWide(stress);
+  let noise = hi - lo >= 16 ? recordNoiseWide(stress, lo, hi) : recordNoiseWide(stress);
   // A strain column written with too few digits (percent with two decimals: steps of 1e-4) holds each reading while
   // the stress climbs by E·q: on the elastic rise a staircase that read as a bend ("gradual yielding") and hid a
   // yield drop of evidence 366 on an invented record. Read between its steps (each value inside its recorded step);
@@ -160,14 +160,32 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
     strainMoves.length = 0;
     iRaw = finiteArgMax(strain, stress, strainMoves);
   }
+  // A stress column written with few digits (force in kN with one decimal on a small section, stress in whole MPa
+  // from a quiet machine): a staircase whose treads are longer than the noise can dither, found as the strain's
+  // steps are. Rounded stress in steps of 5 MPa on invented hold-out records with load noise 0.01–0.1 % of Rm had
+  // read Ag 9 points off inside an interval of ±0.2 point and missed yield drops of evidence 180–620: the noise
+  // estimated from the treads was near zero. Read between its steps where the stress rises or falls steadily
+  // (every value inside its recorded step); where it turns (the top, a yield peak, a drop's foot) the step is all
+  // the record knows, so the noise every threshold and interval uses is at least the rounding's sd, q/√12.
+  // Only where the rounding is no small part of what the record scatters by (its sd q/√12 above half the noise
+  // measured on the rounded column, which holds both): a step under the noise dithers and is noise like any other.
+  const stressLattice = strainSteps(stress, lo, hi);
+  const stressSteps = stressLattice?.coarse && stressLattice.step / Math.sqrt(12) > STRAIN_STEPS.materialShare * noise ? stressLattice : null;
+  if (stressSteps) {
+    stress = spreadStrainSteps(stress, stressSteps.step);
+    noise = Math.max(hi - lo >= 16 ? recordNoiseWide(stress, lo, hi) : recordNoiseWide(stress), stressSteps.step / Math.sqrt(12));
+    strainMoves.length = 0;
+    iRaw = finiteArgMax(strain, stress, strainMoves);
+    sMax = stress[iRaw]!;
+  }
   // A strain channel that stops following the specimen (extensometer taken off, reset, out of range): every
   // property that needs strain is read before that point; the force after it still counts for Rm.
   const end = extensometerEnd(strain, stress, sMax, noise, strainMoves.length < MAX_CANDIDATES ? strainMoves : undefined, steps?.step ?? 0);
-  if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null, early, steps);
+  if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null, early, steps, stressSteps);
   if (end.index < 10) throw new InputError(`strain[${end.index}]`, strain[end.index]!, `a strain channel that follows the specimen for at least 10 samples; it ${end.kind === 'held' ? 'holds one value' : end.kind === 'reset' ? 'falls back by more than any elastic recovery' : 'jumps by far more than its steps'} from sample ${end.index} while the force goes on (extensometer taken off?)`);
   const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, end.index) : Array.prototype.slice.call(a, 0, end.index) as number[]);
   const hs = head(strain), hy = head(stress);
-  return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end }, early, steps);
+  return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end }, early, steps, stressSteps);
 }
 
 /**
@@ -196,7 +214,7 @@ interface ForceTail { stress: ArrayLike<number>; end: ExtensometerEnd }
  * analyzeRecord on the samples whose strain follows the specimen (all of them, or those before the strain
  * channel's end, with the whole record's stress in `tail`).
  */
-function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, noise: number, opts: AnalyzeOptions, tail: ForceTail | null, early: TensileWarning[], steps: StrainSteps | null): TensileAnalysis {
+function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, noise: number, opts: AnalyzeOptions, tail: ForceTail | null, early: TensileWarning[], steps: StrainSteps | null, stressSteps: StrainSteps | null): TensileAnalysis {
   const N = strain.length;
   const warnings: TensileWarning[] = [...early];
   const sMax = stress[iRaw]!;
@@ -331,6 +349,15 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
         `The tests on the rise allow for what rounding is left; E, Rp0.2 and ReH carry it. Export the strain with more digits if the machine records them`,
     });
   }
+  if (stressSteps) {
+    const q = stressSteps.step;
+    warnings.push({
+      code: 'coarseStress',
+      message: `the stress column is written in steps of ${+q.toPrecision(3)} MPa (its resolution in this file; ${+(100 * q / sMax).toPrecision(2)} % of the highest stress), coarser than the load's own noise: it holds each reading for ${stressSteps.samplesPerReading.toFixed(1)} samples on average. ` +
+        `Where the stress rises or falls steadily it is read between its steps on a line in sample order, each value inside its recorded step; where it turns (the top, a yield peak, the foot of a drop) the step is all the record holds: Rm, ReH and ReL are known to about ±${+(q / 2).toPrecision(2)} MPa, and Ag's interval spans the top's step. ` +
+        `Every noise threshold takes at least the rounding's ${+(q / Math.sqrt(12)).toPrecision(2)} MPa sd. Export the force or stress with more digits if the machine records them`,
+    });
+  }
   const ypView = yieldPoint(ls, ss, E, toe, toView(el.window.fromIndex), toView(fi), noise, keptSteps ? E * xRounding : 0);
   const yp = ypView && loading ? { ...ypView, peakIndex: loading.kept[ypView.peakIndex]!, plateauFrom: loading.kept[ypView.plateauFrom]!, endIndex: loading.kept[ypView.endIndex]! } : ypView;
   // A yield plateau with no upper yield point clear of the noise (a coarse or noisy record that missed the peak):
@@ -388,7 +415,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     if (!detected && c && c.reloadProofStrength === null && neverReloaded(stress, c.reversalIndex, 0.7 * stress[c.unloadIndex]!)) { finalUnload = c; cycles.pop(); }
   }
   // The top is fitted on the loading only (an unloading at the end is no part of it).
-  const fm = forceMaximum(strain, stress, noise, topFrom, finalUnload ? Math.max(topFrom + 3, finalUnload.unloadIndex + 1) : fi + 1);
+  const fm = forceMaximum(strain, stress, noise, topFrom, finalUnload ? Math.max(topFrom + 3, finalUnload.unloadIndex + 1) : fi + 1, stressSteps?.step ?? 0);
   // Past the strain channel's end the force alone: its top on the sample axis (uniform in time), from the same
   // start, to the fracture of the whole record. Where that top lies past the end, Rm is read from it (force over
   // the original section needs no strain) and Ag, Agt and A are lower bounds; else Rm and Ag stand and A is one.
@@ -591,6 +618,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     strainChannelEnd: tail ? { ...tail.end } : null,
     furtherTests: [],
     strainSteps: keptSteps,
+    stressSteps,
     rateChange,
     yieldPlateau: plateau ? { level: plateau.level, startStrain: strain[plateau.startIndex]! - toe, endStrain: strain[plateau.endIndex]! - toe, startIndex: plateau.startIndex, endIndex: plateau.endIndex } : null,
     forceTop: force && maxInTail ? { stress: force.top.stress, index: force.top.index, points: force.top.points, method: 'top model of the force against sample number (uniform in time) past the strain channel\'s end, fitted as the top against strain is' } : null,

@@ -12,7 +12,7 @@ export interface TensileData {
 
 export interface TensileWarning {
   code: 'noProofPoint' | 'noFractureDrop' | 'maxAtEnd' | 'fewElasticPoints' | 'nRange' | 'fewFlowPoints' | 'notConverged' | 'atBound' | 'notIdentifiable' | 'lawsDisagree' | 'fewPoints' | 'extrapolated' | 'cycles' | 'strainChannelEnds' | 'unloadedBeforeFracture' | 'glitch' | 'secondTest'
-    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'machineCompliance' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp' | 'rateChange' | 'yieldPlateau' | 'coarseStrain';
+    | 'implausibleModulus' | 'uncertainModulus' | 'elasticBandFallback' | 'gradualYield' | 'modulusGiven' | 'machineCompliance' | 'flatTop' | 'uncertainAg' | 'uncertainReH' | 'uncertainRp' | 'rateChange' | 'yieldPlateau' | 'coarseStrain' | 'coarseStress';
   message: string;
 }
 
@@ -197,6 +197,13 @@ export interface TensileAnalysis {
    * otherwise (a fine or continuous channel).
    */
   strainSteps: StrainSteps | null;
+  /**
+   * The steps the stress column is written in, where they are coarser than the load's noise (strainSteps on the stress;
+   * warning `coarseStress`): each reading held over several samples, then a whole step. The stress was read between
+   * its steps where it rises or falls steadily (spreadStrainSteps), every noise threshold is at least the rounding's
+   * sd (step/√12), and Ag's interval holds the top's step. Null otherwise (`step` in MPa here).
+   */
+  stressSteps: StrainSteps | null;
   /**
    * A change of the test rate on the plastic part (findRateChange; warning `rateChange`), `index` the record's;
    * `flowCurveFactor` the factor the flow curve after it was scaled by before the n-value and the laws were fitted

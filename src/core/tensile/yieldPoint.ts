@@ -38,6 +38,12 @@ export const YIELD_DROP = {
   plateauBand: 0.003,
   /** Strain of the hardening branch past the plateau's end taken into the plateau–hardening fit. */
   hardeningStrain: 0.005,
+  /**
+   * The plateau goes on past its level band while the smoothed stress still falls back clearly (by 8 sd of the smooth
+   * and at least plateauBand of the level) to within this fraction of the level: a serration's fall, which work
+   * hardening never shows (Lüders serrations run to 3 % of ReL, the plateau's slope about 1 %, common practice).
+   */
+  troughRise: 0.03,
   /** The last samples of the rise this many standard errors below the line through the rest: a rounded knee, not a sharp peak. */
   kneeSigmas: 3,
   /**
@@ -617,10 +623,30 @@ function plateauExtent(strain: ArrayLike<number>, stress: ArrayLike<number>, d: 
   const w = Math.max(1, Math.min(Math.ceil((scatter / (0.0015 * level)) ** 2), cap)) | 1;
   const ma = movingAverage(stress, d, to, w);
   const band = Math.max((3 * scatter) / Math.sqrt(w), Y.plateauBand * level);
+  // Only up to maximum force (the highest of the smooth after the fall): the necking side past it comes back down
+  // through the plateau's level before fracture (a mild steel breaking at 78 % of Rm), and that is no plateau.
+  const f0 = Math.min(ma.length - 1, Math.max(0, r0 - d));
+  let top = f0;
+  for (let k = f0 + 1; k < ma.length; k++) if (ma[k]! > ma[top]!) top = k;
   let s0 = 0;
-  while (s0 < ma.length - 1 && ma[s0]! > level + band) s0++;
+  while (s0 < top && ma[s0]! > level + band) s0++;
+  // A smooth that never comes within the band of the level before maximum force (a level read in a transient trough
+  // narrower than the smooth, on a coarse record: a 3.5 % plateau had been read to 30 %): the band is about the
+  // smooth's lowest point after the fall instead.
+  let levelTop = level + band;
+  if (s0 >= top) {
+    s0 = f0;
+    for (let k = f0 + 1; k <= top; k++) if (ma[k]! < ma[s0]!) s0 = k;
+    levelTop = ma[s0]! + band;
+  }
   let endRel = s0;
-  for (let k = s0; k < ma.length; k++) if (ma[k]! <= level + band) endRel = k;
+  for (let k = s0; k <= top; k++) if (ma[k]! <= levelTop) endRel = k;
+  // A plateau whose serrations are slower than the smooth (saw-teeth that climb over tenths of a percent of strain
+  // and fall back, on a soft machine) leaves the band at its first climb when its troughs sit above the level of its
+  // first 0.3 % (the initial transient's): an invented record's 3.8 % plateau ended at 0.4 %. It goes on to the last
+  // clear fall back near the level — work hardening does not fall.
+  const bandEnd = endRel;
+  endRel = lastPlateauFall(ma, endRel, top + 1, Math.max((8 * scatter) / Math.sqrt(w), 5 * noise, Y.plateauBand * level), level * (1 + Y.troughRise));
   const end = d + endRel;
   // ReL (ISO 6892-1 §3.10.2.2: the lowest stress during yielding, the initial transient ignored). The initial
   // transient is the fall and the first trough after it: it ends where the smoothed plateau first rises back
@@ -638,8 +664,29 @@ function plateauExtent(strain: ArrayLike<number>, stress: ArrayLike<number>, d: 
   const hEnd = ib;
   while (ib < maxIndex && strain[ib]! - strain[hEnd]! < Y.hardeningStrain) ib++;
   // The hinge is sought in the second half of the plateau found by the smooth (its first half is plateau).
-  const h = plateauHinge(strain, stress, pa, ib + 1, noise, 0.5 * (strain[pa]! + strain[end]!));
+  // After a clear fall the plateau had not ended: the hinge is sought past its foot, and hardening starts no sooner.
+  const fallFoot = endRel > bandEnd ? strain[end]! : -Infinity;
+  const h0 = plateauHinge(strain, stress, pa, ib + 1, noise, Math.max(0.5 * (strain[pa]! + strain[end]!), fallFoot));
+  const h = h0 && h0.hardeningStart < fallFoot ? { ...h0, hardeningStart: fallFoot } : h0;
   return { end, pa, ib, h };
+}
+
+/**
+ * The foot of the last clear fall of a smoothed plateau over [from, to): where ma, having fallen by more than
+ * `fall` below its highest since the last such foot, reaches its next low at or below `cap`; `from` when there is
+ * none. Units: MPa. Cost O(to − from).
+ */
+function lastPlateauFall(ma: ArrayLike<number>, from: number, to: number, fall: number, cap: number): number {
+  let end = from, peak = ma[from]!;
+  for (let k = from + 1; k < to; k++) {
+    const v = ma[k]!;
+    if (v > peak) peak = v;
+    else if (peak - v > fall && v <= cap) {
+      while (k + 1 < to && ma[k + 1]! <= ma[k]!) k++;
+      end = k; peak = ma[k]!;
+    }
+  }
+  return end;
 }
 
 /** First index j ≥ from (at most maxIndex) with strain[j] − strain[from] ≥ span and j − from ≥ minCount. */

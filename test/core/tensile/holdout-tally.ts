@@ -124,6 +124,11 @@ export function holdoutTally(make: (seed: number, noiseScale: number) => Holdout
   return { fails, count, refused, drops, continuous, agWarned, rpWarned, lowEvidence, agOff, rateChanges, rateFound, unreportedDrops, plateauFound };
 }
 
+/** One line on a tally and its misses, for the test's output (what a reader compares between runs). */
+export function tallySummary(label: string, r: HoldoutTally): string {
+  return `${label}: ${r.fails.length} misses ${JSON.stringify(r.count)}; recorded drops ${r.drops}, continuous ${r.continuous}, E refused ${r.refused}, Ag warned ${r.agWarned}, Ag off ${r.agOff}, Rp warned ${r.rpWarned}, drops unreported ${r.unreportedDrops} (evidence < 6: ${r.lowEvidence}, plateau found ${r.plateauFound}), rate changes found ${r.rateFound} of ${r.rateChanges}\n${r.fails.join('\n')}`;
+}
+
 /** Holds every miss count at or below its ceiling (0 where none is named), listing the misses on failure. */
 export function holdCeilings(r: HoldoutTally, ceilings: Record<string, number>): void {
   const list = r.fails.slice(0, 40).join('\n');
