@@ -39,8 +39,8 @@ export const YIELD_DROP = {
   /** Strain of the hardening branch past the plateau's end taken into the plateau–hardening fit. */
   hardeningStrain: 0.005,
   /**
-   * The plateau goes on past its level band while the smoothed stress still falls back clearly (by 8 sd of the smooth
-   * and at least plateauBand of the level) to within this fraction of the level: a serration's fall, which work
+   * The plateau goes on past its level band while the smoothed stress still falls back clearly (by 8 sd of the smooth,
+   * 5 sd of the record's noise and plateauBand of the level) to within this fraction of the level: a serration's fall, which work
    * hardening never shows (Lüders serrations run to 3 % of ReL, the plateau's slope about 1 %, common practice).
    */
   troughRise: 0.03,
@@ -252,7 +252,10 @@ export function yieldPoint(
   // A drop is a step down, not a bend: after the rise line ends, a segment that starts lower than the line (a
   // step) must fit the samples clearly better than one that starts on it (a hinge, as a continuous curve bends at
   // its knee) — by more than 5² noise variances of the residual sum (common practice for a change-point test).
-  if (rise && !isStepDown(strain, stress, rise.a, rise.b, Math.max(k0, q - 50), pEnd, Math.max(k0 + 1, q - 10), Math.min(pEnd - 3, Math.max(d, lastUpper) + 10), noise, q, lastUpper)) return null;
+  // A fall that a soft machine draws out over tenths of a percent of strain bends like a knee to that test, but no
+  // continuous curve comes down from its knee: a clear fall of the smoothed stress, followed by a rise, is a drop too.
+  if (rise && !isStepDown(strain, stress, rise.a, rise.b, Math.max(k0, q - 50), pEnd, Math.max(k0 + 1, q - 10), Math.min(pEnd - 3, Math.max(d, lastUpper) + 10), noise, q, lastUpper) &&
+    !clearFall(strain, stress, q, maxIndex, noise * Math.sqrt(lag1Factor(strain, stress, k0, q, rise.a, rise.b)))) return null;
   const { end, pa, h } = plateauExtent(strain, stress, d, r0, maxIndex, level, noise);
   let rel = level, endStrain = strain[end]!;
   if (h) { rel = h.lowerYield; endStrain = h.hardeningStart; }
@@ -374,6 +377,44 @@ function isStepDown(x: ArrayLike<number>, y: ArrayLike<number>, a: number, b: nu
     if (ssrHinge < bestH) bestH = ssrHinge;
   }
   return stepDown && bestH - bestS > STEP_SIGMAS ** 2 * noise * noise;
+}
+
+/** Samples in the moving average {@link clearFall} compares (odd). */
+const FALL_WINDOW = 9;
+/** …and the standard errors of a difference of two such averages the fall must exceed. */
+const FALL_SIGMAS = 6;
+
+/**
+ * A drawn-out yield drop: the moving average (9 samples) falls from its highest around the peak q to a low, within
+ * 1 % strain of the peak and before it climbs back above that highest, by more than max(1 % of it, 6·√2·σ̂ₑ/√9)
+ * (σ̂ₑ the noise's sd widened for its lag-1 correlation, passed in), and the stress later rises back above that low by
+ * at least half the fall (Lüders yielding, then hardening; a necking fall never comes back). A continuous curve rises
+ * past its knee, so its average never falls that far. On a machine several times softer than the specimen the fall
+ * from ReH to the plateau takes 0.1–0.3 % strain (common practice: the load drops only as fast as the machine
+ * springs back), and the step-or-bend test reads it as a bend (an invented record with an 8.8 % drop over 0.27 %
+ * strain had been read as a yield plateau with no drop).
+ * Units: strain fraction, MPa. Cost O(samples within 1 % strain of q) + O(maxIndex − q).
+ */
+function clearFall(strain: ArrayLike<number>, stress: ArrayLike<number>, q: number, maxIndex: number, noiseEff: number): boolean {
+  const h = FALL_WINDOW >> 1;
+  if (q - 2 * h < 0) return false;
+  let end = q;
+  while (end < maxIndex - h && strain[end + 1]! - strain[q]! <= 0.01) end++;
+  if (end - q < 2 * FALL_WINDOW) return false;
+  const ma = movingAverage(stress, q - 2 * h, end + h + 1, FALL_WINDOW);
+  // ma[k] is the average centred on sample q − 2h + k (full windows from k = h on).
+  let top = -Infinity;
+  for (let k = h; k <= 3 * h; k++) top = Math.max(top, ma[k]!);
+  let low = Infinity, at = -1;
+  for (let k = 3 * h; k < ma.length - h; k++) {
+    if (ma[k]! > top) break;
+    if (ma[k]! < low) { low = ma[k]!; at = q - 2 * h + k; }
+  }
+  const fall = top - low;
+  if (!(at > 0) || !(fall > Math.max(YIELD_DROP.minRelDrop * top, FALL_SIGMAS * Math.SQRT2 * noiseEff / Math.sqrt(FALL_WINDOW)))) return false;
+  let later = -Infinity;
+  for (let i = at + 1; i <= maxIndex; i++) if (stress[i]! > later) later = stress[i]!;
+  return later >= low + 0.5 * fall;
 }
 
 /**

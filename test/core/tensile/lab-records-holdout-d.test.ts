@@ -25,13 +25,14 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 12000 + i);
 //   level on the necking side, and a coarse record (12035, 1,968 samples) read Ae as 29.8 % (truth 3.5). Up to
 //   maximum force now, and where the smooth never comes within the band before it, the band is about its lowest
 //   point after the fall (1.8 %, still short: 170 samples on a 3.1 % serrated plateau under 1.5 MPa noise).
-// Now (held as ceilings): with noise 14 {Rp0.2 3, Ae 4, Ag 1, missedYield 4, ReH 1, quietE 1}, Ag off 34;
+// - Drops drawn out by a soft machine (the fall from ReH to the plateau over 0.1–0.3 % strain, the machine 5–9 times
+//   softer than the specimen) read as bends by the step test: 12113 (evidence 112), 12073 (41), 12084 (23) not found.
+//   A clear fall of the smoothed stress (9 samples, 6·√2 standard errors widened for the noise's correlation, at
+//   least 1 % of ReH) within 1 % strain of the peak, followed by a rise, now counts as a drop (clearFall).
+// Now (held as ceilings): with noise 11 {Rp0.2 3, Ae 4, Ag 1, missedYield 1, ReH 1, quietE 1}, Ag off 34;
 // noise-free 56 {Rm 13, Ae 8, ReH 14, Ag 14, ReL 4, Rp0.2 2, quietE 1}.
 // Left (measured, read one by one):
-// - missedYield 12113 (evidence 112): the fall from ReH to the plateau takes 0.27 % strain (machine 5–9 times softer
-//   than the specimen), so the plateau's level, a median over 0.3 % after the departure, sits 15 MPa above ReL and the
-//   step test reads the fall as a bend; 12073 (41, a seating toe and E ±21 %), 12084 (23, AR noise 3.6 MPa),
-//   12189 (11, a 3.6 % drop under 4.2 MPa noise).
+// - missedYield 12189 (evidence 11, a 3.6 % drop under 4.2 MPa noise).
 // - Rp0.2 12001, 12047, 12140: 1.2–2.1 % low with AR(1) load noise (lag-1 0.68–0.83) on gradual-yielding curves
 //   (brass, austenitic), the range just short of the truth.
 // - Ae 12005 (serrations under 5 noise sd, read as hardening), 12035, 12067 and 12137 (noise 0.8 % of Rm on a
@@ -39,7 +40,7 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 12000 + i);
 // - Noise-free: Rm 13 are Al-Mg records whose truth is the highest serration peak (PLC), the analysis reads the top of
 //   the smooth 0.1–0.2 % lower (within the full tolerance); ReH 14 read 0.2–0.5 % above the highest sample (the
 //   peak on the rise line between samples; the generator takes the sample); Ag 14 off by 0.1–0.3 point.
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 3, Ae: 4, Ag: 1, missedYield: 4, ReH: 1, quietE: 1 };
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 3, Ae: 4, Ag: 1, missedYield: 1, ReH: 1, quietE: 1 };
 const AG_OFF_NOISY = 34;
 const CEILINGS_CLEAN: Record<string, number> = { Rm: 13, Ae: 8, ReH: 14, Ag: 14, ReL: 4, 'Rp0.2': 2, quietE: 1 };
 
