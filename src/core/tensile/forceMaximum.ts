@@ -70,7 +70,10 @@ const TOP_BLOCKS = 1000;
  * records are not equally noisy everywhere (the open 42CrMoS4 record 46NT71 scatters 1–3 MPa on its elastic rise and
  * while it necks, 0.1–0.3 MPa around its maximum; the record-wide 1.7 MPa had warned its Ag as uncertain by ±0.98
  * point, ±0.34 with the top's own).
- * Units: strain fraction, stress MPa, σ̂ MPa. Valid: `to − from` ≥ 3. Cost: O(to − from).
+ * `stressStep` (MPa, 0 when the stress is not written in coarse steps): the step of a stress column read between its
+ * steps (analyzeRecord, warning `coarseStress`); the span's noise is then at least stressStep/√12, and both Ag
+ * intervals hold the strain range of the top's own step, where the record cannot place the maximum.
+ * Units: strain fraction, stress MPa, σ̂ MPa. Valid: `to − from` ≥ 3, stressStep ≥ 0. Cost: O(to − from).
  * @example forceMaximum([0, 1, 2, 3, 4], [0, 3, 4, 3, 0], 0, 0, 5).stress // 4.0
  */
 /** Samples in the top's span from which its own noise is used (8 blocks of 16 for recordNoiseWide). */

@@ -63,7 +63,8 @@ export interface StrainSteps {
  * the elastic rise of a steel to 300 MPa then spans 15 readings, each held over many samples while the stress
  * climbs by E·q ≈ 20 MPa — a staircase whose treads read as a bend, a toe or a knee to any test that takes the
  * strain as exact.
- * Units: strain fraction. Valid: finite values. Cost: one pass over [from, to), stopped once more than 16 moves and 1 %
+ * The same test serves a stress column written in coarse steps (analyzeRecord's `stressSteps`; the step is then in MPa).
+ * Units: those of the column (strain fraction). Valid: finite values. Cost: one pass over [from, to), stopped once more than 16 moves and 1 %
  * of the moves so far are off the lattice (a continuous channel: within its first few dozen moves).
  * @returns the step and how coarse the channel is, or null when its moves are not on a lattice (or fewer than 8).
  * @example strainSteps(Array.from({ length: 20 }, (_, i) => Math.floor(i / 2) * 1e-4))?.step // 0.0001 (to rounding)
