@@ -126,7 +126,7 @@ export { elasticModulus, ELASTIC_WINDOW } from './tensile/elasticModulus.js';
 export type { ElasticResult } from './tensile/elasticModulus.js';
 export { proofStrength, totalExtensionStrength } from './tensile/proofStrength.js';
 export { yieldPoint, yieldPlateau, YIELD_DROP, YIELD_PLATEAU } from './tensile/yieldPoint.js';
-export { recordNoise, recordNoiseWide } from './tensile/recordNoise.js';
+export { noiseLag1, recordNoise, recordNoiseWide } from './tensile/recordNoise.js';
 export { forceMaximum, LAW_GATE_CHI2 } from './tensile/forceMaximum.js';
 export type { ForceMaximum } from './tensile/forceMaximum.js';
 export { findRateChange, rateStep, RATE_CHANGE } from './tensile/rateChange.js';

@@ -7,7 +7,7 @@ import { ELASTIC_WINDOW, elasticLineVariance, elasticModulus, lowBandToe } from 
 import { EXTENSOMETER_END, extensometerEnd, type ExtensometerEnd } from './extensometerEnd.js';
 import { forceMaximum } from './forceMaximum.js';
 import { droppedRows, findGlitches, glitchRun, GLITCH } from './glitches.js';
-import { recordNoiseWide } from './recordNoise.js';
+import { noiseLag1, recordNoiseWide } from './recordNoise.js';
 import { spreadStrainSteps, strainSteps, STRAIN_STEPS, type StrainSteps } from './strainSteps.js';
 import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
 import { lawDataRanged, type LawData } from '../fit/lawNormalEquations.js';
@@ -148,6 +148,9 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   while (lo < N && !(stress[lo]! >= LOADED * sMax)) lo++;
   while (hi > lo && !(stress[hi - 1]! >= LOADED * sMax)) hi--;
   let noise = hi - lo >= 16 ? recordNoiseWide(stress, lo, hi) : recordNoiseWide(stress);
+  // How correlated the load noise is from sample to sample (an acquisition filter), read over the whole loaded record:
+  // a short window's own residuals read it near 0 where it is 0.7, and the intervals built on them were too narrow.
+  let noiseRho = hi - lo >= 16 ? noiseLag1(stress, lo, hi, noise) : noiseLag1(stress, 0, N, noise);
   // A strain column written with too few digits (percent with two decimals: steps of 1e-4) holds each reading while
   // the stress climbs by E·q: on the elastic rise a staircase that read as a bend ("gradual yielding") and hid a
   // yield drop of evidence 366 on an invented record. Read between its steps (each value inside its recorded step);
@@ -174,6 +177,8 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   if (stressSteps) {
     stress = spreadStrainSteps(stress, stressSteps.step);
     noise = Math.max(hi - lo >= 16 ? recordNoiseWide(stress, lo, hi) : recordNoiseWide(stress), stressSteps.step / Math.sqrt(12));
+    // The column spread between its steps is smooth within each step: its second differences say nothing of the noise.
+    noiseRho = 0;
     strainMoves.length = 0;
     iRaw = finiteArgMax(strain, stress, strainMoves);
     sMax = stress[iRaw]!;
@@ -181,11 +186,11 @@ export function analyzeRecord(data: TensileData, opts: AnalyzeOptions = {}): Ten
   // A strain channel that stops following the specimen (extensometer taken off, reset, out of range): every
   // property that needs strain is read before that point; the force after it still counts for Rm.
   const end = extensometerEnd(strain, stress, sMax, noise, strainMoves.length < MAX_CANDIDATES ? strainMoves : undefined, steps?.step ?? 0);
-  if (!end) return analyzeStrainPart(strain, stress, iRaw, noise, opts, null, early, steps, stressSteps);
+  if (!end) return analyzeStrainPart(strain, stress, iRaw, { sd: noise, lag1: noiseRho }, opts, null, early, steps, stressSteps);
   if (end.index < 10) throw new InputError(`strain[${end.index}]`, strain[end.index]!, `a strain channel that follows the specimen for at least 10 samples; it ${end.kind === 'held' ? 'holds one value' : end.kind === 'reset' ? 'falls back by more than any elastic recovery' : 'jumps by far more than its steps'} from sample ${end.index} while the force goes on (extensometer taken off?)`);
   const head = (a: ArrayLike<number>) => (ArrayBuffer.isView(a) ? (a as unknown as Float64Array).subarray(0, end.index) : Array.prototype.slice.call(a, 0, end.index) as number[]);
   const hs = head(strain), hy = head(stress);
-  return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), noise, opts, { stress, end }, early, steps, stressSteps);
+  return analyzeStrainPart(hs, hy, finiteArgMax(hs, hy), { sd: noise, lag1: noiseRho }, opts, { stress, end }, early, steps, stressSteps);
 }
 
 /**
@@ -214,7 +219,8 @@ interface ForceTail { stress: ArrayLike<number>; end: ExtensometerEnd }
  * analyzeRecord on the samples whose strain follows the specimen (all of them, or those before the strain
  * channel's end, with the whole record's stress in `tail`).
  */
-function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, noise: number, opts: AnalyzeOptions, tail: ForceTail | null, early: TensileWarning[], steps: StrainSteps | null, stressSteps: StrainSteps | null): TensileAnalysis {
+function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>, iRaw: number, noiseOf: { sd: number; lag1: number }, opts: AnalyzeOptions, tail: ForceTail | null, early: TensileWarning[], steps: StrainSteps | null, stressSteps: StrainSteps | null): TensileAnalysis {
+  const noise = noiseOf.sd, noiseRho = noiseOf.lag1;
   const N = strain.length;
   const warnings: TensileWarning[] = [...early];
   const sMax = stress[iRaw]!;
@@ -318,7 +324,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     return rpMemo.get(pct)!;
   };
   // proof.index is on the loading's view (toRecord for the record's).
-  let proof = proofStrength(ls, ss, E, toe, offPct / 100, el.window.fromIndex, NL, noise, lineVar);
+  let proof = proofStrength(ls, ss, E, toe, offPct / 100, el.window.fromIndex, NL, noise, lineVar, noiseRho);
   rpMemo.set(offPct, proof); // the same crossing; the listed offsets reuse it
   if (!proof) warnings.push({ code: 'noProofPoint', message: `the curve never meets the ${offPct} % offset line; no proof strength` });
   const proofStrengths = [0.2, 0.5, 1].map((p) => ({ offsetPct: p, stress: rp(p)?.stress ?? null, index: rp(p)?.index ?? -1 }));
@@ -592,6 +598,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     machineCompliance: compliance,
     parallelLengthRatio: lengthRatio,
     noise,
+    noiseLag1: noiseRho,
     forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, topModelUniformElongationPct: agTop, lawUniformElongation: agLaws, method: (byLaws !== null ? 'Ag where the hardening laws fitted to the uniform part of the curve reach maximum engineering stress (Considère with the elastic strain counted), Akaike-weighted over the laws whose maximum lies inside the 99.9 % interval of the top model below (the 95 % interval given is the top model\'s, widened to hold that Ag); ' : '') + 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at the Akaike-weighted vertex of this kinked top and a smooth one (one curvature both sides), or at the middle of a top flat within the noise' },
     elasticWindow: el.window,
     toeStrain: toe,

@@ -17,13 +17,15 @@ const RP_NOISE_HALF = 64;
  * offset line). The noise of that error is the one about the crossing: `recordNoiseWide` over the 64 samples before
  * and after the first sign change where the record holds them, else `noise` (the open 46NT71 scatters 2 MPa about a
  * local smooth on its elastic rise and while it necks, 1 MPa about its offset crossing; with the record-wide figure
- * its Rp0.2 was warned uncertain, 1113–1151 MPa).
+ * its Rp0.2 was warned uncertain, 1113–1151 MPa). `noiseLag1` (0–0.9, the record-wide lag-1 correlation of the noise,
+ * {@link noiseLag1}) is the floor of the window's own residual lag-1 in that error: a parabola through a dozen samples
+ * reads a correlation of 0.7 as about 0.
  * Units: strain fraction, stresses and E in MPa. Valid: offset > 0.
  * @returns the stress in MPa and the (fractional) index, or null when the curve never crosses the line.
  * @example proofStrength([0, 0.002, 0.004, 0.006], [0, 400, 440, 450], 200000, 0, 0.002) // ≈ 436.4 MPa
  */
 export function proofStrength(
-  strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, fromIndex = 0, toIndex = strain.length, noise = 0, lineVariance?: (stress: number) => number,
+  strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, fromIndex = 0, toIndex = strain.length, noise = 0, lineVariance?: (stress: number) => number, noiseLag1 = 0,
 ): { stress: number; index: number; standardError?: number; halfWidth95?: number } | null {
   const i = firstCrossing(strain, stress, E, toe, offset, fromIndex, toIndex);
   if (i < 0) return null;
@@ -35,7 +37,7 @@ export function proofStrength(
   // after it (8 blocks of 16 at least for recordNoiseWide), else the record's.
   const a = Math.max(0, i - RP_NOISE_HALF), b = Math.min(toIndex, i + RP_NOISE_HALF);
   const local = b - a >= 2 * RP_NOISE_HALF ? recordNoiseWide(stress, a, b) : noise;
-  return smoothCrossing(strain, stress, E, toe, offset, i, toIndex, local, lineVariance) ?? raw;
+  return smoothCrossing(strain, stress, E, toe, offset, i, toIndex, local, lineVariance, noiseLag1) ?? raw;
 }
 
 // The record-long loops below are small functions of their own, without closures: proofStrength runs five
@@ -90,7 +92,7 @@ function windowEnd(strain: ArrayLike<number>, stress: ArrayLike<number>, E: numb
  * does not cross the line inside its own span (the raw crossing is used then). Returns the crossing's standard error
  * too (the parabola's prediction error and the modulus's, see below).
  */
-function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number, noise: number, lineVariance?: (stress: number) => number): { stress: number; index: number; standardError?: number; halfWidth95?: number } | null {
+function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E: number, toe: number, offset: number, c: number, toIndex: number, noise: number, lineVariance?: (stress: number) => number, noiseLag1 = 0): { stress: number; index: number; standardError?: number; halfWidth95?: number } | null {
   const lo = 0.5 * offset, hi = 2 * offset;
   // The window ends where three samples in a row leave [lo, hi]: one noisy sample (in load or extension, the
   // strain of a dense record is not even monotone under extensometer noise) does not cut it short.
@@ -118,7 +120,10 @@ function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E:
   const S = new Float64Array(5);
   const r0 = windowMoments(strain, stress, a, b, f.xm, f.h, f.c[0]!, f.c[1]!, f.c[2]!, S);
   const r00 = r0[0], r01 = r0[1];
-  const rho = r00 > 0 ? Math.min(0.9, Math.max(0, r01 / r00)) : 0;
+  const own = r00 > 0 ? Math.min(0.9, Math.max(0, r01 / r00)) : 0;
+  // The window's own lag-1 reads correlated noise low (a parabola through 13 samples takes up most of it): the
+  // record-wide figure is the floor. The degrees of freedom stay the window's (they are those of its residual scatter).
+  const rho = Math.min(0.9, Math.max(own, noiseLag1));
   const s2 = Math.max(noise * noise, f.ssr / Math.max(1, f.n - 3)) * (1 + rho) / (1 - rho);
   const ue = (e - f.xm) / f.h;
   const lev = quadForm3(S, [1, ue, ue * ue]);
@@ -128,7 +133,7 @@ function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E:
   const sE = lineVariance ? Math.abs(slope) * Math.sqrt(Math.max(0, lineVariance(f.at(e)))) * gain : 0;
   // 95 % half-width with Student's t on the effective degrees of freedom n(1 − ρ)/(1 + ρ) − 3.
   const se = Math.hypot(sFit, sE);
-  const dof = Math.max(1, (f.n * (1 - rho)) / (1 + rho) - 3);
+  const dof = Math.max(1, (f.n * (1 - own)) / (1 + own) - 3);
   return { ...at, standardError: se, halfWidth95: studentTQuantile(0.975, dof) * se };
 }
 

@@ -132,6 +132,13 @@ export interface TensileAnalysis {
   parallelLengthRatio?: number | null;
   /** Noise of the stress estimated from the data (second differences, robust scale), MPa. */
   noise: number;
+  /**
+   * Lag-1 correlation of that noise from sample to sample, read over the whole loaded record ({@link noiseLag1}): 0 for
+   * white noise (and for a column read between its steps), up to 0.9 where a filter in the machine makes neighbouring
+   * samples alike; the intervals built on a few neighbouring samples (Rp's range) are widened by (1 + ρ)/(1 − ρ) in
+   * variance. Optional for analyses made before it was reported.
+   */
+  noiseLag1?: number;
   /** How Rm and Ag were read: the local parabola around the top (samples, strain span, flat top). */
   forceMaximum: {
     points: number; span: [number, number]; flat: boolean; method: string;

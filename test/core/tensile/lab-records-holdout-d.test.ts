@@ -29,18 +29,21 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 12000 + i);
 //   softer than the specimen) read as bends by the step test: 12113 (evidence 112), 12073 (41), 12084 (23) not found.
 //   A clear fall of the smoothed stress (9 samples, 6·√2 standard errors widened for the noise's correlation, at
 //   least 1 % of ReH) within 1 % strain of the peak, followed by a rise, now counts as a drop (clearFall).
-// Now (held as ceilings): with noise 11 {Rp0.2 3, Ae 4, Ag 1, missedYield 1, ReH 1, quietE 1}, Ag off 34;
+// - Rp0.2 1.2–2.1 % low on gradual-yielding curves with AR(1) load noise (lag-1 0.68–0.83: 12001, 12047, 12140) inside
+//   ranges that left the truth out: the local fit's 13–120 samples read their own correlation as 0–0.66. Read over the
+//   whole record now (noiseLag1, twenty-second session): 12001 and 12140 are warned with the truth inside; 12047 is
+//   left (a slow drift of the load besides, which an interval from the noise does not count).
+// Now (held as ceilings): with noise 9 {Rp0.2 1, Ae 4, Ag 1, missedYield 1, ReH 1, quietE 1}, Ag off 34;
 // noise-free 56 {Rm 13, Ae 8, ReH 14, Ag 14, ReL 4, Rp0.2 2, quietE 1}.
 // Left (measured, read one by one):
 // - missedYield 12189 (evidence 11, a 3.6 % drop under 4.2 MPa noise).
-// - Rp0.2 12001, 12047, 12140: 1.2–2.1 % low with AR(1) load noise (lag-1 0.68–0.83) on gradual-yielding curves
-//   (brass, austenitic), the range just short of the truth.
+// - Rp0.2 12047: 1.6 % low (AR(1) lag-1 0.83 and a slow drift), the range 290.1–296.8 short of 298.1.
 // - Ae 12005 (serrations under 5 noise sd, read as hardening), 12035, 12067 and 12137 (noise 0.8 % of Rm on a
 //   3.4–3.7 % plateau: its last troughs are within the noise).
 // - Noise-free: Rm 13 are Al-Mg records whose truth is the highest serration peak (PLC), the analysis reads the top of
 //   the smooth 0.1–0.2 % lower (within the full tolerance); ReH 14 read 0.2–0.5 % above the highest sample (the
 //   peak on the rise line between samples; the generator takes the sample); Ag 14 off by 0.1–0.3 point.
-const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 3, Ae: 4, Ag: 1, missedYield: 1, ReH: 1, quietE: 1 };
+const CEILINGS_NOISY: Record<string, number> = { 'Rp0.2': 1, Ae: 4, Ag: 1, missedYield: 1, ReH: 1, quietE: 1 };
 const AG_OFF_NOISY = 34;
 const CEILINGS_CLEAN: Record<string, number> = { Rm: 13, Ae: 8, ReH: 14, Ag: 14, ReL: 4, 'Rp0.2': 2, quietE: 1 };
 

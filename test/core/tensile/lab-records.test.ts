@@ -115,12 +115,11 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     const list = r.fails.join('\n');
     console.log(`${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous; Ag off by more than 0.4 point (warned or not) ${r.agOff}; accepted (the record cannot support the tolerance, the analysis says so): ${JSON.stringify(r.accepted)}\n${list}`);
     // Met on every seed.
-    for (const k of ['threw', 'Rm', 'A', 'falseYield', 'falsePlateau', 'silentE', 'quietE', 'ReH', 'ReL', 'Ae', 'missedYield', 'falseStrainEnd', 'falseGlitch', 'falseSecondTest', 'falseRateChange', 'falseCycle']) expect(r.count[k] ?? 0, `${k}\n${list}`).toBe(0);
+    for (const k of ['threw', 'Rp0.2', 'Rm', 'A', 'falseYield', 'falsePlateau', 'silentE', 'quietE', 'ReH', 'ReL', 'Ae', 'missedYield', 'falseStrainEnd', 'falseGlitch', 'falseSecondTest', 'falseRateChange', 'falseCycle']) expect(r.count[k] ?? 0, `${k}\n${list}`).toBe(0);
     // NOT met on every seed (measured, held as ceilings so a regression fails; see docs/records-and-fits.md):
-    // Rp0.2 1.55 % high on seed 147 (2019 points, noise 0.97 % of Rm, 7 elastic samples): warned, but the truth lies
-    // just outside its 95 % interval (247.87–255.42 MPa against 247.81 since the slope's and the noise's half-widths
-    // add in quadrature; the expected non-coverage of a 95 % interval, not a bias).
-    expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(1);
+    // Rp0.2 (met since the twenty-second session): seed 147, 1.55 % high (2019 points, noise 0.97 % of Rm, 7 elastic
+    // samples), had its truth 0.06 MPa outside a warned 95 % interval; with the noise's correlation read over the whole
+    // record (noiseLag1) the interval holds it, still warned.
     // Ag off by more than 0.4 point with no 95 % interval holding the truth: none. (Seventeenth session 4: seeds 57,
     // 122, 168 and 187, coarse noisy tops whose 95 % interval left the truth 0.02–0.3 point out, while the laws, refused
     // at 95 %, read it within 0.03–0.6 point. Eighteenth session: the laws gated at the top model's 99.9 % interval,

@@ -6,7 +6,7 @@
 // exact lines, long and short records).
 import { quickselect } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
-import { recordNoise, xoshiro128ss } from '../../../src/core/index.js';
+import { noiseLag1, recordNoise, recordNoiseWide, xoshiro128ss } from '../../../src/core/index.js';
 
 function recordNoiseReference(stress: ArrayLike<number>, from = 0, to = stress.length): number {
   const m = to - from - 2;
@@ -67,5 +67,40 @@ describe('recordNoise', () => {
     const y = Float64Array.from({ length: 200_000 }, (_, i) => 500 * Math.sqrt(i / 200_000) + 1.5 * gauss(r));
     // Sampling error of a median of 200,000 values is about 0.3 %; the curve's own second differences are negligible.
     expect(Math.abs(recordNoise(y) / 1.5 - 1)).toBeLessThan(0.03);
+  });
+});
+
+// noiseLag1 against the processes it reads (definitions: AR(1) noise eᵢ = ρ·eᵢ₋₁ + √(1 − ρ²)·σ·zᵢ has lag-1
+// correlation ρ and local means whose variance is (1 + ρ)/(1 − ρ) times the white figure; a boxcar moving average of
+// w white values has lag-1 correlation (w − 1)/w and that factor w — Box & Jenkins, *Time Series Analysis*, ch. 3,
+// from memory). The curve is smooth; the noise is seeded.
+describe('noiseLag1', () => {
+  const curve = (i: number) => 600 * (1 - Math.exp(-i / 4000));
+  const read = (y: Float64Array) => noiseLag1(y, 0, y.length, recordNoiseWide(y));
+  it('reads AR(1) noise of lag-1 correlation 0, 0.3, 0.6 and 0.8 within 0.06 (20,000 samples)', () => {
+    for (const rho of [0, 0.3, 0.6, 0.8]) {
+      const r = xoshiro128ss(100 + Math.round(rho * 10));
+      let e = gauss(r);
+      const y = Float64Array.from({ length: 20_000 }, (_, i) => { const v = curve(i) + 2 * e; e = rho * e + Math.sqrt(1 - rho * rho) * gauss(r); return v; });
+      expect(Math.abs(read(y) - rho), `rho ${rho}: read ${read(y)}`).toBeLessThan(0.06);
+    }
+  });
+  it('reads a boxcar filter of 2–6 samples with a variance factor no smaller than its own (w) and under 3w', () => {
+    for (const w of [2, 3, 4, 5, 6]) {
+      const r = xoshiro128ss(200 + w);
+      const z = Float64Array.from({ length: 20_000 + w }, () => gauss(r));
+      const y = Float64Array.from({ length: 20_000 }, (_, i) => { let s = 0; for (let k = 0; k < w; k++) s += z[i + k]!; return curve(i) + (2 * s) / Math.sqrt(w); });
+      const rho = read(y), factor = (1 + rho) / (1 - rho);
+      expect(factor, `w ${w}: rho ${rho}`).toBeGreaterThanOrEqual(w);
+      expect(factor, `w ${w}: rho ${rho}`).toBeLessThan(3 * w);
+    }
+  });
+  it('reads wiggles of the curve itself under small white noise as no correlation, and a short record as none', () => {
+    // A record that follows its own curve's bumps (period 24 samples, 2 MPa) with 0.1 MPa of white noise: its
+    // differences move together, which no noise does (the open 42CrMoS4 records 46NT71 and 46NT73 look like this).
+    const r = xoshiro128ss(300);
+    const y = Float64Array.from({ length: 5000 }, (_, i) => curve(i) + 2 * Math.sin((2 * Math.PI * i) / 24) + 0.1 * gauss(r));
+    expect(read(y)).toBe(0);
+    expect(read(Float64Array.from({ length: 60 }, (_, i) => curve(i) + gauss(r)))).toBe(0);
   });
 });
