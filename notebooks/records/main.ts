@@ -14,6 +14,7 @@ import type { RecordOptions, TensileRecord } from '../../src/records/index.js';
 import { recordCurveChart, residualChart } from '../../src/charts/records.js';
 import { BENCH_MATERIAL_KEY, pageChrome } from '../shared/page.js';
 import { sig4 } from '../../src/core/numeric/sig4.js';
+import { noiseStatement } from '../../src/report/noise.js';
 
 pageChrome('records/', 'Record bench');
 
@@ -240,6 +241,7 @@ nb.cell({ name: 'input', fn: () => null })
         h('p', { id: 'stress-basis' }, 'Rp, ReH, ReL and Rm are engineering stresses (force over the original section), as a test certificate gives them; the n-value and the fitted laws below are true stress against true plastic strain.'),
         h('p', { id: 'ag-basis' }, agBasis(a)),
         h('p', { id: 'elastic-window' }, `Elastic window: ${fixed(w.fromStress, 0)} to ${fixed(w.toStress, 0)} MPa, ${w.points} points, R² ${fixed(w.r2, 5)}, standard error of E ${fixed(w.standardError, 0)} MPa (${w.method}).`),
+        h('p', { id: 'record-noise' }, `Noise of the stress (standard deviation): ${noiseStatement(a)}.`),
         a.cycles.length ? h('p', { id: 'modulus-decay' }, `${a.cycles.length} unload–reload loops; unloading chord modulus ${a.cycles.map((c) => fixed(c.unloadModulus, 0)).join(', ')} MPa`,
           a.modulusDecay?.converged ? `; fitted E(ε̄) = E0 − (E0 − Ea)(1 − exp(−ξ·ε̄)) with Ea ${fixed(a.modulusDecay.Ea, 0)} MPa, ξ ${fixed(a.modulusDecay.xi, 1)} (sent with the law).` : '.') : null,
         a.warnings.length ? h('ul', { class: 'sl-notice' }, ...a.warnings.map((x) => h('li', {}, x.message))) : null);

@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { synthesizeLabRecord, synthesizeRecord, xoshiro128ss } from '../../src/core/index.js';
 import { expectRelClose } from '../helpers.js';
+import { withArNoise } from '../core/tensile/lab-records.helpers.js';
 import { openPage, settled, startHarness, REPO, SCREENSHOTS, type Harness } from './browser.js';
 
 let h: Harness;
@@ -152,6 +153,8 @@ describe('record bench', () => {
     expect(await page.locator('#fits-table tbody tr').count()).toBeGreaterThanOrEqual(5);
     expect(await page.locator('#spread-table tbody tr').count()).toBeGreaterThanOrEqual(2);
     expect(await page.locator('#elastic-window').innerText()).toContain('points');
+    // The record's noise, in MPa; 46NT71 follows its own curve's small wiggles, so no correlation of the noise is said.
+    expect(await page.locator('#record-noise').innerText()).toMatch(/^Noise of the stress \(standard deviation\): \d\.\d MPa \(estimated from the record\)\.$/);
     // Every stress on a stated basis (docs/bases-and-units.md): certificate values engineering, laws true.
     expect(await page.locator('#stress-basis').innerText()).toMatch(/engineering stresses .* true stress against true plastic strain/);
     await page.screenshot({ path: `${SCREENSHOTS}/records.png`, fullPage: true });
@@ -493,6 +496,30 @@ describe('record bench', () => {
     expect(await page.locator('#cell-curve-chart').innerText()).toContain('yield plateau ends: laws fitted from here');
     expect(await page.locator('#cell-properties').innerText()).toMatch(/yields at about constant force \(\d+\.\d MPa over [12]\.\d\d % strain.*no upper yield point.*ReH, ReL and Ae are not reported/s);
     await page.screenshot({ path: `${SCREENSHOTS}/records-yield-plateau.png`, fullPage: true });
+    expect(errors).toEqual([]);
+  });
+
+  it('an INVENTED record whose load noise is correlated from sample to sample: the noise line gives its sd and lag-1 correlation, as made', async () => {
+    // AR(1) noise of sd 2.5 MPa and lag-1 correlation 0.7 (an acquisition filter) on a noise-free Swift curve; what the
+    // page says is checked against how the noise was made, not against the analysis.
+    const clean = synthesizeLabRecord({ law: { law: 'swift', K: 1100, eps0: 0.01, n: 0.3 }, elasticModulus: 193000, points: 3000, noise: 0, rng: xoshiro128ss(5) });
+    const stress = withArNoise(clean.stress, 2.5, 0.7, 5);
+    const out = ['strain (%),stress (MPa)'];
+    for (let i = 0; i < stress.length; i++) out.push(`${(clean.strain[i]! * 100).toFixed(5)},${stress[i]!.toFixed(2)}`);
+    const { page, errors } = await openPage(h, '/records/');
+    await settled(page, 'records');
+    await dropFile(page, 'filtered-load.csv', out.join('\n') + '\n');
+    await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('filtered-load'), { timeout: 30_000 }).toBe(true);
+    await settled(page, 'records');
+    const line = await page.locator('#record-noise').innerText();
+    const m = /^Noise of the stress \(standard deviation\): (\d+\.\d) MPa \(estimated from the record; correlated from sample to sample, lag-1 (0\.\d\d): Rp's range is widened for it\)\.$/.exec(line);
+    expect(m, line).not.toBeNull();
+    // The sd about a local smooth reads correlated noise a little low (its blocks take up some of it): 0.7–1.1 of 2.5.
+    expect(Number(m![1])).toBeGreaterThanOrEqual(0.7 * 2.5);
+    expect(Number(m![1])).toBeLessThanOrEqual(1.1 * 2.5);
+    expect(Math.abs(Number(m![2]) - 0.7)).toBeLessThan(0.1);
+    // Rp0.2 of the noise-free curve (the generator's, ISO 6892-1 offset construction) within 1 %.
+    expectRelClose(await num(page, 'proofStrength'), clean.truth.proofStrength, 0.01, 'Rp0.2');
     expect(errors).toEqual([]);
   });
 });

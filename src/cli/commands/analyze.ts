@@ -10,6 +10,7 @@ import { PlanError } from '../../plan/problems.js';
 import { unitsOf } from '../../plan/units.js';
 import { CAUTIONS } from '../../report/cautions.js';
 import { formatLawParam } from '../../report/numbers.js';
+import { noiseStatement } from '../../report/noise.js';
 import { sig4 } from '../../core/numeric/sig4.js';
 import type { RecordOptions, TensileRecord } from '../../records/builder.js';
 import { readingWarnings, travelOptions } from '../../records/builder.js';
@@ -101,8 +102,6 @@ function chooseFit(c: LawComparison | null, law: LawName | undefined, where: str
   return f;
 }
 
-/** Noise correlation (lag-1) from which the table's noise line says it: white noise reads 0–0.1 (noiseLag1). */
-const NOISE_LAG1_SAID = 0.2;
 const fmt = (x: number | null | undefined, d = 1) => (x === null || x === undefined ? '—' : x.toFixed(d));
 
 /** A fitted parameter as an engineer writes it (report/numbers.ts): `0 (at bound)` for a collapsed one. */
@@ -121,7 +120,7 @@ function tableText(rec: TensileRecord, a: TensileAnalysis): string {
       (a.machineCompliance ? ` (machine and specimen; compliance ${a.machineCompliance.toExponential(2)} /MPa taken out${a.parallelLengthRatio ? `, plastic travel over Lc, L0/Lc ${fmt(a.parallelLengthRatio, 3)}` : ''})` : ''));
   }
   else lines.push(`  E            ${fmt(a.elasticModulus / 1000, 1)} GPa   95 % ${fmt(ci0 / 1000, 1)}–${fmt(ci1 / 1000, 1)} GPa, band ${fmt(w.fromStress, 0)}–${fmt(w.toStress, 0)} MPa, ${w.points} points, R² ${w.r2.toFixed(5)}`);
-  lines.push(`  noise        ${a.noise.toPrecision(2)} MPa (estimated from the record${a.stressSteps ? `; at least the rounding of its stress steps of ${+a.stressSteps.step.toPrecision(3)} MPa, step/√12` : ''}${(a.noiseLag1 ?? 0) >= NOISE_LAG1_SAID ? `; correlated from sample to sample, lag-1 ${a.noiseLag1!.toFixed(2)}: Rp's range is widened for it` : ''})`);
+  lines.push(`  noise        ${noiseStatement(a)}`);
   lines.push(`  Rp${a.proofOffsetPct}        ${fmt(a.proofStrength)} MPa   Rp0.5 ${fmt(a.proofStrengths[1]?.stress)}   Rp1 ${fmt(a.proofStrengths[2]?.stress)}   Rt0.5 ${fmt(a.totalExtensionStrength)}`);
   if (a.upperYield !== null) lines.push(`  ReH / ReL    ${fmt(a.upperYield)} / ${fmt(a.lowerYield)} MPa   Ae ${fmt(a.yieldPointElongationPct, 2)} %`);
   else if (a.yieldPlateau) lines.push(`  ReH          none clear of the noise; yield plateau at ${fmt(a.yieldPlateau.level)} MPa from ${fmt(a.yieldPlateau.startStrain * 100, 2)} to ${fmt(a.yieldPlateau.endStrain * 100, 2)} % (laws fitted from its end)`);

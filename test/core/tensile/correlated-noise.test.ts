@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeRecord, synthesizeLabRecord, xoshiro128ss } from '../../../src/core/index.js';
-import { labCase } from './lab-records.helpers.js';
+import { labCase, withArNoise } from './lab-records.helpers.js';
 
 // Rp0.2's range on records whose load noise is correlated from sample to sample (an acquisition filter: AR(1), lag-1
 // correlation ρ; the model as in Box & Jenkins, *Time Series Analysis*, ch. 3, from memory). INVENTED records: the
@@ -12,16 +12,6 @@ import { labCase } from './lab-records.helpers.js';
 // (measured on main at 5753967). With the noise's correlation read over the whole record (noiseLag1): 75 of 80, none.
 const RHO = 0.7;
 
-function withArNoise(stress: Float64Array, sd: number, seed: number): Float64Array {
-  const r = xoshiro128ss(seed, 11);
-  const g = () => Math.sqrt(-2 * Math.log(1 - r.nextFloat())) * Math.cos(2 * Math.PI * r.nextFloat());
-  const out = new Float64Array(stress.length);
-  const innov = sd * Math.sqrt(1 - RHO * RHO);
-  let e = sd * g();
-  for (let i = 0; i < stress.length; i++) { out[i] = stress[i]! + e; e = RHO * e + innov * g(); }
-  return out;
-}
-
 describe("Rp0.2's range under correlated load noise (INVENTED records, AR(1) ρ 0.7)", () => {
   it('holds the noise-free truth on at least 90 % of 80 continuous records, and every Rp0.2 off by more than 1 % is warned', () => {
     let n = 0, held = 0, offUnwarned = 0;
@@ -30,7 +20,7 @@ describe("Rp0.2's range under correlated load noise (INVENTED records, AR(1) ρ 
       const c = labCase(seed);
       if (c.spec.yieldDrop) continue;
       const clean = synthesizeLabRecord({ ...c.spec, noise: 0, rng: xoshiro128ss(seed) });
-      const rec = { strain: clean.strain, stress: withArNoise(clean.stress, c.spec.noise!, seed) };
+      const rec = { strain: clean.strain, stress: withArNoise(clean.stress, c.spec.noise!, RHO, seed) };
       let a;
       try { a = analyzeRecord(rec, { fit: false }); } catch { continue; } // E refused: too few samples on the rise
       const t = clean.truth.proofStrength, pr = a.proofStrengthRange;

@@ -50,3 +50,17 @@ export function labCase(seed: number): Case {
   };
 }
 
+
+/**
+ * `stress` with AR(1) load noise added (eᵢ = ρ·eᵢ₋₁ + √(1 − ρ²)·sd·zᵢ, marginal sd `sd`, lag-1 correlation ρ; the
+ * model as in Box & Jenkins, *Time Series Analysis*, ch. 3, from memory), from a seeded stream of its own.
+ */
+export function withArNoise(stress: Float64Array, sd: number, rho: number, seed: number): Float64Array {
+  const r = xoshiro128ss(seed, 11);
+  const g = () => Math.sqrt(-2 * Math.log(1 - r.nextFloat())) * Math.cos(2 * Math.PI * r.nextFloat());
+  const out = new Float64Array(stress.length);
+  const innov = sd * Math.sqrt(1 - rho * rho);
+  let e = sd * g();
+  for (let i = 0; i < stress.length; i++) { out[i] = stress[i]! + e; e = rho * e + innov * g(); }
+  return out;
+}
