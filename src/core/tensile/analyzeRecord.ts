@@ -224,7 +224,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const N = strain.length;
   const warnings: TensileWarning[] = [...early];
   const sMax = stress[iRaw]!;
-  let el = elasticModulus(strain, stress, sMax, noise);
+  let el = elasticModulus(strain, stress, sMax, noise, 0, noiseRho);
   // A strain column in steps whose rounding on the rise matters (E·q/√12, the uniform rounding error's sd — common
   // practice — above half the load's noise): E again, each line's scatter with what rounding is left on the rise
   // (xRounding, strain: all of it where the column moves every sample or so; read between its steps, a reading held
@@ -232,7 +232,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   const xRounding = steps ? steps.step / Math.sqrt(12) / (steps.coarse ? Math.max(1, steps.riseSamplesPerReading) : 1) : 0;
   const roundingMatters = (modulus: number) => steps !== null && (modulus * steps.step) / Math.sqrt(12) > STRAIN_STEPS.materialShare * noise;
   const xr = roundingMatters(el.modulus) ? xRounding : 0;
-  if (xr > 0) el = elasticModulus(strain, stress, sMax, noise, xr);
+  if (xr > 0) el = elasticModulus(strain, stress, sMax, noise, xr, noiseRho);
   const given = opts.elasticModulus;
   if (given !== undefined && !(given > 0 && Number.isFinite(given))) throw new InputError('elasticModulus', given, 'a modulus > 0 MPa');
   // Strain from the machine's travel with the specimen's E given: the machine's and grips' compliance taken out, then
@@ -255,7 +255,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
         lengthRatio = tl.gaugeLength / tl.parallelLength;
         strain = spreadOverParallelLength(strain, stress, given, lengthRatio);
       }
-      el = elasticModulus(strain, stress, sMax, noise, xr);
+      el = elasticModulus(strain, stress, sMax, noise, xr, noiseRho);
       warnings.push({
         code: 'machineCompliance',
         message: `strain from the machine's travel: its elastic slope ${(apparent.modulus / 1000).toFixed(1)} GPa (band ${apparent.window.fromStress.toFixed(0)}–${apparent.window.toStress.toFixed(0)} MPa) against the given E ${(given / 1000).toFixed(1)} GPa is the machine's and grips' compliance, taken out as a linear spring: e − s·${compliance.toExponential(2)} /MPa. Rp0.2 is then close to an extensometer's; ` +
