@@ -131,7 +131,7 @@ function smoothCrossing(strain: ArrayLike<number>, stress: ArrayLike<number>, E:
   const gain = E / Math.max(E - slope, 1e-9 * E);
   const sFit = Math.sqrt(Math.max(0, s2 * lev)) * gain;
   const sE = lineVariance ? Math.abs(slope) * Math.sqrt(Math.max(0, lineVariance(f.at(e)))) * gain : 0;
-  // 95 % half-width with Student's t on the effective degrees of freedom n(1 − ρ)/(1 + ρ) − 3.
+  // 95 % half-width with Student's t on the window's effective degrees of freedom n(1 − ρ)/(1 + ρ) − 3 (its own ρ).
   const se = Math.hypot(sFit, sE);
   const dof = Math.max(1, (f.n * (1 - own)) / (1 + own) - 3);
   return { ...at, standardError: se, halfWidth95: studentTQuantile(0.975, dof) * se };
