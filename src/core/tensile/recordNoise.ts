@@ -173,7 +173,7 @@ const LAG1_BLOCK = 64;
  * Why from the whole record: a short window's own residuals (13 samples about a parabola near the Rp0.2 crossing)
  * read ρ near 0 where it is 0.7, and the intervals built on them were too narrow. On invented hold-out D records ρ_d
  * follows the generator's ρ within about 0.1 (0.70 → 0.79, 0.83 → 0.82, 0.40 → 0.41, white → 0.00–0.10).
- * Units: none (stresses in any one unit). Valid: any length; fewer than 66 samples give 0.
+ * Units: none (stresses in any one unit). Valid: any length; fewer than 65 samples give 0.
  * Cost: O(min(n, 64,000)), and recordNoise's O(n) pass only where ρ_d is near 1.
  * @returns ρ in [0, NOISE_LAG1_MAX].
  * @example noiseLag1(Float64Array.from({ length: 200 }, (_, i) => i * i), 0, 200, 0) // 0 (no noise)
