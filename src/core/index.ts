@@ -152,7 +152,7 @@ export { lawData, lawNormalProblem, lawResidualPass, lawResidualStats } from './
 export type { LawData } from './fit/lawNormalEquations.js';
 export { blockAverage, reductionBlockSize, REDUCTION_DEFAULTS } from './fit/blockAverage.js';
 export { blockMoments, MOMENT_STRIDE, type BlockMoments } from './fit/blockMoments.js';
-export { curveResidualStats, momentResidualStats, type CurveResidualStats, type MomentResidualStats } from './fit/momentResidualStats.js';
+export { curveResidualStats, momentResidualStats, upperResidualSquares, type CurveResidualStats, type MomentResidualStats } from './fit/momentResidualStats.js';
 export type { BlockAverages } from './fit/blockAverage.js';
 export { effectivePoints } from './fit/effectivePoints.js';
 export type { EffectivePoints } from './fit/effectivePoints.js';

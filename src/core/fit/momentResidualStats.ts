@@ -25,6 +25,8 @@ export interface MomentResidualStats {
   exactPoints: number;
   /** Estimated bound on |SSR(moments) − SSR(every point)| / SSR; the same bounds |Δ lag-1 sum| / SSR. */
   bound: number;
+  /** Points in the blocks summed (all of them unless `fromX` or `toX` left some out). */
+  points: number;
 }
 
 /**
@@ -42,6 +44,36 @@ export function curveResidualStats(law: LawName, d: LawData, p: Float64Array): C
   const mom = (d.moments ??= blockMoments(d.x, d.y, REDUCTION_DEFAULTS.momentBlock));
   const r = momentResidualStats(law, d, p, mom);
   return { ssr: r.ssr, sst: mom.sst, lag1: r.lag1, ok: r.ok };
+}
+
+/**
+ * Σ rᵢ² of `law` at `p` over the points of `d` whose strain lies in [from, to] (rᵢ = σ(xᵢ; p) − yᵢ), and how many
+ * points that is: the misfit of a law over part of a curve (the part before its end, which decides where the law
+ * puts maximum force: lawUniformElongation). Curves of at least REDUCTION_DEFAULTS.momentStatsFrom points without
+ * weights: from the block moments ({@link momentResidualStats} with fromX = from, toX = to; a block counts when its
+ * strain midpoint lies in the range, so each boundary is one block wide); shorter ones point by point (weighted,
+ * wᵢrᵢ² and Σwᵢ, where d has weights). Units: MPa², strain as d.x. Valid: d packed by lawData. Returns points 0
+ * (and ssr 0) when no point lies in the range.
+ * @example upperResidualSquares('voce', lawData(x, y), Float64Array.of(300, 200, 12), 0.1, 0.3) // { ssr, points }
+ */
+export function upperResidualSquares(law: LawName, d: LawData, p: Float64Array, from: number, to: number): { ssr: number; points: number } {
+  const n = d.x.length;
+  if (n >= REDUCTION_DEFAULTS.momentStatsFrom && !d.w) {
+    const mom = (d.moments ??= blockMoments(d.x, d.y, REDUCTION_DEFAULTS.momentBlock));
+    const r = momentResidualStats(law, d, p, mom, REDUCTION_DEFAULTS.momentRelTol, from, to);
+    return { ssr: r.ssr, points: r.points };
+  }
+  const v = new Float64Array(n);
+  lawValues(law, d.x, d.lx, p, v);
+  const { x, y, w } = d;
+  let ssr = 0, points = 0;
+  for (let i = 0; i < n; i++) {
+    if (!(x[i]! >= from && x[i]! <= to)) continue;
+    const r = v[i]! - y[i]!, wi = w ? w[i]! : 1;
+    ssr += wi * r * r;
+    points += wi;
+  }
+  return { ssr, points };
 }
 
 /**
@@ -66,28 +98,37 @@ export function curveResidualStats(law: LawName, d: LawData, p: Float64Array): C
  * Near yield, where the curvature of a power law is largest, the blocks are narrow in strain anyway
  * (the strain rate of a test is nearly constant) and any that are not are evaluated exactly.
  * Sources: Taylor/Lagrange interpolation remainder (any numerical analysis text, e.g. Burden & Faires
- * §3.1 — from memory); the sum-of-squares algebra is exact. Units: MPa². Valid: d unweighted, x > 0.
+ * §3.1 — from memory); the sum-of-squares algebra is exact. With `fromX` and `toX`, only the blocks whose
+ * strain midpoint lies in [fromX, toX] are summed (the lag-1 sum across a boundary only between two of them; `points` says how
+ * many points that is). Units: MPa². Valid: d unweighted, x > 0.
  * @example momentResidualStats('voce', d, p, blockMoments(d.x, d.y, 128)).bound // e.g. 3e-10
  */
-export function momentResidualStats(law: LawName, d: LawData, p: Float64Array, mom: BlockMoments, relTol: number = REDUCTION_DEFAULTS.momentRelTol): MomentResidualStats {
+export function momentResidualStats(law: LawName, d: LawData, p: Float64Array, mom: BlockMoments, relTol: number = REDUCTION_DEFAULTS.momentRelTol, fromX = -Infinity, toX = Infinity): MomentResidualStats {
   const { x, y } = d;
   const { count, size, data } = mom;
   const F = new Float64Array(count * NODES);
   lawValues(law, mom.nodes, mom.lnNodes, p, F);
   const ssrB = new Float64Array(count), lagB = new Float64Array(count), rFirst = new Float64Array(count), rLast = new Float64Array(count);
   const beta = new Float64Array(count), round = new Float64Array(count);
-  let ssrEst = 0;
+  // Blocks whose strain midpoint lies outside [fromX, toX] are left out (upperResidualSquares); with the defaults
+  // none is, and every sum below is the one made before that option existed, in the same order.
+  const used = new Uint8Array(count);
+  let ssrEst = 0, nUsed = 0, blocks = 0;
   for (let b = 0; b < count; b++) {
+    const mid = data[b * MOMENT_STRIDE + 1]!;
+    if (mid < fromX || mid > toX) continue;
+    used[b] = 1; blocks++; nUsed += data[b * MOMENT_STRIDE]!;
     const v = blockStats(data, b * MOMENT_STRIDE, mom.nodes, F, b * NODES, x, y, b * size, Math.min(x.length, b * size + size));
     ssrB[b] = v.ssr; lagB[b] = v.lag; rFirst[b] = v.r0; rLast[b] = v.r1; beta[b] = v.beta; round[b] = v.round;
     ssrEst += v.ssr;
   }
   const n = x.length;
-  const rmse = Math.sqrt(Math.max(0, ssrEst) / n);
-  const limit = relTol * rmse, roundLimit = relTol * Math.max(0, ssrEst) / count;
+  const rmse = Math.sqrt(Math.max(0, ssrEst) / nUsed);
+  const limit = relTol * rmse, roundLimit = relTol * Math.max(0, ssrEst) / blocks;
   let exactBlocks = 0, exactPoints = 0, err = 0;
   let scratch: Float64Array | null = null;
   for (let b = 0; b < count; b++) {
+    if (!used[b]) continue;
     if (beta[b]! <= limit && round[b]! <= roundLimit) {
       const nb = data[b * MOMENT_STRIDE]!;
       err += 2 * beta[b]! * Math.sqrt(nb * Math.max(0, ssrB[b]!)) + nb * beta[b]! ** 2 + round[b]!;
@@ -103,12 +144,13 @@ export function momentResidualStats(law: LawName, d: LawData, p: Float64Array, m
   }
   let ssr = 0, lag1 = 0;
   for (let b = 0; b < count; b++) {
+    if (!used[b]) continue;
     ssr += ssrB[b]!;
     lag1 += lagB[b]!;
-    if (b > 0) lag1 += rLast[b - 1]! * rFirst[b]!;
+    if (b > 0 && used[b - 1]) lag1 += rLast[b - 1]! * rFirst[b]!;
   }
   const ok = Number.isFinite(ssr) && Number.isFinite(lag1);
-  return { ssr, lag1, ok, exactBlocks, exactPoints, bound: ssr > 0 ? err / ssr : err === 0 ? 0 : Infinity };
+  return { ssr, lag1, ok, exactBlocks, exactPoints, points: nUsed, bound: ssr > 0 ? err / ssr : err === 0 ? 0 : Infinity };
 }
 
 const EPS = Number.EPSILON;

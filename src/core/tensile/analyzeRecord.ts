@@ -565,7 +565,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     // A law's Ag is refused only where the samples near the top clearly rule it out: outside the top model's 99.9 %
     // interval (LAW_GATE_CHI2), not its 95 % one.
     const g = fm.strainInterval999;
-    if (six) agLaws = lawUniformElongation(six, E, [(g[0] - toe - fm.stress / E) * 100, (g[1] - toe - fm.stress / E) * 100]);
+    if (six) agLaws = lawUniformElongation(six, E, [(g[0] - toe - fm.stress / E) * 100, (g[1] - toe - fm.stress / E) * 100], packed);
   }
   const byLaws = agLaws?.pct ?? null;
   // Maximum force after the strain channel's end: Ag and Agt at least the plastic and total strain of its last sample.
@@ -599,7 +599,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
     parallelLengthRatio: lengthRatio,
     noise,
     noiseLag1: noiseRho,
-    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, topModelUniformElongationPct: agTop, lawUniformElongation: agLaws, method: (byLaws !== null ? 'Ag where the hardening laws fitted to the uniform part of the curve reach maximum engineering stress (Considère with the elastic strain counted), Akaike-weighted over the laws whose maximum lies inside the 99.9 % interval of the top model below (the 95 % interval given is the top model\'s, widened to hold that Ag); ' : '') + 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at the Akaike-weighted vertex of this kinked top and a smooth one (one curvature both sides), or at the middle of a top flat within the noise' },
+    forceMaximum: { points: fm.points, span: fm.span, flat: fm.flat, uniformElongationInterval95: agCi, topModelUniformElongationPct: agTop, lawUniformElongation: agLaws, method: (byLaws !== null ? 'Ag where the hardening laws fitted to the uniform part of the curve reach maximum engineering stress (Considère with the elastic strain counted), Akaike-weighted (from the residuals of each law where the plastic strain of the flow curve is 0.3 to 0.9 of its largest; used where the laws inside hold half the weight by those and by the whole curve) over the laws whose maximum lies inside the 99.9 % interval of the top model below (the 95 % interval given is the top model\'s, widened to hold that Ag); ' : '') + 'least-squares top model fitted to the samples whose moving average lies within max(3 noise sd of the average, 1 %) of the top: each side −a·u² + b·u³ from a common vertex, bounded to fall away from it; Rm its maximum (necking side without the cubic), Ag at the Akaike-weighted vertex of this kinked top and a smooth one (one curvature both sides), or at the middle of a top flat within the noise' },
     elasticWindow: el.window,
     toeStrain: toe,
     proofStrength: proof?.stress ?? null,

@@ -151,9 +151,10 @@ export interface TensileAnalysis {
     topModelUniformElongationPct: number;
     /**
      * Ag from the six hardening laws fitted to the flow curve (lawUniformElongation): each law's own Ag, Akaike
-     * weight and whether it lies inside the top fit's 99.9 % interval (`LAW_GATE_CHI2`), and their weighted mean over those inside (the
-     * reported Ag; null when they hold less than half the weight); null where the record ends before maximum
-     * force or no law was fitted.
+     * weight (from its residuals over the upper part of the flow curve, `upperPart`) and whether it lies inside the
+     * top fit's 99.9 % interval (`LAW_GATE_CHI2`), and their weighted mean over those inside (the reported Ag; null
+     * when they hold less than half the weight, by the upper part's criteria or the whole curve's); null where the
+     * record ends before maximum force or no law was fitted.
      */
     lawUniformElongation: LawTop | null;
   };

@@ -43,13 +43,16 @@ const SEEDS = Array.from({ length: 200 }, (_, i) => 1000 + i);
 // Nineteenth session: the plateau–hardening hinge's branch kept from bending upward (yieldPoint.ts): Ae 2 → 1 (1152,
 // 0.42 point short, now 0.01; 1110 stays 0.52 long: a Hockett–Sherby branch rising 10 MPa a per cent from the plateau
 // against 2 MPa of noise and 1.5 % serrations, sampled 4× sparser after it).
-const CEILINGS_NOISY: Record<string, number> = { Ag: 3, Ae: 1, 'Rp0.2': 1 };
+// Twenty-third session: the laws' Akaike weights for Ag from their residuals over the upper part of the flow curve
+// (lawTop.ts, UPPER_PART): Ag 3 → 2 (1000, 20.15 against 21.43, and 1111 left).
+const CEILINGS_NOISY: Record<string, number> = { Ag: 2, Ae: 1, 'Rp0.2': 1 };
 // Sixth session: the top fit's bound test allows rounding (a side tied to zero end slope, on its bound by
 // construction, had been refused at random): 28 of the 760 noisy records of the four generators moved by 0.01–0.14
 // point either way, and seed 1110 from 0.398 to 0.423 point off: 52 → 53.
 // Seventh session: Ag from the fitted hardening laws where their maximum lies inside the top model's interval
 // (lawTop.ts): 53 → 29; outside the interval unchanged (4). Eighteenth session, gated at 99.9 %: 29 → 25.
-const AG_OFF_NOISY = 25;
+// Twenty-third session, the laws weighted by the upper part of the curve: 25 → 21.
+const AG_OFF_NOISY = 21;
 // Noise-free: met on every seed (ReH was read at a moving average on 3 clean records whose peak sample sat just past
 // the peak, 0.5–0.7 % low: the knee test now leaves the peak sample out).
 const CEILINGS_CLEAN: Record<string, number> = {};

@@ -137,10 +137,14 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
     // themselves), then the flow curve from the end of a yield plateau whose drop is not reported (yieldPlateau): 13.
     // Nineteenth session: the plateau–hardening hinge's branch kept from bending upward (yieldPoint.ts) moved seed 35's
     // plateau end from 2.29 to 2.42 % and its Ag from 0.39 to 0.41 point off (the laws fitted from there): 14.
-    expect(r.agOff).toBeLessThanOrEqual(14);
-    // Of those, warned with a 95 % interval wider than ±0.4 point that holds the truth: 14 (13 before seed 35 moved, 12 before the gate, 46
-    // before the laws, 107 before the bounded top model).
-    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(14);
+    // Twenty-third session: the laws' Akaike weights for Ag from their residuals over the upper part of the flow curve
+    // (0.3–0.9 of its largest plastic strain; lawTop.ts, UPPER_PART), where their maximum of force is decided, not over
+    // the whole curve: 14 → 11 (35, 57, 122 and 143 within 0.4 point now, 80 past it; 27, 50, 56, 65, 113, 125, 136, 146,
+    // 172 and 210 left).
+    expect(r.agOff).toBeLessThanOrEqual(11);
+    // Of those, warned with a 95 % interval wider than ±0.4 point that holds the truth: 11 (14 before the upper-part
+    // weights, 13 before seed 35 moved, 12 before the gate, 46 before the laws, 107 before the bounded top model).
+    expect(r.accepted['Ag (warned, inside its 95 % interval)']?.length ?? 0).toBeLessThanOrEqual(11);
     // Unreported drops whose plateau was found (yieldPlateau): 5 of the 7.
     expect(r.accepted['drop not reported, its plateau found']?.length ?? 0).toBeGreaterThanOrEqual(5);
     // The acceptances stay the exception, and each kind is exercised (so the conditions above can fail).

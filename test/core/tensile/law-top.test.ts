@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { LAW_NAMES, makeLaw, synthesizeLabRecord, xoshiro128ss, analyzeRecord, type LawSpec } from '../../../src/core/index.js';
+import { LAW_NAMES, makeLaw, synthesizeLabRecord, xoshiro128ss, analyzeRecord, lawData, type LawSpec } from '../../../src/core/index.js';
 import { lawTopPlasticStrain, lawUniformElongation } from '../../../src/core/tensile/lawTop.js';
 import { LAW_GATE_CHI2 } from '../../../src/core/tensile/forceMaximum.js';
 import { errorFunction } from 'simple-statistics';
@@ -61,6 +61,60 @@ describe('lawUniformElongation: Ag from the fitted laws, only inside the top mod
     const onlyB = lawUniformElongation([a, b], E, [lo, hi])!;
     expect(onlyB.pct).toBeNull();
     expect(onlyB.laws.map((l) => l.inside)).toEqual([false, true]);
+  });
+});
+
+describe('lawUniformElongation with the fitted data: the weights from the upper part of the curve', () => {
+  // INVENTED curve: Swift K 600, ε0 0.01, n 0.22 up to its maximum of force, with a deterministic ±1 MPa scatter.
+  // Two "fits": Swift at the true parameters but given the worse whole-curve criterion (AIC 1000 against 0), and a
+  // Voce law that does not follow the curve. Over the whole curve's criteria the Voce law takes the weight; over the
+  // upper part (0.3–0.9 of the largest plastic strain), where its residuals are far larger, Swift does.
+  const swift: LawSpec = { law: 'swift', K: 600, eps0: 0.01, n: 0.22 };
+  const voce: LawSpec = { law: 'voce', sigma0: 300, Q: 150, b: 15 };
+  const S = makeLaw(swift);
+  const top = lawTopPlasticStrain(S, E)!;
+  const n = 4000;
+  const x = Float64Array.from({ length: n }, (_, i) => 0.002 + ((top - 0.002) * i) / (n - 1));
+  const y = Float64Array.from(x, (v, i) => S.stress(v) + Math.sin(1.7 * i));
+  const fit = (spec: LawSpec, aic: number) => ({ law: spec.law, params: { ...spec }, converged: true, aic, basis: { held: [] } } as unknown as LawFit);
+  const agOf = (spec: LawSpec) => { const L = makeLaw(spec); const ep = lawTopPlasticStrain(L, E)!; const s = L.stress(ep); const e = Math.expm1(ep + s / E); return (e - s / (1 + e) / E) * 100; };
+  it('without the data: the whole-curve criteria (Voce); with them: Swift, and the range used is said', () => {
+    const fits = [fit(swift, 1000), fit(voce, 0)];
+    const wide: [number, number] = [0, 100];
+    const plain = lawUniformElongation(fits, E, wide)!;
+    expect(plain.upperPart).toBeNull();
+    expect(plain.laws[1]!.weight).toBeCloseTo(1, 12);
+    expect(plain.pct!).toBeCloseTo(agOf(voce), 10);
+    const d = lawData(x, y);
+    const upper = lawUniformElongation(fits, E, wide, d)!;
+    expect(upper.upperPart![0]).toBeCloseTo(0.3 * d.hi, 15);
+    expect(upper.upperPart![1]).toBeCloseTo(0.9 * d.hi, 15);
+    expect(upper.laws[0]!.weight).toBeCloseTo(1, 12);
+    expect(upper.pct!).toBeCloseTo(agOf(swift), 10);
+    expect(Math.abs(agOf(swift) - agOf(voce))).toBeGreaterThan(1);
+  });
+  it('used only where the laws inside the interval hold at least half of the weight over the whole curve too', () => {
+    // Only Swift's Ag inside: over the upper part it holds all the weight, over the whole curve none (Voce's AIC 0).
+    const d = lawData(x, y);
+    const onlySwift: [number, number] = [agOf(swift) - 0.01, agOf(swift) + 0.01];
+    expect(agOf(voce) < onlySwift[0] || agOf(voce) > onlySwift[1]).toBe(true);
+    const r = lawUniformElongation([fit(swift, 1000), fit(voce, 0)], E, onlySwift, d)!;
+    expect(r.laws[0]!.weight).toBeCloseTo(1, 12);
+    expect(r.laws[0]!.inside).toBe(true);
+    expect(r.pct).toBeNull();
+    // Both criteria agreeing (Swift's whole-curve AIC the better): used.
+    expect(lawUniformElongation([fit(swift, 0), fit(voce, 1000)], E, onlySwift, d)!.pct!).toBeCloseTo(agOf(swift), 10);
+  });
+  it('the criterion is m·ln(SSR/m) + 2k over that part: two laws fitting it equally well are weighted by their parameter counts alone', () => {
+    // The same curve given twice: as a three-parameter Swift, and as a Swift–Voce blend with α = 1 (pure Swift, seven
+    // parameters): the same residuals, so the weights differ by the penalty 2k alone.
+    const sv: LawSpec = { law: 'swiftVoce', alpha: 1, K: 600, eps0: 0.01, n: 0.22, sigma0: 300, Q: 150, b: 15 };
+    const d = lawData(x, y);
+    const r = lawUniformElongation([fit(swift, 0), fit(sv, 0)], E, [0, 100], d)!;
+    // Equal residuals; Swift–Voce has 7 parameters, Swift 3: weights 1 : e^(−4).
+    const w = Math.exp(-4);
+    expect(r.laws[0]!.weight).toBeCloseTo(1 / (1 + w), 9);
+    expect(r.laws[1]!.weight).toBeCloseTo(w / (1 + w), 9);
   });
 });
 
