@@ -332,7 +332,7 @@ if (demo) load({ name: demo[0].split('/').pop()!, text: demo[1], demo: true }, {
 else drawMapping();
 expose('records', nb);
 
-/** Where Ag was read: the fitted laws' maximum of force inside the top model's interval, or the top model (lawTop.ts). */
+/** Where Ag was read: the fitted laws' maximum of force inside the top model's interval (the laws that follow the curve best, lawTop.ts), or the top model. */
 function agBasis(a: { forceMaximum: { uniformElongationInterval95: [number, number]; lawUniformElongation: { pct: number | null } | null }; lowerBounds: readonly string[]; strainChannelEnd: unknown }): string {
   // A lower bound has no interval of its own: say where it comes from instead.
   if (a.lowerBounds.includes('uniformElongationPct')) {
@@ -344,5 +344,5 @@ function agBasis(a: { forceMaximum: { uniformElongationInterval95: [number, numb
   const range = `${fixed(lo, 2)} to ${fixed(hi, 2)} %`;
   const laws = a.forceMaximum.lawUniformElongation;
   if (laws?.pct != null) return `Ag: where the fitted hardening laws reach maximum force, which the samples near the top do not rule out (95 %: ${range}).`;
-  return `Ag: from a local fit of the samples near the top (95 %: ${range})${laws ? '; the fitted laws put maximum force where the samples near the top rule it out, so they are not used' : ''}.`;
+  return `Ag: from a local fit of the samples near the top (95 %: ${range})${laws ? '; the fitted laws that follow the curve best put maximum force where the samples near the top rule it out, so they are not used' : ''}.`;
 }
