@@ -13,6 +13,6 @@ export function noiseStatement(a: Pick<TensileAnalysis, 'noise' | 'noiseLag1' | 
   const parts = ['estimated from the record'];
   if (a.stressSteps) parts.push(`at least the rounding of its stress steps of ${+a.stressSteps.step.toPrecision(3)} MPa, step/√12`);
   const rho = a.noiseLag1 ?? 0;
-  if (rho >= NOISE_LAG1_SAID) parts.push(`correlated from sample to sample, lag-1 ${rho.toFixed(2)}: Rp's range is widened for it`);
+  if (rho >= NOISE_LAG1_SAID) parts.push(`correlated from sample to sample, lag-1 ${rho.toFixed(2)}: E's interval and Rp's range are widened for it`);
   return `${a.noise.toPrecision(2)} MPa (${parts.join('; ')})`;
 }

@@ -512,7 +512,7 @@ describe('record bench', () => {
     await expect.poll(async () => (await page.locator('#cell-record-name').innerText()).includes('filtered-load'), { timeout: 30_000 }).toBe(true);
     await settled(page, 'records');
     const line = await page.locator('#record-noise').innerText();
-    const m = /^Noise of the stress \(standard deviation\): (\d+\.\d) MPa \(estimated from the record; correlated from sample to sample, lag-1 (0\.\d\d): Rp's range is widened for it\)\.$/.exec(line);
+    const m = /^Noise of the stress \(standard deviation\): (\d+\.\d) MPa \(estimated from the record; correlated from sample to sample, lag-1 (0\.\d\d): E's interval and Rp's range are widened for it\)\.$/.exec(line);
     expect(m, line).not.toBeNull();
     // The sd about a local smooth reads correlated noise a little low (its blocks take up some of it): 0.7–1.1 of 2.5.
     expect(Number(m![1])).toBeGreaterThanOrEqual(0.7 * 2.5);
