@@ -1,7 +1,7 @@
 import { isMainThread, MessageChannel, parentPort, receiveMessageOnPort, Worker, workerData, type MessagePort } from 'node:worker_threads';
 import { compareLawFits, fitAllLaws, fitLawGroup, type FitAllOptions, type LawComparison } from '../core/fit/fitAllLaws.js';
 import { withLazyResiduals } from '../core/fit/fitLaw.js';
-import type { LawData } from '../core/fit/lawNormalEquations.js';
+import { lawDataRanged, type LawData } from '../core/fit/lawNormalEquations.js';
 import type { LawFit } from '../core/fit/types.js';
 import { LAW_NAMES, LAW_PARAMETERS } from '../core/flow/params.js';
 import type { LawName } from '../core/flow/types.js';
@@ -20,7 +20,7 @@ const MAIN_GROUP: readonly LawName[] = ['swift', 'swiftVoce'];
 const EARLY: LawName = 'voce';
 
 /** What crosses between the threads: a job (the packed curve in shared memory, the helper's laws) and its answer. */
-interface Job { x: Float64Array; y: Float64Array; lx: Float64Array; lo: number; hi: number; early: LawName; laws: LawName[] }
+interface Job { x: Float64Array; y: Float64Array; lo: number; hi: number; early: LawName; laws: LawName[] }
 type FitData = Omit<LawFit, 'residuals'>;
 type Answer = { fits: FitData[] } | { error: string };
 
@@ -33,7 +33,8 @@ if (!isMainThread && (workerData as { role?: string } | null)?.role === ROLE) {
   const answer = (a: Answer) => { port.postMessage(a); Atomics.add(ctl, 1, 1); Atomics.notify(ctl, 1); };
   port.on('message', (job: Job) => {
     try {
-      const packed: LawData = { x: job.x, y: job.y, w: null, lx: job.lx, lo: job.lo, hi: job.hi, bad: -1 };
+      // ln x made only if a fit reads it, as on the main thread (lawDataRanged); the fits of a long curve do not.
+      const packed: LawData = lawDataRanged(job.x, job.y, job.lo, job.hi, -1);
       answer({ fits: [plainFit(fitLawGroup([job.early], job.x, job.y, packed).get(job.early)!)] });
       const byLaw = fitLawGroup(job.laws, job.x, job.y, packed);
       answer({ fits: job.laws.map((l) => plainFit(byLaw.get(l)!)) });
@@ -112,7 +113,7 @@ export function startFitHelper(timeoutMs = 60_000, waitReady = false): FitHelper
     const p = opts.packed;
     const share = (a: Float64Array) => { const s = new Float64Array(new SharedArrayBuffer(a.byteLength)); s.set(a); return s; };
     Atomics.store(ctl, 1, 0);
-    port1.postMessage({ x: share(p.x), y: share(p.y), lx: share(p.lx), lo: p.lo, hi: p.hi, early: EARLY, laws: helperLaws } satisfies Job);
+    port1.postMessage({ x: share(p.x), y: share(p.y), lo: p.lo, hi: p.hi, early: EARLY, laws: helperLaws } satisfies Job);
     const started = Date.now();
     // On any failure, the whole fit again on this thread: it words an error exactly as the one-thread fit.
     const fallback = () => { broken = true; return fitAllLaws(strain, stress, opts); };

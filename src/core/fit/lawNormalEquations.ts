@@ -98,14 +98,17 @@ export function lawDataLogged(x: Float64Array, y: Float64Array, lx: Float64Array
 }
 
 /**
- * {@link lawDataLogged} when the range and the first bad point are known too (analyzeRecord's flow-curve pass
- * finds them with lawDataLogged's own comparisons, `flowColumns`): the same LawData without a pass over the
- * data. `lo`, `hi`: smallest and largest x (Infinity and −Infinity for no data); `bad`: index of the first
- * point whose x or y is not finite and > 0, or −1. Units as lawData.
- * @example lawDataRanged(Float64Array.of(0.1), Float64Array.of(300), Float64Array.of(Math.log(0.1)), 0.1, 0.1, -1).hi // 0.1
+ * {@link lawData} for unweighted data whose range and first bad point are known (analyzeRecord's flow-curve pass
+ * finds them with lawDataLogged's own comparisons, `flowColumns`): the same LawData without a pass over the data,
+ * and ln x made only when first read (`lx[i]` = Math.log(x[i]), the numbers lawData makes). On a long flow curve
+ * the fits work on block moments and averages and never read it: a column of 766,764 logarithms (6 MB of fresh
+ * memory) is not made. `lo`, `hi`: smallest and largest x (Infinity and −Infinity for no data); `bad`: index of
+ * the first point whose x or y is not finite and > 0, or −1. Units as lawData.
+ * @example lawDataRanged(Float64Array.of(0.1), Float64Array.of(300), 0.1, 0.1, -1).lx[0] // Math.log(0.1)
  */
-export function lawDataRanged(x: Float64Array, y: Float64Array, lx: Float64Array, lo: number, hi: number, bad: number): LawData {
-  return { x, y, w: null, lx, lo, hi, bad };
+export function lawDataRanged(x: Float64Array, y: Float64Array, lo: number, hi: number, bad: number): LawData {
+  let lx: Float64Array | null = null;
+  return { x, y, w: null, get lx() { return (lx ??= Float64Array.from(x, Math.log)); }, lo, hi, bad };
 }
 
 function packed(x: ArrayLike<number>, y: ArrayLike<number>, w: Float64Array | null): LawData {

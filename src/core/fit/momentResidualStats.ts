@@ -126,7 +126,7 @@ export function momentResidualStats(law: LawName, d: LawData, p: Float64Array, m
   const rmse = Math.sqrt(Math.max(0, ssrEst) / nUsed);
   const limit = relTol * rmse, roundLimit = relTol * Math.max(0, ssrEst) / blocks;
   let exactBlocks = 0, exactPoints = 0, err = 0;
-  let scratch: Float64Array | null = null;
+  let scratch: Float64Array | null = null, lnScratch: Float64Array | null = null;
   for (let b = 0; b < count; b++) {
     if (!used[b]) continue;
     if (beta[b]! <= limit && round[b]! <= roundLimit) {
@@ -136,8 +136,12 @@ export function momentResidualStats(law: LawName, d: LawData, p: Float64Array, m
     }
     const a = b * size, z = Math.min(n, a + size);
     scratch ??= new Float64Array(size);
-    const out = scratch.subarray(0, z - a);
-    lawValues(law, x.subarray(a, z), d.lx.subarray(a, z), p, out);
+    lnScratch ??= new Float64Array(size);
+    const out = scratch.subarray(0, z - a), lnx = lnScratch.subarray(0, z - a);
+    // ln x of the block's points here, not d.lx: on a long flow curve (lawDataRanged) that column is made only when
+    // read, and these few blocks need only their own (the same numbers: Math.log of the same x).
+    for (let i = a; i < z; i++) lnx[i - a] = Math.log(x[i]!);
+    lawValues(law, x.subarray(a, z), lnx, p, out);
     const e = exactBlock(out, y, a, z);
     ssrB[b] = e.ssr; lagB[b] = e.lag; rFirst[b] = e.r0; rLast[b] = e.r1;
     exactBlocks++; exactPoints += z - a;

@@ -9,7 +9,7 @@ import { forceMaximum } from './forceMaximum.js';
 import { droppedRows, findGlitches, glitchRun, GLITCH } from './glitches.js';
 import { noiseLag1, recordNoiseWide } from './recordNoise.js';
 import { spreadStrainSteps, strainSteps, STRAIN_STEPS, type StrainSteps } from './strainSteps.js';
-import { nValueFit, nValueFitLogs, nValueFromLogs } from './nValue.js';
+import { nValueFit, nValueFromSums } from './nValue.js';
 import { lawDataRanged, type LawData } from '../fit/lawNormalEquations.js';
 import { LAW_NAMES } from '../flow/params.js';
 import { lawUniformElongation } from './lawTop.js';
@@ -481,7 +481,8 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   // once: on a 1,000,000-row record the former loops with pushes, a second log1p per point and the
   // true curve that `analyze` never prints were a tenth of the command (bench/RESULTS.md, issue 12 D).
   const flow = flowColumns(strain, stress, toe, E, iMax, proof ? toRecord(proof.index) : 0, fromTrue);
-  const { strain: fStrain, stress: fStress, logStrain, logStress } = flow;
+  const { strain: fStrain, stress: fStress } = flow;
+  let scaled = false; // the flow curve after a clear rate change scaled to the first rate (flow.logSums then stale)
   const nf = fStrain.length;
   // A change of the test rate on the plastic part (ISO 6892-1 method A raises it after yield): the flow stress steps
   // with the rate, and the laws fitted across the step bent to bridge it (an invented ×8 at 1 % on 46NT71: every
@@ -507,12 +508,12 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
       index: at, strain: strain[at]!, ratio: jump.ratio, stressBefore: before, step, stepHalfWidth95: st ? (before * st.halfWidth95) / (st.factor * st.factor) : null, clear,
       sensitivity: clear && step !== null ? Math.log1p(step / before) / Math.log(jump.ratio) : null, law: st?.law ?? null, flowCurveFactor: clear ? st!.factor : null,
     };
-    if (clear) scaleFlowAfter(fStrain, fStress, logStress, epAt, st!.factor);
+    if (clear) { scaleFlowAfter(fStrain, fStress, epAt, st!.factor); scaled = true; }
     warnings.push({ code: 'rateChange', message: rateChangeMessage(rateChange, toe, against) });
   }
-  // ln εp once, for the n-value and every law fit, and the range and first bad point the fits check (all taken
-  // in flowColumns' pass: the same operations on the same values as a pass of lawDataLogged; speed follow-up K).
-  const packed = nf > 0 ? lawDataRanged(fStrain, fStress, logStrain, flow.lo, flow.hi, flow.bad) : null;
+  // The fits' packing with the range and first bad point taken in flowColumns' pass (the same operations on the same
+  // values as a pass of lawDataLogged; speed follow-up K); ln εp only if a fit reads it (lawDataRanged).
+  const packed = nf > 0 ? lawDataRanged(fStrain, fStress, flow.lo, flow.hi, flow.bad) : null;
   // A flow-curve point with no positive stress (a run of zero or negative readings on the plastic part, which no
   // specimen gives): say where it is in the record, not in the flow curve the user never sees.
   if (packed && packed.bad >= 0) {
@@ -525,9 +526,7 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
   let nFit = null;
   {
     let xs: ArrayLike<number> = fStrain, ys: ArrayLike<number> = fStress;
-    let lx: Float64Array | undefined = packed?.lx;
     if (opts.nRange) {
-      lx = undefined;
       const [a, b] = opts.nRange;
       if (!(a >= 0 && b > a)) throw new InputError('nRange', opts.nRange, 'a pair [from, to] of engineering strains with 0 ≤ from < to');
       const xr: number[] = [], yr: number[] = [];
@@ -537,9 +536,9 @@ function analyzeStrainPart(strain: ArrayLike<number>, stress: ArrayLike<number>,
       }
       xs = xr; ys = yr;
     }
-    // Every point valid (packed.bad < 0: εp and σ finite and > 0): ln εp and ln σ as flowColumns took them, the range
-    // lawData found (the same regression on the same numbers as nValueFitLogs, without its copy and logarithm pass).
-    if (xs.length >= 3) nFit = lx && packed && packed.bad < 0 ? nValueFromLogs(lx, logStress, packed.lo, packed.hi) : lx ? nValueFitLogs(xs, ys, lx) : nValueFit(xs, ys);
+    // Over the whole flow curve with every point valid (packed.bad < 0: εp and σ finite and > 0), from the sums
+    // flowColumns took (no column of logarithms); after a rate change's scaling, or over a stated range, from the points.
+    if (xs.length >= 3) nFit = !opts.nRange && !scaled && packed && packed.bad < 0 ? nValueFromSums(flow.logSums, packed.lo, packed.hi) : nValueFit(xs, ys);
     else warnings.push({ code: 'nRange', message: `only ${xs.length} points in the n-value range; no n-value` });
   }
 
@@ -755,10 +754,9 @@ function withoutCycles(strain: ArrayLike<number>, stress: ArrayLike<number>, cyc
   return { strain: xs, stress: ys, kept, toView: (i) => view[Math.max(0, Math.min(n - 1, i))]! };
 }
 
-/** Multiplies the flow points from the first at or past true plastic strain `from` on by `factor` (σ, and ln σ by ln factor), in place. */
-function scaleFlowAfter(xs: Float64Array, ys: Float64Array, lys: Float64Array, from: number, factor: number): void {
-  const lf = Math.log(factor);
-  for (let i = firstAtOrPast(xs, from); i < xs.length; i++) { ys[i]! *= factor; lys[i]! += lf; }
+/** Multiplies the true stress of the flow points from the first at or past true plastic strain `from` on by `factor`, in place. */
+function scaleFlowAfter(xs: Float64Array, ys: Float64Array, from: number, factor: number): void {
+  for (let i = firstAtOrPast(xs, from); i < xs.length; i++) ys[i]! *= factor;
 }
 
 /** The `rateChange` warning's words: where, how much faster, the step and what was done with it (`against`: a clear step the other way from the rate's change). */

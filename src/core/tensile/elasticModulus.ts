@@ -146,14 +146,9 @@ export function elasticModulus(strain: ArrayLike<number>, stress: ArrayLike<numb
   if (rm === undefined) for (let i = 0; i < n; i++) top = Math.max(top, stress[i]!);
   if (!(top > 0)) throw new InputError('stress', top, 'a record whose highest stress is above 0 MPa');
   const noise = noiseIn ?? recordNoiseWide(stress);
-  // Running maximum of the first rise, to find "the first index at or above a level" by bisection.
+  // The first index of the first rise at or above a level, by bisection over its blocks' running maxima.
   const iTop = Math.min(n, firstBelowNot(stress, n, 0.98 * top) + 1);
-  const runMax = runningMax(stress, iTop);
-  const firstAt = (level: number) => {
-    let lo = 0, hi = iTop;
-    while (lo < hi) { const mid = (lo + hi) >> 1; if (runMax[mid]! >= level) hi = mid; else lo = mid + 1; }
-    return lo;
-  };
+  const firstAt = firstAtOrAbove(stress, iTop);
   const seOf = (f: Line) => f.se;
   const W = ELASTIC_WINDOW;
   // 2. First line.
@@ -321,14 +316,32 @@ function firstBelowNot(stress: ArrayLike<number>, n: number, level: number): num
   return i;
 }
 
-/** Running maximum of stress[0…m) by Math.max (from −Infinity: the first value itself). */
-function runningMax(stress: ArrayLike<number>, m: number): Float64Array {
-  const out = new Float64Array(m);
-  if (m === 0) return out;
-  let top = stress[0]!;
-  out[0] = top;
-  for (let i = 1; i < m; i++) { top = Math.max(top, stress[i]!); out[i] = top; }
-  return out;
+/** Samples per block of {@link firstAtOrAbove}'s running maxima. */
+const TOP_BLOCK = 64;
+
+/**
+ * The first i < m with stress[i] ≥ level (m if none), for any number of levels: bisection over the running maxima of
+ * blocks of TOP_BLOCK samples, then a scan inside the block found. The same index as a bisection over the running
+ * maximum of every sample (the first sample at or above a level is where that maximum first reaches it), with a
+ * column of m/64 values instead of m (3.9 MB on a 1,000,000-row record: fresh memory costs a page fault per 4 KiB,
+ * 11 µs each on the machines this project is measured on). Valid: finite stresses (analyzeRecord refuses others).
+ * @example firstAtOrAbove([1, 3, 2, 5], 4)(2.5) // 1
+ */
+export function firstAtOrAbove(stress: ArrayLike<number>, m: number): (level: number) => number {
+  const nb = Math.ceil(m / TOP_BLOCK), tops = new Float64Array(nb);
+  let top = m > 0 ? stress[0]! : 0; // the first value, not −Infinity (V8 boxed every new maximum from such a start)
+  for (let b = 0; b < nb; b++) {
+    for (let i = b * TOP_BLOCK, z = Math.min(m, i + TOP_BLOCK); i < z; i++) if (stress[i]! > top) top = stress[i]!;
+    tops[b] = top;
+  }
+  return (level: number) => {
+    let lo = 0, hi = nb;
+    while (lo < hi) { const mid = (lo + hi) >> 1; if (tops[mid]! >= level) hi = mid; else lo = mid + 1; }
+    if (lo === nb) return m;
+    let i = lo * TOP_BLOCK;
+    while (!(stress[i]! >= level)) i++;
+    return i;
+  };
 }
 
 /**

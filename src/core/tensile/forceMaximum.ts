@@ -1,6 +1,6 @@
 import { ComputationError } from '../errors.js';
 import { blockAverage } from '../fit/blockAverage.js';
-import { movingAverage, solveSmall } from './localFit.js';
+import { averageTopSpan, solveSmall } from './localFit.js';
 import { recordNoiseWide } from './recordNoise.js';
 
 /** Where the maximum of force is and how it was read. */
@@ -86,15 +86,11 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   if (!(n >= 3)) throw new ComputationError('record.maximumForce', `${n} samples between index ${from} and ${to}; at least 3 are needed to fit the top of the record`);
   let w = Math.max(5, Math.min(20001, Math.round(n / 50))) | 1;
   if (w > n) w = Math.max(1, n) | 1;
-  const topAt = new Float64Array(2);
-  const ma = movingAverage(stress, from, to, w, topAt);
-  // The first highest average, found in the averaging pass; `| 0` keeps it a small integer (read from a Float64Array
-  // it is a double, and the engine then read ma[j] and compared a < j by the slow generic path: 8–20 ms a 1M record).
-  const j = topAt[0]! | 0;
-  const delta = Math.max((3 * noise) / Math.sqrt(w), 0.01 * Math.abs(ma[j]!));
-  // Outermost samples whose average is within delta of the top (a contiguous scan would stop at the first
-  // noise dip of the average).
-  const a0 = firstAtLeast(ma, 0, j, ma[j]! - delta), b0 = lastAtLeast(ma, j, n - 1, ma[j]! - delta);
+  // The first highest average and the outermost samples whose average is within delta of it (a contiguous scan would
+  // stop at the first noise dip of the average), from two passes that keep no column of averages (averageTopSpan).
+  const top = averageTopSpan(stress, from, to, w, (t) => t - Math.max((3 * noise) / Math.sqrt(w), 0.01 * Math.abs(t)));
+  const j = top[0]! | 0, maTop = top[1]!;
+  const a0 = top[2]! | 0, b0 = top[3]! | 0;
   let a = a0, b = b0;
   // The averaging window blunts the top: widen the span by w/4 samples on each side.
   a = Math.max(0, a - (w >> 2)); b = Math.min(n - 1, b + (w >> 2));
@@ -268,7 +264,7 @@ export function forceMaximum(strain: ArrayLike<number>, stress: ArrayLike<number
   }
   const rmVertex = vertex(0), rmFit = rmVertex.f;
   let best = from + j;
-  if (!bestF) return { stress: ma[j]!, strain: strain[best]!, index: best, points: i1 - i0, span: [xa, xb], flat: false, strainInterval95: [xa, xb], strainInterval999: [xa, xb] };
+  if (!bestF) return { stress: maTop, strain: strain[best]!, index: best, points: i1 - i0, span: [xa, xb], flat: false, strainInterval95: [xa, xb], strainInterval999: [xa, xb] };
   // Profile interval of the vertex: scan xv over the span (G2 steps), keep the outermost xv still within the
   // χ²₁(0.95) band of the minimum; an end of the span still inside the band is reported as the span's end.
   // The kinked and the Rm model are scanned and the interval is their union with their vertices, the smooth
@@ -385,20 +381,6 @@ function topCell(strain: ArrayLike<number>, stress: ArrayLike<number>, from: num
   for (let i = from; i < to; i++) if (stress[i]! >= top - step) { if (a < 0) a = i; b = i; }
   const x0 = strain[Math.max(from, a - 1)]!, x1 = strain[Math.min(to - 1, b + 1)]!;
   return [Math.min(x0, x1), Math.max(x0, x1)];
-}
-
-/** The first k in [from, to) with a[k] ≥ level (a NaN stops it too, as a[k] < level fails), or `to`. A record-long loop in a function of its own, compiled on its own. */
-function firstAtLeast(a: Float64Array, from: number, to: number, level: number): number {
-  let k = from;
-  while (k < to && a[k]! < level) k++;
-  return k;
-}
-
-/** The last k in (from, to] with a[k] ≥ level, or `from`: the scan from the end down to `from`. */
-function lastAtLeast(a: Float64Array, from: number, to: number, level: number): number {
-  let k = to;
-  while (k > from && a[k]! < level) k--;
-  return k;
 }
 
 /** Samples [i0, i1) of a column: a view where the column is a typed array (no copy), else a copy. */

@@ -74,6 +74,90 @@ export function movingAverage(y: ArrayLike<number>, from: number, to: number, w:
   return out;
 }
 
+/**
+ * What forceMaximum reads of {@link movingAverage}(y, from, to, w), without its column of averages: the first highest
+ * average and the first and last index whose average is at least `level(highest)`. Two passes that make the same
+ * additions and subtractions in the same order as movingAverage, so the same averages bit for bit; the column itself
+ * (8 MB on a 1,000,000-row record) is never made. Written here because fresh memory costs a page fault per 4 KiB: on
+ * the machines this project is measured on, 11 µs each, so 20 ms for that column against 2–3 ms for the second pass
+ * (bench/RESULTS.md, twenty-fourth session).
+ * Units: those of y. Valid: to > from, w ≥ 1 odd.
+ * @returns [at, highest, first, last], indices counted from `from`.
+ * @example Array.from(averageTopSpan([1, 2, 3, 4, 3], 0, 5, 1, (t) => t - 1)) // [3, 4, 2, 4]
+ */
+export function averageTopSpan(y: ArrayLike<number>, from: number, to: number, w: number, level: (highest: number) => number): Float64Array {
+  const res = new Float64Array(4);
+  slide(y, from, to, w, false, 0, res);
+  slide(y, from, to, w, true, level(res[1]!), res);
+  return res;
+}
+
+/**
+ * movingAverage's three stretches with nothing stored: without `band`, the first highest average into res[0], res[1];
+ * with it, the first and last index whose average is not below `lev` into res[2], res[3] (as firstAtLeast and
+ * lastAtLeast read them from the column: `!(v < lev)`), or −1.
+ */
+function slide(y: ArrayLike<number>, from: number, to: number, w: number, band: boolean, lev: number, res: Float64Array): void {
+  const n = to - from;
+  const half = Math.max(0, (w - 1) >> 1);
+  let lo = 0, hi = -1, sum = 0, best = 0, at = 0, first = -1, last = -1;
+  let i = 0;
+  for (const head = Math.min(n, half + 1); i < head; i++) {
+    const a = Math.max(0, i - half), b = Math.min(n - 1, i + half);
+    while (hi < b) sum += y[from + ++hi]!;
+    while (lo < a) sum -= y[from + lo++]!;
+    const v = sum / (hi - lo + 1);
+    if (band) { if (!(v < lev)) { if (first < 0) first = i; last = i; } } else if (i === 0 || v > best) { best = v; at = i; }
+  }
+  if (i <= n - 1 - half) {
+    const full = 2 * half + 1, end = n - 1 - half;
+    if (band) {
+      res[2] = first; res[3] = last;
+      sum = fullWindowBand(y, from, half, i, end, sum, full, lev, res);
+      first = res[2]!; last = res[3]!;
+    } else {
+      res[0] = at; res[1] = best;
+      sum = fullWindowBest(y, from, half, i, end, sum, full, res);
+      at = res[0]!; best = res[1]!;
+    }
+    hi = end + half; lo = end - half;
+    i = end + 1;
+  }
+  for (; i < n; i++) {
+    const a = Math.max(0, i - half), b = Math.min(n - 1, i + half);
+    while (hi < b) sum += y[from + ++hi]!;
+    while (lo < a) sum -= y[from + lo++]!;
+    const v = sum / (hi - lo + 1);
+    if (band) { if (!(v < lev)) { if (first < 0) first = i; last = i; } } else if (v > best) { best = v; at = i; }
+  }
+  if (band) { res[2] = first; res[3] = last; } else { res[0] = at; res[1] = best; }
+}
+
+/** slide's full stretch for the highest average (res[0], res[1] in and out); returns the sum. */
+function fullWindowBest(y: ArrayLike<number>, from: number, half: number, first: number, end: number, sum: number, full: number, res: Float64Array): number {
+  let s = sum, at = res[0]!, best = res[1]!;
+  for (let i = first; i <= end; i++) {
+    s += y[from + i + half]!;
+    s -= y[from + i - half - 1]!;
+    const v = s / full;
+    if (v > best) { best = v; at = i; }
+  }
+  res[0] = at; res[1] = best;
+  return s;
+}
+
+/** slide's full stretch for the band (res[2], res[3] in and out); returns the sum. */
+function fullWindowBand(y: ArrayLike<number>, from: number, half: number, first: number, end: number, sum: number, full: number, lev: number, res: Float64Array): number {
+  let s = sum, f = res[2]!, l = res[3]!;
+  for (let i = first; i <= end; i++) {
+    s += y[from + i + half]!;
+    s -= y[from + i - half - 1]!;
+    if (!(s / full < lev)) { if (f < 0) f = i; l = i; }
+  }
+  res[2] = f; res[3] = l;
+  return s;
+}
+
 /** movingAverage's full-window stretch, i = first…end: sum += y[i + half], sum −= y[i − half − 1], out[i] = sum/full; returns the sum. */
 function fullWindow(y: ArrayLike<number>, from: number, half: number, first: number, end: number, sum: number, full: number, out: Float64Array): number {
   let s = sum;

@@ -3,7 +3,7 @@
 // bit on random data (seeded), and the documented examples (hand-computed).
 import { describe, expect, it } from 'vitest';
 import { xoshiro128ss } from '../../../src/core/index.js';
-import { movingAverage, polynomialFit } from '../../../src/core/tensile/localFit.js';
+import { averageTopSpan, movingAverage, polynomialFit } from '../../../src/core/tensile/localFit.js';
 
 /** The former movingAverage: one loop, window bounds by Math.max/min, a running sum. */
 function movingAverageReference(y: ArrayLike<number>, from: number, to: number, w: number): Float64Array {
@@ -83,6 +83,34 @@ describe('movingAverage', () => {
       expect(same(c, ref), `case ${t} with top`).toBe(true);
       expect(top[0], `case ${t}: first highest`).toBe(ref.indexOf(Math.max(...ref)));
     }
+  });
+});
+
+describe('averageTopSpan (forceMaximum without the column of averages)', () => {
+  it('the documented example (hand-computed)', () => {
+    expect(Array.from(averageTopSpan([1, 2, 3, 4, 3], 0, 5, 1, (t) => t - 1))).toEqual([3, 4, 2, 4]);
+  });
+  it('reads what the single-loop average column gives: first highest, its value, first and last average at least the level', () => {
+    const r = xoshiro128ss(31);
+    for (let t = 0; t < 400; t++) {
+      const len = 1 + (r.nextU32() % 400);
+      // a rise, a flat noisy top and a fall (the shape forceMaximum reads), with ties every few series
+      const y = Float64Array.from({ length: len }, (_, i) => 400 - 2e-3 * (i - len / 2) ** 2 + 8 * (r.nextFloat() - 0.5));
+      const yt = t % 4 === 0 ? y.map((v) => Math.min(v, 395)) : y;
+      const from = r.nextU32() % Math.max(1, len >> 2), to = from + 1 + (r.nextU32() % (len - from));
+      const w = 1 + 2 * (r.nextU32() % 60);
+      const drop = t % 7 === 0 ? 0 : 10 * r.nextFloat();
+      const ref = movingAverageReference(yt, from, to, w);
+      const top = Math.max(...ref), at = ref.indexOf(top), lev = top - drop;
+      let first = -1, last = -1;
+      ref.forEach((v, i) => { if (!(v < lev)) { if (first < 0) first = i; last = i; } });
+      const got = averageTopSpan(yt, from, to, w, (h) => h - drop);
+      expect([got[0], got[1], got[2], got[3]], `case ${t}: n ${to - from}, w ${w}`).toEqual([at, top, first, last]);
+      expect(Object.is(got[1], top)).toBe(true);
+    }
+  });
+  it('a level of NaN (no noise estimate) takes the whole range, as the scans over the column did', () => {
+    expect(Array.from(averageTopSpan([1, 5, 2, 1], 0, 4, 1, () => NaN))).toEqual([1, 5, 0, 3]);
   });
 });
 
