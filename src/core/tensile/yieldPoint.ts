@@ -113,6 +113,15 @@ export function yieldPoint(
   // (low-hardening steels), which would leave no plateau to read.
   let r = d;
   while (r < maxIndex && stress[r + 1]! < stress[r]! + noise) r++;
+  // A fall drawn out over several samples may hold one that rises by more than the noise part-way down: the walk
+  // stops there, and where ReH ≥ Rm that sample stood above every later one and bounded the plateau at itself (an
+  // INVENTED record, E 69 GPa, an 8.7 % drop over 10 samples, Rm 3 % below ReH: no yield point reported). Where the
+  // record rises again past the plateau's window (work hardening: a later sample 3σ̂ above the window's median), the
+  // search starts at the lowest sample of that window instead, on or past the fall's foot (on a continuous curve,
+  // the walk's end or within the noise of it). A top that necks at once never rises again and keeps the walk's end
+  // (its fall is maximum force and necking, not a drop).
+  const wEnd = windowEnd(strain, r, maxIndex, Y.plateauStrain, 5);
+  if (wEnd < maxIndex && stress[firstHighest(stress, wEnd, maxIndex)]! > medianOf(stress, r, wEnd + 1) + 3 * noise) r = lowestIn(stress, r, wEnd);
   maxIndex = firstHighest(stress, r, maxIndex);
   // The peak: the highest sample from the elastic band to the departure (still on the elastic line).
   let q = Math.max(fromIndex, d - 1);
@@ -310,6 +319,15 @@ export function yieldPlateau(strain: ArrayLike<number>, stress: ArrayLike<number
   if (d < 1) return null;
   let r = d;
   while (r < maxIndex && stress[r + 1]! < stress[r]! + noise) r++;
+  // A fall drawn out over several samples may hold one that rises by more than the noise part-way down: the walk
+  // stops there, and where ReH ≥ Rm that sample stood above every later one and bounded the plateau at itself (an
+  // INVENTED record, E 69 GPa, an 8.7 % drop over 10 samples, Rm 3 % below ReH: no yield point reported). Where the
+  // record rises again past the plateau's window (work hardening: a later sample 3σ̂ above the window's median), the
+  // search starts at the lowest sample of that window instead, on or past the fall's foot (on a continuous curve,
+  // the walk's end or within the noise of it). A top that necks at once never rises again and keeps the walk's end
+  // (its fall is maximum force and necking, not a drop).
+  const wEnd = windowEnd(strain, r, maxIndex, Y.plateauStrain, 5);
+  if (wEnd < maxIndex && stress[firstHighest(stress, wEnd, maxIndex)]! > medianOf(stress, r, wEnd + 1) + 3 * noise) r = lowestIn(stress, r, wEnd);
   maxIndex = firstHighest(stress, r, maxIndex);
   const pEnd = windowEnd(strain, d, maxIndex, Y.plateauStrain, 5);
   if (pEnd - d < 5) return null;
@@ -735,6 +753,13 @@ function windowEnd(strain: ArrayLike<number>, from: number, maxIndex: number, sp
   let j = from;
   while (j < maxIndex && (strain[j]! - strain[from]! < span || j - from < minCount)) j++;
   return j;
+}
+
+/** Index of the first lowest of y[from..to] (to included). */
+function lowestIn(y: ArrayLike<number>, from: number, to: number): number {
+  let k = from;
+  for (let i = from + 1; i <= to; i++) if (y[i]! < y[k]!) k = i;
+  return k;
 }
 
 /** Median (upper of the middle two) of y[from..to). */

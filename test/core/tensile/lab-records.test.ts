@@ -155,6 +155,28 @@ describe('analyzeRecord on 240 seeded invented lab records (noise 0.1–1 % of R
   }, 600_000); // a tally of hundreds of analyses: 50–130 s in CI on 2 cores, more under load
 });
 
+// The same generator on 240 further seeds, first run in the twenty-fourth session, after the analysis had been tuned
+// on the seeds above for twenty sessions: a check on records the analysis was not tuned on. Found there, and mended:
+// a yield drop of evidence 220 not reported (seed 70064: E 69 GPa, ReH 3 % above Rm, the walk down the drawn-out fall
+// stopped at a noise blip that stood above every later sample; yieldPoint.ts), and two serrated plateaus whose Rp0.2
+// was read 1.35–1.6 % above the troughs with no warning (70046, 70055: serrations at about the sample spacing, which the
+// plateau's average follows in part; plateauProofStrength's range now reaches the band's edges). Left: Rp0.2 of 70095
+// and 70225 (7 and 13 elastic samples under 0.8–0.86 % noise, warned, their 95 % ranges 0.4–0.6 MPa short of the truth).
+const FRESH = Array.from({ length: 240 }, (_, i) => 70000 + i);
+
+describe('analyzeRecord on 240 further seeds (70000–70239) of the same generator', () => {
+  it("issue 12's tolerances, with the same acceptances", () => {
+    const r = tally(FRESH);
+    const list = r.fails.join('\n');
+    console.log(`further seeds: ${r.fails.length} misses ${JSON.stringify(r.count)}; ${r.drops} recorded drops, ${r.continuous} continuous; Ag off by more than 0.4 point ${r.agOff}; accepted: ${JSON.stringify(r.accepted)}\n${list}`);
+    for (const k of ['threw', 'Rm', 'A', 'Ag', 'falseYield', 'falsePlateau', 'silentE', 'quietE', 'ReH', 'ReL', 'Ae', 'missedYield', 'falseStrainEnd', 'falseGlitch', 'falseSecondTest', 'falseRateChange', 'falseCycle']) expect(r.count[k] ?? 0, `${k}\n${list}`).toBe(0);
+    expect(r.count['Rp0.2'] ?? 0, list).toBeLessThanOrEqual(2);
+    expect(r.agOff).toBeLessThanOrEqual(10);
+    expect(r.drops).toBeGreaterThanOrEqual(60);
+    expect(r.continuous).toBeGreaterThanOrEqual(150);
+  }, 600_000);
+});
+
 describe('an impossible E is never used silently', () => {
   // Crosshead-style strain: the machine's compliance adds extension, so the elastic slope reads far below any
   // metal's modulus (40–450 GPa, common practice). Simulated by stretching the elastic rise 8× (INVENTED record).
