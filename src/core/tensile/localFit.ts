@@ -27,50 +27,13 @@ export class QuadraticFit {
 
 /**
  * Centred moving average of y over [from, to) with an odd window w (shrinking at the ends), one pass
- * with a running sum. With `top` (a one-element array), also the index of the first highest average into top[0],
- * found in the same pass (the caller's own pass over a million averages cost a fresh process about 3 ms).
+ * with a running sum ({@link averageTopSpan} reads the top of it without the column).
  * Units: those of y.
  * @example movingAverage([1, 2, 3, 4, 5], 0, 5, 3) // Float64Array [1.5, 2, 3, 4, 4.5]
  */
-export function movingAverage(y: ArrayLike<number>, from: number, to: number, w: number, top?: Float64Array): Float64Array {
-  const n = to - from;
-  const out = new Float64Array(Math.max(0, n));
-  const half = Math.max(0, (w - 1) >> 1);
-  let lo = 0, hi = -1, sum = 0;
-  let best = 0, at = 0; // the first highest average so far (a plain 0 start: see fullWindow)
-  // Three stretches with the same additions and subtractions in the same order (so the same numbers): the window
-  // growing at the start, the full window (one sample in, one out: no Math.max/min, no inner loops; on a
-  // 1,000,000-row record forceMaximum's average over the hardening branch ran slowly unoptimised in the general
-  // form, speed follow-up J), and the window shrinking at the end.
-  let i = 0;
-  for (const head = Math.min(n, half + 1); i < head; i++) {
-    const a = Math.max(0, i - half), b = Math.min(n - 1, i + half);
-    while (hi < b) sum += y[from + ++hi]!;
-    while (lo < a) sum -= y[from + lo++]!;
-    out[i] = sum / (hi - lo + 1);
-    if (i === 0 || out[i]! > best) { best = out[i]!; at = i; }
-  }
-  if (i <= n - 1 - half) {
-    // Here hi = i − 1 + half and lo = i − 1 − half (the previous step's window) and each step moves both by one.
-    const full = 2 * half + 1;
-    const end = n - 1 - half;
-    const first = i;
-    if (top) {
-      top[0] = at; top[1] = best;
-      sum = fullWindowTop(y, from, half, first, end, sum, full, out, top);
-      at = top[0]!; best = top[1]!;
-    } else sum = fullWindow(y, from, half, first, end, sum, full, out);
-    hi = end + half; lo = end - half;
-    i = end + 1;
-  }
-  for (; i < n; i++) {
-    const a = Math.max(0, i - half), b = Math.min(n - 1, i + half);
-    while (hi < b) sum += y[from + ++hi]!;
-    while (lo < a) sum -= y[from + lo++]!;
-    out[i] = sum / (hi - lo + 1);
-    if (out[i]! > best) { best = out[i]!; at = i; }
-  }
-  if (top) top[0] = at;
+export function movingAverage(y: ArrayLike<number>, from: number, to: number, w: number): Float64Array {
+  const out = new Float64Array(Math.max(0, to - from));
+  slide(y, from, to, w, STORE, 0, out);
   return out;
 }
 
@@ -87,17 +50,23 @@ export function movingAverage(y: ArrayLike<number>, from: number, to: number, w:
  */
 export function averageTopSpan(y: ArrayLike<number>, from: number, to: number, w: number, level: (highest: number) => number): Float64Array {
   const res = new Float64Array(4);
-  slide(y, from, to, w, false, 0, res);
-  slide(y, from, to, w, true, level(res[1]!), res);
+  slide(y, from, to, w, TOP, 0, res);
+  slide(y, from, to, w, BAND, level(res[1]!), res);
   return res;
 }
 
+/** What {@link slide} does with each average: store it, keep the first highest, or keep the band's first and last. */
+const STORE = 0, TOP = 1, BAND = 2;
+
 /**
- * movingAverage's three stretches with nothing stored: without `band`, the first highest average into res[0], res[1];
- * with it, the first and last index whose average is not below `lev` into res[2], res[3] (as firstAtLeast and
- * lastAtLeast read them from the column: `!(v < lev)`), or −1.
+ * The centred moving average's three stretches, with the same additions and subtractions in the same order (so the
+ * same numbers whatever is done with them): the window growing at the start, the full window (one sample in, one
+ * out: no Math.max/min, no inner loops; on a 1,000,000-row record forceMaximum's average over the hardening branch ran
+ * slowly unoptimised in the general form, speed follow-up J), and the window shrinking at the end. Each average is
+ * stored into res[i] (STORE), or the first highest kept in res[0], res[1] (TOP), or the first and last index whose
+ * average is not below `lev` in res[2], res[3], −1 if none (BAND: `!(v < lev)`, as scans over the column read it).
  */
-function slide(y: ArrayLike<number>, from: number, to: number, w: number, band: boolean, lev: number, res: Float64Array): void {
+function slide(y: ArrayLike<number>, from: number, to: number, w: number, mode: number, lev: number, res: Float64Array): void {
   const n = to - from;
   const half = Math.max(0, (w - 1) >> 1);
   let lo = 0, hi = -1, sum = 0, best = 0, at = 0, first = -1, last = -1;
@@ -107,11 +76,13 @@ function slide(y: ArrayLike<number>, from: number, to: number, w: number, band: 
     while (hi < b) sum += y[from + ++hi]!;
     while (lo < a) sum -= y[from + lo++]!;
     const v = sum / (hi - lo + 1);
-    if (band) { if (!(v < lev)) { if (first < 0) first = i; last = i; } } else if (i === 0 || v > best) { best = v; at = i; }
+    if (mode === STORE) res[i] = v; else if (mode === BAND) { if (!(v < lev)) { if (first < 0) first = i; last = i; } } else if (i === 0 || v > best) { best = v; at = i; }
   }
   if (i <= n - 1 - half) {
+    // Here hi = i − 1 + half and lo = i − 1 − half (the previous step's window) and each step moves both by one.
     const full = 2 * half + 1, end = n - 1 - half;
-    if (band) {
+    if (mode === STORE) sum = fullWindow(y, from, half, i, end, sum, full, res);
+    else if (mode === BAND) {
       res[2] = first; res[3] = last;
       sum = fullWindowBand(y, from, half, i, end, sum, full, lev, res);
       first = res[2]!; last = res[3]!;
@@ -128,9 +99,9 @@ function slide(y: ArrayLike<number>, from: number, to: number, w: number, band: 
     while (hi < b) sum += y[from + ++hi]!;
     while (lo < a) sum -= y[from + lo++]!;
     const v = sum / (hi - lo + 1);
-    if (band) { if (!(v < lev)) { if (first < 0) first = i; last = i; } } else if (v > best) { best = v; at = i; }
+    if (mode === STORE) res[i] = v; else if (mode === BAND) { if (!(v < lev)) { if (first < 0) first = i; last = i; } } else if (v > best) { best = v; at = i; }
   }
-  if (band) { res[2] = first; res[3] = last; } else { res[0] = at; res[1] = best; }
+  if (mode === BAND) { res[2] = first; res[3] = last; } else if (mode === TOP) { res[0] = at; res[1] = best; }
 }
 
 /** slide's full stretch for the highest average (res[0], res[1] in and out); returns the sum. */
@@ -169,22 +140,6 @@ function fullWindow(y: ArrayLike<number>, from: number, half: number, first: num
   return s;
 }
 
-/**
- * {@link fullWindow} keeping the first highest average: top holds [index, value] of the highest so far on entry and
- * on return (a function of its own so that the plain average keeps its loop without the comparison).
- */
-function fullWindowTop(y: ArrayLike<number>, from: number, half: number, first: number, end: number, sum: number, full: number, out: Float64Array, top: Float64Array): number {
-  let s = sum, at = top[0]!, best = top[1]!;
-  for (let i = first; i <= end; i++) {
-    s += y[from + i + half]!;
-    s -= y[from + i - half - 1]!;
-    const v = s / full;
-    out[i] = v;
-    if (v > best) { best = v; at = i; }
-  }
-  top[0] = at; top[1] = best;
-  return s;
-}
 
 /**
  * Least-squares polynomial of degree `deg` (1–3) in u = (x − x̄)/h over [from, to), by the normal
