@@ -62,8 +62,8 @@ export const LAW_TOP_MIN_WEIGHT = 0.5;
  * where the hardening rate falls to the stress (Considère), so a law's Ag depends on its shape towards the end of the
  * curve; its Akaike criterion over the whole curve also counts the part near yield, where the laws differ most. The
  * last tenth is left out: the curve ends at the maximum force read from the record, which on a flat noisy top may lie
- * past the true one (its last points may be the neck beginning). Measured over the five invented generators' noisy records (1,040: the property test's 240 and the four hold-outs'
- * 200 each), Ag off by more than 0.4 point: 92 with the whole-curve criteria; from 0.3 to 1 of the largest strain 74,
+ * past the true one (its last points may be the neck beginning). Measured over the five invented generators' noisy
+ * records (1,040: the property test's 240 and the four hold-outs' 200 each), Ag off by more than 0.4 point: 92 with the whole-curve criteria; from 0.3 to 1 of the largest strain 74,
  * 0.5–1 74, 0.5–0.9 77, 0.2–0.9 71, 0.3–0.9 71, of which outside an interval wider than ±0.4 point holding the truth 6,
  * 5, 4, 3, 4 and 3 (scratch study of the twenty-third session; a rule's Ag from the fits of each record): leaving the
  * last tenth out gave fewer records outside a warned interval from either start (5 → 3, 4 → 3). The effective

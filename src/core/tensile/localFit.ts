@@ -140,7 +140,6 @@ function fullWindow(y: ArrayLike<number>, from: number, half: number, first: num
   return s;
 }
 
-
 /**
  * Least-squares polynomial of degree `deg` (1–3) in u = (x − x̄)/h over [from, to), by the normal
  * equations solved with partial pivoting (Draper & Smith, *Applied Regression Analysis*, ch. 5; centring

@@ -113,15 +113,7 @@ export function yieldPoint(
   // (low-hardening steels), which would leave no plateau to read.
   let r = d;
   while (r < maxIndex && stress[r + 1]! < stress[r]! + noise) r++;
-  // A fall drawn out over several samples may hold one that rises by more than the noise part-way down: the walk
-  // stops there, and where ReH ≥ Rm that sample stood above every later one and bounded the plateau at itself (an
-  // INVENTED record, E 69 GPa, an 8.7 % drop over 10 samples, Rm 3 % below ReH: no yield point reported). Where the
-  // record rises again past the plateau's window (work hardening: a later sample 3σ̂ above the window's median), the
-  // search starts at the lowest sample of that window instead, on or past the fall's foot (on a continuous curve,
-  // the walk's end or within the noise of it). A top that necks at once never rises again and keeps the walk's end
-  // (its fall is maximum force and necking, not a drop).
-  const wEnd = windowEnd(strain, r, maxIndex, Y.plateauStrain, 5);
-  if (wEnd < maxIndex && stress[firstHighest(stress, wEnd, maxIndex)]! > medianOf(stress, r, wEnd + 1) + 3 * noise) r = lowestIn(stress, r, wEnd);
+  r = maxForceSearchStart(strain, stress, r, maxIndex, noise);
   maxIndex = firstHighest(stress, r, maxIndex);
   // The peak: the highest sample from the elastic band to the departure (still on the elastic line).
   let q = Math.max(fromIndex, d - 1);
@@ -319,15 +311,7 @@ export function yieldPlateau(strain: ArrayLike<number>, stress: ArrayLike<number
   if (d < 1) return null;
   let r = d;
   while (r < maxIndex && stress[r + 1]! < stress[r]! + noise) r++;
-  // A fall drawn out over several samples may hold one that rises by more than the noise part-way down: the walk
-  // stops there, and where ReH ≥ Rm that sample stood above every later one and bounded the plateau at itself (an
-  // INVENTED record, E 69 GPa, an 8.7 % drop over 10 samples, Rm 3 % below ReH: no yield point reported). Where the
-  // record rises again past the plateau's window (work hardening: a later sample 3σ̂ above the window's median), the
-  // search starts at the lowest sample of that window instead, on or past the fall's foot (on a continuous curve,
-  // the walk's end or within the noise of it). A top that necks at once never rises again and keeps the walk's end
-  // (its fall is maximum force and necking, not a drop).
-  const wEnd = windowEnd(strain, r, maxIndex, Y.plateauStrain, 5);
-  if (wEnd < maxIndex && stress[firstHighest(stress, wEnd, maxIndex)]! > medianOf(stress, r, wEnd + 1) + 3 * noise) r = lowestIn(stress, r, wEnd);
+  r = maxForceSearchStart(strain, stress, r, maxIndex, noise);
   maxIndex = firstHighest(stress, r, maxIndex);
   const pEnd = windowEnd(strain, d, maxIndex, Y.plateauStrain, 5);
   if (pEnd - d < 5) return null;
@@ -753,6 +737,21 @@ function windowEnd(strain: ArrayLike<number>, from: number, maxIndex: number, sp
   let j = from;
   while (j < maxIndex && (strain[j]! - strain[from]! < span || j - from < minCount)) j++;
   return j;
+}
+
+/**
+ * Where the search for maximum force after a fall starts, given the walk's end r (the first sample past the departure
+ * that rises by more than the noise). A fall drawn out over several samples may hold one that rises by more than the
+ * noise part-way down: the walk stops there, and where ReH ≥ Rm that sample stood above every later one and bounded the
+ * plateau at itself (an INVENTED record, E 69 GPa, an 8.7 % drop over 10 samples, Rm 3 % below ReH: no yield point
+ * reported). Where the record rises again past the plateau's window (work hardening: a later sample 3σ̂ above the
+ * window's median), the search starts at the lowest sample of that window instead, on or past the fall's foot (on a
+ * continuous curve, the walk's end or within the noise of it). A top that necks at once never rises again and keeps
+ * the walk's end (its fall is maximum force and necking, not a drop). Used by yieldPoint and yieldPlateau alike.
+ */
+function maxForceSearchStart(strain: ArrayLike<number>, stress: ArrayLike<number>, r: number, maxIndex: number, noise: number): number {
+  const wEnd = windowEnd(strain, r, maxIndex, YIELD_DROP.plateauStrain, 5);
+  return wEnd < maxIndex && stress[firstHighest(stress, wEnd, maxIndex)]! > medianOf(stress, r, wEnd + 1) + 3 * noise ? lowestIn(stress, r, wEnd) : r;
 }
 
 /** Index of the first lowest of y[from..to] (to included). */
